@@ -1,0 +1,58 @@
+import type { Routes } from '@angular/router';
+import { type AccessData, accessGuard } from './core/session/access-guard';
+
+/**
+ * The one route table. Every route declares who may open it in `data.access` (public,
+ * signedIn or a list of roles), checked by accessGuard; nav-items.ts repeats the access for
+ * the entries it shows. Pages load lazily.
+ */
+export const routes: Routes = [
+  {
+    path: 'sign-in',
+    title: 'Sign in · Kerfbook',
+    data: { access: 'public' } satisfies AccessData,
+    loadComponent: () => import('./sign-in/sign-in').then((m) => m.SignIn),
+  },
+  {
+    path: '',
+    canActivate: [accessGuard],
+    data: { access: 'signedIn' } satisfies AccessData,
+    loadComponent: () => import('./core/shell/shell').then((m) => m.Shell),
+    children: [
+      { path: '', pathMatch: 'full', redirectTo: 'today' },
+      {
+        path: 'today',
+        title: 'Today · Kerfbook',
+        canActivate: [accessGuard],
+        data: { access: 'signedIn' } satisfies AccessData,
+        loadComponent: () => import('./today/today').then((m) => m.Today),
+      },
+      {
+        path: 'people',
+        canActivate: [accessGuard],
+        data: { access: ['admin'] } satisfies AccessData,
+        loadChildren: () => import('./people/people.routes').then((m) => m.peopleRoutes),
+      },
+      {
+        path: 'account',
+        title: 'My account · Kerfbook',
+        canActivate: [accessGuard],
+        data: { access: 'signedIn' } satisfies AccessData,
+        loadComponent: () => import('./account/account').then((m) => m.Account),
+      },
+      {
+        path: 'not-allowed',
+        title: 'Not allowed · Kerfbook',
+        canActivate: [accessGuard],
+        data: { access: 'signedIn' } satisfies AccessData,
+        loadComponent: () => import('./not-allowed/not-allowed').then((m) => m.NotAllowed),
+      },
+    ],
+  },
+  {
+    path: '**',
+    title: 'Page not found · Kerfbook',
+    data: { access: 'public' } satisfies AccessData,
+    loadComponent: () => import('./not-found/not-found').then((m) => m.NotFound),
+  },
+];

@@ -1,0 +1,19 @@
+import type { Access } from '../../../../shared/roles';
+
+/** One entry of the side navigation. Shown only to users whose roles meet `access`. */
+export interface NavItem {
+  label: string;
+  /** Ligature name in the Material Icons font. */
+  icon: string;
+  /** Absolute router path. */
+  path: string;
+  /** Should match the access of the route it opens (app.routes.ts). */
+  access: Access;
+}
+
+/** Add an entry here when its screen exists, never before. */
+export const NAV_ITEMS: readonly NavItem[] = [
+  { label: 'Today', icon: 'today', path: '/today', access: 'signedIn' },
+  { label: 'People', icon: 'group', path: '/people', access: ['admin'] },
+  { label: 'My account', icon: 'manage_accounts', path: '/account', access: 'signedIn' },
+];

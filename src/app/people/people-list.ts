@@ -1,0 +1,229 @@
+import { DatePipe } from '@angular/common';
+import { ChangeDetectionStrategy, Component, computed, inject, linkedSignal, signal } from '@angular/core';
+import { takeUntilDestroyed, toObservable, toSignal } from '@angular/core/rxjs-interop';
+import { NonNullableFormBuilder, ReactiveFormsModule } from '@angular/forms';
+import { MatButtonModule } from '@angular/material/button';
+import { MatChipsModule } from '@angular/material/chips';
+import { MatDialog } from '@angular/material/dialog';
+import { MatFormFieldModule } from '@angular/material/form-field';
+import { MatIconModule } from '@angular/material/icon';
+import { MatInputModule } from '@angular/material/input';
+import { MatMenuModule } from '@angular/material/menu';
+import { MatPaginatorModule, type PageEvent } from '@angular/material/paginator';
+import { MatProgressBarModule } from '@angular/material/progress-bar';
+import { MatSelectModule } from '@angular/material/select';
+import { MatSnackBar } from '@angular/material/snack-bar';
+import { MatSortModule, type Sort } from '@angular/material/sort';
+import { MatTableModule } from '@angular/material/table';
+import { catchError, debounceTime, distinctUntilChanged, firstValueFrom, map, of, switchMap } from 'rxjs';
+import type { Page, UserDto } from '../../../shared/api-types';
+import { ROLES, ROLE_INFO, type Role } from '../../../shared/roles';
+import { USER_SORT_FIELDS, type UserListQuery } from '../../../shared/schemas/users';
+import { Session } from '../core/session/session';
+import { ConfirmDialog, type ConfirmDialogData } from '../ui/confirm-dialog';
+import { PeopleApi } from './people-api';
+import { PersonFormDialog, type PersonFormDialogData } from './person-form-dialog';
+import { TemporaryPasswordDialog, type TemporaryPasswordDialogData } from './temporary-password-dialog';
+
+type SortField = (typeof USER_SORT_FIELDS)[number];
+type StatusFilter = UserListQuery['status'];
+
+/** How long the search box waits for typing to pause before asking the server. */
+export const SEARCH_DEBOUNCE_MS = 300;
+
+/** Admin: the lab's people, sorted, filtered and paged by the server. */
+@Component({
+  selector: 'kb-people-list',
+  imports: [
+    DatePipe,
+    MatButtonModule,
+    MatChipsModule,
+    MatFormFieldModule,
+    MatIconModule,
+    MatInputModule,
+    MatMenuModule,
+    MatPaginatorModule,
+    MatProgressBarModule,
+    MatSelectModule,
+    MatSortModule,
+    MatTableModule,
+    ReactiveFormsModule,
+  ],
+  templateUrl: './people-list.html',
+  styleUrl: './people-list.scss',
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
+export class PeopleList {
+  private readonly api = inject(PeopleApi);
+  private readonly dialog = inject(MatDialog);
+  private readonly snackBar = inject(MatSnackBar);
+  private readonly session = inject(Session);
+  private readonly fb = inject(NonNullableFormBuilder);
+
+  protected readonly columns = ['username', 'displayName', 'email', 'roles', 'status', 'lastSignInAt', 'actions'];
+  protected readonly roleOptions = ROLES.map((role) => ({ role, label: ROLE_INFO[role].label }));
+  protected readonly roleLabel = (role: Role) => ROLE_INFO[role].label;
+  protected readonly pageSizeOptions = [10, 25, 50, 100];
+
+  protected readonly search = this.fb.control('');
+  protected readonly roleFilter = this.fb.control<Role | ''>('');
+  protected readonly statusFilter = this.fb.control<StatusFilter>('active');
+
+  private readonly q = toSignal(
+    this.search.valueChanges.pipe(
+      map((text) => text.trim()),
+      debounceTime(SEARCH_DEBOUNCE_MS),
+      distinctUntilChanged(),
+    ),
+    { initialValue: '' },
+  );
+  private readonly role = toSignal(this.roleFilter.valueChanges, { initialValue: this.roleFilter.value });
+  private readonly status = toSignal(this.statusFilter.valueChanges, { initialValue: this.statusFilter.value });
+  protected readonly sort = signal<{ active: SortField; direction: 'asc' | 'desc' }>({ active: 'username', direction: 'asc' });
+  protected readonly pageSize = signal(25);
+  /** Back to the first page whenever the filters or the order change. */
+  protected readonly pageIndex = linkedSignal({
+    source: () => [this.q(), this.role(), this.status(), this.sort(), this.pageSize()] as const,
+    computation: () => 0,
+  });
+  /** Bumped after an edit so the same query is asked again. */
+  private readonly reloads = signal(0);
+
+  private readonly query = computed<Partial<UserListQuery>>(() => ({
+    page: this.pageIndex(),
+    pageSize: this.pageSize(),
+    sort: this.sort().active,
+    dir: this.sort().direction,
+    q: this.q() || undefined,
+    role: this.role() || undefined,
+    status: this.status(),
+  }));
+
+  protected readonly loading = signal(true);
+  protected readonly loadFailed = signal(false);
+  protected readonly result = signal<Page<UserDto>>({ items: [], total: 0, page: 0, pageSize: 25 });
+  protected readonly currentUserId = computed(() => this.session.user()?.id);
+
+  constructor() {
+    toObservable(computed(() => ({ query: this.query(), reload: this.reloads() })))
+      .pipe(
+        switchMap(({ query }) => {
+          this.loading.set(true);
+          // The error interceptor has already told the user what went wrong.
+          return this.api.list(query).pipe(catchError(() => of(null)));
+        }),
+        takeUntilDestroyed(),
+      )
+      .subscribe((page) => {
+        this.loading.set(false);
+        this.loadFailed.set(page === null);
+        if (page) this.result.set(page);
+      });
+  }
+
+  protected changeSort(sort: Sort): void {
+    const active = USER_SORT_FIELDS.find((field) => field === sort.active) ?? 'username';
+    this.sort.set({ active, direction: sort.direction === 'desc' ? 'desc' : 'asc' });
+  }
+
+  protected changePage(event: PageEvent): void {
+    if (event.pageSize !== this.pageSize()) {
+      this.pageSize.set(event.pageSize);
+    } else {
+      this.pageIndex.set(event.pageIndex);
+    }
+  }
+
+  protected clearSearch(): void {
+    this.search.setValue('');
+  }
+
+  protected addPerson(): void {
+    this.dialog
+      .open<PersonFormDialog, PersonFormDialogData, UserDto>(PersonFormDialog, { data: {}, width: '600px', maxWidth: '95vw' })
+      .afterClosed()
+      .subscribe((person) => {
+        if (!person) return;
+        this.snackBar.open(
+          `${person.displayName} was added. Hand over the temporary password; it must be changed at the first sign-in.`,
+          'OK',
+          { duration: 8000 },
+        );
+        this.reload();
+      });
+  }
+
+  protected editPerson(person: UserDto): void {
+    this.dialog
+      .open<PersonFormDialog, PersonFormDialogData, UserDto>(PersonFormDialog, { data: { person }, width: '600px', maxWidth: '95vw' })
+      .afterClosed()
+      .subscribe((saved) => {
+        if (!saved) return;
+        this.snackBar.open(`Changes to ${saved.displayName} were saved.`, 'OK', { duration: 5000 });
+        this.reload();
+      });
+  }
+
+  protected setTemporaryPassword(person: UserDto): void {
+    this.dialog
+      .open<TemporaryPasswordDialog, TemporaryPasswordDialogData, UserDto>(TemporaryPasswordDialog, {
+        data: { person },
+        width: '520px',
+        maxWidth: '95vw',
+      })
+      .afterClosed()
+      .subscribe((saved) => {
+        if (!saved) return;
+        this.snackBar.open(`${saved.displayName} must change the temporary password at the next sign-in.`, 'OK', {
+          duration: 8000,
+        });
+        this.reload();
+      });
+  }
+
+  protected async deactivate(person: UserDto): Promise<void> {
+    const confirmed = await this.confirm({
+      title: `Deactivate ${person.displayName}?`,
+      message: [
+        `${person.displayName} (${person.username}) will no longer be able to sign in.`,
+        'Their history is kept: the drafts, signatures, cut records and trail entries with their name stay as they are.',
+        'You can reactivate the account at any time.',
+      ],
+      confirmLabel: 'Deactivate',
+    });
+    if (!confirmed) return;
+    await this.runAction(() => this.api.deactivate(person.id), `${person.displayName} was deactivated.`);
+  }
+
+  protected async reactivate(person: UserDto): Promise<void> {
+    const confirmed = await this.confirm({
+      title: `Reactivate ${person.displayName}?`,
+      message: [
+        `${person.displayName} (${person.username}) will be able to sign in again with their roles as they are now.`,
+        'Their history was kept while the account was inactive.',
+      ],
+      confirmLabel: 'Reactivate',
+    });
+    if (!confirmed) return;
+    await this.runAction(() => this.api.reactivate(person.id), `${person.displayName} was reactivated.`);
+  }
+
+  private async confirm(data: ConfirmDialogData): Promise<boolean> {
+    const ref = this.dialog.open<ConfirmDialog, ConfirmDialogData, boolean>(ConfirmDialog, { data, maxWidth: '95vw', width: '480px' });
+    return (await firstValueFrom(ref.afterClosed())) === true;
+  }
+
+  private async runAction(action: () => ReturnType<PeopleApi['deactivate']>, done: string): Promise<void> {
+    try {
+      await firstValueFrom(action());
+      this.snackBar.open(done, 'OK', { duration: 5000 });
+      this.reload();
+    } catch {
+      // Shown by the error interceptor.
+    }
+  }
+
+  private reload(): void {
+    this.reloads.update((n) => n + 1);
+  }
+}

@@ -1,0 +1,97 @@
+import { ChangeDetectionStrategy, Component, inject, input, signal } from '@angular/core';
+import { NonNullableFormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
+import { MatButtonModule } from '@angular/material/button';
+import { MatFormFieldModule } from '@angular/material/form-field';
+import { MatIconModule } from '@angular/material/icon';
+import { MatInputModule } from '@angular/material/input';
+import { MatProgressSpinnerModule } from '@angular/material/progress-spinner';
+import { Router } from '@angular/router';
+import { signInBody } from '../../../shared/schemas/session';
+import { controlMessage } from '../core/forms/control-message';
+import { applyServerErrors } from '../core/forms/server-errors';
+import { zodValidator } from '../core/forms/zod-validator';
+import { isApiError } from '../core/http/api-error';
+import { safeReturnUrl } from '../core/session/return-url';
+import { Session } from '../core/session/session';
+
+/** Words used when the server's answer carries no message of its own. */
+const FALLBACK_MESSAGES: Record<number, string> = {
+  401: 'That username and password do not match an active account.',
+  403: 'This account cannot sign in. Ask an admin of your lab.',
+  429: 'Too many sign-in attempts. Wait a few minutes, then try again.',
+};
+
+@Component({
+  selector: 'kb-sign-in',
+  imports: [
+    MatButtonModule,
+    MatFormFieldModule,
+    MatIconModule,
+    MatInputModule,
+    MatProgressSpinnerModule,
+    ReactiveFormsModule,
+  ],
+  templateUrl: './sign-in.html',
+  styleUrl: './sign-in.scss',
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
+export class SignIn {
+  private readonly session = inject(Session);
+  private readonly router = inject(Router);
+
+  /** Where to go after signing in; bound from the query string. */
+  readonly returnUrl = input<string>();
+
+  protected readonly form = inject(NonNullableFormBuilder).group({
+    username: ['', [Validators.required, zodValidator(signInBody.shape.username)]],
+    password: ['', [Validators.required]],
+  });
+  protected readonly busy = signal(false);
+  protected readonly formError = signal('');
+  protected readonly showPassword = signal(false);
+  protected readonly controlMessage = controlMessage;
+
+  constructor() {
+    if (this.session.isSignedIn()) void this.router.navigateByUrl(safeReturnUrl(this.returnUrl()));
+  }
+
+  protected togglePasswordVisibility(): void {
+    this.showPassword.update((shown) => !shown);
+  }
+
+  protected async signIn(): Promise<void> {
+    this.formError.set('');
+    if (this.form.invalid) {
+      this.form.markAllAsTouched();
+      return;
+    }
+    this.busy.set(true);
+    try {
+      const { username, password } = this.form.getRawValue();
+      const user = await this.session.signIn(username, password);
+      if (user.mustChangePassword) {
+        await this.router.navigate(['/account'], { queryParams: { returnUrl: safeReturnUrl(this.returnUrl()) } });
+      } else {
+        await this.router.navigateByUrl(safeReturnUrl(this.returnUrl()));
+      }
+    } catch (e) {
+      this.showFailure(e);
+    } finally {
+      this.busy.set(false);
+    }
+  }
+
+  private showFailure(e: unknown): void {
+    if (!isApiError(e)) {
+      this.formError.set('Signing in failed. Try again.');
+      return;
+    }
+    if (e.status === 400) {
+      const rest = applyServerErrors(this.form, e.errors);
+      this.formError.set(rest.join(' '));
+      return;
+    }
+    this.form.controls.password.reset();
+    this.formError.set(e.generalMessage || FALLBACK_MESSAGES[e.status] || 'Signing in failed. Try again.');
+  }
+}
