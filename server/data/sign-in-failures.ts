@@ -1,0 +1,29 @@
+/** Queries on `sign_in_failures`, the shared counter behind the sign-in limit. */
+import type { Knex } from 'knex';
+
+export interface FailureWindow {
+  count: number;
+  /** The oldest failure still inside the window; the limit lifts when it leaves it. */
+  oldest: Date | null;
+}
+
+export async function failuresSince(db: Knex, username: string, clientAddress: string, since: Date): Promise<FailureWindow> {
+  const row = (await db('sign_in_failures')
+    .where({ username, client_address: clientAddress })
+    .andWhere('failed_at', '>', since)
+    .first(db.raw('count(*) as count'), db.raw('min(failed_at) as oldest'))) as { count: number; oldest: Date | null };
+  return { count: Number(row.count), oldest: row.oldest ? new Date(row.oldest) : null };
+}
+
+export async function insertFailure(db: Knex, username: string, clientAddress: string, at: Date): Promise<void> {
+  await db('sign_in_failures').insert({ username, client_address: clientAddress, failed_at: at });
+}
+
+export async function clearFailures(db: Knex, username: string, clientAddress: string): Promise<void> {
+  await db('sign_in_failures').where({ username, client_address: clientAddress }).del();
+}
+
+/** Rows far outside any window are useless; dropped now and then so the table stays small. */
+export async function deleteFailuresBefore(db: Knex, before: Date): Promise<void> {
+  await db('sign_in_failures').where('failed_at', '<', before).del();
+}
