@@ -1,0 +1,78 @@
+/**
+ * Builds the Express app; only main.ts / serve.ts listen. Tests import createApp and
+ * drive it with supertest.
+ */
+import express, { type Express, type Router } from 'express';
+import cookieParser from 'cookie-parser';
+import type { Knex } from 'knex';
+import type { Config } from './config';
+import { createAuthenticator } from './web/authentication';
+import { jsonBody, requireJsonContentType } from './web/body-parsing';
+import { createCsrf } from './web/csrf';
+import { apiNotFound, errorHandler } from './web/error-handler';
+import { buildRouter } from './web/router';
+import { routes } from './web/routes';
+import { securityHeaders } from './web/security-headers';
+import { sessionMiddleware } from './web/session-cookie';
+import { SessionStore } from './web/session-store';
+import { spa } from './web/spa';
+
+export interface AppDeps {
+  config: Config;
+  db: Knex;
+  /**
+   * Extra API routes mounted after the route table and before the JSON 404, behind the
+   * same session, CSRF and error handling. For tests (e.g. to provoke a fault); the real
+   * app passes nothing.
+   */
+  extraApiRouter?: Router;
+  /** How often expired sessions are deleted; 0 turns it off. Default one hour. */
+  sessionCleanupIntervalMs?: number;
+  /** Where server faults are logged. Default console.error. */
+  log?: (...args: unknown[]) => void;
+}
+
+export interface KerfbookApp {
+  app: Express;
+  /** Resolves when the session store has checked its table; listen only after it. */
+  ready: Promise<void>;
+  /** Stops the app's background work (session clean-up). Does not close the database. */
+  close(): void;
+}
+
+/** Turns the TRUST_PROXY text into Express's `trust proxy` value. */
+export function trustProxyValue(setting: string | false): boolean | number | string {
+  if (setting === false) return false;
+  if (setting === 'true') return true;
+  if (/^\d+$/.test(setting)) return Number(setting);
+  return setting;
+}
+
+export function createApp(deps: AppDeps): KerfbookApp {
+  const { config, db } = deps;
+  const app = express();
+  app.disable('x-powered-by');
+  app.set('trust proxy', trustProxyValue(config.trustProxy));
+
+  const store = new SessionStore(db, deps.sessionCleanupIntervalMs ?? 60 * 60 * 1000);
+  const csrf = createCsrf(config.sessionSecret);
+  const auth = createAuthenticator(db);
+
+  app.use(securityHeaders({ behindTls: config.trustProxy !== false }));
+
+  // Order matters: body → session → passport (who) → CSRF → per-route access → handler.
+  // CSRF before access, so a forged request never learns more than 403; access then
+  // answers 401/403 for requests that carry a valid token.
+  app.use('/api', requireJsonContentType, jsonBody, cookieParser(), sessionMiddleware(store, config.sessionSecret));
+  app.use('/api', auth.initialize(), auth.session());
+  app.use('/api', csrf.protect);
+  app.use(buildRouter(routes, { db, csrf, auth }));
+  if (deps.extraApiRouter) app.use('/api', deps.extraApiRouter);
+  app.use('/api', apiNotFound);
+
+  app.use(spa(config.distDir));
+  app.use(errorHandler(deps.log));
+
+  const ready = store.ready.then(() => undefined);
+  return { app, ready, close: () => store.stopCleanup() };
+}

@@ -1,0 +1,53 @@
+/**
+ * The session store on MariaDB (connect-session-knex 5), made safe for a database that
+ * comes and goes. The library calls our callback and then re-throws, and its touch()
+ * never calls back on failure; express-session ignores the returned promises, so a
+ * database outage would crash the process with an unhandled rejection. Here every
+ * failure goes to the callback (→ 503) and nothing is left unhandled.
+ */
+import { ConnectSessionKnexStore } from 'connect-session-knex';
+import type { SessionData } from 'express-session';
+import type { Knex } from 'knex';
+
+type Callback = (err?: unknown, value?: unknown) => void;
+
+function quiet<T>(promise: Promise<T>): Promise<T> {
+  promise.catch(() => undefined);
+  return promise;
+}
+
+export class SessionStore extends ConnectSessionKnexStore {
+  constructor(db: Knex, cleanupIntervalMs: number) {
+    super({
+      knex: db,
+      tableName: 'sessions',
+      // The table comes from a migration (migrations/…_create_sessions.ts).
+      createTable: false,
+      cleanupInterval: cleanupIntervalMs,
+      onDbCleanupError: (err) => console.error('[sessions] could not delete expired sessions:', (err as Error).message),
+    });
+    quiet(this.ready);
+  }
+
+  override get(sid: string, callback: (err: unknown, session?: SessionData | null) => void) {
+    return quiet(super.get(sid, callback));
+  }
+
+  override set(sid: string, session: SessionData, callback?: (err?: unknown) => void) {
+    return quiet(super.set(sid, session, callback));
+  }
+
+  override destroy(sid: string, callback?: (err?: unknown) => void) {
+    return quiet(super.destroy(sid, callback));
+  }
+
+  override touch(sid: string, session: SessionData, callback?: Callback) {
+    return super.touch(sid, session, callback).catch((err: unknown) => callback?.(err));
+  }
+
+  /** Stops the periodic clean-up so a closed app leaves no timer behind. */
+  stopCleanup(): void {
+    if (this.nextDbCleanup) clearTimeout(this.nextDbCleanup);
+    this.options.cleanupInterval = 0;
+  }
+}
