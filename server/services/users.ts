@@ -50,7 +50,11 @@ function isDuplicateKey(err: unknown): boolean {
   return (err as { code?: string } | null)?.code === 'ER_DUP_ENTRY';
 }
 
-export async function createUser(db: Knex, actor: Actor, input: CreateUserBody): Promise<UserDto> {
+/**
+ * Creates a person. The password is temporary (must be changed at first sign-in) unless
+ * the person chose it themselves, as with `npm run admin:create`.
+ */
+export async function createUser(db: Knex, actor: Actor, input: CreateUserBody, options: { passwordIsTemporary?: boolean } = {}): Promise<UserDto> {
   // Hash outside the transaction: it is slow and needs no lock.
   const passwordHash = await hashPassword(input.temporaryPassword);
   try {
@@ -63,7 +67,7 @@ export async function createUser(db: Knex, actor: Actor, input: CreateUserBody):
           display_name: input.displayName,
           email: input.email,
           password_hash: passwordHash,
-          must_change_password: true,
+          must_change_password: options.passwordIsTemporary ?? true,
         },
         sortRoles(input.roles),
         new Date(),
