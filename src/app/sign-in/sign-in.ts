@@ -44,7 +44,7 @@ export class SignIn {
 
   protected readonly form = inject(NonNullableFormBuilder).group({
     username: ['', [Validators.required, zodValidator(signInBody.shape.username)]],
-    password: ['', [Validators.required]],
+    password: ['', [Validators.required, zodValidator(signInBody.shape.password)]],
   });
   protected readonly busy = signal(false);
   protected readonly formError = signal('');
