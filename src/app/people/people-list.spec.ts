@@ -1,0 +1,137 @@
+import { provideHttpClient, withInterceptors } from '@angular/common/http';
+import { HttpTestingController, type TestRequest, provideHttpClientTesting } from '@angular/common/http/testing';
+import { signal } from '@angular/core';
+import { type ComponentFixture, TestBed } from '@angular/core/testing';
+import { TestbedHarnessEnvironment } from '@angular/cdk/testing/testbed';
+import { MatPaginatorHarness } from '@angular/material/paginator/testing';
+import { MatSelectHarness } from '@angular/material/select/testing';
+import { MatSortHarness } from '@angular/material/sort/testing';
+import { provideRouter } from '@angular/router';
+import type { Page, UserDto } from '../../../shared/api-types';
+import { aUser } from '../../testing/user-fixture';
+import { errorInterceptor } from '../core/http/error-interceptor';
+import { Session } from '../core/session/session';
+import { PeopleList, SEARCH_DEBOUNCE_MS } from './people-list';
+
+describe('PeopleList', () => {
+  let fixture: ComponentFixture<PeopleList>;
+  let backend: HttpTestingController;
+  let root: HTMLElement;
+
+  const people: UserDto[] = [
+    aUser({ id: 1, username: 'admin.kowalczyk', displayName: 'Iwona Kowalczyk', roles: ['admin', 'approver'], lastSignInAt: '2026-11-30T07:15:00.000Z' }),
+    aUser({ id: 2, username: 'sbrandt', displayName: 'Sven Brandt', email: '', roles: ['operator'], active: false }),
+  ];
+
+  function page(total: number, index = 0, items = people): Page<UserDto> {
+    return { items, total, page: index, pageSize: 25 };
+  }
+
+  /** The one list request now open, as a plain object of its query parameters. */
+  async function nextListRequest(): Promise<{ req: TestRequest; params: Record<string, string> }> {
+    const req = await vi.waitFor(() => backend.expectOne((r) => r.method === 'GET' && r.url === '/api/users'));
+    const params: Record<string, string> = {};
+    for (const key of req.request.params.keys()) params[key] = req.request.params.get(key)!;
+    return { req, params };
+  }
+
+  beforeEach(async () => {
+    TestBed.configureTestingModule({
+      imports: [PeopleList],
+      providers: [
+        provideRouter([]),
+        provideHttpClient(withInterceptors([errorInterceptor])),
+        provideHttpClientTesting(),
+        { provide: Session, useValue: { user: signal(people[0]), roles: signal(['admin']), clear: vi.fn() } },
+      ],
+    });
+    backend = TestBed.inject(HttpTestingController);
+    fixture = TestBed.createComponent(PeopleList);
+    root = fixture.nativeElement;
+    await fixture.whenStable();
+  });
+
+  afterEach(() => backend.verify());
+
+  it('asks for the first page of active people sorted by username, and renders the rows', async () => {
+    const { req, params } = await nextListRequest();
+    expect(params).toEqual({ page: '0', pageSize: '25', sort: 'username', dir: 'asc', status: 'active' });
+    req.flush(page(2));
+    await fixture.whenStable();
+
+    const rows = Array.from(root.querySelectorAll('tr.mat-mdc-row'));
+    expect(rows).toHaveLength(2);
+    const first = rows[0].textContent!;
+    expect(first).toContain('admin.kowalczyk');
+    expect(first).toContain('Iwona Kowalczyk');
+    expect(first).toContain('Active');
+    const chips = Array.from(rows[0].querySelectorAll('mat-chip')).map((c) => c.textContent?.trim());
+    expect(chips).toEqual(['Admin', 'Approver']);
+    const second = rows[1].textContent!;
+    expect(second).toContain('Inactive');
+    expect(second).toContain('never');
+    expect(rows[1].querySelector('button[aria-label="Actions for Sven Brandt"]')).not.toBeNull();
+  });
+
+  it('sorts on the server when a column header is clicked', async () => {
+    (await nextListRequest()).req.flush(page(2));
+    const sort = await TestbedHarnessEnvironment.loader(fixture).getHarness(MatSortHarness);
+    const [name] = await sort.getSortHeaders({ label: 'Name' });
+
+    await name.click();
+    const asc = await nextListRequest();
+    expect(asc.params).toMatchObject({ sort: 'displayName', dir: 'asc', page: '0' });
+    asc.req.flush(page(2));
+
+    await name.click();
+    const desc = await nextListRequest();
+    expect(desc.params).toMatchObject({ sort: 'displayName', dir: 'desc' });
+    desc.req.flush(page(2));
+  });
+
+  it('pages on the server, and goes back to the first page when a filter changes', async () => {
+    (await nextListRequest()).req.flush(page(60));
+    const loader = TestbedHarnessEnvironment.loader(fixture);
+    const paginator = await loader.getHarness(MatPaginatorHarness);
+
+    await paginator.goToNextPage();
+    const second = await nextListRequest();
+    expect(second.params).toMatchObject({ page: '1', pageSize: '25' });
+    second.req.flush(page(60, 1));
+
+    const [, status] = await loader.getAllHarnesses(MatSelectHarness);
+    await status.clickOptions({ text: 'Inactive' });
+    const filtered = await nextListRequest();
+    expect(filtered.params).toMatchObject({ page: '0', status: 'inactive' });
+    filtered.req.flush(page(1, 0, [people[1]]));
+  });
+
+  it('filters by role', async () => {
+    (await nextListRequest()).req.flush(page(2));
+    const [role] = await TestbedHarnessEnvironment.loader(fixture).getAllHarnesses(MatSelectHarness);
+    await role.clickOptions({ text: 'Operator' });
+    const { req, params } = await nextListRequest();
+    expect(params).toMatchObject({ role: 'operator', page: '0' });
+    req.flush(page(1, 0, [people[1]]));
+  });
+
+  it('searches once typing pauses, with the trimmed text', async () => {
+    (await nextListRequest()).req.flush(page(2));
+    vi.useFakeTimers();
+    try {
+      const input = root.querySelector<HTMLInputElement>('input[placeholder="Username, name or e-mail"]')!;
+      for (const text of ['k', 'ko', ' kow ']) {
+        input.value = text;
+        input.dispatchEvent(new Event('input'));
+        vi.advanceTimersByTime(100);
+      }
+      backend.expectNone('/api/users');
+      vi.advanceTimersByTime(SEARCH_DEBOUNCE_MS);
+    } finally {
+      vi.useRealTimers();
+    }
+    const { req, params } = await nextListRequest();
+    expect(params).toMatchObject({ q: 'kow', page: '0' });
+    req.flush(page(1, 0, [people[0]]));
+  });
+});

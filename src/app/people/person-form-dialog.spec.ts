@@ -1,0 +1,155 @@
+import { provideHttpClient, withInterceptors } from '@angular/common/http';
+import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
+import { type ComponentFixture, TestBed } from '@angular/core/testing';
+import { TestbedHarnessEnvironment } from '@angular/cdk/testing/testbed';
+import { MatCheckboxHarness } from '@angular/material/checkbox/testing';
+import { MAT_DIALOG_DATA, MatDialogRef } from '@angular/material/dialog';
+import { MatSnackBar } from '@angular/material/snack-bar';
+import { provideRouter } from '@angular/router';
+import type { UserDto } from '../../../shared/api-types';
+import { aUser } from '../../testing/user-fixture';
+import { errorInterceptor } from '../core/http/error-interceptor';
+import { Session } from '../core/session/session';
+import { PersonFormDialog, type PersonFormDialogData } from './person-form-dialog';
+
+describe('PersonFormDialog', () => {
+  let fixture: ComponentFixture<PersonFormDialog>;
+  let backend: HttpTestingController;
+  let root: HTMLElement;
+  let dialogRef: { close: ReturnType<typeof vi.fn> };
+  let snackBar: { open: ReturnType<typeof vi.fn> };
+
+  async function open(data: PersonFormDialogData): Promise<void> {
+    dialogRef = { close: vi.fn() };
+    snackBar = { open: vi.fn() };
+    TestBed.configureTestingModule({
+      imports: [PersonFormDialog],
+      providers: [
+        provideRouter([]),
+        provideHttpClient(withInterceptors([errorInterceptor])),
+        provideHttpClientTesting(),
+        { provide: MatDialogRef, useValue: dialogRef },
+        { provide: MAT_DIALOG_DATA, useValue: data },
+        { provide: MatSnackBar, useValue: snackBar },
+        { provide: Session, useValue: { clear: vi.fn() } },
+      ],
+    });
+    backend = TestBed.inject(HttpTestingController);
+    fixture = TestBed.createComponent(PersonFormDialog);
+    root = fixture.nativeElement;
+    await fixture.whenStable();
+  }
+
+  afterEach(() => backend.verify());
+
+  function input(name: string): HTMLInputElement {
+    return root.querySelector<HTMLInputElement>(`input[formcontrolname="${name}"]`)!;
+  }
+
+  function type(name: string, value: string): void {
+    input(name).value = value;
+    input(name).dispatchEvent(new Event('input'));
+  }
+
+  /** Ticks a role's checkbox, found by its visible label (e.g. "Author"). */
+  async function tick(label: string): Promise<void> {
+    const loader = TestbedHarnessEnvironment.loader(fixture);
+    await (await loader.getHarness(MatCheckboxHarness.with({ label: new RegExp(`^${label}`) }))).check();
+  }
+
+  function submit(): void {
+    root.querySelector<HTMLButtonElement>('button[type="submit"]')!.click();
+  }
+
+  async function text(testId: string): Promise<string> {
+    await fixture.whenStable();
+    return root.querySelector(`[data-testid="${testId}"]`)?.textContent?.trim() ?? '';
+  }
+
+  async function fillNewPerson(): Promise<void> {
+    type('username', 'NTakeda');
+    type('displayName', 'Naoko Takeda');
+    type('email', 'naoko@lab.example');
+    await tick('Author');
+    await tick('Operator');
+    type('temporaryPassword', 'first-day-2026');
+  }
+
+  it('creates a person with the roles ticked', async () => {
+    await open({});
+    await fillNewPerson();
+    submit();
+    const req = await vi.waitFor(() => backend.expectOne({ method: 'POST', url: '/api/users' }));
+    expect(req.request.body).toEqual({
+      username: 'NTakeda',
+      displayName: 'Naoko Takeda',
+      email: 'naoko@lab.example',
+      roles: ['author', 'operator'],
+      temporaryPassword: 'first-day-2026',
+    });
+    const saved: UserDto = aUser({ id: 12, username: 'ntakeda', roles: ['author', 'operator'] });
+    req.flush(saved, { status: 201, statusText: 'Created' });
+    await vi.waitFor(() => expect(dialogRef.close).toHaveBeenCalledWith(saved));
+  });
+
+  it("checks fields with the shared schemas' words before sending", async () => {
+    await open({});
+    await fillNewPerson();
+    type('username', 'no spaces please');
+    type('temporaryPassword', 'short');
+    submit();
+    expect(await text('username-error')).toBe('Username may only use the letters a–z, digits, dot, dash and underscore.');
+    expect(await text('temporaryPassword-error')).toBe('Password must be at least 10 characters.');
+    backend.expectNone('/api/users');
+  });
+
+  it('maps 400 field errors to their controls, without a snack bar', async () => {
+    await open({});
+    await fillNewPerson();
+    submit();
+    (await vi.waitFor(() => backend.expectOne('/api/users'))).flush(
+      {
+        code: 'VALIDATION_FAILED',
+        errors: [
+          { path: 'email', message: 'That mail domain is not accepted here.' },
+          { path: 'roles.1', message: 'Role must be one of: author, approver.' },
+          { path: '', message: 'Check the marked fields.' },
+        ],
+      },
+      { status: 400, statusText: 'Bad Request' },
+    );
+    await vi.waitFor(async () => expect(await text('email-error')).toBe('That mail domain is not accepted here.'));
+    expect(await text('roles-error')).toBe('Role must be one of: author, approver.');
+    expect(await text('form-error')).toBe('Check the marked fields.');
+    expect(snackBar.open).not.toHaveBeenCalled();
+    expect(dialogRef.close).not.toHaveBeenCalled();
+  });
+
+  it('shows a 409 duplicate username on the username field', async () => {
+    await open({});
+    await fillNewPerson();
+    submit();
+    (await vi.waitFor(() => backend.expectOne('/api/users'))).flush(
+      { code: 'CONFLICT', errors: [{ path: '', message: 'The username ntakeda is already taken.' }] },
+      { status: 409, statusText: 'Conflict' },
+    );
+    await vi.waitFor(async () => expect(await text('username-error')).toBe('The username ntakeda is already taken.'));
+    expect(snackBar.open).not.toHaveBeenCalled();
+  });
+
+  it('edits name, e-mail and roles only', async () => {
+    const person = aUser({ id: 5, username: 'pmeier', displayName: 'Paul Meier', email: '', roles: ['operator'] });
+    await open({ person });
+    expect(input('username').disabled).toBe(true);
+    expect(input('username').value).toBe('pmeier');
+    expect(input('temporaryPassword')).toBeNull();
+
+    type('displayName', 'Paul A. Meier');
+    await tick('Auditor');
+    submit();
+    const req = await vi.waitFor(() => backend.expectOne({ method: 'PATCH', url: '/api/users/5' }));
+    expect(req.request.body).toEqual({ displayName: 'Paul A. Meier', email: '', roles: ['operator', 'auditor'] });
+    req.flush({ ...person, displayName: 'Paul A. Meier', roles: ['operator', 'auditor'] });
+    await vi.waitFor(() => expect(dialogRef.close).toHaveBeenCalled());
+  });
+});
