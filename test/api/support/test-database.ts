@@ -40,3 +40,8 @@ export async function countRows(db: Knex, table: string): Promise<number> {
   const row = (await db(table).count<{ n: number }[]>({ n: '*' }).first()) as { n: number };
   return Number(row.n);
 }
+
+/** A JSON column's value: mysql2 parses MariaDB JSON columns itself, or hands back text. */
+export function asJson(value: unknown): unknown {
+  return typeof value === 'string' ? JSON.parse(value) : value;
+}
