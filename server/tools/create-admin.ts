@@ -10,7 +10,6 @@ import { describeApiError } from '../../shared/api-error';
 import { toFieldErrors } from '../../shared/validation';
 import { AppError } from '../app-error';
 import { createUser } from '../services/users';
-import { migrate } from './db-setup';
 
 const USAGE = 'Usage: KERFBOOK_ADMIN_PASSWORD=… DATABASE_URL=mysql://… npm run admin:create -- <username> "<Display Name>" [e-mail]';
 
@@ -35,7 +34,7 @@ async function main(): Promise<number> {
   }
   const db = createDb(databaseUrl);
   try {
-    await migrate(db);
+    await db.migrate.latest();
     const user = await createUser(db, { userId: null, name: 'command line (admin:create)', clientAddress: 'local' }, parsed.data, {
       passwordIsTemporary: false,
     });

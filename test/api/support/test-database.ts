@@ -4,7 +4,6 @@
  */
 import type { Knex } from 'knex';
 import { createDb } from '../../../server/data/db';
-import { migrate } from '../../../server/tools/db-setup';
 
 let shared: Knex | null = null;
 let migrated: Promise<unknown> | null = null;
@@ -18,7 +17,7 @@ export function testDatabaseUrl(): string {
 /** One Knex pool for the whole mocha run (mocha exits when the run ends). */
 export async function testDb(): Promise<Knex> {
   shared ??= createDb(testDatabaseUrl());
-  migrated ??= migrate(shared);
+  migrated ??= shared.migrate.latest();
   await migrated;
   return shared;
 }
