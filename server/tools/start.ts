@@ -1,0 +1,74 @@
+/**
+ * `npm start`: local MariaDB (unless DATABASE_URL is given), migrations, demo data on an
+ * empty database, Angular build, then the server. Ctrl-C stops the server and the MariaDB
+ * this script started.
+ */
+import { spawnSync } from 'node:child_process';
+import path from 'node:path';
+import { readConfig } from '../config';
+import { createDb } from '../data/db';
+import { serve } from '../serve';
+import { DEMO_ACCOUNTS } from '../../seeds/data/demo-accounts';
+import { migrate, seedDemoIfEmpty } from './db-setup';
+import { ensureDebianPackage, ensureDatabase, initDataDir, isRunning, localMariadb, start, stop } from './local-mariadb';
+import { BIN, DATA_DIR, ROOT, persistentSecret } from './project-files';
+
+const env = process.env;
+let stopDatabase: (() => Promise<void>) | null = null;
+
+async function main(): Promise<void> {
+  let databaseUrl = env['DATABASE_URL'];
+  if (databaseUrl) {
+    console.log('[db] using DATABASE_URL; nothing is installed or started.');
+  } else {
+    ensureDebianPackage('mariadbd', 'mariadb-server');
+    const local = localMariadb(path.join(DATA_DIR, 'mariadb'), Number(env['KERFBOOK_DB_PORT'] ?? 33306));
+    const created = initDataDir(local);
+    const wasRunning = isRunning(local);
+    await start(local);
+    if (!wasRunning) stopDatabase = () => stop(local);
+    databaseUrl = ensureDatabase(local, 'kerfbook');
+    console.log(`[db] MariaDB on 127.0.0.1:${local.port}, data in ${path.relative(ROOT, local.dir)}/${created ? ' (new)' : ''}`);
+  }
+
+  const config = readConfig({
+    ...env,
+    DATABASE_URL: databaseUrl,
+    SESSION_SECRET: env['SESSION_SECRET'] ?? persistentSecret('session-secret'),
+  });
+  const db = createDb(config.databaseUrl);
+  const ran = await migrate(db);
+  console.log(`[db] migrations: ${ran.length ? ran.join(', ') : 'up to date'}`);
+  const seeded = env['KERFBOOK_DEMO'] === '0' ? false : await seedDemoIfEmpty(db);
+  if (seeded) console.log('[db] demo data loaded');
+
+  if (env['KERFBOOK_SKIP_BUILD'] !== '1') {
+    console.log('[build] building the app (ng build)…');
+    const build = spawnSync(path.join(BIN, 'ng'), ['build'], { cwd: ROOT, stdio: 'inherit' });
+    if (build.status !== 0) throw new Error('ng build failed; see the messages above.');
+  }
+
+  const server = await serve(config, db);
+  const shutdown = async (signal: string) => {
+    console.log(`\n[stop] ${signal}: stopping the server${stopDatabase ? ' and MariaDB' : ''}…`);
+    await server.close().catch(() => undefined);
+    await db.destroy().catch(() => undefined);
+    if (stopDatabase) await stopDatabase();
+    process.exit(0);
+  };
+  process.once('SIGINT', () => void shutdown('SIGINT'));
+  process.once('SIGTERM', () => void shutdown('SIGTERM'));
+
+  console.log(`\nKerfbook is running at ${server.url}\n`);
+  console.log('Demo accounts (for the demo only — change or deactivate them on a real install):');
+  for (const a of DEMO_ACCOUNTS) {
+    console.log(`  ${a.roles.join(' + ').padEnd(18)} ${a.username.padEnd(16)} ${a.password}`);
+  }
+  console.log('\nPress Ctrl-C to stop.');
+}
+
+main().catch(async (err: unknown) => {
+  console.error(`\n[start] ${err instanceof Error ? err.message : String(err)}`);
+  if (stopDatabase) await stopDatabase();
+  process.exit(1);
+});
