@@ -13,7 +13,6 @@ import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { MatRadioModule } from '@angular/material/radio';
-import { MatSnackBar } from '@angular/material/snack-bar';
 import { Router } from '@angular/router';
 import type { UnitPreference } from '../../../shared/api-types';
 import { ROLE_INFO } from '../../../shared/roles';
@@ -24,6 +23,7 @@ import { applyServerErrors } from '../core/forms/server-errors';
 import { zodValidator } from '../core/forms/zod-validator';
 import { isApiError } from '../core/http/api-error';
 import { safeReturnUrl } from '../core/session/return-url';
+import { Notifier } from '../core/notifier/notifier';
 import { Session } from '../core/session/session';
 
 /** The repeat field must equal the new password typed above it. */
@@ -50,7 +50,7 @@ function sameAsNewPassword(control: AbstractControl): ValidationErrors | null {
 export class Account {
   private readonly session = inject(Session);
   private readonly router = inject(Router);
-  private readonly snackBar = inject(MatSnackBar);
+  private readonly notifier = inject(Notifier);
   private readonly fb = inject(NonNullableFormBuilder);
   private readonly passwordDirective = viewChild.required<FormGroupDirective>('passwordDirective');
 
@@ -103,7 +103,7 @@ export class Account {
     try {
       await this.session.changePassword(parsed.data);
       this.passwordDirective().resetForm();
-      this.snackBar.open('Your password has been changed.', 'OK', { duration: 5000 });
+      void this.notifier.show('Your password has been changed.', 'OK', 5000);
       if (wasRequired) await this.router.navigateByUrl(safeReturnUrl(this.returnUrl()));
     } catch (e) {
       if (!isApiError(e)) throw e;
@@ -123,7 +123,9 @@ export class Account {
     this.unitsBusy.set(true);
     try {
       await this.session.setUnits(units);
-      this.snackBar.open(units === 'metric' ? 'Values will be shown in metric units.' : 'Imperial values will be shown beside metric ones.', 'OK', { duration: 4000 });
+      const message =
+        units === 'metric' ? 'Values will be shown in metric units.' : 'Imperial values will be shown beside metric ones.';
+      void this.notifier.show(message, 'OK', 4000);
     } catch {
       // The error interceptor has told the user why; show the setting that is really stored.
       this.units.setValue(before, { emitEvent: false });

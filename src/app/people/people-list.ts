@@ -12,13 +12,13 @@ import { MatMenuModule } from '@angular/material/menu';
 import { MatPaginatorModule, type PageEvent } from '@angular/material/paginator';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSelectModule } from '@angular/material/select';
-import { MatSnackBar } from '@angular/material/snack-bar';
 import { MatSortModule, type Sort } from '@angular/material/sort';
 import { MatTableModule } from '@angular/material/table';
 import { catchError, debounceTime, distinctUntilChanged, firstValueFrom, map, of, switchMap } from 'rxjs';
 import type { Page, UserDto } from '../../../shared/api-types';
 import { ROLES, ROLE_INFO, type Role } from '../../../shared/roles';
 import { USER_SORT_FIELDS, type UserListQuery } from '../../../shared/schemas/users';
+import { Notifier } from '../core/notifier/notifier';
 import { Session } from '../core/session/session';
 import { ConfirmDialog, type ConfirmDialogData } from '../ui/confirm-dialog';
 import { PeopleApi } from './people-api';
@@ -56,7 +56,7 @@ export const SEARCH_DEBOUNCE_MS = 300;
 export class PeopleList {
   private readonly api = inject(PeopleApi);
   private readonly dialog = inject(MatDialog);
-  private readonly snackBar = inject(MatSnackBar);
+  private readonly notifier = inject(Notifier);
   private readonly session = inject(Session);
   private readonly fb = inject(NonNullableFormBuilder);
 
@@ -144,10 +144,10 @@ export class PeopleList {
       .afterClosed()
       .subscribe((person) => {
         if (!person) return;
-        this.snackBar.open(
+        void this.notifier.show(
           `${person.displayName} was added. Hand over the temporary password; it must be changed at the first sign-in.`,
           'OK',
-          { duration: 8000 },
+          8000,
         );
         this.reload();
       });
@@ -159,7 +159,7 @@ export class PeopleList {
       .afterClosed()
       .subscribe((saved) => {
         if (!saved) return;
-        this.snackBar.open(`Changes to ${saved.displayName} were saved.`, 'OK', { duration: 5000 });
+        void this.notifier.show(`Changes to ${saved.displayName} were saved.`, 'OK', 5000);
         this.reload();
       });
   }
@@ -174,9 +174,7 @@ export class PeopleList {
       .afterClosed()
       .subscribe((saved) => {
         if (!saved) return;
-        this.snackBar.open(`${saved.displayName} must change the temporary password at the next sign-in.`, 'OK', {
-          duration: 8000,
-        });
+        void this.notifier.show(`${saved.displayName} must change the temporary password at the next sign-in.`, 'OK', 8000);
         this.reload();
       });
   }
@@ -216,7 +214,7 @@ export class PeopleList {
   private async runAction(action: () => ReturnType<PeopleApi['deactivate']>, done: string): Promise<void> {
     try {
       await firstValueFrom(action());
-      this.snackBar.open(done, 'OK', { duration: 5000 });
+      void this.notifier.show(done, 'OK', 5000);
       this.reload();
     } catch {
       // Shown by the error interceptor.

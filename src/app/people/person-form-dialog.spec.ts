@@ -4,11 +4,11 @@ import { type ComponentFixture, TestBed } from '@angular/core/testing';
 import { TestbedHarnessEnvironment } from '@angular/cdk/testing/testbed';
 import { MatCheckboxHarness } from '@angular/material/checkbox/testing';
 import { MAT_DIALOG_DATA, MatDialogRef } from '@angular/material/dialog';
-import { MatSnackBar } from '@angular/material/snack-bar';
 import { provideRouter } from '@angular/router';
 import type { UserDto } from '../../../shared/api-types';
 import { aUser } from '../../testing/user-fixture';
 import { errorInterceptor } from '../core/http/error-interceptor';
+import { Notifier } from '../core/notifier/notifier';
 import { Session } from '../core/session/session';
 import { PersonFormDialog, type PersonFormDialogData } from './person-form-dialog';
 
@@ -17,11 +17,11 @@ describe('PersonFormDialog', () => {
   let backend: HttpTestingController;
   let root: HTMLElement;
   let dialogRef: { close: ReturnType<typeof vi.fn> };
-  let snackBar: { open: ReturnType<typeof vi.fn> };
+  let notifier: { show: ReturnType<typeof vi.fn> };
 
   async function open(data: PersonFormDialogData): Promise<void> {
     dialogRef = { close: vi.fn() };
-    snackBar = { open: vi.fn() };
+    notifier = { show: vi.fn() };
     TestBed.configureTestingModule({
       imports: [PersonFormDialog],
       providers: [
@@ -30,7 +30,7 @@ describe('PersonFormDialog', () => {
         provideHttpClientTesting(),
         { provide: MatDialogRef, useValue: dialogRef },
         { provide: MAT_DIALOG_DATA, useValue: data },
-        { provide: MatSnackBar, useValue: snackBar },
+        { provide: Notifier, useValue: notifier },
         { provide: Session, useValue: { clear: vi.fn() } },
       ],
     });
@@ -121,7 +121,7 @@ describe('PersonFormDialog', () => {
     await vi.waitFor(async () => expect(await text('email-error')).toBe('That mail domain is not accepted here.'));
     expect(await text('roles-error')).toBe('Role must be one of: author, approver.');
     expect(await text('form-error')).toBe('Check the marked fields.');
-    expect(snackBar.open).not.toHaveBeenCalled();
+    expect(notifier.show).not.toHaveBeenCalled();
     expect(dialogRef.close).not.toHaveBeenCalled();
   });
 
@@ -134,7 +134,7 @@ describe('PersonFormDialog', () => {
       { status: 409, statusText: 'Conflict' },
     );
     await vi.waitFor(async () => expect(await text('username-error')).toBe('The username ntakeda is already taken.'));
-    expect(snackBar.open).not.toHaveBeenCalled();
+    expect(notifier.show).not.toHaveBeenCalled();
   });
 
   it('edits name, e-mail and roles only', async () => {

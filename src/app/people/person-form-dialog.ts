@@ -1,4 +1,4 @@
-import { ChangeDetectionStrategy, Component, inject, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, type ElementRef, inject, signal, viewChild } from '@angular/core';
 import { NonNullableFormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatCheckboxModule } from '@angular/material/checkbox';
@@ -44,6 +44,7 @@ export class PersonFormDialog {
   private readonly dialogRef = inject<MatDialogRef<PersonFormDialog, UserDto>>(MatDialogRef);
   private readonly person = inject<PersonFormDialogData>(MAT_DIALOG_DATA).person;
   private readonly fb = inject(NonNullableFormBuilder);
+  private readonly usernameInput = viewChild<ElementRef<HTMLInputElement>>('usernameInput');
 
   protected readonly isNew = !this.person;
   protected readonly roleOptions = ROLES.map((role) => ({ role, ...ROLE_INFO[role] }));
@@ -111,6 +112,8 @@ export class PersonFormDialog {
       } else if (e.status === 400 || e.status === 409) {
         this.formError.set(applyServerErrors(this.form, e.errors).join(' '));
       }
+      // The field at fault may have scrolled out of the dialog: bring the username to view if it is one.
+      if (this.form.controls.username.errors?.['server']) this.usernameInput()?.nativeElement.focus();
     } finally {
       this.busy.set(false);
     }

@@ -102,8 +102,6 @@ describe('SignIn', () => {
       { status: 401, statusText: 'Unauthorized' },
     );
     await vi.waitFor(async () => expect(await formError()).toBe('Unknown username or wrong password.'));
-    const password = root.querySelector<HTMLInputElement>('input[formcontrolname="password"]')!;
-    expect(password.value).toBe('');
   });
 
   it("shows the server's too-many-attempts message in the form", async () => {

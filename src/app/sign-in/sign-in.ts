@@ -91,7 +91,6 @@ export class SignIn {
       this.formError.set(rest.join(' '));
       return;
     }
-    this.form.controls.password.reset();
     this.formError.set(e.generalMessage || FALLBACK_MESSAGES[e.status] || 'Signing in failed. Try again.');
   }
 }

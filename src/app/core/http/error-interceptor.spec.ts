@@ -1,9 +1,9 @@
 import { HttpClient, provideHttpClient, withInterceptors } from '@angular/common/http';
 import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
 import { TestBed } from '@angular/core/testing';
-import { MatSnackBar } from '@angular/material/snack-bar';
 import { Router, provideRouter } from '@angular/router';
 import { firstValueFrom } from 'rxjs';
+import { Notifier } from '../notifier/notifier';
 import { Session } from '../session/session';
 import { ApiError } from './api-error';
 import { callerHandles } from './caller-handles';
@@ -13,16 +13,16 @@ describe('errorInterceptor', () => {
   let http: HttpClient;
   let backend: HttpTestingController;
   let router: Router;
-  let snackBar: { open: ReturnType<typeof vi.fn> };
+  let notifier: { show: ReturnType<typeof vi.fn> };
   let session: { clear: ReturnType<typeof vi.fn> };
 
   beforeEach(() => {
-    snackBar = { open: vi.fn() };
+    notifier = { show: vi.fn() };
     session = { clear: vi.fn() };
     TestBed.configureTestingModule({
       providers: [
         provideRouter([]),
-        { provide: MatSnackBar, useValue: snackBar },
+        { provide: Notifier, useValue: notifier },
         { provide: Session, useValue: session },
         provideHttpClient(withInterceptors([errorInterceptor])),
         provideHttpClientTesting(),
@@ -61,7 +61,7 @@ describe('errorInterceptor', () => {
 
     expect(session.clear).toHaveBeenCalled();
     expect(navigate).toHaveBeenCalledWith(['/sign-in'], { queryParams: { returnUrl: '/people?status=inactive' } });
-    expect(snackBar.open).not.toHaveBeenCalled();
+    expect(notifier.show).not.toHaveBeenCalled();
   });
 
   it('leaves a 401 alone when the caller handles it (the session load itself)', async () => {
@@ -80,18 +80,18 @@ describe('errorInterceptor', () => {
 
   it('shows other errors in a snack bar', async () => {
     await fail(409, { code: 'CONFLICT', errors: [{ path: 'username', message: 'Taken.' }] });
-    expect(snackBar.open).toHaveBeenCalledWith('username: Taken.', 'Dismiss', expect.anything());
+    expect(notifier.show).toHaveBeenCalledWith('username: Taken.');
   });
 
   it('shows no snack bar for statuses the caller shows in its form', async () => {
     const error = await fail(400, { code: 'VALIDATION_FAILED', errors: [{ path: 'email', message: 'Bad.' }] }, callerHandles(400));
     expect(error.errors[0].path).toBe('email');
-    expect(snackBar.open).not.toHaveBeenCalled();
+    expect(notifier.show).not.toHaveBeenCalled();
   });
 
   it('describes an answer without an envelope', async () => {
     const error = await fail(502, '<html>gateway</html>');
     expect(error.code).toBe('HTTP_502');
-    expect(snackBar.open).toHaveBeenCalledWith(expect.stringContaining('502'), 'Dismiss', expect.anything());
+    expect(notifier.show).toHaveBeenCalledWith(expect.stringContaining('502'));
   });
 });

@@ -1,8 +1,8 @@
 import { HttpErrorResponse, HttpInterceptorFn } from '@angular/common/http';
 import { inject } from '@angular/core';
-import { MatSnackBar } from '@angular/material/snack-bar';
 import { Router } from '@angular/router';
 import { catchError, throwError } from 'rxjs';
+import { Notifier } from '../notifier/notifier';
 import { Session } from '../session/session';
 import { ApiError } from './api-error';
 import { CALLER_HANDLES } from './caller-handles';
@@ -15,7 +15,7 @@ import { CALLER_HANDLES } from './caller-handles';
 export const errorInterceptor: HttpInterceptorFn = (req, next) => {
   const session = inject(Session);
   const router = inject(Router);
-  const snackBar = inject(MatSnackBar);
+  const notifier = inject(Notifier);
   const handled = req.context.get(CALLER_HANDLES);
 
   return next(req).pipe(
@@ -32,7 +32,7 @@ export const errorInterceptor: HttpInterceptorFn = (req, next) => {
       } else if (error.code === 'PASSWORD_CHANGE_REQUIRED') {
         void router.navigateByUrl('/account');
       } else {
-        snackBar.open(error.message, 'Dismiss', { duration: 8000 });
+        void notifier.show(error.message);
       }
       return throwError(() => error);
     }),

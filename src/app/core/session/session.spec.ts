@@ -6,16 +6,20 @@ import type { SessionDto } from '../../../../shared/api-types';
 import { aUser } from '../../../testing/user-fixture';
 import { csrfInterceptor } from '../http/csrf-interceptor';
 import { errorInterceptor } from '../http/error-interceptor';
+import { Notifier } from '../notifier/notifier';
 import { Session } from './session';
 
 describe('Session', () => {
   let session: Session;
   let http: HttpTestingController;
+  let notifier: { show: ReturnType<typeof vi.fn> };
 
   beforeEach(() => {
+    notifier = { show: vi.fn() };
     TestBed.configureTestingModule({
       providers: [
         provideRouter([]),
+        { provide: Notifier, useValue: notifier },
         provideHttpClient(withInterceptors([csrfInterceptor, errorInterceptor])),
         provideHttpClientTesting(),
       ],
@@ -66,6 +70,7 @@ describe('Session', () => {
       .flush({ code: 'DATABASE_UNAVAILABLE', errors: [{ path: '', message: 'Down.' }] }, { status: 503, statusText: 'Unavailable' });
     await expect(loading).resolves.toBeUndefined();
     expect(session.isSignedIn()).toBe(false);
+    expect(notifier.show).toHaveBeenCalledWith('Down.');
   });
 
   it('signIn() posts the credentials with the anonymous token and keeps the fresh token', async () => {
