@@ -13,8 +13,8 @@ import { hasAccess } from '../../../../shared/roles';
 import { Session } from '../session/session';
 import { NAV_ITEMS } from './nav-items';
 
-/** Below this width the navigation slides over the page instead of sitting beside it. */
-const NARROW = '(max-width: 959.98px)';
+/** Below this width (phones, tablets up to landscape) the navigation slides over the page instead of sitting beside it. */
+const NARROW = '(max-width: 1099.98px)';
 
 /** Frame of every signed-in page: toolbar with the user menu, and the side navigation. */
 @Component({
