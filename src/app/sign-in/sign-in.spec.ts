@@ -5,6 +5,7 @@ import { Router, provideRouter } from '@angular/router';
 import { aUser } from '../../testing/user-fixture';
 import { csrfInterceptor } from '../core/http/csrf-interceptor';
 import { errorInterceptor } from '../core/http/error-interceptor';
+import { Session } from '../core/session/session';
 import { SignIn } from './sign-in';
 
 describe('SignIn', () => {
@@ -73,6 +74,17 @@ describe('SignIn', () => {
     post.flush({ user: aUser(), csrfToken: 'fresh' });
 
     await vi.waitFor(() => expect(navigate).toHaveBeenCalledWith('/people?status=all'));
+  });
+
+  it('sends someone already signed in straight on to the returnUrl', async () => {
+    const loading = TestBed.inject(Session).load();
+    backend.expectOne('/api/session').flush({ user: aUser(), csrfToken: 'tok' });
+    await loading;
+    const navigate = vi.spyOn(router, 'navigateByUrl').mockResolvedValue(true);
+    const again = TestBed.createComponent(SignIn);
+    again.componentRef.setInput('returnUrl', '/account');
+    await again.whenStable();
+    expect(navigate).toHaveBeenCalledWith('/account');
   });
 
   it('ignores a returnUrl that leaves the app', async () => {

@@ -1,4 +1,4 @@
-import { ChangeDetectionStrategy, Component, inject, input, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, type OnInit, inject, input, signal } from '@angular/core';
 import { NonNullableFormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
@@ -35,7 +35,7 @@ const FALLBACK_MESSAGES: Record<number, string> = {
   styleUrl: './sign-in.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
-export class SignIn {
+export class SignIn implements OnInit {
   private readonly session = inject(Session);
   private readonly router = inject(Router);
 
@@ -51,7 +51,8 @@ export class SignIn {
   protected readonly showPassword = signal(false);
   protected readonly controlMessage = controlMessage;
 
-  constructor() {
+  ngOnInit(): void {
+    // Someone already signed in has nothing to do here (inputs are bound by now).
     if (this.session.isSignedIn()) void this.router.navigateByUrl(safeReturnUrl(this.returnUrl()));
   }
 
