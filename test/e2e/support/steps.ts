@@ -1,0 +1,28 @@
+/** Steps several journeys share, written the way a person uses the app. */
+import type { Page } from 'playwright-core';
+import { BASE_URL } from './browser';
+
+export async function signIn(page: Page, username: string, password: string): Promise<void> {
+  await page.goto(`${BASE_URL}/sign-in`);
+  await page.getByLabel('Username').fill(username);
+  await page.getByLabel('Password', { exact: true }).fill(password);
+  await page.getByRole('button', { name: 'Sign in' }).click();
+}
+
+export async function signOut(page: Page, displayName: string): Promise<void> {
+  await page.getByRole('button', { name: `Account menu for ${displayName}` }).click();
+  await page.getByRole('menuitem', { name: /sign out/i }).click();
+  await page.waitForURL(/\/sign-in/);
+}
+
+/** Names of the entries in the side navigation. */
+export async function navEntries(page: Page): Promise<string[]> {
+  const nav = page.getByRole('navigation', { name: 'Sections' });
+  await nav.getByRole('link').first().waitFor();
+  return (await nav.getByRole('link').allInnerTexts()).map((t) => t.replace(/^\s*\S+\s+/, '').trim());
+}
+
+/** The browser logs every 401 of the anonymous session probe; that one is expected. */
+export function unexpectedErrors(errors: string[]): string[] {
+  return errors.filter((e) => !/status of 401/.test(e));
+}
