@@ -1,3 +1,4 @@
+/// <reference lib="dom" />
 /**
  * The foundation as people meet it: sign-in, the shell by role, the People screen, the
  * forced change of a temporary password, deactivation — in Debian's chromium against the
