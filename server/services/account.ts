@@ -2,9 +2,10 @@
 import type { Knex } from 'knex';
 import type { UnitPreference } from '../../shared/api-types';
 import { AppError } from '../app-error';
-import { bumpSessionEpoch, findUserById, updateUserRow } from '../data/users';
+import { findUserById, updateUserRow } from '../data/users';
 import type { Actor } from './actor';
 import { AUDIT_EVENTS, recordAudit } from './audit';
+import { replacePassword } from './password-replacement';
 import { hashPassword, verifyPassword } from './passwords';
 import type { SessionUser } from './session-user';
 import { toUserDto } from './user-dto';
@@ -26,23 +27,9 @@ export async function changeOwnPassword(db: Knex, actor: Actor, userId: number, 
     throw AppError.validation([{ path: 'currentPassword', message: 'The current password is not correct.' }]);
   }
   const newHash = await hashPassword(newPassword);
-  await db.transaction(async (trx) => {
-    const now = new Date();
-    await updateUserRow(trx, userId, { password_hash: newHash, must_change_password: false, updated_at: now });
-    await bumpSessionEpoch(trx, userId);
-    await recordAudit(
-      trx,
-      actor,
-      {
-        type: AUDIT_EVENTS.ownPasswordChanged,
-        entityType: 'user',
-        entityId: userId,
-        before: { mustChangePassword: Boolean(user.must_change_password) },
-        after: { mustChangePassword: false },
-      },
-      now,
-    );
-  });
+  await db.transaction((trx) =>
+    replacePassword(trx, actor, { userId, passwordHash: newHash, mustChange: false, mustChangeBefore: Boolean(user.must_change_password) }),
+  );
   return reload(db, userId);
 }
 

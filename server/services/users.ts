@@ -18,6 +18,7 @@ import {
 } from '../data/users';
 import type { Actor } from './actor';
 import { AUDIT_EVENTS, recordAudit } from './audit';
+import { replacePassword } from './password-replacement';
 import { hashPassword } from './passwords';
 import { auditSnapshot, toUserDto } from './user-dto';
 
@@ -163,23 +164,8 @@ export async function setTemporaryPassword(db: Knex, actor: Actor, id: number, p
   const passwordHash = await hashPassword(password);
   return db.transaction(async (trx) => {
     const before = await mustFind(trx, id, true);
-    const now = new Date();
-    await updateUserRow(trx, id, { password_hash: passwordHash, must_change_password: true, updated_at: now });
-    await bumpSessionEpoch(trx, id);
+    await replacePassword(trx, actor, { userId: id, passwordHash, mustChange: true, mustChangeBefore: Boolean(before.must_change_password) });
     const after = await mustFind(trx, id);
-    // The trail records that it happened, never the password itself.
-    await recordAudit(
-      trx,
-      actor,
-      {
-        type: AUDIT_EVENTS.userTemporaryPasswordSet,
-        entityType: 'user',
-        entityId: id,
-        before: { mustChangePassword: Boolean(before.must_change_password) },
-        after: { mustChangePassword: true },
-      },
-      now,
-    );
     return toUserDto(after);
   });
 }
