@@ -25,6 +25,12 @@ function has(cmd: string): boolean {
   return spawnSync('sh', ['-c', `command -v ${cmd}`], { stdio: 'ignore' }).status === 0;
 }
 
+/** Debian puts mariadbd in /usr/sbin, which a non-root PATH may lack. */
+function bin(cmd: string): string {
+  if (has(cmd)) return cmd;
+  return ['/usr/sbin', '/usr/bin'].map((dir) => path.join(dir, cmd)).find((p) => fs.existsSync(p)) ?? cmd;
+}
+
 /** Installs a Debian package when its command is missing; explains what to do where it cannot. */
 export function ensureDebianPackage(command: string, pkg: string): void {
   if (has(command) || fs.existsSync(`/usr/sbin/${command}`) || fs.existsSync(`/usr/bin/${command}`)) return;
@@ -85,7 +91,7 @@ export async function start(db: LocalMariadb): Promise<void> {
     '--collation-server=utf8mb4_unicode_ci',
     '--innodb-log-file-size=16M',
   ];
-  const child = spawn('mariadbd', args, { detached: true, stdio: 'ignore' });
+  const child = spawn(bin('mariadbd'), args, { detached: true, stdio: 'ignore' });
   child.unref();
   for (let i = 0; i < 300; i++) {
     if (isRunning(db)) return;
