@@ -1,0 +1,116 @@
+/**
+ * Stock: the lab's materials, wheels, machines and wheel-selection table (design 3, 5.8).
+ * Authors and admins edit; everyone signed in reads. Stored values are metric.
+ */
+import { z } from 'zod';
+import {
+  CLAMPING_METHODS,
+  CUT_MOTIONS,
+  HARDNESS_SCALES,
+  MACHINE_CLASSES,
+  MATERIAL_GROUPS,
+  WHEEL_KINDS,
+} from '../vocabulary';
+import { quantity, refId, requiredText, text } from './numbers';
+
+export const materialGroup = z.enum(MATERIAL_GROUPS, { error: 'Choose a material group.' });
+export const hardnessScale = z.enum(HARDNESS_SCALES, { error: `Hardness scale must be one of ${HARDNESS_SCALES.join(', ')}.` });
+
+/** A single hardness reading with its scale, e.g. 38 HRC. */
+export const hardnessValue = z.strictObject({
+  value: quantity('Hardness', 'on its scale', 0, 3000),
+  scale: hardnessScale,
+});
+export type HardnessValue = z.infer<typeof hardnessValue>;
+
+/** A hardness window on one scale, e.g. 30–45 HRC. */
+export const hardnessWindow = z
+  .strictObject({
+    min: quantity('Lowest hardness', 'on its scale', 0, 3000),
+    max: quantity('Highest hardness', 'on its scale', 0, 3000),
+    scale: hardnessScale,
+  })
+  .refine((w) => w.min <= w.max, { path: ['max'], message: 'Highest hardness must not be below the lowest.' });
+export type HardnessWindow = z.infer<typeof hardnessWindow>;
+
+export const materialBody = z
+  .strictObject({
+    name: requiredText('Name', 120),
+    /** Open-standard designation where one exists, e.g. EN 1.7225 or UNS G41400. */
+    designation: text('Designation', 60).default(''),
+    group: materialGroup,
+    /** Heat-treatment or supply condition, e.g. "quenched and tempered". */
+    condition: text('Condition', 120).default(''),
+    hardness: hardnessValue.nullable().default(null),
+    coated: z.boolean().default(false),
+    caseHardened: z.boolean().default(false),
+    /** Case depth in mm, when case-hardened. */
+    caseDepthMm: quantity('Case depth', 'mm', 0, 20).nullable().default(null),
+    heatSensitive: z.boolean().default(false),
+    hazardousDust: z.boolean().default(false),
+    notes: text('Notes', 2000).default(''),
+  })
+  .refine((m) => !m.caseHardened || m.caseDepthMm !== null, { path: ['caseDepthMm'], message: 'Give the case depth of a case-hardened material.' });
+export type MaterialBody = z.infer<typeof materialBody>;
+
+export const wheelBody = z.strictObject({
+  name: requiredText('Name', 120),
+  kind: z.enum(WHEEL_KINDS, { error: 'Choose bonded or rim wheel.' }),
+  /** ISO 525-style marking, e.g. "A60K5B" (abrasive, grit, grade, structure, bond); parsed by wheel-spec.ts. */
+  specification: requiredText('Specification', 40),
+  diameterMm: quantity('Diameter', 'mm', 10, 1000),
+  thicknessMm: quantity('Thickness', 'mm', 0.05, 20),
+  boreMm: quantity('Bore', 'mm', 1, 100),
+  /** Maximum operating speed marked on the wheel (m/s). */
+  maxSpeedMs: quantity('Marked maximum speed', 'm/s', 1, 200),
+  /** Whether the wheel's maker allows dry cutting. */
+  dryAllowed: z.boolean().default(false),
+  notes: text('Notes', 2000).default(''),
+});
+export type WheelBody = z.infer<typeof wheelBody>;
+
+export const machineBody = z
+  .strictObject({
+    name: requiredText('Name', 120),
+    machineClass: z.enum(MACHINE_CLASSES, { error: 'Choose a machine class.' }),
+    wheelDiameterMinMm: quantity('Smallest wheel', 'mm', 10, 1000),
+    wheelDiameterMaxMm: quantity('Largest wheel', 'mm', 10, 1000),
+    /** Diameter of the flanges that clamp the wheel (mm): limits the cutting depth. */
+    flangeDiameterMm: quantity('Flange diameter', 'mm', 5, 500),
+    /** Spindle speed range; a fixed-speed machine has min = max. */
+    rpmMin: quantity('Lowest speed', 'rpm', 1, 30000),
+    rpmMax: quantity('Highest speed', 'rpm', 1, 30000),
+    feedMinMmS: quantity('Lowest feed', 'mm/s', 0, 50),
+    feedMaxMmS: quantity('Highest feed', 'mm/s', 0, 50),
+    feedControl: z.enum(['manual', 'automatic'], { error: 'Feed control must be manual or automatic.' }),
+    cutMotions: z.array(z.enum(CUT_MOTIONS)).min(1, 'Choose at least one cut motion.'),
+    clampingMethods: z.array(z.enum(CLAMPING_METHODS)).min(1, 'Choose at least one clamping method.'),
+    notes: text('Notes', 2000).default(''),
+  })
+  .refine((m) => m.wheelDiameterMinMm <= m.wheelDiameterMaxMm, { path: ['wheelDiameterMaxMm'], message: 'Largest wheel must not be smaller than the smallest.' })
+  .refine((m) => m.rpmMin <= m.rpmMax, { path: ['rpmMax'], message: 'Highest speed must not be below the lowest.' })
+  .refine((m) => m.feedMinMmS <= m.feedMaxMmS, { path: ['feedMaxMmS'], message: 'Highest feed must not be below the lowest.' })
+  .refine((m) => m.flangeDiameterMm < m.wheelDiameterMaxMm, { path: ['flangeDiameterMm'], message: 'Flange must be smaller than the largest wheel.' });
+export type MachineBody = z.infer<typeof machineBody>;
+
+/** One row of the lab's wheel-selection table: material group × hardness band → wheel (design 5.8). */
+export const selectionRowBody = z.strictObject({
+  group: materialGroup,
+  /** Hardness band; null = any hardness in the group. */
+  hardness: hardnessWindow.nullable().default(null),
+  wheelId: refId('Wheel'),
+  note: text('Note', 500).default(''),
+});
+export type SelectionRowBody = z.infer<typeof selectionRowBody>;
+
+/** Table query shared by the stock lists: paging, sort, search, archived or not. */
+export const stockListQuery = z.strictObject({
+  page: z.coerce.number().int().min(0, 'Page must be 0 or more.').default(0),
+  pageSize: z.coerce.number().int().min(1).max(200, 'Page size must be at most 200.').default(25),
+  sort: z.string().trim().max(40).default('name'),
+  dir: z.enum(['asc', 'desc']).default('asc'),
+  q: z.string().trim().max(100, 'Search text must be at most 100 characters.').optional(),
+  group: materialGroup.optional(),
+  archived: z.enum(['no', 'yes', 'all']).default('no'),
+});
+export type StockListQuery = z.infer<typeof stockListQuery>;

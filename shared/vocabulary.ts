@@ -1,0 +1,119 @@
+/**
+ * Kerfbook's own vocabulary (design sections 3 and 5): material groups, cut motions,
+ * clamping methods, machine classes, wheel kinds, shapes. Ids are stored; labels are shown.
+ */
+
+/** Material groups (design 5.5). "Coated" is a flag on a material, with this as its substrate group. */
+export const MATERIAL_GROUPS = [
+  'plain-low-alloy-steel',
+  'hardened-tool-steel',
+  'stainless-steel',
+  'cast-iron',
+  'aluminium-magnesium',
+  'copper',
+  'titanium',
+  'nickel-cobalt',
+  'cemented-carbide',
+  'ceramic-glass',
+  'polymer-composite',
+  'electronics-mixed',
+] as const;
+export type MaterialGroup = (typeof MATERIAL_GROUPS)[number];
+
+export const MATERIAL_GROUP_LABELS: Record<MaterialGroup, string> = {
+  'plain-low-alloy-steel': 'Plain and low-alloy steels',
+  'hardened-tool-steel': 'Hardened and tool steels',
+  'stainless-steel': 'Stainless steels',
+  'cast-iron': 'Cast irons',
+  'aluminium-magnesium': 'Aluminium and magnesium alloys',
+  copper: 'Copper alloys',
+  titanium: 'Titanium alloys',
+  'nickel-cobalt': 'Nickel and cobalt alloys',
+  'cemented-carbide': 'Cemented carbides',
+  'ceramic-glass': 'Technical ceramics and glass',
+  'polymer-composite': 'Polymers and fibre composites',
+  'electronics-mixed': 'Electronics and mixed assemblies',
+};
+
+/** Groups that are mostly metal: a diamond or CBN rim wheel is the wrong choice there (design 5.9). */
+export const METALLIC_GROUPS: readonly MaterialGroup[] = [
+  'plain-low-alloy-steel',
+  'hardened-tool-steel',
+  'stainless-steel',
+  'cast-iron',
+  'aluminium-magnesium',
+  'copper',
+  'titanium',
+  'nickel-cobalt',
+];
+
+/** Hardness scales. HBW = Brinell with a carbide ball (ASTM E10). */
+export const HARDNESS_SCALES = ['HV', 'HRC', 'HRB', 'HBW'] as const;
+export type HardnessScale = (typeof HARDNESS_SCALES)[number];
+
+/** Cut motions (design 5.6), our own names. */
+export const CUT_MOTIONS = ['straight-plunge', 'pulsed-plunge', 'rocking', 'turning-specimen', 'traverse-pass', 'stepped-depth'] as const;
+export type CutMotion = (typeof CUT_MOTIONS)[number];
+
+export const CUT_MOTION_LABELS: Record<CutMotion, string> = {
+  'straight-plunge': 'Straight plunge',
+  'pulsed-plunge': 'Pulsed plunge',
+  rocking: 'Rocking',
+  'turning-specimen': 'Turning specimen',
+  'traverse-pass': 'Traverse pass',
+  'stepped-depth': 'Stepped depth',
+};
+
+/** Clamping methods (design 5.7), our own names. */
+export const CLAMPING_METHODS = ['vise-backstop', 'top-clamp', 'v-block', 'fixture-plate', 'adhesive-wax-mount', 'small-part-gripper'] as const;
+export type ClampingMethod = (typeof CLAMPING_METHODS)[number];
+
+export const CLAMPING_METHOD_LABELS: Record<ClampingMethod, string> = {
+  'vise-backstop': 'Vise with backstop',
+  'top-clamp': 'Top clamp',
+  'v-block': 'V-block',
+  'fixture-plate': 'Fixture plate or jig',
+  'adhesive-wax-mount': 'Adhesive or wax mount',
+  'small-part-gripper': 'Gripper for small parts',
+};
+
+export const MACHINE_CLASSES = ['bench-abrasive', 'floor-abrasive', 'precision', 'large-traverse'] as const;
+export type MachineClass = (typeof MACHINE_CLASSES)[number];
+
+export const MACHINE_CLASS_LABELS: Record<MachineClass, string> = {
+  'bench-abrasive': 'Bench abrasive',
+  'floor-abrasive': 'Floor abrasive',
+  precision: 'Precision',
+  'large-traverse': 'Large traverse',
+};
+
+/** Consumable bonded wheel, or long-life rim wheel (diamond or CBN on a metal core). */
+export const WHEEL_KINDS = ['bonded', 'rim'] as const;
+export type WheelKind = (typeof WHEEL_KINDS)[number];
+
+export const WHEEL_KIND_LABELS: Record<WheelKind, string> = {
+  bonded: 'Consumable bonded wheel',
+  rim: 'Rim wheel (diamond or CBN on a metal core)',
+};
+
+/**
+ * Scope shapes. The size window is the depth the wheel must cut through: the outside
+ * diameter of a round bar or tube, the height of a rectangular section.
+ */
+export const SHAPES = ['round-bar', 'tube', 'rectangular'] as const;
+export type Shape = (typeof SHAPES)[number];
+
+export const SHAPE_LABELS: Record<Shape, string> = {
+  'round-bar': 'Round bar',
+  tube: 'Tube',
+  rectangular: 'Rectangular bar or plate',
+};
+
+export const CUT_ORIENTATIONS = ['transverse', 'longitudinal', 'other'] as const;
+export type CutOrientation = (typeof CUT_ORIENTATIONS)[number];
+
+export const COOLANT_TYPES = ['water-soluble', 'oil', 'dry'] as const;
+export type CoolantType = (typeof COOLANT_TYPES)[number];
+
+export const RECIPE_STATUSES = ['draft', 'in-review', 'returned', 'approved', 'superseded', 'withdrawn'] as const;
+export type RecipeStatus = (typeof RECIPE_STATUSES)[number];
