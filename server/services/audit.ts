@@ -18,6 +18,28 @@ export const AUDIT_EVENTS = {
   signedIn: 'session.signed_in',
   signInFailed: 'session.sign_in_failed',
   signedOut: 'session.signed_out',
+  materialCreated: 'material.created',
+  materialUpdated: 'material.updated',
+  materialArchived: 'material.archived',
+  materialUnarchived: 'material.unarchived',
+  materialDeleted: 'material.deleted',
+  wheelCreated: 'wheel.created',
+  wheelUpdated: 'wheel.updated',
+  wheelArchived: 'wheel.archived',
+  wheelUnarchived: 'wheel.unarchived',
+  wheelDeleted: 'wheel.deleted',
+  machineCreated: 'machine.created',
+  machineUpdated: 'machine.updated',
+  machineArchived: 'machine.archived',
+  machineUnarchived: 'machine.unarchived',
+  machineDeleted: 'machine.deleted',
+  selectionRowCreated: 'selection_row.created',
+  selectionRowUpdated: 'selection_row.updated',
+  selectionRowDeleted: 'selection_row.deleted',
+  recipeCreated: 'recipe.created',
+  draftSaved: 'recipe.draft_saved',
+  attachmentAdded: 'attachment.added',
+  attachmentDeleted: 'attachment.deleted',
 } as const;
 
 export type AuditEventType = (typeof AUDIT_EVENTS)[keyof typeof AUDIT_EVENTS];
@@ -35,9 +57,11 @@ function toJson(value: Record<string, unknown> | null | undefined): string | nul
   return JSON.stringify(value);
 }
 
+export type AuditEntityType = 'user' | 'material' | 'wheel' | 'machine' | 'selection_row' | 'recipe' | 'recipe_version' | 'attachment';
+
 export interface AuditEntry {
   type: AuditEventType;
-  entityType: 'user';
+  entityType: AuditEntityType;
   entityId: number | null;
   before?: Record<string, unknown> | null;
   after?: Record<string, unknown> | null;
