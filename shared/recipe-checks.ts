@@ -1,9 +1,16 @@
 /**
  * Recipe checks (design 5.9): rules run on every change, in the editor and on the server.
- * Types first; the rules follow below.
+ * Types first; the rules follow below. Each rule has a stable id (stored with results and
+ * referred to by approvers), a severity, a message with the numbers that triggered it, the
+ * reason with its source, and the path of the field to fix. The checks flag known problems;
+ * passing them does not make a setup safe.
  */
 import type { RecipeContext } from './recipe-context';
+import { computeRecipe, type RecipeComputed } from './recipe-computations';
 import type { RecipeContent } from './schemas/recipe';
+import { CLAMPING_METHOD_LABELS, CUT_MOTION_LABELS, MATERIAL_GROUP_LABELS, METALLIC_GROUPS, type MaterialGroup, type MachineClass } from './vocabulary';
+import { maxRpmForWheel } from './peripheral-speed';
+import { ABRASIVE_FAMILY_LABELS, abrasiveFamily, parseWheelSpec, type AbrasiveFamily } from './wheel-spec';
 
 /** blocker: cannot be submitted; warning: the approver must acknowledge it; note: for information. */
 export type CheckSeverity = 'blocker' | 'warning' | 'note';
@@ -20,4 +27,320 @@ export interface CheckResult {
   path: string | null;
 }
 
-export declare function runChecks(content: RecipeContent, ctx: RecipeContext): CheckResult[];
+/** Water-soluble coolant concentration range, % v/v (trade reference §4, common practice). */
+export const COOLANT_CONCENTRATION_PCT = { min: 2, max: 5 } as const;
+
+/**
+ * Feed above which a heat-sensitive material gets a warning, mm/s. Kerfbook's threshold
+ * (common practice): the low end of the typical feed ranges of trade reference §4
+ * (abrasive 0.05–1.0 mm/s, precision 0.005–0.2 mm/s).
+ */
+export const HEAT_SENSITIVE_FEED_MMS: Record<MachineClass, number> = {
+  'bench-abrasive': 0.25,
+  'floor-abrasive': 0.25,
+  'large-traverse': 0.25,
+  precision: 0.05,
+};
+
+/** A rim wheel running below this share of the rpm it could run at gets the "lower rpm only helps consumable wheels" note. */
+export const RIM_LOW_RPM_SHARE = 0.75;
+
+const SOURCE = {
+  mos: 'Never run a wheel above the maximum operating speed marked on it (ANSI B7.1; EN 12413; OSHA 29 CFR 1910.215(d)(1)).',
+  machine: "The machine's manual sets its speed, feed and wheel ranges; outside them its guards, drives and controls are not made for the job.",
+} as const;
+
+const n1 = (v: number) => v.toFixed(1);
+const n2 = (v: number) => v.toFixed(2);
+
+interface Facts {
+  content: RecipeContent;
+  ctx: RecipeContext;
+  computed: RecipeComputed;
+  /** Abrasive family from the wheel's marking, or null when it does not parse. */
+  abrasive: AbrasiveFamily | null;
+  group: MaterialGroup | null;
+}
+
+type Rule = (f: Facts) => CheckResult | CheckResult[] | null;
+
+const result = (id: string, severity: CheckSeverity, path: string | null, message: string, reason: string): CheckResult => ({ id, severity, message, reason, path });
+
+const isPositive = (v: unknown): v is number => typeof v === 'number' && Number.isFinite(v) && v > 0;
+
+/** The rules, in the order they are reported within a severity. */
+const RULES: readonly Rule[] = [
+  ({ ctx }) => (ctx.machine ? null : result('machine-missing', 'blocker', 'cutting.machineId', 'No machine is chosen.', 'Speeds, feeds and capacity can only be checked against a machine.')),
+  ({ ctx }) => (ctx.wheel ? null : result('wheel-missing', 'blocker', 'cutting.wheelId', 'No wheel is chosen.', 'The wheel sets the speed limit, the capacity and the suitability for the material.')),
+
+  ({ ctx, computed }) => {
+    const { peripheralSpeedMs: v, markedMaxSpeedMs: max, rpmAtMarkedMax } = computed;
+    if (v === null || max === null || v <= max) return null;
+    return result(
+      'wheel-overspeed',
+      'blocker',
+      'cutting.wheelRpm',
+      `At ${ctx.wheel!.diameterMm} mm the wheel would run at ${n1(v)} m/s, above its marked maximum of ${n1(max)} m/s. Use at most ${rpmAtMarkedMax} rpm.`,
+      SOURCE.mos,
+    );
+  },
+
+  ({ content, ctx }) => {
+    const m = ctx.machine;
+    const rpm = content.cutting?.wheelRpm;
+    if (!m || !isPositive(rpm) || (rpm >= m.rpmMin && rpm <= m.rpmMax)) return null;
+    const range = m.rpmMin === m.rpmMax ? `its fixed ${m.rpmMin} rpm` : `its range of ${m.rpmMin}–${m.rpmMax} rpm`;
+    return result('rpm-outside-machine', 'blocker', 'cutting.wheelRpm', `${rpm} rpm is outside ${range} on ${m.name}.`, SOURCE.machine);
+  },
+
+  ({ content, ctx }) => {
+    const m = ctx.machine;
+    const feed = content.cutting?.feedMmS;
+    if (!m || !isPositive(feed) || (feed >= m.feedMinMmS && feed <= m.feedMaxMmS)) return null;
+    return result('feed-outside-machine', 'blocker', 'cutting.feedMmS', `A feed of ${feed} mm/s is outside the range of ${m.name} (${m.feedMinMmS}–${m.feedMaxMmS} mm/s).`, SOURCE.machine);
+  },
+
+  ({ content, ctx }) => {
+    const m = ctx.machine;
+    const feed = content.cutting?.entryFeedMmS;
+    if (!m || !isPositive(feed) || (feed >= m.feedMinMmS && feed <= m.feedMaxMmS)) return null;
+    return result('entry-feed-outside-machine', 'blocker', 'cutting.entryFeedMmS', `An entry feed of ${feed} mm/s is outside the range of ${m.name} (${m.feedMinMmS}–${m.feedMaxMmS} mm/s).`, SOURCE.machine);
+  },
+
+  ({ ctx }) => {
+    const { machine: m, wheel: w } = ctx;
+    if (!m || !w || (w.diameterMm >= m.wheelDiameterMinMm && w.diameterMm <= m.wheelDiameterMaxMm)) return null;
+    return result(
+      'wheel-diameter-outside-machine',
+      'blocker',
+      'cutting.wheelId',
+      `The wheel is ${w.diameterMm} mm; ${m.name} takes ${m.wheelDiameterMinMm}–${m.wheelDiameterMaxMm} mm wheels.`,
+      "A wheel the machine is not made for may not fit its guard or flanges (the machine's manual; ANSI B7.1, EN 12413).",
+    );
+  },
+
+  ({ content, computed }) => {
+    if (computed.capacityFits !== false) return null;
+    return result(
+      'scope-exceeds-capacity',
+      'blocker',
+      'scope.sizeMaxMm',
+      `The largest part (${content.scope.sizeMaxMm} mm) is more than the wheel can cut on this machine with ${CUT_MOTION_LABELS[content.cutting.cutMotion].toLowerCase()} (${n1(computed.cuttableSizeMm!)} mm: cutting depth ${n1(computed.cuttingDepthMm!)} mm).`,
+      'Capacity = (wheel diameter − flange diameter)/2 less a 5 mm clearance (common practice); the flanges cannot enter the cut.',
+    );
+  },
+
+  ({ content }) =>
+    content.clamping?.method
+      ? null
+      : result('clamping-missing', 'blocker', 'clamping.method', 'No clamping method is given.', 'The part must not move during the cut: a moving part can break the wheel (common practice).'),
+
+  ({ content, ctx }) => {
+    const method = content.clamping?.method;
+    const m = ctx.machine;
+    if (!m || !method || m.clampingMethods.includes(method)) return null;
+    return result('clamping-unsupported', 'blocker', 'clamping.method', `${m.name} has no ${CLAMPING_METHOD_LABELS[method].toLowerCase()}.`, "Only the clamping the machine is equipped for holds the part safely (the machine's manual).");
+  },
+
+  ({ content, ctx }) => {
+    const motion = content.cutting?.cutMotion;
+    const m = ctx.machine;
+    if (!m || !motion || m.cutMotions.includes(motion)) return null;
+    return result('cut-motion-unsupported', 'blocker', 'cutting.cutMotion', `${m.name} cannot cut with ${CUT_MOTION_LABELS[motion].toLowerCase()}.`, "The machine's drives and controls must support the motion (the machine's manual).");
+  },
+
+  ({ ctx, abrasive, group }) => {
+    const w = ctx.wheel;
+    if (!w || w.kind !== 'rim' || !group) return null;
+    if (group === 'electronics-mixed')
+      return result(
+        'rim-wheel-dressing',
+        'note',
+        'cutting.wheelId',
+        'Where the assembly has metal parts, dress the rim wheel with an alumina or silicon carbide stick to keep it cutting.',
+        'Metal clogs and dulls a diamond rim wheel; dressing exposes fresh grains (common practice).',
+      );
+    if (!METALLIC_GROUPS.includes(group)) return null;
+    // CBN is the superabrasive for hardened steels (trade reference §4, ASTM E3 from memory).
+    if (abrasive === 'cbn' && group === 'hardened-tool-steel') return null;
+    const what = abrasive === 'cbn' ? 'A CBN rim wheel' : abrasive === 'diamond' ? 'A diamond rim wheel' : 'A diamond or CBN rim wheel';
+    return result(
+      'rim-wheel-on-metal',
+      'warning',
+      'cutting.wheelId',
+      `${what} is chosen for ${MATERIAL_GROUP_LABELS[group].toLowerCase()}, which is mostly metal. Use a consumable bonded wheel; where only a small part of the specimen is metal, dress the rim wheel with an alumina or silicon carbide stick.`,
+      'Rim wheels wear out quickly on metals: aluminium oxide suits ferrous, silicon carbide non-ferrous metals (common practice).',
+    );
+  },
+
+  ({ ctx, abrasive, group }) => {
+    const w = ctx.wheel;
+    if (!w || w.kind !== 'bonded' || (group !== 'ceramic-glass' && group !== 'cemented-carbide')) return null;
+    if (abrasive === 'diamond' || abrasive === 'cbn') return null;
+    return result(
+      'bonded-wheel-on-hard-brittle',
+      'warning',
+      'cutting.wheelId',
+      `A bonded ${abrasive ? `${ABRASIVE_FAMILY_LABELS[abrasive].toLowerCase()} ` : ''}wheel is chosen for ${MATERIAL_GROUP_LABELS[group].toLowerCase()}. A diamond rim wheel cuts these with less damage.`,
+      'Ceramics and cemented carbides are cut with diamond rim wheels; conventional abrasives cut slowly and crack or chip them (common practice).',
+    );
+  },
+
+  ({ content, ctx }) => {
+    const w = ctx.wheel;
+    if (!w || content.coolant?.type !== 'dry') return null;
+    if (w.kind !== 'bonded' && w.dryAllowed) return null;
+    const why = w.kind === 'bonded' ? 'a consumable bonded wheel' : 'a wheel whose maker does not allow dry cutting';
+    return result('dry-cut-burn-risk', 'warning', 'coolant.type', `Cutting dry with ${why}: the part may burn.`, 'Coolant carries the heat away; dry abrasive cutting overheats the part and changes its structure (common practice).');
+  },
+
+  ({ content, ctx, group }) => {
+    const feed = content.cutting?.feedMmS;
+    const ceiling = group ? ctx.limits?.feedCeilingsMmS?.[group] : undefined;
+    if (!isPositive(feed) || ceiling === undefined || feed <= ceiling) return null;
+    return result(
+      'feed-above-ceiling',
+      'warning',
+      'cutting.feedMmS',
+      `A feed of ${feed} mm/s is above the lab's ceiling of ${ceiling} mm/s for ${MATERIAL_GROUP_LABELS[group!].toLowerCase()}.`,
+      'Too high a feed burns the part; start low and raise it with experience (common practice; the ceiling is a lab setting).',
+    );
+  },
+
+  ({ content, ctx }) => {
+    const mat = ctx.material;
+    if (!mat || (!mat.coated && !mat.caseHardened) || content.clamping?.orientationRule?.trim()) return null;
+    const what = mat.coated ? 'coated' : `case-hardened${mat.caseDepthMm ? ` (case ${mat.caseDepthMm} mm)` : ''}`;
+    return result(
+      'orientation-rule-missing',
+      'warning',
+      'clamping.orientationRule',
+      `${mat.name} is ${what}, but no orientation rule says which way the wheel enters.`,
+      'Cut towards the substrate so the wheel presses the layer on rather than peeling it off (common practice).',
+    );
+  },
+
+  ({ content, ctx }) => {
+    const { wheel: w, machine: m } = ctx;
+    const rpm = content.cutting?.wheelRpm;
+    if (!w || !m || w.kind !== 'rim' || !isPositive(rpm)) return null;
+    const ceiling = Math.min(m.rpmMax, maxRpmForWheel(w.diameterMm, w.maxSpeedMs));
+    if (rpm >= RIM_LOW_RPM_SHARE * ceiling) return null;
+    return result(
+      'rim-wheel-low-rpm',
+      'note',
+      'cutting.wheelRpm',
+      `${rpm} rpm is well below the ${ceiling} rpm this rim wheel could run at here. Lowering the speed to cut harder material helps only consumable wheels.`,
+      'A slower consumable wheel acts softer and sheds worn grains; a diamond or CBN rim wheel does not (common practice).',
+    );
+  },
+
+  ({ content, ctx }) => {
+    const { material: mat, machine: m } = ctx;
+    const feed = content.cutting?.feedMmS;
+    if (!mat?.heatSensitive || !m || !isPositive(feed)) return null;
+    const limit = HEAT_SENSITIVE_FEED_MMS[m.machineClass];
+    if (feed <= limit) return null;
+    return result(
+      'heat-sensitive-high-feed',
+      'warning',
+      'cutting.feedMmS',
+      `${mat.name} is heat-sensitive and the feed is ${feed} mm/s, above ${limit} mm/s.`,
+      'Heat-sensitive and hardened parts are cut at the low end of the feed range to avoid burning or tempering them (common practice).',
+    );
+  },
+
+  ({ content, ctx }) => {
+    const mat = ctx.material;
+    if (!mat?.hazardousDust || content.coolant?.type !== 'dry') return null;
+    // A blocker, not a warning: dry cutting sets the dust free, and no acknowledgement makes up for that.
+    return result(
+      'hazardous-dust-dry',
+      'blocker',
+      'coolant.type',
+      `${mat.name} gives hazardous dust and the recipe cuts it dry.`,
+      'Hazardous dusts (e.g. beryllium, OSHA PEL 0.2 µg/m³; lead; fibre composites) are cut wet and enclosed, under the lab\'s approved procedure for the material.',
+    );
+  },
+
+  ({ content }) => {
+    const c = content.coolant;
+    if (c?.type !== 'water-soluble' || c.concentrationPct === null || !Number.isFinite(c.concentrationPct)) return null;
+    const { min, max } = COOLANT_CONCENTRATION_PCT;
+    if (c.concentrationPct >= min && c.concentrationPct <= max) return null;
+    return result(
+      'coolant-concentration',
+      'note',
+      'coolant.concentrationPct',
+      `A coolant concentration of ${c.concentrationPct} % is outside the usual ${min}–${max} % v/v.`,
+      'Too lean corrodes and breeds bacteria; too rich irritates skin and foams. Follow the coolant supplier (common practice).',
+    );
+  },
+
+  ({ ctx }) => {
+    const out: CheckResult[] = [];
+    const reason = 'Archived stock stays readable for old recipes but is no longer offered; check that it is still available at the saw.';
+    if (ctx.material?.archived) out.push(result('material-archived', 'warning', 'scope.materialId', `The material ${ctx.material.name} is archived.`, reason));
+    if (ctx.wheel?.archived) out.push(result('wheel-archived', 'warning', 'cutting.wheelId', `The wheel ${ctx.wheel.name} is archived.`, reason));
+    if (ctx.machine?.archived) out.push(result('machine-archived', 'warning', 'cutting.machineId', `The machine ${ctx.machine.name} is archived.`, reason));
+    return out;
+  },
+];
+
+/** Every rule id runChecks can report. */
+export const CHECK_IDS = [
+  'machine-missing',
+  'wheel-missing',
+  'wheel-overspeed',
+  'rpm-outside-machine',
+  'feed-outside-machine',
+  'entry-feed-outside-machine',
+  'wheel-diameter-outside-machine',
+  'scope-exceeds-capacity',
+  'clamping-missing',
+  'clamping-unsupported',
+  'cut-motion-unsupported',
+  'rim-wheel-dressing',
+  'rim-wheel-on-metal',
+  'bonded-wheel-on-hard-brittle',
+  'dry-cut-burn-risk',
+  'feed-above-ceiling',
+  'orientation-rule-missing',
+  'rim-wheel-low-rpm',
+  'heat-sensitive-high-feed',
+  'hazardous-dust-dry',
+  'coolant-concentration',
+  'material-archived',
+  'wheel-archived',
+  'machine-archived',
+] as const;
+export type CheckId = (typeof CHECK_IDS)[number];
+
+const RANK: Record<CheckSeverity, number> = { blocker: 0, warning: 1, note: 2 };
+
+/**
+ * Run every rule on a recipe's content with its stock context. Results are ordered
+ * blockers, warnings, notes. `computed` may be passed when the caller already has it.
+ */
+export function runChecks(content: RecipeContent, ctx: RecipeContext, computed: RecipeComputed = computeRecipe(content, ctx)): CheckResult[] {
+  const parsed = ctx.wheel ? parseWheelSpec(ctx.wheel.specification) : null;
+  const facts: Facts = {
+    content,
+    ctx,
+    computed,
+    abrasive: parsed?.ok ? abrasiveFamily(parsed.spec) : null,
+    group: content.scope?.group ?? ctx.material?.group ?? null,
+  };
+  const results = RULES.flatMap((rule) => {
+    const r = rule(facts);
+    return r === null ? [] : Array.isArray(r) ? r : [r];
+  });
+  return results.map((r, i) => ({ r, i })).sort((a, b) => RANK[a.r.severity] - RANK[b.r.severity] || a.i - b.i).map(({ r }) => r);
+}
+
+/** The most serious severity among results, or null when there are none. */
+export function worstSeverity(results: readonly CheckResult[]): CheckSeverity | null {
+  let worst: CheckSeverity | null = null;
+  for (const r of results) if (worst === null || RANK[r.severity] < RANK[worst]) worst = r.severity;
+  return worst;
+}

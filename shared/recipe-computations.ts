@@ -1,0 +1,133 @@
+/**
+ * Everything the recipe editor, the recipe page and the bench sheet show as computed
+ * (design 5.1–5.4). Called on every (debounced) keystroke, so it must stay cheap and must
+ * not throw on half-typed content: every field is null while an input it needs is missing.
+ */
+import { capacityFit } from './capacity';
+import { contactProfile, estimateCutTimeS, peakRemovalMm3S, type ContactPoint, type CutSection, type CutSetup } from './contact-length';
+import { conversionApplies, convertHardness, HARDNESS_CAVEATS } from './hardness';
+import { maxRpmForWheel, peripheralSpeedMs, speedMargin, toFtPerMin } from './peripheral-speed';
+import type { RecipeContext } from './recipe-context';
+import type { HardnessWindow } from './schemas/stock';
+import type { RecipeContent } from './schemas/recipe';
+
+/** Scope hardness converted to HV for the steel groups. */
+export interface ComputedHardness {
+  /** The hardness as given (the scope's window, or the material's single value as min = max). */
+  measured: HardnessWindow;
+  /** Lowest and highest in HV, or null where no conversion applies or a bound is off the table. */
+  minHv: number | null;
+  maxHv: number | null;
+  /** Whether conversion applies to the group at all. */
+  applies: boolean;
+  /** Why no HV is given, or null. */
+  reason: string | null;
+  /** The standard's caveats, to show beside any converted value. */
+  caveats: readonly string[];
+}
+
+export interface RecipeComputed {
+  /** Peripheral speed at the wheel's (new) diameter and the chosen rpm, m/s. */
+  peripheralSpeedMs: number | null;
+  /** The same in ft/min. */
+  peripheralSpeedFtMin: number | null;
+  /** Maximum operating speed marked on the wheel, m/s. */
+  markedMaxSpeedMs: number | null;
+  /** Marked maximum minus running speed, m/s (negative = over the marked maximum). */
+  speedMarginMs: number | null;
+  /** The margin as a share of the marked maximum, %. */
+  speedMarginPct: number | null;
+  /** Highest whole rpm that keeps the wheel at or below its marked maximum, rpm. */
+  rpmAtMarkedMax: number | null;
+  /** Largest depth the wheel can cut on the machine (flange and clearance deducted), mm. */
+  cuttingDepthMm: number | null;
+  /** Largest part size that depth allows with the cut motion, mm. */
+  cuttableSizeMm: number | null;
+  /** Whether the scope's largest size fits. */
+  capacityFits: boolean | null;
+  /** Cuttable size minus the scope's largest size, mm. */
+  capacityMarginMm: number | null;
+  /** Contact length and removal rate through the cut at the scope's largest size, for the plot. */
+  profile: ContactPoint[] | null;
+  /** Largest removal rate along the cut, mm³/s. */
+  peakRemovalMm3S: number | null;
+  /** Estimated cutting time at the scope's largest size, s. */
+  cutTimeS: number | null;
+  /** Scope hardness in HV where conversion applies. */
+  hardness: ComputedHardness | null;
+}
+
+/** A positive finite number, or null (half-typed input). */
+function positive(n: unknown): number | null {
+  return typeof n === 'number' && Number.isFinite(n) && n > 0 ? n : null;
+}
+
+function computeHardness(content: RecipeContent, ctx: RecipeContext): ComputedHardness | null {
+  const scope = content.scope;
+  const measured: HardnessWindow | null =
+    scope?.hardness ?? (ctx.material?.hardness ? { min: ctx.material.hardness.value, max: ctx.material.hardness.value, scale: ctx.material.hardness.scale } : null);
+  if (!measured || !scope?.group) return null;
+  const applies = conversionApplies(scope.group);
+  if (!applies.applies) return { measured, minHv: null, maxHv: null, applies: false, reason: applies.reason, caveats: HARDNESS_CAVEATS };
+  const lo = convertHardness(measured.min, measured.scale, 'HV', scope.group);
+  const hi = convertHardness(measured.max, measured.scale, 'HV', scope.group);
+  const reason = !lo.ok ? lo.reason : !hi.ok ? hi.reason : null;
+  return { measured, minHv: lo.ok ? lo.value : null, maxHv: hi.ok ? hi.value : null, applies: true, reason, caveats: HARDNESS_CAVEATS };
+}
+
+/** The computed values of a recipe with its stock context; see RecipeComputed for units. */
+export function computeRecipe(content: RecipeContent, ctx: RecipeContext): RecipeComputed {
+  const { wheel, machine } = ctx;
+  const cutting = content.cutting;
+  const scope = content.scope;
+  const diameter = positive(wheel?.diameterMm);
+  const rpm = positive(cutting?.wheelRpm);
+  const maxSpeed = positive(wheel?.maxSpeedMs);
+  const feed = positive(cutting?.feedMmS);
+  const thickness = positive(wheel?.thicknessMm);
+  const sizeMax = positive(scope?.sizeMaxMm);
+  const motion = cutting?.cutMotion ?? null;
+  const shape = scope?.shape ?? null;
+
+  const speed = diameter !== null && rpm !== null ? peripheralSpeedMs(diameter, rpm) : null;
+  const margin = speed !== null && maxSpeed !== null ? speedMargin(speed, maxSpeed) : null;
+
+  const flange = positive(machine?.flangeDiameterMm);
+  const fit = diameter !== null && flange !== null && motion && shape && sizeMax !== null ? capacityFit(sizeMax, diameter, flange, motion, shape) : null;
+
+  // The section needs its shape's extra dimension; without it there is no profile yet.
+  const section: CutSection | null =
+    shape && sizeMax !== null && (shape !== 'rectangular' || positive(scope.widthMm) !== null) && (shape !== 'tube' || positive(scope.wallMm) !== null)
+      ? { shape, sizeMm: sizeMax, widthMm: scope.widthMm, wallMm: scope.wallMm }
+      : null;
+  const setup: CutSetup | null =
+    motion && feed !== null && thickness !== null && diameter !== null
+      ? {
+          motion,
+          feedMmS: feed,
+          entryFeedMmS: positive(cutting.entryFeedMmS),
+          entryLengthMm: positive(cutting.entryLengthMm),
+          passes: cutting.passes ?? null,
+          wheelThicknessMm: thickness,
+          wheelDiameterMm: diameter,
+        }
+      : null;
+  const profile = section && setup ? contactProfile(section, setup) : null;
+
+  return {
+    peripheralSpeedMs: speed,
+    peripheralSpeedFtMin: speed === null ? null : toFtPerMin(speed),
+    markedMaxSpeedMs: maxSpeed,
+    speedMarginMs: margin?.marginMs ?? null,
+    speedMarginPct: margin?.marginPct ?? null,
+    rpmAtMarkedMax: diameter !== null && maxSpeed !== null ? maxRpmForWheel(diameter, maxSpeed) : null,
+    cuttingDepthMm: fit?.depthMm ?? null,
+    cuttableSizeMm: fit?.cuttableSizeMm ?? null,
+    capacityFits: fit?.fits ?? null,
+    capacityMarginMm: fit?.marginMm ?? null,
+    profile,
+    peakRemovalMm3S: profile ? peakRemovalMm3S(profile) : null,
+    cutTimeS: section && setup ? estimateCutTimeS(section, setup) : null,
+    hardness: computeHardness(content, ctx),
+  };
+}

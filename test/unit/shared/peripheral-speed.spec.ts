@@ -1,0 +1,35 @@
+import { expect } from 'chai';
+import { maxRpmForWheel, peripheralSpeedMs, rpmForSpeed, speedMargin, toFtPerMin } from '../../../shared/peripheral-speed';
+
+describe('shared/peripheral-speed', () => {
+  // trade-reference §2 worked examples: v = π·D·n / 60 000
+  const examples: [number, number, number, number][] = [
+    [250, 3000, 39.269908, 7730.297],
+    [300, 2850, 44.767695, 8812.538],
+    [150, 300, 2.356194, 463.818],
+  ];
+  for (const [d, n, v, ftMin] of examples) {
+    it(`Ø${d} mm at ${n} rpm → ${v} m/s, ${ftMin} ft/min (trade-reference §2 worked example)`, () => {
+      expect(peripheralSpeedMs(d, n)).to.be.closeTo(v, 1e-6);
+      expect(toFtPerMin(peripheralSpeedMs(d, n))).to.be.closeTo(ftMin, 1e-3);
+    });
+  }
+
+  it('n_max for 50 m/s on Ø300 is 3183.099, floored to 3183 (trade-reference §2 worked example)', () => {
+    expect(rpmForSpeed(300, 50)).to.be.closeTo(3183.099, 1e-3);
+    expect(maxRpmForWheel(300, 50)).to.equal(3183);
+    expect(peripheralSpeedMs(300, maxRpmForWheel(300, 50))).to.be.at.most(50);
+    expect(toFtPerMin(50)).to.be.closeTo(9842.52, 1e-3); // trade-reference §2
+  });
+
+  it('never floors an exact result one below (hand check: 60 000·π·250·3000/60 000/(π·250) = 3000)', () => {
+    expect(maxRpmForWheel(250, peripheralSpeedMs(250, 3000))).to.equal(3000);
+  });
+
+  it('margin to the marked maximum, in m/s and % (hand-computed: 80 − 39.27 = 40.73 m/s, 50.9 %)', () => {
+    const m = speedMargin(peripheralSpeedMs(250, 3000), 80);
+    expect(m.marginMs).to.be.closeTo(40.730092, 1e-6);
+    expect(m.marginPct).to.be.closeTo(50.9126, 1e-4);
+    expect(speedMargin(90, 80).marginMs).to.be.below(0);
+  });
+});

@@ -1,0 +1,75 @@
+import { expect } from 'chai';
+import { unit } from 'mathjs';
+import {
+  formatQuantity,
+  ftMinToMs,
+  inMinToMmS,
+  inToMm,
+  mm3SToIn3Min,
+  mmMinToMmS,
+  mmSToInMin,
+  mmSToMmMin,
+  mmToIn,
+  msToFtMin,
+} from '../../../shared/units';
+
+describe('shared/units', () => {
+  describe('conversions agree with mathjs (general reference library)', () => {
+    const cases: [string, (v: number) => number, string, string][] = [
+      ['mm → in', mmToIn, 'mm', 'inch'],
+      ['in → mm', inToMm, 'inch', 'mm'],
+      ['mm/s → in/min', mmSToInMin, 'mm/s', 'inch/min'],
+      ['in/min → mm/s', inMinToMmS, 'inch/min', 'mm/s'],
+      ['m/s → ft/min', msToFtMin, 'm/s', 'ft/min'],
+      ['ft/min → m/s', ftMinToMs, 'ft/min', 'm/s'],
+      ['mm/s → mm/min', mmSToMmMin, 'mm/s', 'mm/min'],
+      ['mm/min → mm/s', mmMinToMmS, 'mm/min', 'mm/s'],
+      ['mm³/s → in³/min', mm3SToIn3Min, 'mm^3/s', 'inch^3/min'],
+    ];
+    for (const [name, fn, from, to] of cases) {
+      it(name, () => {
+        for (const v of [0.005, 0.3, 1, 39.27, 1234.5]) {
+          // mathjs 15.2.0, unit().toNumber()
+          expect(fn(v)).to.be.closeTo(unit(v, from).toNumber(to), 1e-9 * Math.max(1, Math.abs(fn(v))));
+        }
+      });
+    }
+  });
+
+  describe('exact factors', () => {
+    it('match trade reference §6', () => {
+      expect(mmToIn(25.4)).to.equal(1); // trade-reference §6: mm ÷ 25.4
+      expect(mmSToMmMin(1)).to.equal(60); // trade-reference §6: × 60
+      expect(mmSToInMin(1)).to.be.closeTo(2.362204724, 1e-9); // trade-reference §6
+      expect(inMinToMmS(1)).to.be.closeTo(0.4233333, 1e-7); // trade-reference §6
+      expect(msToFtMin(1)).to.be.closeTo(196.8503937, 1e-7); // trade-reference §6
+      expect(ftMinToMs(1)).to.be.closeTo(0.00508, 1e-15); // trade-reference §6
+    });
+    it('round-trip without drift', () => {
+      expect(inToMm(mmToIn(37.3))).to.be.closeTo(37.3, 1e-12);
+      expect(ftMinToMs(msToFtMin(44.7))).to.be.closeTo(44.7, 1e-12);
+    });
+  });
+
+  describe('formatQuantity', () => {
+    it('feed with imperial beside metric', () => {
+      expect(formatQuantity(0.3, 'feed', 'metric+imperial')).to.equal('0.30 mm/s (0.71 in/min)'); // 0.3 × 2.3622 = 0.709
+      expect(formatQuantity(0.3, 'feed', 'metric')).to.equal('0.30 mm/s');
+      expect(formatQuantity(0.01, 'feed', 'metric')).to.equal('0.010 mm/s');
+    });
+    it('speed, length, rpm, removal, time', () => {
+      expect(formatQuantity(39.2699, 'speed', 'metric+imperial')).to.equal('39.3 m/s (7730 ft/min)'); // trade-reference §2 worked example
+      expect(formatQuantity(40, 'length', 'metric+imperial')).to.equal('40.0 mm (1.575 in)');
+      expect(formatQuantity(250, 'length', 'metric+imperial')).to.equal('250 mm (9.843 in)');
+      expect(formatQuantity(3183.099, 'rpm', 'metric+imperial')).to.equal('3183 rpm');
+      expect(formatQuantity(30, 'removal', 'metric')).to.equal('30.0 mm³/s');
+      expect(formatQuantity(96, 'time', 'metric')).to.equal('1 min 36 s');
+      expect(formatQuantity(42, 'time', 'metric')).to.equal('42 s');
+      expect(formatQuantity(3725, 'time', 'metric')).to.equal('1 h 02 min');
+    });
+    it('shows a dash for missing values', () => {
+      expect(formatQuantity(null, 'feed', 'metric')).to.equal('—');
+      expect(formatQuantity(Number.NaN, 'speed', 'metric+imperial')).to.equal('—');
+    });
+  });
+});
