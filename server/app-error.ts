@@ -9,15 +9,19 @@ export class AppError extends Error {
     readonly status: number,
     readonly code: string,
     readonly errors: FieldError[],
-    options?: { cause?: unknown; headers?: Record<string, string> },
+    options?: { cause?: unknown; headers?: Record<string, string>; extra?: Record<string, unknown> },
   ) {
     super(errors.map((e) => e.message).join(' ') || code, options?.cause ? { cause: options.cause } : undefined);
     this.name = 'AppError';
     this.headers = options?.headers ?? {};
+    this.extra = options?.extra ?? {};
   }
 
   /** Extra response headers, e.g. Retry-After on 429. */
   readonly headers: Record<string, string>;
+
+  /** Extra members of the answer beside code and errors, e.g. `current` on a stale save. */
+  readonly extra: Record<string, unknown>;
 
   static validation(errors: FieldError[]): AppError {
     return new AppError(400, 'VALIDATION_FAILED', errors);

@@ -73,7 +73,7 @@ export function errorHandler(log: (...args: unknown[]) => void = console.error):
       log(`[error] ${req.method} ${req.originalUrl} → ${appError.status} ${appError.code}:`, appError.status === 500 ? err : (err as Error)?.message);
     }
     for (const [name, value] of Object.entries(appError.headers)) res.setHeader(name, value);
-    const body: ApiErrorBody = { code: appError.code, errors: appError.errors };
+    const body: ApiErrorBody = { ...appError.extra, code: appError.code, errors: appError.errors };
     res.status(appError.status).json(body);
   };
 }

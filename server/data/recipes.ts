@@ -1,0 +1,195 @@
+/** Queries on recipes, recipe_versions and the recipe number counter. */
+import type { Knex } from 'knex';
+import type { RecipeStatus } from '../../shared/vocabulary';
+import { containsPattern } from './users';
+
+export interface RecipeRow {
+  id: number;
+  number: string;
+  title: string;
+  latest_version_id: number | null;
+  created_by: number;
+  created_at: Date;
+  updated_at: Date;
+}
+
+/** The columns a save writes: content, its copies for the library, the checks. */
+export interface VersionContentValues {
+  title: string;
+  content_json: string;
+  checks_json: string;
+  worst_check: 'blocker' | 'warning' | 'note' | null;
+  material_group: string;
+  material_id: number | null;
+  shape: string;
+  size_min_mm: number;
+  size_max_mm: number;
+  hardness_min_hv: number | null;
+  hardness_max_hv: number | null;
+  machine_id: number;
+  wheel_id: number;
+}
+
+export interface VersionRow extends VersionContentValues {
+  id: number;
+  recipe_id: number;
+  version: number;
+  status: RecipeStatus;
+  revision: number;
+  content_hash: string | null;
+  created_by: number;
+  updated_by: number;
+  created_at: Date;
+  updated_at: Date;
+}
+
+/** A version with what its DTO needs from other tables. */
+export interface VersionWithNames extends VersionRow {
+  number: string;
+  created_by_name: string;
+  updated_by_name: string;
+}
+
+/**
+ * The next recipe number. The counter row is locked until the calling transaction ends,
+ * so concurrent creates queue here and never share a number.
+ */
+export async function takeNextRecipeNumber(trx: Knex.Transaction): Promise<number> {
+  const row = (await trx('recipe_number_counter').where({ id: 1 }).forUpdate().first()) as { last_number: number } | undefined;
+  if (!row) throw new Error('The recipe number counter row is missing (run the migrations).');
+  const next = row.last_number + 1;
+  await trx('recipe_number_counter').where({ id: 1 }).update({ last_number: next });
+  return next;
+}
+
+export async function insertRecipe(db: Knex, row: Omit<RecipeRow, 'id' | 'latest_version_id'>): Promise<number> {
+  const [id] = await db('recipes').insert({ ...row, latest_version_id: null });
+  return id!;
+}
+
+export async function updateRecipeRow(db: Knex, id: number, changes: Partial<Omit<RecipeRow, 'id'>>): Promise<void> {
+  await db('recipes').where({ id }).update(changes);
+}
+
+export async function insertVersion(db: Knex, row: Omit<VersionRow, 'id'>): Promise<number> {
+  const [id] = await db('recipe_versions').insert(row);
+  return id!;
+}
+
+export async function findRecipeRow(db: Knex, id: number): Promise<RecipeRow | undefined> {
+  return db<RecipeRow>('recipes').where({ id }).first();
+}
+
+function versionsWithNames(db: Knex) {
+  return db('recipe_versions as v')
+    .join('recipes as r', 'r.id', 'v.recipe_id')
+    .join('users as cu', 'cu.id', 'v.created_by')
+    .join('users as uu', 'uu.id', 'v.updated_by')
+    .select('v.*', 'r.number as number', 'cu.display_name as created_by_name', 'uu.display_name as updated_by_name');
+}
+
+export async function findVersion(db: Knex, recipeId: number, version: number): Promise<VersionWithNames | undefined> {
+  return versionsWithNames(db).where({ 'v.recipe_id': recipeId, 'v.version': version }).first();
+}
+
+export async function findVersionById(db: Knex, id: number): Promise<VersionWithNames | undefined> {
+  return versionsWithNames(db).where({ 'v.id': id }).first();
+}
+
+/** Newest first. */
+export async function listVersionRows(db: Knex, recipeId: number): Promise<VersionWithNames[]> {
+  return versionsWithNames(db).where({ 'v.recipe_id': recipeId }).orderBy('v.version', 'desc');
+}
+
+/**
+ * The one conditional write behind "save draft": it lands only if the version is still at
+ * the revision the editor started from and still editable (a returned version becomes a
+ * draft again). Answers how many rows changed: 1 saved, 0 refused.
+ */
+export async function saveDraftRow(
+  db: Knex,
+  versionId: number,
+  expectedRevision: number,
+  values: VersionContentValues & { updated_by: number; updated_at: Date },
+): Promise<number> {
+  return db('recipe_versions')
+    .where({ id: versionId, revision: expectedRevision })
+    .whereIn('status', ['draft', 'returned'])
+    .update({ ...values, status: 'draft', revision: db.raw('revision + 1') });
+}
+
+export interface RecipeListFilter {
+  page: number;
+  pageSize: number;
+  sortColumn: string;
+  dir: 'asc' | 'desc';
+  q?: string | undefined;
+  group?: string | undefined;
+  shape?: string | undefined;
+  machineId?: number | undefined;
+  status?: string | undefined;
+  size?: number | undefined;
+  hardnessHv?: number | undefined;
+}
+
+export interface RecipeSummaryRow {
+  id: number;
+  number: string;
+  title: string;
+  version: number;
+  status: RecipeStatus;
+  material_group: string;
+  material_name: string | null;
+  shape: string;
+  size_min_mm: number;
+  size_max_mm: number;
+  machine_name: string;
+  wheel_name: string;
+  worst_check: 'blocker' | 'warning' | 'note' | null;
+  updated_at: Date;
+}
+
+/** The library: each recipe with its latest version, filtered and sorted on indexed columns. */
+export async function listRecipeSummaryRows(db: Knex, filter: RecipeListFilter): Promise<{ rows: RecipeSummaryRow[]; total: number }> {
+  const base = db('recipes as r')
+    .join('recipe_versions as v', 'v.id', 'r.latest_version_id')
+    .leftJoin('materials as m', 'm.id', 'v.material_id')
+    .join('machines as mc', 'mc.id', 'v.machine_id')
+    .join('wheels as w', 'w.id', 'v.wheel_id');
+  if (filter.q) {
+    const pattern = containsPattern(filter.q);
+    base.where((w) =>
+      w.where('r.number', 'like', pattern).orWhere('v.title', 'like', pattern).orWhere('m.name', 'like', pattern).orWhere('m.designation', 'like', pattern),
+    );
+  }
+  if (filter.group) base.where('v.material_group', filter.group);
+  if (filter.shape) base.where('v.shape', filter.shape);
+  if (filter.machineId) base.where('v.machine_id', filter.machineId);
+  if (filter.status) base.where('v.status', filter.status);
+  if (filter.size !== undefined) base.where('v.size_min_mm', '<=', filter.size).andWhere('v.size_max_mm', '>=', filter.size);
+  if (filter.hardnessHv !== undefined) base.where('v.hardness_min_hv', '<=', filter.hardnessHv).andWhere('v.hardness_max_hv', '>=', filter.hardnessHv);
+  const [{ total }] = (await base.clone().count<{ total: number }[]>({ total: '*' })) as [{ total: number }];
+  const rows = (await base
+    .clone()
+    .select(
+      'r.id',
+      'r.number',
+      'v.title',
+      'v.version',
+      'v.status',
+      'v.material_group',
+      'm.name as material_name',
+      'v.shape',
+      'v.size_min_mm',
+      'v.size_max_mm',
+      'mc.name as machine_name',
+      'w.name as wheel_name',
+      'v.worst_check',
+      'v.updated_at',
+    )
+    .orderBy(filter.sortColumn, filter.dir)
+    .orderBy('r.id', filter.dir)
+    .limit(filter.pageSize)
+    .offset(filter.page * filter.pageSize)) as RecipeSummaryRow[];
+  return { rows, total: Number(total) };
+}

@@ -1,0 +1,226 @@
+/**
+ * Recipes and their drafts (design 3 and 4): create (the server hands out the number),
+ * the library list, versions, and saving a draft with optimistic concurrency — a stale
+ * save gets 409 with the version as it is now, never a silent overwrite.
+ */
+import type { Knex } from 'knex';
+import type { Page } from '../../shared/api-types';
+import type { RecipeContext } from '../../shared/recipe-context';
+import type { RecipeSummary, RecipeVersionDto } from '../../shared/recipe-types';
+import type { CreateRecipeBody, RecipeContent, RecipeListQuery, SaveDraftBody } from '../../shared/schemas/recipe';
+import { AppError } from '../app-error';
+import { listAttachmentMetaRows } from '../data/attachments';
+import {
+  findRecipeRow,
+  findVersion,
+  insertRecipe,
+  insertVersion,
+  listRecipeSummaryRows,
+  listVersionRows,
+  saveDraftRow,
+  takeNextRecipeNumber,
+  updateRecipeRow,
+  type VersionContentValues,
+} from '../data/recipes';
+import type { Actor } from './actor';
+import { AUDIT_EVENTS, recordAudit } from './audit';
+import { canonicalJson } from './canonical-json';
+import { changedKeys } from './changes';
+import { loadRecipeContext } from './recipe-context-loader';
+import { checkRecipe, worstSeverity } from './recipe-checking';
+import { toRecipeSummary, toVersionDto } from './recipe-dto';
+
+export function formatRecipeNumber(n: number): string {
+  return `KB-${String(n).padStart(4, '0')}`;
+}
+
+/**
+ * The hardness window in HV for the library's hardness filter: the scope's window, or the
+ * material's typical hardness as a one-point window.
+ * TODO(shared): convert HRC/HRB/HBW with toHv from shared/hardness.ts once it lands; until
+ * then only windows measured in HV are indexed (others stay null and the filter skips them).
+ */
+function hardnessHv(content: RecipeContent, ctx: RecipeContext): { min: number | null; max: number | null } {
+  const window = content.scope.hardness;
+  if (window) return window.scale === 'HV' ? { min: window.min, max: window.max } : { min: null, max: null };
+  const typical = ctx.material?.hardness;
+  if (typical && typical.scale === 'HV') return { min: typical.value, max: typical.value };
+  return { min: null, max: null };
+}
+
+/** The columns a save writes, all derived from the content and its context. */
+function contentValues(title: string, content: RecipeContent, ctx: RecipeContext): VersionContentValues {
+  const checks = checkRecipe(content, ctx);
+  const hv = hardnessHv(content, ctx);
+  return {
+    title,
+    content_json: canonicalJson(content),
+    checks_json: JSON.stringify(checks),
+    worst_check: worstSeverity(checks),
+    material_group: content.scope.group,
+    material_id: content.scope.materialId,
+    shape: content.scope.shape,
+    size_min_mm: content.scope.sizeMinMm,
+    size_max_mm: content.scope.sizeMaxMm,
+    hardness_min_hv: hv.min,
+    hardness_max_hv: hv.max,
+    machine_id: content.cutting.machineId,
+    wheel_id: content.cutting.wheelId,
+  };
+}
+
+async function versionDto(db: Knex, recipeId: number, version: number): Promise<RecipeVersionDto> {
+  const row = await findVersion(db, recipeId, version);
+  if (!row) {
+    const recipe = await findRecipeRow(db, recipeId);
+    throw AppError.notFound(recipe ? `Recipe ${recipe.number} has no version ${version}.` : `There is no recipe with id ${recipeId}.`);
+  }
+  return toVersionDto(row, await listAttachmentMetaRows(db, [row.id]));
+}
+
+function requireActor(actor: Actor): number {
+  if (actor.userId === null) throw new Error('Recipes are written by a signed-in person.');
+  return actor.userId;
+}
+
+export async function createRecipe(db: Knex, actor: Actor, body: CreateRecipeBody): Promise<RecipeVersionDto> {
+  const userId = requireActor(actor);
+  const ctx = await loadRecipeContext(db, body.content);
+  const values = contentValues(body.title, body.content, ctx);
+  const recipeId = await db.transaction(async (trx) => {
+    const now = new Date();
+    const number = formatRecipeNumber(await takeNextRecipeNumber(trx));
+    const id = await insertRecipe(trx, { number, title: body.title, created_by: userId, created_at: now, updated_at: now });
+    const versionId = await insertVersion(trx, {
+      ...values,
+      recipe_id: id,
+      version: 1,
+      status: 'draft',
+      revision: 0,
+      content_hash: null,
+      created_by: userId,
+      updated_by: userId,
+      created_at: now,
+      updated_at: now,
+    });
+    await updateRecipeRow(trx, id, { latest_version_id: versionId });
+    await recordAudit(
+      trx,
+      actor,
+      { type: AUDIT_EVENTS.recipeCreated, entityType: 'recipe', entityId: id, before: null, after: { number, title: body.title, version: 1, status: 'draft', worstCheck: values.worst_check } },
+      now,
+    );
+    return id;
+  });
+  return versionDto(db, recipeId, 1);
+}
+
+const SORT_COLUMNS: Record<RecipeListQuery['sort'], string> = {
+  // Numbers are handed out in creation order under the counter's lock, so id order is
+  // number order — also past KB-9999, where text order would not be.
+  number: 'r.id',
+  title: 'v.title',
+  group: 'v.material_group',
+  status: 'v.status',
+  updatedAt: 'v.updated_at',
+  sizeMaxMm: 'v.size_max_mm',
+};
+
+export async function listRecipes(db: Knex, query: RecipeListQuery): Promise<Page<RecipeSummary>> {
+  const { rows, total } = await listRecipeSummaryRows(db, {
+    page: query.page,
+    pageSize: query.pageSize,
+    sortColumn: SORT_COLUMNS[query.sort],
+    dir: query.dir,
+    q: query.q || undefined,
+    group: query.group,
+    shape: query.shape,
+    machineId: query.machineId,
+    status: query.status,
+    size: query.size,
+    hardnessHv: query.hardnessHv,
+  });
+  return { items: rows.map(toRecipeSummary), total, page: query.page, pageSize: query.pageSize };
+}
+
+export async function listVersions(db: Knex, recipeId: number): Promise<RecipeVersionDto[]> {
+  const rows = await listVersionRows(db, recipeId);
+  if (rows.length === 0) throw AppError.notFound(`There is no recipe with id ${recipeId}.`);
+  const attachments = await listAttachmentMetaRows(db, rows.map((r) => r.id));
+  return rows.map((row) => toVersionDto(row, attachments));
+}
+
+export function getVersion(db: Knex, recipeId: number, version: number): Promise<RecipeVersionDto> {
+  return versionDto(db, recipeId, version);
+}
+
+const EDITABLE = new Set(['draft', 'returned']);
+
+function notEditable(dto: RecipeVersionDto): AppError {
+  return AppError.conflict(
+    `Version ${dto.version} of ${dto.number} is ${dto.status}, and only drafts can be edited. Start a new version to change it.`,
+  );
+}
+
+function stale(dto: RecipeVersionDto): AppError {
+  return new AppError(
+    409,
+    'CONFLICT',
+    [
+      {
+        path: 'revision',
+        message: `${dto.updatedBy.name} saved this draft after you opened it (now revision ${dto.revision}). Compare your changes with theirs and save again.`,
+      },
+    ],
+    { extra: { current: dto } },
+  );
+}
+
+/**
+ * Saves a draft. The write is one conditional UPDATE (revision and status in its WHERE),
+ * so of two saves based on the same revision exactly one lands; the other gets 409 with
+ * the version as it is now. A returned version becomes a draft again (design 4).
+ */
+export async function saveDraft(db: Knex, actor: Actor, recipeId: number, version: number, body: SaveDraftBody): Promise<RecipeVersionDto> {
+  const userId = requireActor(actor);
+  const before = await findVersion(db, recipeId, version);
+  if (!before) return versionDto(db, recipeId, version); // throws the right 404
+  if (!EDITABLE.has(before.status)) throw notEditable(toVersionDto(before, []));
+
+  const ctx = await loadRecipeContext(db, body.content);
+  const values = contentValues(body.title, body.content, ctx);
+
+  const saved = await db.transaction(async (trx) => {
+    // `before` must be the revision the editor started from, or its content is not what
+    // the editor changed: then the save is stale whatever the UPDATE would say.
+    if (before.revision !== body.revision) return false;
+    const now = new Date();
+    const changed = await saveDraftRow(trx, before.id, body.revision, { ...values, updated_by: userId, updated_at: now });
+    if (changed !== 1) return false;
+    const recipe = await findRecipeRow(trx, recipeId);
+    if (recipe?.latest_version_id === before.id) await updateRecipeRow(trx, recipeId, { title: body.title, updated_at: now });
+    const contentKeys = changedKeys(JSON.parse(before.content_json) as Record<string, unknown>, JSON.parse(values.content_json) as Record<string, unknown>);
+    const auditBefore: Record<string, unknown> = { revision: before.revision };
+    const auditAfter: Record<string, unknown> = { revision: before.revision + 1, changed: contentKeys };
+    if (before.title !== body.title) {
+      auditBefore['title'] = before.title;
+      auditAfter['title'] = body.title;
+    }
+    if (before.status !== 'draft') {
+      auditBefore['status'] = before.status;
+      auditAfter['status'] = 'draft';
+    }
+    if (before.worst_check !== values.worst_check) {
+      auditBefore['worstCheck'] = before.worst_check;
+      auditAfter['worstCheck'] = values.worst_check;
+    }
+    await recordAudit(trx, actor, { type: AUDIT_EVENTS.draftSaved, entityType: 'recipe_version', entityId: before.id, before: auditBefore, after: auditAfter }, now);
+    return true;
+  });
+
+  // Read after the transaction: inside it, a consistent read would still show the old snapshot.
+  const current = await versionDto(db, recipeId, version);
+  if (saved) return current;
+  if (!EDITABLE.has(current.status)) throw notEditable(current);
+  throw stale(current);
+}
