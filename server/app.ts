@@ -7,8 +7,9 @@ import cookieParser from 'cookie-parser';
 import type { Knex } from 'knex';
 import type { Config } from './config';
 import { createAuthenticator } from './web/authentication';
-import { jsonBody, requireJsonContentType } from './web/body-parsing';
+import { jsonBody, jsonContentTypeOnly } from './web/body-parsing';
 import { createCsrf } from './web/csrf';
+import { pathMatcher } from './web/multipart';
 import { apiNotFound, errorHandler } from './web/error-handler';
 import { buildRouter } from './web/router';
 import { routes } from './web/routes';
@@ -61,9 +62,11 @@ export function createApp(deps: AppDeps): KerfbookApp {
   app.use(securityHeaders({ behindTls: config.trustProxy !== false }));
 
   // Order matters: body → session → passport (who) → CSRF → per-route access → handler.
+  // Multipart forms (uploads) pass the body check and are read by their route, after access.
   // CSRF before access, so a forged request never learns more than 403; access then
   // answers 401/403 for requests that carry a valid token.
-  app.use('/api', requireJsonContentType, jsonBody, cookieParser(), sessionMiddleware(store, config.sessionSecret));
+  const multipartPaths = routes.filter((r) => r.multipart).map((r) => pathMatcher(r.path));
+  app.use('/api', jsonContentTypeOnly(multipartPaths), jsonBody, cookieParser(), sessionMiddleware(store, config.sessionSecret));
   app.use('/api', auth.initialize(), auth.session());
   app.use('/api', csrf.protect);
   app.use(buildRouter(routes, { db, csrf, auth }));

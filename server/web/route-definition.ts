@@ -28,4 +28,6 @@ export interface RouteDefinition {
    * PASSWORD_CHANGE_REQUIRED.
    */
   whilePasswordChangeRequired?: true;
+  /** Takes a multipart form with one file (read after the access check) instead of JSON. */
+  multipart?: true;
 }
