@@ -3,10 +3,18 @@
  * the role-walk test are both built from this table. Within a path, specific routes come
  * before parameterised ones.
  */
+import * as attachments from './handlers/attachments';
 import * as health from './handlers/health';
+import * as recipes from './handlers/recipes';
+import * as selectionRows from './handlers/selection-rows';
 import * as session from './handlers/session';
+import * as settings from './handlers/settings';
+import { machines, materials, wheels } from './handlers/stock';
 import * as users from './handlers/users';
 import type { RouteDefinition } from './route-definition';
+
+/** Who edits stock (design 2): authors, and admins who keep the lab's lists. */
+const STOCK_EDITORS = ['author', 'admin'] as const;
 
 export const routes: readonly RouteDefinition[] = [
   { method: 'get', path: '/api/health', access: 'public', handler: health.check },
@@ -27,4 +35,49 @@ export const routes: readonly RouteDefinition[] = [
   { method: 'post', path: '/api/users/:id/deactivate', access: ['admin'], handler: users.deactivate },
   { method: 'post', path: '/api/users/:id/reactivate', access: ['admin'], handler: users.reactivate },
   { method: 'post', path: '/api/users/:id/temporary-password', access: ['admin'], handler: users.setTemporaryPassword },
+
+  // Stock: everyone signed in reads; authors and admins edit. DELETE archives a referenced record.
+  { method: 'get', path: '/api/materials', access: 'signedIn', handler: materials.list },
+  { method: 'post', path: '/api/materials', access: STOCK_EDITORS, handler: materials.create },
+  { method: 'get', path: '/api/materials/:id', access: 'signedIn', handler: materials.getOne },
+  { method: 'put', path: '/api/materials/:id', access: STOCK_EDITORS, handler: materials.update },
+  { method: 'post', path: '/api/materials/:id/archive', access: STOCK_EDITORS, handler: materials.archive },
+  { method: 'post', path: '/api/materials/:id/unarchive', access: STOCK_EDITORS, handler: materials.unarchive },
+  { method: 'delete', path: '/api/materials/:id', access: STOCK_EDITORS, handler: materials.remove },
+
+  { method: 'get', path: '/api/wheels', access: 'signedIn', handler: wheels.list },
+  { method: 'post', path: '/api/wheels', access: STOCK_EDITORS, handler: wheels.create },
+  { method: 'get', path: '/api/wheels/:id', access: 'signedIn', handler: wheels.getOne },
+  { method: 'put', path: '/api/wheels/:id', access: STOCK_EDITORS, handler: wheels.update },
+  { method: 'post', path: '/api/wheels/:id/archive', access: STOCK_EDITORS, handler: wheels.archive },
+  { method: 'post', path: '/api/wheels/:id/unarchive', access: STOCK_EDITORS, handler: wheels.unarchive },
+  { method: 'delete', path: '/api/wheels/:id', access: STOCK_EDITORS, handler: wheels.remove },
+
+  { method: 'get', path: '/api/machines', access: 'signedIn', handler: machines.list },
+  { method: 'post', path: '/api/machines', access: STOCK_EDITORS, handler: machines.create },
+  { method: 'get', path: '/api/machines/:id', access: 'signedIn', handler: machines.getOne },
+  { method: 'put', path: '/api/machines/:id', access: STOCK_EDITORS, handler: machines.update },
+  { method: 'post', path: '/api/machines/:id/archive', access: STOCK_EDITORS, handler: machines.archive },
+  { method: 'post', path: '/api/machines/:id/unarchive', access: STOCK_EDITORS, handler: machines.unarchive },
+  { method: 'delete', path: '/api/machines/:id', access: STOCK_EDITORS, handler: machines.remove },
+
+  { method: 'get', path: '/api/selection-rows', access: 'signedIn', handler: selectionRows.list },
+  { method: 'post', path: '/api/selection-rows', access: STOCK_EDITORS, handler: selectionRows.create },
+  { method: 'put', path: '/api/selection-rows/:id', access: STOCK_EDITORS, handler: selectionRows.update },
+  { method: 'delete', path: '/api/selection-rows/:id', access: STOCK_EDITORS, handler: selectionRows.remove },
+
+  { method: 'get', path: '/api/settings/limits', access: 'signedIn', handler: settings.limits },
+
+  // Recipes and drafts. Only authors write; the server hands out numbers and runs the checks.
+  { method: 'get', path: '/api/recipes', access: 'signedIn', handler: recipes.list },
+  { method: 'post', path: '/api/recipes', access: ['author'], handler: recipes.create },
+  { method: 'get', path: '/api/recipes/:id/versions', access: 'signedIn', handler: recipes.versions },
+  { method: 'get', path: '/api/recipes/:id/versions/:n', access: 'signedIn', handler: recipes.getVersion },
+  { method: 'put', path: '/api/recipes/:id/versions/:n', access: ['author'], handler: recipes.saveDraft },
+  { method: 'post', path: '/api/recipes/:id/versions/:n/attachments', access: ['author'], handler: attachments.upload, multipart: true },
+  { method: 'delete', path: '/api/recipes/:id/versions/:n/attachments/:attachmentId', access: ['author'], handler: attachments.remove },
+
+  // The stored photos (image and thumbnail).
+  { method: 'get', path: '/api/attachments/:id', access: 'signedIn', handler: attachments.image },
+  { method: 'get', path: '/api/attachments/:id/thumbnail', access: 'signedIn', handler: attachments.thumbnail },
 ];

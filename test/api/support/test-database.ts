@@ -29,10 +29,26 @@ export async function closeTestDb(): Promise<void> {
 }
 
 /** Tables a test file may fill, children first. lab_settings keeps its migrated row. */
-const TABLES = ['audit_events', 'sign_in_failures', 'sessions', 'user_roles', 'users'];
+const TABLES = [
+  'attachments',
+  'recipe_versions',
+  'recipes',
+  'selection_rows',
+  'materials',
+  'wheels',
+  'machines',
+  'audit_events',
+  'sign_in_failures',
+  'sessions',
+  'user_roles',
+  'users',
+];
 
 export async function resetTables(db: Knex): Promise<void> {
+  // recipes ↔ recipe_versions point at each other: cut the recipe's pointer first.
+  await db('recipes').update({ latest_version_id: null });
   for (const table of TABLES) await db(table).del();
+  await db('recipe_number_counter').update({ last_number: 0 });
 }
 
 export async function countRows(db: Knex, table: string): Promise<number> {

@@ -1,0 +1,53 @@
+/** Photo uploads (multipart, read by the route's multer step) and serving the stored bytes. */
+import type { Response } from 'express';
+import { z } from 'zod';
+import { idParam } from '../../../shared/schemas/fields';
+import { AppError } from '../../app-error';
+import * as attachments from '../../services/attachments';
+import type { RouteHandler } from '../route-definition';
+import { idOf, parse } from './parse';
+import { actorOf } from './request-actor';
+
+const versionParams = z.object({ id: idParam, n: idParam });
+const attachmentParams = z.object({ id: idParam, n: idParam, attachmentId: idParam });
+
+export const upload: RouteHandler = async (req, res, { db }) => {
+  const { id, n } = parse(versionParams, req.params);
+  const fields = parse(attachments.attachmentFields, req.body ?? {});
+  const file = req.file;
+  if (!file) throw AppError.validation([{ path: 'file', message: 'Attach a photo (JPEG, PNG or WebP) in the form field "file".' }]);
+  const dto = await attachments.addAttachment(db, actorOf(req), id, n, fields, { bytes: file.buffer, fileName: file.originalname, declaredType: file.mimetype });
+  res.status(201).json(dto);
+};
+
+export const remove: RouteHandler = async (req, res, { db }) => {
+  const { id, n, attachmentId } = parse(attachmentParams, req.params);
+  await attachments.deleteAttachment(db, actorOf(req), id, n, attachmentId);
+  res.status(204).end();
+};
+
+function send(res: Response, image: attachments.ServedImage, ifNoneMatch: string | undefined): void {
+  const etag = `"${image.sha256}"`;
+  res.set({
+    ETag: etag,
+    // The bytes behind an id never change; private because only signed-in people may see them.
+    'Cache-Control': 'private, max-age=31536000, immutable',
+    'X-Content-Type-Options': 'nosniff',
+    // An image never runs anything, even if opened on its own.
+    'Content-Security-Policy': "default-src 'none'; sandbox",
+    'Content-Disposition': `inline; filename="${image.fileName.replace(/[^\x20-\x7e]/g, '_')}"`,
+  });
+  if (ifNoneMatch && ifNoneMatch.split(',').some((tag) => tag.trim() === etag)) {
+    res.status(304).end();
+    return;
+  }
+  res.type(image.mimeType).send(image.bytes);
+}
+
+export const image: RouteHandler = async (req, res, { db }) => {
+  send(res, await attachments.readAttachment(db, idOf(req.params), 'image'), req.headers['if-none-match']);
+};
+
+export const thumbnail: RouteHandler = async (req, res, { db }) => {
+  send(res, await attachments.readAttachment(db, idOf(req.params), 'thumbnail'), req.headers['if-none-match']);
+};

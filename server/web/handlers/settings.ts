@@ -1,0 +1,6 @@
+import { getLabLimits } from '../../services/lab-limits';
+import type { RouteHandler } from '../route-definition';
+
+export const limits: RouteHandler = async (_req, res, { db }) => {
+  res.json(await getLabLimits(db));
+};
