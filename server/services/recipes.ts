@@ -5,9 +5,12 @@
  */
 import type { Knex } from 'knex';
 import type { Page } from '../../shared/api-types';
+import { convertHardness } from '../../shared/hardness';
+import { runChecks, worstSeverity } from '../../shared/recipe-checks';
 import type { RecipeContext } from '../../shared/recipe-context';
 import type { RecipeSummary, RecipeVersionDto } from '../../shared/recipe-types';
 import type { CreateRecipeBody, RecipeContent, RecipeListQuery, SaveDraftBody } from '../../shared/schemas/recipe';
+import type { HardnessScale, MaterialGroup } from '../../shared/vocabulary';
 import { AppError } from '../app-error';
 import { listAttachmentMetaRows } from '../data/attachments';
 import {
@@ -27,30 +30,39 @@ import { AUDIT_EVENTS, recordAudit } from './audit';
 import { canonicalJson } from './canonical-json';
 import { changedKeys } from './changes';
 import { loadRecipeContext } from './recipe-context-loader';
-import { checkRecipe, worstSeverity } from './recipe-checking';
 import { toRecipeSummary, toVersionDto } from './recipe-dto';
 
 export function formatRecipeNumber(n: number): string {
   return `KB-${String(n).padStart(4, '0')}`;
 }
 
+/** A hardness in HV: as measured on HV, converted for steels (ASTM E140 via shared/hardness), else null. */
+function inHv(value: number, scale: HardnessScale, group: MaterialGroup): number | null {
+  if (scale === 'HV') return value;
+  const converted = convertHardness(value, scale, 'HV', group);
+  return converted.ok ? converted.value : null;
+}
+
 /**
  * The hardness window in HV for the library's hardness filter: the scope's window, or the
- * material's typical hardness as a one-point window.
- * TODO(shared): convert HRC/HRB/HBW with toHv from shared/hardness.ts once it lands; until
- * then only windows measured in HV are indexed (others stay null and the filter skips them).
+ * material's typical hardness as a one-point window. Scales that do not convert for the
+ * group (e.g. HRB on a copper alloy) stay null, and the filter leaves those recipes out.
  */
 function hardnessHv(content: RecipeContent, ctx: RecipeContext): { min: number | null; max: number | null } {
+  const group = content.scope.group;
   const window = content.scope.hardness;
-  if (window) return window.scale === 'HV' ? { min: window.min, max: window.max } : { min: null, max: null };
   const typical = ctx.material?.hardness;
-  if (typical && typical.scale === 'HV') return { min: typical.value, max: typical.value };
-  return { min: null, max: null };
+  const [min, max] = window
+    ? [inHv(window.min, window.scale, group), inHv(window.max, window.scale, group)]
+    : typical
+      ? [inHv(typical.value, typical.scale, group), inHv(typical.value, typical.scale, group)]
+      : [null, null];
+  return min === null || max === null ? { min: null, max: null } : { min, max };
 }
 
 /** The columns a save writes, all derived from the content and its context. */
 function contentValues(title: string, content: RecipeContent, ctx: RecipeContext): VersionContentValues {
-  const checks = checkRecipe(content, ctx);
+  const checks = runChecks(content, ctx);
   const hv = hardnessHv(content, ctx);
   return {
     title,
