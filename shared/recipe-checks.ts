@@ -280,9 +280,10 @@ const RULES: readonly Rule[] = [
   ({ ctx }) => {
     const out: CheckResult[] = [];
     const reason = 'Archived stock stays readable for old recipes but is no longer offered; check that it is still available at the saw.';
-    if (ctx.material?.archived) out.push(result('material-archived', 'warning', 'scope.materialId', `The material ${ctx.material.name} is archived.`, reason));
-    if (ctx.wheel?.archived) out.push(result('wheel-archived', 'warning', 'cutting.wheelId', `The wheel ${ctx.wheel.name} is archived.`, reason));
-    if (ctx.machine?.archived) out.push(result('machine-archived', 'warning', 'cutting.machineId', `The machine ${ctx.machine.name} is archived.`, reason));
+    // One id for the three records; the path says which one.
+    if (ctx.material?.archived) out.push(result('stock-archived', 'warning', 'scope.materialId', `The material "${ctx.material.name}" is archived.`, reason));
+    if (ctx.wheel?.archived) out.push(result('stock-archived', 'warning', 'cutting.wheelId', `The wheel "${ctx.wheel.name}" is archived.`, reason));
+    if (ctx.machine?.archived) out.push(result('stock-archived', 'warning', 'cutting.machineId', `The machine "${ctx.machine.name}" is archived.`, reason));
     return out;
   },
 ];
@@ -310,9 +311,7 @@ export const CHECK_IDS = [
   'heat-sensitive-high-feed',
   'hazardous-dust-dry',
   'coolant-concentration',
-  'material-archived',
-  'wheel-archived',
-  'machine-archived',
+  'stock-archived',
 ] as const;
 export type CheckId = (typeof CHECK_IDS)[number];
 

@@ -1,0 +1,69 @@
+import { expect } from 'chai';
+import { computeRecipe } from '../../../shared/recipe-computations';
+import type { RecipeContent } from '../../../shared/schemas/recipe';
+import { content, ctx, material, precisionMachine, rimWheel } from './fixtures';
+
+describe('shared/recipe-computations', () => {
+  it('combines speed, margin, capacity, profile, time and hardness', () => {
+    const c = computeRecipe(content(), ctx());
+    expect(c.peripheralSpeedMs).to.be.closeTo(39.269908, 1e-6); // trade-reference §2 worked example: Ø250 at 3000 rpm
+    expect(c.peripheralSpeedFtMin).to.be.closeTo(7730.297, 1e-3); // trade-reference §2
+    expect(c.markedMaxSpeedMs).to.equal(80);
+    expect(c.speedMarginMs).to.be.closeTo(80 - 39.269908, 1e-6);
+    expect(c.speedMarginPct).to.be.closeTo(((80 - 39.269908) / 80) * 100, 1e-5);
+    expect(c.rpmAtMarkedMax).to.equal(6111); // 60 000·80/(π·250) = 6111.55, floored
+    expect(c.cuttingDepthMm).to.equal(80); // (250 − 80)/2 − 5
+    expect(c.cuttableSizeMm).to.equal(80);
+    expect(c.capacityFits).to.equal(true);
+    expect(c.capacityMarginMm).to.equal(40);
+    expect(c.profile).to.have.length(41);
+    expect(c.peakRemovalMm3S).to.equal(0.5 * 1.5 * 40); // feed × thickness × Ø40 chord at the centre
+    expect(c.cutTimeS).to.equal(80); // 40 mm / 0.5 mm/s
+    expect(c.hardness).to.deep.include({ minHv: 302, maxHv: 302, applies: true, reason: null }); // ASTM E140 Table 1: 30 HRC = 302 HV
+  });
+
+  it('uses the scope hardness window when given, and says why not for other groups', () => {
+    const steel = computeRecipe(content({ scope: { hardness: { min: 40, max: 50, scale: 'HRC' } } }), ctx());
+    expect(steel.hardness).to.deep.include({ minHv: 392, maxHv: 513 }); // ASTM E140, Table 1
+    expect(steel.hardness!.caveats.length).to.be.greaterThan(0);
+    const alu = computeRecipe(content({ scope: { group: 'aluminium-magnesium', hardness: { min: 60, max: 90, scale: 'HBW' } } }), ctx({ material: null }));
+    expect(alu.hardness).to.deep.include({ applies: false, minHv: null, maxHv: null });
+    expect(alu.hardness!.reason).to.be.a('string');
+    const offTable = computeRecipe(content({ scope: { hardness: { min: 10, max: 30, scale: 'HRC' } } }), ctx());
+    expect(offTable.hardness).to.deep.include({ minHv: null, maxHv: 302 });
+    expect(offTable.hardness!.reason).to.match(/outside/);
+  });
+
+  it('an entry feed and a turning specimen change time and capacity', () => {
+    const c = computeRecipe(
+      content({ scope: { sizeMaxMm: 150 }, cutting: { machineId: 2, wheelId: 2, wheelRpm: 4000, feedMmS: 0.1, cutMotion: 'turning-specimen', entryFeedMmS: 0.05, entryLengthMm: 5 }, clamping: { method: 'adhesive-wax-mount' } }),
+      ctx({ wheel: rimWheel(), machine: precisionMachine() }),
+    );
+    expect(c.cuttingDepthMm).to.equal(50); // (150 − 40)/2 − 5
+    expect(c.cuttableSizeMm).to.equal(100); // doubled by the turning specimen
+    expect(c.capacityFits).to.equal(false);
+    expect(c.cutTimeS).to.be.closeTo(5 / 0.05 + 70 / 0.1, 1e-9); // to the centre of Ø150: 75 mm travel
+  });
+
+  it('every field is null while its inputs are missing, and nothing throws on half-typed content', () => {
+    const none = computeRecipe(content(), ctx({ wheel: null, machine: null, material: null }));
+    expect(none.peripheralSpeedMs).to.equal(null);
+    expect(none.rpmAtMarkedMax).to.equal(null);
+    expect(none.capacityFits).to.equal(null);
+    expect(none.profile).to.equal(null);
+    expect(none.cutTimeS).to.equal(null);
+    expect(none.hardness).to.equal(null);
+
+    const typing = computeRecipe(content({ cutting: { wheelRpm: Number.NaN, feedMmS: 0 } }), ctx());
+    expect(typing.peripheralSpeedMs).to.equal(null);
+    expect(typing.rpmAtMarkedMax).to.equal(6111);
+    expect(typing.profile).to.equal(null);
+    expect(typing.capacityFits).to.equal(true);
+
+    const rectNoWidth = computeRecipe(content({ scope: { shape: 'rectangular', widthMm: null } }), ctx());
+    expect(rectNoWidth.profile).to.equal(null);
+
+    const empty = { scope: undefined, cutting: undefined, clamping: undefined, coolant: undefined } as unknown as RecipeContent;
+    expect(() => computeRecipe(empty, ctx({ material: material({ hardness: null }) }))).to.not.throw();
+  });
+});
