@@ -1,5 +1,6 @@
 import type { Routes } from '@angular/router';
 import { type AccessData, accessGuard } from './core/session/access-guard';
+import { numericIdParam } from './recipe/numeric-id-param';
 
 /**
  * The one route table. Every route declares who may open it in `data.access` (public,
@@ -26,6 +27,28 @@ export const routes: Routes = [
         canActivate: [accessGuard],
         data: { access: 'signedIn' } satisfies AccessData,
         loadComponent: () => import('./today/today').then((m) => m.Today),
+      },
+      {
+        path: 'library',
+        title: 'Library · Kerfbook',
+        canActivate: [accessGuard],
+        data: { access: 'signedIn' } satisfies AccessData,
+        loadComponent: () => import('./library/library').then((m) => m.Library),
+      },
+      {
+        // Numeric ids only, so /recipes/new (the editor) never lands here whatever the order.
+        path: 'recipes/:id',
+        title: 'Recipe · Kerfbook',
+        canMatch: [numericIdParam],
+        canActivate: [accessGuard],
+        data: { access: 'signedIn' } satisfies AccessData,
+        loadComponent: () => import('./recipe/recipe-page').then((m) => m.RecipePage),
+      },
+      {
+        path: 'stock',
+        canActivate: [accessGuard],
+        data: { access: 'signedIn' } satisfies AccessData,
+        loadChildren: () => import('./stock/stock.routes').then((m) => m.stockRoutes),
       },
       {
         path: 'people',

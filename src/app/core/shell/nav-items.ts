@@ -14,6 +14,8 @@ export interface NavItem {
 /** Add an entry here when its screen exists, never before. */
 export const NAV_ITEMS: readonly NavItem[] = [
   { label: 'Today', icon: 'today', path: '/today', access: 'signedIn' },
+  { label: 'Library', icon: 'menu_book', path: '/library', access: 'signedIn' },
+  { label: 'Stock', icon: 'inventory_2', path: '/stock', access: 'signedIn' },
   { label: 'People', icon: 'group', path: '/people', access: ['admin'] },
   { label: 'My account', icon: 'manage_accounts', path: '/account', access: 'signedIn' },
 ];

@@ -1,0 +1,183 @@
+import { DatePipe, DecimalPipe } from '@angular/common';
+import { ChangeDetectionStrategy, Component, computed, inject, input, signal } from '@angular/core';
+import { takeUntilDestroyed, toObservable } from '@angular/core/rxjs-interop';
+import { MatButtonModule } from '@angular/material/button';
+import { MatFormFieldModule } from '@angular/material/form-field';
+import { MatIconModule } from '@angular/material/icon';
+import { MatProgressBarModule } from '@angular/material/progress-bar';
+import { MatSelectModule } from '@angular/material/select';
+import { MatTabsModule } from '@angular/material/tabs';
+import { Router, RouterLink } from '@angular/router';
+import { type Observable, catchError, distinctUntilChanged, forkJoin, map, of, switchMap } from 'rxjs';
+import { NO_SAFETY_CLAIM } from '../../../shared/cautions';
+import type { CheckResult, CheckSeverity } from '../../../shared/recipe-checks';
+import { computeRecipe } from '../../../shared/recipe-computations';
+import type { RecipeVersionDto } from '../../../shared/recipe-types';
+import { hasAccess } from '../../../shared/roles';
+import type { MachineRecord, MaterialRecord, WheelRecord } from '../../../shared/stock-types';
+import {
+  CLAMPING_METHOD_LABELS,
+  CUT_MOTION_LABELS,
+  MACHINE_CLASS_LABELS,
+  MATERIAL_GROUP_LABELS,
+  SHAPE_LABELS,
+  WHEEL_KIND_LABELS,
+} from '../../../shared/vocabulary';
+import { isApiError } from '../core/http/api-error';
+import { callerHandles } from '../core/http/caller-handles';
+import { Session } from '../core/session/session';
+import { CutProfilePlot } from '../recipe-editor/cut-profile-plot';
+import { QuantityPipe } from '../stock/quantity';
+import { StockApi } from '../stock/stock-api';
+import { MarkdownView } from '../ui/markdown-view';
+import { CheckSeverityLabel } from './check-severity-label';
+import { RecipeApi } from './recipe-api';
+import { RECIPE_STATUS_INFO, RecipeStatusChip } from './recipe-status-chip';
+import { StandardCautions } from './standard-cautions';
+
+/** The stock records a version names, fetched by id (null while loading or when missing). */
+interface StockNames {
+  material: MaterialRecord | null;
+  wheel: WheelRecord | null;
+  machine: MachineRecord | null;
+}
+
+const NO_STOCK: StockNames = { material: null, wheel: null, machine: null };
+const SEVERITY_ORDER: Record<CheckSeverity, number> = { blocker: 0, warning: 1, note: 2 };
+
+const COOLANT_LABELS = { 'water-soluble': 'Water-soluble coolant', oil: 'Cutting oil', dry: 'Dry (no coolant)' } as const;
+const ORIENTATION_LABELS = { transverse: 'Transverse', longitudinal: 'Longitudinal', other: 'Other' } as const;
+const ATTACHMENT_ROLE_LABELS = { setup: 'Setup', 'good-face': 'Good cut face', 'bad-face': 'Bad cut face', other: 'Other' } as const;
+
+/** Recipe: one version of a recipe, read-only, with its computed values, checks, instructions and photos. */
+@Component({
+  selector: 'kb-recipe-page',
+  imports: [
+    CheckSeverityLabel,
+    CutProfilePlot,
+    DatePipe,
+    DecimalPipe,
+    MarkdownView,
+    MatButtonModule,
+    MatFormFieldModule,
+    MatIconModule,
+    MatProgressBarModule,
+    MatSelectModule,
+    MatTabsModule,
+    QuantityPipe,
+    RecipeStatusChip,
+    RouterLink,
+    StandardCautions,
+  ],
+  templateUrl: './recipe-page.html',
+  styleUrl: './recipe-page.scss',
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
+export class RecipePage {
+  private readonly api = inject(RecipeApi);
+  private readonly stock = inject(StockApi);
+  private readonly session = inject(Session);
+  private readonly router = inject(Router);
+
+  /** Route parameter `:id` (numeric, see numericIdParam). */
+  readonly id = input.required<string>();
+  /** Query parameter `?v=N`: the version to show; the newest when absent. */
+  readonly v = input<string>();
+
+  protected readonly state = signal<'loading' | 'missing' | 'failed' | 'ready'>('loading');
+  /** Newest first, as the API lists them. */
+  protected readonly versions = signal<RecipeVersionDto[]>([]);
+  protected readonly stockNames = signal<StockNames>(NO_STOCK);
+
+  protected readonly units = computed(() => this.session.user()?.units ?? 'metric');
+  protected readonly version = computed<RecipeVersionDto | null>(() => {
+    const list = this.versions();
+    const wanted = Number(this.v());
+    return list.find((x) => x.version === wanted) ?? list[0] ?? null;
+  });
+  protected readonly isLatest = computed(() => this.version() !== null && this.version() === this.versions()[0]);
+  protected readonly canEditDraft = computed(() => {
+    const status = this.version()?.status;
+    return hasAccess(this.session.roles(), ['author']) && this.isLatest() && (status === 'draft' || status === 'returned');
+  });
+  protected readonly computed = computed(() => {
+    const version = this.version();
+    if (!version) return null;
+    const { material, wheel, machine } = this.stockNames();
+    // Lab limits only matter to the checks, which the server has already run on this content.
+    return computeRecipe(version.content, { material, wheel, machine, limits: { feedCeilingsMmS: {} } });
+  });
+  protected readonly checks = computed<CheckResult[]>(() =>
+    [...(this.version()?.checks ?? [])].sort((a, b) => SEVERITY_ORDER[a.severity] - SEVERITY_ORDER[b.severity]),
+  );
+  protected readonly checkCounts = computed(() => {
+    const counts = { blocker: 0, warning: 0, note: 0 };
+    for (const check of this.checks()) counts[check.severity]++;
+    return counts;
+  });
+
+  protected readonly statusLabel = (status: RecipeVersionDto['status']) => RECIPE_STATUS_INFO[status].label;
+  protected readonly groupLabel = MATERIAL_GROUP_LABELS;
+  protected readonly shapeLabel = SHAPE_LABELS;
+  protected readonly motionLabel = CUT_MOTION_LABELS;
+  protected readonly clampingLabel = CLAMPING_METHOD_LABELS;
+  protected readonly machineClassLabel = MACHINE_CLASS_LABELS;
+  protected readonly wheelKindLabel = WHEEL_KIND_LABELS;
+  protected readonly coolantLabel = COOLANT_LABELS;
+  protected readonly orientationLabel = ORIENTATION_LABELS;
+  protected readonly attachmentRoleLabel = ATTACHMENT_ROLE_LABELS;
+  protected readonly noSafetyClaim = NO_SAFETY_CLAIM;
+
+  constructor() {
+    toObservable(this.id)
+      .pipe(
+        switchMap((id) => {
+          this.state.set('loading');
+          // A recipe that does not exist gets its own message on this page, not a snack bar.
+          return this.api.versions(Number(id), callerHandles(404)).pipe(
+            map((versions) => ({ versions, state: versions.length ? ('ready' as const) : ('missing' as const) })),
+            catchError((e: unknown) => of({ versions: [], state: isApiError(e) && e.status === 404 ? ('missing' as const) : ('failed' as const) })),
+          );
+        }),
+        takeUntilDestroyed(),
+      )
+      .subscribe(({ versions, state }) => {
+        this.versions.set(versions);
+        this.state.set(state);
+      });
+
+    // Names and figures of the stock the shown version uses; fetched again only when the ids change.
+    toObservable(
+      computed(() => {
+        const content = this.version()?.content;
+        return content
+          ? { materialId: content.scope.materialId, wheelId: content.cutting.wheelId, machineId: content.cutting.machineId }
+          : null;
+      }),
+    )
+      .pipe(
+        distinctUntilChanged((a, b) => JSON.stringify(a) === JSON.stringify(b)),
+        switchMap((ids) =>
+          ids
+            ? forkJoin({
+                material: ids.materialId ? this.orNull(this.stock.materials.get(ids.materialId)) : of(null),
+                wheel: this.orNull(this.stock.wheels.get(ids.wheelId)),
+                machine: this.orNull(this.stock.machines.get(ids.machineId)),
+              })
+            : of(NO_STOCK),
+        ),
+        takeUntilDestroyed(),
+      )
+      .subscribe((names) => this.stockNames.set(names));
+  }
+
+  protected showVersion(version: number): void {
+    const newest = this.versions()[0]?.version;
+    void this.router.navigate(['/recipes', this.id()], { queryParams: version === newest ? {} : { v: version } });
+  }
+
+  private orNull<T>(request: Observable<T>): Observable<T | null> {
+    // Shown by the error interceptor; the page still shows what it has.
+    return request.pipe(catchError(() => of(null)));
+  }
+}

@@ -1,0 +1,101 @@
+import { ChangeDetectionStrategy, Component, computed, inject } from '@angular/core';
+import { ReactiveFormsModule } from '@angular/forms';
+import { MatButtonModule } from '@angular/material/button';
+import { MatDialog } from '@angular/material/dialog';
+import { MatFormFieldModule } from '@angular/material/form-field';
+import { MatIconModule } from '@angular/material/icon';
+import { MatInputModule } from '@angular/material/input';
+import { MatMenuModule } from '@angular/material/menu';
+import { MatPaginatorModule } from '@angular/material/paginator';
+import { MatProgressBarModule } from '@angular/material/progress-bar';
+import { MatSelectModule } from '@angular/material/select';
+import { MatSortModule } from '@angular/material/sort';
+import { MatTableModule } from '@angular/material/table';
+import { hasAccess } from '../../../shared/roles';
+import type { MachineRecord } from '../../../shared/stock-types';
+import {
+  CLAMPING_METHOD_LABELS,
+  CUT_MOTION_LABELS,
+  type ClampingMethod,
+  type CutMotion,
+  MACHINE_CLASS_LABELS,
+  type MachineClass,
+} from '../../../shared/vocabulary';
+import { Notifier } from '../core/notifier/notifier';
+import { Session } from '../core/session/session';
+import { MachineFormDialog, type MachineFormDialogData } from './machine-form-dialog';
+import { QuantityPipe } from './quantity';
+import { STOCK_EDITORS, StockApi } from './stock-api';
+import { StockListState } from './stock-list-state';
+import { StockRecordActions } from './stock-record-actions';
+
+/** Stock › Machines: the lab's cut-off machines with their wheel, speed and feed ranges. */
+@Component({
+  selector: 'kb-stock-machines',
+  imports: [
+    MatButtonModule,
+    MatFormFieldModule,
+    MatIconModule,
+    MatInputModule,
+    MatMenuModule,
+    MatPaginatorModule,
+    MatProgressBarModule,
+    MatSelectModule,
+    MatSortModule,
+    MatTableModule,
+    QuantityPipe,
+    ReactiveFormsModule,
+  ],
+  templateUrl: './stock-machines.html',
+  styleUrl: './stock-table.scss',
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
+export class StockMachines {
+  private readonly api = inject(StockApi);
+  private readonly dialog = inject(MatDialog);
+  private readonly notifier = inject(Notifier);
+  private readonly session = inject(Session);
+  private readonly actions = inject(StockRecordActions);
+
+  protected readonly list = new StockListState<MachineRecord>((q) => this.api.machines.list(q), ['name', 'machineClass']);
+  protected readonly canEdit = computed(() => hasAccess(this.session.roles(), STOCK_EDITORS));
+  protected readonly units = computed(() => this.session.user()?.units ?? 'metric');
+  protected readonly columns = computed(() => {
+    const base = ['name', 'machineClass', 'wheels', 'flange', 'rpm', 'feed', 'motions', 'clamping'];
+    return this.canEdit() ? [...base, 'actions'] : base;
+  });
+  protected readonly classLabel = (id: MachineClass) => MACHINE_CLASS_LABELS[id];
+  protected readonly motionLabel = (id: CutMotion) => CUT_MOTION_LABELS[id];
+  protected readonly clampingLabel = (id: ClampingMethod) => CLAMPING_METHOD_LABELS[id];
+
+  protected addMachine(): void {
+    this.openForm({});
+  }
+
+  protected editMachine(machine: MachineRecord): void {
+    this.openForm({ machine });
+  }
+
+  protected async archive(machine: MachineRecord): Promise<void> {
+    if (await this.actions.archive(this.api.machines, machine, 'machine')) this.list.reload();
+  }
+
+  protected async unarchive(machine: MachineRecord): Promise<void> {
+    if (await this.actions.unarchive(this.api.machines, machine, 'machine')) this.list.reload();
+  }
+
+  protected async remove(machine: MachineRecord): Promise<void> {
+    if (await this.actions.delete(this.api.machines, machine, 'machine')) this.list.reload();
+  }
+
+  private openForm(data: MachineFormDialogData): void {
+    this.dialog
+      .open<MachineFormDialog, MachineFormDialogData, MachineRecord>(MachineFormDialog, { data, width: '760px', maxWidth: '95vw' })
+      .afterClosed()
+      .subscribe((saved) => {
+        if (!saved) return;
+        void this.notifier.show(data.machine ? `Changes to ${saved.name} were saved.` : `${saved.name} was added.`, 'OK', 5000);
+        this.list.reload();
+      });
+  }
+}

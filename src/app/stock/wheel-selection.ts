@@ -1,0 +1,134 @@
+import { ChangeDetectionStrategy, Component, DestroyRef, computed, inject, signal } from '@angular/core';
+import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
+import { MatButtonModule } from '@angular/material/button';
+import { MatDialog } from '@angular/material/dialog';
+import { MatIconModule } from '@angular/material/icon';
+import { MatProgressBarModule } from '@angular/material/progress-bar';
+import { MatTableModule } from '@angular/material/table';
+import { catchError, firstValueFrom, forkJoin, of } from 'rxjs';
+import { hasAccess } from '../../../shared/roles';
+import type { SelectionRow, WheelRecord } from '../../../shared/stock-types';
+import { MATERIAL_GROUPS, MATERIAL_GROUP_LABELS } from '../../../shared/vocabulary';
+import { Notifier } from '../core/notifier/notifier';
+import { Session } from '../core/session/session';
+import { ConfirmDialog, type ConfirmDialogData } from '../ui/confirm-dialog';
+import { STOCK_EDITORS, StockApi } from './stock-api';
+import { SelectionRowDialog, type SelectionRowDialogData } from './selection-row-dialog';
+
+/** A row of the table as shown: the wheel looked up by id. */
+interface ShownRow {
+  row: SelectionRow;
+  groupLabel: string;
+  /** First row of its group: the group name is printed only there. */
+  firstOfGroup: boolean;
+  band: string;
+  wheel: WheelRecord | undefined;
+}
+
+/** Stock › Wheel selection: the lab's table material group × hardness band → wheel (design 5.8). */
+@Component({
+  selector: 'kb-wheel-selection',
+  imports: [MatButtonModule, MatIconModule, MatProgressBarModule, MatTableModule],
+  templateUrl: './wheel-selection.html',
+  styleUrls: ['./stock-table.scss', './wheel-selection.scss'],
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
+export class WheelSelection {
+  private readonly api = inject(StockApi);
+  private readonly dialog = inject(MatDialog);
+  private readonly notifier = inject(Notifier);
+  private readonly session = inject(Session);
+  private readonly destroyRef = inject(DestroyRef);
+
+  protected readonly canEdit = computed(() => hasAccess(this.session.roles(), STOCK_EDITORS));
+  protected readonly columns = computed(() => {
+    const base = ['group', 'band', 'wheel', 'note'];
+    return this.canEdit() ? [...base, 'actions'] : base;
+  });
+  protected readonly loading = signal(true);
+  protected readonly loadFailed = signal(false);
+  private readonly rows = signal<SelectionRow[]>([]);
+  /** Every wheel, archived ones too: an old row may still name one. */
+  private readonly wheels = signal<WheelRecord[]>([]);
+
+  protected readonly shown = computed<ShownRow[]>(() => {
+    const wheels = new Map(this.wheels().map((w) => [w.id, w]));
+    const sorted = [...this.rows()].sort(
+      (a, b) =>
+        MATERIAL_GROUPS.indexOf(a.group) - MATERIAL_GROUPS.indexOf(b.group) ||
+        (a.hardness?.min ?? -1) - (b.hardness?.min ?? -1),
+    );
+    return sorted.map((row, i) => ({
+      row,
+      groupLabel: MATERIAL_GROUP_LABELS[row.group],
+      firstOfGroup: i === 0 || sorted[i - 1].group !== row.group,
+      band: row.hardness ? `${row.hardness.min}–${row.hardness.max} ${row.hardness.scale}` : 'Any hardness',
+      wheel: wheels.get(row.wheelId),
+    }));
+  });
+
+  constructor() {
+    this.load();
+  }
+
+  protected addRow(): void {
+    this.openForm({ wheels: this.wheels() });
+  }
+
+  protected editRow(row: SelectionRow): void {
+    this.openForm({ row, wheels: this.wheels() });
+  }
+
+  protected async removeRow(shown: ShownRow): Promise<void> {
+    const ref = this.dialog.open<ConfirmDialog, ConfirmDialogData, boolean>(ConfirmDialog, {
+      data: {
+        title: 'Remove this row?',
+        message: [
+          `${shown.groupLabel}, ${shown.band} → ${shown.wheel?.name ?? 'wheel ' + shown.row.wheelId}.`,
+          'Recipes keep the wheel they name; only the suggestion for new recipes changes.',
+        ],
+        confirmLabel: 'Remove',
+      },
+      width: '480px',
+      maxWidth: '95vw',
+    });
+    if ((await firstValueFrom(ref.afterClosed())) !== true) return;
+    try {
+      await firstValueFrom(this.api.deleteSelectionRow(shown.row.id));
+      void this.notifier.show('The row was removed.', 'OK', 5000);
+      this.load();
+    } catch {
+      // Shown by the error interceptor.
+    }
+  }
+
+  private openForm(data: SelectionRowDialogData): void {
+    this.dialog
+      .open<SelectionRowDialog, SelectionRowDialogData, SelectionRow>(SelectionRowDialog, { data, width: '620px', maxWidth: '95vw' })
+      .afterClosed()
+      .subscribe((saved) => {
+        if (!saved) return;
+        void this.notifier.show(data.row ? 'The row was saved.' : 'The row was added.', 'OK', 5000);
+        this.load();
+      });
+  }
+
+  private load(): void {
+    this.loading.set(true);
+    forkJoin({
+      rows: this.api.selectionRows(),
+      wheels: this.api.wheels.list({ pageSize: 200, archived: 'all' }),
+    })
+      .pipe(
+        catchError(() => of(null)),
+        takeUntilDestroyed(this.destroyRef),
+      )
+      .subscribe((result) => {
+        this.loading.set(false);
+        this.loadFailed.set(result === null);
+        if (!result) return;
+        this.rows.set(result.rows);
+        this.wheels.set(result.wheels.items);
+      });
+  }
+}
