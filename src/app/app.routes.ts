@@ -1,5 +1,6 @@
 import type { Routes } from '@angular/router';
 import { type AccessData, accessGuard } from './core/session/access-guard';
+import { unsavedChangesGuard } from './recipe-editor/unsaved-changes-guard';
 import { numericIdParam } from './recipe/numeric-id-param';
 
 /**
@@ -27,6 +28,22 @@ export const routes: Routes = [
         canActivate: [accessGuard],
         data: { access: 'signedIn' } satisfies AccessData,
         loadComponent: () => import('./today/today').then((m) => m.Today),
+      },
+      {
+        path: 'recipes/new',
+        title: 'New recipe · Kerfbook',
+        canActivate: [accessGuard],
+        canDeactivate: [unsavedChangesGuard],
+        data: { access: ['author'] } satisfies AccessData,
+        loadComponent: () => import('./recipe-editor/recipe-editor').then((m) => m.RecipeEditor),
+      },
+      {
+        path: 'recipes/:id/edit',
+        title: 'Edit recipe · Kerfbook',
+        canActivate: [accessGuard],
+        canDeactivate: [unsavedChangesGuard],
+        data: { access: ['author'] } satisfies AccessData,
+        loadComponent: () => import('./recipe-editor/recipe-editor').then((m) => m.RecipeEditor),
       },
       {
         path: 'library',
