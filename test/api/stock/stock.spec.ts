@@ -1,0 +1,284 @@
+import { expect } from 'chai';
+import { CSRF_HEADER } from '../../../shared/api-types';
+import { apiTestContext } from '../support/hooks';
+import { createPerson } from '../support/people';
+import { createStockSet, machineInput, materialInput, recipeInput, wheelInput } from '../support/stock';
+import { signedInAgent, type Agent } from '../support/test-app';
+import { asJson, countRows } from '../support/test-database';
+import { createRecipe } from '../../../server/services/recipes';
+
+describe('Stock: materials, wheels, machines', () => {
+  const ctx = apiTestContext();
+  let author: { agent: Agent; csrf: string };
+  let operator: { agent: Agent; csrf: string };
+  let authorId: number;
+
+  before(async () => {
+    const a = await createPerson(ctx.db, { roles: ['author'], displayName: 'Ines Author' });
+    authorId = a.id;
+    author = await signedInAgent(ctx.app, a);
+    operator = await signedInAgent(ctx.app, await createPerson(ctx.db, { roles: ['operator'] }));
+  });
+
+  const post = (url: string, body: unknown) => author.agent.post(url).set(CSRF_HEADER, author.csrf).send(body as object);
+  const put = (url: string, body: unknown) => author.agent.put(url).set(CSRF_HEADER, author.csrf).send(body as object);
+
+  describe('create, read, update', () => {
+    it('creates a material with one audit row and reads it back', async () => {
+      const before = await countRows(ctx.db, 'audit_events');
+      const res = await post('/api/materials', materialInput({ name: 'Ti-6Al-4V', designation: 'UNS R56400', group: 'titanium', hardness: { value: 340, scale: 'HV' } }));
+      expect(res.status, JSON.stringify(res.body)).to.equal(201);
+      expect(res.body).to.include({ name: 'Ti-6Al-4V', designation: 'UNS R56400', group: 'titanium', archived: false });
+      expect(res.body.hardness).to.deep.equal({ value: 340, scale: 'HV' });
+      expect(res.body.updatedAt).to.match(/Z$/);
+      const got = await operator.agent.get(`/api/materials/${res.body.id}`).expect(200);
+      expect(got.body).to.deep.equal(res.body);
+      expect(await countRows(ctx.db, 'audit_events')).to.equal(before + 1);
+      const event = await ctx.db('audit_events').orderBy('id', 'desc').first();
+      expect(event).to.include({ event_type: 'material.created', entity_type: 'material', entity_id: String(res.body.id), actor_user_id: authorId });
+      expect(asJson(event.after_json)).to.include({ name: 'Ti-6Al-4V', group: 'titanium' });
+    });
+
+    it('creates a wheel and a machine (lists of motions and clamping round-trip)', async () => {
+      const wheel = await post('/api/wheels', wheelInput({ name: 'Diamond rim 150', kind: 'rim', specification: 'D126N100M', diameterMm: 150, thicknessMm: 0.5, boreMm: 12.7, maxSpeedMs: 50 }));
+      expect(wheel.status, JSON.stringify(wheel.body)).to.equal(201);
+      expect(wheel.body).to.include({ kind: 'rim', specification: 'D126N100M', diameterMm: 150, thicknessMm: 0.5, boreMm: 12.7, maxSpeedMs: 50, dryAllowed: false });
+      const machine = await post('/api/machines', machineInput({ cutMotions: ['rocking', 'straight-plunge'], clampingMethods: ['v-block'] }));
+      expect(machine.status, JSON.stringify(machine.body)).to.equal(201);
+      expect(machine.body.cutMotions).to.deep.equal(['rocking', 'straight-plunge']);
+      expect(machine.body.clampingMethods).to.deep.equal(['v-block']);
+      expect(machine.body.feedMinMmS).to.equal(0.02);
+    });
+
+    it('updates with PUT and records only what changed', async () => {
+      const created = await post('/api/wheels', wheelInput({ name: 'Wheel to edit' })).expect(201);
+      const res = await put(`/api/wheels/${created.body.id}`, wheelInput({ name: 'Wheel to edit', maxSpeedMs: 80, notes: 'Re-marked' }));
+      expect(res.status, JSON.stringify(res.body)).to.equal(200);
+      expect(res.body).to.include({ maxSpeedMs: 80, notes: 'Re-marked' });
+      const event = await ctx.db('audit_events').where({ event_type: 'wheel.updated', entity_id: String(created.body.id) }).first();
+      expect(asJson(event.before_json)).to.deep.equal({ maxSpeedMs: 63, notes: '' });
+      expect(asJson(event.after_json)).to.deep.equal({ maxSpeedMs: 80, notes: 'Re-marked' });
+    });
+
+    it('answers 404 for an unknown id and 400 for a non-number id', async () => {
+      expect((await operator.agent.get('/api/machines/999999')).status).to.equal(404);
+      const bad = await operator.agent.get('/api/machines/abc');
+      expect(bad.status).to.equal(400);
+      expect(bad.body.errors[0].path).to.equal('id');
+    });
+
+    it('lets only authors and admins edit', async () => {
+      const res = await operator.agent.post('/api/materials').set(CSRF_HEADER, operator.csrf).send(materialInput());
+      expect(res.status).to.equal(403);
+    });
+  });
+
+  describe('bad input', () => {
+    const cases: [string, string, Record<string, unknown>, string][] = [
+      ['zero diameter', '/api/wheels', { diameterMm: 0 }, 'diameterMm'],
+      ['negative thickness', '/api/wheels', { thicknessMm: -1 }, 'thicknessMm'],
+      ['NaN sent as text', '/api/wheels', { maxSpeedMs: 'NaN' }, 'maxSpeedMs'],
+      ['a huge number', '/api/wheels', { boreMm: 1e308 }, 'boreMm'],
+      ['a non-numeric string', '/api/wheels', { diameterMm: 'two hundred' }, 'diameterMm'],
+      ['an unknown kind', '/api/wheels', { kind: 'magic' }, 'kind'],
+      ['an unknown field', '/api/wheels', { colour: 'red' }, ''],
+      ['an unknown group', '/api/materials', { group: 'unobtainium' }, 'group'],
+      ['case-hardened without depth', '/api/materials', { caseHardened: true, caseDepthMm: null }, 'caseDepthMm'],
+      ['empty name', '/api/materials', { name: '   ' }, 'name'],
+      ['rpm range upside down', '/api/machines', { rpmMin: 3000, rpmMax: 1000 }, 'rpmMax'],
+      ['no cut motion', '/api/machines', { cutMotions: [] }, 'cutMotions'],
+      ['an unknown clamping method', '/api/machines', { clampingMethods: ['glue-gun'] }, 'clampingMethods.0'],
+      ['flange as large as the wheel', '/api/machines', { flangeDiameterMm: 250 }, 'flangeDiameterMm'],
+    ];
+    for (const [what, url, change, path] of cases) {
+      it(`refuses ${what} with 400 naming the field, writing nothing`, async () => {
+        const table = url.split('/').pop()!;
+        const base = table === 'wheels' ? wheelInput() : table === 'materials' ? materialInput() : machineInput();
+        const rows = await countRows(ctx.db, table);
+        const events = await countRows(ctx.db, 'audit_events');
+        const res = await post(url, { ...base, ...change });
+        expect(res.status, JSON.stringify(res.body)).to.equal(400);
+        expect(res.body.code).to.equal('VALIDATION_FAILED');
+        const paths = (res.body.errors as { path: string; message: string }[]).map((e) => e.path);
+        expect(paths, JSON.stringify(res.body)).to.include(path);
+        for (const e of res.body.errors) expect(e.message).to.be.a('string').and.not.equal('');
+        expect(await countRows(ctx.db, table)).to.equal(rows);
+        expect(await countRows(ctx.db, 'audit_events')).to.equal(events);
+      });
+    }
+
+    it('refuses a bad PUT without changing the record', async () => {
+      const created = await post('/api/wheels', wheelInput({ name: 'Unchanged wheel' })).expect(201);
+      const res = await put(`/api/wheels/${created.body.id}`, { ...wheelInput(), maxSpeedMs: -5 });
+      expect(res.status).to.equal(400);
+      const now = await operator.agent.get(`/api/wheels/${created.body.id}`).expect(200);
+      expect(now.body).to.deep.equal(created.body);
+    });
+  });
+
+  describe('list', () => {
+    before(async () => {
+      for (const [name, designation, group] of [
+        ['Alpha 100% steel_1', 'EN 1.0001', 'plain-low-alloy-steel'],
+        ['Bravo cast', 'EN-GJL-250', 'cast-iron'],
+        ['Charlie brass', 'CW614N', 'copper'],
+        ['Delta alu', 'EN AW-6082', 'aluminium-magnesium'],
+        ['Echo stainless', 'EN 1.4301', 'stainless-steel'],
+      ] as const) {
+        await post('/api/materials', materialInput({ name, designation, group })).expect(201);
+      }
+    });
+
+    it('pages and counts', async () => {
+      const first = await operator.agent.get('/api/materials').query({ pageSize: 2, page: 0, sort: 'name' }).expect(200);
+      const all = await operator.agent.get('/api/materials').query({ pageSize: 200 }).expect(200);
+      expect(first.body.items).to.have.length(2);
+      expect(first.body.total).to.equal(all.body.total);
+      expect(first.body).to.include({ page: 0, pageSize: 2 });
+      const second = await operator.agent.get('/api/materials').query({ pageSize: 2, page: 1, sort: 'name' }).expect(200);
+      expect(second.body.items[0].name).to.equal(all.body.items[2].name);
+    });
+
+    it('sorts by whitelisted columns only', async () => {
+      const desc = await operator.agent.get('/api/materials').query({ sort: 'name', dir: 'desc', pageSize: 200 }).expect(200);
+      const names = desc.body.items.map((m: { name: string }) => m.name);
+      expect(names).to.deep.equal([...names].sort((a: string, b: string) => b.localeCompare(a)));
+      const byGroup = await operator.agent.get('/api/materials').query({ sort: 'group', pageSize: 200 }).expect(200);
+      const groups = byGroup.body.items.map((m: { group: string }) => m.group);
+      expect(groups).to.deep.equal([...groups].sort());
+      const bad = await operator.agent.get('/api/materials').query({ sort: 'password_hash' });
+      expect(bad.status).to.equal(400);
+      expect(bad.body.errors[0].path).to.equal('sort');
+    });
+
+    it('searches name and designation, taking % and _ literally', async () => {
+      const byDesignation = await operator.agent.get('/api/materials').query({ q: 'cw614' }).expect(200);
+      expect(byDesignation.body.items.map((m: { name: string }) => m.name)).to.deep.equal(['Charlie brass']);
+      const percent = await operator.agent.get('/api/materials').query({ q: '100%' }).expect(200);
+      expect(percent.body.items.map((m: { name: string }) => m.name)).to.deep.equal(['Alpha 100% steel_1']);
+      const underscore = await operator.agent.get('/api/materials').query({ q: 'l_1' }).expect(200);
+      expect(underscore.body.total).to.equal(1);
+    });
+
+    it('filters by group and by archived', async () => {
+      const cast = await operator.agent.get('/api/materials').query({ group: 'cast-iron' }).expect(200);
+      expect(cast.body.items.every((m: { group: string }) => m.group === 'cast-iron')).to.equal(true);
+      expect(cast.body.total).to.be.greaterThan(0);
+      const echo = (await operator.agent.get('/api/materials').query({ q: 'Echo' }).expect(200)).body.items[0];
+      await author.agent.post(`/api/materials/${echo.id}/archive`).set(CSRF_HEADER, author.csrf).expect(200);
+      const active = await operator.agent.get('/api/materials').query({ q: 'Echo' }).expect(200);
+      expect(active.body.total).to.equal(0);
+      const archived = await operator.agent.get('/api/materials').query({ q: 'Echo', archived: 'yes' }).expect(200);
+      expect(archived.body.items[0]).to.include({ id: echo.id, archived: true });
+      const all = await operator.agent.get('/api/materials').query({ q: 'Echo', archived: 'all' }).expect(200);
+      expect(all.body.total).to.equal(1);
+    });
+
+    it('answers 400 to a bad query', async () => {
+      for (const query of [{ pageSize: 0 }, { pageSize: 'x' }, { page: -1 }, { group: 'nope' }, { archived: 'maybe' }, { dir: 'up' }]) {
+        const res = await operator.agent.get('/api/wheels').query(query);
+        expect(res.status, JSON.stringify(query)).to.equal(400);
+        expect(res.body.code).to.equal('VALIDATION_FAILED');
+      }
+    });
+  });
+
+  describe('archive and delete', () => {
+    it('archives and unarchives, each with an audit row; archiving twice is a 409', async () => {
+      const m = await post('/api/machines', machineInput({ name: 'Old saw' })).expect(201);
+      const archived = await author.agent.post(`/api/machines/${m.body.id}/archive`).set(CSRF_HEADER, author.csrf).expect(200);
+      expect(archived.body.archived).to.equal(true);
+      const again = await author.agent.post(`/api/machines/${m.body.id}/archive`).set(CSRF_HEADER, author.csrf);
+      expect(again.status).to.equal(409);
+      const back = await author.agent.post(`/api/machines/${m.body.id}/unarchive`).set(CSRF_HEADER, author.csrf).expect(200);
+      expect(back.body.archived).to.equal(false);
+      const events = await ctx.db('audit_events').where({ entity_type: 'machine', entity_id: String(m.body.id) }).orderBy('id').pluck('event_type');
+      expect(events).to.deep.equal(['machine.created', 'machine.archived', 'machine.unarchived']);
+    });
+
+    it('deletes an unreferenced record', async () => {
+      const w = await post('/api/wheels', wheelInput({ name: 'Unused wheel' })).expect(201);
+      const res = await author.agent.delete(`/api/wheels/${w.body.id}`).set(CSRF_HEADER, author.csrf);
+      expect(res.status).to.equal(200);
+      expect(res.body).to.deep.equal({ archived: false });
+      expect(await ctx.db('wheels').where({ id: w.body.id }).first()).to.equal(undefined);
+      const event = await ctx.db('audit_events').where({ event_type: 'wheel.deleted', entity_id: String(w.body.id) }).first();
+      expect(asJson(event.before_json)).to.include({ name: 'Unused wheel' });
+    });
+
+    it('archives instead of deleting a record a recipe version references, and the recipe keeps it', async () => {
+      const stock = await createStockSet(ctx.db);
+      const recipe = await createRecipe(ctx.db, { userId: authorId, name: 'Ines Author', clientAddress: '' }, recipeInput(stock));
+      for (const [kind, id] of [
+        ['materials', stock.material.id],
+        ['wheels', stock.wheel.id],
+        ['machines', stock.machine.id],
+      ] as const) {
+        const res = await author.agent.delete(`/api/${kind}/${id}`).set(CSRF_HEADER, author.csrf);
+        expect(res.status, kind).to.equal(200);
+        expect(res.body, kind).to.deep.equal({ archived: true });
+        const row = await ctx.db(kind).where({ id }).first();
+        expect(row, kind).to.not.equal(undefined);
+        expect(Boolean(row.archived), kind).to.equal(true);
+        expect(row.archived_at, kind).to.be.instanceOf(Date);
+      }
+      const version = await operator.agent.get(`/api/recipes/${recipe.recipeId}/versions/1`).expect(200);
+      expect(version.body.content.cutting.wheelId).to.equal(stock.wheel.id);
+    });
+
+    it('archives a wheel the selection table points at instead of deleting it', async () => {
+      const w = await post('/api/wheels', wheelInput({ name: 'Selected wheel' })).expect(201);
+      await post('/api/selection-rows', { group: 'copper', hardness: null, wheelId: w.body.id }).expect(201);
+      const res = await author.agent.delete(`/api/wheels/${w.body.id}`).set(CSRF_HEADER, author.csrf).expect(200);
+      expect(res.body).to.deep.equal({ archived: true });
+    });
+
+    it('answers 404 when deleting what is not there', async () => {
+      const res = await author.agent.delete('/api/materials/999999').set(CSRF_HEADER, author.csrf);
+      expect(res.status).to.equal(404);
+    });
+  });
+
+  describe('selection table', () => {
+    it('creates, lists, updates and deletes rows, with audit rows', async () => {
+      const w = await post('/api/wheels', wheelInput({ name: 'Soft alumina', specification: 'A60J5B' })).expect(201);
+      const created = await post('/api/selection-rows', { group: 'hardened-tool-steel', hardness: { min: 45, max: 65, scale: 'HRC' }, wheelId: w.body.id, note: 'Harder → softer bond.' });
+      expect(created.status, JSON.stringify(created.body)).to.equal(201);
+      expect(created.body).to.deep.include({ group: 'hardened-tool-steel', hardness: { min: 45, max: 65, scale: 'HRC' }, wheelId: w.body.id });
+      const list = await operator.agent.get('/api/selection-rows').expect(200);
+      expect(list.body.map((r: { id: number }) => r.id)).to.include(created.body.id);
+      const updated = await put(`/api/selection-rows/${created.body.id}`, { group: 'hardened-tool-steel', hardness: null, wheelId: w.body.id, note: '' }).expect(200);
+      expect(updated.body.hardness).to.equal(null);
+      await author.agent.delete(`/api/selection-rows/${created.body.id}`).set(CSRF_HEADER, author.csrf).expect(204);
+      expect(await ctx.db('selection_rows').where({ id: created.body.id }).first()).to.equal(undefined);
+      const events = await ctx.db('audit_events').where({ entity_type: 'selection_row', entity_id: String(created.body.id) }).orderBy('id').pluck('event_type');
+      expect(events).to.deep.equal(['selection_row.created', 'selection_row.updated', 'selection_row.deleted']);
+    });
+
+    it('refuses an unknown or archived wheel and a bad band, writing nothing', async () => {
+      const rows = await countRows(ctx.db, 'selection_rows');
+      const unknown = await post('/api/selection-rows', { group: 'copper', hardness: null, wheelId: 999999 });
+      expect(unknown.status).to.equal(400);
+      expect(unknown.body.errors[0].path).to.equal('wheelId');
+      const w = await post('/api/wheels', wheelInput({ name: 'Archived for selection' })).expect(201);
+      await author.agent.post(`/api/wheels/${w.body.id}/archive`).set(CSRF_HEADER, author.csrf).expect(200);
+      const archived = await post('/api/selection-rows', { group: 'copper', hardness: null, wheelId: w.body.id });
+      expect(archived.status).to.equal(400);
+      expect(archived.body.errors[0].message).to.match(/archived/);
+      const band = await post('/api/selection-rows', { group: 'copper', hardness: { min: 50, max: 20, scale: 'HRB' }, wheelId: w.body.id });
+      expect(band.status).to.equal(400);
+      expect(band.body.errors.map((e: { path: string }) => e.path)).to.include('hardness.max');
+      expect(await countRows(ctx.db, 'selection_rows')).to.equal(rows);
+    });
+  });
+
+  describe('lab limits', () => {
+    it('gives the feed ceilings per material group from the settings', async () => {
+      const res = await operator.agent.get('/api/settings/limits').expect(200);
+      expect(res.body.feedCeilingsMmS['plain-low-alloy-steel']).to.equal(0.6);
+      expect(res.body.feedCeilingsMmS['hardened-tool-steel']).to.equal(0.3);
+      expect(res.body.feedCeilingsMmS['cemented-carbide']).to.equal(0.15);
+      expect(Object.keys(res.body.feedCeilingsMmS)).to.have.length(12);
+    });
+  });
+});
