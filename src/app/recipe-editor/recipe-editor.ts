@@ -357,7 +357,7 @@ export class RecipeEditor implements OnInit, LeavesSafely {
 
   protected goToSection(id: string): void {
     const section = this.host.nativeElement.querySelector<HTMLElement>(`#sec-${id}`);
-    section?.scrollIntoView({ behavior: 'smooth', block: 'start' });
+    section?.scrollIntoView?.({ behavior: 'smooth', block: 'start' });
     section?.querySelector<HTMLElement>('h2')?.focus({ preventScroll: true });
   }
 
@@ -371,7 +371,7 @@ export class RecipeEditor implements OnInit, LeavesSafely {
     if (!target) return;
     const control = this.controls.scope.root.get(['content', ...parts]);
     control?.markAsTouched();
-    target.scrollIntoView({ behavior: 'smooth', block: 'center' });
+    target.scrollIntoView?.({ behavior: 'smooth', block: 'center' });
     const focusable = target.matches('input, textarea, mat-select, [tabindex]')
       ? target
       : target.querySelector<HTMLElement>('input, textarea, mat-select, [tabindex]:not([tabindex="-1"])');
