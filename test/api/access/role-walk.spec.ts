@@ -13,10 +13,47 @@ import type { RouteContext, RouteDefinition } from '../../../server/web/route-de
 import { apiTestContext } from '../support/hooks';
 import { createPerson, type TestPerson } from '../support/people';
 import { anonymousAgent, signedInAgent, type Agent } from '../support/test-app';
+import { createStockSet, recipeInput } from '../support/stock';
+import { createRecipe } from '../../../server/services/recipes';
+import { createSelectionRow } from '../../../server/services/selection-rows';
+import { addAttachment } from '../../../server/services/attachments';
+import sharp from 'sharp';
 
-function call(agent: Agent, route: RouteDefinition, id: number, csrf: string) {
-  const path = route.path.replace(/:id\b/g, String(id));
-  return agent[route.method](path).set(CSRF_HEADER, csrf);
+/** Existing records the walk's paths point at, so handlers really run (not only 404). */
+interface Targets {
+  user: number;
+  material: number;
+  wheel: number;
+  machine: number;
+  selectionRow: number;
+  recipe: number;
+  attachment: number;
+}
+
+/** Fills :id by the resource the path names, :n with version 1 and :attachmentId. */
+function pathFor(route: RouteDefinition, t: Targets): string {
+  const resource = route.path.split('/')[2];
+  const ids: Record<string, number> = {
+    users: t.user,
+    materials: t.material,
+    wheels: t.wheel,
+    machines: t.machine,
+    'selection-rows': t.selectionRow,
+    recipes: t.recipe,
+    attachments: t.attachment,
+  };
+  const id = ids[resource ?? ''];
+  if (route.path.includes(':id') && id === undefined) throw new Error(`The role walk has no target for ${route.path}: add one.`);
+  return route.path
+    .replace(/:id\b/g, String(id))
+    .replace(/:n\b/g, '1')
+    .replace(/:attachmentId\b/g, String(t.attachment));
+}
+
+function call(agent: Agent, route: RouteDefinition, t: Targets, csrf: string) {
+  const left = route.path.replace(/\/:(id|n|attachmentId)\b/g, '');
+  if (left.includes(':')) throw new Error(`The role walk cannot fill the parameters of ${route.path}.`);
+  return agent[route.method](pathFor(route, t)).set(CSRF_HEADER, csrf);
 }
 
 function label(route: RouteDefinition): string {
@@ -26,10 +63,27 @@ function label(route: RouteDefinition): string {
 describe('Route table access', () => {
   const ctx = apiTestContext();
   let target: TestPerson;
+  let targets: Targets;
 
   before(async () => {
-    // The throw-away person every :id points at.
+    // The throw-away records the paths point at.
     target = await createPerson(ctx.db, { roles: ['operator'] });
+    const writer = await createPerson(ctx.db, { roles: ['author'] });
+    const actor = { userId: writer.id, name: writer.displayName, clientAddress: '' };
+    const stock = await createStockSet(ctx.db);
+    const row = await createSelectionRow(ctx.db, actor, { group: 'copper', hardness: null, wheelId: stock.wheel.id, note: '' });
+    const recipe = await createRecipe(ctx.db, actor, recipeInput(stock));
+    const png = await sharp({ create: { width: 8, height: 8, channels: 3, background: '#808080' } }).png().toBuffer();
+    const attachment = await addAttachment(ctx.db, actor, recipe.recipeId, 1, { role: 'setup', caption: '' }, { bytes: png, fileName: 'walk.png', declaredType: 'image/png' });
+    targets = {
+      user: target.id,
+      material: stock.material.id,
+      wheel: stock.wheel.id,
+      machine: stock.machine.id,
+      selectionRow: row.id,
+      recipe: recipe.recipeId,
+      attachment: attachment.id,
+    };
   });
 
   it('declares a valid access on every route', () => {
@@ -50,7 +104,7 @@ describe('Route table access', () => {
   it('answers 401 NOT_SIGNED_IN to anonymous callers (with a valid token) on every non-public route', async () => {
     const { agent, csrf } = await anonymousAgent(ctx.app);
     for (const route of routes) {
-      const res = await call(agent, route, target.id, csrf);
+      const res = await call(agent, route, targets, csrf);
       if (route.access === 'public') {
         expect(res.status, label(route)).to.not.be.oneOf([401, 403]);
       } else {
@@ -65,7 +119,7 @@ describe('Route table access', () => {
       const person = await createPerson(ctx.db, { roles: [role] });
       let session = await signedInAgent(ctx.app, person);
       for (const route of routes) {
-        const res = await call(session.agent, route, target.id, session.csrf);
+        const res = await call(session.agent, route, targets, session.csrf);
         if (hasAccess([role], route.access)) {
           expect(res.status, `${label(route)} as ${role}: ${JSON.stringify(res.body)}`).to.not.be.oneOf([401, 403]);
         } else {
@@ -84,7 +138,7 @@ describe('Route table access', () => {
     const person = await createPerson(ctx.db, { roles: [...ROLES], mustChangePassword: true });
     let session = await signedInAgent(ctx.app, person);
     for (const route of routes) {
-      const res = await call(session.agent, route, target.id, session.csrf);
+      const res = await call(session.agent, route, targets, session.csrf);
       if (route.access === 'public' || route.whilePasswordChangeRequired) {
         expect(res.status, `${label(route)}: ${JSON.stringify(res.body)}`).to.not.be.oneOf([401, 403]);
       } else {
@@ -123,6 +177,43 @@ describe('Route table access', () => {
       'POST /api/users/:id/temporary-password',
     ]) {
       expect(lines).to.include(expected);
+    }
+  });
+
+  it('has a route for every line of the authoring table, with its access', () => {
+    const byLine = new Map(routes.map((r) => [label(r), r.access]));
+    const stock = ['author', 'admin'];
+    const expected: [string, unknown][] = [];
+    for (const kind of ['materials', 'wheels', 'machines']) {
+      expected.push(
+        [`GET /api/${kind}`, 'signedIn'],
+        [`GET /api/${kind}/:id`, 'signedIn'],
+        [`POST /api/${kind}`, stock],
+        [`PUT /api/${kind}/:id`, stock],
+        [`POST /api/${kind}/:id/archive`, stock],
+        [`POST /api/${kind}/:id/unarchive`, stock],
+        [`DELETE /api/${kind}/:id`, stock],
+      );
+    }
+    expected.push(
+      ['GET /api/selection-rows', 'signedIn'],
+      ['POST /api/selection-rows', stock],
+      ['PUT /api/selection-rows/:id', stock],
+      ['DELETE /api/selection-rows/:id', stock],
+      ['GET /api/settings/limits', 'signedIn'],
+      ['GET /api/recipes', 'signedIn'],
+      ['POST /api/recipes', ['author']],
+      ['GET /api/recipes/:id/versions', 'signedIn'],
+      ['GET /api/recipes/:id/versions/:n', 'signedIn'],
+      ['PUT /api/recipes/:id/versions/:n', ['author']],
+      ['POST /api/recipes/:id/versions/:n/attachments', ['author']],
+      ['DELETE /api/recipes/:id/versions/:n/attachments/:attachmentId', ['author']],
+      ['GET /api/attachments/:id', 'signedIn'],
+      ['GET /api/attachments/:id/thumbnail', 'signedIn'],
+    );
+    for (const [line, access] of expected) {
+      expect(byLine.has(line), line).to.equal(true);
+      expect(byLine.get(line), line).to.deep.equal(access);
     }
   });
 });

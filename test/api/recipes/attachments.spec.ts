@@ -25,10 +25,11 @@ async function makeImage(format: 'png' | 'jpeg' | 'webp', width = 640, height = 
 }
 
 /** Binary supertest responses: collect the bytes. */
-function binary(res: NodeJS.ReadableStream & { setEncoding(e: string): void }, cb: (err: Error | null, body: Buffer) => void): void {
+function binary(res: unknown, cb: (err: Error | null, body: Buffer) => void): void {
+  const stream = res as NodeJS.ReadableStream;
   const chunks: Buffer[] = [];
-  res.on('data', (c: Buffer) => chunks.push(Buffer.from(c)));
-  res.on('end', () => cb(null, Buffer.concat(chunks)));
+  stream.on('data', (c: Buffer) => chunks.push(Buffer.from(c)));
+  stream.on('end', () => cb(null, Buffer.concat(chunks)));
 }
 
 describe('Attachments (photos of a version)', () => {
