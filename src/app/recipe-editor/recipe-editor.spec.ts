@@ -288,13 +288,14 @@ describe('RecipeEditor', () => {
     const rows = [...dialog.querySelectorAll<HTMLElement>('tbody tr')];
     expect(rows.map((r) => r.dataset['path'])).toEqual(['content.cutting.wheelRpm', 'content.cutting.feedMmS']);
     const cells = (row: HTMLElement) => [...row.querySelectorAll('th, td.kb-value')].map((c) => c.textContent!.trim());
-    expect(cells(rows[0])).toEqual(['Wheel speed', '3000 rpm', '2800 rpm']);
-    expect(cells(rows[1])).toEqual(['Feed', '0.30 mm/s', '0.50 mm/s']);
+    // Field, when opened, theirs, mine.
+    expect(cells(rows[0])).toEqual(['Wheel speed', '3000 rpm', '3000 rpm', '2800 rpm']);
+    expect(cells(rows[1])).toEqual(['Feed', '0.50 mm/s', '0.30 mm/s', '0.50 mm/s']);
 
-    // Keep my wheel speed, take their feed.
-    const feedTheirs = [...rows[1].querySelectorAll('mat-radio-button')].find((r) => r.textContent?.includes('Take theirs'))!;
-    feedTheirs.querySelector('input')!.click();
-    await fixture.whenStable();
+    // Each field starts on the side that changed it: my wheel speed, their feed.
+    const checked = (row: HTMLElement) => row.querySelector('mat-radio-button.mat-mdc-radio-checked')?.textContent?.trim();
+    expect(checked(rows[0])).toBe('Keep mine');
+    expect(checked(rows[1])).toBe('Take theirs');
     [...dialog.querySelectorAll('button')].find((b) => b.textContent?.includes('Save with these choices'))!.click();
 
     const resave: TestRequest = await vi.waitFor(() => backend.expectOne({ method: 'PUT', url: '/api/recipes/3/versions/1' }));
@@ -315,7 +316,13 @@ describe('RecipeEditor', () => {
   });
 
   it('asks before leaving with unsaved changes, not when everything is saved', async () => {
-    await open('3', [aDraft()]);
+    // The server's canonical JSON may order keys differently from the form: still not a change.
+    const sortKeys = (v: unknown): unknown =>
+      v && typeof v === 'object' && !Array.isArray(v)
+        ? Object.fromEntries(Object.keys(v).sort().reverse().map((k) => [k, sortKeys((v as Record<string, unknown>)[k])]))
+        : v;
+    await open('3', [sortKeys(aDraft()) as RecipeVersionDto]);
+    expect(text('[data-testid="save-status"]')).toMatch(/^Saved/);
     expect(await fixture.componentInstance.canLeave()).toBe(true);
     type('f-cutting-feedMmS', '0.4');
     await fixture.whenStable();

@@ -121,6 +121,18 @@ function bodyOf(value: RecipeFormValue): DraftBody {
 }
 
 /**
+ * A draft as comparable text: keys sorted (the server's JSON may order them differently) and
+ * the content passed through the form's own mapping, so loading a draft never looks like a change.
+ */
+function snapshotOf(body: DraftBody): string {
+  const sorted = (v: unknown): unknown =>
+    v && typeof v === 'object' && !Array.isArray(v)
+      ? Object.fromEntries(Object.keys(v).sort().map((k) => [k, sorted((v as Record<string, unknown>)[k])]))
+      : v;
+  return JSON.stringify(sorted({ title: body.title, content: toContent(fromContent(body.content)) }));
+}
+
+/**
  * The recipe editor (`/recipes/new` and `/recipes/:id/edit`): a grouped form with the
  * computed values and checks beside it, updated live as the author types (design 5, 7).
  * Drafts save themselves a few seconds after the last change; every save carries the
@@ -277,8 +289,8 @@ export class RecipeEditor implements OnInit, LeavesSafely {
   /** The revision the form's content is based on; every save carries it. */
   private readonly baseRevision = signal(0);
   /** Title and content as last saved (or loaded), to tell whether there is anything to save. */
-  private readonly savedSnapshot = signal(JSON.stringify(bodyOf(this.form.getRawValue())));
-  private readonly snapshot = computed(() => JSON.stringify(bodyOf(this.value())));
+  private readonly savedSnapshot = signal(snapshotOf(bodyOf(this.form.getRawValue())));
+  private readonly snapshot = computed(() => snapshotOf(bodyOf(this.value())));
   protected readonly dirty = computed(() => this.snapshot() !== this.savedSnapshot());
   protected readonly saveState = signal<SaveState>('idle');
   protected readonly savedAt = signal<Date | null>(null);
@@ -465,7 +477,7 @@ export class RecipeEditor implements OnInit, LeavesSafely {
       this.form.setValue({ title: version.title, content: fromContent(version.content) });
       this.savedAt.set(new Date(version.updatedAt));
     }
-    this.savedSnapshot.set(JSON.stringify({ title: version.title, content: version.content }));
+    this.savedSnapshot.set(snapshotOf(version));
     if (this.lockedReason()) this.form.disable({ emitEvent: false });
     this.revalidateNow();
   }
@@ -480,7 +492,7 @@ export class RecipeEditor implements OnInit, LeavesSafely {
     if (kind === 'auto' && !this.canAutosave()) return;
     if (!this.form.valid) return;
     const body = bodyOf(this.form.getRawValue());
-    const sent = JSON.stringify(body);
+    const sent = snapshotOf(body);
     this.saveState.set('saving');
     this.formError.set('');
     try {
@@ -533,10 +545,11 @@ export class RecipeEditor implements OnInit, LeavesSafely {
       return;
     }
     const mine = bodyOf(this.form.getRawValue());
+    const base = JSON.parse(this.savedSnapshot()) as DraftBody;
     const merged = await firstValueFrom(
       this.dialog
         .open<SaveConflictDialog, SaveConflictDialogData, DraftBody>(SaveConflictDialog, {
-          data: { mine, theirs: current, describe: (path, value) => this.describe(path, value) },
+          data: { base, mine, theirs: current, describe: (path, value) => this.describe(path, value) },
           disableClose: true,
           width: '880px',
           maxWidth: '96vw',
@@ -546,7 +559,7 @@ export class RecipeEditor implements OnInit, LeavesSafely {
     );
     this.version.set(current);
     this.baseRevision.set(current.revision);
-    this.savedSnapshot.set(JSON.stringify({ title: current.title, content: current.content }));
+    this.savedSnapshot.set(snapshotOf(current));
     if (merged) this.form.setValue({ title: merged.title, content: fromContent(merged.content) });
     this.saveState.set('idle');
     this.revalidateNow();

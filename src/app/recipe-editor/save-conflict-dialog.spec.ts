@@ -51,7 +51,10 @@ describe('save conflict', () => {
         imports: [SaveConflictDialog],
         providers: [
           { provide: MatDialogRef, useValue: { close } },
-          { provide: MAT_DIALOG_DATA, useValue: { mine: { title: 'A', content: content({ rpm: 2800 }) }, theirs, describe: (_p: string, v: unknown) => String(v) } },
+          {
+            provide: MAT_DIALOG_DATA,
+            useValue: { base: { title: 'A', content: content() }, mine: { title: 'A', content: content({ rpm: 2800 }) }, theirs, describe: (_p: string, v: unknown) => String(v) },
+          },
         ],
       });
       fixture = TestBed.createComponent(SaveConflictDialog);
@@ -62,11 +65,22 @@ describe('save conflict', () => {
       return [...(fixture.nativeElement as HTMLElement).querySelectorAll('button')].find((b) => b.textContent?.includes(label))!;
     }
 
-    it('keeps all mine by default', async () => {
+    it('starts each field on the side that changed it', async () => {
+      // I changed the rpm; they changed the title and the instructions.
+      expect(fixture.nativeElement.textContent).toContain('1 of 3 kept as mine');
+      button('Save with these choices').click();
+      const merged = close.mock.calls[0][0] as DraftBody;
+      expect(merged.title).toBe('B');
+      expect(merged.content.cutting.wheelRpm).toBe(2800);
+      expect(merged.content.instructionsMd).toBe('Clamp firmly.');
+    });
+
+    it('keeps all mine with the shortcut', async () => {
+      button('Keep all mine').click();
+      await fixture.whenStable();
       button('Save with these choices').click();
       const merged = close.mock.calls[0][0] as DraftBody;
       expect(merged.title).toBe('A');
-      expect(merged.content.cutting.wheelRpm).toBe(2800);
       expect(merged.content.instructionsMd).toBe('Clamp.');
     });
 

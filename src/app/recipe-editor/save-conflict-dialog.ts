@@ -14,6 +14,8 @@ export interface DraftBody {
 }
 
 export interface SaveConflictDialogData {
+  /** The draft as it was when this editor last loaded or saved it: what both sides started from. */
+  base: DraftBody;
   mine: DraftBody;
   /** The version as it is on the server now. */
   theirs: RecipeVersionDto;
@@ -27,6 +29,12 @@ export interface Difference {
   mine: unknown;
   theirs: unknown;
 }
+
+function valueAt(body: unknown, path: string): unknown {
+  return path.split('.').reduce<unknown>((node, key) => (isObject(node) ? node[key] : undefined), body);
+}
+
+const same = (a: unknown, b: unknown) => JSON.stringify(a ?? null) === JSON.stringify(b ?? null);
 
 type Choice = 'mine' | 'theirs';
 
@@ -42,7 +50,7 @@ export function differences(mine: unknown, theirs: unknown, prefix = ''): Differ
     const keys = [...new Set([...Object.keys(mine), ...Object.keys(theirs)])];
     return keys.flatMap((key) => differences(mine[key], theirs[key], prefix ? `${prefix}.${key}` : key));
   }
-  return JSON.stringify(mine ?? null) === JSON.stringify(theirs ?? null) ? [] : [{ path: prefix, mine, theirs }];
+  return same(mine, theirs) ? [] : [{ path: prefix, mine, theirs }];
 }
 
 function setPath(target: Record<string, unknown>, path: string, value: unknown): void {
@@ -63,10 +71,11 @@ export function merge(mine: DraftBody, theirs: DraftBody, keepMine: readonly Dif
 }
 
 /**
- * Someone saved this draft after the author's copy was loaded. Lists every field that differs
- * (old → new, with units) and lets the author keep their value or take the other one, field by
- * field. It cannot be dismissed without a decision, so nothing is overwritten silently and
- * nothing typed is lost. Closes with the merged draft.
+ * Someone saved this draft after the author's copy was loaded. Lists every field that differs,
+ * with the value both started from (old → theirs, old → mine, with units), and lets the author
+ * keep their value or take the other one, field by field. The starting choice is the side that
+ * changed the field (mine where both did). It cannot be dismissed without a decision, so
+ * nothing is overwritten silently and nothing typed is lost. Closes with the merged draft.
  */
 @Component({
   selector: 'kb-save-conflict-dialog',
@@ -82,14 +91,18 @@ export class SaveConflictDialog {
   private readonly theirs: DraftBody = { title: this.data.theirs.title, content: this.data.theirs.content };
   protected readonly rows = differences(this.data.mine, this.theirs).map((d) => {
     const path = d.path.replace(/^content\./, '');
+    const base = valueAt(this.data.base, d.path);
     return {
       ...d,
       label: FIELD_INFO[path]?.label ?? path,
+      baseText: this.data.describe(path, base),
       mineText: this.data.describe(path, d.mine),
       theirsText: this.data.describe(path, d.theirs),
+      /** Only they changed it: taking theirs loses nothing of mine. */
+      start: (same(d.mine, base) ? 'theirs' : 'mine') as Choice,
     };
   });
-  protected readonly choices = signal<Record<string, Choice>>(Object.fromEntries(this.rows.map((r) => [r.path, 'mine' as Choice])));
+  protected readonly choices = signal<Record<string, Choice>>(Object.fromEntries(this.rows.map((r) => [r.path, r.start])));
   protected readonly keptMine = computed(() => this.rows.filter((r) => this.choices()[r.path] === 'mine').length);
 
   protected choose(path: string, choice: Choice): void {
