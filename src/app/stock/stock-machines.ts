@@ -57,11 +57,11 @@ export class StockMachines {
   private readonly session = inject(Session);
   private readonly actions = inject(StockRecordActions);
 
-  protected readonly list = new StockListState<MachineRecord>((q) => this.api.machines.list(q), ['name', 'machineClass']);
+  protected readonly list = new StockListState<MachineRecord>((q) => this.api.machines.list(q), ['name', 'machineClass', 'wheelDiameterMaxMm', 'rpmMax']);
   protected readonly canEdit = computed(() => hasAccess(this.session.roles(), STOCK_EDITORS));
   protected readonly units = computed(() => this.session.user()?.units ?? 'metric');
   protected readonly columns = computed(() => {
-    const base = ['name', 'machineClass', 'wheels', 'flange', 'rpm', 'feed', 'motions', 'clamping'];
+    const base = ['name', 'machineClass', 'wheelDiameterMaxMm', 'flange', 'rpmMax', 'feed', 'motions', 'clamping'];
     return this.canEdit() ? [...base, 'actions'] : base;
   });
   protected readonly classLabel = (id: MachineClass) => MACHINE_CLASS_LABELS[id];

@@ -54,7 +54,7 @@ export class StockMaterials {
   private readonly session = inject(Session);
   private readonly actions = inject(StockRecordActions);
 
-  protected readonly list = new StockListState<MaterialRecord>((q) => this.api.materials.list(q), ['name', 'designation', 'group', 'updatedAt']);
+  protected readonly list = new StockListState<MaterialRecord>((q) => this.api.materials.list(q), ['name', 'designation', 'group', 'condition', 'updatedAt']);
   protected readonly canEdit = computed(() => hasAccess(this.session.roles(), STOCK_EDITORS));
   protected readonly units = computed(() => this.session.user()?.units ?? 'metric');
   protected readonly columns = computed(() => {

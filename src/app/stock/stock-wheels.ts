@@ -50,7 +50,7 @@ export class StockWheels {
   private readonly session = inject(Session);
   private readonly actions = inject(StockRecordActions);
 
-  protected readonly list = new StockListState<WheelRecord>((q) => this.api.wheels.list(q), ['name', 'kind', 'diameterMm', 'maxSpeedMs']);
+  protected readonly list = new StockListState<WheelRecord>((q) => this.api.wheels.list(q), ['name', 'kind', 'specification', 'diameterMm', 'thicknessMm', 'maxSpeedMs']);
   protected readonly canEdit = computed(() => hasAccess(this.session.roles(), STOCK_EDITORS));
   protected readonly units = computed(() => this.session.user()?.units ?? 'metric');
   protected readonly columns = computed(() => {
