@@ -92,7 +92,7 @@ describe('Recipes and drafts', () => {
       expect(await countRows(ctx.db, 'audit_events')).to.equal(before.events);
       const counter = await ctx.db('recipe_number_counter').first();
       const last = await ctx.db('recipes').max({ n: 'number' }).first();
-      expect(`KB-${String(counter.last_number).padStart(4, '0')}`).to.equal(last.n);
+      expect(`KB-${String(counter.last_number).padStart(4, '0')}`).to.equal(last!.n);
     });
 
     it('refuses a group that is not the material’s own', async () => {

@@ -1,0 +1,74 @@
+/**
+ * The demo scenario loaded into the test database exactly as `npm start` loads it: every
+ * demo recipe must pass the shared checks without a blocker, and its numbers must sit in
+ * the trade's usual windows (trade reference §4, common practice).
+ */
+import { expect } from 'chai';
+import { peripheralSpeedMs } from '../../../shared/peripheral-speed';
+import { runChecks } from '../../../shared/recipe-checks';
+import type { RecipeContent } from '../../../shared/schemas/recipe';
+import { seedDemoIfEmpty } from '../../../server/tools/db-setup';
+import { loadRecipeContext } from '../../../server/services/recipe-context-loader';
+import { DEMO_RECIPES } from '../../../seeds/data/demo-recipes';
+import { apiTestContext } from '../support/hooks';
+import { countRows } from '../support/test-database';
+
+describe('Demo seeds', () => {
+  const ctx = apiTestContext();
+
+  before(async function () {
+    this.timeout(60000);
+    expect(await seedDemoIfEmpty(ctx.db)).to.equal(true);
+  });
+
+  it('loads the invented lab: three saws, twelve wheels, about fifteen materials, a selection table, twelve or more recipes', async () => {
+    expect(await countRows(ctx.db, 'machines')).to.equal(3);
+    expect(await countRows(ctx.db, 'wheels')).to.equal(12);
+    expect(await countRows(ctx.db, 'materials')).to.be.within(14, 17);
+    expect(await countRows(ctx.db, 'selection_rows')).to.be.greaterThan(10);
+    expect(await countRows(ctx.db, 'recipes')).to.equal(DEMO_RECIPES.length).and.to.be.at.least(12);
+    const numbers = (await ctx.db('recipes').orderBy('id').pluck('number')) as string[];
+    expect(numbers[0]).to.equal('KB-0001');
+    // Every selection row points at a wheel in use.
+    const orphans = await ctx.db('selection_rows as s').join('wheels as w', 'w.id', 's.wheel_id').where('w.archived', true).count({ n: '*' }).first();
+    expect(Number(orphans!.n)).to.equal(0);
+  });
+
+  it('has no blocker in any demo recipe, stored or re-checked', async () => {
+    const versions = await ctx.db('recipe_versions as v').join('recipes as r', 'r.id', 'v.recipe_id').select('r.number', 'v.title', 'v.content_json', 'v.worst_check');
+    expect(versions).to.have.length(DEMO_RECIPES.length);
+    for (const v of versions) {
+      const content = JSON.parse(v.content_json) as RecipeContent;
+      const checks = runChecks(content, await loadRecipeContext(ctx.db, content));
+      const blockers = checks.filter((c) => c.severity === 'blocker');
+      expect(blockers, `${v.number} ${v.title}: ${JSON.stringify(blockers)}`).to.deep.equal([]);
+      expect(v.worst_check, v.number).to.not.equal('blocker');
+    }
+  });
+
+  it('keeps the demo numbers realistic: speed under the marked maximum, feeds and coolant in the usual ranges', async () => {
+    const versions = await ctx.db('recipe_versions').select('content_json');
+    for (const { content_json } of versions) {
+      const content = JSON.parse(content_json) as RecipeContent;
+      const { wheel, machine } = await loadRecipeContext(ctx.db, content);
+      const v = peripheralSpeedMs(wheel!.diameterMm, content.cutting.wheelRpm);
+      expect(v, wheel!.name).to.be.at.most(wheel!.maxSpeedMs);
+      if (machine!.machineClass === 'precision') {
+        expect(content.cutting.wheelRpm).to.be.at.most(5000);
+        expect(content.cutting.feedMmS).to.be.within(0.005, 0.2);
+      } else {
+        expect(v, `${wheel!.name} at ${content.cutting.wheelRpm} rpm`).to.be.within(35, 65);
+        expect(content.cutting.feedMmS).to.be.within(0.05, 1.0);
+      }
+      if (content.coolant.type === 'water-soluble') expect(content.coolant.concentrationPct).to.be.within(2, 5);
+    }
+  });
+
+  it('changes nothing on a second run', async () => {
+    const before = await countRows(ctx.db, 'recipes');
+    expect(await seedDemoIfEmpty(ctx.db)).to.equal(false);
+    await ctx.db.seed.run();
+    expect(await countRows(ctx.db, 'recipes')).to.equal(before);
+    expect(await countRows(ctx.db, 'materials')).to.be.within(14, 17);
+  });
+});
