@@ -9,7 +9,7 @@ import { RouterLink, RouterLinkActive, RouterOutlet } from '@angular/router';
   template: `
     <div class="kb-page">
       <h1 class="kb-page-title">Stock</h1>
-      <nav mat-tab-nav-bar [tabPanel]="panel" aria-label="Stock lists">
+      <nav mat-tab-nav-bar [tabPanel]="panel" mat-stretch-tabs="false" mat-align-tabs="start" aria-label="Stock lists">
         @for (tab of tabs; track tab.path) {
           <a mat-tab-link [routerLink]="tab.path" routerLinkActive #active="routerLinkActive" [active]="active.isActive">
             {{ tab.label }}
