@@ -28,8 +28,9 @@ interface Axis {
   scale: (v: number) => number;
 }
 
-function axis(max: number, from: number, to: number): Axis {
-  const ticks = niceTicks(max);
+/** A value axis; `headroom` keeps a flat line (a rectangular section) off the plot's top edge. */
+function axis(max: number, from: number, to: number, headroom = 1): Axis {
+  const ticks = niceTicks(max * headroom);
   const top = ticks[ticks.length - 1] || 1;
   const scale = (v: number) => from + ((to - from) * v) / top;
   return { ticks: ticks.map((value) => ({ value, pos: scale(value), text: label(value) })), scale };
@@ -73,8 +74,8 @@ export class CutProfilePlot {
     const pts = this.usable();
     const { byContact, byRemoval, depth } = this.peaks();
     const x = axis(depth, PLOT.x0, PLOT.x1);
-    const left = axis(byContact.contactMm, PLOT.y0, PLOT.y1);
-    const right = axis(byRemoval.removalMm3S, PLOT.y0, PLOT.y1);
+    const left = axis(byContact.contactMm, PLOT.y0, PLOT.y1, 1.08);
+    const right = axis(byRemoval.removalMm3S, PLOT.y0, PLOT.y1, 1.08);
     return {
       x,
       left,

@@ -1,4 +1,4 @@
-import { LowerCasePipe } from '@angular/common';
+import { LowerCasePipe, NgTemplateOutlet } from '@angular/common';
 import {
   ChangeDetectionStrategy,
   Component,
@@ -22,9 +22,9 @@ import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatRadioModule } from '@angular/material/radio';
 import { MatSelectModule } from '@angular/material/select';
 import { Router, RouterLink } from '@angular/router';
-import { Subject, catchError, combineLatest, concatMap, debounceTime, firstValueFrom, forkJoin, from, map, of, startWith } from 'rxjs';
+import { Subject, catchError, combineLatest, concatMap, debounceTime, firstValueFrom, forkJoin, from, map, merge, of, startWith } from 'rxjs';
 import { PRECEDENCE_LINE, STANDARD_CAUTIONS } from '../../../shared/cautions';
-import { runChecks } from '../../../shared/recipe-checks';
+import { type CheckResult, runChecks } from '../../../shared/recipe-checks';
 import type { RecipeContext } from '../../../shared/recipe-context';
 import { computeRecipe } from '../../../shared/recipe-computations';
 import type { RecipeVersionDto } from '../../../shared/recipe-types';
@@ -93,15 +93,15 @@ const COOLANT_LABELS = { 'water-soluble': 'Water-soluble coolant', oil: 'Cutting
 
 /** The form's sections, in order, for the section links. */
 const SECTIONS = [
-  { id: 'scope', label: 'Scope' },
-  { id: 'machine', label: 'Machine & wheel' },
-  { id: 'speeds', label: 'Speeds & motion' },
-  { id: 'clamping', label: 'Clamping' },
-  { id: 'coolant', label: 'Coolant' },
-  { id: 'instructions', label: 'Instructions' },
-  { id: 'cautions', label: 'Cautions' },
-  { id: 'photos', label: 'Photos' },
-  { id: 'change', label: 'Change reason' },
+  { id: 'scope', label: 'Scope', paths: ['scope.'] },
+  { id: 'machine', label: 'Machine & wheel', paths: ['cutting.machineId', 'cutting.wheelId'] },
+  { id: 'speeds', label: 'Speeds', paths: ['cutting.'] },
+  { id: 'clamping', label: 'Clamping', paths: ['clamping.'] },
+  { id: 'coolant', label: 'Coolant', paths: ['coolant.'] },
+  { id: 'instructions', label: 'Instructions', paths: ['instructionsMd', 'acceptanceMd'] },
+  { id: 'cautions', label: 'Cautions', paths: ['cautionsMd'] },
+  { id: 'photos', label: 'Photos', paths: [] },
+  { id: 'change', label: 'Change reason', paths: ['changeReason'] },
 ] as const;
 
 type SaveState = 'idle' | 'saving' | 'conflict' | 'failed';
@@ -143,6 +143,7 @@ function snapshotOf(body: DraftBody): string {
   selector: 'kb-recipe-editor',
   imports: [
     LowerCasePipe,
+    NgTemplateOutlet,
     MarkdownView,
     MatButtonModule,
     MatCheckboxModule,
@@ -255,7 +256,10 @@ export class RecipeEditor implements OnInit, LeavesSafely {
       // A window is matched by its middle; the band check is a suggestion, not a rule.
       hardness = { value: (scope.hardness.min + scope.hardness.max) / 2, scale: scope.hardness.scale };
     }
-    return suggestWheels(scope.group, hardness, rows, wheels).slice(0, 3);
+    // Wheels the chosen machine takes come first; the others stay visible, marked.
+    const fits = (w: WheelRecord) => this.wheelFitsMachine(w);
+    const all = suggestWheels(scope.group, hardness, rows, wheels);
+    return [...all.filter((s) => fits(s.wheel)), ...all.filter((s) => !fits(s.wheel))].slice(0, 3).map((s) => ({ ...s, fits: fits(s.wheel) }));
   });
 
   /** Computed values and checks, recomputed LIVE_DEBOUNCE_MS after the last change. */
@@ -282,6 +286,16 @@ export class RecipeEditor implements OnInit, LeavesSafely {
     { initialValue: null },
   );
   protected readonly computedValues = computed(() => this.liveState()?.computed ?? null);
+  /** Blockers and warnings by the section holding their field, repeated there so they are seen in context. */
+  protected readonly sectionChecks = computed(() => {
+    const bySection: Record<string, CheckResult[]> = {};
+    for (const check of this.checks()) {
+      if (check.severity === 'note' || !check.path) continue;
+      const section = SECTIONS.find((s) => s.paths.some((p) => (p.endsWith('.') ? check.path!.startsWith(p) : check.path === p)));
+      if (section) (bySection[section.id] ??= []).push(check);
+    }
+    return bySection;
+  });
   protected readonly checks = computed(() => this.liveState()?.checks ?? []);
   protected readonly livePending = computed(() => this.liveState()?.at !== this.value());
 
@@ -319,10 +333,12 @@ export class RecipeEditor implements OnInit, LeavesSafely {
     scope.materialId.addValidators((c: AbstractControl): ValidationErrors | null =>
       scope.by.value === 'material' && c.value === null ? { zod: 'Choose a material, or scope the recipe by material group.' } : null,
     );
-    scope.materialId.valueChanges.pipe(takeUntilDestroyed()).subscribe((id) => {
-      const material = this.materials().find((m) => m.id === id);
-      if (material && scope.by.value === 'material' && scope.group.value !== material.group) scope.group.setValue(material.group);
-    });
+    merge(scope.materialId.valueChanges, scope.by.valueChanges)
+      .pipe(takeUntilDestroyed())
+      .subscribe(() => {
+        const material = this.materials().find((m) => m.id === scope.materialId.value);
+        if (material && scope.by.value === 'material' && scope.group.value !== material.group) scope.group.setValue(material.group);
+      });
     this.controls.changeReason.addValidators((c: AbstractControl): ValidationErrors | null =>
       (this.version()?.version ?? 1) >= 2 && !String(c.value).trim() ? { zod: 'Say why this version differs from the one before (required from version 2 on).' } : null,
     );
