@@ -276,13 +276,13 @@ describe('RecipeEditor', () => {
       { code: 'CONFLICT', errors: [{ path: 'revision', message: 'Ines Author saved this draft after you opened it.' }], current: theirs },
       { status: 409, statusText: 'Conflict' },
     );
-    (await vi.waitFor(() => backend.expectOne({ method: 'GET', url: '/api/recipes/3/versions/1' }))).flush(theirs);
-
     const dialog = await vi.waitFor(() => {
       const el = document.querySelector<HTMLElement>('kb-save-conflict-dialog');
       expect(el).not.toBeNull();
       return el!;
     });
+    // The 409 carries the current version, so the dialog opens without fetching it again.
+    backend.expectNone({ method: 'GET', url: '/api/recipes/3/versions/1' });
     await fixture.whenStable();
     expect(text('[data-testid="save-status"]')).toContain('Not saved');
     const rows = [...dialog.querySelectorAll<HTMLElement>('tbody tr')];

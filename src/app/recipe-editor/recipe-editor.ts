@@ -27,7 +27,7 @@ import { PRECEDENCE_LINE, STANDARD_CAUTIONS } from '../../../shared/cautions';
 import { type CheckResult, runChecks } from '../../../shared/recipe-checks';
 import type { RecipeContext } from '../../../shared/recipe-context';
 import { computeRecipe } from '../../../shared/recipe-computations';
-import type { RecipeVersionDto } from '../../../shared/recipe-types';
+import type { RecipeVersionDto, StaleSaveBody } from '../../../shared/recipe-types';
 import type { HardnessValue } from '../../../shared/schemas/stock';
 import type { LabLimits, MachineRecord, MaterialRecord, SelectionRow, WheelRecord } from '../../../shared/stock-types';
 import { type QuantityKind, formatQuantity } from '../../../shared/units';
@@ -531,7 +531,7 @@ export class RecipeEditor implements OnInit, LeavesSafely {
     } catch (e) {
       if (!isApiError(e)) throw e;
       if (e.status === 409) {
-        await this.resolveConflict();
+        await this.resolveConflict(staleCurrent(e.body));
       } else {
         this.saveState.set('failed');
         const unmatched = e.status === 400 ? applyServerErrors(this.form, e.errors) : [];
@@ -544,9 +544,9 @@ export class RecipeEditor implements OnInit, LeavesSafely {
    * A stale save: autosave stops, the version as it is now is fetched, and the author decides
    * field by field. Then the base revision becomes the current one and the merge is saved.
    */
-  private async resolveConflict(): Promise<void> {
+  private async resolveConflict(sent: RecipeVersionDto | null): Promise<void> {
     this.saveState.set('conflict');
-    const current = await firstValueFrom(this.api.version(this.recipeId(), this.version()!.version)).catch(() => null);
+    const current = sent ?? (await firstValueFrom(this.api.version(this.recipeId(), this.version()!.version)).catch(() => null));
     if (!current) {
       this.formError.set('The draft was changed elsewhere and its current state could not be loaded. Your input is still here; try saving again.');
       this.saveState.set('failed');
@@ -617,4 +617,10 @@ export class RecipeEditor implements OnInit, LeavesSafely {
     return String(value);
   }
 
+}
+
+/** The version a stale-save 409 carries (`StaleSaveBody.current`), if the body has one. */
+function staleCurrent(body: unknown): RecipeVersionDto | null {
+  const current = (body as Partial<StaleSaveBody> | null)?.current;
+  return current && typeof current === 'object' && 'revision' in current ? current : null;
 }

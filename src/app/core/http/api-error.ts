@@ -13,6 +13,8 @@ export class ApiError extends Error implements ApiErrorBody {
     /** The envelope's stable code, e.g. `VALIDATION_FAILED`; `NETWORK` or `HTTP_<status>` when there was no envelope. */
     readonly code: string,
     readonly errors: FieldError[],
+    /** The whole response body, for envelopes that carry more (a stale save's `current` version). */
+    readonly body: unknown = null,
   ) {
     super(describeApiError({ code, errors }));
     this.name = 'ApiError';
@@ -20,7 +22,7 @@ export class ApiError extends Error implements ApiErrorBody {
 
   static fromResponse(response: HttpErrorResponse): ApiError {
     if (isApiErrorBody(response.error)) {
-      return new ApiError(response.status, response.error.code, response.error.errors);
+      return new ApiError(response.status, response.error.code, response.error.errors, response.error);
     }
     if (response.status === 0) {
       return new ApiError(0, 'NETWORK', [{ path: '', message: 'The Kerfbook server could not be reached. Check the connection and try again.' }]);
