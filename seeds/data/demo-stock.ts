@@ -98,6 +98,9 @@ export const DEMO_WHEELS: WheelBody[] = [
   rimWheel('Diamond rim 150 metal bond', 'D126N100M', 0.5, false, 'Ceramics and cemented carbides.'),
   rimWheel('Diamond rim 150 resin bond', 'D91N75B', 0.4, true, 'Composites and electronics; dress with an alumina stick after metal.'),
   rimWheel('CBN rim 150', 'B126N100M', 0.5, false, 'Fully hardened tool steels on the precision saw.'),
+  // The larger blade is marked below what the precision saw can spin it at (50 m/s ≈ 4774 rpm
+  // at 200 mm): the over-speed check matters on this machine.
+  { ...rimWheel('Diamond rim 200 metal bond', 'D151N100M', 0.8, false, 'Larger ceramic and carbide sections; mind the marked speed at 200 mm.'), diameterMm: 200 },
 ];
 
 export const DEMO_MATERIALS: MaterialInput[] = [

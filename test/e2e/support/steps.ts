@@ -26,3 +26,9 @@ export async function navEntries(page: Page): Promise<string[]> {
 export function unexpectedErrors(errors: string[]): string[] {
   return errors.filter((e) => !/status of 401/.test(e));
 }
+
+/** Opens a Material select by its label and picks the option whose text matches. */
+export async function choose(page: Page, label: string, option: RegExp): Promise<void> {
+  await page.getByRole('combobox', { name: label, exact: true }).click();
+  await page.getByRole('option', { name: option }).click();
+}
