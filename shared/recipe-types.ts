@@ -66,3 +66,108 @@ export interface StaleSaveBody {
   errors: { path: string; message: string }[];
   current: RecipeVersionDto;
 }
+
+/** An electronic signature as shown wherever its version is shown or printed (21 CFR 11.50). */
+export interface SignatureDto {
+  id: number;
+  /** The signer's printed name at the time of signing. */
+  signerName: string;
+  signerId: number;
+  meaning: 'approved' | 'withdrawn';
+  comment: string;
+  /** ISO 8601 UTC. */
+  signedAt: string;
+  /** SHA-256 of the canonical content the signature is bound to. */
+  contentHash: string;
+}
+
+export interface ReviewCommentDto {
+  id: number;
+  authorName: string;
+  authorId: number;
+  body: string;
+  /** Content path the comment is about; "" for the whole version. */
+  path: string;
+  createdAt: string;
+}
+
+/** Workflow facts of a version, beside its content. */
+export interface VersionWorkflowDto {
+  signatures: SignatureDto[];
+  /** YYYY-MM-DD: when an approved version becomes (or became) current. */
+  effectiveFrom: string | null;
+  /** YYYY-MM-DD: when the approved version is due for periodic review. */
+  reviewDueOn: string | null;
+  submittedAt: string | null;
+  supersededAt: string | null;
+  withdrawnAt: string | null;
+  withdrawnReason: string | null;
+  /** Everyone who authored or edited this version: they may not approve it. */
+  editorIds: number[];
+}
+
+/** One changed parameter between two versions. */
+export interface ParameterChange {
+  /** Content path, e.g. "cutting.feedMmS". */
+  path: string;
+  label: string;
+  /** Display values with units ("0.30 mm/s"), or names for referenced stock. */
+  before: string;
+  after: string;
+}
+
+/** A word-level diff of one text field (`diff` package, diffWordsWithSpace). */
+export interface TextChange {
+  path: string;
+  label: string;
+  parts: { value: string; added?: boolean; removed?: boolean }[];
+}
+
+/** GET /api/recipes/:id/compare?from=&to= */
+export interface RecipeComparison {
+  recipeId: number;
+  number: string;
+  from: { version: number; status: string; title: string };
+  to: { version: number; status: string; title: string };
+  parameters: ParameterChange[];
+  texts: TextChange[];
+}
+
+/** One row of the trail. */
+export interface AuditEventDto {
+  id: number;
+  occurredAt: string;
+  actorId: number | null;
+  actorName: string;
+  type: string;
+  entityType: string;
+  entityId: string | null;
+  before: unknown;
+  after: unknown;
+  clientAddress: string | null;
+  /** SHA-256 of the previous row and of this row (hex). */
+  prevHash: string;
+  hash: string;
+}
+
+export interface AuditPage {
+  items: AuditEventDto[];
+  /** Pass as `before` for the next (older) page; null on the last page. */
+  nextBefore: number | null;
+}
+
+export interface ChainVerification {
+  ok: boolean;
+  checked: number;
+  /** The first row whose stored hash or link does not match; null when the chain is whole. */
+  firstBroken: { id: number; reason: string } | null;
+}
+
+/** GET /api/today — the signed-in person's lists, per role (design section 7). */
+export interface TodayDto {
+  myDrafts: RecipeSummary[];
+  waitingForMyReview: RecipeSummary[];
+  reviewsDue: (RecipeSummary & { reviewDueOn: string })[];
+  flaggedCuts: { recipeId: number; number: string; title: string; count: number }[];
+  toAcknowledge: RecipeSummary[];
+}

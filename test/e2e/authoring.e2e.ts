@@ -1,4 +1,5 @@
 /// <reference lib="dom" />
+/// <reference lib="dom.iterable" />
 /**
  * Authoring in chromium: an author drafts a recipe, the live checks catch an rpm above the
  * wheel's marked maximum and say why, the author fixes it and saves, and the recipe is in
