@@ -42,6 +42,8 @@ export interface RecipeVersionDto {
   createdAt: string;
   updatedAt: string;
   attachments: AttachmentDto[];
+  /** Signatures, dates and editors; present on every version once the review workflow is in. */
+  workflow?: VersionWorkflowDto;
 }
 
 export interface AttachmentDto {
