@@ -46,6 +46,14 @@ export const routes: Routes = [
         loadComponent: () => import('./recipe-editor/recipe-editor').then((m) => m.RecipeEditor),
       },
       {
+        path: 'recipes/:id/review',
+        title: 'Review · Kerfbook',
+        canMatch: [numericIdParam],
+        canActivate: [accessGuard],
+        data: { access: ['approver'] } satisfies AccessData,
+        loadComponent: () => import('./review/review-page').then((m) => m.ReviewPage),
+      },
+      {
         path: 'library',
         title: 'Library · Kerfbook',
         canActivate: [accessGuard],
