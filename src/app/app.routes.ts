@@ -61,6 +61,15 @@ export const routes: Routes = [
         loadComponent: () => import('./library/library').then((m) => m.Library),
       },
       {
+        // Before the generic recipes/:id, and numeric ids only like it.
+        path: 'recipes/:id/compare',
+        title: 'Compare versions · Kerfbook',
+        canMatch: [numericIdParam],
+        canActivate: [accessGuard],
+        data: { access: 'signedIn' } satisfies AccessData,
+        loadComponent: () => import('./compare/compare-page').then((m) => m.ComparePage),
+      },
+      {
         // Numeric ids only, so /recipes/new (the editor) never lands here whatever the order.
         path: 'recipes/:id',
         title: 'Recipe · Kerfbook',
@@ -74,6 +83,13 @@ export const routes: Routes = [
         canActivate: [accessGuard],
         data: { access: 'signedIn' } satisfies AccessData,
         loadChildren: () => import('./stock/stock.routes').then((m) => m.stockRoutes),
+      },
+      {
+        path: 'trail',
+        title: 'Trail · Kerfbook',
+        canActivate: [accessGuard],
+        data: { access: ['auditor', 'admin'] } satisfies AccessData,
+        loadComponent: () => import('./trail/trail').then((m) => m.Trail),
       },
       {
         path: 'people',

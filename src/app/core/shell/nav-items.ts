@@ -16,6 +16,7 @@ export const NAV_ITEMS: readonly NavItem[] = [
   { label: 'Today', icon: 'today', path: '/today', access: 'signedIn' },
   { label: 'Library', icon: 'menu_book', path: '/library', access: 'signedIn' },
   { label: 'Stock', icon: 'inventory_2', path: '/stock', access: 'signedIn' },
+  { label: 'Trail', icon: 'policy', path: '/trail', access: ['auditor', 'admin'] },
   { label: 'People', icon: 'group', path: '/people', access: ['admin'] },
   { label: 'My account', icon: 'manage_accounts', path: '/account', access: 'signedIn' },
 ];

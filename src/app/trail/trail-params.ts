@@ -1,0 +1,74 @@
+import type { ParamMap, Params } from '@angular/router';
+import type { AuditQuery } from '../../../shared/schemas/workflow';
+
+/** Events per page; the server's default, sent explicitly so a page is the same size everywhere. */
+export const TRAIL_PAGE_SIZE = 50;
+
+/**
+ * The trail's view as it lives in the URL (`/trail?recipe=KB-0042&type=recipe.created&before=812`),
+ * so an auditor can send the exact list they are looking at.
+ */
+export interface TrailParams {
+  /** A recipe number as typed ("KB-0042") or a recipe id ("42"); resolved to an id before asking. */
+  recipe: string;
+  userId: number | null;
+  type: string;
+  /** Inclusive UTC dates, YYYY-MM-DD. */
+  from: string;
+  to: string;
+  /** Keyset: show events with an id below this one; null for the newest. */
+  before: number | null;
+}
+
+export const TRAIL_DEFAULTS: TrailParams = { recipe: '', userId: null, type: '', from: '', to: '', before: null };
+
+const ISO_DATE = /^\d{4}-\d{2}-\d{2}$/;
+
+function positiveInteger(value: string | null): number | null {
+  if (value === null || !/^[1-9]\d*$/.test(value.trim())) return null;
+  return Number(value);
+}
+
+/** Reads the URL's query parameters; anything malformed is dropped rather than sent to the server. */
+export function readTrailParams(map: ParamMap): TrailParams {
+  const date = (key: string) => {
+    const value = (map.get(key) ?? '').trim();
+    return ISO_DATE.test(value) ? value : '';
+  };
+  return {
+    recipe: (map.get('recipe') ?? '').trim().slice(0, 100),
+    userId: positiveInteger(map.get('user')),
+    type: (map.get('type') ?? '').trim().slice(0, 60),
+    from: date('from'),
+    to: date('to'),
+    before: positiveInteger(map.get('before')),
+  };
+}
+
+/** The URL query parameters for a view; empty filters are left out so links stay short. */
+export function toTrailQueryParams(p: TrailParams): Params {
+  return {
+    recipe: p.recipe || null,
+    user: p.userId ?? null,
+    type: p.type || null,
+    from: p.from || null,
+    to: p.to || null,
+    before: p.before ?? null,
+  };
+}
+
+/** A typed recipe reference that is already an id. */
+export function recipeIdOf(reference: string): number | null {
+  return positiveInteger(reference);
+}
+
+/** The API's filters for a view, once the recipe reference is resolved to an id (without paging). */
+export function toAuditFilters(p: TrailParams, recipeId: number | null): Partial<AuditQuery> {
+  return {
+    recipeId: recipeId ?? undefined,
+    userId: p.userId ?? undefined,
+    type: p.type || undefined,
+    from: p.from || undefined,
+    to: p.to || undefined,
+  };
+}

@@ -1,0 +1,294 @@
+import { DatePipe } from '@angular/common';
+import { ChangeDetectionStrategy, Component, computed, effect, inject, signal, untracked } from '@angular/core';
+import { takeUntilDestroyed, toObservable, toSignal } from '@angular/core/rxjs-interop';
+import { NonNullableFormBuilder, ReactiveFormsModule } from '@angular/forms';
+import { MatAutocompleteModule } from '@angular/material/autocomplete';
+import { MatButtonModule } from '@angular/material/button';
+import { MatFormFieldModule } from '@angular/material/form-field';
+import { MatIconModule } from '@angular/material/icon';
+import { MatInputModule } from '@angular/material/input';
+import { MatProgressBarModule } from '@angular/material/progress-bar';
+import { MatSelectModule } from '@angular/material/select';
+import { MatTableModule } from '@angular/material/table';
+import { ActivatedRoute, Router } from '@angular/router';
+import { type Observable, catchError, debounceTime, map, merge, of, switchMap } from 'rxjs';
+import type { UserDto } from '../../../shared/api-types';
+import type { AuditEventDto, AuditPage, ChainVerification } from '../../../shared/recipe-types';
+import { hasAccess } from '../../../shared/roles';
+import { Session } from '../core/session/session';
+import { PeopleApi } from '../people/people-api';
+import { RecipeApi } from '../recipe/recipe-api';
+import { type ChangeSummary, fullJson, summariseChange } from './event-change';
+import { TrailApi } from './trail-api';
+import { TRAIL_PAGE_SIZE, type TrailParams, readTrailParams, recipeIdOf, toAuditFilters, toTrailQueryParams } from './trail-params';
+
+/** How long the typed filters wait for a pause before the list changes. */
+export const TRAIL_TYPING_DEBOUNCE_MS = 400;
+
+/** Event types offered while typing; any other type can still be typed in full. */
+const SUGGESTED_TYPES = [
+  'recipe.created',
+  'recipe.draft_saved',
+  'attachment.added',
+  'attachment.deleted',
+  'material.created',
+  'material.updated',
+  'wheel.created',
+  'wheel.updated',
+  'machine.created',
+  'machine.updated',
+  'selection_row.updated',
+  'user.created',
+  'user.roles_changed',
+  'user.deactivated',
+  'session.signed_in',
+  'session.sign_in_failed',
+];
+
+const ENTITY_LABELS: Record<string, string> = {
+  recipe: 'Recipe',
+  recipe_version: 'Recipe version',
+  attachment: 'Photo',
+  material: 'Material',
+  wheel: 'Wheel',
+  machine: 'Machine',
+  selection_row: 'Selection row',
+  user: 'User',
+};
+
+/** A trail row with what the table shows already worked out. */
+interface EventRow {
+  event: AuditEventDto;
+  what: string;
+  change: ChangeSummary;
+}
+
+/** How the recipe filter turned out: no filter, an id to send, or a number the library does not know. */
+type RecipeFilter = { state: 'none' } | { state: 'id'; id: number; number: string | null } | { state: 'unknown'; reference: string } | { state: 'failed' };
+
+const EMPTY_PAGE: AuditPage = { items: [], nextBefore: null };
+
+/**
+ * Trail (auditor, admin): the audit events, newest first, filtered and paged by keyset on the
+ * server; the view lives in the URL. Verifies the hash chain and exports the same filters as CSV.
+ */
+@Component({
+  selector: 'kb-trail',
+  imports: [
+    DatePipe,
+    MatAutocompleteModule,
+    MatButtonModule,
+    MatFormFieldModule,
+    MatIconModule,
+    MatInputModule,
+    MatProgressBarModule,
+    MatSelectModule,
+    MatTableModule,
+    ReactiveFormsModule,
+  ],
+  templateUrl: './trail.html',
+  styleUrl: './trail.scss',
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
+export class Trail {
+  private readonly api = inject(TrailApi);
+  private readonly recipes = inject(RecipeApi);
+  private readonly people = inject(PeopleApi);
+  private readonly session = inject(Session);
+  private readonly route = inject(ActivatedRoute);
+  private readonly router = inject(Router);
+  private readonly fb = inject(NonNullableFormBuilder);
+
+  /** The view, read from the URL: the one source of truth for filters and the keyset position. */
+  protected readonly params = toSignal(this.route.queryParamMap.pipe(map(readTrailParams)), {
+    initialValue: readTrailParams(this.route.snapshot.queryParamMap),
+  });
+
+  protected readonly columns = ['occurredAt', 'actor', 'type', 'what', 'change', 'detail'];
+  /** Admins may list people; an auditor types a user id instead. */
+  protected readonly canListUsers = computed(() => hasAccess(this.session.roles(), ['admin']));
+
+  protected readonly filters = this.fb.group({
+    recipe: [this.params().recipe],
+    userId: this.fb.control<number | null>(this.params().userId),
+    type: [this.params().type],
+    from: [this.params().from],
+    to: [this.params().to],
+  });
+
+  protected readonly users = signal<UserDto[]>([]);
+  protected readonly loading = signal(true);
+  protected readonly loadFailed = signal(false);
+  protected readonly page = signal<AuditPage>(EMPTY_PAGE);
+  protected readonly recipeFilter = signal<RecipeFilter>({ state: 'none' });
+  protected readonly expanded = signal<ReadonlySet<number>>(new Set());
+  protected readonly verifying = signal(false);
+  protected readonly verification = signal<ChainVerification | null>(null);
+  protected readonly verifyFailed = signal(false);
+
+  protected readonly rows = computed<EventRow[]>(() =>
+    this.page().items.map((event) => ({ event, what: this.describeEntity(event), change: summariseChange(event.before, event.after) })),
+  );
+  protected readonly hasFilters = computed(() => {
+    const p = this.params();
+    return !!(p.recipe || p.userId || p.type || p.from || p.to);
+  });
+  /** The same filters as a CSV download (every matching row, so no keyset position). */
+  protected readonly csvUrl = computed(() => {
+    const filter = this.recipeFilter();
+    return this.api.csvUrl(toAuditFilters(this.params(), filter.state === 'id' ? filter.id : null));
+  });
+  private readonly seenTypes = signal<ReadonlySet<string>>(new Set(SUGGESTED_TYPES));
+  private readonly typedType = toSignal(this.filters.controls.type.valueChanges, { initialValue: this.filters.controls.type.value });
+  protected readonly typeOptions = computed(() => {
+    const typed = this.typedType().trim().toLowerCase();
+    return [...this.seenTypes()].filter((type) => type.includes(typed)).sort();
+  });
+
+  protected readonly json = fullJson;
+
+  constructor() {
+    toObservable(this.params)
+      .pipe(
+        switchMap((p) => {
+          this.loading.set(true);
+          return this.resolveRecipe(p.recipe).pipe(
+            switchMap((recipe) => {
+              this.recipeFilter.set(recipe);
+              if (recipe.state === 'unknown' || recipe.state === 'failed') return of(EMPTY_PAGE);
+              const query = { ...toAuditFilters(p, recipe.state === 'id' ? recipe.id : null), before: p.before ?? undefined, limit: TRAIL_PAGE_SIZE };
+              // The error interceptor has already told the user what went wrong.
+              return this.api.list(query).pipe(catchError(() => of(null)));
+            }),
+          );
+        }),
+        takeUntilDestroyed(),
+      )
+      .subscribe((page) => {
+        this.loading.set(false);
+        this.loadFailed.set(page === null);
+        this.page.set(page ?? EMPTY_PAGE);
+        this.expanded.set(new Set());
+        if (page?.items.length) this.seenTypes.update((seen) => new Set([...seen, ...page.items.map((e) => e.type)]));
+      });
+
+    if (this.canListUsers()) {
+      this.people
+        .list({ pageSize: 100, status: 'all', sort: 'displayName', dir: 'asc' })
+        .pipe(
+          catchError(() => of(null)),
+          takeUntilDestroyed(),
+        )
+        .subscribe((page) => this.users.set(page?.items ?? []));
+    }
+
+    // Typing waits for a pause; choosing from a list or a calendar applies at once.
+    const c = this.filters.controls;
+    merge(merge(c.recipe.valueChanges, c.type.valueChanges, c.userId.valueChanges).pipe(debounceTime(TRAIL_TYPING_DEBOUNCE_MS)), merge(c.from.valueChanges, c.to.valueChanges))
+      .pipe(takeUntilDestroyed())
+      .subscribe(() => this.applyFilters());
+
+    // Back / forward or a pasted link: show the URL's filters in the fields.
+    effect(() => {
+      const p = this.params();
+      untracked(() => this.showInFields(p));
+    });
+  }
+
+  /** The user select applies at once; the typed id waits for a pause like the other text fields. */
+  protected pickUser(): void {
+    this.applyFilters();
+  }
+
+  protected pickType(): void {
+    this.applyFilters();
+  }
+
+  protected olderEvents(): void {
+    const next = this.page().nextBefore;
+    if (next !== null) this.navigate({ ...this.params(), before: next });
+  }
+
+  protected newestEvents(): void {
+    this.navigate({ ...this.params(), before: null });
+  }
+
+  protected clearFilters(): void {
+    this.navigate({ recipe: '', userId: null, type: '', from: '', to: '', before: null });
+  }
+
+  /** Opens the trail at one event, without filters, so its neighbours show around it. */
+  protected showEvent(id: number): void {
+    this.navigate({ recipe: '', userId: null, type: '', from: '', to: '', before: id + 1 });
+  }
+
+  protected toggle(id: number): void {
+    this.expanded.update((open) => {
+      const next = new Set(open);
+      if (!next.delete(id)) next.add(id);
+      return next;
+    });
+  }
+
+  protected verifyChain(): void {
+    this.verifying.set(true);
+    this.verifyFailed.set(false);
+    this.verification.set(null);
+    this.api.verify().subscribe({
+      next: (result) => {
+        this.verifying.set(false);
+        this.verification.set(result);
+      },
+      error: () => {
+        // The error interceptor has already told the user what went wrong.
+        this.verifying.set(false);
+        this.verifyFailed.set(true);
+      },
+    });
+  }
+
+  protected userLabel(user: UserDto): string {
+    return `${user.displayName} (${user.username})${user.active ? '' : ' · inactive'}`;
+  }
+
+  private resolveRecipe(reference: string): Observable<RecipeFilter> {
+    if (!reference) return of({ state: 'none' });
+    const id = recipeIdOf(reference);
+    if (id !== null) return of({ state: 'id', id, number: null });
+    return this.recipes.list({ q: reference, pageSize: 25 }).pipe(
+      map((page): RecipeFilter => {
+        const match = page.items.find((r) => r.number.toLowerCase() === reference.toLowerCase());
+        return match ? { state: 'id', id: match.id, number: match.number } : { state: 'unknown', reference };
+      }),
+      catchError(() => of<RecipeFilter>({ state: 'failed' })),
+    );
+  }
+
+  private describeEntity(event: AuditEventDto): string {
+    const label = ENTITY_LABELS[event.entityType] ?? event.entityType;
+    return event.entityId ? `${label} ${event.entityId}` : label;
+  }
+
+  private applyFilters(): void {
+    const f = this.filters.getRawValue();
+    const userId = f.userId !== null && Number.isInteger(Number(f.userId)) && Number(f.userId) > 0 ? Number(f.userId) : null;
+    const next: TrailParams = { recipe: f.recipe.trim(), userId, type: f.type.trim(), from: f.from, to: f.to, before: null };
+    const p = this.params();
+    const same = next.recipe === p.recipe && next.userId === p.userId && next.type === p.type && next.from === p.from && next.to === p.to;
+    if (!same) this.navigate(next, true);
+  }
+
+  private navigate(next: TrailParams, replaceUrl = false): void {
+    void this.router.navigate([], { relativeTo: this.route, queryParams: toTrailQueryParams(next), replaceUrl });
+  }
+
+  private showInFields(p: TrailParams): void {
+    const c = this.filters.controls;
+    const quiet = { emitEvent: false };
+    if (c.recipe.value.trim() !== p.recipe) c.recipe.setValue(p.recipe, quiet);
+    if ((c.userId.value || null) !== p.userId) c.userId.setValue(p.userId, quiet);
+    if (c.type.value.trim() !== p.type) c.type.setValue(p.type, quiet);
+    if (c.from.value !== p.from) c.from.setValue(p.from, quiet);
+    if (c.to.value !== p.to) c.to.setValue(p.to, quiet);
+  }
+}
