@@ -47,8 +47,12 @@ const TABLES = [
 export async function resetTables(db: Knex): Promise<void> {
   // recipes ↔ recipe_versions point at each other: cut the recipe's pointer first.
   await db('recipes').update({ latest_version_id: null });
-  for (const table of TABLES) await db(table).del();
+  // The trail refuses DELETE (append-only triggers); TRUNCATE fires no triggers.
+  for (const table of TABLES) await (table === 'audit_events' ? db.raw('TRUNCATE TABLE audit_events') : db(table).del());
   await db('recipe_number_counter').update({ last_number: 0 });
+  // The trail starts again from nothing: its chain head too, or the first new event would
+  // link to a row that no longer exists (and the verification would rightly say so).
+  await db('audit_chain_head').update({ last_event_id: 0, last_hash: '0'.repeat(64) });
 }
 
 export async function countRows(db: Knex, table: string): Promise<number> {

@@ -1,0 +1,30 @@
+import { Readable } from 'node:stream';
+import { pipeline } from 'node:stream/promises';
+import { auditQuery } from '../../../shared/schemas/workflow';
+import * as trail from '../../services/trail';
+import type { RouteHandler } from '../route-definition';
+import { parse } from './parse';
+
+export const list: RouteHandler = async (req, res, { db }) => {
+  res.json(await trail.listTrail(db, parse(auditQuery, req.query)));
+};
+
+export const csv: RouteHandler = async (req, res, { db }) => {
+  const chunks = await trail.openTrailCsv(db, parse(auditQuery, req.query));
+  res.setHeader('Content-Type', 'text/csv; charset=utf-8');
+  res.setHeader('Content-Disposition', `attachment; filename="${trail.csvFileName()}"`);
+  // A trail export is a record of its moment: never serve it from a cache.
+  res.setHeader('Cache-Control', 'no-store');
+  // pipeline waits for the client to keep up, so a long trail never piles up in memory.
+  try {
+    await pipeline(Readable.from(chunks), res);
+  } catch (err) {
+    // The client went away mid-download: nothing left to answer, nothing wrong on our side.
+    if (req.destroyed || (err as { code?: string }).code === 'ERR_STREAM_PREMATURE_CLOSE') return;
+    throw err;
+  }
+};
+
+export const verify: RouteHandler = async (_req, res, { db }) => {
+  res.json(await trail.verifyChain(db));
+};

@@ -1,0 +1,187 @@
+/**
+ * Comparing two versions of a recipe (design 7, "Compare" and "Review"): the parameters
+ * that changed, in plain words with units (stock shown by name), and word-level diffs of
+ * the text fields. Pure: the caller supplies the names of the referenced stock.
+ */
+import { diffWordsWithSpace } from 'diff';
+import type { UnitPreference } from './api-types';
+import type { ParameterChange, RecipeComparison, TextChange } from './recipe-types';
+import type { RecipeContent } from './schemas/recipe';
+import { formatQuantity, NO_VALUE, type QuantityKind } from './units';
+import {
+  CLAMPING_METHOD_LABELS,
+  CUT_MOTION_LABELS,
+  MATERIAL_GROUP_LABELS,
+  SHAPE_LABELS,
+  type CoolantType,
+  type CutOrientation,
+} from './vocabulary';
+
+/** One side of the comparison. */
+export interface ComparedVersion {
+  version: number;
+  status: string;
+  title: string;
+  content: RecipeContent;
+}
+
+/** Names of the stock records the versions refer to, by id (archived ones included). */
+export interface StockNames {
+  materials: ReadonlyMap<number, string>;
+  wheels: ReadonlyMap<number, string>;
+  machines: ReadonlyMap<number, string>;
+}
+
+export type VersionComparison = Omit<RecipeComparison, 'recipeId' | 'number'>;
+
+const ORIENTATION_LABELS: Record<CutOrientation, string> = { transverse: 'Transverse', longitudinal: 'Longitudinal', other: 'Other' };
+const COOLANT_LABELS: Record<CoolantType, string> = { 'water-soluble': 'Water-soluble coolant', oil: 'Cutting oil', dry: 'Dry (no coolant)' };
+
+type Formatter = (value: unknown, names: StockNames, pref: UnitPreference) => string;
+
+const yesNo: Formatter = (v) => (v === true ? 'Yes' : v === false ? 'No' : NO_VALUE);
+const plain: Formatter = (v) => (v === null || v === undefined || v === '' ? NO_VALUE : String(v));
+const quantity =
+  (kind: QuantityKind): Formatter =>
+  (v, _names, pref) =>
+    formatQuantity(v as number | null, kind, pref);
+const withUnit =
+  (unit: string): Formatter =>
+  (v) =>
+    typeof v === 'number' ? `${v} ${unit}` : NO_VALUE;
+const label =
+  <K extends string>(labels: Record<K, string>, none = NO_VALUE): Formatter =>
+  (v) =>
+    v === null || v === undefined ? none : (labels[v as K] ?? String(v));
+const stock =
+  (pick: (n: StockNames) => ReadonlyMap<number, string>, none = NO_VALUE): Formatter =>
+  (v, names) =>
+    typeof v === 'number' ? (pick(names).get(v) ?? `#${v} (unknown)`) : none;
+
+interface ParameterField {
+  path: string;
+  label: string;
+  format: Formatter;
+  /** The unit of a raw number, for when two close values round to the same display text. */
+  unit?: string;
+}
+
+/**
+ * Every parameter of recipeContent, in the editor's order, with its plain-words label.
+ * The hardness window is one parameter ("170–230 HV"), not three. Text fields are compared
+ * word by word instead (TEXT_FIELDS).
+ */
+export const PARAMETER_FIELDS: readonly ParameterField[] = [
+  { path: 'scope.materialId', label: 'Material', format: stock((n) => n.materials, 'Any in the group') },
+  { path: 'scope.group', label: 'Material group', format: label(MATERIAL_GROUP_LABELS) },
+  {
+    path: 'scope.hardness',
+    label: 'Hardness window',
+    format: (v) => {
+      const w = v as { min: number; max: number; scale: string } | null;
+      return w ? `${w.min}–${w.max} ${w.scale}` : 'Not limited';
+    },
+  },
+  { path: 'scope.shape', label: 'Shape', format: label(SHAPE_LABELS) },
+  { path: 'scope.sizeMinMm', label: 'Smallest size', format: quantity('length'), unit: 'mm' },
+  { path: 'scope.sizeMaxMm', label: 'Largest size', format: quantity('length'), unit: 'mm' },
+  { path: 'scope.widthMm', label: 'Width', format: quantity('length'), unit: 'mm' },
+  { path: 'scope.wallMm', label: 'Wall thickness', format: quantity('length'), unit: 'mm' },
+  { path: 'scope.orientation', label: 'Cut orientation', format: label(ORIENTATION_LABELS) },
+  { path: 'scope.orientationNote', label: 'Orientation note', format: plain },
+  { path: 'cutting.machineId', label: 'Machine', format: stock((n) => n.machines) },
+  { path: 'cutting.wheelId', label: 'Wheel', format: stock((n) => n.wheels) },
+  { path: 'cutting.wheelRpm', label: 'Wheel speed', format: quantity('rpm'), unit: 'rpm' },
+  { path: 'cutting.feedMmS', label: 'Feed', format: quantity('feed'), unit: 'mm/s' },
+  { path: 'cutting.entryFeedMmS', label: 'Entry feed', format: quantity('feed'), unit: 'mm/s' },
+  { path: 'cutting.entryLengthMm', label: 'Entry length', format: quantity('length'), unit: 'mm' },
+  { path: 'cutting.cutMotion', label: 'Cut motion', format: label(CUT_MOTION_LABELS) },
+  { path: 'cutting.passes', label: 'Passes', format: (v) => (typeof v === 'number' ? String(v) : 'Single cut') },
+  { path: 'clamping.method', label: 'Clamping method', format: label(CLAMPING_METHOD_LABELS, 'None chosen') },
+  { path: 'clamping.bothSides', label: 'Clamped on both sides of the cut', format: yesNo },
+  { path: 'clamping.softInserts', label: 'Soft inserts', format: yesNo },
+  { path: 'clamping.supportBlocks', label: 'Support blocks', format: yesNo },
+  { path: 'coolant.type', label: 'Coolant', format: label(COOLANT_LABELS) },
+  { path: 'coolant.concentrationPct', label: 'Coolant concentration', format: withUnit('% v/v') },
+  { path: 'coolant.flowLMin', label: 'Coolant flow', format: withUnit('L/min') },
+];
+
+/** The free-text fields, compared word by word. `title` is the version's title, beside the content. */
+export const TEXT_FIELDS: readonly { path: string; label: string }[] = [
+  { path: 'title', label: 'Title' },
+  { path: 'clamping.placement', label: 'Clamp placement' },
+  { path: 'clamping.orientationRule', label: 'Orientation rule' },
+  { path: 'instructionsMd', label: 'Instructions' },
+  { path: 'acceptanceMd', label: 'Acceptance criteria' },
+  { path: 'cautionsMd', label: 'Cautions' },
+  { path: 'changeReason', label: 'Change reason' },
+];
+
+function at(source: unknown, path: string): unknown {
+  let value = source;
+  for (const key of path.split('.')) value = value !== null && typeof value === 'object' ? (value as Record<string, unknown>)[key] : undefined;
+  return value;
+}
+
+/** Stable text of a value for "did it change": key order in objects does not count. */
+function same(a: unknown, b: unknown): boolean {
+  const norm = (v: unknown): unknown =>
+    Array.isArray(v)
+      ? v.map(norm)
+      : v !== null && typeof v === 'object'
+        ? Object.fromEntries(
+            Object.keys(v)
+              .sort()
+              .map((k) => [k, norm((v as Record<string, unknown>)[k])]),
+          )
+        : (v ?? null);
+  return JSON.stringify(norm(a)) === JSON.stringify(norm(b));
+}
+
+/** Every leaf path of a content object (objects walked, arrays and the hardness window kept whole). */
+export function contentLeafPaths(content: unknown, prefix = ''): string[] {
+  if (content === null || typeof content !== 'object' || Array.isArray(content) || prefix === 'scope.hardness') return [prefix];
+  return Object.keys(content).flatMap((key) => contentLeafPaths((content as Record<string, unknown>)[key], prefix ? `${prefix}.${key}` : key));
+}
+
+const KNOWN_PATHS = new Set([...PARAMETER_FIELDS.map((f) => f.path), ...TEXT_FIELDS.map((f) => f.path)]);
+
+export function compareVersions(a: ComparedVersion, b: ComparedVersion, names: StockNames, pref: UnitPreference): VersionComparison {
+  const parameters: ParameterChange[] = [];
+  for (const field of PARAMETER_FIELDS) {
+    const before = at(a.content, field.path);
+    const after = at(b.content, field.path);
+    if (same(before, after)) continue;
+    let shownBefore = field.format(before, names, pref);
+    let shownAfter = field.format(after, names, pref);
+    // Two values that round to the same text (0.301 and 0.304 mm/s): show them unrounded.
+    if (shownBefore === shownAfter && field.unit && typeof before === 'number' && typeof after === 'number') {
+      shownBefore = `${before} ${field.unit}`;
+      shownAfter = `${after} ${field.unit}`;
+    }
+    parameters.push({ path: field.path, label: field.label, before: shownBefore, after: shownAfter });
+  }
+  // A field added to the content schema but not to the tables above still shows, by its path.
+  const extra = new Set([...contentLeafPaths(a.content), ...contentLeafPaths(b.content)].filter((p) => p && !KNOWN_PATHS.has(p)));
+  for (const path of extra) {
+    const before = at(a.content, path);
+    const after = at(b.content, path);
+    if (!same(before, after)) parameters.push({ path, label: path, before: plain(JSON.stringify(before ?? null), names, pref), after: plain(JSON.stringify(after ?? null), names, pref) });
+  }
+
+  const texts: TextChange[] = [];
+  for (const field of TEXT_FIELDS) {
+    const before = String((field.path === 'title' ? a.title : at(a.content, field.path)) ?? '');
+    const after = String((field.path === 'title' ? b.title : at(b.content, field.path)) ?? '');
+    if (before === after) continue;
+    const parts = diffWordsWithSpace(before, after).map((c) => ({ value: c.value, ...(c.added ? { added: true } : {}), ...(c.removed ? { removed: true } : {}) }));
+    texts.push({ path: field.path, label: field.label, parts });
+  }
+
+  return {
+    from: { version: a.version, status: a.status, title: a.title },
+    to: { version: b.version, status: b.status, title: b.title },
+    parameters,
+    texts,
+  };
+}
