@@ -5,12 +5,14 @@
  */
 import * as attachments from './handlers/attachments';
 import * as compare from './handlers/compare';
+import * as compare from './handlers/compare';
 import * as health from './handlers/health';
 import * as recipes from './handlers/recipes';
 import * as selectionRows from './handlers/selection-rows';
 import * as session from './handlers/session';
 import * as settings from './handlers/settings';
 import { machines, materials, wheels } from './handlers/stock';
+import * as trail from './handlers/trail';
 import * as today from './handlers/today';
 import * as trail from './handlers/trail';
 import * as users from './handlers/users';
@@ -78,6 +80,7 @@ export const routes: readonly RouteDefinition[] = [
   { method: 'get', path: '/api/recipes/:id/versions', access: 'signedIn', handler: recipes.versions },
   { method: 'get', path: '/api/recipes/:id/versions/:n', access: 'signedIn', handler: recipes.getVersion },
   { method: 'put', path: '/api/recipes/:id/versions/:n', access: ['author'], handler: recipes.saveDraft },
+  { method: 'get', path: '/api/recipes/:id/compare', access: 'signedIn', handler: compare.versions },
   // Review and approval: one transaction per transition, each checked against the revision seen.
   { method: 'post', path: '/api/recipes/:id/versions', access: ['author'], handler: workflow.newVersion },
   { method: 'post', path: '/api/recipes/:id/versions/:n/submit', access: ['author'], handler: workflow.submit },
@@ -93,6 +96,11 @@ export const routes: readonly RouteDefinition[] = [
   // The stored photos (image and thumbnail).
   { method: 'get', path: '/api/attachments/:id', access: 'signedIn', handler: attachments.image },
   { method: 'get', path: '/api/attachments/:id/thumbnail', access: 'signedIn', handler: attachments.thumbnail },
+
+  // The trail (auditors and admins read it; nobody writes it through the API).
+  { method: 'get', path: '/api/audit-events', access: ['auditor', 'admin'], handler: trail.list },
+  { method: 'get', path: '/api/audit-events.csv', access: ['auditor', 'admin'], handler: trail.csv },
+  { method: 'get', path: '/api/audit-events/verify', access: ['auditor', 'admin'], handler: trail.verify },
 
   // What waits for people: periodic reviews coming due, and the signed-in person's Today lists.
   { method: 'get', path: '/api/reviews/due', access: 'signedIn', handler: workflow.reviewsDue },
