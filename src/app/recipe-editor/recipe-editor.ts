@@ -53,6 +53,8 @@ import { isApiError } from '../core/http/api-error';
 import { callerHandles } from '../core/http/caller-handles';
 import { Notifier } from '../core/notifier/notifier';
 import { Session } from '../core/session/session';
+import { CommentsPanel } from '../review/comments-panel';
+import { WorkflowApi } from '../review/workflow-api';
 import { ConfirmDialog, type ConfirmDialogData } from '../ui/confirm-dialog';
 import { MarkdownView } from '../ui/markdown-view';
 import { RecipeAttachments } from './recipe-attachments';
@@ -142,6 +144,7 @@ function snapshotOf(body: DraftBody): string {
 @Component({
   selector: 'kb-recipe-editor',
   imports: [
+    CommentsPanel,
     LowerCasePipe,
     NgTemplateOutlet,
     MarkdownView,
@@ -172,6 +175,7 @@ export class RecipeEditor implements OnInit, LeavesSafely {
   private readonly destroyRef = inject(DestroyRef);
   private readonly host = inject<ElementRef<HTMLElement>>(ElementRef);
   private readonly fb = inject(NonNullableFormBuilder);
+  private readonly workflow = inject(WorkflowApi);
 
   /** Route parameter: the recipe to edit; absent on /recipes/new. */
   readonly id = input<string>();
@@ -309,6 +313,14 @@ export class RecipeEditor implements OnInit, LeavesSafely {
   protected readonly saveState = signal<SaveState>('idle');
   protected readonly savedAt = signal<Date | null>(null);
   protected readonly formError = signal('');
+  /** Review comments of this version; the panel shows only when there are some. */
+  protected readonly commentCount = signal(0);
+  protected readonly submitting = signal(false);
+  /** Blockers the live checks find now: while any stands the version cannot be submitted. */
+  protected readonly blockers = computed(() => this.checks().filter((c) => c.severity === 'blocker'));
+  protected readonly canSubmit = computed(
+    () => !this.isNew() && !this.lockedReason() && !this.dirty() && this.saveState() === 'idle' && !this.livePending() && this.blockers().length === 0,
+  );
   private readonly valid = signal(false);
   private readonly saves = new Subject<'auto' | 'manual'>();
 
@@ -436,6 +448,29 @@ export class RecipeEditor implements OnInit, LeavesSafely {
       return;
     }
     this.saves.next('manual');
+  }
+
+  /** Sends the saved draft for review, with the revision it was saved at; then shows it on the recipe page. */
+  protected async submitForReview(): Promise<void> {
+    const v = this.version();
+    if (!v || !this.canSubmit()) return;
+    this.formError.set('');
+    this.submitting.set(true);
+    try {
+      const submitted = await firstValueFrom(this.workflow.submit(v.recipeId, v.version, { revision: this.baseRevision() }, callerHandles(409)));
+      this.version.set(submitted);
+      void this.notifier.show(`${submitted.number} version ${submitted.version} is waiting for review.`);
+      void this.router.navigate(['/recipes', submitted.recipeId]);
+    } catch (e) {
+      if (!isApiError(e)) throw e;
+      this.formError.set(
+        e.code === 'BLOCKERS'
+          ? `Not submitted; the server found blockers: ${e.errors.map((x) => x.message).join(' ')}`
+          : 'Not submitted: this draft changed since it was loaded. Reload the page to see the current content.',
+      );
+    } finally {
+      this.submitting.set(false);
+    }
   }
 
   private canAutosave(): boolean {

@@ -2,13 +2,14 @@ import { DatePipe, DecimalPipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, computed, inject, input, signal } from '@angular/core';
 import { takeUntilDestroyed, toObservable } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
+import { MatDialog } from '@angular/material/dialog';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSelectModule } from '@angular/material/select';
 import { MatTabsModule } from '@angular/material/tabs';
 import { Router, RouterLink } from '@angular/router';
-import { type Observable, catchError, distinctUntilChanged, forkJoin, map, of, switchMap } from 'rxjs';
+import { type Observable, catchError, distinctUntilChanged, firstValueFrom, forkJoin, map, of, switchMap } from 'rxjs';
 import { NO_SAFETY_CLAIM } from '../../../shared/cautions';
 import type { CheckResult, CheckSeverity } from '../../../shared/recipe-checks';
 import { computeRecipe } from '../../../shared/recipe-computations';
@@ -25,13 +26,21 @@ import {
 } from '../../../shared/vocabulary';
 import { isApiError } from '../core/http/api-error';
 import { callerHandles } from '../core/http/caller-handles';
+import { Notifier } from '../core/notifier/notifier';
 import { Session } from '../core/session/session';
 import { CutProfilePlot } from '../recipe-editor/cut-profile-plot';
 import { QuantityPipe } from '../stock/quantity';
 import { StockApi } from '../stock/stock-api';
+import { CommentsPanel } from '../review/comments-panel';
+import { ReasonDialog, type ReasonDialogData } from '../review/reason-dialog';
+import { ReviewComments } from '../review/review-comments';
+import { SignatureDialog, type SignatureDialogData, type SignatureDialogResult } from '../review/signature-dialog';
+import { SignatureList } from '../review/signature-list';
+import { WorkflowApi } from '../review/workflow-api';
 import { MarkdownView } from '../ui/markdown-view';
 import { CheckSeverityLabel } from './check-severity-label';
 import { RecipeApi } from './recipe-api';
+import { RecipeHistory } from './recipe-history';
 import { RECIPE_STATUS_INFO, RecipeStatusChip } from './recipe-status-chip';
 import { StandardCautions } from './standard-cautions';
 
@@ -44,6 +53,7 @@ interface StockNames {
 
 const NO_STOCK: StockNames = { material: null, wheel: null, machine: null };
 const SEVERITY_ORDER: Record<CheckSeverity, number> = { blocker: 0, warning: 1, note: 2 };
+const OPEN_STATUSES: readonly RecipeVersionDto['status'][] = ['draft', 'in-review', 'returned'];
 
 const COOLANT_LABELS = { 'water-soluble': 'Water-soluble coolant', oil: 'Cutting oil', dry: 'Dry (no coolant)' } as const;
 const ORIENTATION_LABELS = { transverse: 'Transverse', longitudinal: 'Longitudinal', other: 'Other' } as const;
@@ -54,6 +64,7 @@ const ATTACHMENT_ROLE_LABELS = { setup: 'Setup', 'good-face': 'Good cut face', '
   selector: 'kb-recipe-page',
   imports: [
     CheckSeverityLabel,
+    CommentsPanel,
     CutProfilePlot,
     DatePipe,
     DecimalPipe,
@@ -65,8 +76,11 @@ const ATTACHMENT_ROLE_LABELS = { setup: 'Setup', 'good-face': 'Good cut face', '
     MatSelectModule,
     MatTabsModule,
     QuantityPipe,
+    RecipeHistory,
     RecipeStatusChip,
+    ReviewComments,
     RouterLink,
+    SignatureList,
     StandardCautions,
   ],
   templateUrl: './recipe-page.html',
@@ -78,6 +92,9 @@ export class RecipePage {
   private readonly stock = inject(StockApi);
   private readonly session = inject(Session);
   private readonly router = inject(Router);
+  private readonly workflow = inject(WorkflowApi);
+  private readonly dialog = inject(MatDialog);
+  private readonly notifier = inject(Notifier);
 
   /** Route parameter `:id` (numeric, see numericIdParam). */
   readonly id = input.required<string>();
@@ -88,6 +105,11 @@ export class RecipePage {
   /** Newest first, as the API lists them. */
   protected readonly versions = signal<RecipeVersionDto[]>([]);
   protected readonly stockNames = signal<StockNames>(NO_STOCK);
+  /** Bumped to fetch the versions again after a workflow step. */
+  private readonly reloads = signal(0);
+  protected readonly busy = signal(false);
+  /** Why the last submit was refused (blockers found by the server, or a changed version). */
+  protected readonly submitError = signal<string[]>([]);
 
   protected readonly units = computed(() => this.session.user()?.units ?? 'metric');
   protected readonly version = computed<RecipeVersionDto | null>(() => {
@@ -100,6 +122,28 @@ export class RecipePage {
     const status = this.version()?.status;
     return hasAccess(this.session.roles(), ['author']) && this.isLatest() && (status === 'draft' || status === 'returned');
   });
+  private readonly isAuthor = computed(() => hasAccess(this.session.roles(), ['author']));
+  private readonly isApprover = computed(() => hasAccess(this.session.roles(), ['approver']));
+  /** A version still on its way (draft, in review or returned): a new one cannot be started beside it. */
+  private readonly openVersion = computed(() => this.versions().find((x) => OPEN_STATUSES.includes(x.status)) ?? null);
+  protected readonly canSubmit = computed(() => {
+    const status = this.version()?.status;
+    return this.isAuthor() && this.isLatest() && (status === 'draft' || status === 'returned');
+  });
+  protected readonly blockers = computed(() => this.checks().filter((c) => c.severity === 'blocker'));
+  protected readonly canStartNewVersion = computed(() => {
+    const status = this.version()?.status;
+    return this.isAuthor() && !this.openVersion() && (status === 'approved' || status === 'superseded' || status === 'withdrawn');
+  });
+  protected readonly canReview = computed(() => this.isApprover() && this.version()?.status === 'in-review');
+  protected readonly canWithdraw = computed(() => this.isApprover() && this.version()?.status === 'approved');
+  /** Returned versions put the approver's comments in front of the author. */
+  protected readonly commentsUpFront = computed(() => this.version()?.status === 'returned');
+  protected readonly canComment = computed(() => {
+    const status = this.version()?.status;
+    return hasAccess(this.session.roles(), ['author', 'approver']) && (status === 'in-review' || status === 'returned' || status === 'draft');
+  });
+
   protected readonly computed = computed(() => {
     const version = this.version();
     if (!version) return null;
@@ -129,10 +173,11 @@ export class RecipePage {
   protected readonly noSafetyClaim = NO_SAFETY_CLAIM;
 
   constructor() {
-    toObservable(this.id)
+    toObservable(computed(() => ({ id: this.id(), reload: this.reloads() })))
       .pipe(
-        switchMap((id) => {
-          this.state.set('loading');
+        switchMap(({ id, reload }) => {
+          // A reload after a workflow step keeps the page on screen while it fetches.
+          if (!reload) this.state.set('loading');
           // A recipe that does not exist gets its own message on this page, not a snack bar.
           return this.api.versions(Number(id), callerHandles(404)).pipe(
             map((versions) => ({ versions, state: versions.length ? ('ready' as const) : ('missing' as const) })),
@@ -174,6 +219,80 @@ export class RecipePage {
   protected showVersion(version: number): void {
     const newest = this.versions()[0]?.version;
     void this.router.navigate(['/recipes', this.id()], { queryParams: version === newest ? {} : { v: version } });
+  }
+
+  protected async submitForReview(): Promise<void> {
+    const v = this.version();
+    if (!v || this.blockers().length) return;
+    this.submitError.set([]);
+    this.busy.set(true);
+    try {
+      const submitted = await firstValueFrom(this.workflow.submit(v.recipeId, v.version, { revision: v.revision }, callerHandles(409)));
+      this.replace(submitted);
+      void this.notifier.show(`${submitted.number} version ${submitted.version} is waiting for review.`);
+    } catch (e) {
+      if (!isApiError(e)) throw e;
+      this.submitError.set(
+        e.code === 'BLOCKERS'
+          ? ['The server found blockers; fix them in the editor and submit again:', ...e.errors.map((x) => x.message)]
+          : ['This version changed since you opened it; reload to see the current content.'],
+      );
+    } finally {
+      this.busy.set(false);
+    }
+  }
+
+  protected async startNewVersion(): Promise<void> {
+    const v = this.version();
+    if (!v) return;
+    const created = await firstValueFrom(
+      this.dialog
+        .open<ReasonDialog, ReasonDialogData, RecipeVersionDto>(ReasonDialog, {
+          data: {
+            title: `Start version ${this.versions()[0].version + 1} of ${v.number}`,
+            intro: [`The new draft starts as a copy of version ${v.version}. Version ${v.version} stays as it is until the new one is approved.`],
+            label: 'Change reason',
+            maxLength: 1000,
+            confirmLabel: 'Start the new version',
+            fieldPath: 'changeReason',
+            send: (changeReason) => this.workflow.newVersion(v.recipeId, { fromVersion: v.version, changeReason }, callerHandles(400, 409)),
+          },
+          width: '560px',
+        })
+        .afterClosed(),
+    );
+    if (created) void this.router.navigate(['/recipes', created.recipeId, 'edit']);
+  }
+
+  protected async withdraw(): Promise<void> {
+    const v = this.version();
+    if (!v) return;
+    const result = await firstValueFrom(
+      this.dialog
+        .open<SignatureDialog, SignatureDialogData, SignatureDialogResult>(SignatureDialog, {
+          data: { meaning: 'withdrawn', version: v },
+          width: '600px',
+          maxWidth: '95vw',
+        })
+        .afterClosed(),
+    );
+    if (result === 'reload') {
+      this.reloads.update((n) => n + 1);
+    } else if (result) {
+      this.replace(result);
+      void this.notifier.show(`${result.number} version ${result.version} is withdrawn.`);
+    }
+  }
+
+  protected reload(): void {
+    this.submitError.set([]);
+    this.reloads.update((n) => n + 1);
+  }
+
+  /** Puts the server's answer in place of the version it updates, and fetches the rest again (a step can change other versions). */
+  private replace(updated: RecipeVersionDto): void {
+    this.versions.update((list) => list.map((x) => (x.version === updated.version ? updated : x)));
+    this.reloads.update((n) => n + 1);
   }
 
   private orNull<T>(request: Observable<T>): Observable<T | null> {

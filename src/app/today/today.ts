@@ -1,19 +1,139 @@
 import { ChangeDetectionStrategy, Component, computed, inject } from '@angular/core';
+import { toSignal } from '@angular/core/rxjs-interop';
 import { MatIconModule } from '@angular/material/icon';
-import { ROLE_INFO } from '../../../shared/roles';
+import { MatProgressBarModule } from '@angular/material/progress-bar';
+import { RouterLink } from '@angular/router';
+import { catchError, map, of, startWith } from 'rxjs';
+import type { RecipeSummary, TodayDto } from '../../../shared/recipe-types';
+import { ROLE_INFO, type Role, hasAccess } from '../../../shared/roles';
 import { Session } from '../core/session/session';
+import { RecipeStatusChip } from '../recipe/recipe-status-chip';
+import { WorkflowApi } from '../review/workflow-api';
 
-/** Home page: who you are here and what you may do. Per-role work lists come later. */
+/** One line of a Today list: where it leads and what it says. */
+interface TodayItem {
+  key: string;
+  link: unknown[];
+  query: Record<string, number>;
+  number: string;
+  title: string;
+  version: number | null;
+  status: RecipeSummary['status'] | null;
+  /** A short fact beside the title (due date, count of flagged cuts, machine). */
+  detail: string;
+}
+
+interface TodayList {
+  id: keyof TodayDto;
+  title: string;
+  icon: string;
+  empty: string;
+  items: TodayItem[];
+}
+
+type Load = { state: 'loading' } | { state: 'failed' } | { state: 'ready'; today: TodayDto };
+
+const recipeItem = (r: RecipeSummary, detail: string): TodayItem => ({
+  key: `${r.id}-${r.version}`,
+  link: ['/recipes', r.id],
+  query: { v: r.version },
+  number: r.number,
+  title: r.title,
+  version: r.version,
+  status: r.status,
+  detail,
+});
+
+/** Home page: who you are here, and the work waiting for each of your roles (design section 7). */
 @Component({
   selector: 'kb-today',
-  imports: [MatIconModule],
+  imports: [MatIconModule, MatProgressBarModule, RecipeStatusChip, RouterLink],
   templateUrl: './today.html',
   styleUrl: './today.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class Today {
   private readonly session = inject(Session);
+  private readonly api = inject(WorkflowApi);
 
   protected readonly displayName = computed(() => this.session.user()?.displayName ?? '');
   protected readonly roles = computed(() => this.session.roles().map((role) => ({ role, ...ROLE_INFO[role] })));
+
+  protected readonly load = toSignal(
+    this.api.today().pipe(
+      map((today): Load => ({ state: 'ready', today })),
+      // The error interceptor has said why; the page keeps the greeting and roles.
+      catchError(() => of<Load>({ state: 'failed' })),
+      startWith<Load>({ state: 'loading' }),
+    ),
+    { requireSync: true },
+  );
+
+  protected readonly lists = computed<TodayList[]>(() => {
+    const load = this.load();
+    if (load.state !== 'ready') return [];
+    const t = load.today;
+    const has = (...roles: Role[]) => hasAccess(this.session.roles(), roles);
+    const lists: TodayList[] = [];
+    if (has('author')) {
+      lists.push({
+        id: 'myDrafts',
+        title: 'My drafts',
+        icon: 'edit_note',
+        empty: 'You have no open drafts.',
+        items: t.myDrafts.map((r) => recipeItem(r, `changed ${shortDate(r.updatedAt)}`)),
+      });
+    }
+    if (has('approver')) {
+      lists.push({
+        id: 'waitingForMyReview',
+        title: 'Waiting for my review',
+        icon: 'rate_review',
+        empty: 'Nothing is waiting for your review.',
+        items: t.waitingForMyReview.map((r) => ({ ...recipeItem(r, r.machineName), link: ['/recipes', r.id, 'review'] })),
+      });
+    }
+    if (has('author', 'approver')) {
+      lists.push({
+        id: 'reviewsDue',
+        title: 'Reviews due',
+        icon: 'event_repeat',
+        empty: 'No periodic review falls due in the next 60 days.',
+        items: t.reviewsDue.map((r) => recipeItem(r, `review due ${r.reviewDueOn}`)),
+      });
+    }
+    const operator = has('operator');
+    if (t.flaggedCuts.length || operator) {
+      lists.push({
+        id: 'flaggedCuts',
+        title: 'Cuts flagged by operators',
+        icon: 'flag',
+        empty: 'No cut has been flagged.',
+        items: t.flaggedCuts.map((f) => ({
+          key: `flag-${f.recipeId}`,
+          link: ['/recipes', f.recipeId],
+          query: {},
+          number: f.number,
+          title: f.title,
+          version: null,
+          status: null,
+          detail: f.count === 1 ? '1 flagged cut' : `${f.count} flagged cuts`,
+        })),
+      });
+    }
+    if (t.toAcknowledge.length || operator) {
+      lists.push({
+        id: 'toAcknowledge',
+        title: 'Versions to acknowledge',
+        icon: 'task_alt',
+        empty: 'No new version is waiting for your acknowledgement.',
+        items: t.toAcknowledge.map((r) => recipeItem(r, r.machineName)),
+      });
+    }
+    return lists;
+  });
+}
+
+function shortDate(iso: string): string {
+  return new Date(iso).toLocaleDateString('en-GB', { day: 'numeric', month: 'short', year: 'numeric', timeZone: 'UTC' });
 }
