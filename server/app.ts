@@ -17,6 +17,7 @@ import { securityHeaders } from './web/security-headers';
 import { sessionMiddleware } from './web/session-cookie';
 import { SessionStore } from './web/session-store';
 import { spa } from './web/spa';
+import { startSupersessionTimer } from './services/supersession';
 
 export interface AppDeps {
   config: Config;
@@ -29,6 +30,11 @@ export interface AppDeps {
   extraApiRouter?: Router;
   /** How often expired sessions are deleted; 0 turns it off. Default one hour. */
   sessionCleanupIntervalMs?: number;
+  /**
+   * How often approved versions whose effective day has come are made current (and their
+   * predecessors superseded); 0 turns it off. Default one minute. Safe in every process.
+   */
+  supersessionIntervalMs?: number;
   /** Where server faults are logged. Default console.error. */
   log?: (...args: unknown[]) => void;
 }
@@ -37,7 +43,7 @@ export interface KerfbookApp {
   app: Express;
   /** Resolves when the session store has checked its table; listen only after it. */
   ready: Promise<void>;
-  /** Stops the app's background work (session clean-up). Does not close the database. */
+  /** Stops the app's background work (session clean-up, supersession). Does not close the database. */
   close(): void;
 }
 
@@ -76,6 +82,16 @@ export function createApp(deps: AppDeps): KerfbookApp {
   app.use(spa(config.distDir));
   app.use(errorHandler(deps.log));
 
+  const supersessionMs = deps.supersessionIntervalMs ?? 60 * 1000;
+  const stopSupersession = supersessionMs > 0 ? startSupersessionTimer(db, supersessionMs, deps.log) : () => undefined;
+
   const ready = store.ready.then(() => undefined);
-  return { app, ready, close: () => store.stopCleanup() };
+  return {
+    app,
+    ready,
+    close: () => {
+      store.stopCleanup();
+      stopSupersession();
+    },
+  };
 }

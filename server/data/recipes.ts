@@ -8,6 +8,8 @@ export interface RecipeRow {
   number: string;
   title: string;
   latest_version_id: number | null;
+  /** The approved version in use today (review migration); null when none is. */
+  current_version_id?: number | null;
   created_by: number;
   created_at: Date;
   updated_at: Date;
@@ -41,6 +43,14 @@ export interface VersionRow extends VersionContentValues {
   updated_by: number;
   created_at: Date;
   updated_at: Date;
+  /** Workflow columns (review migration); null until the step happens. */
+  submitted_at?: Date | null;
+  /** UTC calendar days (DATE columns, read as midnight UTC). */
+  effective_from?: Date | null;
+  review_due_on?: Date | null;
+  superseded_at?: Date | null;
+  withdrawn_at?: Date | null;
+  withdrawn_reason?: string | null;
 }
 
 /** A version with what its DTO needs from other tables. */
@@ -115,7 +125,10 @@ export async function saveDraftRow(
   return db('recipe_versions')
     .where({ id: versionId, revision: expectedRevision })
     .whereIn('status', ['draft', 'returned'])
-    .update({ ...values, status: 'draft', revision: db.raw('revision + 1') });
+    // A returned version keeps the hash of what was reviewed until this edit: the edit makes
+    // it a draft again and clears the hash in the same statement (the freeze trigger allows
+    // exactly that step).
+    .update({ ...values, status: 'draft', content_hash: null, revision: db.raw('revision + 1') });
 }
 
 export interface RecipeListFilter {

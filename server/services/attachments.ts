@@ -10,6 +10,7 @@ import { text } from '../../shared/schemas/numbers';
 import { AppError } from '../app-error';
 import { deleteAttachmentRow, findAttachmentMeta, insertAttachment, readAttachmentBytes, type AttachmentMetaRow } from '../data/attachments';
 import { findVersion, type VersionWithNames } from '../data/recipes';
+import { touchEditor } from '../data/workflow';
 import type { Actor } from './actor';
 import { AUDIT_EVENTS, recordAudit } from './audit';
 import { acceptImage, type Upload } from './image-intake';
@@ -72,6 +73,8 @@ export async function addAttachment(db: Knex, actor: Actor, recipeId: number, ve
       upload.bytes,
       image.thumbnail,
     );
+    // Changing a version's photos is editing it: that person may not approve it.
+    await touchEditor(trx, locked.id, userId, now);
     await recordAudit(
       trx,
       actor,
@@ -98,6 +101,7 @@ export async function deleteAttachment(db: Knex, actor: Actor, recipeId: number,
     const meta = await findAttachmentMeta(trx, attachmentId);
     if (!meta || meta.version_id !== row.id) throw AppError.notFound(`Version ${version} of ${row.number} has no attachment ${attachmentId}.`);
     await deleteAttachmentRow(trx, attachmentId);
+    if (actor.userId !== null) await touchEditor(trx, row.id, actor.userId, new Date());
     await recordAudit(trx, actor, {
       type: AUDIT_EVENTS.attachmentDeleted,
       entityType: 'attachment',

@@ -1,10 +1,36 @@
 /** Version rows and attachment rows as the API returns them. */
 import type { CheckResult } from '../../shared/recipe-checks';
-import type { AttachmentDto, RecipeSummary, RecipeVersionDto } from '../../shared/recipe-types';
+import type { AttachmentDto, RecipeSummary, RecipeVersionDto, VersionWorkflowDto } from '../../shared/recipe-types';
 import type { RecipeContent } from '../../shared/schemas/recipe';
 import type { MaterialGroup, Shape } from '../../shared/vocabulary';
 import type { AttachmentMetaRow } from '../data/attachments';
 import type { RecipeSummaryRow, VersionWithNames } from '../data/recipes';
+import type { EditorRow, SignatureRow } from '../data/workflow';
+import { dayOf } from './calendar-dates';
+import { toSignatureDto } from './signatures';
+
+/** The rows of other tables a version's workflow facts come from (for one or many versions). */
+export interface WorkflowRows {
+  signatures: readonly SignatureRow[];
+  editors: readonly EditorRow[];
+}
+
+const NO_WORKFLOW_ROWS: WorkflowRows = { signatures: [], editors: [] };
+
+const iso = (value: Date | null | undefined): string | null => (value ? new Date(value).toISOString() : null);
+
+export function toVersionWorkflow(row: VersionWithNames, rows: WorkflowRows): VersionWorkflowDto {
+  return {
+    signatures: rows.signatures.filter((s) => s.version_id === row.id).map(toSignatureDto),
+    effectiveFrom: dayOf(row.effective_from),
+    reviewDueOn: dayOf(row.review_due_on),
+    submittedAt: iso(row.submitted_at),
+    supersededAt: iso(row.superseded_at),
+    withdrawnAt: iso(row.withdrawn_at),
+    withdrawnReason: row.withdrawn_reason ?? null,
+    editorIds: rows.editors.filter((e) => e.version_id === row.id).map((e) => e.user_id),
+  };
+}
 
 export function toAttachmentDto(row: AttachmentMetaRow): AttachmentDto {
   return {
@@ -22,7 +48,7 @@ export function toAttachmentDto(row: AttachmentMetaRow): AttachmentDto {
   };
 }
 
-export function toVersionDto(row: VersionWithNames, attachments: readonly AttachmentMetaRow[]): RecipeVersionDto {
+export function toVersionDto(row: VersionWithNames, attachments: readonly AttachmentMetaRow[], workflow: WorkflowRows = NO_WORKFLOW_ROWS): RecipeVersionDto {
   return {
     recipeId: row.recipe_id,
     number: row.number,
@@ -38,6 +64,7 @@ export function toVersionDto(row: VersionWithNames, attachments: readonly Attach
     createdAt: new Date(row.created_at).toISOString(),
     updatedAt: new Date(row.updated_at).toISOString(),
     attachments: attachments.filter((a) => a.version_id === row.id).map(toAttachmentDto),
+    workflow: toVersionWorkflow(row, workflow),
   };
 }
 

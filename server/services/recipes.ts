@@ -25,6 +25,7 @@ import {
   updateRecipeRow,
   type VersionContentValues,
 } from '../data/recipes';
+import { listEditorRows, listSignatureRows, touchEditor } from '../data/workflow';
 import type { Actor } from './actor';
 import { AUDIT_EVENTS, recordAudit } from './audit';
 import { canonicalJson } from './canonical-json';
@@ -61,7 +62,7 @@ function hardnessHv(content: RecipeContent, ctx: RecipeContext): { min: number |
 }
 
 /** The columns a save writes, all derived from the content and its context. */
-function contentValues(title: string, content: RecipeContent, ctx: RecipeContext): VersionContentValues {
+export function contentValues(title: string, content: RecipeContent, ctx: RecipeContext): VersionContentValues {
   const checks = runChecks(content, ctx);
   const hv = hardnessHv(content, ctx);
   return {
@@ -81,16 +82,18 @@ function contentValues(title: string, content: RecipeContent, ctx: RecipeContext
   };
 }
 
-async function versionDto(db: Knex, recipeId: number, version: number): Promise<RecipeVersionDto> {
+/** One version as the API returns it, with photos and workflow facts; 404 when it does not exist. */
+export async function versionDto(db: Knex, recipeId: number, version: number): Promise<RecipeVersionDto> {
   const row = await findVersion(db, recipeId, version);
   if (!row) {
     const recipe = await findRecipeRow(db, recipeId);
     throw AppError.notFound(recipe ? `Recipe ${recipe.number} has no version ${version}.` : `There is no recipe with id ${recipeId}.`);
   }
-  return toVersionDto(row, await listAttachmentMetaRows(db, [row.id]));
+  const [attachments, signatures, editors] = await Promise.all([listAttachmentMetaRows(db, [row.id]), listSignatureRows(db, [row.id]), listEditorRows(db, [row.id])]);
+  return toVersionDto(row, attachments, { signatures, editors });
 }
 
-function requireActor(actor: Actor): number {
+export function requireActor(actor: Actor): number {
   if (actor.userId === null) throw new Error('Recipes are written by a signed-in person.');
   return actor.userId;
 }
@@ -116,6 +119,7 @@ export async function createRecipe(db: Knex, actor: Actor, body: CreateRecipeBod
       updated_at: now,
     });
     await updateRecipeRow(trx, id, { latest_version_id: versionId });
+    await touchEditor(trx, versionId, userId, now);
     await recordAudit(
       trx,
       actor,
@@ -158,8 +162,9 @@ export async function listRecipes(db: Knex, query: RecipeListQuery): Promise<Pag
 export async function listVersions(db: Knex, recipeId: number): Promise<RecipeVersionDto[]> {
   const rows = await listVersionRows(db, recipeId);
   if (rows.length === 0) throw AppError.notFound(`There is no recipe with id ${recipeId}.`);
-  const attachments = await listAttachmentMetaRows(db, rows.map((r) => r.id));
-  return rows.map((row) => toVersionDto(row, attachments));
+  const ids = rows.map((r) => r.id);
+  const [attachments, signatures, editors] = await Promise.all([listAttachmentMetaRows(db, ids), listSignatureRows(db, ids), listEditorRows(db, ids)]);
+  return rows.map((row) => toVersionDto(row, attachments, { signatures, editors }));
 }
 
 export function getVersion(db: Knex, recipeId: number, version: number): Promise<RecipeVersionDto> {
@@ -209,6 +214,8 @@ export async function saveDraft(db: Knex, actor: Actor, recipeId: number, versio
     const now = new Date();
     const changed = await saveDraftRow(trx, before.id, body.revision, { ...values, updated_by: userId, updated_at: now });
     if (changed !== 1) return false;
+    // Whoever saves a version has edited it, and may never approve it.
+    await touchEditor(trx, before.id, userId, now);
     const recipe = await findRecipeRow(trx, recipeId);
     if (recipe?.latest_version_id === before.id) await updateRecipeRow(trx, recipeId, { title: body.title, updated_at: now });
     const contentKeys = changedKeys(JSON.parse(before.content_json) as Record<string, unknown>, JSON.parse(values.content_json) as Record<string, unknown>);

@@ -5,14 +5,12 @@
  */
 import * as attachments from './handlers/attachments';
 import * as compare from './handlers/compare';
-import * as compare from './handlers/compare';
 import * as health from './handlers/health';
 import * as recipes from './handlers/recipes';
 import * as selectionRows from './handlers/selection-rows';
 import * as session from './handlers/session';
 import * as settings from './handlers/settings';
 import { machines, materials, wheels } from './handlers/stock';
-import * as trail from './handlers/trail';
 import * as today from './handlers/today';
 import * as trail from './handlers/trail';
 import * as users from './handlers/users';
@@ -89,7 +87,6 @@ export const routes: readonly RouteDefinition[] = [
   { method: 'post', path: '/api/recipes/:id/versions/:n/withdraw', access: ['approver'], handler: workflow.withdraw },
   { method: 'get', path: '/api/recipes/:id/versions/:n/comments', access: 'signedIn', handler: workflow.listComments },
   { method: 'post', path: '/api/recipes/:id/versions/:n/comments', access: ['author', 'approver'], handler: workflow.addComment },
-  { method: 'get', path: '/api/recipes/:id/compare', access: 'signedIn', handler: compare.versions },
   { method: 'post', path: '/api/recipes/:id/versions/:n/attachments', access: ['author'], handler: attachments.upload, multipart: true },
   { method: 'delete', path: '/api/recipes/:id/versions/:n/attachments/:attachmentId', access: ['author'], handler: attachments.remove },
 
@@ -105,9 +102,4 @@ export const routes: readonly RouteDefinition[] = [
   // What waits for people: periodic reviews coming due, and the signed-in person's Today lists.
   { method: 'get', path: '/api/reviews/due', access: 'signedIn', handler: workflow.reviewsDue },
   { method: 'get', path: '/api/today', access: 'signedIn', handler: today.today },
-
-  // The trail (auditors and admins read it; nobody writes it through the API).
-  { method: 'get', path: '/api/audit-events', access: ['auditor', 'admin'], handler: trail.list },
-  { method: 'get', path: '/api/audit-events.csv', access: ['auditor', 'admin'], handler: trail.csv },
-  { method: 'get', path: '/api/audit-events/verify', access: ['auditor', 'admin'], handler: trail.verify },
 ];

@@ -36,6 +36,8 @@ export async function buildTestApp(
     config: testConfig(options.config),
     db,
     sessionCleanupIntervalMs: 0,
+    // Tests run the supersession job themselves, with a chosen `now`.
+    supersessionIntervalMs: 0,
     ...(options.extraApiRouter ? { extraApiRouter: options.extraApiRouter } : {}),
     ...(options.log ? { log: options.log } : {}),
   });

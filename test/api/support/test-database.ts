@@ -30,6 +30,9 @@ export async function closeTestDb(): Promise<void> {
 
 /** Tables a test file may fill, children first. lab_settings keeps its migrated row. */
 const TABLES = [
+  'signatures',
+  'review_comments',
+  'recipe_version_editors',
   'attachments',
   'recipe_versions',
   'recipes',
@@ -45,10 +48,17 @@ const TABLES = [
 ];
 
 export async function resetTables(db: Knex): Promise<void> {
-  // recipes ↔ recipe_versions point at each other: cut the recipe's pointer first.
-  await db('recipes').update({ latest_version_id: null });
-  // The trail refuses DELETE (append-only triggers); TRUNCATE fires no triggers.
-  for (const table of TABLES) await (table === 'audit_events' ? db.raw('TRUNCATE TABLE audit_events') : db(table).del());
+  // TRUNCATE, not DELETE: the database refuses deleting submitted versions, signatures and
+  // other append-only rows (triggers), and TRUNCATE fires no triggers. It needs the foreign
+  // key checks off, which is per connection: a transaction keeps the statements on one.
+  await db.transaction(async (trx) => {
+    await trx.raw('SET FOREIGN_KEY_CHECKS = 0');
+    try {
+      for (const table of TABLES) await trx.raw('TRUNCATE TABLE ??', [table]);
+    } finally {
+      await trx.raw('SET FOREIGN_KEY_CHECKS = 1');
+    }
+  });
   await db('recipe_number_counter').update({ last_number: 0 });
   // The trail starts again from nothing: its chain head too, or the first new event would
   // link to a row that no longer exists (and the verification would rightly say so).

@@ -1,0 +1,50 @@
+import { z } from 'zod';
+import { idParam } from '../../../shared/schemas/fields';
+import { approveBody, commentBody, newVersionBody, returnBody, submitBody, withdrawBody } from '../../../shared/schemas/workflow';
+import * as comments from '../../services/review-comments';
+import { listReviewsDue } from '../../services/today';
+import * as workflow from '../../services/workflow';
+import type { RouteHandler } from '../route-definition';
+import { bodyOf, idOf, parse } from './parse';
+import { actorOf } from './request-actor';
+
+const versionParams = z.object({ id: idParam, n: idParam });
+
+export const submit: RouteHandler = async (req, res, { db }) => {
+  const { id, n } = parse(versionParams, req.params);
+  res.json(await workflow.submitVersion(db, actorOf(req), id, n, parse(submitBody, bodyOf(req.body))));
+};
+
+export const returnToAuthor: RouteHandler = async (req, res, { db }) => {
+  const { id, n } = parse(versionParams, req.params);
+  res.json(await workflow.returnVersion(db, actorOf(req), id, n, parse(returnBody, bodyOf(req.body))));
+};
+
+export const approve: RouteHandler = async (req, res, { db }) => {
+  const { id, n } = parse(versionParams, req.params);
+  res.json(await workflow.approveVersion(db, actorOf(req), id, n, parse(approveBody, bodyOf(req.body))));
+};
+
+export const withdraw: RouteHandler = async (req, res, { db }) => {
+  const { id, n } = parse(versionParams, req.params);
+  res.json(await workflow.withdrawVersion(db, actorOf(req), id, n, parse(withdrawBody, bodyOf(req.body))));
+};
+
+export const newVersion: RouteHandler = async (req, res, { db }) => {
+  const id = idOf(req.params);
+  res.status(201).json(await workflow.createNextVersion(db, actorOf(req), id, parse(newVersionBody, bodyOf(req.body))));
+};
+
+export const listComments: RouteHandler = async (req, res, { db }) => {
+  const { id, n } = parse(versionParams, req.params);
+  res.json(await comments.listComments(db, id, n));
+};
+
+export const addComment: RouteHandler = async (req, res, { db }) => {
+  const { id, n } = parse(versionParams, req.params);
+  res.status(201).json(await comments.addComment(db, actorOf(req), id, n, parse(commentBody, bodyOf(req.body))));
+};
+
+export const reviewsDue: RouteHandler = async (_req, res, { db }) => {
+  res.json(await listReviewsDue(db));
+};
