@@ -160,6 +160,11 @@ describe('RecipeEditor', () => {
     await afterLoad();
     await vi.waitFor(() => expect(root.querySelector('form.kb-form')).not.toBeNull());
     await fixture.whenStable();
+    // The review comments of a saved version; none here, so their panel stays hidden.
+    if (id) {
+      (await vi.waitFor(() => backend.expectOne({ method: 'GET', url: `/api/recipes/${id}/versions/${versions[0]?.version ?? 1}/comments` }))).flush([]);
+      await fixture.whenStable();
+    }
   }
 
   afterEach(() => {

@@ -6,7 +6,7 @@ import { TestbedHarnessEnvironment } from '@angular/cdk/testing/testbed';
 import { MatTabGroupHarness } from '@angular/material/tabs/testing';
 import { Router, provideRouter, withComponentInputBinding } from '@angular/router';
 import { RouterTestingHarness } from '@angular/router/testing';
-import type { RecipeVersionDto } from '../../../shared/recipe-types';
+import type { RecipeVersionDto, SignatureDto, VersionWorkflowDto } from '../../../shared/recipe-types';
 import type { Role } from '../../../shared/roles';
 import { aMachine, aMaterial, aRecipeVersion, aWheel } from '../../testing/stock-and-recipe-fixtures';
 import { aUser } from '../../testing/user-fixture';
@@ -87,7 +87,10 @@ describe('RecipePage', () => {
     return harness.routeNativeElement!;
   }
 
-  afterEach(() => backend.verify());
+  afterEach(() => {
+    backend.verify();
+    document.querySelectorAll('.cdk-overlay-container').forEach((el) => (el.innerHTML = ''));
+  });
 
   it('shows the newest version with its header, stock names and tabs', async () => {
     await open('/recipes/3');
@@ -101,7 +104,7 @@ describe('RecipePage', () => {
     expect(header).toContain('Version 2 ');
     const tabs = await TestbedHarnessEnvironment.loader(harness.fixture).getHarness(MatTabGroupHarness);
     const labels = await Promise.all((await tabs.getTabs()).map((t) => t.getLabel()));
-    expect(labels.map((l) => l.replace(/\d+/g, '').trim())).toEqual(['Parameters', 'Computed', 'Checks', 'Instructions', 'Attachments ()']);
+    expect(labels.map((l) => l.replace(/\d+/g, '').trim())).toEqual(['Parameters', 'Computed', 'Checks', 'Instructions', 'Attachments ()', 'Comments', 'History']);
 
     const parameters = root().querySelector('.kb-cards')!.textContent!;
     expect(parameters).toContain('Tempered chromium-molybdenum steel');
@@ -175,5 +178,185 @@ describe('RecipePage', () => {
     await harness.fixture.whenStable();
     expect(root().querySelector('h1')!.textContent).toBe('Recipe not found');
     expect(TestBed.inject(Notifier).show).not.toHaveBeenCalled();
+  });
+
+  describe('workflow', () => {
+    const signature: SignatureDto = {
+      id: 40,
+      signerName: 'Tomas Berg',
+      signerId: 9,
+      meaning: 'approved',
+      comment: 'Fine for the bench saws.',
+      signedAt: '2026-11-03T14:05:00.000Z',
+      contentHash: 'c0ffee'.repeat(10) + 'abcd',
+    };
+    const workflow = (overrides: Partial<VersionWorkflowDto> = {}): VersionWorkflowDto => ({
+      signatures: [],
+      effectiveFrom: null,
+      reviewDueOn: null,
+      submittedAt: null,
+      supersededAt: null,
+      withdrawnAt: null,
+      withdrawnReason: null,
+      editorIds: [7],
+      ...overrides,
+    });
+    const approvedV1 = aRecipeVersion({
+      version: 1,
+      status: 'approved',
+      workflow: workflow({ signatures: [signature], submittedAt: '2026-11-01T09:00:00.000Z', effectiveFrom: '2026-11-04', reviewDueOn: '2028-11-04' }),
+    });
+    const cleanDraft = aRecipeVersion({ version: 2, status: 'draft', revision: 6, contentHash: null, checks: [], workflow: workflow() });
+
+    function button(name: RegExp): HTMLButtonElement | undefined {
+      return Array.from(root().querySelectorAll<HTMLButtonElement>('header button, header a')).find((b) => name.test(b.textContent ?? '')) as
+        | HTMLButtonElement
+        | undefined;
+    }
+
+    it('shows every signature in the header: printed name, UTC date and time, meaning, comment and short content hash', async () => {
+      await open('/recipes/3', ['operator']);
+      await answerVersions([approvedV1]);
+      await answerStock();
+
+      const item = root().querySelector('header .kb-signature')!;
+      const text = item.textContent!.replace(/\s+/g, ' ');
+      expect(text).toContain('Approved by Tomas Berg on 3 Nov 2026, 14:05 UTC');
+      expect(text).toContain('I have reviewed this version and approve it for use');
+      expect(text).toContain('“Fine for the bench saws.”');
+      expect(item.querySelector('code')!.textContent).toBe('c0ffeec0ffee…');
+      expect(item.querySelector('code')!.getAttribute('title')).toBe(signature.contentHash);
+      expect(root().querySelector('[data-testid="workflow-facts"]')!.textContent).toContain('Effective from 2026-11-04');
+      // An operator gets no workflow action.
+      expect(button(/Submit for review|Start a new version|Review|Withdraw/)).toBeUndefined();
+    });
+
+    it('keeps "Submit for review" disabled and lists the blockers while they stand', async () => {
+      await open('/recipes/3');
+      await answerVersions([draft, approved]);
+      await answerStock();
+
+      expect(button(/Submit for review/)!.disabled).toBe(true);
+      const blockers = root().querySelector('[data-testid="submit-blockers"]')!.textContent!;
+      expect(blockers).toContain('The wheel would run at 94 m/s; it is marked for 80 m/s.');
+      expect(blockers).not.toContain('Feed 0.5 mm/s');
+    });
+
+    it('submits a blocker-free draft with the revision the author saw, and shows the answer', async () => {
+      await open('/recipes/3');
+      await answerVersions([cleanDraft, approvedV1]);
+      await answerStock();
+
+      button(/Submit for review/)!.click();
+      const submit = await vi.waitFor(() => backend.expectOne({ method: 'POST', url: '/api/recipes/3/versions/2/submit' }));
+      expect(submit.request.body).toEqual({ revision: 6 });
+      submit.flush({ ...cleanDraft, status: 'in-review', revision: 7, workflow: workflow({ submittedAt: '2026-11-20T08:00:00.000Z' }) });
+      (await vi.waitFor(() => backend.expectOne({ method: 'GET', url: '/api/recipes/3/versions' }))).flush([
+        { ...cleanDraft, status: 'in-review', revision: 7 },
+        approvedV1,
+      ]);
+      await harness.fixture.whenStable();
+      expect(root().querySelector('header kb-recipe-status-chip')!.textContent).toContain('In review');
+      expect(button(/Submit for review/)).toBeUndefined();
+    });
+
+    it('lists the blockers the server names when it refuses the submission', async () => {
+      await open('/recipes/3');
+      await answerVersions([cleanDraft, approvedV1]);
+      await answerStock();
+
+      button(/Submit for review/)!.click();
+      (await vi.waitFor(() => backend.expectOne({ method: 'POST', url: '/api/recipes/3/versions/2/submit' }))).flush(
+        { code: 'BLOCKERS', errors: [{ path: 'cutting.machineId', message: 'No machine is chosen.' }] },
+        { status: 409, statusText: 'Conflict' },
+      );
+      await harness.fixture.whenStable();
+      expect(root().querySelector('[data-testid="submit-error"]')!.textContent).toContain('No machine is chosen.');
+      expect(TestBed.inject(Notifier).show).not.toHaveBeenCalled();
+    });
+
+    it('offers an approver "Review" on a version in review and "Withdraw…" on an approved one, and no author action', async () => {
+      const inReview = aRecipeVersion({ version: 2, status: 'in-review', workflow: workflow({ submittedAt: '2026-11-20T08:00:00.000Z' }) });
+      await open('/recipes/3', ['approver']);
+      await answerVersions([inReview, approvedV1]);
+      await answerStock();
+
+      expect(root().querySelector('header a[href="/recipes/3/review?v=2"]')!.textContent).toContain('Review');
+      expect(button(/Withdraw/)).toBeUndefined();
+      expect(button(/Submit for review|Start a new version/)).toBeUndefined();
+
+      await harness.navigateByUrl('/recipes/3?v=1');
+      await harness.fixture.whenStable();
+      expect(button(/Withdraw/)).toBeDefined();
+      expect(root().querySelector('header a[href^="/recipes/3/review"]')).toBeNull();
+    });
+
+    it('starts a new version from an approved one with a change reason and opens the editor', async () => {
+      await open('/recipes/3');
+      await answerVersions([approvedV1]);
+      await answerStock();
+
+      button(/Start a new version/)!.click();
+      await harness.fixture.whenStable();
+      const dialog = await vi.waitFor(() => {
+        const el = document.querySelector<HTMLElement>('kb-reason-dialog');
+        expect(el).not.toBeNull();
+        return el!;
+      });
+      // The change reason is required: nothing is sent without it.
+      dialog.querySelector<HTMLButtonElement>('button[type="submit"]')!.click();
+      await harness.fixture.whenStable();
+      backend.expectNone({ method: 'POST', url: '/api/recipes/3/versions' });
+      expect(dialog.querySelector('[data-testid="text-error"]')!.textContent).toContain('required');
+
+      const reason = dialog.querySelector<HTMLTextAreaElement>('textarea')!;
+      reason.value = 'Slower feed for the harder batch.';
+      reason.dispatchEvent(new Event('input'));
+      dialog.querySelector<HTMLButtonElement>('button[type="submit"]')!.click();
+      const create = await vi.waitFor(() => backend.expectOne({ method: 'POST', url: '/api/recipes/3/versions' }));
+      expect(create.request.body).toEqual({ fromVersion: 1, changeReason: 'Slower feed for the harder batch.' });
+      create.flush(aRecipeVersion({ version: 2, status: 'draft', contentHash: null }), { status: 201, statusText: 'Created' });
+      await vi.waitFor(() => expect(router.url).toBe('/recipes/3/edit'));
+    });
+
+    it('puts the approver’s comments in front of the author on a returned version', async () => {
+      const returned = aRecipeVersion({ version: 2, status: 'returned', contentHash: 'd'.repeat(64), workflow: workflow() });
+      await open('/recipes/3');
+      await answerVersions([returned, approvedV1]);
+      await answerStock();
+      (await vi.waitFor(() => backend.expectOne({ method: 'GET', url: '/api/recipes/3/versions/2/comments' }))).flush([
+        { id: 1, authorName: 'Tomas Berg', authorId: 9, body: 'Feed is too high for this hardness.', path: '', createdAt: '2026-11-21T10:00:00.000Z' },
+      ]);
+      await harness.fixture.whenStable();
+      const panel = root().querySelector('[data-testid="returned-comments"]')!;
+      expect(panel.textContent).toContain('Returned with comments');
+      expect(panel.textContent).toContain('Feed is too high for this hardness.');
+      expect(panel.textContent).toContain('Tomas Berg');
+    });
+
+    it('lists every version in the History tab with its signatures and a link to compare with the one before', async () => {
+      const superseded = aRecipeVersion({ version: 1, status: 'superseded', workflow: workflow({ signatures: [signature], supersededAt: '2026-12-01T00:00:00.000Z' }) });
+      const current = aRecipeVersion({
+        version: 2,
+        status: 'approved',
+        content: { ...approvedV1.content, changeReason: 'Slower feed for the harder batch.' },
+        workflow: workflow({ signatures: [{ ...signature, id: 41, signedAt: '2026-12-01T09:30:00.000Z' }] }),
+      });
+      await open('/recipes/3', ['auditor']);
+      await answerVersions([current, superseded]);
+      await answerStock();
+      const tabs = await TestbedHarnessEnvironment.loader(harness.fixture).getHarness(MatTabGroupHarness);
+      await tabs.selectTab({ label: 'History' });
+      await harness.fixture.whenStable();
+
+      const items = Array.from(root().querySelectorAll<HTMLElement>('.kb-history-item'));
+      expect(items.map((i) => i.dataset['version'])).toEqual(['2', '1']);
+      expect(items[0].textContent).toContain('Slower feed for the harder batch.');
+      expect(items[0].textContent).toContain('1 Dec 2026, 09:30 UTC');
+      expect(Array.from(items[0].querySelectorAll('a')).map((a) => a.getAttribute('href'))).toContain('/recipes/3/compare?from=1&to=2');
+      expect(items[1].textContent).toContain('Superseded');
+      expect(items[1].querySelector('a[href="/recipes/3?v=1"]')).not.toBeNull();
+      expect(items[1].querySelector('a[href*="compare"]')).toBeNull();
+    });
   });
 });

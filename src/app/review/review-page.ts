@@ -29,7 +29,7 @@ import { formatMetric } from '../stock/quantity';
 import { StockApi } from '../stock/stock-api';
 import type { MachineRecord, MaterialRecord, WheelRecord } from '../../../shared/stock-types';
 import { MarkdownView } from '../ui/markdown-view';
-import { ComparisonSummary } from './comparison-summary';
+import { ComparisonView } from '../compare/comparison-view';
 import { ReasonDialog, type ReasonDialogData } from './reason-dialog';
 import { ReviewComments } from './review-comments';
 import { SignatureDialog, type SignatureDialogData, type SignatureDialogResult } from './signature-dialog';
@@ -64,7 +64,7 @@ export function comparisonBase(versions: readonly RecipeVersionDto[], shown: Rec
   selector: 'kb-review-page',
   imports: [
     CheckSeverityLabel,
-    ComparisonSummary,
+    ComparisonView,
     DatePipe,
     MarkdownView,
     MatButtonModule,
