@@ -198,7 +198,7 @@ function stale(dto: RecipeVersionDto): AppError {
  * so of two saves based on the same revision exactly one lands; the other gets 409 with
  * the version as it is now. A returned version becomes a draft again (design 4).
  */
-export async function saveDraft(db: Knex, actor: Actor, recipeId: number, version: number, body: SaveDraftBody): Promise<RecipeVersionDto> {
+export async function saveDraft(db: Knex, actor: Actor, recipeId: number, version: number, body: SaveDraftBody, at = new Date()): Promise<RecipeVersionDto> {
   const userId = requireActor(actor);
   const before = await findVersion(db, recipeId, version);
   if (!before) return versionDto(db, recipeId, version); // throws the right 404
@@ -211,7 +211,7 @@ export async function saveDraft(db: Knex, actor: Actor, recipeId: number, versio
     // `before` must be the revision the editor started from, or its content is not what
     // the editor changed: then the save is stale whatever the UPDATE would say.
     if (before.revision !== body.revision) return false;
-    const now = new Date();
+    const now = at;
     const changed = await saveDraftRow(trx, before.id, body.revision, { ...values, updated_by: userId, updated_at: now });
     if (changed !== 1) return false;
     // Whoever saves a version has edited it, and may never approve it.
