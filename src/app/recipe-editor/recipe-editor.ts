@@ -319,7 +319,7 @@ export class RecipeEditor implements OnInit, LeavesSafely {
   /** Blockers the live checks find now: while any stands the version cannot be submitted. */
   protected readonly blockers = computed(() => this.checks().filter((c) => c.severity === 'blocker'));
   protected readonly canSubmit = computed(
-    () => !this.isNew() && !this.lockedReason() && !this.dirty() && this.saveState() === 'idle' && !this.livePending() && this.blockers().length === 0,
+    () => this.version()?.status === 'draft' && !this.lockedReason() && !this.dirty() && this.saveState() === 'idle' && !this.livePending() && this.blockers().length === 0,
   );
   private readonly valid = signal(false);
   private readonly saves = new Subject<'auto' | 'manual'>();

@@ -126,10 +126,8 @@ export class RecipePage {
   private readonly isApprover = computed(() => hasAccess(this.session.roles(), ['approver']));
   /** A version still on its way (draft, in review or returned): a new one cannot be started beside it. */
   private readonly openVersion = computed(() => this.versions().find((x) => OPEN_STATUSES.includes(x.status)) ?? null);
-  protected readonly canSubmit = computed(() => {
-    const status = this.version()?.status;
-    return this.isAuthor() && this.isLatest() && (status === 'draft' || status === 'returned');
-  });
+  /** Only drafts go to review: a returned version becomes a draft again when its author edits it. */
+  protected readonly canSubmit = computed(() => this.isAuthor() && this.isLatest() && this.version()?.status === 'draft');
   protected readonly blockers = computed(() => this.checks().filter((c) => c.severity === 'blocker'));
   protected readonly canStartNewVersion = computed(() => {
     const status = this.version()?.status;

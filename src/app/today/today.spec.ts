@@ -1,0 +1,99 @@
+import { provideHttpClient, withInterceptors } from '@angular/common/http';
+import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
+import { signal } from '@angular/core';
+import { type ComponentFixture, TestBed } from '@angular/core/testing';
+import { provideRouter } from '@angular/router';
+import type { TodayDto } from '../../../shared/recipe-types';
+import type { Role } from '../../../shared/roles';
+import { aRecipeSummary } from '../../testing/stock-and-recipe-fixtures';
+import { aUser } from '../../testing/user-fixture';
+import { errorInterceptor } from '../core/http/error-interceptor';
+import { Notifier } from '../core/notifier/notifier';
+import { Session } from '../core/session/session';
+import { Today } from './today';
+
+describe('Today', () => {
+  let fixture: ComponentFixture<Today>;
+  let backend: HttpTestingController;
+  let root: HTMLElement;
+
+  const lists: TodayDto = {
+    myDrafts: [aRecipeSummary({ id: 4, number: 'KB-0004', title: 'Brass fittings, longitudinal', version: 1, status: 'draft' })],
+    waitingForMyReview: [aRecipeSummary({ id: 5, number: 'KB-0005', title: 'Cast iron brake discs', version: 3, status: 'in-review' })],
+    reviewsDue: [{ ...aRecipeSummary({ id: 3, version: 2, status: 'approved' }), reviewDueOn: '2027-01-20' }],
+    flaggedCuts: [],
+    toAcknowledge: [],
+  };
+
+  async function open(roles: Role[], answer: TodayDto = lists): Promise<void> {
+    TestBed.configureTestingModule({
+      imports: [Today],
+      providers: [
+        provideRouter([]),
+        provideHttpClient(withInterceptors([errorInterceptor])),
+        provideHttpClientTesting(),
+        { provide: Session, useValue: { user: signal(aUser({ roles })), roles: signal(roles), clear: vi.fn() } },
+        { provide: Notifier, useValue: { show: vi.fn() } },
+      ],
+    });
+    backend = TestBed.inject(HttpTestingController);
+    fixture = TestBed.createComponent(Today);
+    root = fixture.nativeElement;
+    await fixture.whenStable();
+    backend.expectOne({ method: 'GET', url: '/api/today' }).flush(answer);
+    await fixture.whenStable();
+  }
+
+  afterEach(() => backend.verify());
+
+  function shownLists(): string[] {
+    return Array.from(root.querySelectorAll<HTMLElement>('[data-list]')).map((el) => el.dataset['list']!);
+  }
+
+  function list(id: string): HTMLElement {
+    return root.querySelector<HTMLElement>(`[data-list="${id}"]`)!;
+  }
+
+  it('keeps the greeting and the roles', async () => {
+    await open(['author']);
+    expect(root.querySelector('h1')!.textContent).toBe('Hello, Ragna Lindqvist');
+    expect(root.querySelector('.kb-roles')!.textContent).toContain('Author');
+  });
+
+  it('shows an author their drafts and the reviews due, linking to the recipe', async () => {
+    await open(['author']);
+    expect(shownLists()).toEqual(['myDrafts', 'reviewsDue']);
+    const draft = list('myDrafts').querySelector('a')!;
+    expect(draft.textContent).toContain('KB-0004');
+    expect(draft.textContent).toContain('Brass fittings, longitudinal');
+    expect(draft.getAttribute('href')).toBe('/recipes/4?v=1');
+    expect(list('reviewsDue').textContent).toContain('review due 2027-01-20');
+  });
+
+  it('shows an approver what waits for their review, linking to the review screen', async () => {
+    await open(['approver']);
+    expect(shownLists()).toEqual(['waitingForMyReview', 'reviewsDue']);
+    const item = list('waitingForMyReview').querySelector('a')!;
+    expect(item.getAttribute('href')).toBe('/recipes/5/review?v=3');
+    expect(item.textContent).toContain('Cast iron brake discs');
+    expect(list('waitingForMyReview').querySelector('kb-recipe-status-chip')!.textContent).toContain('In review');
+  });
+
+  it('says so when a list is empty', async () => {
+    await open(['approver'], { ...lists, waitingForMyReview: [] });
+    expect(list('waitingForMyReview').textContent).toContain('Nothing is waiting for your review.');
+  });
+
+  it('gives an operator the flagged cuts and the versions to acknowledge, each with an empty line when empty', async () => {
+    await open(['operator'], { ...lists, toAcknowledge: [aRecipeSummary({ id: 6, number: 'KB-0006', version: 4 })] });
+    expect(shownLists()).toEqual(['flaggedCuts', 'toAcknowledge']);
+    expect(list('flaggedCuts').textContent).toContain('No cut has been flagged.');
+    expect(list('toAcknowledge').querySelector('a')!.getAttribute('href')).toBe('/recipes/6?v=4');
+  });
+
+  it('shows flagged cuts to others only when there are some', async () => {
+    await open(['author'], { ...lists, flaggedCuts: [{ recipeId: 3, number: 'KB-0003', title: 'Tempered bar, transverse', count: 2 }] });
+    expect(shownLists()).toEqual(['myDrafts', 'reviewsDue', 'flaggedCuts']);
+    expect(list('flaggedCuts').textContent).toContain('2 flagged cuts');
+  });
+});
