@@ -91,6 +91,12 @@ describe('ComparisonView', () => {
     expect(root.querySelector('table')).toBeNull();
   });
 
+  it('says a side is empty instead of showing a blank box', async () => {
+    const root = await render({ ...comparison, parameters: [], texts: [{ path: 'changeReason', label: 'Change reason', parts: [{ value: 'Feed lowered', added: true }] }] });
+    expect(root.querySelector('[data-testid="old-text"]')?.textContent).toBe('empty');
+    expect(visibleText(root.querySelector('[data-testid="new-text"] ins')!)).toBe('Feed lowered');
+  });
+
   it('shows an emptied value as "none" rather than a blank cell', async () => {
     const root = await render({ ...comparison, parameters: [{ path: 'cutting.coolantNote', label: 'Coolant note', before: 'Check the mix daily', after: '' }], texts: [] });
     const cells = Array.from(root.querySelectorAll('tbody td')).map((td) => td.textContent?.trim());

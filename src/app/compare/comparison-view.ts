@@ -25,6 +25,9 @@ interface TextDiffView {
   after: Run[];
   added: number;
   removed: number;
+  /** A side with no text at all says so instead of showing an empty box. */
+  beforeEmpty: boolean;
+  afterEmpty: boolean;
 }
 
 function toView(change: TextChange): TextDiffView {
@@ -34,14 +37,19 @@ function toView(change: TextChange): TextDiffView {
   }));
   const words = (kind: Run['kind']) =>
     all.filter((run) => run.kind === kind).reduce((n, run) => n + (run.value.match(/\S+/g)?.length ?? 0), 0);
+  const before = all.filter((run) => run.kind !== 'added');
+  const after = all.filter((run) => run.kind !== 'removed');
+  const blank = (runs: Run[]) => runs.every((run) => run.value.trim() === '');
   return {
     path: change.path,
     label: change.label,
     all,
-    before: all.filter((run) => run.kind !== 'added'),
-    after: all.filter((run) => run.kind !== 'removed'),
+    before,
+    after,
     added: words('added'),
     removed: words('removed'),
+    beforeEmpty: blank(before),
+    afterEmpty: blank(after),
   };
 }
 

@@ -1,7 +1,9 @@
 /** How many changed keys a trail row shows before "and N more". */
 const SHOWN_LINES = 3;
 /** A value longer than this is cut in the row; the detail shows it whole. */
-const VALUE_CHARS = 48;
+const VALUE_CHARS = 40;
+/** A SHA-256 (or similar) in hex: its first characters are enough to tell it apart in a row. */
+const HEX_DIGEST = /^[0-9a-f]{32,}$/i;
 
 /** A before → after pair of one event, cut down to a few lines for the table. */
 export interface ChangeSummary {
@@ -20,8 +22,15 @@ export function shortValue(value: unknown): string {
   let text: string;
   if (value === undefined || value === null || value === '') text = '—';
   else if (Array.isArray(value)) text = value.every((v) => typeof v !== 'object') ? value.join(', ') || '—' : JSON.stringify(value);
-  else if (typeof value === 'object') text = JSON.stringify(value);
+  else if (typeof value === 'object') {
+    const entries = Object.entries(value as Record<string, unknown>);
+    // A flat object (a hardness range, a size) reads better as its pairs than as JSON.
+    text = entries.every(([, v]) => v === null || typeof v !== 'object')
+      ? entries.map(([k, v]) => `${k} ${v ?? '—'}`).join(', ')
+      : JSON.stringify(value);
+  }
   else text = String(value);
+  if (HEX_DIGEST.test(text)) return `${text.slice(0, 12)}…`;
   return text.length > VALUE_CHARS ? `${text.slice(0, VALUE_CHARS - 1)}…` : text;
 }
 
@@ -47,7 +56,12 @@ export function summariseChange(before: unknown, after: unknown): ChangeSummary 
   const keys = [...new Set([...Object.keys(before), ...Object.keys(after)])];
   const lines = keys
     .filter((key) => JSON.stringify(before[key]) !== JSON.stringify(after[key]))
-    .map((key) => `${key}: ${shortValue(before[key])} → ${shortValue(after[key])}`);
+    .flatMap((key) => {
+      const [from, to] = [shortValue(before[key]), shortValue(after[key])];
+      if (from !== to) return [`${key}: ${from} → ${to}`];
+      // Absent and empty read the same in a row; a long value cut the same way is still a change.
+      return from === '—' ? [] : [`${key}: changed (see the detail)`];
+    });
   return { kind: lines.length ? 'changed' : 'none', ...cut(lines) };
 }
 

@@ -110,7 +110,7 @@ describe('Trail', () => {
     expect(cells[0].querySelector('.kb-sub')?.textContent).toBe('#900');
     expect(cells[1].textContent?.trim()).toMatch(/^Ines Author\s+user 4$/);
     expect(cells[2].textContent?.trim()).toBe('recipe.draft_saved');
-    expect(cells[3].textContent?.trim()).toBe('Recipe version 17');
+    expect(cells[3].textContent?.trim()).toBe('Recipe version · id 17');
     expect(Array.from(cells[4].querySelectorAll('.kb-change-line')).map((line) => line.textContent)).toEqual([
       'revision: 3 → 4',
       'status: returned → draft',

@@ -1,5 +1,5 @@
 import { DatePipe } from '@angular/common';
-import { ChangeDetectionStrategy, Component, computed, effect, inject, signal, untracked } from '@angular/core';
+import { ChangeDetectionStrategy, Component, type ElementRef, computed, effect, inject, signal, untracked, viewChild } from '@angular/core';
 import { takeUntilDestroyed, toObservable, toSignal } from '@angular/core/rxjs-interop';
 import { NonNullableFormBuilder, ReactiveFormsModule } from '@angular/forms';
 import { MatAutocompleteModule } from '@angular/material/autocomplete';
@@ -29,6 +29,14 @@ export const TRAIL_TYPING_DEBOUNCE_MS = 400;
 const SUGGESTED_TYPES = [
   'recipe.created',
   'recipe.draft_saved',
+  'recipe.version_submitted',
+  'recipe.version_returned',
+  'recipe.version_approved',
+  'recipe.version_effective',
+  'recipe.version_superseded',
+  'recipe.version_withdrawn',
+  'recipe.version_created',
+  'recipe.review_comment_added',
   'attachment.added',
   'attachment.deleted',
   'material.created',
@@ -103,6 +111,8 @@ export class Trail {
   protected readonly params = toSignal(this.route.queryParamMap.pipe(map(readTrailParams)), {
     initialValue: readTrailParams(this.route.snapshot.queryParamMap),
   });
+
+  private readonly tableTop = viewChild<ElementRef<HTMLElement>>('tableTop');
 
   protected readonly columns = ['occurredAt', 'actor', 'type', 'what', 'change', 'detail'];
   /** Admins may list people; an auditor types a user id instead. */
@@ -207,10 +217,17 @@ export class Trail {
   protected olderEvents(): void {
     const next = this.page().nextBefore;
     if (next !== null) this.navigate({ ...this.params(), before: next });
+    this.scrollToTable();
   }
 
   protected newestEvents(): void {
     this.navigate({ ...this.params(), before: null });
+    this.scrollToTable();
+  }
+
+  /** "Older events" sits below the list: bring the new page's first row into view. */
+  private scrollToTable(): void {
+    this.tableTop()?.nativeElement.scrollIntoView?.({ block: 'start' });
   }
 
   protected clearFilters(): void {
@@ -266,7 +283,7 @@ export class Trail {
 
   private describeEntity(event: AuditEventDto): string {
     const label = ENTITY_LABELS[event.entityType] ?? event.entityType;
-    return event.entityId ? `${label} ${event.entityId}` : label;
+    return event.entityId ? `${label} · id ${event.entityId}` : label;
   }
 
   private applyFilters(): void {
