@@ -36,6 +36,7 @@ import { ReasonDialog, type ReasonDialogData } from '../review/reason-dialog';
 import { ReviewComments } from '../review/review-comments';
 import { SignatureDialog, type SignatureDialogData, type SignatureDialogResult } from '../review/signature-dialog';
 import { SignatureList } from '../review/signature-list';
+import { utcToday } from '../review/signature-meaning';
 import { WorkflowApi } from '../review/workflow-api';
 import { MarkdownView } from '../ui/markdown-view';
 import { CheckSeverityLabel } from './check-severity-label';
@@ -169,6 +170,8 @@ export class RecipePage {
   protected readonly orientationLabel = ORIENTATION_LABELS;
   protected readonly attachmentRoleLabel = ATTACHMENT_ROLE_LABELS;
   protected readonly noSafetyClaim = NO_SAFETY_CLAIM;
+  /** YYYY-MM-DD (UTC), to tell an approved version that is not yet current. */
+  protected readonly today = utcToday();
 
   constructor() {
     toObservable(computed(() => ({ id: this.id(), reload: this.reloads() })))

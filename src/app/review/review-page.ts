@@ -249,7 +249,14 @@ export class ReviewPage {
     const rows = [
       { label: 'Material', value: c.scope.materialId ? (stock.material?.name ?? `Material ${c.scope.materialId}`) : 'Any material of the group' },
       { label: 'Material group', value: MATERIAL_GROUP_LABELS[c.scope.group] },
-      { label: 'Hardness', value: c.scope.hardness ? `${c.scope.hardness.min}–${c.scope.hardness.max} ${c.scope.hardness.scale}` : 'not given' },
+      {
+        label: 'Hardness',
+        value: c.scope.hardness
+          ? `${c.scope.hardness.min}–${c.scope.hardness.max} ${c.scope.hardness.scale}`
+          : stock.material?.hardness
+            ? `${stock.material.hardness.value} ${stock.material.hardness.scale} (the material's)`
+            : 'not given',
+      },
       { label: 'Shape and size', value: `${SHAPE_LABELS[c.scope.shape]}, ${formatMetric(c.scope.sizeMinMm, 'mm', units)} – ${formatMetric(c.scope.sizeMaxMm, 'mm', units)}` },
       {
         label: 'Machine',

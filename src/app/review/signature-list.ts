@@ -34,8 +34,8 @@ import { SIGNATURE_MEANING_INFO } from './signature-meaning';
           </li>
         }
       </ul>
-    } @else if (showEmpty()) {
-      <p class="kb-sig-none">Not signed yet.</p>
+    } @else if (emptyText()) {
+      <p class="kb-sig-none">{{ emptyText() }}</p>
     }
   `,
   styles: `
@@ -89,8 +89,8 @@ import { SIGNATURE_MEANING_INFO } from './signature-meaning';
 })
 export class SignatureList {
   readonly signatures = input.required<readonly SignatureDto[]>();
-  /** Say "Not signed yet" instead of showing nothing. */
-  readonly showEmpty = input(false);
+  /** Said when there is no signature; nothing is shown when empty. */
+  readonly emptyText = input('');
 
   protected readonly meaning = SIGNATURE_MEANING_INFO;
 }
