@@ -163,6 +163,24 @@ export interface RecipeSummaryRow {
 }
 
 /** The library: each recipe with its latest version, filtered and sorted on indexed columns. */
+/** The columns of a library row (recipes r, versions v, materials m, machines mc, wheels w). */
+export const SUMMARY_COLUMNS = [
+  'r.id',
+  'r.number',
+  'v.title',
+  'v.version',
+  'v.status',
+  'v.material_group',
+  'm.name as material_name',
+  'v.shape',
+  'v.size_min_mm',
+  'v.size_max_mm',
+  'mc.name as machine_name',
+  'w.name as wheel_name',
+  'v.worst_check',
+  'v.updated_at',
+] as const;
+
 export async function listRecipeSummaryRows(db: Knex, filter: RecipeListFilter): Promise<{ rows: RecipeSummaryRow[]; total: number }> {
   const base = db('recipes as r')
     .join('recipe_versions as v', 'v.id', 'r.latest_version_id')
@@ -184,22 +202,7 @@ export async function listRecipeSummaryRows(db: Knex, filter: RecipeListFilter):
   const [{ total }] = (await base.clone().count<{ total: number }[]>({ total: '*' })) as [{ total: number }];
   const rows = (await base
     .clone()
-    .select(
-      'r.id',
-      'r.number',
-      'v.title',
-      'v.version',
-      'v.status',
-      'v.material_group',
-      'm.name as material_name',
-      'v.shape',
-      'v.size_min_mm',
-      'v.size_max_mm',
-      'mc.name as machine_name',
-      'w.name as wheel_name',
-      'v.worst_check',
-      'v.updated_at',
-    )
+    .select(...SUMMARY_COLUMNS)
     .orderBy(filter.sortColumn, filter.dir)
     .orderBy('r.id', filter.dir)
     .limit(filter.pageSize)

@@ -11,7 +11,7 @@
 import type { Knex } from 'knex';
 import type { RecipeStatus } from '../../shared/vocabulary';
 import type { SignatureMeaning } from '../../shared/schemas/workflow';
-import type { RecipeSummaryRow, VersionRow } from './recipes';
+import { SUMMARY_COLUMNS, type RecipeSummaryRow, type VersionRow } from './recipes';
 
 export interface LockedRecipe {
   id: number;
@@ -201,20 +201,7 @@ function summaries(db: Knex, join: 'latest' | 'current') {
     .join('machines as mc', 'mc.id', 'v.machine_id')
     .join('wheels as w', 'w.id', 'v.wheel_id')
     .select(
-      'r.id',
-      'r.number',
-      'v.title',
-      'v.version',
-      'v.status',
-      'v.material_group',
-      'm.name as material_name',
-      'v.shape',
-      'v.size_min_mm',
-      'v.size_max_mm',
-      'mc.name as machine_name',
-      'w.name as wheel_name',
-      'v.worst_check',
-      'v.updated_at',
+      ...SUMMARY_COLUMNS,
       'v.id as version_id',
       'v.review_due_on',
     );
