@@ -173,3 +173,52 @@ export interface TodayDto {
   flaggedCuts: { recipeId: number; number: string; title: string; count: number }[];
   toAcknowledge: RecipeSummary[];
 }
+
+/** One finder hit: the current approved version of a recipe and why it matches. */
+export interface FinderHit {
+  summary: RecipeSummary;
+  /** Higher is better; hits come sorted by it. */
+  score: number;
+  /** Plain words, e.g. "Material: 42CrMo4 alloy steel", "Size 30 mm within 20–60 mm". */
+  reasons: string[];
+}
+
+/** GET /api/check/:code — what a printed sheet's code says now. */
+export interface CheckCodeResult {
+  code: string;
+  recipeId: number;
+  number: string;
+  title: string;
+  version: number;
+  /** The printed version's state: current (approved and in force), pending (approved, not yet effective), superseded, withdrawn. */
+  state: 'current' | 'pending' | 'superseded' | 'withdrawn';
+  /** The version in force now, when there is one and it is not this one. */
+  currentVersion: number | null;
+  /** One sentence for the person at the saw. */
+  message: string;
+}
+
+export interface CutRecordDto {
+  id: number;
+  recipeId: number;
+  number: string;
+  version: number;
+  specimenId: string;
+  partRef: string;
+  quantity: number;
+  outcome: import('./schemas/operator').CutOutcome;
+  notes: string;
+  operatorId: number;
+  operatorName: string;
+  /** ISO 8601 UTC. */
+  cutAt: string;
+  /** Set when the author has looked at a flagged (not good) cut. */
+  flagClearedAt: string | null;
+}
+
+/** GET /api/cuts?specimenId= — a cut with the version's parameters, for traceability. */
+export interface CutTrace {
+  cut: CutRecordDto;
+  versionContent: import('./schemas/recipe').RecipeContent;
+  signatures: SignatureDto[];
+}
