@@ -1,7 +1,14 @@
+import { inject } from '@angular/core';
 import type { Routes } from '@angular/router';
+import type { Role } from '../../shared/roles';
 import { type AccessData, accessGuard } from './core/session/access-guard';
+import { Session } from './core/session/session';
 import { unsavedChangesGuard } from './recipe-editor/unsaved-changes-guard';
 import { numericIdParam } from './recipe/numeric-id-param';
+
+function isOnlyOperator(roles: readonly Role[]): boolean {
+  return roles.length > 0 && roles.every((r) => r === 'operator');
+}
 
 /**
  * The one route table. Every route declares who may open it in `data.access` (public,
@@ -21,7 +28,8 @@ export const routes: Routes = [
     data: { access: 'signedIn' } satisfies AccessData,
     loadComponent: () => import('./core/shell/shell').then((m) => m.Shell),
     children: [
-      { path: '', pathMatch: 'full', redirectTo: 'today' },
+      // A person who only runs the saw starts at the finder; everyone else at Today.
+      { path: '', pathMatch: 'full', redirectTo: () => (isOnlyOperator(inject(Session).roles()) ? 'finder' : 'today') },
       {
         path: 'today',
         title: 'Today · Kerfbook',
@@ -77,6 +85,35 @@ export const routes: Routes = [
         canActivate: [accessGuard],
         data: { access: 'signedIn' } satisfies AccessData,
         loadComponent: () => import('./recipe/recipe-page').then((m) => m.RecipePage),
+      },
+      {
+        path: 'finder',
+        title: 'Find a recipe · Kerfbook',
+        canActivate: [accessGuard],
+        data: { access: 'signedIn' } satisfies AccessData,
+        loadComponent: () => import('./finder/finder').then((m) => m.Finder),
+      },
+      {
+        // The QR code on a bench sheet points here; signed-out visitors come back after signing in.
+        path: 'check/:code',
+        title: 'Check a sheet · Kerfbook',
+        canActivate: [accessGuard],
+        data: { access: 'signedIn' } satisfies AccessData,
+        loadComponent: () => import('./check/check-page').then((m) => m.CheckPage),
+      },
+      {
+        path: 'check',
+        title: 'Check a sheet · Kerfbook',
+        canActivate: [accessGuard],
+        data: { access: 'signedIn' } satisfies AccessData,
+        loadComponent: () => import('./check/check-page').then((m) => m.CheckPage),
+      },
+      {
+        path: 'cuts',
+        title: 'Trace a specimen · Kerfbook',
+        canActivate: [accessGuard],
+        data: { access: 'signedIn' } satisfies AccessData,
+        loadComponent: () => import('./cuts/specimen-trace').then((m) => m.SpecimenTrace),
       },
       {
         path: 'stock',

@@ -6,7 +6,7 @@ import { TestbedHarnessEnvironment } from '@angular/cdk/testing/testbed';
 import { MatTabGroupHarness } from '@angular/material/tabs/testing';
 import { Router, provideRouter, withComponentInputBinding } from '@angular/router';
 import { RouterTestingHarness } from '@angular/router/testing';
-import type { RecipeVersionDto, SignatureDto, VersionWorkflowDto } from '../../../shared/recipe-types';
+import type { CutRecordDto, RecipeVersionDto, SignatureDto, VersionWorkflowDto } from '../../../shared/recipe-types';
 import type { Role } from '../../../shared/roles';
 import { aMachine, aMaterial, aRecipeVersion, aWheel } from '../../testing/stock-and-recipe-fixtures';
 import { aUser } from '../../testing/user-fixture';
@@ -104,7 +104,7 @@ describe('RecipePage', () => {
     expect(header).toContain('Version 2 ');
     const tabs = await TestbedHarnessEnvironment.loader(harness.fixture).getHarness(MatTabGroupHarness);
     const labels = await Promise.all((await tabs.getTabs()).map((t) => t.getLabel()));
-    expect(labels.map((l) => l.replace(/\d+/g, '').trim())).toEqual(['Parameters', 'Computed', 'Checks', 'Instructions', 'Attachments ()', 'Comments', 'History']);
+    expect(labels.map((l) => l.replace(/\d+/g, '').trim())).toEqual(['Parameters', 'Computed', 'Checks', 'Instructions', 'Attachments ()', 'Comments', 'History', 'Cuts']);
 
     const parameters = root().querySelector('.kb-cards')!.textContent!;
     expect(parameters).toContain('Tempered chromium-molybdenum steel');
@@ -357,6 +357,76 @@ describe('RecipePage', () => {
       expect(items[1].textContent).toContain('Superseded');
       expect(items[1].querySelector('a[href="/recipes/3?v=1"]')).not.toBeNull();
       expect(items[1].querySelector('a[href*="compare"]')).toBeNull();
+    });
+  });
+
+  describe('operator station', () => {
+    const cut: CutRecordDto = {
+      id: 71,
+      recipeId: 3,
+      number: 'KB-0003',
+      version: 1,
+      specimenId: 'SP-2026-118',
+      partRef: 'Heat 44817',
+      quantity: 2,
+      outcome: 'burnt',
+      notes: 'Blue tint on the lower half of the face.',
+      operatorId: 12,
+      operatorName: 'Kofi Mensah',
+      cutAt: '2026-11-30T14:05:00.000Z',
+      flagClearedAt: null,
+    };
+
+    it('offers an operator the bench sheet and Log a cut on the version in force', async () => {
+      await open('/recipes/3', ['operator']);
+      await answerVersions([approved]);
+      await answerStock();
+      const sheet = root().querySelector<HTMLAnchorElement>('[data-testid="print-sheet"]')!;
+      expect(sheet.textContent).toContain('Print bench sheet');
+      expect(sheet.getAttribute('href')).toBe('/api/recipes/3/versions/1/sheet.pdf');
+      expect(sheet.getAttribute('target')).toBe('_blank');
+      const buttons = Array.from(root().querySelectorAll('header button')).map((b) => b.textContent!.trim());
+      expect(buttons.some((b) => b.endsWith('Log a cut'))).toBe(true);
+    });
+
+    it('has no bench sheet for a draft and no Log a cut for an author', async () => {
+      await open('/recipes/3', ['author']);
+      await answerVersions([aRecipeVersion({ version: 2, status: 'draft' }), approved]);
+      await answerStock();
+      expect(root().querySelector('[data-testid="print-sheet"]')).toBeNull();
+      expect(root().textContent).not.toContain('Log a cut');
+    });
+
+    it('opens the Cuts tab from ?tab=cuts on the version in force and lists its cuts', async () => {
+      await open('/recipes/3?tab=cuts', ['author']);
+      await answerVersions([aRecipeVersion({ version: 2, status: 'draft' }), approved]);
+      await answerStock();
+      (await vi.waitFor(() => backend.expectOne({ method: 'GET', url: '/api/recipes/3/versions/1/cuts' }))).flush([
+        cut,
+        { ...cut, id: 70, specimenId: 'SP-2026-117', outcome: 'good', notes: '', partRef: '' },
+      ]);
+      await harness.fixture.whenStable();
+
+      const rows = Array.from(root().querySelectorAll<HTMLElement>('tr[data-cut]'));
+      expect(rows.map((r) => r.dataset['cut'])).toEqual(['71', '70']);
+      const first = rows[0].textContent!;
+      expect(first).toContain('30 Nov 2026, 14:05');
+      expect(first).toContain('SP-2026-118');
+      expect(first).toContain('Heat 44817');
+      expect(first).toContain('Discoloured or burnt');
+      expect(first).toContain('Kofi Mensah');
+      expect(first).toContain('Blue tint on the lower half of the face.');
+      expect(rows[1].textContent).toContain('Good');
+      expect(root().querySelector('[data-testid="cuts-csv"]')!.getAttribute('href')).toBe('/api/recipes/3/versions/1/cuts.csv');
+
+      const seen = rows[0].querySelector('button')!;
+      expect(seen.getAttribute('aria-label')).toBe('Mark the cut of specimen SP-2026-118 as seen');
+      expect(rows[1].querySelector('button')).toBeNull();
+      seen.click();
+      backend.expectOne({ method: 'POST', url: '/api/cuts/71/clear-flag' }).flush({ ...cut, flagClearedAt: '2026-12-01T08:00:00.000Z' });
+      await harness.fixture.whenStable();
+      expect(root().querySelector('tr[data-cut="71"] button')).toBeNull();
+      expect(root().querySelector('tr[data-cut="71"]')!.textContent).toContain('Seen 1 Dec 2026');
     });
   });
 });

@@ -13,7 +13,7 @@ import { type Observable, catchError, distinctUntilChanged, firstValueFrom, fork
 import { NO_SAFETY_CLAIM } from '../../../shared/cautions';
 import type { CheckResult, CheckSeverity } from '../../../shared/recipe-checks';
 import { computeRecipe } from '../../../shared/recipe-computations';
-import type { RecipeVersionDto } from '../../../shared/recipe-types';
+import type { CutRecordDto, RecipeVersionDto } from '../../../shared/recipe-types';
 import { hasAccess } from '../../../shared/roles';
 import type { MachineRecord, MaterialRecord, WheelRecord } from '../../../shared/stock-types';
 import {
@@ -39,6 +39,9 @@ import { SignatureList } from '../review/signature-list';
 import { utcToday } from '../review/signature-meaning';
 import { WorkflowApi } from '../review/workflow-api';
 import { MarkdownView } from '../ui/markdown-view';
+import { LogCutDialog, type LogCutDialogData } from '../cuts/log-cut-dialog';
+import { RecipeCuts } from '../cuts/recipe-cuts';
+import { benchSheetUrl } from './bench-sheet';
 import { CheckSeverityLabel } from './check-severity-label';
 import { RecipeApi } from './recipe-api';
 import { RecipeHistory } from './recipe-history';
@@ -77,6 +80,7 @@ const ATTACHMENT_ROLE_LABELS = { setup: 'Setup', 'good-face': 'Good cut face', '
     MatSelectModule,
     MatTabsModule,
     QuantityPipe,
+    RecipeCuts,
     RecipeHistory,
     RecipeStatusChip,
     ReviewComments,
@@ -101,6 +105,8 @@ export class RecipePage {
   readonly id = input.required<string>();
   /** Query parameter `?v=N`: the version to show; the newest when absent. */
   readonly v = input<string>();
+  /** Query parameter `?tab=cuts`: open on the Cuts tab (from Today's flagged cuts). */
+  readonly tab = input<string>();
 
   protected readonly state = signal<'loading' | 'missing' | 'failed' | 'ready'>('loading');
   /** Newest first, as the API lists them. */
@@ -116,7 +122,14 @@ export class RecipePage {
   protected readonly version = computed<RecipeVersionDto | null>(() => {
     const list = this.versions();
     const wanted = Number(this.v());
-    return list.find((x) => x.version === wanted) ?? list[0] ?? null;
+    const asked = list.find((x) => x.version === wanted);
+    if (asked) return asked;
+    // Sent to the Cuts tab without a version (Today's flagged cuts): the version in force takes the cuts.
+    if (this.tab() === 'cuts') {
+      const inForce = list.find((x) => x.status === 'approved' && (x.workflow?.effectiveFrom ?? '') <= this.today);
+      if (inForce) return inForce;
+    }
+    return list[0] ?? null;
   });
   protected readonly isLatest = computed(() => this.version() !== null && this.version() === this.versions()[0]);
   protected readonly canEditDraft = computed(() => {
@@ -142,6 +155,25 @@ export class RecipePage {
     const status = this.version()?.status;
     return hasAccess(this.session.roles(), ['author', 'approver']) && (status === 'in-review' || status === 'returned' || status === 'draft');
   });
+
+  /** Approved versions (current or not yet effective) have a bench sheet; the server records every print. */
+  protected readonly sheetUrl = computed(() => {
+    const v = this.version();
+    return v && v.status === 'approved' ? benchSheetUrl(v.recipeId, v.version) : null;
+  });
+  /** Approved and in force today: the only version that takes cuts. */
+  protected readonly isCurrent = computed(() => {
+    const v = this.version();
+    if (v?.status !== 'approved') return false;
+    const from = v.workflow?.effectiveFrom;
+    return !from || from <= this.today;
+  });
+  protected readonly canLogCut = computed(() => this.isCurrent() && hasAccess(this.session.roles(), ['operator']));
+  protected readonly canClearFlags = computed(() => this.isAuthor());
+  /** Bumped after a cut is logged, so the Cuts tab fetches its list again. */
+  protected readonly cutsReload = signal(0);
+  /** Index of the Cuts tab, the last one; the Comments tab is left out while comments sit above the tabs. */
+  protected readonly initialTab = computed(() => (this.tab() === 'cuts' ? (this.commentsUpFront() ? 6 : 7) : 0));
 
   protected readonly computed = computed(() => {
     const version = this.version();
@@ -283,6 +315,28 @@ export class RecipePage {
       this.replace(result);
       void this.notifier.show(`${result.number} version ${result.version} is withdrawn.`);
     }
+  }
+
+  protected async logCut(): Promise<void> {
+    const v = this.version();
+    if (!v) return;
+    const saved = await firstValueFrom(
+      this.dialog
+        .open<LogCutDialog, LogCutDialogData, CutRecordDto>(LogCutDialog, {
+          data: { recipeId: v.recipeId, number: v.number, title: v.title, version: v.version },
+          width: '600px',
+          maxWidth: '95vw',
+          autoFocus: 'first-tabbable',
+        })
+        .afterClosed(),
+    );
+    if (!saved) return;
+    this.cutsReload.update((n) => n + 1);
+    void this.notifier.show(
+      saved.outcome === 'good'
+        ? `Cut of specimen ${saved.specimenId} logged.`
+        : `Cut of specimen ${saved.specimenId} logged and flagged; the author of ${saved.number} will be told.`,
+    );
   }
 
   protected reload(): void {

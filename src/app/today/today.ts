@@ -1,5 +1,6 @@
 import { ChangeDetectionStrategy, Component, computed, inject } from '@angular/core';
 import { toSignal } from '@angular/core/rxjs-interop';
+import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { RouterLink } from '@angular/router';
@@ -14,7 +15,7 @@ import { WorkflowApi } from '../review/workflow-api';
 interface TodayItem {
   key: string;
   link: unknown[];
-  query: Record<string, number>;
+  query: Record<string, string | number>;
   number: string;
   title: string;
   version: number | null;
@@ -47,7 +48,7 @@ const recipeItem = (r: RecipeSummary, detail: string): TodayItem => ({
 /** Home page: who you are here, and the work waiting for each of your roles (design section 7). */
 @Component({
   selector: 'kb-today',
-  imports: [MatIconModule, MatProgressBarModule, RecipeStatusChip, RouterLink],
+  imports: [MatButtonModule, MatIconModule, MatProgressBarModule, RecipeStatusChip, RouterLink],
   templateUrl: './today.html',
   styleUrl: './today.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -57,6 +58,8 @@ export class Today {
   private readonly api = inject(WorkflowApi);
 
   protected readonly displayName = computed(() => this.session.user()?.displayName ?? '');
+  /** Operators start from the finder: a large card leads there. */
+  protected readonly isOperator = computed(() => hasAccess(this.session.roles(), ['operator']));
   protected readonly roles = computed(() => this.session.roles().map((role) => ({ role, ...ROLE_INFO[role] })));
 
   protected readonly load = toSignal(
@@ -111,13 +114,14 @@ export class Today {
         empty: 'No cut has been flagged.',
         items: t.flaggedCuts.map((f) => ({
           key: `flag-${f.recipeId}`,
+          // Today only has a count per recipe; the Cuts tab lists the cuts and marks each one as seen.
           link: ['/recipes', f.recipeId],
-          query: {},
+          query: { tab: 'cuts' },
           number: f.number,
           title: f.title,
           version: null,
           status: null,
-          detail: f.count === 1 ? '1 flagged cut' : `${f.count} flagged cuts`,
+          detail: `${f.count === 1 ? '1 flagged cut' : `${f.count} flagged cuts`} · open the Cuts tab to mark them as seen`,
         })),
       });
     }

@@ -13,9 +13,12 @@ export interface NavItem {
 
 /** Add an entry here when its screen exists, never before. */
 export const NAV_ITEMS: readonly NavItem[] = [
+  // First: at the saw the finder is where the work starts; anyone signed in may use it, like its route.
+  { label: 'Finder', icon: 'manage_search', path: '/finder', access: 'signedIn' },
   { label: 'Today', icon: 'today', path: '/today', access: 'signedIn' },
   { label: 'Library', icon: 'menu_book', path: '/library', access: 'signedIn' },
   { label: 'Stock', icon: 'inventory_2', path: '/stock', access: 'signedIn' },
+  { label: 'Specimen trace', icon: 'biotech', path: '/cuts', access: 'signedIn' },
   { label: 'Trail', icon: 'policy', path: '/trail', access: ['auditor', 'admin'] },
   { label: 'People', icon: 'group', path: '/people', access: ['admin'] },
   { label: 'My account', icon: 'manage_accounts', path: '/account', access: 'signedIn' },
