@@ -143,6 +143,8 @@ export interface RecipeListFilter {
   status?: string | undefined;
   size?: number | undefined;
   hardnessHv?: number | undefined;
+  /** List each recipe by its current version (operators), leaving out recipes without one. */
+  currentOnly?: boolean | undefined;
 }
 
 export interface RecipeSummaryRow {
@@ -183,10 +185,11 @@ export const SUMMARY_COLUMNS = [
 
 export async function listRecipeSummaryRows(db: Knex, filter: RecipeListFilter): Promise<{ rows: RecipeSummaryRow[]; total: number }> {
   const base = db('recipes as r')
-    .join('recipe_versions as v', 'v.id', 'r.latest_version_id')
+    .join('recipe_versions as v', 'v.id', filter.currentOnly ? 'r.current_version_id' : 'r.latest_version_id')
     .leftJoin('materials as m', 'm.id', 'v.material_id')
     .join('machines as mc', 'mc.id', 'v.machine_id')
     .join('wheels as w', 'w.id', 'v.wheel_id');
+  if (filter.currentOnly) base.where('v.status', 'approved');
   if (filter.q) {
     const pattern = containsPattern(filter.q);
     base.where((w) =>

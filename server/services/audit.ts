@@ -52,6 +52,9 @@ export const AUDIT_EVENTS = {
   versionWithdrawn: 'recipe.version_withdrawn',
   versionCreated: 'recipe.version_created',
   reviewCommentAdded: 'recipe.review_comment_added',
+  sheetPrinted: 'sheet.printed',
+  cutRecorded: 'cut.recorded',
+  cutFlagCleared: 'cut.flag_cleared',
 } as const;
 
 export type AuditEventType = (typeof AUDIT_EVENTS)[keyof typeof AUDIT_EVENTS];

@@ -11,6 +11,7 @@ import { AppError } from '../app-error';
 import { findRecipeRow, findVersion, type VersionWithNames } from '../data/recipes';
 import { findStockRows, type StockRowBase, type StockTable } from '../data/stock';
 import { fromJsonColumn } from '../data/json-column';
+import { visibleVersion, type VersionScope } from './operator-visibility';
 
 async function versionOrNotFound(db: Knex, recipeId: number, version: number): Promise<VersionWithNames> {
   const row = await findVersion(db, recipeId, version);
@@ -26,8 +27,11 @@ async function namesOf(db: Knex, table: StockTable, ids: (number | null)[]): Pro
   return new Map(rows.map((r) => [r.id, r.name]));
 }
 
-export async function compareRecipeVersions(db: Knex, recipeId: number, from: number, to: number, pref: UnitPreference): Promise<RecipeComparison> {
-  const [a, b] = [await versionOrNotFound(db, recipeId, from), await versionOrNotFound(db, recipeId, to)];
+export async function compareRecipeVersions(db: Knex, recipeId: number, from: number, to: number, pref: UnitPreference, scope: VersionScope = 'all'): Promise<RecipeComparison> {
+  const [a, b] =
+    scope === 'all'
+      ? [await versionOrNotFound(db, recipeId, from), await versionOrNotFound(db, recipeId, to)]
+      : [await visibleVersion(db, scope, recipeId, from), await visibleVersion(db, scope, recipeId, to)];
   const contentA = fromJsonColumn<RecipeContent>(a.content_json);
   const contentB = fromJsonColumn<RecipeContent>(b.content_json);
   const names: StockNames = {

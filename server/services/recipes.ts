@@ -30,6 +30,7 @@ import type { Actor } from './actor';
 import { AUDIT_EVENTS, recordAudit } from './audit';
 import { canonicalJson } from './canonical-json';
 import { changedKeys } from './changes';
+import { canSeeStatus, recipeNotFound, visibleVersion, type VersionScope } from './operator-visibility';
 import { loadRecipeContext } from './recipe-context-loader';
 import { toRecipeSummary, toVersionDto } from './recipe-dto';
 
@@ -142,7 +143,8 @@ const SORT_COLUMNS: Record<RecipeListQuery['sort'], string> = {
   sizeMaxMm: 'v.size_max_mm',
 };
 
-export async function listRecipes(db: Knex, query: RecipeListQuery): Promise<Page<RecipeSummary>> {
+/** The library; a `released` scope (operators) lists each recipe by its current approved version. */
+export async function listRecipes(db: Knex, query: RecipeListQuery, scope: VersionScope = 'all'): Promise<Page<RecipeSummary>> {
   const { rows, total } = await listRecipeSummaryRows(db, {
     page: query.page,
     pageSize: query.pageSize,
@@ -155,19 +157,21 @@ export async function listRecipes(db: Knex, query: RecipeListQuery): Promise<Pag
     status: query.status,
     size: query.size,
     hardnessHv: query.hardnessHv,
+    currentOnly: scope === 'released',
   });
   return { items: rows.map(toRecipeSummary), total, page: query.page, pageSize: query.pageSize };
 }
 
-export async function listVersions(db: Knex, recipeId: number): Promise<RecipeVersionDto[]> {
-  const rows = await listVersionRows(db, recipeId);
-  if (rows.length === 0) throw AppError.notFound(`There is no recipe with id ${recipeId}.`);
+export async function listVersions(db: Knex, recipeId: number, scope: VersionScope = 'all'): Promise<RecipeVersionDto[]> {
+  const rows = (await listVersionRows(db, recipeId)).filter((r) => canSeeStatus(scope, r.status));
+  if (rows.length === 0) throw recipeNotFound(recipeId);
   const ids = rows.map((r) => r.id);
   const [attachments, signatures, editors] = await Promise.all([listAttachmentMetaRows(db, ids), listSignatureRows(db, ids), listEditorRows(db, ids)]);
   return rows.map((row) => toVersionDto(row, attachments, { signatures, editors }));
 }
 
-export function getVersion(db: Knex, recipeId: number, version: number): Promise<RecipeVersionDto> {
+export async function getVersion(db: Knex, recipeId: number, version: number, scope: VersionScope = 'all'): Promise<RecipeVersionDto> {
+  await visibleVersion(db, scope, recipeId, version);
   return versionDto(db, recipeId, version);
 }
 

@@ -10,6 +10,7 @@ import { findRecipeRow, findVersion } from '../data/recipes';
 import { findReviewCommentRow, insertReviewComment, listReviewCommentRows, type ReviewCommentRow } from '../data/workflow';
 import type { Actor } from './actor';
 import { AUDIT_EVENTS, recordAudit } from './audit';
+import { visibleVersion, type VersionScope } from './operator-visibility';
 import { requireActor } from './recipes';
 
 export function toReviewCommentDto(row: ReviewCommentRow): ReviewCommentDto {
@@ -31,8 +32,8 @@ async function versionIdOf(db: Knex, recipeId: number, version: number): Promise
 }
 
 /** Oldest first, as a conversation reads. */
-export async function listComments(db: Knex, recipeId: number, version: number): Promise<ReviewCommentDto[]> {
-  const versionId = await versionIdOf(db, recipeId, version);
+export async function listComments(db: Knex, recipeId: number, version: number, scope: VersionScope = 'all'): Promise<ReviewCommentDto[]> {
+  const versionId = (await visibleVersion(db, scope, recipeId, version)).id;
   return (await listReviewCommentRows(db, versionId)).map(toReviewCommentDto);
 }
 

@@ -8,6 +8,7 @@ import type { AuditEventDto, AuditPage, ChainVerification } from '../../shared/r
 import type { AuditQuery } from '../../shared/schemas/workflow';
 import { AppError } from '../app-error';
 import { type AuditFilter, type StoredAuditEventRow, chainBatch, listAuditEventRows, readChainHead } from '../data/audit-events';
+import { CSV_BOM, csvLine } from './csv';
 import { type ChainedFields, GENESIS_HASH, trailHash } from './trail-hash';
 
 const json = (value: unknown): unknown => (typeof value === 'string' ? JSON.parse(value) : (value ?? null));
@@ -142,27 +143,10 @@ export async function listTrail(db: Knex, query: AuditQuery): Promise<AuditPage>
 
 const CSV_HEADER = ['id', 'occurred_at_utc', 'actor_id', 'actor_name', 'type', 'entity_type', 'entity_id', 'before', 'after', 'client_address', 'prev_hash', 'hash'];
 
-/** Spreadsheet apps run a cell starting with one of these as a formula (CSV injection). */
-const FORMULA_START = /^[=+\-@\t\r]/;
-
-export function csvCell(value: string | number | null): string {
-  if (value === null) return '';
-  let text = String(value);
-  if (typeof value === 'string' && FORMULA_START.test(text)) text = `'${text}`;
-  return /[",\r\n]/.test(text) ? `"${text.replace(/"/g, '""')}"` : text;
-}
-
-function csvLine(cells: (string | number | null)[]): string {
-  return `${cells.map(csvCell).join(',')}\r\n`;
-}
-
 function csvRow(e: AuditEventDto): string {
   const text = (v: unknown) => (v === null || v === undefined ? null : JSON.stringify(v));
   return csvLine([e.id, e.occurredAt, e.actorId, e.actorName, e.type, e.entityType, e.entityId, text(e.before), text(e.after), e.clientAddress, e.prevHash, e.hash]);
 }
-
-/** The byte order mark: spreadsheet apps then read the file as UTF-8 (µ, ø, Ø). */
-const BOM = '\uFEFF';
 
 export const CSV_BATCH = 1000;
 
@@ -181,7 +165,7 @@ export async function openTrailCsv(db: Knex, query: AuditQuery, batchSize = CSV_
   const { beforeId: _ignored, ...filter } = filterOf(query);
   const first = await listAuditEventRows(db, filter, batchSize);
   async function* chunks(): AsyncGenerator<string> {
-    yield BOM + csvLine(CSV_HEADER);
+    yield CSV_BOM + csvLine(CSV_HEADER);
     let rows = first;
     while (rows.length > 0) {
       yield rows.map((r) => csvRow(toAuditEventDto(r))).join('');

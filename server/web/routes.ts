@@ -5,6 +5,8 @@
  */
 import * as attachments from './handlers/attachments';
 import * as compare from './handlers/compare';
+import * as cuts from './handlers/cuts';
+import * as finder from './handlers/finder';
 import * as health from './handlers/health';
 import * as recipes from './handlers/recipes';
 import * as selectionRows from './handlers/selection-rows';
@@ -89,6 +91,15 @@ export const routes: readonly RouteDefinition[] = [
   { method: 'post', path: '/api/recipes/:id/versions/:n/comments', access: ['author', 'approver'], handler: workflow.addComment },
   { method: 'post', path: '/api/recipes/:id/versions/:n/attachments', access: ['author'], handler: attachments.upload, multipart: true },
   { method: 'delete', path: '/api/recipes/:id/versions/:n/attachments/:attachmentId', access: ['author'], handler: attachments.remove },
+  // Cut records: operators log cuts on the current version; everyone signed in reads them.
+  { method: 'post', path: '/api/recipes/:id/versions/:n/cuts', access: ['operator'], handler: cuts.record },
+  { method: 'get', path: '/api/recipes/:id/versions/:n/cuts.csv', access: 'signedIn', handler: cuts.csv },
+  { method: 'get', path: '/api/recipes/:id/versions/:n/cuts', access: 'signedIn', handler: cuts.listOfVersion },
+
+  // The operator station: the finder, and cuts by specimen (traceability); authors clear flags.
+  { method: 'get', path: '/api/finder', access: 'signedIn', handler: finder.find },
+  { method: 'get', path: '/api/cuts', access: 'signedIn', handler: cuts.search },
+  { method: 'post', path: '/api/cuts/:cutId/clear-flag', access: ['author'], handler: cuts.clearFlag },
 
   // The stored photos (image and thumbnail).
   { method: 'get', path: '/api/attachments/:id', access: 'signedIn', handler: attachments.image },

@@ -1,5 +1,6 @@
 import { compareQuery } from '../../../shared/schemas/workflow';
 import * as compare from '../../services/compare';
+import { versionScopeOf } from '../../services/operator-visibility';
 import type { RouteHandler } from '../route-definition';
 import { idOf, parse } from './parse';
 
@@ -7,5 +8,5 @@ export const versions: RouteHandler = async (req, res, { db }) => {
   const recipeId = idOf(req.params);
   const { from, to } = parse(compareQuery, req.query);
   // Units as the person chose to see them (design 5.10): the labels carry the values.
-  res.json(await compare.compareRecipeVersions(db, recipeId, from, to, req.user?.units ?? 'metric'));
+  res.json(await compare.compareRecipeVersions(db, recipeId, from, to, req.user?.units ?? 'metric', versionScopeOf(req.user?.roles)));
 };

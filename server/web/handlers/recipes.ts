@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { idParam } from '../../../shared/schemas/fields';
 import { createRecipeBody, recipeListQuery, saveDraftBody } from '../../../shared/schemas/recipe';
+import { versionScopeOf } from '../../services/operator-visibility';
 import * as recipes from '../../services/recipes';
 import type { RouteHandler } from '../route-definition';
 import { bodyOf, idOf, parse } from './parse';
@@ -9,7 +10,7 @@ import { actorOf } from './request-actor';
 const versionParams = z.object({ id: idParam, n: idParam });
 
 export const list: RouteHandler = async (req, res, { db }) => {
-  res.json(await recipes.listRecipes(db, parse(recipeListQuery, req.query)));
+  res.json(await recipes.listRecipes(db, parse(recipeListQuery, req.query), versionScopeOf(req.user?.roles)));
 };
 
 export const create: RouteHandler = async (req, res, { db }) => {
@@ -18,12 +19,12 @@ export const create: RouteHandler = async (req, res, { db }) => {
 };
 
 export const versions: RouteHandler = async (req, res, { db }) => {
-  res.json(await recipes.listVersions(db, idOf(req.params)));
+  res.json(await recipes.listVersions(db, idOf(req.params), versionScopeOf(req.user?.roles)));
 };
 
 export const getVersion: RouteHandler = async (req, res, { db }) => {
   const { id, n } = parse(versionParams, req.params);
-  res.json(await recipes.getVersion(db, id, n));
+  res.json(await recipes.getVersion(db, id, n, versionScopeOf(req.user?.roles)));
 };
 
 export const saveDraft: RouteHandler = async (req, res, { db }) => {

@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { idParam } from '../../../shared/schemas/fields';
 import { approveBody, commentBody, newVersionBody, returnBody, submitBody, withdrawBody } from '../../../shared/schemas/workflow';
+import { versionScopeOf } from '../../services/operator-visibility';
 import * as comments from '../../services/review-comments';
 import { listReviewsDue } from '../../services/today';
 import * as workflow from '../../services/workflow';
@@ -37,7 +38,7 @@ export const newVersion: RouteHandler = async (req, res, { db }) => {
 
 export const listComments: RouteHandler = async (req, res, { db }) => {
   const { id, n } = parse(versionParams, req.params);
-  res.json(await comments.listComments(db, id, n));
+  res.json(await comments.listComments(db, id, n, versionScopeOf(req.user?.roles)));
 };
 
 export const addComment: RouteHandler = async (req, res, { db }) => {

@@ -18,6 +18,7 @@ import { createRecipe } from '../../../server/services/recipes';
 import { createSelectionRow } from '../../../server/services/selection-rows';
 import { addAttachment } from '../../../server/services/attachments';
 import sharp from 'sharp';
+import { insertCut } from '../../../server/data/cuts';
 
 /** Existing records the walk's paths point at, so handlers really run (not only 404). */
 interface Targets {
@@ -28,6 +29,7 @@ interface Targets {
   selectionRow: number;
   recipe: number;
   attachment: number;
+  cut: number;
 }
 
 /** Fills :id by the resource the path names, :n with version 1 and :attachmentId. */
@@ -47,11 +49,12 @@ function pathFor(route: RouteDefinition, t: Targets): string {
   return route.path
     .replace(/:id\b/g, String(id))
     .replace(/:n\b/g, '1')
-    .replace(/:attachmentId\b/g, String(t.attachment));
+    .replace(/:attachmentId\b/g, String(t.attachment))
+    .replace(/:cutId\b/g, String(t.cut));
 }
 
 function call(agent: Agent, route: RouteDefinition, t: Targets, csrf: string) {
-  const left = route.path.replace(/\/:(id|n|attachmentId)\b/g, '');
+  const left = route.path.replace(/\/:(id|n|attachmentId|cutId)\b/g, '');
   if (left.includes(':')) throw new Error(`The role walk cannot fill the parameters of ${route.path}.`);
   return agent[route.method](pathFor(route, t)).set(CSRF_HEADER, csrf);
 }
@@ -83,6 +86,19 @@ describe('Route table access', () => {
       selectionRow: row.id,
       recipe: recipe.recipeId,
       attachment: attachment.id,
+      // A flagged cut straight in the table (the walk's recipe is a draft; recording is tested in test/api/operator).
+      cut: await insertCut(ctx.db, {
+        version_id: (await ctx.db('recipe_versions').where({ recipe_id: recipe.recipeId, version: 1 }).first('id')).id,
+        recipe_id: recipe.recipeId,
+        specimen_id: 'WALK-1',
+        part_ref: '',
+        quantity: 1,
+        outcome: 'burnt',
+        notes: '',
+        operator_id: target.id,
+        operator_name: target.displayName,
+        cut_at: new Date(),
+      }),
     };
   });
 

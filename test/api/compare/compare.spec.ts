@@ -15,19 +15,20 @@ import { anonymousAgent, signedInAgent, type Agent } from '../support/test-app';
 describe('Comparing versions', function () {
   this.timeout(30000);
   const ctx = apiTestContext();
-  let operator: { agent: Agent; csrf: string };
+  let reader: { agent: Agent; csrf: string };
   let recipe: RecipeVersionDto;
   let stock: StockSet;
   let softWheelId: number;
 
-  const compare = (query: Record<string, string | number>, who = operator, id: number = recipe.recipeId) => who.agent.get(`/api/recipes/${id}/compare`).query(query);
+  const compare = (query: Record<string, string | number>, who = reader, id: number = recipe.recipeId) => who.agent.get(`/api/recipes/${id}/compare`).query(query);
 
   before(async () => {
     const authorPerson = await createPerson(ctx.db, { roles: ['author'], displayName: 'Compare Author' });
     const approverPerson: TestPerson = await createPerson(ctx.db, { roles: ['approver'], displayName: 'Compare Approver' });
     const author = await signedInAgent(ctx.app, authorPerson);
     const approver = await signedInAgent(ctx.app, approverPerson);
-    operator = await signedInAgent(ctx.app, await createPerson(ctx.db, { roles: ['operator'] }));
+    // The versions compared include a draft: an auditor reads every version (operators only released ones).
+    reader = await signedInAgent(ctx.app, await createPerson(ctx.db, { roles: ['auditor'] }));
     stock = await createStockSet(ctx.db);
     softWheelId = (await createStock(ctx.db, { userId: null, name: 'set-up', clientAddress: '' }, WHEELS, wheelInput({ name: 'Alumina 250 soft', specification: 'A60K5B' }))).id;
 
@@ -101,7 +102,7 @@ describe('Comparing versions', function () {
       [{ from: 9, to: 1 }, recipe.recipeId],
       [{ from: 1, to: 2 }, 999999],
     ] as const) {
-      const res = await compare(query, operator, id);
+      const res = await compare(query, reader, id);
       expect(res.status, JSON.stringify(query)).to.equal(404);
       expect(res.body.code).to.equal('NOT_FOUND');
     }
@@ -121,7 +122,7 @@ describe('Comparing versions', function () {
       expect(res.body.code).to.equal('VALIDATION_FAILED');
       expect(res.body.errors.map((e: { path: string }) => e.path).sort(), JSON.stringify(query)).to.deep.equal(paths);
     }
-    const badId = await operator.agent.get('/api/recipes/abc/compare').query({ from: 1, to: 2 });
+    const badId = await reader.agent.get('/api/recipes/abc/compare').query({ from: 1, to: 2 });
     expect(badId.status).to.equal(400);
     expect(badId.body.code).to.equal('VALIDATION_FAILED');
   });

@@ -99,9 +99,10 @@ describe('Attachments (photos of a version)', () => {
     });
 
     it('lists the attachment (without bytes) in the version', async () => {
-      const res = await operator.agent.get(`/api/recipes/${draft.recipeId}/versions/1`).expect(200);
+      // A draft: its author reads it (operators see released versions only).
+      const res = await author.agent.get(`/api/recipes/${draft.recipeId}/versions/1`).expect(200);
       expect(res.body.attachments).to.deep.equal([stored]);
-      const versions = await operator.agent.get(`/api/recipes/${draft.recipeId}/versions`).expect(200);
+      const versions = await author.agent.get(`/api/recipes/${draft.recipeId}/versions`).expect(200);
       expect(versions.body[0].attachments).to.deep.equal([stored]);
     });
 

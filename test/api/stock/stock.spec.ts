@@ -222,7 +222,7 @@ describe('Stock: materials, wheels, machines', () => {
         expect(Boolean(row.archived), kind).to.equal(true);
         expect(row.archived_at, kind).to.be.instanceOf(Date);
       }
-      const version = await operator.agent.get(`/api/recipes/${recipe.recipeId}/versions/1`).expect(200);
+      const version = await author.agent.get(`/api/recipes/${recipe.recipeId}/versions/1`).expect(200);
       expect(version.body.content.cutting.wheelId).to.equal(stock.wheel.id);
     });
 

@@ -416,9 +416,9 @@ describe('Review workflow', () => {
       expect((await post(operator, `/api/recipes/${v.recipeId}/versions/1/comments`, { body: 'x' })).status).to.equal(403);
       const empty = await post(approver, `/api/recipes/${v.recipeId}/versions/1/comments`, { body: '  ' });
       expect(empty.status).to.equal(400);
-      const list = (await operator.agent.get(`/api/recipes/${v.recipeId}/versions/1/comments`).expect(200)).body;
+      const list = (await author2.agent.get(`/api/recipes/${v.recipeId}/versions/1/comments`).expect(200)).body;
       expect(list.map((c: { body: string }) => c.body)).to.deep.equal(['Feed looks high for this hardness.', 'It was tried on the last lot.']);
-      expect((await operator.agent.get(`/api/recipes/${v.recipeId}/versions/5/comments`)).status).to.equal(404);
+      expect((await author2.agent.get(`/api/recipes/${v.recipeId}/versions/5/comments`)).status).to.equal(404);
     });
   });
 

@@ -1,0 +1,8 @@
+import { finderQuery } from '../../../shared/schemas/operator';
+import { findRecipes } from '../../services/finder';
+import type { RouteHandler } from '../route-definition';
+import { parse } from './parse';
+
+export const find: RouteHandler = async (req, res, { db }) => {
+  res.json(await findRecipes(db, parse(finderQuery, req.query)));
+};
