@@ -60,7 +60,8 @@ export class CheckPage {
     const v = this.verdict();
     return v.state === 'ready' ? CHECK_STATE_INFO[v.result.state] : null;
   });
-  protected readonly codeField = inject(NonNullableFormBuilder).control('', [zodValidator(checkCodeParam)]);
+  protected readonly form = inject(NonNullableFormBuilder).group({ code: ['', [zodValidator(checkCodeParam)]] });
+  protected readonly codeField = this.form.controls.code;
   protected readonly controlMessage = controlMessage;
   protected readonly printedCode = printedCode;
 

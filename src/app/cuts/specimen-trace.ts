@@ -40,7 +40,8 @@ export class SpecimenTrace {
   /** Query parameter `?specimen=`. */
   readonly specimen = input<string>();
 
-  protected readonly field = inject(NonNullableFormBuilder).control('', [zodValidator(cutSearchQuery.shape.specimenId)]);
+  protected readonly form = inject(NonNullableFormBuilder).group({ specimenId: ['', [zodValidator(cutSearchQuery.shape.specimenId)]] });
+  protected readonly field = this.form.controls.specimenId;
   protected readonly load = signal<Load>({ state: 'idle' });
   protected readonly units = computed(() => this.session.user()?.units ?? 'metric');
   protected readonly controlMessage = controlMessage;
