@@ -169,8 +169,13 @@ export class Finder {
     // A picked material says its group; the group field waits until the material is cleared.
     effect(() => {
       const group = this.form.controls.group;
-      if (this.pickedMaterial()) group.disable({ emitEvent: false });
-      else group.enable({ emitEvent: false });
+      const material = this.pickedMaterial();
+      if (material) {
+        group.setValue(material.group, { emitEvent: false });
+        group.disable({ emitEvent: false });
+      } else {
+        group.enable({ emitEvent: false });
+      }
     });
 
     // A material id from the URL shows as its name once the list is in.

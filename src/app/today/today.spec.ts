@@ -95,5 +95,14 @@ describe('Today', () => {
     await open(['author'], { ...lists, flaggedCuts: [{ recipeId: 3, number: 'KB-0003', title: 'Tempered bar, transverse', count: 2 }] });
     expect(shownLists()).toEqual(['myDrafts', 'reviewsDue', 'flaggedCuts']);
     expect(list('flaggedCuts').textContent).toContain('2 flagged cuts');
+    expect(list('flaggedCuts').querySelector('a')!.getAttribute('href')).toBe('/recipes/3?tab=cuts');
+    expect(root.querySelector('[data-testid="operator-start"]')).toBeNull();
+  });
+
+  it('gives an operator a large way into the finder and the sheet check', async () => {
+    await open(['operator']);
+    const start = root.querySelector('[data-testid="operator-start"]')!;
+    expect(start.querySelector('a[href="/finder"]')!.textContent).toContain('Find a recipe');
+    expect(start.querySelector('a[href="/check"]')!.textContent).toContain('Check a sheet');
   });
 });

@@ -121,7 +121,7 @@ export class Today {
           title: f.title,
           version: null,
           status: null,
-          detail: `${f.count === 1 ? '1 flagged cut' : `${f.count} flagged cuts`} · open the Cuts tab to mark them as seen`,
+          detail: `${f.count === 1 ? '1 flagged cut' : `${f.count} flagged cuts`} · mark as seen in the Cuts tab`,
         })),
       });
     }
