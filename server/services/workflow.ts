@@ -31,6 +31,7 @@ import {
 } from '../data/workflow';
 import type { Actor } from './actor';
 import { AUDIT_EVENTS, recordAudit } from './audit';
+import { assignCheckCode } from './check-codes';
 import { addMonths, isCalendarDay, utcDay } from './calendar-dates';
 import { loadRecipeContext } from './recipe-context-loader';
 import { contentValues, requireActor, versionDto } from './recipes';
@@ -265,6 +266,7 @@ export async function approveVersion(db: Knex, actor: Actor, recipeId: number, v
         checks_json: JSON.stringify(checks),
         worst_check: worstSeverity(checks),
       });
+      await assignCheckCode(trx, v.id);
       const current = effectiveFrom <= today;
       const superseded = current ? await makeCurrent(trx, recipe, v, now) : [];
 

@@ -4,6 +4,8 @@
  * before parameterised ones.
  */
 import * as attachments from './handlers/attachments';
+import * as benchSheet from './handlers/bench-sheet';
+import * as checkCodes from './handlers/check-codes';
 import * as compare from './handlers/compare';
 import * as cuts from './handlers/cuts';
 import * as finder from './handlers/finder';
@@ -91,6 +93,8 @@ export const routes: readonly RouteDefinition[] = [
   { method: 'post', path: '/api/recipes/:id/versions/:n/comments', access: ['author', 'approver'], handler: workflow.addComment },
   { method: 'post', path: '/api/recipes/:id/versions/:n/attachments', access: ['author'], handler: attachments.upload, multipart: true },
   { method: 'delete', path: '/api/recipes/:id/versions/:n/attachments/:attachmentId', access: ['author'], handler: attachments.remove },
+  // The bench sheet of an approved version (current or approved for a later day); every print is recorded.
+  { method: 'get', path: '/api/recipes/:id/versions/:n/sheet.pdf', access: 'signedIn', handler: benchSheet.sheet },
   // Cut records: operators log cuts on the current version; everyone signed in reads them.
   { method: 'post', path: '/api/recipes/:id/versions/:n/cuts', access: ['operator'], handler: cuts.record },
   { method: 'get', path: '/api/recipes/:id/versions/:n/cuts.csv', access: 'signedIn', handler: cuts.csv },
@@ -113,4 +117,7 @@ export const routes: readonly RouteDefinition[] = [
   // What waits for people: periodic reviews coming due, and the signed-in person's Today lists.
   { method: 'get', path: '/api/reviews/due', access: 'signedIn', handler: workflow.reviewsDue },
   { method: 'get', path: '/api/today', access: 'signedIn', handler: today.today },
+
+  // Is a printed sheet still the one to use? (the code and QR code on every bench sheet)
+  { method: 'get', path: '/api/check/:code', access: 'signedIn', handler: checkCodes.check },
 ];

@@ -49,12 +49,13 @@ function pathFor(route: RouteDefinition, t: Targets): string {
   return route.path
     .replace(/:id\b/g, String(id))
     .replace(/:n\b/g, '1')
+    .replace(/:code\b/g, 'ZZZZ-ZZZZ')
     .replace(/:attachmentId\b/g, String(t.attachment))
     .replace(/:cutId\b/g, String(t.cut));
 }
 
 function call(agent: Agent, route: RouteDefinition, t: Targets, csrf: string) {
-  const left = route.path.replace(/\/:(id|n|attachmentId|cutId)\b/g, '');
+  const left = route.path.replace(/\/:(id|n|attachmentId|cutId|code)\b/g, '');
   if (left.includes(':')) throw new Error(`The role walk cannot fill the parameters of ${route.path}.`);
   return agent[route.method](pathFor(route, t)).set(CSRF_HEADER, csrf);
 }
