@@ -33,6 +33,8 @@ export interface SheetModel {
   version: number;
   /** "Approved — current" or "Approved — effective from 2027-01-05". */
   statusLine: string;
+  /** Whether the version is in force today (else approved for a later day). */
+  current: boolean;
   effectiveFrom: string;
   reviewDueOn: string;
   /** XXXX-XXXX. */
@@ -94,7 +96,7 @@ export function buildSheetModel(input: SheetInput): SheetModel {
       ? size
       : c.scope.shape === 'tube'
         ? `${size}, wall ${len(c.scope.wallMm)}`
-        : `Height ${len(c.scope.sizeMinMm)} to ${len(c.scope.sizeMaxMm)}, width ${len(c.scope.widthMm)}`;
+        : `height ${len(c.scope.sizeMinMm)} to ${len(c.scope.sizeMaxMm)}, width ${len(c.scope.widthMm)}`;
 
   const scope: Row[] = [
     {
@@ -166,7 +168,8 @@ export function buildSheetModel(input: SheetInput): SheetModel {
     number: v.number,
     title: v.title,
     version: v.version,
-    statusLine: input.current ? 'Approved — current' : `Approved — not yet current`,
+    statusLine: input.current ? 'Approved — current' : 'Approved — not yet current',
+    current: input.current,
     effectiveFrom: effective,
     reviewDueOn: v.workflow?.reviewDueOn ?? '—',
     checkCode: input.checkCode,

@@ -155,6 +155,14 @@ export function blockText(block: SheetBlock): string {
   return block.runs.map((r) => r.text).join('');
 }
 
+/** The height `writeMarkdown` will take (to keep short step lists on one page). */
+export function markdownHeight(w: SheetWriter, markdown: string, size: number = TYPE.body): number {
+  return markdownBlocks(markdown).reduce((sum, block) => {
+    const indent = block.depth * 16 + (block.marker || block.depth > 0 ? 20 : 0);
+    return sum + w.heightOf(blockText(block) || ' ', block.heading || block.runs.some((r) => r.bold) ? 'bold' : 'regular', size, w.width - indent) + 2.5;
+  }, 0);
+}
+
 /** Writes the blocks into the flow: numbers and bullets hang in their own column. */
 export function writeMarkdown(w: SheetWriter, markdown: string, options: { emptyText?: string; size?: number } = {}): void {
   const size = options.size ?? TYPE.body;

@@ -7,7 +7,7 @@
 import { NO_SAFETY_CLAIM, PRECEDENCE_LINE, STANDARD_CAUTIONS } from '../../shared/cautions';
 import type { SheetModel } from './sheet-content';
 import { INK, MUTED, RULE, SheetWriter, TINT, TYPE, type PaperSize } from './sheet-layout';
-import { writeMarkdown } from './sheet-markdown';
+import { markdownHeight, writeMarkdown } from './sheet-markdown';
 
 export interface SheetPhoto {
   jpeg: Buffer;
@@ -55,13 +55,16 @@ function header(w: SheetWriter, m: SheetModel, qr: Buffer): void {
     ['Effective from', m.effectiveFrom],
     ['Review due', m.reviewDueOn],
   ];
-  const fieldWidth = (mainWidth - 2 * pad) / 3;
+  // The status gets the widest field: "Approved — not yet current" must fit on one line.
+  const shares = [0.44, 0.28, 0.28];
   w.hrule(y, 0.5, RULE, w.left + pad, w.left + mainWidth - pad);
   y += 5;
+  let fx = w.left + pad;
   fields.forEach(([label, value], i) => {
-    const x = w.left + pad + i * fieldWidth;
-    w.place(label.toUpperCase(), x, y, 'regular', 6.5, { characterSpacing: 0.6, lineBreak: false }, MUTED);
-    w.place(value, x, y + 9, 'bold', 9.5, { width: fieldWidth - 6, lineBreak: false, ellipsis: true });
+    const fieldWidth = shares[i]! * (mainWidth - 2 * pad);
+    w.place(label.toUpperCase(), fx, y, 'regular', 6.5, { characterSpacing: 0.6, lineBreak: false }, MUTED);
+    w.place(value, fx, y + 9, 'bold', 9.5, { width: fieldWidth - 6, lineBreak: false, ellipsis: true });
+    fx += fieldWidth;
   });
   y += 26;
 
@@ -84,7 +87,8 @@ function header(w: SheetWriter, m: SheetModel, qr: Buffer): void {
 
 /** The uncontrolled-copy notice (trade reference §7: printed copies must be checked against the current revision). */
 function uncontrolledNotice(w: SheetWriter, m: SheetModel): void {
-  const text = `Uncontrolled once printed. Before each use, scan the QR code or open ${m.checkUrl} and confirm that version ${m.version} is still the current revision. Do not use a superseded or withdrawn sheet.`;
+  const pending = m.current ? '' : ` This version is not yet in force: do not use it before ${m.effectiveFrom}.`;
+  const text = `Uncontrolled once printed. Before each use, scan the QR code or open ${m.checkUrl} and confirm that version ${m.version} is still the current revision. Do not use a superseded or withdrawn sheet.${pending}`;
   const height = w.heightOf(text, 'regular', TYPE.small + 0.5, w.width - 14);
   const top = w.y;
   w.fillRect(w.left, top, 3, height + 4, INK);
@@ -138,7 +142,7 @@ function cautionsBox(w: SheetWriter): void {
   w.place('STANDARD CAUTIONS', tx + 18, top + 5, 'bold', TYPE.heading, { characterSpacing: 0.6, lineBreak: false });
   w.place('Read before every cut', w.right - pad - 110, top + 6.5, 'regular', TYPE.small, { width: 110, align: 'right', lineBreak: false }, MUTED);
 
-  const writeColumn = (list: typeof items, x: number) => {
+  const writeColumn = (list: typeof items, x: number): number => {
     let y = top + 20 + 6;
     for (const c of list) {
       w.use('bold', TYPE.small + 0.5);
@@ -147,20 +151,22 @@ function cautionsBox(w: SheetWriter): void {
       w.doc.text(c.text, { width: colWidth, lineGap: TYPE.lineGap });
       y = w.doc.y + 4;
     }
+    return y;
   };
-  writeColumn(left, w.left + pad);
-  writeColumn(right, w.left + pad + colWidth + gutter);
-  w.vrule(w.left + pad + colWidth + gutter / 2, top + 26, top + 20 + 6 + colHeight - 4, 0.5, RULE);
+  // Written first; the box is drawn last to the height the columns really took.
+  const columnsEnd = Math.max(writeColumn(left, w.left + pad), writeColumn(right, w.left + pad + colWidth + gutter));
+  w.vrule(w.left + pad + colWidth + gutter / 2, top + 26, columnsEnd - 4, 0.5, RULE);
 
-  let y = top + 20 + 6 + colHeight + 2;
+  let y = columnsEnd + 2;
   w.hrule(y, 0.5, RULE, w.left + pad, w.right - pad);
   y += 4;
   y += w.place(PRECEDENCE_LINE, w.left + pad, y, 'bold', TYPE.small + 0.5, { width: w.width - 2 * pad });
   y += 2;
-  w.place(NO_SAFETY_CLAIM, w.left + pad, y, 'regular', TYPE.small, { width: w.width - 2 * pad }, MUTED);
+  y += w.place(NO_SAFETY_CLAIM, w.left + pad, y, 'regular', TYPE.small, { width: w.width - 2 * pad }, MUTED);
 
-  w.strokeRect(w.left, top, w.width, boxHeight, 1.5, INK);
-  w.y = top + boxHeight + 4;
+  const drawnHeight = y + pad - 2 - top;
+  w.strokeRect(w.left, top, w.width, drawnHeight, 1.5, INK);
+  w.y = top + drawnHeight + 4;
 }
 
 function signatures(w: SheetWriter, m: SheetModel): void {
@@ -242,7 +248,8 @@ export async function renderSheet(input: SheetRenderInput): Promise<Buffer> {
     w.table(rows);
   }
 
-  w.section(++n, 'Instructions');
+  // Steps stay together on one page when they fit on one (up to about half a page).
+  w.section(++n, 'Instructions', Math.min(markdownHeight(w, m.instructionsMd), 360));
   writeMarkdown(w, m.instructionsMd, { emptyText: 'No instructions beyond the parameters above.' });
 
   w.section(++n, 'Acceptance criteria for the cut face', 24);
