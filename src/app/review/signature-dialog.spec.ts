@@ -117,6 +117,25 @@ describe('SignatureDialog', () => {
     expect(field('effectiveDate').value).toBe(utcToday());
   });
 
+  it('does not pin a wrong-password answer on a password retyped while the answer was on its way', async () => {
+    await open({ meaning: 'approved', version, acknowledgedWarnings: [] });
+    const approved = { ...version, status: 'approved' as const, revision: 10 };
+    type('password', 'not-my-password');
+    await sign();
+    const first = backend.expectOne({ method: 'POST', url: '/api/recipes/3/versions/2/approve' });
+    type('password', 'demo-approver-2026');
+    first.flush({ code: 'VALIDATION_FAILED', errors: [{ path: 'password', message: 'The password is not correct.' }] }, { status: 400, statusText: 'Bad Request' });
+    await fixture.whenStable();
+    expect(await text('password-error')).not.toBe('The password is not correct.');
+
+    await sign();
+    const second = backend.expectOne({ method: 'POST', url: '/api/recipes/3/versions/2/approve' });
+    expect((second.request.body as { password: string }).password).toBe('demo-approver-2026');
+    second.flush(approved);
+    await fixture.whenStable();
+    expect(dialogRef.close).toHaveBeenCalledWith(approved);
+  });
+
   it('refuses to send without a password, or with an effective date in the past', async () => {
     await open({ meaning: 'approved', version, acknowledgedWarnings: [] });
     type('effectiveDate', '2001-01-01');

@@ -109,7 +109,11 @@ export class SignatureDialog {
         this.formError.set(STALE_MESSAGE);
       } else if (e.status === 400) {
         // The field names of the body match the form's, except the withdrawal reason.
-        const errors = e.errors.map((err) => (err.path === 'reason' ? { ...err, path: 'comment' } : err));
+        // A password retyped while the answer was on its way is not the one the server judged.
+        const retyped = this.form.controls.password.value !== password;
+        const errors = e.errors
+          .map((err) => (err.path === 'reason' ? { ...err, path: 'comment' } : err))
+          .filter((err) => !(retyped && err.path === 'password'));
         this.formError.set(applyServerErrors(this.form, errors).join(' '));
         if (this.form.controls.password.errors?.['server']) this.passwordInput()?.nativeElement.select();
       } else {
