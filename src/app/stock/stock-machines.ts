@@ -1,12 +1,9 @@
 import { ChangeDetectionStrategy, Component, computed, inject } from '@angular/core';
 import { ReactiveFormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
-import { MatDialog } from '@angular/material/dialog';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
-import { MatMenuModule } from '@angular/material/menu';
-import { MatPaginatorModule } from '@angular/material/paginator';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSelectModule } from '@angular/material/select';
 import { MatSortModule } from '@angular/material/sort';
@@ -21,13 +18,14 @@ import {
   MACHINE_CLASS_LABELS,
   type MachineClass,
 } from '../../../shared/vocabulary';
-import { Notifier } from '../core/notifier/notifier';
 import { Session } from '../core/session/session';
 import { MachineFormDialog, type MachineFormDialogData } from './machine-form-dialog';
 import { QuantityPipe } from './quantity';
 import { STOCK_EDITORS, StockApi } from './stock-api';
 import { StockListState } from './stock-list-state';
 import { StockRecordActions } from './stock-record-actions';
+import { StockRowActions } from './stock-row-actions';
+import { StockTablePaginator } from './stock-table-paginator';
 
 /** Stock › Machines: the lab's cut-off machines with their wheel, speed and feed ranges. */
 @Component({
@@ -37,14 +35,14 @@ import { StockRecordActions } from './stock-record-actions';
     MatFormFieldModule,
     MatIconModule,
     MatInputModule,
-    MatMenuModule,
-    MatPaginatorModule,
     MatProgressBarModule,
     MatSelectModule,
     MatSortModule,
     MatTableModule,
     QuantityPipe,
     ReactiveFormsModule,
+    StockRowActions,
+    StockTablePaginator,
   ],
   templateUrl: './stock-machines.html',
   styleUrl: './stock-table.scss',
@@ -52,12 +50,11 @@ import { StockRecordActions } from './stock-record-actions';
 })
 export class StockMachines {
   private readonly api = inject(StockApi);
-  private readonly dialog = inject(MatDialog);
-  private readonly notifier = inject(Notifier);
   private readonly session = inject(Session);
   private readonly actions = inject(StockRecordActions);
 
   protected readonly list = new StockListState<MachineRecord>((q) => this.api.machines.list(q), ['name', 'machineClass', 'wheelDiameterMaxMm', 'rpmMax']);
+  protected readonly rows = this.actions.rowHandlers<MachineRecord>(this.api.machines, 'machine', () => this.list.reload());
   protected readonly canEdit = computed(() => hasAccess(this.session.roles(), STOCK_EDITORS));
   protected readonly units = computed(() => this.session.user()?.units ?? 'metric');
   protected readonly columns = computed(() => {
@@ -76,26 +73,7 @@ export class StockMachines {
     this.openForm({ machine });
   }
 
-  protected async archive(machine: MachineRecord): Promise<void> {
-    if (await this.actions.archive(this.api.machines, machine, 'machine')) this.list.reload();
-  }
-
-  protected async unarchive(machine: MachineRecord): Promise<void> {
-    if (await this.actions.unarchive(this.api.machines, machine, 'machine')) this.list.reload();
-  }
-
-  protected async remove(machine: MachineRecord): Promise<void> {
-    if (await this.actions.delete(this.api.machines, machine, 'machine')) this.list.reload();
-  }
-
   private openForm(data: MachineFormDialogData): void {
-    this.dialog
-      .open<MachineFormDialog, MachineFormDialogData, MachineRecord>(MachineFormDialog, { data, width: '760px', maxWidth: '95vw' })
-      .afterClosed()
-      .subscribe((saved) => {
-        if (!saved) return;
-        void this.notifier.show(data.machine ? `Changes to ${saved.name} were saved.` : `${saved.name} was added.`, 'OK', 5000);
-        this.list.reload();
-      });
+    this.actions.openForm(MachineFormDialog, data, { width: '760px', editing: !!data.machine }, () => this.list.reload());
   }
 }

@@ -2,12 +2,9 @@ import { ChangeDetectionStrategy, Component, computed, inject } from '@angular/c
 import { DatePipe } from '@angular/common';
 import { ReactiveFormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
-import { MatDialog } from '@angular/material/dialog';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
-import { MatMenuModule } from '@angular/material/menu';
-import { MatPaginatorModule } from '@angular/material/paginator';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSelectModule } from '@angular/material/select';
 import { MatSortModule } from '@angular/material/sort';
@@ -16,13 +13,14 @@ import { MatTooltipModule } from '@angular/material/tooltip';
 import { hasAccess } from '../../../shared/roles';
 import type { MaterialRecord } from '../../../shared/stock-types';
 import { MATERIAL_GROUPS, MATERIAL_GROUP_LABELS, type MaterialGroup } from '../../../shared/vocabulary';
-import { Notifier } from '../core/notifier/notifier';
 import { Session } from '../core/session/session';
 import { MaterialFormDialog, type MaterialFormDialogData } from './material-form-dialog';
 import { QuantityPipe } from './quantity';
 import { STOCK_EDITORS, StockApi } from './stock-api';
 import { StockListState } from './stock-list-state';
 import { StockRecordActions } from './stock-record-actions';
+import { StockRowActions } from './stock-row-actions';
+import { StockTablePaginator } from './stock-table-paginator';
 
 /** Stock › Materials: the lab's materials with hardness and handling flags. */
 @Component({
@@ -33,8 +31,6 @@ import { StockRecordActions } from './stock-record-actions';
     MatFormFieldModule,
     MatIconModule,
     MatInputModule,
-    MatMenuModule,
-    MatPaginatorModule,
     MatProgressBarModule,
     MatSelectModule,
     MatSortModule,
@@ -42,6 +38,8 @@ import { StockRecordActions } from './stock-record-actions';
     MatTooltipModule,
     QuantityPipe,
     ReactiveFormsModule,
+    StockRowActions,
+    StockTablePaginator,
   ],
   templateUrl: './stock-materials.html',
   styleUrl: './stock-table.scss',
@@ -49,12 +47,11 @@ import { StockRecordActions } from './stock-record-actions';
 })
 export class StockMaterials {
   private readonly api = inject(StockApi);
-  private readonly dialog = inject(MatDialog);
-  private readonly notifier = inject(Notifier);
   private readonly session = inject(Session);
   private readonly actions = inject(StockRecordActions);
 
   protected readonly list = new StockListState<MaterialRecord>((q) => this.api.materials.list(q), ['name', 'designation', 'group', 'condition', 'updatedAt']);
+  protected readonly rows = this.actions.rowHandlers<MaterialRecord>(this.api.materials, 'material', () => this.list.reload());
   protected readonly canEdit = computed(() => hasAccess(this.session.roles(), STOCK_EDITORS));
   protected readonly units = computed(() => this.session.user()?.units ?? 'metric');
   protected readonly columns = computed(() => {
@@ -72,26 +69,7 @@ export class StockMaterials {
     this.openForm({ material });
   }
 
-  protected async archive(material: MaterialRecord): Promise<void> {
-    if (await this.actions.archive(this.api.materials, material, 'material')) this.list.reload();
-  }
-
-  protected async unarchive(material: MaterialRecord): Promise<void> {
-    if (await this.actions.unarchive(this.api.materials, material, 'material')) this.list.reload();
-  }
-
-  protected async remove(material: MaterialRecord): Promise<void> {
-    if (await this.actions.delete(this.api.materials, material, 'material')) this.list.reload();
-  }
-
   private openForm(data: MaterialFormDialogData): void {
-    this.dialog
-      .open<MaterialFormDialog, MaterialFormDialogData, MaterialRecord>(MaterialFormDialog, { data, width: '680px', maxWidth: '95vw' })
-      .afterClosed()
-      .subscribe((saved) => {
-        if (!saved) return;
-        void this.notifier.show(data.material ? `Changes to ${saved.name} were saved.` : `${saved.name} was added.`, 'OK', 5000);
-        this.list.reload();
-      });
+    this.actions.openForm(MaterialFormDialog, data, { width: '680px', editing: !!data.material }, () => this.list.reload());
   }
 }

@@ -1,3 +1,4 @@
+import type { ComponentType } from '@angular/cdk/portal';
 import { Injectable, inject } from '@angular/core';
 import { MatDialog } from '@angular/material/dialog';
 import { type Observable, firstValueFrom } from 'rxjs';
@@ -12,14 +13,51 @@ export interface ArchivableResource {
   delete(id: number): Observable<DeleteOutcome>;
 }
 
+type StockRecordRef = { id: number; name: string };
+
+/** The row handlers of one stock table; each reloads the table when the record changed. */
+export interface StockRowHandlers<T extends StockRecordRef> {
+  archive(record: T): Promise<void>;
+  unarchive(record: T): Promise<void>;
+  remove(record: T): Promise<void>;
+}
+
 /**
  * Archive, unarchive and delete for every stock kind, each behind a confirmation. Resolves
- * true when the record changed (the caller reloads its table).
+ * true when the record changed (the caller reloads its table). Also opens a kind's form
+ * dialog and tells the user what was saved.
  */
 @Injectable({ providedIn: 'root' })
 export class StockRecordActions {
   private readonly dialog = inject(MatDialog);
   private readonly notifier = inject(Notifier);
+
+  /** Archive, unarchive and delete bound to one table's resource, noun and reload. */
+  rowHandlers<T extends StockRecordRef>(resource: ArchivableResource, noun: string, changed: () => void): StockRowHandlers<T> {
+    return {
+      archive: async (record) => {
+        if (await this.archive(resource, record, noun)) changed();
+      },
+      unarchive: async (record) => {
+        if (await this.unarchive(resource, record, noun)) changed();
+      },
+      remove: async (record) => {
+        if (await this.delete(resource, record, noun)) changed();
+      },
+    };
+  }
+
+  /** Opens a stock kind's add or edit dialog; when it closes with the saved record, says so and calls `saved`. */
+  openForm<D>(component: ComponentType<unknown>, data: D, options: { width: string; editing: boolean }, saved: () => void): void {
+    this.dialog
+      .open<unknown, D, { name: string }>(component, { data, width: options.width, maxWidth: '95vw' })
+      .afterClosed()
+      .subscribe((record) => {
+        if (!record) return;
+        void this.notifier.show(options.editing ? `Changes to ${record.name} were saved.` : `${record.name} was added.`, 'OK', 5000);
+        saved();
+      });
+  }
 
   async archive(resource: ArchivableResource, record: { id: number; name: string }, noun: string): Promise<boolean> {
     const confirmed = await this.confirm({

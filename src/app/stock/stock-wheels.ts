@@ -1,12 +1,9 @@
 import { ChangeDetectionStrategy, Component, computed, inject } from '@angular/core';
 import { ReactiveFormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
-import { MatDialog } from '@angular/material/dialog';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
-import { MatMenuModule } from '@angular/material/menu';
-import { MatPaginatorModule } from '@angular/material/paginator';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSelectModule } from '@angular/material/select';
 import { MatSortModule } from '@angular/material/sort';
@@ -14,12 +11,13 @@ import { MatTableModule } from '@angular/material/table';
 import { hasAccess } from '../../../shared/roles';
 import type { WheelRecord } from '../../../shared/stock-types';
 import type { WheelKind } from '../../../shared/vocabulary';
-import { Notifier } from '../core/notifier/notifier';
 import { Session } from '../core/session/session';
 import { QuantityPipe } from './quantity';
 import { STOCK_EDITORS, StockApi } from './stock-api';
 import { StockListState } from './stock-list-state';
 import { StockRecordActions } from './stock-record-actions';
+import { StockRowActions } from './stock-row-actions';
+import { StockTablePaginator } from './stock-table-paginator';
 import { WheelFormDialog, type WheelFormDialogData } from './wheel-form-dialog';
 
 /** Stock › Wheels: the lab's own cut-off wheels with their marking, size and marked maximum speed. */
@@ -30,14 +28,14 @@ import { WheelFormDialog, type WheelFormDialogData } from './wheel-form-dialog';
     MatFormFieldModule,
     MatIconModule,
     MatInputModule,
-    MatMenuModule,
-    MatPaginatorModule,
     MatProgressBarModule,
     MatSelectModule,
     MatSortModule,
     MatTableModule,
     QuantityPipe,
     ReactiveFormsModule,
+    StockRowActions,
+    StockTablePaginator,
   ],
   templateUrl: './stock-wheels.html',
   styleUrl: './stock-table.scss',
@@ -45,12 +43,11 @@ import { WheelFormDialog, type WheelFormDialogData } from './wheel-form-dialog';
 })
 export class StockWheels {
   private readonly api = inject(StockApi);
-  private readonly dialog = inject(MatDialog);
-  private readonly notifier = inject(Notifier);
   private readonly session = inject(Session);
   private readonly actions = inject(StockRecordActions);
 
   protected readonly list = new StockListState<WheelRecord>((q) => this.api.wheels.list(q), ['name', 'kind', 'specification', 'diameterMm', 'thicknessMm', 'maxSpeedMs']);
+  protected readonly rows = this.actions.rowHandlers<WheelRecord>(this.api.wheels, 'wheel', () => this.list.reload());
   protected readonly canEdit = computed(() => hasAccess(this.session.roles(), STOCK_EDITORS));
   protected readonly units = computed(() => this.session.user()?.units ?? 'metric');
   protected readonly columns = computed(() => {
@@ -67,26 +64,7 @@ export class StockWheels {
     this.openForm({ wheel });
   }
 
-  protected async archive(wheel: WheelRecord): Promise<void> {
-    if (await this.actions.archive(this.api.wheels, wheel, 'wheel')) this.list.reload();
-  }
-
-  protected async unarchive(wheel: WheelRecord): Promise<void> {
-    if (await this.actions.unarchive(this.api.wheels, wheel, 'wheel')) this.list.reload();
-  }
-
-  protected async remove(wheel: WheelRecord): Promise<void> {
-    if (await this.actions.delete(this.api.wheels, wheel, 'wheel')) this.list.reload();
-  }
-
   private openForm(data: WheelFormDialogData): void {
-    this.dialog
-      .open<WheelFormDialog, WheelFormDialogData, WheelRecord>(WheelFormDialog, { data, width: '680px', maxWidth: '95vw' })
-      .afterClosed()
-      .subscribe((saved) => {
-        if (!saved) return;
-        void this.notifier.show(data.wheel ? `Changes to ${saved.name} were saved.` : `${saved.name} was added.`, 'OK', 5000);
-        this.list.reload();
-      });
+    this.actions.openForm(WheelFormDialog, data, { width: '680px', editing: !!data.wheel }, () => this.list.reload());
   }
 }
