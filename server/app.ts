@@ -18,6 +18,7 @@ import { sessionMiddleware } from './web/session-cookie';
 import { SessionStore } from './web/session-store';
 import { spa } from './web/spa';
 import { startSupersessionTimer } from './services/supersession';
+import { createMailTransport, startMailWorker } from './services/mail-worker';
 
 export interface AppDeps {
   config: Config;
@@ -35,6 +36,11 @@ export interface AppDeps {
    * predecessors superseded); 0 turns it off. Default one minute. Safe in every process.
    */
   supersessionIntervalMs?: number;
+  /**
+   * How often the mail outbox is sent; 0 turns it off. Default 15 seconds. Off anyway
+   * without `config.smtpUrl` (mail then waits in the outbox). Safe in every process.
+   */
+  mailIntervalMs?: number;
   /** Where server faults are logged. Default console.error. */
   log?: (...args: unknown[]) => void;
 }
@@ -43,7 +49,7 @@ export interface KerfbookApp {
   app: Express;
   /** Resolves when the session store has checked its table; listen only after it. */
   ready: Promise<void>;
-  /** Stops the app's background work (session clean-up, supersession). Does not close the database. */
+  /** Stops the app's background work (session clean-up, supersession, mail). Does not close the database. */
   close(): void;
 }
 
@@ -85,6 +91,15 @@ export function createApp(deps: AppDeps): KerfbookApp {
   const supersessionMs = deps.supersessionIntervalMs ?? 60 * 1000;
   const stopSupersession = supersessionMs > 0 ? startSupersessionTimer(db, supersessionMs, deps.log) : () => undefined;
 
+  const mailMs = deps.mailIntervalMs ?? 15 * 1000;
+  const stopMail =
+    mailMs > 0 && config.smtpUrl
+      ? startMailWorker(db, createMailTransport(config.smtpUrl, { ignoreTls: !config.production }), mailMs, {
+          ...(config.mailFrom ? { from: config.mailFrom } : {}),
+          ...(deps.log ? { log: deps.log } : {}),
+        })
+      : () => undefined;
+
   const ready = store.ready.then(() => undefined);
   return {
     app,
@@ -92,6 +107,7 @@ export function createApp(deps: AppDeps): KerfbookApp {
     close: () => {
       store.stopCleanup();
       stopSupersession();
+      stopMail();
     },
   };
 }

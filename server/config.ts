@@ -12,6 +12,16 @@ export interface Config {
   /** Folder of the built Angular app that the server serves. */
   distDir: string;
   production: boolean;
+  /**
+   * SMTP server the mail worker sends through, e.g. smtp://127.0.0.1:2525 (smtps:// for
+   * TLS, user:password@ for authentication). Without it the worker is off and mail waits
+   * in the outbox.
+   */
+  smtpUrl?: string;
+  /** From address of every mail, e.g. `Kerfbook <kerfbook@lab.example>`. */
+  mailFrom?: string;
+  /** Public address of the app, for links in mails, e.g. https://kerfbook.lab.example. */
+  appBaseUrl?: string;
 }
 
 export function readConfig(env: NodeJS.ProcessEnv = process.env): Config {
@@ -30,5 +40,8 @@ export function readConfig(env: NodeJS.ProcessEnv = process.env): Config {
     trustProxy: env['TRUST_PROXY'] ? env['TRUST_PROXY'] : false,
     distDir: env['KERFBOOK_DIST'] ?? 'dist/kerfbook/browser',
     production,
+    ...(env['SMTP_URL'] ? { smtpUrl: env['SMTP_URL'] } : {}),
+    ...(env['MAIL_FROM'] ? { mailFrom: env['MAIL_FROM'] } : {}),
+    ...(env['APP_BASE_URL'] ? { appBaseUrl: env['APP_BASE_URL'].replace(/\/+$/, '') } : {}),
   };
 }

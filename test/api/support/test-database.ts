@@ -30,6 +30,7 @@ export async function closeTestDb(): Promise<void> {
 
 /** Tables a test file may fill, children first. lab_settings keeps its migrated row. */
 const TABLES = [
+  'mail_outbox',
   'sheet_prints',
   'cut_records',
   'signatures',
