@@ -8,6 +8,7 @@ import * as benchSheet from './handlers/bench-sheet';
 import * as checkCodes from './handlers/check-codes';
 import * as compare from './handlers/compare';
 import * as cuts from './handlers/cuts';
+import * as devOutbox from './handlers/dev-outbox';
 import * as finder from './handlers/finder';
 import * as health from './handlers/health';
 import * as recipes from './handlers/recipes';
@@ -113,6 +114,7 @@ export const routes: readonly RouteDefinition[] = [
   { method: 'get', path: '/api/audit-events', access: ['auditor', 'admin'], handler: trail.list },
   { method: 'get', path: '/api/audit-events.csv', access: ['auditor', 'admin'], handler: trail.csv },
   { method: 'get', path: '/api/audit-events/verify', access: ['auditor', 'admin'], handler: trail.verify },
+  { method: 'get', path: '/api/dev/outbox', access: ['admin'], handler: devOutbox.list },
 
   // What waits for people: periodic reviews coming due, and the signed-in person's Today lists.
   { method: 'get', path: '/api/reviews/due', access: 'signedIn', handler: workflow.reviewsDue },
