@@ -1,7 +1,7 @@
 /**
  * `npm start`: local MariaDB (unless DATABASE_URL is given), migrations, demo data on an
- * empty database, Angular build, then the server. Ctrl-C stops the server and the MariaDB
- * this script started.
+ * empty database, Angular build, a local mail catcher (unless SMTP_URL is given), then the
+ * server. Ctrl-C stops the server, the catcher and the MariaDB this script started.
  */
 import { spawnSync } from 'node:child_process';
 import path from 'node:path';
@@ -11,6 +11,7 @@ import { serve } from '../serve';
 import { DEMO_ACCOUNTS } from '../../seeds/data/demo-accounts';
 import { migrate, seedDemoIfEmpty } from './db-setup';
 import { ensureDebianPackage, ensureDatabase, initDataDir, isRunning, localMariadb, start, stop } from './local-mariadb';
+import { MAIL_DIR, startMailCatcher, type MailCatcher } from './mail-catcher';
 import { BIN, DATA_DIR, ROOT, persistentSecret } from './project-files';
 
 const env = process.env;
@@ -31,9 +32,20 @@ async function main(): Promise<void> {
     console.log(`[db] MariaDB on 127.0.0.1:${local.port}, data in ${path.relative(ROOT, local.dir)}/${created ? ' (new)' : ''}`);
   }
 
+  let smtpUrl = env['SMTP_URL'];
+  let catcher: MailCatcher | null = null;
+  if (smtpUrl) {
+    console.log('[mail] sending through SMTP_URL.');
+  } else {
+    catcher = await startMailCatcher(2525).catch(() => startMailCatcher(0));
+    smtpUrl = `smtp://127.0.0.1:${catcher.port}`;
+    console.log(`[mail] local catcher on ${smtpUrl}; mail lands in ${path.relative(ROOT, MAIL_DIR)}/ (nothing leaves this machine)`);
+  }
+
   const config = readConfig({
     ...env,
     DATABASE_URL: databaseUrl,
+    SMTP_URL: smtpUrl,
     SESSION_SECRET: env['SESSION_SECRET'] ?? persistentSecret('session-secret'),
   });
   const db = createDb(config.databaseUrl);
@@ -50,8 +62,9 @@ async function main(): Promise<void> {
 
   const server = await serve(config, db);
   const shutdown = async (signal: string) => {
-    console.log(`\n[stop] ${signal}: stopping the server${stopDatabase ? ' and MariaDB' : ''}…`);
+    console.log(`\n[stop] ${signal}: stopping the server${catcher ? ', the mail catcher' : ''}${stopDatabase ? ' and MariaDB' : ''}…`);
     await server.close().catch(() => undefined);
+    if (catcher) await catcher.stop().catch(() => undefined);
     await db.destroy().catch(() => undefined);
     if (stopDatabase) await stopDatabase();
     process.exit(0);
