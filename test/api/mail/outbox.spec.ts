@@ -10,6 +10,8 @@ import type { MailRow } from '../../../server/data/mail-outbox';
 import { enqueueMail } from '../../../server/services/mail-outbox';
 import { CLAIM_MS, createMailTransport, deliverDueMails, retryDelayMs } from '../../../server/services/mail-worker';
 import { startMailCatcher, type MailCatcher } from '../../../server/tools/mail-catcher';
+import { createApp } from '../../../server/app';
+import { testConfig } from '../support/test-app';
 import { countRows, testDb } from '../support/test-database';
 
 const T0 = new Date('2027-03-01T08:00:00.000Z');
@@ -187,6 +189,47 @@ describe('Mail outbox', () => {
     // Once the other worker's claim has run out too, the mail is sent here.
     expect(await deliverDueMails(db, transport, at(60 * 1000))).to.deep.equal({ sent: 1, failed: 0 });
     expect(catcher.messages()).to.have.length(2);
+  });
+
+  it('runs on a timer started by the app when SMTP_URL is set, and stops when the app closes', async function () {
+    this.timeout(20000);
+    catcher = await startMailCatcher(0, { dir: null });
+    const id = await db.transaction((trx) => enqueueMail(trx, { to: 'timer@lab.example', subject: 'From the timer', text: 'Sent by the worker.', kind: 'test.notice' }));
+    const built = createApp({
+      config: testConfig({ smtpUrl: `smtp://127.0.0.1:${catcher.port}`, mailFrom: 'Kerfbook Timer <timer-sender@lab.example>' }),
+      db,
+      sessionCleanupIntervalMs: 0,
+      supersessionIntervalMs: 0,
+      mailIntervalMs: 50,
+    });
+    try {
+      await built.ready;
+      const deadline = Date.now() + 10000;
+      while (catcher.messages().length === 0 && Date.now() < deadline) await new Promise((r) => setTimeout(r, 50));
+    } finally {
+      built.close();
+    }
+    expect(catcher.messages().map((m) => [m.to, m.from, m.subject])).to.deep.equal([[['timer@lab.example'], 'timer-sender@lab.example', 'From the timer']]);
+    expect((await row(id)).sent_at).to.be.instanceOf(Date);
+
+    // Closed: a mail enqueued now stays in the outbox.
+    const later = await enqueue(2);
+    await new Promise((r) => setTimeout(r, 300));
+    expect((await row(later)).sent_at).to.equal(null);
+    expect(catcher.messages()).to.have.length(1);
+  });
+
+  it('leaves mail in the outbox when no SMTP_URL is set', async () => {
+    const id = await enqueue(1);
+    const built = createApp({ config: testConfig(), db, sessionCleanupIntervalMs: 0, supersessionIntervalMs: 0, mailIntervalMs: 50 });
+    try {
+      await built.ready;
+      await new Promise((r) => setTimeout(r, 300));
+    } finally {
+      built.close();
+    }
+    expect((await row(id)).sent_at).to.equal(null);
+    expect((await row(id)).attempts).to.equal(0);
   });
 
   it('claims a row for longer than the transport may take to give up', () => {
