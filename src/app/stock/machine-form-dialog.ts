@@ -6,7 +6,6 @@ import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
 import { MatRadioModule } from '@angular/material/radio';
 import { MatSelectModule } from '@angular/material/select';
-import { firstValueFrom } from 'rxjs';
 import { machineBody } from '../../../shared/schemas/stock';
 import type { MachineRecord } from '../../../shared/stock-types';
 import {
@@ -21,12 +20,9 @@ import {
   type MachineClass,
 } from '../../../shared/vocabulary';
 import { controlMessage } from '../core/forms/control-message';
-import { applyServerErrors } from '../core/forms/server-errors';
 import { zodValidator } from '../core/forms/zod-validator';
-import { isApiError } from '../core/http/api-error';
-import { callerHandles } from '../core/http/caller-handles';
+import { saveStockForm } from './save-stock-form';
 import { StockApi } from './stock-api';
-import { checkWholeBody } from './whole-body-check';
 
 export interface MachineFormDialogData {
   /** The machine to edit; absent to add one. */
@@ -78,25 +74,16 @@ export class MachineFormDialog {
   });
 
   protected async save(): Promise<void> {
-    this.formError.set('');
-    if (this.form.invalid) {
-      this.form.markAllAsTouched();
-      return;
-    }
-    const body = checkWholeBody(this.form, machineBody, this.form.getRawValue(), (messages) => this.formError.set(messages.join(' ')));
-    if (!body) return;
-    const context = callerHandles(400, 409);
-    this.busy.set(true);
-    try {
-      const saved = this.machine
-        ? await firstValueFrom(this.api.machines.update(this.machine.id, body, context))
-        : await firstValueFrom(this.api.machines.create(body, context));
-      this.dialogRef.close(saved);
-    } catch (e) {
-      if (!isApiError(e)) throw e;
-      if (e.status === 400 || e.status === 409) this.formError.set(applyServerErrors(this.form, e.errors).join(' '));
-    } finally {
-      this.busy.set(false);
-    }
+    const saved = await saveStockForm({
+      form: this.form,
+      schema: machineBody,
+      candidate: this.form.getRawValue(),
+      resource: this.api.machines,
+      id: this.machine?.id,
+      busy: this.busy,
+      formError: this.formError,
+    });
+    if (saved) this.dialogRef.close(saved);
   }
+
 }

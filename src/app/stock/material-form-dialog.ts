@@ -7,17 +7,13 @@ import { MAT_DIALOG_DATA, MatDialogModule, MatDialogRef } from '@angular/materia
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
-import { firstValueFrom } from 'rxjs';
 import { hardnessValue, materialBody, materialGroup } from '../../../shared/schemas/stock';
 import type { MaterialRecord } from '../../../shared/stock-types';
 import { HARDNESS_SCALES, type HardnessScale, MATERIAL_GROUPS, MATERIAL_GROUP_LABELS, type MaterialGroup } from '../../../shared/vocabulary';
 import { controlMessage } from '../core/forms/control-message';
-import { applyServerErrors } from '../core/forms/server-errors';
 import { zodValidator } from '../core/forms/zod-validator';
-import { isApiError } from '../core/http/api-error';
-import { callerHandles } from '../core/http/caller-handles';
+import { saveStockForm } from './save-stock-form';
 import { StockApi } from './stock-api';
-import { checkWholeBody } from './whole-body-check';
 
 export interface MaterialFormDialogData {
   /** The material to edit; absent to add one. */
@@ -76,33 +72,21 @@ export class MaterialFormDialog {
   }
 
   protected async save(): Promise<void> {
-    this.formError.set('');
-    if (this.form.invalid) {
-      this.form.markAllAsTouched();
-      return;
-    }
     const value = this.form.getRawValue();
-    const candidate = {
-      ...value,
-      hardness: value.hardness.value === null ? null : { value: value.hardness.value, scale: value.hardness.scale },
-      caseDepthMm: value.caseHardened ? value.caseDepthMm : null,
-    };
-    const body = checkWholeBody(this.form, materialBody, candidate, (messages) => this.formError.set(messages.join(' ')));
-    if (!body) return;
-
-    // 400 field errors and 409 (name taken) are shown in this form, not as a snack bar.
-    const context = callerHandles(400, 409);
-    this.busy.set(true);
-    try {
-      const saved = this.material
-        ? await firstValueFrom(this.api.materials.update(this.material.id, body, context))
-        : await firstValueFrom(this.api.materials.create(body, context));
-      this.dialogRef.close(saved);
-    } catch (e) {
-      if (!isApiError(e)) throw e;
-      if (e.status === 400 || e.status === 409) this.formError.set(applyServerErrors(this.form, e.errors).join(' '));
-    } finally {
-      this.busy.set(false);
-    }
+    const saved = await saveStockForm({
+      form: this.form,
+      schema: materialBody,
+      candidate: {
+        ...value,
+        hardness: value.hardness.value === null ? null : { value: value.hardness.value, scale: value.hardness.scale },
+        caseDepthMm: value.caseHardened ? value.caseDepthMm : null,
+      },
+      resource: this.api.materials,
+      id: this.material?.id,
+      busy: this.busy,
+      formError: this.formError,
+    });
+    if (saved) this.dialogRef.close(saved);
   }
+
 }

@@ -6,17 +6,13 @@ import { MAT_DIALOG_DATA, MatDialogModule, MatDialogRef } from '@angular/materia
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
-import { firstValueFrom } from 'rxjs';
 import { wheelBody } from '../../../shared/schemas/stock';
 import type { WheelRecord } from '../../../shared/stock-types';
 import { WHEEL_KINDS, WHEEL_KIND_LABELS, type WheelKind } from '../../../shared/vocabulary';
 import { controlMessage } from '../core/forms/control-message';
-import { applyServerErrors } from '../core/forms/server-errors';
 import { zodValidator } from '../core/forms/zod-validator';
-import { isApiError } from '../core/http/api-error';
-import { callerHandles } from '../core/http/caller-handles';
+import { saveStockForm } from './save-stock-form';
 import { StockApi } from './stock-api';
-import { checkWholeBody } from './whole-body-check';
 
 export interface WheelFormDialogData {
   /** The wheel to edit; absent to add one. */
@@ -58,25 +54,16 @@ export class WheelFormDialog {
   });
 
   protected async save(): Promise<void> {
-    this.formError.set('');
-    if (this.form.invalid) {
-      this.form.markAllAsTouched();
-      return;
-    }
-    const body = checkWholeBody(this.form, wheelBody, this.form.getRawValue(), (messages) => this.formError.set(messages.join(' ')));
-    if (!body) return;
-    const context = callerHandles(400, 409);
-    this.busy.set(true);
-    try {
-      const saved = this.wheel
-        ? await firstValueFrom(this.api.wheels.update(this.wheel.id, body, context))
-        : await firstValueFrom(this.api.wheels.create(body, context));
-      this.dialogRef.close(saved);
-    } catch (e) {
-      if (!isApiError(e)) throw e;
-      if (e.status === 400 || e.status === 409) this.formError.set(applyServerErrors(this.form, e.errors).join(' '));
-    } finally {
-      this.busy.set(false);
-    }
+    const saved = await saveStockForm({
+      form: this.form,
+      schema: wheelBody,
+      candidate: this.form.getRawValue(),
+      resource: this.api.wheels,
+      id: this.wheel?.id,
+      busy: this.busy,
+      formError: this.formError,
+    });
+    if (saved) this.dialogRef.close(saved);
   }
+
 }
