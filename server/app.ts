@@ -19,6 +19,7 @@ import { SessionStore } from './web/session-store';
 import { spa } from './web/spa';
 import { startSupersessionTimer } from './services/supersession';
 import { createMailTransport, startMailWorker } from './services/mail-worker';
+import { mailSettingsOf } from './services/mail/mail-settings';
 
 export interface AppDeps {
   config: Config;
@@ -81,7 +82,8 @@ export function createApp(deps: AppDeps): KerfbookApp {
   app.use('/api', jsonContentTypeOnly(multipartPaths), jsonBody, cookieParser(), sessionMiddleware(store, config.sessionSecret));
   app.use('/api', auth.initialize(), auth.session());
   app.use('/api', csrf.protect);
-  app.use(buildRouter(routes, { db, csrf, auth }));
+  const mail = mailSettingsOf(config);
+  app.use(buildRouter(routes, { db, csrf, auth, mail, devOutbox: !config.production }));
   if (deps.extraApiRouter) app.use('/api', deps.extraApiRouter);
   app.use('/api', apiNotFound);
 

@@ -1,3 +1,4 @@
+import type { NotificationKind } from './notification-kinds';
 import type { Role } from './roles';
 
 /** Unit display preference; stored values are always metric (design 5.10). */
@@ -14,6 +15,10 @@ export interface UserDto {
   /** True when an admin set a temporary password that must be changed at the next sign-in. */
   mustChangePassword: boolean;
   units: UnitPreference;
+  /** Machines the person runs (operators; design 3), ids ascending. */
+  machineIds: number[];
+  /** Invited by e-mail and has not set a password yet (the link may have expired). */
+  invitationPending: boolean;
   /** ISO 8601 UTC timestamps. */
   createdAt: string;
   lastSignInAt: string | null;
@@ -24,6 +29,8 @@ export interface SessionDto {
   user: UserDto;
   /** Token to send in the `x-csrf-token` header on every state-changing request. */
   csrfToken: string;
+  /** True when this server keeps a development outbox (GET /api/dev/outbox); false in production. */
+  devOutbox: boolean;
 }
 
 /** GET /api/session/csrf — a token for the anonymous session (needed to sign in). */
@@ -41,3 +48,47 @@ export interface Page<T> {
 
 /** The name of the header that carries the CSRF token. */
 export const CSRF_HEADER = 'x-csrf-token';
+
+/** One notification kind in GET/PATCH /api/session/notifications. */
+export interface NotificationPreferenceDto {
+  kind: NotificationKind;
+  label: string;
+  audience: string;
+  /** False for the mails that cannot be turned off (acknowledgement requests). */
+  optional: boolean;
+  enabled: boolean;
+}
+
+/** GET and PATCH /api/session/notifications answer with this. */
+export interface NotificationPreferencesDto {
+  items: NotificationPreferenceDto[];
+}
+
+/** POST /api/password/link: what a valid single-use link is for. */
+export interface LinkInfoDto {
+  purpose: 'invitation' | 'password-reset';
+  username: string;
+  displayName: string;
+  /** ISO 8601 UTC. */
+  expiresAt: string;
+}
+
+/** POST /api/password/forgot and POST /api/users/:id/invitation answer with a message only. */
+export interface MessageDto {
+  message: string;
+}
+
+/** One row of the development outbox (GET /api/dev/outbox → { items }). */
+export interface OutboxEntryDto {
+  id: number;
+  to: string;
+  subject: string;
+  kind: string;
+  created: string;
+  sent: string | null;
+  attempts: number;
+  lastError: string | null;
+  sendAfter: string;
+  /** The plain-text part, for reading the mail and following its links. */
+  text: string;
+}

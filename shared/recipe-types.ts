@@ -44,6 +44,29 @@ export interface RecipeVersionDto {
   attachments: AttachmentDto[];
   /** Signatures, dates and editors; present on every version once the review workflow is in. */
   workflow?: VersionWorkflowDto;
+  /**
+   * For an operator assigned to this version's machine, while the version is current or
+   * approved: whether they must still acknowledge it ("read and understood") before the
+   * sheet opens. Null for everyone else.
+   */
+  myAcknowledgement?: MyAcknowledgementDto | null;
+}
+
+/** The signed-in operator's acknowledgement of one version. */
+export interface MyAcknowledgementDto {
+  required: boolean;
+  /** ISO 8601 UTC, when they acknowledged; null while still to do. */
+  acknowledgedAt: string | null;
+}
+
+/** GET /api/recipes/:id/versions/:n/acknowledgements — who has read and understood a version. */
+export interface AcknowledgementsDto {
+  recipeId: number;
+  version: number;
+  machine: { id: number; name: string };
+  acknowledged: { userId: number; displayName: string; acknowledgedAt: string }[];
+  /** Active operators assigned to the machine who have not acknowledged yet. */
+  pending: { userId: number; displayName: string }[];
 }
 
 export interface AttachmentDto {

@@ -1,6 +1,7 @@
 import type { Request, Response } from 'express';
 import type { Knex } from 'knex';
 import type { Access } from '../../shared/roles';
+import type { MailSettings } from '../services/mail/mail-settings';
 import type { Authenticator } from './authentication';
 import type { Csrf } from './csrf';
 
@@ -9,6 +10,10 @@ export interface RouteContext {
   db: Knex;
   csrf: Csrf;
   auth: Authenticator;
+  /** Where links in mails point (APP_BASE_URL). */
+  mail: MailSettings;
+  /** True outside production: the development outbox answers. */
+  devOutbox: boolean;
 }
 
 export type RouteHandler = (req: Request, res: Response, ctx: RouteContext) => Promise<void> | void;

@@ -3,6 +3,7 @@
  * the role-walk test are both built from this table. Within a path, specific routes come
  * before parameterised ones.
  */
+import * as acknowledgements from './handlers/acknowledgements';
 import * as attachments from './handlers/attachments';
 import * as benchSheet from './handlers/bench-sheet';
 import * as checkCodes from './handlers/check-codes';
@@ -11,6 +12,8 @@ import * as cuts from './handlers/cuts';
 import * as devOutbox from './handlers/dev-outbox';
 import * as finder from './handlers/finder';
 import * as health from './handlers/health';
+import * as notifications from './handlers/notifications';
+import * as passwordLinks from './handlers/password-links';
 import * as recipes from './handlers/recipes';
 import * as selectionRows from './handlers/selection-rows';
 import * as session from './handlers/session';
@@ -35,15 +38,24 @@ export const routes: readonly RouteDefinition[] = [
   { method: 'delete', path: '/api/session', access: 'signedIn', handler: session.signOut, whilePasswordChangeRequired: true },
   { method: 'post', path: '/api/session/password', access: 'signedIn', handler: session.changePassword, whilePasswordChangeRequired: true },
   { method: 'patch', path: '/api/session/preferences', access: 'signedIn', handler: session.updatePreferences },
+  { method: 'get', path: '/api/session/notifications', access: 'signedIn', handler: notifications.get },
+  { method: 'patch', path: '/api/session/notifications', access: 'signedIn', handler: notifications.update },
+
+  // Single-use links from mails (invitation 72 h, password reset 1 h). "Forgot" answers the same for any address.
+  { method: 'post', path: '/api/password/forgot', access: 'public', handler: passwordLinks.forgot },
+  { method: 'post', path: '/api/password/link', access: 'public', handler: passwordLinks.inspect },
+  { method: 'post', path: '/api/password/set', access: 'public', handler: passwordLinks.set },
 
   // People (admin).
   { method: 'get', path: '/api/users', access: ['admin'], handler: users.list },
   { method: 'post', path: '/api/users', access: ['admin'], handler: users.create },
+  { method: 'post', path: '/api/users/invitations', access: ['admin'], handler: users.invite },
   { method: 'get', path: '/api/users/:id', access: ['admin'], handler: users.getOne },
   { method: 'patch', path: '/api/users/:id', access: ['admin'], handler: users.update },
   { method: 'post', path: '/api/users/:id/deactivate', access: ['admin'], handler: users.deactivate },
   { method: 'post', path: '/api/users/:id/reactivate', access: ['admin'], handler: users.reactivate },
   { method: 'post', path: '/api/users/:id/temporary-password', access: ['admin'], handler: users.setTemporaryPassword },
+  { method: 'post', path: '/api/users/:id/invitation', access: ['admin'], handler: users.resendInvitation },
 
   // Stock: everyone signed in reads; authors and admins edit. DELETE archives a referenced record.
   { method: 'get', path: '/api/materials', access: 'signedIn', handler: materials.list },
@@ -94,6 +106,9 @@ export const routes: readonly RouteDefinition[] = [
   { method: 'post', path: '/api/recipes/:id/versions/:n/comments', access: ['author', 'approver'], handler: workflow.addComment },
   { method: 'post', path: '/api/recipes/:id/versions/:n/attachments', access: ['author'], handler: attachments.upload, multipart: true },
   { method: 'delete', path: '/api/recipes/:id/versions/:n/attachments/:attachmentId', access: ['author'], handler: attachments.remove },
+  // "Read and understood" (design 4): operators of the version's machine acknowledge; others see who has not.
+  { method: 'post', path: '/api/recipes/:id/versions/:n/acknowledge', access: ['operator'], handler: acknowledgements.acknowledge },
+  { method: 'get', path: '/api/recipes/:id/versions/:n/acknowledgements', access: ['author', 'approver', 'auditor', 'admin'], handler: acknowledgements.list },
   // The bench sheet of an approved version (current or approved for a later day); every print is recorded.
   { method: 'get', path: '/api/recipes/:id/versions/:n/sheet.pdf', access: 'signedIn', handler: benchSheet.sheet },
   // Cut records: operators log cuts on the current version; everyone signed in reads them.

@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { ROLES } from '../roles';
 import { displayName, email, newPassword, username } from './fields';
+import { machineIdList, requiredEmail } from './mail';
 
 export const role = z.enum(ROLES, { error: `Role must be one of: ${ROLES.join(', ')}.` });
 
@@ -16,8 +17,20 @@ export const createUserBody = z.strictObject({
   email: email.optional().default(''),
   roles: roleList,
   temporaryPassword: newPassword,
+  /** Machines an operator runs (design 3). */
+  machineIds: machineIdList.optional().default([]),
 });
 export type CreateUserBody = z.infer<typeof createUserBody>;
+
+/** POST /api/users/invitations — an admin invites a person by e-mail; they set their own password (72 h link). */
+export const inviteBody = z.strictObject({
+  username,
+  displayName,
+  email: requiredEmail,
+  roles: roleList,
+  machineIds: machineIdList.optional().default([]),
+});
+export type InviteBody = z.infer<typeof inviteBody>;
 
 /** PATCH /api/users/:id — change name, e-mail or roles. */
 export const updateUserBody = z
@@ -25,6 +38,7 @@ export const updateUserBody = z
     displayName: displayName.optional(),
     email: email.optional(),
     roles: roleList.optional(),
+    machineIds: machineIdList.optional(),
   })
   .refine((b) => Object.keys(b).length > 0, 'Nothing to change.');
 export type UpdateUserBody = z.infer<typeof updateUserBody>;

@@ -1,3 +1,4 @@
+import { AppError } from '../../app-error';
 import { createUserBody, temporaryPasswordBody, updateUserBody, userListQuery } from '../../../shared/schemas/users';
 import * as people from '../../services/users';
 import type { RouteHandler } from '../route-definition';
@@ -35,4 +36,12 @@ export const setTemporaryPassword: RouteHandler = async (req, res, { db }) => {
   const id = idOf(req.params);
   const body = parse(temporaryPasswordBody, bodyOf(req.body));
   res.json(await people.setTemporaryPassword(db, actorOf(req), id, body.password));
+};
+
+// Contract stubs (issue 6): replaced by the real handlers.
+export const invite: RouteHandler = () => {
+  throw new AppError(501, 'NOT_BUILT', [{ path: '', message: 'Not built yet.' }]);
+};
+export const resendInvitation: RouteHandler = () => {
+  throw new AppError(501, 'NOT_BUILT', [{ path: '', message: 'Not built yet.' }]);
 };

@@ -31,6 +31,11 @@ export async function closeTestDb(): Promise<void> {
 /** Tables a test file may fill, children first. lab_settings keeps its migrated row. */
 const TABLES = [
   'mail_outbox',
+  'review_reminders',
+  'acknowledgements',
+  'notification_opt_outs',
+  'user_tokens',
+  'user_machines',
   'sheet_prints',
   'cut_records',
   'signatures',

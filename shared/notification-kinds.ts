@@ -1,0 +1,25 @@
+/**
+ * The mails Kerfbook sends about work (design 4, 7), as a person sees them in their
+ * account. `optional: false` — the request to acknowledge a new current version — cannot be
+ * turned off: an operator must hear of a change to a recipe for their machine.
+ */
+export const NOTIFICATION_KINDS = ['review-requested', 'review-outcome', 'review-due', 'cut-flagged', 'version-current'] as const;
+export type NotificationKind = (typeof NOTIFICATION_KINDS)[number];
+
+export interface NotificationKindInfo {
+  kind: NotificationKind;
+  label: string;
+  /** Who gets it. */
+  audience: string;
+  optional: boolean;
+}
+
+export const NOTIFICATION_INFO: readonly NotificationKindInfo[] = [
+  { kind: 'review-requested', label: 'A version was sent for review', audience: 'approvers', optional: true },
+  { kind: 'review-outcome', label: 'My version was returned or approved', audience: 'authors', optional: true },
+  { kind: 'review-due', label: 'A periodic review of my recipe is coming due', audience: 'authors', optional: true },
+  { kind: 'cut-flagged', label: 'An operator flagged a cut on my recipe', audience: 'authors', optional: true },
+  { kind: 'version-current', label: 'A new version is in use on my machine (acknowledge it)', audience: 'operators', optional: false },
+];
+
+export const OPTIONAL_NOTIFICATION_KINDS = NOTIFICATION_INFO.filter((k) => k.optional).map((k) => k.kind);
