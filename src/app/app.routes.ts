@@ -23,6 +23,19 @@ export const routes: Routes = [
     loadComponent: () => import('./sign-in/sign-in').then((m) => m.SignIn),
   },
   {
+    path: 'forgot-password',
+    title: 'Forgot password · Kerfbook',
+    data: { access: 'public' } satisfies AccessData,
+    loadComponent: () => import('./password-links/forgot-password').then((m) => m.ForgotPassword),
+  },
+  {
+    // Invitation and password-reset links from mails: /set-password?token=…
+    path: 'set-password',
+    title: 'Set your password · Kerfbook',
+    data: { access: 'public' } satisfies AccessData,
+    loadComponent: () => import('./password-links/set-password').then((m) => m.SetPassword),
+  },
+  {
     path: '',
     canActivate: [accessGuard],
     data: { access: 'signedIn' } satisfies AccessData,
@@ -76,6 +89,15 @@ export const routes: Routes = [
         canActivate: [accessGuard],
         data: { access: 'signedIn' } satisfies AccessData,
         loadComponent: () => import('./compare/compare-page').then((m) => m.ComparePage),
+      },
+      {
+        // The link in a "new version in use" mail: /recipes/:id/acknowledge?v=N
+        path: 'recipes/:id/acknowledge',
+        title: 'Acknowledge a version · Kerfbook',
+        canMatch: [numericIdParam],
+        canActivate: [accessGuard],
+        data: { access: ['operator'] } satisfies AccessData,
+        loadComponent: () => import('./acknowledge/acknowledge-page').then((m) => m.AcknowledgePage),
       },
       {
         // Numeric ids only, so /recipes/new (the editor) never lands here whatever the order.
@@ -133,6 +155,14 @@ export const routes: Routes = [
         canActivate: [accessGuard],
         data: { access: ['admin'] } satisfies AccessData,
         loadChildren: () => import('./people/people.routes').then((m) => m.peopleRoutes),
+      },
+      {
+        // Development only: the mails the local catcher received (the server answers 404 in production).
+        path: 'outbox',
+        title: 'Outbox · Kerfbook',
+        canActivate: [accessGuard],
+        data: { access: ['admin'] } satisfies AccessData,
+        loadComponent: () => import('./outbox/outbox').then((m) => m.Outbox),
       },
       {
         path: 'account',
