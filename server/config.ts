@@ -22,6 +22,8 @@ export interface Config {
   mailFrom?: string;
   /** Public address of the app, for links in mails, e.g. https://kerfbook.lab.example. */
   appBaseUrl?: string;
+  /** How often the mail worker looks at the outbox, ms (MAIL_INTERVAL_MS); default 15 s. */
+  mailIntervalMs?: number;
 }
 
 export function readConfig(env: NodeJS.ProcessEnv = process.env): Config {
@@ -43,5 +45,12 @@ export function readConfig(env: NodeJS.ProcessEnv = process.env): Config {
     ...(env['SMTP_URL'] ? { smtpUrl: env['SMTP_URL'] } : {}),
     ...(env['MAIL_FROM'] ? { mailFrom: env['MAIL_FROM'] } : {}),
     ...(env['APP_BASE_URL'] ? { appBaseUrl: env['APP_BASE_URL'].replace(/\/+$/, '') } : {}),
+    ...(env['MAIL_INTERVAL_MS'] ? { mailIntervalMs: positiveMs(env['MAIL_INTERVAL_MS'], 'MAIL_INTERVAL_MS') } : {}),
   };
+}
+
+function positiveMs(text: string, name: string): number {
+  const n = Number(text);
+  if (!Number.isInteger(n) || n < 100) throw new Error(`${name} must be a whole number of milliseconds, at least 100.`);
+  return n;
 }

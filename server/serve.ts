@@ -13,7 +13,7 @@ export interface RunningServer {
 }
 
 export async function serve(config: Config, db: Knex): Promise<RunningServer> {
-  const { app, ready, close: closeApp } = createApp({ config, db });
+  const { app, ready, close: closeApp } = createApp({ config, db, ...(config.mailIntervalMs ? { mailIntervalMs: config.mailIntervalMs } : {}) });
   await ready;
   const server = http.createServer(app);
   await new Promise<void>((resolve, reject) => {

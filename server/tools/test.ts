@@ -11,6 +11,7 @@ import path from 'node:path';
 import { createDb } from '../data/db';
 import { migrate, seedDemoIfEmpty } from './db-setup';
 import { ensureDebianPackage, ensureDatabase, initDataDir, localMariadb, start, stop } from './local-mariadb';
+import { startMailCatcher } from './mail-catcher';
 import { BIN, DATA_DIR, ROOT } from './project-files';
 import { type Counts, mochaCounts, vitestCounts } from './suite-counts';
 
@@ -138,9 +139,24 @@ async function runE2e(databaseUrl: string): Promise<Counts | null> {
 
   const port = await freePort();
   const baseUrl = `http://127.0.0.1:${port}`;
+  // The local mail catcher stands in for a mail service; the browser tests read what it
+  // caught from its folder (they run in another process) and follow the links.
+  const mailDir = path.join(DATA_DIR, `test-mail-${process.pid}`);
+  fs.rmSync(mailDir, { recursive: true, force: true });
+  const catcher = await startMailCatcher(0, { dir: mailDir });
+  console.log(`[test] mail catcher on smtp://127.0.0.1:${catcher.port}`);
   const server = spawn(path.join(BIN, 'tsx'), ['server/main.ts'], {
     cwd: ROOT,
-    env: { ...env, DATABASE_URL: databaseUrl, PORT: String(port), HOST: '127.0.0.1', SESSION_SECRET: 'e2e-'.padEnd(48, 'x') },
+    env: {
+      ...env,
+      DATABASE_URL: databaseUrl,
+      PORT: String(port),
+      HOST: '127.0.0.1',
+      SESSION_SECRET: 'e2e-'.padEnd(48, 'x'),
+      SMTP_URL: `smtp://127.0.0.1:${catcher.port}`,
+      APP_BASE_URL: baseUrl,
+      MAIL_INTERVAL_MS: '500',
+    },
     stdio: ['ignore', 'inherit', 'inherit'],
   });
   try {
@@ -148,6 +164,7 @@ async function runE2e(databaseUrl: string): Promise<Counts | null> {
     const e2e = await run(path.join(BIN, 'mocha'), ['--config', 'test/e2e/.mocharc.json'], {
       BASE_URL: baseUrl,
       E2E_DATABASE_URL: databaseUrl,
+      E2E_MAIL_DIR: mailDir,
     });
     const counts = mochaCounts(e2e.output);
     if (e2e.code !== 0 && counts && counts.failed === 0) counts.failed = 1;
@@ -157,6 +174,8 @@ async function runE2e(databaseUrl: string): Promise<Counts | null> {
       server.kill('SIGTERM');
       await new Promise((r) => server.once('exit', r));
     }
+    await catcher.stop();
+    fs.rmSync(mailDir, { recursive: true, force: true });
   }
 }
 
