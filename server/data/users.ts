@@ -2,6 +2,8 @@
 import type { Knex } from 'knex';
 import { ROLES, type Role } from '../../shared/roles';
 import type { UnitPreference } from '../../shared/api-types';
+import { usersWithOpenInvitation } from './user-tokens';
+import { machineIdsOf } from './user-machines';
 
 export interface UserRow {
   id: number;
@@ -21,6 +23,10 @@ export interface UserRow {
 
 export interface UserWithRoles extends UserRow {
   roles: Role[];
+  /** Machines the person runs, ascending. */
+  machine_ids: number[];
+  /** An open invitation link exists: invited and no password set yet (see user-tokens.ts). */
+  invitation_pending: boolean;
 }
 
 export async function findUserRowById(db: Knex, id: number, forUpdate = false): Promise<UserRow | undefined> {
@@ -54,7 +60,26 @@ export function sortRoles(roles: readonly Role[]): Role[] {
 export async function findUserById(db: Knex, id: number, forUpdate = false): Promise<UserWithRoles | undefined> {
   const row = await findUserRowById(db, id, forUpdate);
   if (!row) return undefined;
-  return { ...row, roles: await rolesOf(db, id) };
+  return (await withRelations(db, [row]))[0];
+}
+
+/** Roles, machines and invitation state for many rows: one query each, whatever the number of rows. */
+export async function withRelations(db: Knex, rows: readonly UserRow[]): Promise<UserWithRoles[]> {
+  const ids = rows.map((r) => r.id);
+  const [roles, machines, pending] = [await rolesOfMany(db, ids), await machineIdsOf(db, ids), await usersWithOpenInvitation(db, ids)];
+  return rows.map((row) => ({
+    ...row,
+    roles: roles.get(row.id) ?? [],
+    machine_ids: machines.get(row.id) ?? [],
+    invitation_pending: pending.has(row.id),
+  }));
+}
+
+/** Active people with this e-mail address, compared without regard to case. */
+export async function findActiveUsersByEmail(db: Knex, email: string): Promise<UserRow[]> {
+  const address = email.trim().toLowerCase();
+  if (!address) return [];
+  return db<UserRow>('users').whereRaw('LOWER(email) = ?', [address]).andWhere({ active: true }).orderBy('id');
 }
 
 export interface NewUserRow {

@@ -19,6 +19,12 @@ export const AUDIT_EVENTS = {
   userTemporaryPasswordSet: 'user.temporary_password_set',
   ownPasswordChanged: 'user.password_changed',
   preferencesChanged: 'user.preferences_changed',
+  userInvited: 'user.invited',
+  invitationResent: 'user.invitation_resent',
+  userMachinesChanged: 'user.machines_changed',
+  passwordSetByLink: 'user.password_set_by_link',
+  passwordResetRequested: 'user.password_reset_requested',
+  notificationPreferencesChanged: 'user.notification_preferences_changed',
   signedIn: 'session.signed_in',
   signInFailed: 'session.sign_in_failed',
   signedOut: 'session.signed_out',
@@ -55,6 +61,7 @@ export const AUDIT_EVENTS = {
   sheetPrinted: 'sheet.printed',
   cutRecorded: 'cut.recorded',
   cutFlagCleared: 'cut.flag_cleared',
+  versionAcknowledged: 'version.acknowledged',
 } as const;
 
 export type AuditEventType = (typeof AUDIT_EVENTS)[keyof typeof AUDIT_EVENTS];

@@ -40,6 +40,8 @@ export interface OutboxEntry {
   attempts: number;
   lastError: string | null;
   sendAfter: string;
+  /** The plain-text part, for reading the mail and following its links. */
+  text: string;
 }
 
 /** The newest `limit` outbox rows, newest first. */
@@ -54,5 +56,6 @@ export async function listOutbox(db: Knex, limit = 200): Promise<OutboxEntry[]> 
     attempts: r.attempts,
     lastError: r.last_error,
     sendAfter: r.send_after.toISOString(),
+    text: r.text_body,
   }));
 }

@@ -12,6 +12,8 @@ export function toUserDto(user: UserWithRoles): UserDto {
     active: Boolean(user.active),
     mustChangePassword: Boolean(user.must_change_password),
     units: user.units,
+    machineIds: user.machine_ids,
+    invitationPending: user.invitation_pending,
     createdAt: new Date(user.created_at).toISOString(),
     lastSignInAt: user.last_sign_in_at ? new Date(user.last_sign_in_at).toISOString() : null,
   };
@@ -28,5 +30,6 @@ export function auditSnapshot(user: UserWithRoles): Record<string, unknown> {
     active: dto.active,
     mustChangePassword: dto.mustChangePassword,
     units: dto.units,
+    machineIds: dto.machineIds,
   };
 }

@@ -1,7 +1,8 @@
 /** People, managed by admins (design section 2). Nobody is ever deleted: people are deactivated. */
 import type { Knex } from 'knex';
-import type { Page, UserDto } from '../../shared/api-types';
-import type { CreateUserBody, UpdateUserBody, UserListQuery } from '../../shared/schemas/users';
+import { randomBytes } from 'node:crypto';
+import type { MessageDto, Page, UserDto } from '../../shared/api-types';
+import type { CreateUserBody, InviteBody, UpdateUserBody, UserListQuery } from '../../shared/schemas/users';
 import type { Role } from '../../shared/roles';
 import { AppError } from '../app-error';
 import {
@@ -11,22 +12,28 @@ import {
   insertUser,
   listUserRows,
   replaceRoles,
-  rolesOfMany,
   sortRoles,
   updateUserRow,
+  withRelations,
   type UserWithRoles,
 } from '../data/users';
+import { findLabSettings } from '../data/lab-settings';
+import { replaceUserMachines, unusableMachineIds } from '../data/user-machines';
 import type { Actor } from './actor';
 import { AUDIT_EVENTS, recordAudit } from './audit';
 import { replacePassword } from './password-replacement';
 import { hashPassword } from './passwords';
 import { auditSnapshot, toUserDto } from './user-dto';
+import { enqueueMail } from './mail-outbox';
+import { invitationMail } from './mail/account-mails';
+import type { MailSettings } from './mail/mail-settings';
+import { issueToken } from './user-tokens';
 
 export async function listUsers(db: Knex, query: UserListQuery): Promise<Page<UserDto>> {
   const { rows, total } = await listUserRows(db, query);
-  const roles = await rolesOfMany(db, rows.map((r) => r.id));
+  // Roles, machines and invitation state: one query each for the whole page.
   return {
-    items: rows.map((row) => toUserDto({ ...row, roles: roles.get(row.id) ?? [] })),
+    items: (await withRelations(db, rows)).map(toUserDto),
     total,
     page: query.page,
     pageSize: query.pageSize,
@@ -61,6 +68,7 @@ export async function createUser(db: Knex, actor: Actor, input: CreateUserBody, 
   try {
     return await db.transaction(async (trx) => {
       if (await findUserRowByUsername(trx, input.username)) throw duplicateUsername(input.username);
+      await assertUsableMachines(trx, input.machineIds);
       const id = await insertUser(
         trx,
         {
@@ -73,6 +81,7 @@ export async function createUser(db: Knex, actor: Actor, input: CreateUserBody, 
         sortRoles(input.roles),
         new Date(),
       );
+      await replaceUserMachines(trx, id, ascending(input.machineIds), new Date());
       const created = await mustFind(trx, id);
       await recordAudit(trx, actor, { type: AUDIT_EVENTS.userCreated, entityType: 'user', entityId: id, before: null, after: auditSnapshot(created) });
       return toUserDto(created);
@@ -82,6 +91,75 @@ export async function createUser(db: Knex, actor: Actor, input: CreateUserBody, 
     if (isDuplicateKey(err)) throw duplicateUsername(input.username);
     throw err;
   }
+}
+
+/** Machines to assign must exist and not be archived; otherwise 400 on `machineIds` and nothing changes. */
+async function assertUsableMachines(trx: Knex, machineIds: readonly number[]): Promise<void> {
+  const bad = await unusableMachineIds(trx, machineIds);
+  if (bad.length === 0) return;
+  const list = bad.join(', ');
+  throw AppError.validation([
+    {
+      path: 'machineIds',
+      message: bad.length === 1 ? `Machine ${list} does not exist or is archived.` : `Machines ${list} do not exist or are archived.`,
+    },
+  ]);
+}
+
+function ascending(ids: readonly number[]): number[] {
+  return [...ids].sort((a, b) => a - b);
+}
+
+/**
+ * Invites a person by e-mail (design 4): the account (active, with a password nobody knows),
+ * roles, machines, a 72 h link and the invitation mail, all in one transaction. The person
+ * chooses their own password with the link and then signs in.
+ */
+export async function inviteUser(db: Knex, actor: Actor, mail: MailSettings, input: InviteBody, now: Date = new Date()): Promise<UserDto> {
+  // A hash of a random secret nobody keeps: sign-in fails, and takes as long as for anyone else.
+  const unusableHash = await hashPassword(randomBytes(32).toString('base64url'));
+  try {
+    return await db.transaction(async (trx) => {
+      if (await findUserRowByUsername(trx, input.username)) throw duplicateUsername(input.username);
+      await assertUsableMachines(trx, input.machineIds);
+      const id = await insertUser(
+        trx,
+        { username: input.username, display_name: input.displayName, email: input.email, password_hash: unusableHash, must_change_password: false },
+        sortRoles(input.roles),
+        now,
+      );
+      await replaceUserMachines(trx, id, ascending(input.machineIds), now);
+      const link = await issueToken(trx, id, 'invitation', actor.userId, now);
+      const created = await mustFind(trx, id);
+      await enqueueMail(trx, invitationMail(mail, await invitationContent(trx, actor, created, link.token)), now);
+      await recordAudit(trx, actor, { type: AUDIT_EVENTS.userInvited, entityType: 'user', entityId: id, before: null, after: auditSnapshot(created) }, now);
+      return toUserDto(created);
+    });
+  } catch (err) {
+    if (isDuplicateKey(err)) throw duplicateUsername(input.username);
+    throw err;
+  }
+}
+
+async function invitationContent(trx: Knex, actor: Actor, user: UserWithRoles, token: string) {
+  const labName = (await findLabSettings(trx))?.lab_name || 'Kerfbook';
+  return { to: user.email, displayName: user.display_name, username: user.username, labName, invitedBy: actor.name || 'An admin', token };
+}
+
+/** A new 72 h invitation link (the older one is void), while the person has not set a password. */
+export async function resendInvitation(db: Knex, actor: Actor, mail: MailSettings, id: number, now: Date = new Date()): Promise<MessageDto> {
+  return db.transaction(async (trx) => {
+    const user = await mustFind(trx, id, true);
+    if (!user.active) throw AppError.conflict(`${user.display_name} is deactivated; reactivate the account before sending an invitation.`);
+    if (!user.invitation_pending) {
+      throw AppError.conflict(`${user.display_name} has already set a password. Use "Forgot password" or set a temporary password instead.`);
+    }
+    if (!user.email) throw AppError.conflict(`${user.display_name} has no e-mail address; add one first.`, 'email');
+    const link = await issueToken(trx, id, 'invitation', actor.userId, now);
+    await enqueueMail(trx, invitationMail(mail, await invitationContent(trx, actor, user, link.token)), now);
+    await recordAudit(trx, actor, { type: AUDIT_EVENTS.invitationResent, entityType: 'user', entityId: id, before: null, after: { email: user.email } }, now);
+    return { message: `A new invitation is on its way to ${user.email}. It works for 72 hours; the earlier link no longer works.` };
+  });
 }
 
 function sameRoles(a: readonly Role[], b: readonly Role[]): boolean {
@@ -110,6 +188,10 @@ export async function updateUser(db: Knex, actor: Actor, id: number, input: Upda
       ]);
     }
 
+    const newMachines = input.machineIds ? ascending(input.machineIds) : undefined;
+    const machinesChange = newMachines && newMachines.join(',') !== before.machine_ids.join(',');
+    if (machinesChange) await assertUsableMachines(trx, newMachines);
+
     const now = new Date();
     if (Object.keys(details).length > 0) {
       await updateUserRow(trx, id, {
@@ -123,6 +205,16 @@ export async function updateUser(db: Knex, actor: Actor, id: number, input: Upda
       await replaceRoles(trx, id, newRoles);
       await updateUserRow(trx, id, { updated_at: now });
       await recordAudit(trx, actor, { type: AUDIT_EVENTS.userRolesChanged, entityType: 'user', entityId: id, before: { roles: before.roles }, after: { roles: newRoles } }, now);
+    }
+    if (machinesChange) {
+      await replaceUserMachines(trx, id, newMachines, now);
+      await updateUserRow(trx, id, { updated_at: now });
+      await recordAudit(
+        trx,
+        actor,
+        { type: AUDIT_EVENTS.userMachinesChanged, entityType: 'user', entityId: id, before: { machineIds: before.machine_ids }, after: { machineIds: newMachines } },
+        now,
+      );
     }
     return toUserDto(await mustFind(trx, id));
   });

@@ -1,13 +1,32 @@
-import { AppError } from '../../app-error';
+import { setTimeout as sleep } from 'node:timers/promises';
+import { forgotPasswordBody, linkTokenBody, setPasswordBody } from '../../../shared/schemas/mail';
+import { FORGOT_FLOOR_MS, inspectLink, requestPasswordReset, setPasswordWithLink } from '../../services/password-links';
 import type { RouteHandler } from '../route-definition';
+import { bodyOf, parse } from './parse';
+import { actorOf } from './request-actor';
 
-// Contract stubs (issue 6): replaced by the real handlers.
-export const forgot: RouteHandler = () => {
-  throw new AppError(501, 'NOT_BUILT', [{ path: '', message: 'Not built yet.' }]);
+/**
+ * POST /api/password/forgot — always 202 with the same text, never sooner than the floor:
+ * the work is done first, then the rest of the floor is waited out, so neither the answer
+ * nor its time tells whether the address belongs to anyone.
+ */
+export const forgot: RouteHandler = async (req, res, { db, mail }) => {
+  const started = Date.now();
+  const body = parse(forgotPasswordBody, bodyOf(req.body));
+  const answer = await requestPasswordReset(db, actorOf(req), mail, body.email);
+  const rest = started + FORGOT_FLOOR_MS - Date.now();
+  if (rest > 0) await sleep(rest);
+  res.status(202).json(answer);
 };
-export const inspect: RouteHandler = () => {
-  throw new AppError(501, 'NOT_BUILT', [{ path: '', message: 'Not built yet.' }]);
+
+/** POST /api/password/link — what a link is for (LinkInfoDto), or why it no longer works. */
+export const inspect: RouteHandler = async (req, res, { db }) => {
+  const body = parse(linkTokenBody, bodyOf(req.body));
+  res.json(await inspectLink(db, body.token));
 };
-export const set: RouteHandler = () => {
-  throw new AppError(501, 'NOT_BUILT', [{ path: '', message: 'Not built yet.' }]);
+
+/** POST /api/password/set — use the link once to set a password; the person then signs in. */
+export const set: RouteHandler = async (req, res, { db }) => {
+  const body = parse(setPasswordBody, bodyOf(req.body));
+  res.json(await setPasswordWithLink(db, actorOf(req), body.token, body.newPassword));
 };

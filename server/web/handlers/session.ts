@@ -21,17 +21,17 @@ export const issueCsrfToken: RouteHandler = (req, res, { csrf }) => {
   res.json(body);
 };
 
-export const current: RouteHandler = (req, res, { csrf }) => {
-  const body: SessionDto = { user: toDto(req.user!), csrfToken: csrf.issue(req, res) };
+export const current: RouteHandler = (req, res, { csrf, devOutbox }) => {
+  const body: SessionDto = { user: toDto(req.user!), csrfToken: csrf.issue(req, res), devOutbox };
   res.json(body);
 };
 
-export const signIn: RouteHandler = async (req, res, { csrf, auth }) => {
+export const signIn: RouteHandler = async (req, res, { csrf, auth, devOutbox }) => {
   req.body = parse(signInBody, bodyOf(req.body));
   const user = await authenticateWithPassword(auth, req, res);
   await startSession(req, user);
   // New session id → the old token no longer matches: hand out a fresh one.
-  const body: SessionDto = { user: toDto(user), csrfToken: csrf.issue(req, res, true) };
+  const body: SessionDto = { user: toDto(user), csrfToken: csrf.issue(req, res, true), devOutbox };
   res.json(body);
 };
 
@@ -43,18 +43,18 @@ export const signOut: RouteHandler = async (req, res, { db }) => {
   res.status(204).end();
 };
 
-export const changePassword: RouteHandler = async (req, res, { db, csrf }) => {
+export const changePassword: RouteHandler = async (req, res, { db, csrf, devOutbox }) => {
   const body = parse(changePasswordBody, bodyOf(req.body));
   const user = await changeOwnPassword(db, actorOf(req), req.user!.id, body.currentPassword, body.newPassword);
   // Every other session just ended (epoch bump); this one carries on under a new id.
   await startSession(req, user);
-  const answer: SessionDto = { user: toDto(user), csrfToken: csrf.issue(req, res, true) };
+  const answer: SessionDto = { user: toDto(user), csrfToken: csrf.issue(req, res, true), devOutbox };
   res.json(answer);
 };
 
-export const updatePreferences: RouteHandler = async (req, res, { db, csrf }) => {
+export const updatePreferences: RouteHandler = async (req, res, { db, csrf, devOutbox }) => {
   const body = parse(preferencesBody, bodyOf(req.body));
   const user = await saveUnits(db, actorOf(req), req.user!.id, body.units);
-  const answer: SessionDto = { user: toDto(user), csrfToken: csrf.issue(req, res) };
+  const answer: SessionDto = { user: toDto(user), csrfToken: csrf.issue(req, res), devOutbox };
   res.json(answer);
 };

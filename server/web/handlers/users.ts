@@ -1,5 +1,4 @@
-import { AppError } from '../../app-error';
-import { createUserBody, temporaryPasswordBody, updateUserBody, userListQuery } from '../../../shared/schemas/users';
+import { createUserBody, inviteBody, temporaryPasswordBody, updateUserBody, userListQuery } from '../../../shared/schemas/users';
 import * as people from '../../services/users';
 import type { RouteHandler } from '../route-definition';
 import { bodyOf, idOf, parse } from './parse';
@@ -38,10 +37,13 @@ export const setTemporaryPassword: RouteHandler = async (req, res, { db }) => {
   res.json(await people.setTemporaryPassword(db, actorOf(req), id, body.password));
 };
 
-// Contract stubs (issue 6): replaced by the real handlers.
-export const invite: RouteHandler = () => {
-  throw new AppError(501, 'NOT_BUILT', [{ path: '', message: 'Not built yet.' }]);
+/** POST /api/users/invitations — the person gets a mail with a 72 h link to set their password. */
+export const invite: RouteHandler = async (req, res, { db, mail }) => {
+  const body = parse(inviteBody, bodyOf(req.body));
+  res.status(201).json(await people.inviteUser(db, actorOf(req), mail, body));
 };
-export const resendInvitation: RouteHandler = () => {
-  throw new AppError(501, 'NOT_BUILT', [{ path: '', message: 'Not built yet.' }]);
+
+/** POST /api/users/:id/invitation — a new link; the older one stops working. */
+export const resendInvitation: RouteHandler = async (req, res, { db, mail }) => {
+  res.json(await people.resendInvitation(db, actorOf(req), mail, idOf(req.params)));
 };
