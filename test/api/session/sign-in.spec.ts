@@ -36,8 +36,13 @@ describe('POST /api/session (sign in)', () => {
       expect(JSON.stringify(res.body)).not.to.match(/scrypt|hash|epoch/i);
       expect(res.body.csrfToken).to.be.a('string').and.not.equal(csrf);
       expect(res.body.user.lastSignInAt).to.be.a('string');
+      expect(res.body.user).to.include({ invitationPending: false });
+      expect(res.body.user.machineIds).to.deep.equal([]);
+      // A development server keeps an outbox the client may show.
+      expect(res.body.devOutbox).to.equal(true);
       const me = await agent.get('/api/session').expect(200);
       expect(me.body.user.id).to.equal(operator.id);
+      expect(me.body.devOutbox).to.equal(true);
       expect(await countRows(ctx.db, 'audit_events')).to.equal(before + 1);
       const event = await ctx.db('audit_events').orderBy('id', 'desc').first();
       expect(event).to.include({ event_type: 'session.signed_in', actor_user_id: operator.id, entity_id: String(operator.id) });

@@ -1,0 +1,19 @@
+/** SessionDto.devOutbox: false on a production server, whose outbox route answers 404. */
+import { expect } from 'chai';
+import { CSRF_HEADER } from '../../../shared/api-types';
+import { apiTestContext } from '../support/hooks';
+import { createPerson } from '../support/people';
+import { anonymousAgent } from '../support/test-app';
+
+describe('Session: development outbox flag on a production server', () => {
+  const ctx = apiTestContext({ production: true, trustProxy: 'loopback' });
+
+  // Secure cookies in production: the request says it came through an HTTPS proxy.
+  it('answers devOutbox false', async () => {
+    const person = await createPerson(ctx.db, { roles: ['author'] });
+    const { agent, csrf } = await anonymousAgent(ctx.app);
+    const res = await agent.post('/api/session').set('X-Forwarded-Proto', 'https').set(CSRF_HEADER, csrf).send({ username: person.username, password: person.password });
+    expect(res.status, JSON.stringify(res.body)).to.equal(200);
+    expect(res.body.devOutbox).to.equal(false);
+  });
+});
