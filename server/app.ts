@@ -18,6 +18,7 @@ import { sessionMiddleware } from './web/session-cookie';
 import { SessionStore } from './web/session-store';
 import { spa } from './web/spa';
 import { startSupersessionTimer } from './services/supersession';
+import { startReviewReminderTimer } from './services/review-reminders';
 import { createMailTransport, startMailWorker } from './services/mail-worker';
 import { mailSettingsOf } from './services/mail/mail-settings';
 
@@ -42,6 +43,11 @@ export interface AppDeps {
    * without `config.smtpUrl` (mail then waits in the outbox). Safe in every process.
    */
   mailIntervalMs?: number;
+  /**
+   * How often review-due reminders are looked for (each version is mailed at most once a
+   * week, whatever the number of runs or processes); 0 turns it off. Default one hour.
+   */
+  reviewReminderIntervalMs?: number;
   /** Where server faults are logged. Default console.error. */
   log?: (...args: unknown[]) => void;
 }
@@ -50,7 +56,7 @@ export interface KerfbookApp {
   app: Express;
   /** Resolves when the session store has checked its table; listen only after it. */
   ready: Promise<void>;
-  /** Stops the app's background work (session clean-up, supersession, mail). Does not close the database. */
+  /** Stops the app's background work (session clean-up, supersession, reminders, mail). Does not close the database. */
   close(): void;
 }
 
@@ -91,7 +97,10 @@ export function createApp(deps: AppDeps): KerfbookApp {
   app.use(errorHandler(deps.log));
 
   const supersessionMs = deps.supersessionIntervalMs ?? 60 * 1000;
-  const stopSupersession = supersessionMs > 0 ? startSupersessionTimer(db, supersessionMs, deps.log) : () => undefined;
+  const stopSupersession = supersessionMs > 0 ? startSupersessionTimer(db, supersessionMs, deps.log, mail) : () => undefined;
+
+  const reminderMs = deps.reviewReminderIntervalMs ?? 60 * 60 * 1000;
+  const stopReminders = reminderMs > 0 ? startReviewReminderTimer(db, reminderMs, deps.log, mail) : () => undefined;
 
   const mailMs = deps.mailIntervalMs ?? 15 * 1000;
   const stopMail =
@@ -109,6 +118,7 @@ export function createApp(deps: AppDeps): KerfbookApp {
     close: () => {
       store.stopCleanup();
       stopSupersession();
+      stopReminders();
       stopMail();
     },
   };

@@ -231,3 +231,17 @@ export async function waitingForReviewRows(db: Knex, userId: number, limit: numb
     .orderBy('r.id')
     .limit(limit);
 }
+
+/**
+ * Current approved versions on the machines the person is assigned to that they have not
+ * acknowledged yet, the most recently changed recipe first.
+ */
+export async function toAcknowledgeRows(db: Knex, userId: number, limit: number): Promise<WorkflowSummaryRow[]> {
+  return summaries(db, 'current')
+    .where('v.status', 'approved')
+    .whereExists((q) => q.select(db.raw('1')).from('user_machines as um').whereRaw('um.machine_id = v.machine_id').andWhere('um.user_id', userId))
+    .whereNotExists((q) => q.select(db.raw('1')).from('acknowledgements as a').whereRaw('a.version_id = v.id').andWhere('a.user_id', userId))
+    .orderBy('r.updated_at', 'desc')
+    .orderBy('r.id')
+    .limit(limit);
+}

@@ -2,7 +2,8 @@
  * The bench sheet (design 8): the PDF an operator prints and keeps at the saw. Only an
  * approved version prints — the one in force, or one approved for a later day — so a
  * draft, a returned or a superseded version never reaches the bench (ISO/IEC 17025 §8.3).
- * Every print is recorded (sheet_prints) and written to the trail as `sheet.printed`.
+ * Every print is recorded (sheet_prints) and written to the trail as `sheet.printed`. An
+ * operator of the version's machine prints it only after acknowledging it.
  */
 import type { Knex } from 'knex';
 import sharp from 'sharp';
@@ -13,6 +14,8 @@ import { listAttachmentMetaRows, readAttachmentBytes } from '../data/attachments
 import { findLabSettings } from '../data/lab-settings';
 import { findRecipeRow } from '../data/recipes';
 import { findCheckCodeOfVersion, insertSheetPrint } from '../data/sheet-prints';
+import { rolesOf } from '../data/users';
+import { requireAcknowledgedForSheet } from './acknowledgements';
 import type { Actor } from './actor';
 import { AUDIT_EVENTS, recordAudit } from './audit';
 import { assignCheckCode, formatCheckCode } from './check-codes';
@@ -78,6 +81,9 @@ export async function printBenchSheet(
       'status',
     );
   }
+
+  // An operator of the machine reads and acknowledges a version before its sheet reaches the bench.
+  await requireAcknowledgedForSheet(db, { id: userId, roles: await rolesOf(db, userId) }, row);
 
   let code = await findCheckCodeOfVersion(db, row.id);
   if (!code) {

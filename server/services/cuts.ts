@@ -16,6 +16,8 @@ import { listSignatureRows, lockRecipe } from '../data/workflow';
 import type { Actor } from './actor';
 import { AUDIT_EVENTS, recordAudit } from './audit';
 import { CSV_BOM, csvLine } from './csv';
+import { DEFAULT_MAIL_SETTINGS, type MailSettings } from './mail/mail-settings';
+import { notifyCutFlagged } from './mail/notifications';
 import { visibleVersion, type VersionScope } from './operator-visibility';
 import { requireActor } from './recipes';
 import { toSignatureDto } from './signatures';
@@ -52,9 +54,19 @@ async function cutOrNotFound(db: Knex, id: number): Promise<CutWithVersion> {
 /**
  * Records one cut. The recipe row is locked while the cut is written, so a version that
  * stops being current at the same moment (supersession, withdrawal) either takes the cut
- * before it changes or refuses it — never a cut on a version already out of use.
+ * before it changes or refuses it — never a cut on a version already out of use. A cut
+ * that is not good flags the recipe, and its authors are told by mail.
  */
-export async function recordCut(db: Knex, actor: Actor, scope: VersionScope, recipeId: number, version: number, body: CutRecordBody, now = new Date()): Promise<CutRecordDto> {
+export async function recordCut(
+  db: Knex,
+  actor: Actor,
+  scope: VersionScope,
+  recipeId: number,
+  version: number,
+  body: CutRecordBody,
+  now = new Date(),
+  mail: MailSettings = DEFAULT_MAIL_SETTINGS,
+): Promise<CutRecordDto> {
   const userId = requireActor(actor);
   const target = await visibleVersion(db, scope, recipeId, version);
   const id = await db.transaction(async (trx) => {
@@ -78,6 +90,10 @@ export async function recordCut(db: Knex, actor: Actor, scope: VersionScope, rec
       operator_name: actor.name.slice(0, 100),
       cut_at: now,
     });
+    if (body.outcome !== 'good') {
+      const ref = { recipeId, number: recipe.number, version: target.version, title: target.title };
+      await notifyCutFlagged(trx, mail, target.id, ref, { operatorName: actor.name, specimenId: body.specimenId, outcome: body.outcome, notes: body.notes }, now);
+    }
     await recordAudit(
       trx,
       actor,

@@ -26,6 +26,7 @@ import {
   type VersionContentValues,
 } from '../data/recipes';
 import { listEditorRows, listSignatureRows, touchEditor } from '../data/workflow';
+import { myAcknowledgement, type Viewer } from './acknowledgements';
 import type { Actor } from './actor';
 import { AUDIT_EVENTS, recordAudit } from './audit';
 import { canonicalJson } from './canonical-json';
@@ -170,9 +171,14 @@ export async function listVersions(db: Knex, recipeId: number, scope: VersionSco
   return rows.map((row) => toVersionDto(row, attachments, { signatures, editors }));
 }
 
-export async function getVersion(db: Knex, recipeId: number, version: number, scope: VersionScope = 'all'): Promise<RecipeVersionDto> {
-  await visibleVersion(db, scope, recipeId, version);
-  return versionDto(db, recipeId, version);
+/**
+ * One version for the person asking; `viewer` (the signed-in person) adds whether they, as
+ * an operator of its machine, must still acknowledge it.
+ */
+export async function getVersion(db: Knex, recipeId: number, version: number, scope: VersionScope = 'all', viewer?: Viewer): Promise<RecipeVersionDto> {
+  const row = await visibleVersion(db, scope, recipeId, version);
+  const dto = await versionDto(db, recipeId, version);
+  return viewer ? { ...dto, myAcknowledgement: await myAcknowledgement(db, viewer, row) } : dto;
 }
 
 const EDITABLE = new Set(['draft', 'returned']);

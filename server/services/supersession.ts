@@ -24,6 +24,8 @@ import {
 import type { Actor } from './actor';
 import { AUDIT_EVENTS, recordAudit } from './audit';
 import { dayOf, utcDay } from './calendar-dates';
+import { DEFAULT_MAIL_SETTINGS, type MailSettings } from './mail/mail-settings';
+import { notifyVersionCurrent } from './mail/notifications';
 
 /** Who the trail names for changes the scheduled job makes. */
 export const SCHEDULER_ACTOR: Actor = { userId: null, name: 'Kerfbook scheduler', clientAddress: '' };
@@ -46,6 +48,11 @@ export async function makeCurrent(trx: Knex.Transaction, recipe: LockedRecipe, t
   for (const v of older) await updateVersionState(trx, v.id, { status: 'superseded', superseded_at: now });
   if (recipe.current_version_id !== target.id) await setCurrentVersion(trx, recipe.id, target.id, now);
   return older.map((v) => ({ id: v.id, version: v.version, revision: v.revision }));
+}
+
+/** The newest version a new current one replaced (for the operators' mail), or null. */
+export function replacedVersion(superseded: readonly SupersededVersion[]): number | null {
+  return superseded.reduce<number | null>((best, s) => (best === null || s.version > best ? s.version : best), null);
 }
 
 /** The trail events of versions superseded by `by`. */
@@ -73,8 +80,12 @@ export interface SupersessionResult {
   superseded: number;
 }
 
-/** One recipe under its lock; left alone when another transaction holds the recipe. */
-async function applyForRecipe(db: Knex, recipeId: number, now: Date, result: SupersessionResult): Promise<void> {
+/**
+ * One recipe under its lock; left alone when another transaction holds the recipe. The
+ * machine's operators are mailed in the same transaction: only the run that made the
+ * version current sends them.
+ */
+async function applyForRecipe(db: Knex, recipeId: number, now: Date, result: SupersessionResult, mail: MailSettings): Promise<void> {
   const today = utcDay(now);
   await db.transaction(async (trx) => {
     const recipe = await lockRecipeSkipLocked(trx, recipeId);
@@ -89,6 +100,14 @@ async function applyForRecipe(db: Knex, recipeId: number, now: Date, result: Sup
     if (!target || recipe.current_version_id === target.id) return;
     const superseded = await makeCurrent(trx, recipe, target, now);
     await updateVersionState(trx, target.id, {});
+    const changeReason = (JSON.parse(target.content_json) as { changeReason?: string }).changeReason ?? '';
+    await notifyVersionCurrent(
+      trx,
+      mail,
+      { machineId: target.machine_id, changeReason, replaces: replacedVersion(superseded) },
+      { recipeId, number: recipe.number, version: target.version, title: target.title },
+      now,
+    );
     await recordAudit(
       trx,
       SCHEDULER_ACTOR,
@@ -111,10 +130,10 @@ async function applyForRecipe(db: Knex, recipeId: number, now: Date, result: Sup
  * Makes every approved version whose effective day (UTC) has come by `now` current, and
  * supersedes its predecessors. Tests pass a chosen `now`.
  */
-export async function applyDueSupersessions(db: Knex, now: Date = new Date()): Promise<SupersessionResult> {
+export async function applyDueSupersessions(db: Knex, now: Date = new Date(), mail: MailSettings = DEFAULT_MAIL_SETTINGS): Promise<SupersessionResult> {
   const result: SupersessionResult = { madeCurrent: 0, superseded: 0 };
   for (const recipeId of await recipesWithDueVersions(db, utcDay(now))) {
-    await applyForRecipe(db, recipeId, now, result);
+    await applyForRecipe(db, recipeId, now, result, mail);
   }
   return result;
 }
@@ -123,14 +142,19 @@ export async function applyDueSupersessions(db: Knex, now: Date = new Date()): P
  * Runs the job now and then every `intervalMs` until stopped. A run never overlaps the
  * previous one in the same process; a failed run is logged and the next one tries again.
  */
-export function startSupersessionTimer(db: Knex, intervalMs: number, log: (...args: unknown[]) => void = console.error): () => void {
+export function startSupersessionTimer(
+  db: Knex,
+  intervalMs: number,
+  log: (...args: unknown[]) => void = console.error,
+  mail: MailSettings = DEFAULT_MAIL_SETTINGS,
+): () => void {
   let running = false;
   let stopped = false;
   const run = async () => {
     if (running || stopped) return;
     running = true;
     try {
-      await applyDueSupersessions(db);
+      await applyDueSupersessions(db, new Date(), mail);
     } catch (err) {
       log('[supersession] run failed:', err instanceof Error ? err.message : err);
     } finally {

@@ -1,13 +1,13 @@
 /**
  * The Today page (design 7) and the review-due list: what waits for the signed-in person,
- * per role, with the cuts operators flagged. Acknowledgements come with their own issue;
- * that list is empty until then.
+ * per role, with the cuts operators flagged and, for operators, the versions in use on
+ * their machines that they have not acknowledged yet.
  */
 import type { Knex } from 'knex';
 import type { Role } from '../../shared/roles';
 import type { RecipeSummary, TodayDto } from '../../shared/recipe-types';
 import { flaggedCutRows } from '../data/cuts';
-import { myDraftRows, reviewDueRows, waitingForReviewRows, type WorkflowSummaryRow } from '../data/workflow';
+import { myDraftRows, reviewDueRows, toAcknowledgeRows, waitingForReviewRows, type WorkflowSummaryRow } from '../data/workflow';
 import { addDays, dayOf, utcDay } from './calendar-dates';
 import { toRecipeSummary } from './recipe-dto';
 
@@ -34,18 +34,19 @@ export async function listReviewsDue(db: Knex, now = new Date()): Promise<Review
 
 export async function getToday(db: Knex, user: { id: number; roles: readonly Role[] }, now = new Date()): Promise<TodayDto> {
   const is = (role: Role) => user.roles.includes(role);
-  const [myDrafts, waiting, due, flagged] = await Promise.all([
+  const [myDrafts, waiting, due, flagged, unacknowledged] = await Promise.all([
     is('author') ? myDraftRows(db, user.id, LIST_LIMIT) : Promise.resolve([]),
     is('approver') ? waitingForReviewRows(db, user.id, LIST_LIMIT) : Promise.resolve([]),
     is('author') || is('approver') ? listReviewsDue(db, now) : Promise.resolve([]),
     // Cuts that were not good, on recipes the author created or edited, until an author clears them.
     is('author') ? flaggedCutRows(db, user.id, LIST_LIMIT) : Promise.resolve([]),
+    is('operator') ? toAcknowledgeRows(db, user.id, LIST_LIMIT) : Promise.resolve([]),
   ]);
   return {
     myDrafts: myDrafts.map(toRecipeSummary),
     waitingForMyReview: waiting.map(toRecipeSummary),
     reviewsDue: due,
     flaggedCuts: flagged.map((f) => ({ recipeId: f.recipe_id, number: f.number, title: f.title, count: f.count })),
-    toAcknowledge: [],
+    toAcknowledge: unacknowledged.map(toRecipeSummary),
   };
 }

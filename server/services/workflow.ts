@@ -36,7 +36,10 @@ import { addMonths, isCalendarDay, utcDay } from './calendar-dates';
 import { loadRecipeContext } from './recipe-context-loader';
 import { contentValues, requireActor, versionDto } from './recipes';
 import { verifySignerPassword } from './signatures';
-import { makeCurrent, recordSuperseded } from './supersession';
+import { DEFAULT_MAIL_SETTINGS, type MailSettings } from './mail/mail-settings';
+import type { VersionRef } from './mail/notification-mails';
+import { notifyApproved, notifyReturned, notifyReviewRequested, notifyVersionCurrent } from './mail/notifications';
+import { makeCurrent, recordSuperseded, replacedVersion } from './supersession';
 
 /** The review interval when the lab has not set one (design 3: 24 months). */
 export const DEFAULT_REVIEW_INTERVAL_MONTHS = 24;
@@ -78,6 +81,11 @@ async function requireVersion(trx: Knex.Transaction, recipeId: number, version: 
   if (row) return row;
   const recipe = await findRecipeRow(trx, recipeId);
   throw AppError.notFound(recipe ? `Recipe ${recipe.number} has no version ${version}.` : `There is no recipe with id ${recipeId}.`);
+}
+
+/** The version as a mail names it. */
+function refOf(recipeId: number, number: string, v: Pick<VersionRow, 'version' | 'title'>): VersionRef {
+  return { recipeId, number, version: v.version, title: v.title };
 }
 
 function label(number: string, v: Pick<VersionRow, 'version'>): string {
@@ -127,8 +135,19 @@ async function numberOf(trx: Knex, recipeId: number): Promise<string> {
 
 // --- submit -------------------------------------------------------------------------------
 
-/** Author sends a draft for review: refused while the checks (against today's stock) find a blocker. */
-export async function submitVersion(db: Knex, actor: Actor, recipeId: number, version: number, body: SubmitBody, now = new Date()): Promise<RecipeVersionDto> {
+/**
+ * Author sends a draft for review: refused while the checks (against today's stock) find a
+ * blocker. Approvers who could approve it are told by mail.
+ */
+export async function submitVersion(
+  db: Knex,
+  actor: Actor,
+  recipeId: number,
+  version: number,
+  body: SubmitBody,
+  now = new Date(),
+  mail: MailSettings = DEFAULT_MAIL_SETTINGS,
+): Promise<RecipeVersionDto> {
   requireActor(actor);
   await withConflicts(db, recipeId, version, () =>
     db.transaction(async (trx) => {
@@ -146,6 +165,7 @@ export async function submitVersion(db: Knex, actor: Actor, recipeId: number, ve
         checks_json: JSON.stringify(checks),
         worst_check: worstSeverity(checks),
       });
+      await notifyReviewRequested(trx, mail, v.id, refOf(recipeId, number, v), actor, now);
       await recordAudit(
         trx,
         actor,
@@ -165,15 +185,25 @@ export async function submitVersion(db: Knex, actor: Actor, recipeId: number, ve
 
 // --- return -------------------------------------------------------------------------------
 
-/** Approver sends a version in review back to its author; the comment is kept as a review comment. */
-export async function returnVersion(db: Knex, actor: Actor, recipeId: number, version: number, body: ReturnBody, now = new Date()): Promise<RecipeVersionDto> {
+/** Approver sends a version in review back to its author; the comment is kept as a review comment and mailed to the authors. */
+export async function returnVersion(
+  db: Knex,
+  actor: Actor,
+  recipeId: number,
+  version: number,
+  body: ReturnBody,
+  now = new Date(),
+  mail: MailSettings = DEFAULT_MAIL_SETTINGS,
+): Promise<RecipeVersionDto> {
   const userId = requireActor(actor);
   await withConflicts(db, recipeId, version, () =>
     db.transaction(async (trx) => {
       const v = await requireVersion(trx, recipeId, version);
-      expectState(await numberOf(trx, recipeId), v, ['in-review'], 'returned', body.revision);
+      const number = await numberOf(trx, recipeId);
+      expectState(number, v, ['in-review'], 'returned', body.revision);
       const commentId = await insertReviewComment(trx, { version_id: v.id, author_id: userId, author_name: actor.name.slice(0, 100), body: body.comment, path: '', created_at: now });
       await updateVersionState(trx, v.id, { status: 'returned' });
+      await notifyReturned(trx, mail, v.id, refOf(recipeId, number, v), actor.name, body.comment, now);
       await recordAudit(
         trx,
         actor,
@@ -208,9 +238,18 @@ async function reviewIntervalMonths(db: Knex): Promise<number> {
  * Approver signs: password again, meaning "approved", optional comment; every warning
  * acknowledged; never a version they authored or edited. Effective today, the version is
  * current at once and the previous approved one is superseded; effective later, the
- * scheduled job does that on the day.
+ * scheduled job does that on the day. The authors hear of the approval by mail, and the
+ * machine's operators when the version is in use at once.
  */
-export async function approveVersion(db: Knex, actor: Actor, recipeId: number, version: number, body: ApproveBody, now = new Date()): Promise<RecipeVersionDto> {
+export async function approveVersion(
+  db: Knex,
+  actor: Actor,
+  recipeId: number,
+  version: number,
+  body: ApproveBody,
+  now = new Date(),
+  mail: MailSettings = DEFAULT_MAIL_SETTINGS,
+): Promise<RecipeVersionDto> {
   const userId = requireActor(actor);
   const seen = await findVersion(db, recipeId, version);
   if (!seen) return versionDto(db, recipeId, version); // throws the right 404
@@ -269,6 +308,11 @@ export async function approveVersion(db: Knex, actor: Actor, recipeId: number, v
       await assignCheckCode(trx, v.id);
       const current = effectiveFrom <= today;
       const superseded = current ? await makeCurrent(trx, recipe, v, now) : [];
+      const ref = refOf(recipeId, recipe.number, v);
+      await notifyApproved(trx, mail, v.id, ref, signerName, effectiveFrom, current, now);
+      if (current) {
+        await notifyVersionCurrent(trx, mail, { machineId: v.machine_id, changeReason: content.changeReason, replaces: replacedVersion(superseded) }, ref, now);
+      }
 
       await recordAudit(
         trx,

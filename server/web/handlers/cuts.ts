@@ -10,10 +10,10 @@ import { actorOf } from './request-actor';
 const versionParams = z.object({ id: idParam, n: idParam });
 const cutParams = z.object({ cutId: idParam });
 
-export const record: RouteHandler = async (req, res, { db }) => {
+export const record: RouteHandler = async (req, res, { db, mail }) => {
   const { id, n } = parse(versionParams, req.params);
   const body = parse(cutRecordBody, bodyOf(req.body));
-  res.status(201).json(await cuts.recordCut(db, actorOf(req), versionScopeOf(req.user?.roles), id, n, body));
+  res.status(201).json(await cuts.recordCut(db, actorOf(req), versionScopeOf(req.user?.roles), id, n, body, new Date(), mail));
 };
 
 export const listOfVersion: RouteHandler = async (req, res, { db }) => {

@@ -24,7 +24,8 @@ export const versions: RouteHandler = async (req, res, { db }) => {
 
 export const getVersion: RouteHandler = async (req, res, { db }) => {
   const { id, n } = parse(versionParams, req.params);
-  res.json(await recipes.getVersion(db, id, n, versionScopeOf(req.user?.roles)));
+  const viewer = req.user ? { id: req.user.id, roles: req.user.roles } : undefined;
+  res.json(await recipes.getVersion(db, id, n, versionScopeOf(req.user?.roles), viewer));
 };
 
 export const saveDraft: RouteHandler = async (req, res, { db }) => {

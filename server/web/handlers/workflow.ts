@@ -11,19 +11,19 @@ import { actorOf } from './request-actor';
 
 const versionParams = z.object({ id: idParam, n: idParam });
 
-export const submit: RouteHandler = async (req, res, { db }) => {
+export const submit: RouteHandler = async (req, res, { db, mail }) => {
   const { id, n } = parse(versionParams, req.params);
-  res.json(await workflow.submitVersion(db, actorOf(req), id, n, parse(submitBody, bodyOf(req.body))));
+  res.json(await workflow.submitVersion(db, actorOf(req), id, n, parse(submitBody, bodyOf(req.body)), new Date(), mail));
 };
 
-export const returnToAuthor: RouteHandler = async (req, res, { db }) => {
+export const returnToAuthor: RouteHandler = async (req, res, { db, mail }) => {
   const { id, n } = parse(versionParams, req.params);
-  res.json(await workflow.returnVersion(db, actorOf(req), id, n, parse(returnBody, bodyOf(req.body))));
+  res.json(await workflow.returnVersion(db, actorOf(req), id, n, parse(returnBody, bodyOf(req.body)), new Date(), mail));
 };
 
-export const approve: RouteHandler = async (req, res, { db }) => {
+export const approve: RouteHandler = async (req, res, { db, mail }) => {
   const { id, n } = parse(versionParams, req.params);
-  res.json(await workflow.approveVersion(db, actorOf(req), id, n, parse(approveBody, bodyOf(req.body))));
+  res.json(await workflow.approveVersion(db, actorOf(req), id, n, parse(approveBody, bodyOf(req.body)), new Date(), mail));
 };
 
 export const withdraw: RouteHandler = async (req, res, { db }) => {

@@ -200,6 +200,7 @@ describe('Mail outbox', () => {
       db,
       sessionCleanupIntervalMs: 0,
       supersessionIntervalMs: 0,
+      reviewReminderIntervalMs: 0,
       mailIntervalMs: 50,
     });
     try {
@@ -221,7 +222,7 @@ describe('Mail outbox', () => {
 
   it('leaves mail in the outbox when no SMTP_URL is set', async () => {
     const id = await enqueue(1);
-    const built = createApp({ config: testConfig(), db, sessionCleanupIntervalMs: 0, supersessionIntervalMs: 0, mailIntervalMs: 50 });
+    const built = createApp({ config: testConfig(), db, sessionCleanupIntervalMs: 0, supersessionIntervalMs: 0, reviewReminderIntervalMs: 0, mailIntervalMs: 50 });
     try {
       await built.ready;
       await new Promise((r) => setTimeout(r, 300));

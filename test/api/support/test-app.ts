@@ -38,6 +38,8 @@ export async function buildTestApp(
     sessionCleanupIntervalMs: 0,
     // Tests run the supersession job themselves, with a chosen `now`.
     supersessionIntervalMs: 0,
+    // Tests run the review-due job themselves, with a chosen `now`.
+    reviewReminderIntervalMs: 0,
     // Tests send the outbox themselves (deliverDueMails) to a catcher they start.
     mailIntervalMs: 0,
     ...(options.extraApiRouter ? { extraApiRouter: options.extraApiRouter } : {}),
