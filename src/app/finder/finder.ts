@@ -25,6 +25,8 @@ import {
   SHAPE_LABELS,
   type Shape,
 } from '../../../shared/vocabulary';
+import { askToAcknowledge } from '../acknowledge/acknowledge-dialog';
+import { mustAcknowledge, openInNewTab } from '../acknowledge/acknowledgement-state';
 import { controlMessage } from '../core/forms/control-message';
 import { applyServerErrors } from '../core/forms/server-errors';
 import { isApiError } from '../core/http/api-error';
@@ -33,6 +35,7 @@ import { Notifier } from '../core/notifier/notifier';
 import { Session } from '../core/session/session';
 import { LogCutDialog, type LogCutDialogData } from '../cuts/log-cut-dialog';
 import { benchSheetUrl } from '../recipe/bench-sheet';
+import { RecipeApi } from '../recipe/recipe-api';
 import { StockApi } from '../stock/stock-api';
 import { FinderApi } from './finder-api';
 import { finderParams, isEmptyQuery, readFinderParams } from './finder-params';
@@ -73,6 +76,7 @@ function optionalNumber(schema: (typeof finderQuery.shape)['sizeMm' | 'hardnessV
 })
 export class Finder {
   private readonly api = inject(FinderApi);
+  private readonly recipes = inject(RecipeApi);
   private readonly stock = inject(StockApi);
   private readonly session = inject(Session);
   private readonly router = inject(Router);
@@ -142,6 +146,15 @@ export class Finder {
   protected readonly formError = signal('');
   protected readonly isOperator = computed(() => hasAccess(this.session.roles(), ['operator']));
   protected readonly sheetUrl = (hit: FinderHit) => benchSheetUrl(hit.summary.id, hit.summary.version);
+  /**
+   * An operator's first assigned machine, the machine filter until they choose another.
+   * Read defensively: a session from an older server has no machineIds.
+   */
+  private readonly defaultMachineId = computed(() => {
+    if (!this.isOperator()) return null;
+    const ids: unknown = (this.session.user() as { machineIds?: unknown } | null)?.machineIds;
+    return Array.isArray(ids) && typeof ids[0] === 'number' ? ids[0] : null;
+  });
 
   constructor() {
     this.route.queryParamMap
@@ -226,6 +239,8 @@ export class Finder {
   protected clear(): void {
     this.formError.set('');
     this.form.reset();
+    // Back to where the page starts: an operator's own machine.
+    this.form.controls.machineId.setValue(this.defaultMachineId());
     void this.router.navigate([], { relativeTo: this.route, queryParams: {} });
   }
 
@@ -249,6 +264,25 @@ export class Finder {
     );
   }
 
+  /**
+   * The hit does not say whether the operator still has to acknowledge its version, so ask
+   * the version before opening the sheet; a version waiting for acknowledgement gets the
+   * same print gate as the recipe page. Others follow the link as it is.
+   */
+  protected async printSheet(event: MouseEvent, hit: FinderHit): Promise<void> {
+    if (!this.isOperator()) return;
+    event.preventDefault();
+    const s = hit.summary;
+    // On failure the error interceptor has said why.
+    const version = await firstValueFrom(this.recipes.version(s.id, s.version)).catch(() => null);
+    if (!version) return;
+    if (mustAcknowledge(version)) {
+      await askToAcknowledge(this.dialog, { recipeId: s.id, number: s.number, title: s.title, version: s.version });
+    } else if (!openInNewTab(this.sheetUrl(hit))) {
+      void this.notifier.show(`The browser did not open the sheet of ${s.number}. Allow new tabs for Kerfbook, or print it from the recipe.`);
+    }
+  }
+
   /** Puts the URL's query into the form (on arrival, back and forward). */
   private fill(query: FinderQuery): void {
     const current = this.form.controls.material.value;
@@ -262,7 +296,8 @@ export class Finder {
       hardnessScale: query.hardnessScale ?? 'HV',
       shape: query.shape ?? '',
       sizeMm: query.sizeMm ?? null,
-      machineId: query.machineId ?? null,
+      // Nothing asked yet (arrival, Clear): an operator's own machine. A search without one meant "any machine".
+      machineId: query.machineId ?? (isEmptyQuery(query) ? this.defaultMachineId() : null),
     });
   }
 }

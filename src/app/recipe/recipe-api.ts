@@ -24,7 +24,7 @@ export class RecipeApi {
     return this.http.get<RecipeVersionDto[]>(`/api/recipes/${recipeId}/versions`, { context });
   }
 
-  version(recipeId: number, version: number): Observable<RecipeVersionDto> {
-    return this.http.get<RecipeVersionDto>(`/api/recipes/${recipeId}/versions/${version}`);
+  version(recipeId: number, version: number, context?: HttpContext): Observable<RecipeVersionDto> {
+    return this.http.get<RecipeVersionDto>(`/api/recipes/${recipeId}/versions/${version}`, { context });
   }
 }

@@ -24,6 +24,9 @@ import {
   SHAPE_LABELS,
   WHEEL_KIND_LABELS,
 } from '../../../shared/vocabulary';
+import { askToAcknowledge } from '../acknowledge/acknowledge-dialog';
+import { mustAcknowledge } from '../acknowledge/acknowledgement-state';
+import { AcknowledgementsPanel } from '../acknowledge/acknowledgements-panel';
 import { isApiError } from '../core/http/api-error';
 import { callerHandles } from '../core/http/caller-handles';
 import { Notifier } from '../core/notifier/notifier';
@@ -43,6 +46,7 @@ import { LogCutDialog, type LogCutDialogData } from '../cuts/log-cut-dialog';
 import { RecipeCuts } from '../cuts/recipe-cuts';
 import { benchSheetUrl } from './bench-sheet';
 import { CheckSeverityLabel } from './check-severity-label';
+import { COOLANT_LABELS } from './key-parameters';
 import { RecipeApi } from './recipe-api';
 import { RecipeHistory } from './recipe-history';
 import { RECIPE_STATUS_INFO, RecipeStatusChip } from './recipe-status-chip';
@@ -59,7 +63,6 @@ const NO_STOCK: StockNames = { material: null, wheel: null, machine: null };
 const SEVERITY_ORDER: Record<CheckSeverity, number> = { blocker: 0, warning: 1, note: 2 };
 const OPEN_STATUSES: readonly RecipeVersionDto['status'][] = ['draft', 'in-review', 'returned'];
 
-const COOLANT_LABELS = { 'water-soluble': 'Water-soluble coolant', oil: 'Cutting oil', dry: 'Dry (no coolant)' } as const;
 const ORIENTATION_LABELS = { transverse: 'Transverse', longitudinal: 'Longitudinal', other: 'Other' } as const;
 const ATTACHMENT_ROLE_LABELS = { setup: 'Setup', 'good-face': 'Good cut face', 'bad-face': 'Bad cut face', other: 'Other' } as const;
 
@@ -67,6 +70,7 @@ const ATTACHMENT_ROLE_LABELS = { setup: 'Setup', 'good-face': 'Good cut face', '
 @Component({
   selector: 'kb-recipe-page',
   imports: [
+    AcknowledgementsPanel,
     CheckSeverityLabel,
     CommentsPanel,
     CutProfilePlot,
@@ -169,6 +173,12 @@ export class RecipePage {
     return !from || from <= this.today;
   });
   protected readonly canLogCut = computed(() => this.isCurrent() && hasAccess(this.session.roles(), ['operator']));
+  /** A new version of the operator's machine's recipe: read and understood before its sheet opens. */
+  protected readonly mustAcknowledge = computed(() => hasAccess(this.session.roles(), ['operator']) && mustAcknowledge(this.version()));
+  /** Who has acknowledged an approved version, for those who answer for the recipe or check it. */
+  protected readonly canSeeAcknowledgements = computed(
+    () => this.version()?.status === 'approved' && hasAccess(this.session.roles(), ['author', 'approver', 'auditor', 'admin']),
+  );
   protected readonly canClearFlags = computed(() => this.isAuthor());
   /** Bumped after a cut is logged, so the Cuts tab fetches its list again. */
   protected readonly cutsReload = signal(0);
@@ -315,6 +325,15 @@ export class RecipePage {
       this.replace(result);
       void this.notifier.show(`${result.number} version ${result.version} is withdrawn.`);
     }
+  }
+
+  /** The print gate: the dialog records the acknowledgement and opens the sheet. */
+  protected async acknowledgeAndPrint(): Promise<void> {
+    const v = this.version();
+    if (!v) return;
+    const mine = await askToAcknowledge(this.dialog, { recipeId: v.recipeId, number: v.number, title: v.title, version: v.version });
+    if (!mine) return;
+    this.versions.update((list) => list.map((x) => (x.recipeId === v.recipeId && x.version === v.version ? { ...x, myAcknowledgement: mine } : x)));
   }
 
   protected async logCut(): Promise<void> {

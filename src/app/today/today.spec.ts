@@ -84,11 +84,33 @@ describe('Today', () => {
     expect(list('waitingForMyReview').textContent).toContain('Nothing is waiting for your review.');
   });
 
-  it('gives an operator the flagged cuts and the versions to acknowledge, each with an empty line when empty', async () => {
-    await open(['operator'], { ...lists, toAcknowledge: [aRecipeSummary({ id: 6, number: 'KB-0006', version: 4 })] });
+  it('gives an operator the flagged cuts and the versions to acknowledge, each linking to the acknowledge page', async () => {
+    await open(['operator'], {
+      ...lists,
+      toAcknowledge: [
+        aRecipeSummary({ id: 6, number: 'KB-0006', title: 'Aluminium extrusions', version: 4 }),
+        aRecipeSummary({ id: 9, number: 'KB-0009', version: 2, machineName: 'Floor saw F1' }),
+      ],
+    });
     expect(shownLists()).toEqual(['flaggedCuts', 'toAcknowledge']);
     expect(list('flaggedCuts').textContent).toContain('No cut has been flagged.');
-    expect(list('toAcknowledge').querySelector('a')!.getAttribute('href')).toBe('/recipes/6?v=4');
+    const links = Array.from(list('toAcknowledge').querySelectorAll('a'));
+    expect(links.map((a) => a.getAttribute('href'))).toEqual(['/recipes/6/acknowledge?v=4', '/recipes/9/acknowledge?v=2']);
+    expect(links[0].textContent).toContain('KB-0006');
+    expect(links[0].textContent).toContain('Aluminium extrusions');
+    expect(links[1].textContent).toContain('new for Floor saw F1');
+    expect(list('toAcknowledge').querySelector('.kb-count')!.textContent).toBe('2');
+  });
+
+  it('tells an operator when no version waits for their acknowledgement', async () => {
+    await open(['operator']);
+    expect(list('toAcknowledge').textContent).toContain('No new version is waiting for your acknowledgement.');
+    expect(list('toAcknowledge').querySelector('a')).toBeNull();
+  });
+
+  it('shows no acknowledgement list to someone who is not an operator and has none', async () => {
+    await open(['auditor']);
+    expect(shownLists()).not.toContain('toAcknowledge');
   });
 
   it('shows flagged cuts to others only when there are some', async () => {

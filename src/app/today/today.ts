@@ -131,7 +131,8 @@ export class Today {
         title: 'Versions to acknowledge',
         icon: 'task_alt',
         empty: 'No new version is waiting for your acknowledgement.',
-        items: t.toAcknowledge.map((r) => recipeItem(r, r.machineName)),
+        // The same page the mail links to: what changed, the key settings, and the statement to confirm.
+        items: t.toAcknowledge.map((r) => ({ ...recipeItem(r, `new for ${r.machineName}`), link: ['/recipes', r.id, 'acknowledge'] })),
       });
     }
     return lists;
