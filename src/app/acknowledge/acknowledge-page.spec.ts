@@ -19,7 +19,7 @@ describe('AcknowledgePage', () => {
   let backend: HttpTestingController;
   let harness: RouterTestingHarness;
 
-  async function open(url: string, version: RecipeVersionDto, machineName = 'Bench saw B2'): Promise<void> {
+  async function open(url: string, version: RecipeVersionDto, machineName = 'Bench saw B2', list?: RecipeVersionDto[]): Promise<void> {
     TestBed.configureTestingModule({
       providers: [
         provideRouter(
@@ -38,6 +38,7 @@ describe('AcknowledgePage', () => {
     backend = TestBed.inject(HttpTestingController);
     harness = await RouterTestingHarness.create();
     await harness.navigateByUrl(url);
+    if (list) (await vi.waitFor(() => backend.expectOne({ method: 'GET', url: '/api/recipes/3/versions' }))).flush(list);
     (await vi.waitFor(() => backend.expectOne({ method: 'GET', url: `/api/recipes/3/versions/${version.version}` }))).flush(version);
     (await vi.waitFor(() => backend.expectOne('/api/wheels/2'))).flush(aWheel());
     backend.expectOne('/api/machines/1').flush(aMachine({ name: machineName }));
@@ -143,6 +144,13 @@ describe('AcknowledgePage', () => {
     expect(info.querySelector('a')!.getAttribute('href')).toBe('/recipes/3?v=2');
     expect(acknowledgeButton()).toBeNull();
     expect(root().querySelector('kb-markdown-view')).toBeNull();
+  });
+
+  it('takes the newest approved version when the link names none', async () => {
+    const { myAcknowledgement: _unsaid, ...listed } = aVersionToAcknowledge();
+    const draft = aVersionToAcknowledge({ version: 3, status: 'draft', myAcknowledgement: undefined });
+    await open('/recipes/3/acknowledge', aVersionToAcknowledge(), 'Bench saw B2', [draft, listed]);
+    expect(words(root().querySelector('#kb-ack-statement'))).toBe('I have read and understood version 2 of KB-0003.');
   });
 
   it('explains when the version is not approved', async () => {

@@ -139,14 +139,15 @@ export class AcknowledgePage {
   }
 
   /**
-   * The version the link names. A link without `?v=` (typed by hand) takes the version still
-   * to acknowledge, or else the newest approved one.
+   * The version the link names. A link without `?v=` (typed by hand) takes the newest
+   * approved version; only the single version says whether this operator must acknowledge it.
    */
   private fetch(id: number, v: number): Observable<RecipeVersionDto | null> {
     if (Number.isInteger(v) && v > 0) return this.recipes.version(id, v, callerHandles(404));
-    return this.recipes
-      .versions(id, callerHandles(404))
-      .pipe(map((list) => list.find((x) => x.myAcknowledgement?.required && !x.myAcknowledgement.acknowledgedAt) ?? list.find((x) => x.status === 'approved') ?? null));
+    return this.recipes.versions(id, callerHandles(404)).pipe(
+      map((list) => list.find((x) => x.status === 'approved')?.version ?? null),
+      switchMap((newest) => (newest === null ? of(null) : this.recipes.version(id, newest, callerHandles(404)))),
+    );
   }
 
   private orNull<T>(request: Observable<T>): Observable<T | null> {

@@ -97,6 +97,16 @@ describe('RecipePage acknowledgements', () => {
       expect(root().querySelector('.kb-recipe')!.firstElementChild).toBe(banner);
     });
 
+    it('asks the shown version whether it waits for them, since the versions list does not say', async () => {
+      const { myAcknowledgement: _unsaid, ...listed } = aVersionToAcknowledge();
+      await open([listed, previous]);
+      expect(root().querySelector('[data-testid="acknowledge-banner"]')).toBeNull();
+      (await vi.waitFor(() => backend.expectOne({ method: 'GET', url: '/api/recipes/3/versions/2' }))).flush(aVersionToAcknowledge());
+      await harness.fixture.whenStable();
+      expect(root().querySelector('[data-testid="acknowledge-banner"]')).not.toBeNull();
+      expect(printSheet().tagName).toBe('BUTTON');
+    });
+
     it('does not open the sheet while the version waits: the dialog asks first, and Cancel leaves it shut', async () => {
       await open([aVersionToAcknowledge(), previous]);
       expect(printSheet().tagName).toBe('BUTTON');

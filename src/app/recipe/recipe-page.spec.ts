@@ -87,6 +87,12 @@ describe('RecipePage', () => {
     return harness.routeNativeElement!;
   }
 
+  /** An operator's page asks the shown approved version whether they must still acknowledge it (the list does not say). */
+  async function answerMine(version: RecipeVersionDto): Promise<void> {
+    (await vi.waitFor(() => backend.expectOne({ method: 'GET', url: `/api/recipes/3/versions/${version.version}` }))).flush({ ...version, myAcknowledgement: null });
+    await harness.fixture.whenStable();
+  }
+
   afterEach(() => {
     backend.verify();
     document.querySelectorAll('.cdk-overlay-container').forEach((el) => (el.innerHTML = ''));
@@ -218,6 +224,7 @@ describe('RecipePage', () => {
       await open('/recipes/3', ['operator']);
       await answerVersions([approvedV1]);
       await answerStock();
+      await answerMine(approvedV1);
 
       const item = root().querySelector('header .kb-signature')!;
       const text = item.textContent!.replace(/\s+/g, ' ');
@@ -381,6 +388,7 @@ describe('RecipePage', () => {
       await open('/recipes/3', ['operator']);
       await answerVersions([approved]);
       await answerStock();
+      await answerMine(approved);
       const sheet = root().querySelector<HTMLAnchorElement>('[data-testid="print-sheet"]')!;
       expect(sheet.textContent).toContain('Print bench sheet');
       expect(sheet.getAttribute('href')).toBe('/api/recipes/3/versions/1/sheet.pdf');

@@ -9,11 +9,11 @@ import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSelectModule } from '@angular/material/select';
 import { MatTabsModule } from '@angular/material/tabs';
 import { Router, RouterLink } from '@angular/router';
-import { type Observable, catchError, distinctUntilChanged, firstValueFrom, forkJoin, map, of, switchMap } from 'rxjs';
+import { EMPTY, type Observable, catchError, distinctUntilChanged, firstValueFrom, forkJoin, map, of, switchMap } from 'rxjs';
 import { NO_SAFETY_CLAIM } from '../../../shared/cautions';
 import type { CheckResult, CheckSeverity } from '../../../shared/recipe-checks';
 import { computeRecipe } from '../../../shared/recipe-computations';
-import type { CutRecordDto, RecipeVersionDto } from '../../../shared/recipe-types';
+import type { CutRecordDto, MyAcknowledgementDto, RecipeVersionDto } from '../../../shared/recipe-types';
 import { hasAccess } from '../../../shared/roles';
 import type { MachineRecord, MaterialRecord, WheelRecord } from '../../../shared/stock-types';
 import {
@@ -257,6 +257,27 @@ export class RecipePage {
         takeUntilDestroyed(),
       )
       .subscribe((names) => this.stockNames.set(names));
+
+    // The versions list does not say whether this operator must still acknowledge the shown
+    // version; the single version does. Asked for approved versions only, once each.
+    toObservable(
+      computed(() => {
+        const v = this.version();
+        const ask = v && v.status === 'approved' && v.myAcknowledgement === undefined && hasAccess(this.session.roles(), ['operator']);
+        return ask ? `${v.recipeId}/${v.version}` : null;
+      }),
+    )
+      .pipe(
+        distinctUntilChanged(),
+        switchMap((key) => {
+          if (!key) return EMPTY;
+          const [recipeId, version] = key.split('/').map(Number);
+          // On failure the sheet link stays as it is; the server still refuses an unacknowledged print.
+          return this.api.version(recipeId, version).pipe(catchError(() => EMPTY));
+        }),
+        takeUntilDestroyed(),
+      )
+      .subscribe((fresh) => this.setMyAcknowledgement(fresh.version, fresh.myAcknowledgement ?? null));
   }
 
   protected showVersion(version: number): void {
@@ -332,8 +353,11 @@ export class RecipePage {
     const v = this.version();
     if (!v) return;
     const mine = await askToAcknowledge(this.dialog, { recipeId: v.recipeId, number: v.number, title: v.title, version: v.version });
-    if (!mine) return;
-    this.versions.update((list) => list.map((x) => (x.recipeId === v.recipeId && x.version === v.version ? { ...x, myAcknowledgement: mine } : x)));
+    if (mine) this.setMyAcknowledgement(v.version, mine);
+  }
+
+  private setMyAcknowledgement(version: number, mine: MyAcknowledgementDto | null): void {
+    this.versions.update((list) => list.map((x) => (x.version === version ? { ...x, myAcknowledgement: mine } : x)));
   }
 
   protected async logCut(): Promise<void> {
