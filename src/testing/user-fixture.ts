@@ -11,6 +11,8 @@ export function aUser(overrides: Partial<UserDto> = {}): UserDto {
     active: true,
     mustChangePassword: false,
     units: 'metric',
+    machineIds: [],
+    invitationPending: false,
     createdAt: '2026-01-05T08:00:00.000Z',
     lastSignInAt: null,
     ...overrides,

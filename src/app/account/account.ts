@@ -25,6 +25,7 @@ import { isApiError } from '../core/http/api-error';
 import { safeReturnUrl } from '../core/session/return-url';
 import { Notifier } from '../core/notifier/notifier';
 import { Session } from '../core/session/session';
+import { NotificationSettings } from './notification-settings';
 
 /** The repeat field must equal the new password typed above it. */
 function sameAsNewPassword(control: AbstractControl): ValidationErrors | null {
@@ -32,7 +33,7 @@ function sameAsNewPassword(control: AbstractControl): ValidationErrors | null {
   return control.value && control.value !== typed ? { message: 'The two new passwords are not the same.' } : null;
 }
 
-/** My account: change one's own password (required after an admin set a temporary one) and units. */
+/** My account: change one's own password (required after an admin set a temporary one), units and mail notifications. */
 @Component({
   selector: 'kb-account',
   imports: [
@@ -41,6 +42,7 @@ function sameAsNewPassword(control: AbstractControl): ValidationErrors | null {
     MatIconModule,
     MatInputModule,
     MatRadioModule,
+    NotificationSettings,
     ReactiveFormsModule,
   ],
   templateUrl: './account.html',

@@ -1,8 +1,8 @@
 import { HttpClient, type HttpContext, HttpParams } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import type { Observable } from 'rxjs';
-import type { Page, UserDto } from '../../../shared/api-types';
-import type { CreateUserBody, UpdateUserBody, UserListQuery } from '../../../shared/schemas/users';
+import type { MessageDto, Page, UserDto } from '../../../shared/api-types';
+import type { CreateUserBody, InviteBody, UpdateUserBody, UserListQuery } from '../../../shared/schemas/users';
 
 /** Thin typed wrapper around the admin's `/api/users` routes (DEVELOPERS.md, Foundation routes). */
 @Injectable({ providedIn: 'root' })
@@ -24,6 +24,16 @@ export class PeopleApi {
 
   create(body: CreateUserBody, context?: HttpContext): Observable<UserDto> {
     return this.http.post<UserDto>('/api/users', body, { context });
+  }
+
+  /** The person gets a mail with a 72 h link to set their own password. */
+  invite(body: InviteBody, context?: HttpContext): Observable<UserDto> {
+    return this.http.post<UserDto>('/api/users/invitations', body, { context });
+  }
+
+  /** Voids the older link and mails a new one. */
+  resendInvitation(id: number): Observable<MessageDto> {
+    return this.http.post<MessageDto>(`/api/users/${id}/invitation`, {});
   }
 
   update(id: number, body: UpdateUserBody, context?: HttpContext): Observable<UserDto> {

@@ -8,7 +8,9 @@ import { MatSelectHarness } from '@angular/material/select/testing';
 import { MatSortHarness } from '@angular/material/sort/testing';
 import { provideRouter } from '@angular/router';
 import type { Page, UserDto } from '../../../shared/api-types';
+import { aMachine } from '../../testing/stock-and-recipe-fixtures';
 import { aUser } from '../../testing/user-fixture';
+import { Notifier } from '../core/notifier/notifier';
 import { errorInterceptor } from '../core/http/error-interceptor';
 import { Session } from '../core/session/session';
 import { PeopleList, SEARCH_DEBOUNCE_MS } from './people-list';
@@ -20,8 +22,9 @@ describe('PeopleList', () => {
 
   const people: UserDto[] = [
     aUser({ id: 1, username: 'admin.kowalczyk', displayName: 'Iwona Kowalczyk', roles: ['admin', 'approver'], lastSignInAt: '2026-11-30T07:15:00.000Z' }),
-    aUser({ id: 2, username: 'sbrandt', displayName: 'Sven Brandt', email: '', roles: ['operator'], active: false }),
+    aUser({ id: 2, username: 'sbrandt', displayName: 'Sven Brandt', email: '', roles: ['operator'], active: false, machineIds: [1, 4] }),
   ];
+  let notifier: { show: ReturnType<typeof vi.fn> };
 
   function page(total: number, index = 0, items = people): Page<UserDto> {
     return { items, total, page: index, pageSize: 25 };
@@ -36,6 +39,7 @@ describe('PeopleList', () => {
   }
 
   beforeEach(async () => {
+    notifier = { show: vi.fn() };
     TestBed.configureTestingModule({
       imports: [PeopleList],
       providers: [
@@ -43,12 +47,22 @@ describe('PeopleList', () => {
         provideHttpClient(withInterceptors([errorInterceptor])),
         provideHttpClientTesting(),
         { provide: Session, useValue: { user: signal(people[0]), roles: signal(['admin']), clear: vi.fn() } },
+        { provide: Notifier, useValue: notifier },
       ],
     });
     backend = TestBed.inject(HttpTestingController);
     fixture = TestBed.createComponent(PeopleList);
     root = fixture.nativeElement;
     await fixture.whenStable();
+    // Machine names for the operators' rows: every machine, archived ones too.
+    const machines = await vi.waitFor(() => backend.expectOne((r) => r.url === '/api/machines'));
+    expect(machines.request.params.get('archived')).toBe('all');
+    machines.flush({
+      items: [aMachine({ id: 1, name: 'Bench saw B2' }), aMachine({ id: 4, name: 'Floor saw F1', archived: true })],
+      total: 2,
+      page: 0,
+      pageSize: 200,
+    });
   });
 
   afterEach(() => backend.verify());
@@ -133,5 +147,42 @@ describe('PeopleList', () => {
     const { req, params } = await nextListRequest();
     expect(params).toMatchObject({ q: 'kow', page: '0' });
     req.flush(page(1, 0, [people[0]]));
+  });
+
+  it("lists an operator's machines by name", async () => {
+    (await nextListRequest()).req.flush(page(2));
+    await fixture.whenStable();
+    const rows = Array.from(root.querySelectorAll('tr.mat-mdc-row'));
+    expect(rows[1].querySelector('.mat-column-machines')?.textContent?.trim()).toBe('Bench saw B2, Floor saw F1');
+    expect(rows[0].querySelector('.mat-column-machines')?.textContent?.trim()).toBe('');
+  });
+
+  it('shows an invited person as Invited, and sends the invitation again from the row menu', async () => {
+    const invited = aUser({ id: 9, username: 'ntakeda', displayName: 'Naoko Takeda', invitationPending: true, lastSignInAt: null });
+    (await nextListRequest()).req.flush(page(1, 0, [invited]));
+    await fixture.whenStable();
+    const row = root.querySelector('tr.mat-mdc-row')!;
+    expect(row.querySelector('.mat-column-status')?.textContent).toContain('Invited');
+
+    row.querySelector<HTMLButtonElement>('button[aria-label="Actions for Naoko Takeda"]')!.click();
+    await fixture.whenStable();
+    const again = Array.from(document.querySelectorAll<HTMLButtonElement>('.mat-mdc-menu-panel button')).find((b) =>
+      b.textContent?.includes('Send invitation again'),
+    )!;
+    again.click();
+    const post = await vi.waitFor(() => backend.expectOne({ method: 'POST', url: '/api/users/9/invitation' }));
+    post.flush({ message: 'A new invitation was sent to naoko@lab.example.' });
+    await vi.waitFor(() => expect(notifier.show).toHaveBeenCalledWith('A new invitation was sent to naoko@lab.example.', 'OK', 8000));
+    (await nextListRequest()).req.flush(page(1, 0, [invited]));
+  });
+
+  it('offers no "Send invitation again" for someone who has set a password', async () => {
+    (await nextListRequest()).req.flush(page(2));
+    await fixture.whenStable();
+    root.querySelector<HTMLButtonElement>('button[aria-label="Actions for Iwona Kowalczyk"]')!.click();
+    await fixture.whenStable();
+    const labels = Array.from(document.querySelectorAll('.mat-mdc-menu-panel button')).map((b) => b.textContent ?? '');
+    expect(labels.some((l) => l.includes('Edit'))).toBe(true);
+    expect(labels.some((l) => l.includes('Send invitation again'))).toBe(false);
   });
 });

@@ -16,10 +16,12 @@ import { MatSortModule, type Sort } from '@angular/material/sort';
 import { MatTableModule } from '@angular/material/table';
 import { catchError, debounceTime, distinctUntilChanged, firstValueFrom, map, of, switchMap } from 'rxjs';
 import type { Page, UserDto } from '../../../shared/api-types';
+import type { MachineRecord } from '../../../shared/stock-types';
 import { ROLES, ROLE_INFO, type Role } from '../../../shared/roles';
 import { USER_SORT_FIELDS, type UserListQuery } from '../../../shared/schemas/users';
 import { Notifier } from '../core/notifier/notifier';
 import { Session } from '../core/session/session';
+import { StockApi } from '../stock/stock-api';
 import { ConfirmDialog, type ConfirmDialogData } from '../ui/confirm-dialog';
 import { PeopleApi } from './people-api';
 import { PersonFormDialog, type PersonFormDialogData } from './person-form-dialog';
@@ -60,7 +62,7 @@ export class PeopleList {
   private readonly session = inject(Session);
   private readonly fb = inject(NonNullableFormBuilder);
 
-  protected readonly columns = ['username', 'displayName', 'email', 'roles', 'status', 'lastSignInAt', 'actions'];
+  protected readonly columns = ['username', 'displayName', 'email', 'roles', 'machines', 'status', 'lastSignInAt', 'actions'];
   protected readonly roleOptions = ROLES.map((role) => ({ role, label: ROLE_INFO[role].label }));
   protected readonly roleLabel = (role: Role) => ROLE_INFO[role].label;
   protected readonly pageSizeOptions = [10, 25, 50, 100];
@@ -104,6 +106,21 @@ export class PeopleList {
   protected readonly result = signal<Page<UserDto>>({ items: [], total: 0, page: 0, pageSize: 25 });
   protected readonly currentUserId = computed(() => this.session.user()?.id);
 
+  /** Every machine, archived ones too: an operator may still be assigned to a retired saw. */
+  private readonly machines = toSignal(
+    inject(StockApi)
+      .machines.list({ archived: 'all', pageSize: 200, sort: 'name' })
+      .pipe(
+        map((page) => page.items),
+        catchError(() => of([] as MachineRecord[])),
+      ),
+    { initialValue: [] as MachineRecord[] },
+  );
+  private readonly machineNames = computed(() => new Map(this.machines().map((m) => [m.id, m.name])));
+  /** "Bench saw B2, Floor saw F1" for an operator's row. */
+  protected readonly machineList = (person: UserDto): string =>
+    person.machineIds.map((id) => this.machineNames().get(id) ?? `Machine ${id}`).join(', ');
+
   constructor() {
     toObservable(computed(() => ({ query: this.query(), reload: this.reloads() })))
       .pipe(
@@ -140,7 +157,11 @@ export class PeopleList {
 
   protected addPerson(): void {
     this.dialog
-      .open<PersonFormDialog, PersonFormDialogData, UserDto>(PersonFormDialog, { data: {}, width: '600px', maxWidth: '95vw' })
+      .open<PersonFormDialog, PersonFormDialogData, UserDto>(PersonFormDialog, {
+        data: { machines: this.machines() },
+        width: '600px',
+        maxWidth: '95vw',
+      })
       .afterClosed()
       .subscribe((person) => {
         if (!person) return;
@@ -153,9 +174,42 @@ export class PeopleList {
       });
   }
 
+  protected invitePerson(): void {
+    this.dialog
+      .open<PersonFormDialog, PersonFormDialogData, UserDto>(PersonFormDialog, {
+        data: { invite: true, machines: this.machines() },
+        width: '600px',
+        maxWidth: '95vw',
+      })
+      .afterClosed()
+      .subscribe((person) => {
+        if (!person) return;
+        void this.notifier.show(
+          `An invitation was sent to ${person.email}. ${person.displayName} has 72 hours to choose a password.`,
+          'OK',
+          8000,
+        );
+        this.reload();
+      });
+  }
+
+  protected async resendInvitation(person: UserDto): Promise<void> {
+    try {
+      const { message } = await firstValueFrom(this.api.resendInvitation(person.id));
+      void this.notifier.show(message || `A new invitation was sent to ${person.displayName}.`, 'OK', 8000);
+      this.reload();
+    } catch {
+      // Shown by the error interceptor (409 when the person has already set a password).
+    }
+  }
+
   protected editPerson(person: UserDto): void {
     this.dialog
-      .open<PersonFormDialog, PersonFormDialogData, UserDto>(PersonFormDialog, { data: { person }, width: '600px', maxWidth: '95vw' })
+      .open<PersonFormDialog, PersonFormDialogData, UserDto>(PersonFormDialog, {
+        data: { person, machines: this.machines() },
+        width: '600px',
+        maxWidth: '95vw',
+      })
       .afterClosed()
       .subscribe((saved) => {
         if (!saved) return;

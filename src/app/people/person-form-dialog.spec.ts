@@ -3,9 +3,11 @@ import { HttpTestingController, provideHttpClientTesting } from '@angular/common
 import { type ComponentFixture, TestBed } from '@angular/core/testing';
 import { TestbedHarnessEnvironment } from '@angular/cdk/testing/testbed';
 import { MatCheckboxHarness } from '@angular/material/checkbox/testing';
+import { MatSelectHarness } from '@angular/material/select/testing';
 import { MAT_DIALOG_DATA, MatDialogRef } from '@angular/material/dialog';
 import { provideRouter } from '@angular/router';
 import type { UserDto } from '../../../shared/api-types';
+import { aMachine } from '../../testing/stock-and-recipe-fixtures';
 import { aUser } from '../../testing/user-fixture';
 import { errorInterceptor } from '../core/http/error-interceptor';
 import { Notifier } from '../core/notifier/notifier';
@@ -86,6 +88,7 @@ describe('PersonFormDialog', () => {
       email: 'naoko@lab.example',
       roles: ['author', 'operator'],
       temporaryPassword: 'first-day-2026',
+      machineIds: [],
     });
     const saved: UserDto = aUser({ id: 12, username: 'ntakeda', roles: ['author', 'operator'] });
     req.flush(saved, { status: 201, statusText: 'Created' });
@@ -148,8 +151,97 @@ describe('PersonFormDialog', () => {
     await tick('Auditor');
     submit();
     const req = await vi.waitFor(() => backend.expectOne({ method: 'PATCH', url: '/api/users/5' }));
-    expect(req.request.body).toEqual({ displayName: 'Paul A. Meier', email: '', roles: ['operator', 'auditor'] });
+    expect(req.request.body).toEqual({ displayName: 'Paul A. Meier', email: '', roles: ['operator', 'auditor'], machineIds: [] });
     req.flush({ ...person, displayName: 'Paul A. Meier', roles: ['operator', 'auditor'] });
     await vi.waitFor(() => expect(dialogRef.close).toHaveBeenCalled());
+  });
+
+  const machines = [
+    aMachine({ id: 1, name: 'Bench saw B2' }),
+    aMachine({ id: 3, name: 'Floor saw F1' }),
+    aMachine({ id: 4, name: 'Old saw', archived: true }),
+  ];
+
+  async function machineSelect(): Promise<MatSelectHarness> {
+    return TestbedHarnessEnvironment.loader(fixture).getHarness(MatSelectHarness);
+  }
+
+  it('invites by e-mail: no temporary password, e-mail required, posts inviteBody with the machines', async () => {
+    await open({ invite: true, machines });
+    expect(root.textContent).toContain('Invite by e-mail');
+    expect(input('temporaryPassword')).toBeNull();
+    type('username', 'NTakeda');
+    type('displayName', 'Naoko Takeda');
+    await tick('Operator');
+    submit();
+    expect(await text('email-error')).toBe('E-mail is required.');
+    backend.expectNone('/api/users/invitations');
+
+    type('email', 'naoko@lab.example');
+    const select = await machineSelect();
+    await select.open();
+    const offered = await Promise.all((await select.getOptions()).map((o) => o.getText()));
+    expect(offered).toEqual(['Bench saw B2', 'Floor saw F1']);
+    await select.clickOptions({ text: 'Floor saw F1' });
+    await select.close();
+    submit();
+    const req = await vi.waitFor(() => backend.expectOne({ method: 'POST', url: '/api/users/invitations' }));
+    expect(req.request.body).toEqual({
+      username: 'NTakeda',
+      displayName: 'Naoko Takeda',
+      email: 'naoko@lab.example',
+      roles: ['operator'],
+      machineIds: [3],
+    });
+    const saved = aUser({ id: 13, username: 'ntakeda', invitationPending: true, roles: ['operator'], machineIds: [3] });
+    req.flush(saved, { status: 201, statusText: 'Created' });
+    await vi.waitFor(() => expect(dialogRef.close).toHaveBeenCalledWith(saved));
+  });
+
+  it("puts the invitation's 400 field errors on their fields", async () => {
+    await open({ invite: true, machines });
+    type('username', 'ntakeda');
+    type('displayName', 'Naoko Takeda');
+    type('email', 'naoko@lab.example');
+    await tick('Operator');
+    submit();
+    (await vi.waitFor(() => backend.expectOne('/api/users/invitations'))).flush(
+      {
+        code: 'VALIDATION_FAILED',
+        errors: [
+          { path: 'email', message: 'Another person already uses this e-mail address.' },
+          { path: 'machineIds.0', message: 'Machine 99 does not exist.' },
+        ],
+      },
+      { status: 400, statusText: 'Bad Request' },
+    );
+    await vi.waitFor(async () => expect(await text('email-error')).toBe('Another person already uses this e-mail address.'));
+    expect(await text('machineIds-error')).toBe('Machine 99 does not exist.');
+    expect(notifier.show).not.toHaveBeenCalled();
+    expect(dialogRef.close).not.toHaveBeenCalled();
+  });
+
+  it("edits an operator's machines, keeping an archived one still assigned", async () => {
+    const person = aUser({ id: 5, displayName: 'Paul Meier', roles: ['operator'], machineIds: [4] });
+    await open({ person, machines });
+    const select = await machineSelect();
+    await select.open();
+    const offered = await Promise.all((await select.getOptions()).map((o) => o.getText()));
+    expect(offered).toEqual(['Bench saw B2', 'Floor saw F1', 'Old saw (archived)']);
+    await select.clickOptions({ text: 'Bench saw B2' });
+    await select.close();
+    submit();
+    const req = await vi.waitFor(() => backend.expectOne({ method: 'PATCH', url: '/api/users/5' }));
+    expect(req.request.body.machineIds).toEqual([1, 4]);
+    req.flush({ ...person, machineIds: [1, 4] });
+    await vi.waitFor(() => expect(dialogRef.close).toHaveBeenCalled());
+  });
+
+  it('shows the machines only while the operator role is ticked', async () => {
+    await open({ machines });
+    expect(root.querySelector('[data-testid="machines"]')).toBeNull();
+    await tick('Operator');
+    await fixture.whenStable();
+    expect(root.querySelector('[data-testid="machines"]')).not.toBeNull();
   });
 });

@@ -1,4 +1,5 @@
 import { ChangeDetectionStrategy, Component, type ElementRef, inject, signal, viewChild } from '@angular/core';
+import { toSignal } from '@angular/core/rxjs-interop';
 import { NonNullableFormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatCheckboxModule } from '@angular/material/checkbox';
@@ -6,10 +7,13 @@ import { MAT_DIALOG_DATA, MatDialogModule, MatDialogRef } from '@angular/materia
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
+import { MatSelectModule } from '@angular/material/select';
 import { firstValueFrom } from 'rxjs';
 import type { UserDto } from '../../../shared/api-types';
 import { ROLES, ROLE_INFO, type Role } from '../../../shared/roles';
 import { displayName, email, newPassword, username } from '../../../shared/schemas/fields';
+import { requiredEmail } from '../../../shared/schemas/mail';
+import type { MachineRecord } from '../../../shared/stock-types';
 import { controlMessage } from '../core/forms/control-message';
 import { applyServerErrors } from '../core/forms/server-errors';
 import { zodValidator } from '../core/forms/zod-validator';
@@ -21,9 +25,22 @@ import { suggestTemporaryPassword } from './temporary-password';
 export interface PersonFormDialogData {
   /** The person to edit; absent to add a new one. */
   person?: UserDto;
+  /** Add the person by e-mail invitation (they set their own password) instead of a temporary password. */
+  invite?: boolean;
+  /** The lab's machines, archived ones included (an operator may still be assigned to one). */
+  machines?: readonly MachineRecord[];
 }
 
-/** Add a person (with a temporary password) or edit one's name, e-mail and roles. Closes with the saved UserDto. */
+/** A machine an operator can be assigned to, as offered in the form. */
+interface MachineOption {
+  id: number;
+  label: string;
+}
+
+/**
+ * Add a person (with a temporary password, or by e-mail invitation) or edit one's name,
+ * e-mail, roles and, for operators, machines. Closes with the saved UserDto.
+ */
 @Component({
   selector: 'kb-person-form-dialog',
   imports: [
@@ -33,6 +50,7 @@ export interface PersonFormDialogData {
     MatFormFieldModule,
     MatIconModule,
     MatInputModule,
+    MatSelectModule,
     ReactiveFormsModule,
   ],
   templateUrl: './person-form-dialog.html',
@@ -42,11 +60,14 @@ export interface PersonFormDialogData {
 export class PersonFormDialog {
   private readonly api = inject(PeopleApi);
   private readonly dialogRef = inject<MatDialogRef<PersonFormDialog, UserDto>>(MatDialogRef);
-  private readonly person = inject<PersonFormDialogData>(MAT_DIALOG_DATA).person;
+  private readonly data = inject<PersonFormDialogData>(MAT_DIALOG_DATA);
+  private readonly person = this.data.person;
   private readonly fb = inject(NonNullableFormBuilder);
   private readonly usernameInput = viewChild<ElementRef<HTMLInputElement>>('usernameInput');
 
   protected readonly isNew = !this.person;
+  protected readonly isInvite = this.isNew && this.data.invite === true;
+  protected readonly machineOptions = machineOptions(this.data.machines ?? [], this.person?.machineIds ?? []);
   protected readonly roleOptions = ROLES.map((role) => ({ role, ...ROLE_INFO[role] }));
   protected readonly controlMessage = controlMessage;
   protected readonly busy = signal(false);
@@ -55,11 +76,19 @@ export class PersonFormDialog {
   protected readonly form = this.fb.group({
     username: [this.person?.username ?? '', [Validators.required, zodValidator(username)]],
     displayName: [this.person?.displayName ?? '', [Validators.required, zodValidator(displayName)]],
-    email: [this.person?.email ?? '', [zodValidator(email)]],
+    email: [
+      this.person?.email ?? '',
+      this.isInvite ? [Validators.required, zodValidator(requiredEmail)] : [zodValidator(email)],
+    ],
     roles: this.fb.group(
       Object.fromEntries(ROLES.map((role) => [role, this.person?.roles.includes(role) ?? false])) as Record<Role, boolean>,
     ),
     temporaryPassword: ['', [Validators.required, zodValidator(newPassword)]],
+    machineIds: [this.person?.machineIds ?? ([] as number[])],
+  });
+  /** Machines matter for operators only: the field shows while the operator role is ticked. */
+  protected readonly isOperator = toSignal(this.form.controls.roles.controls.operator.valueChanges, {
+    initialValue: this.form.controls.roles.controls.operator.value,
   });
 
   constructor() {
@@ -68,6 +97,8 @@ export class PersonFormDialog {
       this.form.controls.username.disable();
       this.form.controls.temporaryPassword.disable();
     }
+    // An invited person chooses their own password from the mail link.
+    if (this.isInvite) this.form.controls.temporaryPassword.disable();
   }
 
   protected suggestPassword(): void {
@@ -83,26 +114,23 @@ export class PersonFormDialog {
     }
     const value = this.form.getRawValue();
     const roles = ROLES.filter((role) => value.roles[role]);
+    // Only operators run machines; unticking the role clears the assignment.
+    const machineIds = value.roles.operator ? value.machineIds : [];
     // 400 field errors and 409 (username taken) are shown in this form, not as a snack bar.
     const context = callerHandles(400, 409);
+    const { displayName, email } = value;
     this.busy.set(true);
     try {
       const saved = this.person
-        ? await firstValueFrom(
-            this.api.update(this.person.id, { displayName: value.displayName, email: value.email, roles }, context),
-          )
-        : await firstValueFrom(
-            this.api.create(
-              {
-                username: value.username,
-                displayName: value.displayName,
-                email: value.email,
-                roles,
-                temporaryPassword: value.temporaryPassword,
-              },
-              context,
-            ),
-          );
+        ? await firstValueFrom(this.api.update(this.person.id, { displayName, email, roles, machineIds }, context))
+        : this.isInvite
+          ? await firstValueFrom(this.api.invite({ username: value.username, displayName, email, roles, machineIds }, context))
+          : await firstValueFrom(
+              this.api.create(
+                { username: value.username, displayName, email, roles, temporaryPassword: value.temporaryPassword, machineIds },
+                context,
+              ),
+            );
       this.dialogRef.close(saved);
     } catch (e) {
       if (!isApiError(e)) throw e;
@@ -118,4 +146,15 @@ export class PersonFormDialog {
       this.busy.set(false);
     }
   }
+}
+
+/** Machines in service, plus any retired one the person is still assigned to (so saving does not drop it silently). */
+function machineOptions(machines: readonly MachineRecord[], assigned: readonly number[]): MachineOption[] {
+  const options = machines
+    .filter((m) => !m.archived || assigned.includes(m.id))
+    .map((m) => ({ id: m.id, label: m.archived ? `${m.name} (archived)` : m.name }));
+  for (const id of assigned) {
+    if (!options.some((o) => o.id === id)) options.push({ id, label: `Machine ${id}` });
+  }
+  return options;
 }

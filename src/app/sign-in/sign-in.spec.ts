@@ -148,4 +148,19 @@ describe('SignIn', () => {
       expect(root.querySelector('mat-error')?.textContent).toContain('Password is too long.');
     });
   });
+
+  it('links to the forgot-password page', () => {
+    expect(root.querySelector('a[href="/forgot-password"]')?.textContent).toContain('Forgot password?');
+  });
+
+  it('fills in the username and says the password is set after a mail link', async () => {
+    const again = TestBed.createComponent(SignIn);
+    again.componentRef.setInput('username', 'ntakeda');
+    again.componentRef.setInput('passwordSet', 'yes');
+    await again.whenStable();
+    const page: HTMLElement = again.nativeElement;
+    expect(page.querySelector<HTMLInputElement>('input[formcontrolname="username"]')!.value).toBe('ntakeda');
+    expect(page.querySelector('[data-testid="password-set"]')?.textContent).toContain('Your password is set.');
+    expect(root.querySelector('[data-testid="password-set"]')).toBeNull();
+  });
 });

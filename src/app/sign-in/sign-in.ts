@@ -5,7 +5,7 @@ import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { MatProgressSpinnerModule } from '@angular/material/progress-spinner';
-import { Router } from '@angular/router';
+import { Router, RouterLink } from '@angular/router';
 import { signInBody } from '../../../shared/schemas/session';
 import { controlMessage } from '../core/forms/control-message';
 import { applyServerErrors } from '../core/forms/server-errors';
@@ -30,6 +30,7 @@ const FALLBACK_MESSAGES: Record<number, string> = {
     MatInputModule,
     MatProgressSpinnerModule,
     ReactiveFormsModule,
+    RouterLink,
   ],
   templateUrl: './sign-in.html',
   styleUrl: './sign-in.scss',
@@ -41,6 +42,9 @@ export class SignIn implements OnInit {
 
   /** Where to go after signing in; bound from the query string. */
   readonly returnUrl = input<string>();
+  /** Prefilled after setting a password from a mail link (/sign-in?username=…&passwordSet=yes). */
+  readonly username = input<string>();
+  readonly passwordSet = input<string>();
 
   protected readonly form = inject(NonNullableFormBuilder).group({
     username: ['', [Validators.required, zodValidator(signInBody.shape.username)]],
@@ -53,7 +57,12 @@ export class SignIn implements OnInit {
 
   ngOnInit(): void {
     // Someone already signed in has nothing to do here (inputs are bound by now).
-    if (this.session.isSignedIn()) void this.router.navigateByUrl(safeReturnUrl(this.returnUrl()));
+    if (this.session.isSignedIn()) {
+      void this.router.navigateByUrl(safeReturnUrl(this.returnUrl()));
+      return;
+    }
+    const username = this.username()?.trim();
+    if (username) this.form.controls.username.setValue(username);
   }
 
   protected togglePasswordVisibility(): void {

@@ -39,7 +39,7 @@ describe('Session', () => {
 
   it('load() takes the user and token from GET /api/session', async () => {
     const loading = session.load();
-    const body: SessionDto = { user: aUser({ roles: ['admin', 'auditor'] }), csrfToken: 'tok-1' };
+    const body: SessionDto = { user: aUser({ roles: ['admin', 'auditor'] }), csrfToken: 'tok-1', devOutbox: true };
     http.expectOne({ method: 'GET', url: '/api/session' }).flush(body);
     await loading;
 
@@ -48,6 +48,22 @@ describe('Session', () => {
     expect(session.roles()).toEqual(['admin', 'auditor']);
     expect(session.csrfToken()).toBe('tok-1');
     expect(session.mustChangePassword()).toBe(false);
+    expect(session.devOutbox()).toBe(true);
+  });
+
+  it('postAnonymous() fetches a token when there is none, and retries once with a fresh one when it was stale', async () => {
+    const posting = session.postAnonymous<{ message: string }>('/api/password/forgot', { email: 'a@lab.example' }, 400);
+    (await vi.waitFor(() => http.expectOne('/api/session/csrf'))).flush({ csrfToken: 'stale' });
+    const first = await vi.waitFor(() => http.expectOne({ method: 'POST', url: '/api/password/forgot' }));
+    expect(first.request.headers.get('x-csrf-token')).toBe('stale');
+    first.flush({ code: 'CSRF_INVALID', errors: [{ path: '', message: 'Bad token.' }] }, { status: 403, statusText: 'Forbidden' });
+    (await vi.waitFor(() => http.expectOne('/api/session/csrf'))).flush({ csrfToken: 'good' });
+    const retry = await vi.waitFor(() => http.expectOne({ method: 'POST', url: '/api/password/forgot' }));
+    expect(retry.request.headers.get('x-csrf-token')).toBe('good');
+    expect(retry.request.body).toEqual({ email: 'a@lab.example' });
+    retry.flush({ message: 'Sent.' });
+    await expect(posting).resolves.toEqual({ message: 'Sent.' });
+    expect(notifier.show).not.toHaveBeenCalled();
   });
 
   it('load() on 401 stays anonymous and fetches the anonymous CSRF token', async () => {

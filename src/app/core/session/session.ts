@@ -17,12 +17,15 @@ export class Session {
 
   private readonly currentUser = signal<UserDto | null>(null);
   private readonly token = signal<string | null>(null);
+  private readonly outboxKept = signal(false);
 
   readonly user = this.currentUser.asReadonly();
   readonly csrfToken = this.token.asReadonly();
   readonly isSignedIn = computed(() => this.currentUser() !== null);
   readonly roles = computed<readonly Role[]>(() => this.currentUser()?.roles ?? []);
   readonly mustChangePassword = computed(() => this.currentUser()?.mustChangePassword ?? false);
+  /** True when the server keeps a development outbox (never in production). */
+  readonly devOutbox = this.outboxKept.asReadonly();
 
   /**
    * Finds out who is signed in. A 401 means nobody: then fetch the anonymous session's
@@ -32,8 +35,7 @@ export class Session {
     try {
       this.apply(await firstValueFrom(this.http.get<SessionDto>('/api/session', { context: callerHandles(401) })));
     } catch (e) {
-      this.currentUser.set(null);
-      this.token.set(null);
+      this.clear();
       if (isApiError(e) && e.status === 401) await this.refreshAnonymousToken().catch(() => undefined);
     }
   }
@@ -84,10 +86,28 @@ export class Session {
     return session.user;
   }
 
+  /**
+   * A POST that works signed out (forgot password, set a password from a mail link): fetches
+   * the anonymous session's CSRF token first if there is none, and once more if it has gone
+   * stale. The caller shows every error itself (`handles` plus the 403 of a stale token).
+   */
+  async postAnonymous<T>(url: string, body: unknown, ...handles: number[]): Promise<T> {
+    if (!this.token()) await this.refreshAnonymousToken();
+    const post = () => firstValueFrom(this.http.post<T>(url, body, { context: callerHandles(...handles, 403) }));
+    try {
+      return await post();
+    } catch (e) {
+      if (!(isApiError(e) && e.code === 'CSRF_INVALID')) throw e;
+      await this.refreshAnonymousToken();
+      return post();
+    }
+  }
+
   /** Forget the user locally (the server said the session is gone, or we signed out). */
   clear(): void {
     this.currentUser.set(null);
     this.token.set(null);
+    this.outboxKept.set(false);
   }
 
   private async refreshAnonymousToken(): Promise<void> {
@@ -98,5 +118,6 @@ export class Session {
   private apply(session: SessionDto): void {
     this.currentUser.set(session.user);
     this.token.set(session.csrfToken);
+    this.outboxKept.set(session.devOutbox === true);
   }
 }

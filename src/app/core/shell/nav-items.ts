@@ -9,6 +9,8 @@ export interface NavItem {
   path: string;
   /** Should match the access of the route it opens (app.routes.ts). */
   access: Access;
+  /** Shown only when the server keeps a development outbox (SessionDto.devOutbox). */
+  devOnly?: true;
 }
 
 /** Add an entry here when its screen exists, never before. */
@@ -21,5 +23,6 @@ export const NAV_ITEMS: readonly NavItem[] = [
   { label: 'Specimen trace', icon: 'biotech', path: '/cuts', access: 'signedIn' },
   { label: 'Trail', icon: 'policy', path: '/trail', access: ['auditor', 'admin'] },
   { label: 'People', icon: 'group', path: '/people', access: ['admin'] },
+  { label: 'Outbox', icon: 'outgoing_mail', path: '/outbox', access: ['admin'], devOnly: true },
   { label: 'My account', icon: 'manage_accounts', path: '/account', access: 'signedIn' },
 ];

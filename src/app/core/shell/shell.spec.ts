@@ -9,16 +9,18 @@ import { Shell } from './shell';
 
 describe('Shell', () => {
   const user = signal<UserDto | null>(null);
+  const devOutbox = signal(false);
 
-  async function render(roles: Role[]) {
+  async function render(roles: Role[], outbox = false) {
     user.set(aUser({ displayName: 'Tomasz Weber', roles }));
+    devOutbox.set(outbox);
     TestBed.configureTestingModule({
       imports: [Shell],
       providers: [
         provideRouter([]),
         {
           provide: Session,
-          useValue: { user, roles: computed(() => user()?.roles ?? []), signOut: vi.fn().mockResolvedValue(undefined) },
+          useValue: { user, roles: computed(() => user()?.roles ?? []), devOutbox, signOut: vi.fn().mockResolvedValue(undefined) },
         },
       ],
     });
@@ -42,6 +44,22 @@ describe('Shell', () => {
     expect(root.querySelector('nav a[href="/people"]')).toBeNull();
     expect(root.querySelector('nav a[href="/today"]')).not.toBeNull();
     expect(root.querySelector('nav a[href="/account"]')).not.toBeNull();
+  });
+
+  it('shows Outbox to an admin only when the server keeps a development outbox', async () => {
+    const root = await render(['admin'], true);
+    expect(root.querySelector('nav a[href="/outbox"]')?.textContent).toContain('Outbox');
+  });
+
+  it('hides Outbox when the server keeps no development outbox', async () => {
+    const root = await render(['admin'], false);
+    expect(root.querySelector('nav a[href="/people"]')).not.toBeNull();
+    expect(root.querySelector('nav a[href="/outbox"]')).toBeNull();
+  });
+
+  it('hides Outbox from non-admins even in development', async () => {
+    const root = await render(['author', 'operator'], true);
+    expect(root.querySelector('nav a[href="/outbox"]')).toBeNull();
   });
 
   it('shows the app name and the user display name in the toolbar', async () => {

@@ -39,7 +39,11 @@ export class Shell {
   private readonly router = inject(Router);
 
   protected readonly user = this.session.user;
-  protected readonly navItems = computed(() => NAV_ITEMS.filter((item) => hasAccess(this.session.roles(), item.access)));
+  protected readonly navItems = computed(() =>
+    NAV_ITEMS.filter(
+      (item) => hasAccess(this.session.roles(), item.access) && (!item.devOnly || this.session.devOutbox()),
+    ),
+  );
   protected readonly isNarrow = toSignal(
     inject(BreakpointObserver)
       .observe(NARROW)
