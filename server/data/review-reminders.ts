@@ -40,3 +40,12 @@ export async function insertReminder(trx: Knex.Transaction, versionId: number, p
     throw err;
   }
 }
+
+/** True while the version is still its recipe's current approved version (read again inside the reminder's transaction). */
+export async function isStillCurrent(trx: Knex.Transaction, recipeId: number, versionId: number): Promise<boolean> {
+  const row = await trx('recipes as r')
+    .join('recipe_versions as v', 'v.id', 'r.current_version_id')
+    .where({ 'r.id': recipeId, 'v.id': versionId, 'v.status': 'approved' })
+    .first('v.id');
+  return Boolean(row);
+}

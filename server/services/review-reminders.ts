@@ -6,7 +6,7 @@
  * process running at the same moment, do nothing.
  */
 import type { Knex } from 'knex';
-import { insertReminder, reminderCandidates } from '../data/review-reminders';
+import { insertReminder, isStillCurrent, reminderCandidates } from '../data/review-reminders';
 import { addDays, dayOf, utcDay } from './calendar-dates';
 import { DEFAULT_MAIL_SETTINGS, type MailSettings } from './mail/mail-settings';
 import { notifyReviewDue } from './mail/notifications';
@@ -33,6 +33,8 @@ export async function sendReviewReminders(db: Knex, now: Date = new Date(), mail
   const result: ReminderResult = { reminded: 0, mails: 0 };
   for (const c of await reminderCandidates(db, addDays(today, REMINDER_WINDOW_DAYS), period)) {
     await db.transaction(async (trx) => {
+      // Superseded or withdrawn since the list was read: its review no longer matters.
+      if (!(await isStillCurrent(trx, c.recipe_id, c.version_id))) return;
       if (!(await insertReminder(trx, c.version_id, period, now))) return;
       const ref = { recipeId: c.recipe_id, number: c.number, version: c.version, title: c.title };
       result.mails += await notifyReviewDue(trx, mail, c.version_id, ref, dayOf(c.review_due_on)!, today, now);

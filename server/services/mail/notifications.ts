@@ -4,6 +4,7 @@
  * event committed). Callers do this before their audit event, whose head lock comes last.
  */
 import type { Knex } from 'knex';
+import { findMachineName } from '../../data/acknowledgements';
 import { enqueueMail, type OutgoingMail } from '../mail-outbox';
 import {
   cutFlaggedMail,
@@ -17,7 +18,6 @@ import {
 } from './notification-mails';
 import type { MailSettings } from './mail-settings';
 import { authorsOf, operatorsOf, reviewersOf, type Recipient } from './recipients';
-import { findMachineName } from '../../data/acknowledgements';
 
 async function enqueueAll(trx: Knex.Transaction, recipients: readonly Recipient[], build: (to: Recipient) => OutgoingMail, now: Date): Promise<number> {
   for (const to of recipients) await enqueueMail(trx, build(to), now);
