@@ -1,5 +1,6 @@
 /** Queries on mail_outbox: insert, claim due rows, mark sent or failed, the outbox list. */
 import type { Knex } from 'knex';
+import { retryOnDeadlock } from './retry-deadlock';
 
 export interface MailRow {
   id: number;
@@ -32,6 +33,10 @@ export async function insertMail(db: Knex, row: NewMailRow): Promise<number> {
  * anything is sent. Due means unsent, `send_after` reached, and no claim that still holds.
  */
 export async function claimDueMails(db: Knex, workerId: string, now: Date, claimUntil: Date, limit: number): Promise<MailRow[]> {
+  return retryOnDeadlock(() => claimOnce(db, workerId, now, claimUntil, limit));
+}
+
+async function claimOnce(db: Knex, workerId: string, now: Date, claimUntil: Date, limit: number): Promise<MailRow[]> {
   return db.transaction(async (trx) => {
     const rows: MailRow[] = await trx('mail_outbox')
       .whereNull('sent_at')
@@ -54,10 +59,13 @@ export async function claimDueMails(db: Knex, workerId: string, now: Date, claim
 
 /** Records a delivery. Never undone: a row with `sent_at` is never claimed again. */
 export async function markMailSent(db: Knex, id: number, sentAt: Date, messageId: string): Promise<void> {
-  await db('mail_outbox')
-    .where({ id })
-    .whereNull('sent_at')
-    .update({ sent_at: sentAt, message_id: messageId, sending_claimed_by: null, sending_claimed_until: null });
+  // Retried: a lost "sent" mark would let the row be sent again once its claim runs out.
+  await retryOnDeadlock(() =>
+    db('mail_outbox')
+      .where({ id })
+      .whereNull('sent_at')
+      .update({ sent_at: sentAt, message_id: messageId, sending_claimed_by: null, sending_claimed_until: null }),
+  );
 }
 
 /**
@@ -65,16 +73,18 @@ export async function markMailSent(db: Knex, id: number, sentAt: Date, messageId
  * claim (a worker whose claim ran out leaves the row to the one that took it over).
  */
 export async function markMailFailed(db: Knex, id: number, workerId: string, error: string, retryAt: Date): Promise<void> {
-  await db('mail_outbox')
-    .where({ id, sending_claimed_by: workerId })
-    .whereNull('sent_at')
-    .update({
-      attempts: db.raw('attempts + 1'),
-      last_error: error,
-      send_after: retryAt,
-      sending_claimed_by: null,
-      sending_claimed_until: null,
-    });
+  await retryOnDeadlock(() =>
+    db('mail_outbox')
+      .where({ id, sending_claimed_by: workerId })
+      .whereNull('sent_at')
+      .update({
+        attempts: db.raw('attempts + 1'),
+        last_error: error,
+        send_after: retryAt,
+        sending_claimed_by: null,
+        sending_claimed_until: null,
+      }),
+  );
 }
 
 /** The outbox, newest first. */

@@ -61,7 +61,7 @@ export const AUDIT_EVENTS = {
   sheetPrinted: 'sheet.printed',
   cutRecorded: 'cut.recorded',
   cutFlagCleared: 'cut.flag_cleared',
-  versionAcknowledged: 'version.acknowledged',
+  versionAcknowledged: 'recipe.version_acknowledged',
 } as const;
 
 export type AuditEventType = (typeof AUDIT_EVENTS)[keyof typeof AUDIT_EVENTS];

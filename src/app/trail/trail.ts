@@ -37,6 +37,7 @@ const SUGGESTED_TYPES = [
   'recipe.version_withdrawn',
   'recipe.version_created',
   'recipe.review_comment_added',
+  'recipe.version_acknowledged',
   'attachment.added',
   'attachment.deleted',
   'material.created',
@@ -49,6 +50,10 @@ const SUGGESTED_TYPES = [
   'user.created',
   'user.roles_changed',
   'user.deactivated',
+  'user.invited',
+  'user.machines_changed',
+  'user.password_set_by_link',
+  'user.password_reset_requested',
   'session.signed_in',
   'session.sign_in_failed',
 ];

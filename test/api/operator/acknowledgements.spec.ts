@@ -103,7 +103,7 @@ describe('Acknowledgements', () => {
     const row = await ctx.db('acknowledgements').where({ user_id: operator.person.id }).first();
     expect(row).to.include({ user_name: 'Kofi Operator' });
     const event = await ctx.db('audit_events').orderBy('id', 'desc').first();
-    expect(event).to.include({ event_type: 'version.acknowledged', actor_user_id: operator.person.id, recipe_id: current.recipeId, entity_type: 'recipe_version' });
+    expect(event).to.include({ event_type: 'recipe.version_acknowledged', actor_user_id: operator.person.id, recipe_id: current.recipeId, entity_type: 'recipe_version' });
     expect(asJson(event.after_json)).to.include({ version: 1, number: current.number, machineId: stock.machine.id });
 
     expect(await mine(operator, current)).to.deep.equal({ required: false, acknowledgedAt: res.body.acknowledgedAt });
