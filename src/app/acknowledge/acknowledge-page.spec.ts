@@ -84,6 +84,7 @@ describe('AcknowledgePage', () => {
     expect(steps).toEqual(['Clamp the bar.', 'Start the coolant.']);
     expect(words(root())).toContain('Keep the guard closed.');
 
+    expect(words(root().querySelector('.kb-ack-hint'))).toContain('then acknowledge at the end of the page');
     expect(words(root().querySelector('#kb-ack-statement'))).toBe('I have read and understood version 2 of KB-0003.');
     expect(words(acknowledgeButton())).toContain('Acknowledge');
     expect(root().querySelector('[data-testid="print-sheet"]')).toBeNull();
@@ -106,6 +107,8 @@ describe('AcknowledgePage', () => {
     expect(sheet.getAttribute('target')).toBe('_blank');
     expect(done.querySelector('a[href="/finder"]')!.textContent).toContain('Find a recipe');
     expect(acknowledgeButton()).toBeNull();
+    // The button was at the end of the page: the confirmation at the top takes the focus.
+    await vi.waitFor(() => expect(document.activeElement).toBe(done));
   });
 
   it("shows the server's reason when it refuses, and keeps the statement", async () => {

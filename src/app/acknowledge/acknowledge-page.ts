@@ -1,5 +1,5 @@
 import { DatePipe } from '@angular/common';
-import { ChangeDetectionStrategy, Component, computed, inject, input, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, ElementRef, Injector, afterNextRender, computed, inject, input, signal, viewChild } from '@angular/core';
 import { takeUntilDestroyed, toObservable } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
@@ -47,6 +47,7 @@ export class AcknowledgePage {
   private readonly stockApi = inject(StockApi);
   private readonly api = inject(AcknowledgeApi);
   private readonly session = inject(Session);
+  private readonly injector = inject(Injector);
 
   /** Route parameter `:id` (numeric, see numericIdParam). */
   readonly id = input.required<string>();
@@ -84,6 +85,8 @@ export class AcknowledgePage {
   });
   protected readonly units = computed(() => this.session.user()?.units ?? 'metric');
   protected readonly statusLabel = (status: RecipeVersionDto['status']) => RECIPE_STATUS_INFO[status].label;
+  /** The confirmation box: it takes the focus (and the scroll) once the acknowledgement is recorded. */
+  private readonly confirmation = viewChild<ElementRef<HTMLElement>>('confirmation');
   /** YYYY-MM-DD (UTC), to word an effective date still to come. */
   protected readonly today = utcToday();
 
@@ -130,6 +133,8 @@ export class AcknowledgePage {
     try {
       this.mine.set(await firstValueFrom(this.api.acknowledge(v.recipeId, v.version, callerHandles(409))));
       this.justAcknowledged.set(true);
+      // The button sat at the end of the page; the confirmation shows at the top.
+      afterNextRender(() => this.confirmation()?.nativeElement.focus(), { injector: this.injector });
     } catch (e) {
       // A refusal is shown here; anything else has been shown by the error interceptor.
       if (isApiError(e) && e.status === 409) this.refusal.set(e.generalMessage);

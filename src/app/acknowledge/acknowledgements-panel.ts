@@ -30,8 +30,9 @@ type Load = { state: 'loading' } | { state: 'failed' } | { state: 'ready'; list:
         <p class="kb-muted" data-testid="no-operators">No operators are assigned to {{ a.machine.name }}.</p>
       } @else {
         <p class="kb-muted kb-summary">
-          {{ a.acknowledged.length }} of {{ a.acknowledged.length + a.pending.length }} operators of {{ a.machine.name }} have acknowledged
-          version {{ a.version }}.
+          @let total = a.acknowledged.length + a.pending.length;
+          {{ a.acknowledged.length }} of {{ total }} {{ total === 1 ? 'operator' : 'operators' }} of {{ a.machine.name }}
+          {{ total === 1 ? 'has' : 'have' }} acknowledged version {{ a.version }}.
         </p>
         <div class="kb-columns">
           <section aria-labelledby="kb-ack-pending" data-testid="pending">

@@ -140,6 +140,7 @@ describe('RecipePage acknowledgements', () => {
       expect(root().querySelector('[data-testid="acknowledge-banner"]')).toBeNull();
       expect(printSheet().tagName).toBe('A');
       expect(printSheet().getAttribute('href')).toBe('/api/recipes/3/versions/2/sheet.pdf');
+      expect(TestBed.inject(Notifier).show).toHaveBeenCalledWith('KB-0003 version 2 acknowledged.');
     });
 
     it("shows the server's refusal in the dialog and opens nothing", async () => {

@@ -353,7 +353,9 @@ export class RecipePage {
     const v = this.version();
     if (!v) return;
     const mine = await askToAcknowledge(this.dialog, { recipeId: v.recipeId, number: v.number, title: v.title, version: v.version });
-    if (mine) this.setMyAcknowledgement(v.version, mine);
+    if (!mine) return;
+    this.setMyAcknowledgement(v.version, mine);
+    void this.notifier.show(`${v.number} version ${v.version} acknowledged.`);
   }
 
   private setMyAcknowledgement(version: number, mine: MyAcknowledgementDto | null): void {
