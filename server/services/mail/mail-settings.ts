@@ -6,11 +6,18 @@ export interface MailSettings {
   baseUrl: string;
 }
 
-/** Used where a caller (mostly a test) passes nothing. */
-export const DEFAULT_MAIL_SETTINGS: MailSettings = { baseUrl: 'http://127.0.0.1:4300' };
-
 /** APP_BASE_URL, or the address the server listens on. */
 export function mailSettingsOf(config: Pick<Config, 'appBaseUrl' | 'host' | 'port'>): MailSettings {
   const host = config.host === '0.0.0.0' || config.host === '::' ? '127.0.0.1' : config.host;
-  return { baseUrl: config.appBaseUrl ?? `http://${host.includes(':') ? `[${host}]` : host}:${config.port}` };
+  return { baseUrl: config.appBaseUrl?.replace(/\/+$/, '') ?? `http://${host.includes(':') ? `[${host}]` : host}:${config.port}` };
 }
+
+/**
+ * Used where a caller passes nothing — tests, and the demo seeds that `npm start` loads in
+ * its own process — from the same variables the server reads, so demo mails link to it.
+ */
+export const DEFAULT_MAIL_SETTINGS: MailSettings = mailSettingsOf({
+  ...(process.env['APP_BASE_URL'] ? { appBaseUrl: process.env['APP_BASE_URL'] } : {}),
+  host: process.env['HOST'] ?? '127.0.0.1',
+  port: Number(process.env['PORT'] ?? 4300),
+});

@@ -4,10 +4,20 @@
  * acknowledged all but the newest, and his Today shows that one.
  */
 import { expect } from 'chai';
-import { seedDemoIfEmpty } from '../../../server/tools/db-setup';
+import { NOTIFICATION_KINDS } from '../../../shared/notification-kinds';
+import type { MailRow } from '../../../server/data/mail-outbox';
+import { createMailTransport, deliverDueMails } from '../../../server/services/mail-worker';
+import { inspectLink, requestPasswordReset } from '../../../server/services/password-links';
+import { sendReviewReminders } from '../../../server/services/review-reminders';
 import { getToday } from '../../../server/services/today';
+import { inviteUser } from '../../../server/services/users';
+import { seedDemoIfEmpty } from '../../../server/tools/db-setup';
+import { startMailCatcher } from '../../../server/tools/mail-catcher';
 import { DEMO_ACCOUNTS } from '../../../seeds/data/demo-accounts';
 import { apiTestContext } from '../support/hooks';
+
+const BASE = 'https://kerfbook.harrowgate.example';
+const MAIL = { baseUrl: BASE };
 
 describe('Demo seeds: machines, acknowledgements and the mail they caused', () => {
   const ctx = apiTestContext();
@@ -38,4 +48,58 @@ describe('Demo seeds: machines, acknowledgements and the mail they caused', () =
     const events = await ctx.db('audit_events').where({ event_type: 'recipe.version_acknowledged', actor_user_id: operatorId }).count({ n: '*' }).first();
     expect(Number(events!.n)).to.be.at.least(4);
   });
+
+  it('delivers every kind of mail through SMTP to the catcher, each with both parts and a link that leads somewhere real', async function () {
+    this.timeout(60000);
+    // The kinds the demo history does not cause itself: a review-due round, an invitation, a reset.
+    const admin = DEMO_ACCOUNTS.find((a) => a.roles.includes('admin'))!;
+    const adminRow = (await ctx.db('users').where({ username: admin.username }).first('id', 'display_name')) as { id: number; display_name: string };
+    const actor = { userId: adminRow.id, name: adminRow.display_name, clientAddress: '127.0.0.1' };
+    expect((await sendReviewReminders(ctx.db, new Date(), MAIL)).mails).to.be.greaterThan(0);
+    await inviteUser(ctx.db, actor, MAIL, { username: 'new.starter', displayName: 'Ada Newstart', email: 'ada.newstart@harrowgate.example', roles: ['operator'], machineIds: [] });
+    await requestPasswordReset(ctx.db, actor, MAIL, operator.email);
+
+    const queued = (await ctx.db<MailRow>('mail_outbox').whereNull('sent_at').orderBy('id')) as MailRow[];
+    const kinds = new Set(queued.map((m) => m.kind));
+    for (const kind of [...NOTIFICATION_KINDS, 'invitation', 'password-reset']) expect(kinds, kind).to.include(kind);
+
+    const catcher = await startMailCatcher(0, { dir: null });
+    const transport = createMailTransport(`smtp://127.0.0.1:${catcher.port}`, { ignoreTls: true });
+    try {
+      const result = await deliverDueMails(ctx.db, transport, new Date(Date.now() + 1000));
+      expect(result).to.deep.equal({ sent: queued.length, failed: 0 });
+      const caught = catcher.messages();
+      expect(caught).to.have.length(queued.length);
+      for (const row of queued) {
+        const mail = caught.find((m) => m.subject === row.subject && m.to.includes(row.to_address));
+        expect(mail, `${row.kind} to ${row.to_address}: ${row.subject}`).to.exist;
+        expect(mail!.html, 'HTML part').to.be.a('string').and.not.equal('');
+        // Mails of the demo history link to the default address (seeds run without settings).
+        const link = /https?:\/\/[^/\s]+(\/\S*)/.exec(mail!.text)?.[1];
+        expect(link, `link in ${row.kind}`).to.be.a('string');
+        await expectLinkLeadsSomewhere(link!, row.kind);
+      }
+    } finally {
+      transport.close();
+      await catcher.stop();
+    }
+  });
+
+  /** The app path of a mail's first link names a real recipe and version, or a live single-use link. */
+  async function expectLinkLeadsSomewhere(path: string, kind: string): Promise<void> {
+    const token = /^\/set-password\?token=([A-Za-z0-9_-]{43})$/.exec(path);
+    if (token) {
+      expect(['invitation', 'password-reset']).to.include(kind);
+      expect((await inspectLink(ctx.db, token[1]!)).purpose).to.equal(kind);
+      return;
+    }
+    const recipe = /^\/recipes\/(\d+)(?:\/(review|edit)|\/acknowledge\?v=(\d+)|\?v=(\d+)(?:&tab=cuts)?)$/.exec(path);
+    expect(recipe, `${kind} links to ${path}`).to.not.equal(null);
+    const [, id, screen, ackVersion, viewVersion] = recipe!;
+    const version = ackVersion ?? viewVersion;
+    const row = await ctx.db('recipe_versions').where({ recipe_id: Number(id), ...(version ? { version: Number(version) } : {}) }).first('id', 'status');
+    expect(row, path).to.exist;
+    if (kind === 'version-current') expect(ackVersion, path).to.be.a('string');
+    if (screen === 'review') expect(kind).to.equal('review-requested');
+  }
 });
