@@ -4,6 +4,7 @@
  * change leaves no mail. The worker (mail-worker.ts) sends it later, from any process.
  */
 import type { Knex } from 'knex';
+import type { OutboxEntryDto } from '../../shared/api-types';
 import { insertMail, listMails } from '../data/mail-outbox';
 
 export interface OutgoingMail {
@@ -29,23 +30,8 @@ export async function enqueueMail(trx: Knex.Transaction, mail: OutgoingMail, now
   });
 }
 
-/** One outbox row as the development outbox list shows it. */
-export interface OutboxEntry {
-  id: number;
-  to: string;
-  subject: string;
-  kind: string;
-  created: string;
-  sent: string | null;
-  attempts: number;
-  lastError: string | null;
-  sendAfter: string;
-  /** The plain-text part, for reading the mail and following its links. */
-  text: string;
-}
-
 /** The newest `limit` outbox rows, newest first. */
-export async function listOutbox(db: Knex, limit = 200): Promise<OutboxEntry[]> {
+export async function listOutbox(db: Knex, limit = 200): Promise<OutboxEntryDto[]> {
   return (await listMails(db, limit)).map((r) => ({
     id: r.id,
     to: r.to_address,

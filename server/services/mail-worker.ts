@@ -10,6 +10,7 @@ import { randomBytes } from 'node:crypto';
 import os from 'node:os';
 import type { Knex } from 'knex';
 import nodemailer, { type Transporter } from 'nodemailer';
+import { startRepeatingJob } from './repeating-job';
 import { claimDueMails, markMailFailed, markMailSent, type MailRow } from '../data/mail-outbox';
 
 export const DEFAULT_MAIL_FROM = 'Kerfbook <kerfbook@localhost>';
@@ -117,28 +118,17 @@ export function startMailWorker(
 ): () => void {
   const log = options.log ?? console.error;
   const workerId = newWorkerId();
-  let running = false;
-  let stopped = false;
-  const run = async () => {
-    if (running || stopped) return;
-    running = true;
-    try {
+  const stop = startRepeatingJob(
+    'mail',
+    async () => {
       const result = await deliverDueMails(db, transport, new Date(), { workerId, ...(options.from ? { from: options.from } : {}) });
       if (result.failed > 0) log(`[mail] ${result.failed} mail(s) could not be sent; they stay in the outbox and are retried.`);
-    } catch (err) {
-      log('[mail] run failed:', errorText(err));
-    } finally {
-      running = false;
-    }
-  };
-  const first = setTimeout(() => void run(), 0);
-  const timer = setInterval(() => void run(), intervalMs);
-  first.unref();
-  timer.unref();
+    },
+    intervalMs,
+    log,
+  );
   return () => {
-    stopped = true;
-    clearTimeout(first);
-    clearInterval(timer);
+    stop();
     transport.close();
   };
 }

@@ -6,6 +6,7 @@
  * process running at the same moment, do nothing.
  */
 import type { Knex } from 'knex';
+import { startRepeatingJob } from './repeating-job';
 import { insertReminder, isStillCurrent, reminderCandidates } from '../data/review-reminders';
 import { addDays, dayOf, utcDay } from './calendar-dates';
 import { DEFAULT_MAIL_SETTINGS, type MailSettings } from './mail/mail-settings';
@@ -44,36 +45,12 @@ export async function sendReviewReminders(db: Knex, now: Date = new Date(), mail
   return result;
 }
 
-/**
- * Runs the job now and then every `intervalMs` until stopped; runs never overlap in one
- * process, and a failed run is logged and tried again next time.
- */
+/** Runs the job now and then every `intervalMs` until stopped (see repeating-job.ts). */
 export function startReviewReminderTimer(
   db: Knex,
   intervalMs: number,
   log: (...args: unknown[]) => void = console.error,
   mail: MailSettings = DEFAULT_MAIL_SETTINGS,
 ): () => void {
-  let running = false;
-  let stopped = false;
-  const run = async () => {
-    if (running || stopped) return;
-    running = true;
-    try {
-      await sendReviewReminders(db, new Date(), mail);
-    } catch (err) {
-      log('[review reminders] run failed:', err instanceof Error ? err.message : err);
-    } finally {
-      running = false;
-    }
-  };
-  const first = setTimeout(() => void run(), 0);
-  const timer = setInterval(() => void run(), intervalMs);
-  first.unref();
-  timer.unref();
-  return () => {
-    stopped = true;
-    clearTimeout(first);
-    clearInterval(timer);
-  };
+  return startRepeatingJob('review reminders', () => sendReviewReminders(db, new Date(), mail), intervalMs, log);
 }

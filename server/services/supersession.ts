@@ -11,6 +11,7 @@
  * again under the lock before anything changes.
  */
 import type { Knex } from 'knex';
+import { startRepeatingJob } from './repeating-job';
 import type { VersionRow } from '../data/recipes';
 import {
   listVersionStates,
@@ -138,36 +139,12 @@ export async function applyDueSupersessions(db: Knex, now: Date = new Date(), ma
   return result;
 }
 
-/**
- * Runs the job now and then every `intervalMs` until stopped. A run never overlaps the
- * previous one in the same process; a failed run is logged and the next one tries again.
- */
+/** Runs the job now and then every `intervalMs` until stopped (see repeating-job.ts). */
 export function startSupersessionTimer(
   db: Knex,
   intervalMs: number,
   log: (...args: unknown[]) => void = console.error,
   mail: MailSettings = DEFAULT_MAIL_SETTINGS,
 ): () => void {
-  let running = false;
-  let stopped = false;
-  const run = async () => {
-    if (running || stopped) return;
-    running = true;
-    try {
-      await applyDueSupersessions(db, new Date(), mail);
-    } catch (err) {
-      log('[supersession] run failed:', err instanceof Error ? err.message : err);
-    } finally {
-      running = false;
-    }
-  };
-  const first = setTimeout(() => void run(), 0);
-  const timer = setInterval(() => void run(), intervalMs);
-  first.unref();
-  timer.unref();
-  return () => {
-    stopped = true;
-    clearTimeout(first);
-    clearInterval(timer);
-  };
+  return startRepeatingJob('supersession', () => applyDueSupersessions(db, new Date(), mail), intervalMs, log);
 }

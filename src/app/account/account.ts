@@ -1,11 +1,9 @@
 import { ChangeDetectionStrategy, Component, computed, inject, input, signal, viewChild } from '@angular/core';
 import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
 import {
-  type AbstractControl,
   FormGroupDirective,
   NonNullableFormBuilder,
   ReactiveFormsModule,
-  type ValidationErrors,
   Validators,
 } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
@@ -19,6 +17,7 @@ import { ROLE_INFO } from '../../../shared/roles';
 import { newPassword } from '../../../shared/schemas/fields';
 import { changePasswordBody } from '../../../shared/schemas/session';
 import { controlMessage } from '../core/forms/control-message';
+import { sameAsNewPassword } from '../core/forms/same-as-new-password';
 import { applyServerErrors } from '../core/forms/server-errors';
 import { zodValidator } from '../core/forms/zod-validator';
 import { isApiError } from '../core/http/api-error';
@@ -26,12 +25,6 @@ import { safeReturnUrl } from '../core/session/return-url';
 import { Notifier } from '../core/notifier/notifier';
 import { Session } from '../core/session/session';
 import { NotificationSettings } from './notification-settings';
-
-/** The repeat field must equal the new password typed above it. */
-function sameAsNewPassword(control: AbstractControl): ValidationErrors | null {
-  const typed = control.parent?.get('newPassword')?.value;
-  return control.value && control.value !== typed ? { message: 'The two new passwords are not the same.' } : null;
-}
 
 /** My account: change one's own password (required after an admin set a temporary one), units and mail notifications. */
 @Component({

@@ -30,7 +30,7 @@ import { Session } from '../core/session/session';
     RouterLink,
   ],
   templateUrl: './forgot-password.html',
-  styleUrl: './public-card.scss',
+  styleUrls: ['../ui/public-card.scss', './link-pages.scss'],
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class ForgotPassword {

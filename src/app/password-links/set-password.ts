@@ -2,10 +2,8 @@ import { DatePipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, type OnInit, inject, input, signal } from '@angular/core';
 import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
 import {
-  type AbstractControl,
   NonNullableFormBuilder,
   ReactiveFormsModule,
-  type ValidationErrors,
   Validators,
 } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
@@ -18,17 +16,12 @@ import type { LinkInfoDto, MessageDto } from '../../../shared/api-types';
 import { PASSWORD_MIN, newPassword } from '../../../shared/schemas/fields';
 import { linkToken } from '../../../shared/schemas/mail';
 import { controlMessage } from '../core/forms/control-message';
+import { sameAsNewPassword } from '../core/forms/same-as-new-password';
 import { applyServerErrors } from '../core/forms/server-errors';
 import { zodValidator } from '../core/forms/zod-validator';
 import { type ApiError, isApiError } from '../core/http/api-error';
 import { Session } from '../core/session/session';
 import { type LinkProblem, linkProblem } from './link-problem';
-
-/** The repeat field must equal the password typed above it. */
-function sameAsNewPassword(control: AbstractControl): ValidationErrors | null {
-  const typed = control.parent?.get('newPassword')?.value;
-  return control.value && control.value !== typed ? { message: 'The two passwords are not the same.' } : null;
-}
 
 /**
  * Public: the page an invitation or password-reset mail links to (/set-password?token=…).
@@ -47,7 +40,7 @@ function sameAsNewPassword(control: AbstractControl): ValidationErrors | null {
     RouterLink,
   ],
   templateUrl: './set-password.html',
-  styleUrl: './public-card.scss',
+  styleUrls: ['../ui/public-card.scss', './link-pages.scss'],
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class SetPassword implements OnInit {

@@ -33,7 +33,7 @@ const FALLBACK_MESSAGES: Record<number, string> = {
     RouterLink,
   ],
   templateUrl: './sign-in.html',
-  styleUrl: './sign-in.scss',
+  styleUrl: '../ui/public-card.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class SignIn implements OnInit {
