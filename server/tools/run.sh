@@ -16,7 +16,7 @@ if [ ! -x node_modules/.bin/tsx ] || [ ! -x node_modules/.bin/ng ] || [ package-
   npm ci --no-audit --no-fund
 fi
 
-mode="${1:?usage: run.sh start|test}"
+mode="${1:?usage: run.sh start|test|seed-large|bench|bench-web}"
 shift
 # exec so that Ctrl-C and SIGTERM reach the bootstrap itself (toolchain pitfall 12).
 exec node_modules/.bin/tsx "server/tools/${mode}.ts" "$@"
