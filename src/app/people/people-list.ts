@@ -118,8 +118,9 @@ export class PeopleList {
   );
   private readonly machineNames = computed(() => new Map(this.machines().map((m) => [m.id, m.name])));
   /** "Bench saw B2, Floor saw F1" for an operator's row. */
-  protected readonly machineList = (person: UserDto): string =>
-    person.machineIds.map((id) => this.machineNames().get(id) ?? `Machine ${id}`).join(', ');
+  /** The operator's machines by name, one per line in the table. */
+  protected readonly machineNamesOf = (person: UserDto): string[] =>
+    person.machineIds.map((id) => this.machineNames().get(id) ?? `Machine ${id}`);
 
   constructor() {
     toObservable(computed(() => ({ query: this.query(), reload: this.reloads() })))
