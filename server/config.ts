@@ -24,6 +24,10 @@ export interface Config {
   appBaseUrl?: string;
   /** How often the mail worker looks at the outbox, ms (MAIL_INTERVAL_MS); default 15 s. */
   mailIntervalMs?: number;
+  /** How often due effective dates are applied, ms (SUPERSESSION_INTERVAL_MS); default one minute. */
+  supersessionIntervalMs?: number;
+  /** How often review-due reminders are looked for, ms (REVIEW_REMINDER_INTERVAL_MS); default one hour. */
+  reviewReminderIntervalMs?: number;
 }
 
 export function readConfig(env: NodeJS.ProcessEnv = process.env): Config {
@@ -46,6 +50,10 @@ export function readConfig(env: NodeJS.ProcessEnv = process.env): Config {
     ...(env['MAIL_FROM'] ? { mailFrom: env['MAIL_FROM'] } : {}),
     ...(env['APP_BASE_URL'] ? { appBaseUrl: env['APP_BASE_URL'].replace(/\/+$/, '') } : {}),
     ...(env['MAIL_INTERVAL_MS'] ? { mailIntervalMs: positiveMs(env['MAIL_INTERVAL_MS'], 'MAIL_INTERVAL_MS') } : {}),
+    ...(env['SUPERSESSION_INTERVAL_MS'] ? { supersessionIntervalMs: positiveMs(env['SUPERSESSION_INTERVAL_MS'], 'SUPERSESSION_INTERVAL_MS') } : {}),
+    ...(env['REVIEW_REMINDER_INTERVAL_MS']
+      ? { reviewReminderIntervalMs: positiveMs(env['REVIEW_REMINDER_INTERVAL_MS'], 'REVIEW_REMINDER_INTERVAL_MS') }
+      : {}),
   };
 }
 

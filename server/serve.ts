@@ -13,7 +13,13 @@ export interface RunningServer {
 }
 
 export async function serve(config: Config, db: Knex): Promise<RunningServer> {
-  const { app, ready, close: closeApp } = createApp({ config, db, ...(config.mailIntervalMs ? { mailIntervalMs: config.mailIntervalMs } : {}) });
+  const { app, ready, close: closeApp } = createApp({
+    config,
+    db,
+    ...(config.mailIntervalMs ? { mailIntervalMs: config.mailIntervalMs } : {}),
+    ...(config.supersessionIntervalMs ? { supersessionIntervalMs: config.supersessionIntervalMs } : {}),
+    ...(config.reviewReminderIntervalMs ? { reviewReminderIntervalMs: config.reviewReminderIntervalMs } : {}),
+  });
   await ready;
   const server = http.createServer(app);
   await new Promise<void>((resolve, reject) => {
