@@ -3,7 +3,7 @@
  * that changed, in plain words with units (stock shown by name), and word-level diffs of
  * the text fields. Pure: the caller supplies the names of the referenced stock.
  */
-import { diffWordsWithSpace } from 'diff';
+import { diffLines, diffWordsWithSpace } from 'diff';
 import type { UnitPreference } from './api-types';
 import type { ParameterChange, RecipeComparison, TextChange } from './recipe-types';
 import type { RecipeContent } from './schemas/recipe';
@@ -174,8 +174,7 @@ export function compareVersions(a: ComparedVersion, b: ComparedVersion, names: S
     const before = String((field.path === 'title' ? a.title : at(a.content, field.path)) ?? '');
     const after = String((field.path === 'title' ? b.title : at(b.content, field.path)) ?? '');
     if (before === after) continue;
-    const parts = diffWordsWithSpace(before, after).map((c) => ({ value: c.value, ...(c.added ? { added: true } : {}), ...(c.removed ? { removed: true } : {}) }));
-    texts.push({ path: field.path, label: field.label, parts });
+    texts.push({ path: field.path, label: field.label, parts: wordDiff(before, after) });
   }
 
   return {
@@ -184,4 +183,39 @@ export function compareVersions(a: ComparedVersion, b: ComparedVersion, names: S
     parameters,
     texts,
   };
+}
+
+type TextPart = TextChange['parts'][number];
+
+/**
+ * Word-level differences, narrowed line by line first: a word diff of the whole text is
+ * O(N·D) over words and took ~0.4 s for two 20,000-character instructions (npm run bench);
+ * diffing lines first and words only inside each changed block of lines gives the same kind
+ * of parts (unchanged + removed = before, unchanged + added = after) in a few milliseconds.
+ */
+export function wordDiff(before: string, after: string): TextPart[] {
+  const parts: TextPart[] = [];
+  const push = (value: string, added: boolean, removed: boolean) => {
+    if (!value) return;
+    const last = parts[parts.length - 1];
+    if (last && Boolean(last.added) === added && Boolean(last.removed) === removed) last.value += value;
+    else parts.push({ value, ...(added ? { added: true } : {}), ...(removed ? { removed: true } : {}) });
+  };
+  const lines = diffLines(before, after);
+  for (let i = 0; i < lines.length; i++) {
+    if (!lines[i]!.added && !lines[i]!.removed) {
+      push(lines[i]!.value, false, false);
+      continue;
+    }
+    // A run of removed and added lines is one changed block: its words are diffed together.
+    let removed = '';
+    let added = '';
+    for (; i < lines.length && (lines[i]!.added || lines[i]!.removed); i++) {
+      if (lines[i]!.added) added += lines[i]!.value;
+      else removed += lines[i]!.value;
+    }
+    i--;
+    for (const c of diffWordsWithSpace(removed, added)) push(c.value, Boolean(c.added), Boolean(c.removed));
+  }
+  return parts;
 }
