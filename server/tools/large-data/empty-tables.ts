@@ -1,0 +1,52 @@
+/**
+ * Empties every table the app fills, for `seed:large --replace`. TRUNCATE, not DELETE: the
+ * database refuses deleting submitted versions, signatures and trail rows (triggers), and
+ * TRUNCATE fires none. It needs the foreign key checks off, which is per connection: a
+ * transaction keeps the statements on one (as test/api/support/test-database.ts does).
+ */
+import type { Knex } from 'knex';
+import { DEFAULT_FEED_CEILINGS_MM_S } from '../../../migrations/20261208090200_insert_default_feed_ceilings';
+
+/** Children first. lab_settings keeps its row; the counters go back to their start. */
+const TABLES = [
+  'mail_outbox',
+  'review_reminders',
+  'acknowledgements',
+  'notification_opt_outs',
+  'user_tokens',
+  'user_machines',
+  'sheet_prints',
+  'cut_records',
+  'signatures',
+  'review_comments',
+  'recipe_version_editors',
+  'attachments',
+  'recipe_versions',
+  'recipes',
+  'selection_rows',
+  'materials',
+  'wheels',
+  'machines',
+  'audit_events',
+  'sign_in_failures',
+  'sessions',
+  'user_roles',
+  'users',
+];
+
+export async function emptyTables(db: Knex): Promise<void> {
+  await db.transaction(async (trx) => {
+    await trx.raw('SET FOREIGN_KEY_CHECKS = 0');
+    try {
+      for (const table of TABLES) await trx.raw('TRUNCATE TABLE ??', [table]);
+    } finally {
+      await trx.raw('SET FOREIGN_KEY_CHECKS = 1');
+    }
+  });
+  await db('recipe_number_counter').update({ last_number: 0 });
+  await db('audit_chain_head').update({ last_event_id: 0, last_hash: '0'.repeat(64) });
+  // The settings row as the migrations leave it.
+  await db('lab_settings')
+    .where({ id: 1 })
+    .update({ lab_name: 'Our lab', review_interval_months: 24, sheet_paper: 'A4', default_units: 'metric', feed_ceilings_json: JSON.stringify(DEFAULT_FEED_CEILINGS_MM_S), updated_at: new Date() });
+}
