@@ -165,7 +165,11 @@ function planRecipe(serial: number, createdAt: number, input: HistoryInput, hist
   const recipe: PlannedRecipe = { id: 0, number: '', title: '', createdBy: owner, createdAt, updatedAt: createdAt, versions: [], current: null };
   const count = random.int(3, 5);
   const outcome = outcomeOf(random);
-  const segment = (input.end - HOUR_MS - createdAt) / count;
+  // Settled recipes stopped changing a while ago (some now due for their periodic review);
+  // open or withdrawn ones moved recently.
+  const lifeEnd = input.end - HOUR_MS;
+  const settledAt = outcome === 'approved' ? createdAt + (lifeEnd - createdAt) * random.between(0.2, 1) : lifeEnd;
+  const segment = (Math.min(lifeEnd, Math.max(settledAt, createdAt + count * 8 * DAY_MS)) - createdAt) / count;
   let planned = firstContent(serial, stock, random);
   recipe.title = planned.title;
 
