@@ -6,5 +6,16 @@ import QRCode from 'qrcode';
  * phone cameras need. 8 px per module keeps it crisp when the PDF is printed at 300 dpi.
  */
 export function qrPng(text: string): Promise<Buffer> {
-  return QRCode.toBuffer(text, { type: 'png', errorCorrectionLevel: 'M', margin: 4, scale: 8, color: { dark: '#000000', light: '#ffffff' } });
+  const known = recent.get(text);
+  if (known) return known;
+  const made = QRCode.toBuffer(text, { type: 'png', errorCorrectionLevel: 'M', margin: 4, scale: 8, color: { dark: '#000000', light: '#ffffff' } });
+  // Each version prints the same check link every time: keep the last few hundred PNGs
+  // (~3 kB each) instead of encoding again (~15 ms of each sheet, npm run bench).
+  if (recent.size >= RECENT_MAX) recent.delete(recent.keys().next().value!);
+  recent.set(text, made);
+  made.catch(() => recent.delete(text));
+  return made;
 }
+
+const RECENT_MAX = 500;
+const recent = new Map<string, Promise<Buffer>>();
