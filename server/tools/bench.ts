@@ -8,9 +8,10 @@
  * Exit 0 when the run completed (figures that miss are reported as MISS), 1 when EXPLAIN
  * finds a full scan of a large table, 2 when the run itself failed.
  *
- *   npm run bench -- [--scale <fraction>] [--duration <seconds>]
+ *   npm run bench -- [--scale <fraction>] [--duration <seconds>] [--explain-only]
  *   --scale     size of the large data set when it has to be made (default 1)
  *   --duration  seconds of each measured load run (default 10; a 2 s warm-up comes first)
+ *   --explain-only  only the EXPLAIN check (no load, no results file)
  */
 import path from 'node:path';
 import type { Knex } from 'knex';
@@ -127,6 +128,11 @@ async function main(): Promise<number> {
   log('[bench] EXPLAIN of every list query…');
   const explained = await runExplainCheck(db, sessions, samples, big);
 
+  if (process.argv.includes('--explain-only')) {
+    printExplain(explained);
+    return explained.some((e) => e.fullScans.length > 0) ? 1 : 0;
+  }
+
   log('[bench] load figures…');
   const figures: Figure[] = await loadFigures({ baseUrl: server.url, sessions: { author: sessions.author, auditor: sessions.auditor }, samples, bigRecipeId: big.recipeId, durationS, log });
   await server.stop();
@@ -144,7 +150,7 @@ async function main(): Promise<number> {
     machine: machineInfo(),
     run: { scale, durationS, seeded, dataset, bigRecipe: { recipeId: big.recipeId, textBytes: big.textBytes } },
     figures: figures.map(({ name, absolute, ratio, target, pass, values }) => ({ name, absolute, ratio, target, result: pass === null ? 'baseline' : pass ? 'PASS' : 'MISS', ...values })),
-    explain: explained.map((e) => ({ route: e.route, sql: e.sql, plan: e.plan, fullScans: e.fullScans })),
+    explain: explained.map((e) => ({ route: e.route, sql: e.sql, plan: e.plan, fullScans: e.fullScans, smallScans: e.smallScans })),
     summary: { misses: misses.map((f) => f.name), fullScans: scans.map((e) => `${e.route}: ${e.fullScans.join(', ')}`) },
   });
   log(`\n[bench] results written to ${path.relative(ROOT, RESULTS_FILE)}`);

@@ -5,7 +5,7 @@
 import type { Knex } from 'knex';
 import type { CapturedQuery } from './bench-routes';
 import type { BenchRole } from './bench-users';
-import { explainQuery, selectsOf, type ExplainedQuery } from './explain';
+import { explainQuery, largeTableSizes, selectsOf, type ExplainedQuery } from './explain';
 import type { HttpSession } from './http-session';
 import { listRouteCalls } from './list-routes';
 import type { Samples } from './samples';
@@ -13,6 +13,7 @@ import type { Samples } from './samples';
 export async function runExplainCheck(db: Knex, sessions: Record<BenchRole, HttpSession>, samples: Samples, big: { recipeId: number }): Promise<ExplainedQuery[]> {
   const out: ExplainedQuery[] = [];
   const seen = new Set<string>();
+  const sizes = await largeTableSizes(db);
   for (const call of listRouteCalls(samples, big)) {
     await sessions.admin.post('/api/bench/capture');
     const res = await sessions[call.role].fetchRaw(call.path);
@@ -21,7 +22,7 @@ export async function runExplainCheck(db: Knex, sessions: Record<BenchRole, Http
     for (const q of selectsOf(captured)) {
       if (seen.has(q.sql)) continue;
       seen.add(q.sql);
-      out.push(await explainQuery(db, `GET ${call.path} (${call.role})`, q));
+      out.push(await explainQuery(db, `GET ${call.path} (${call.role})`, q, sizes));
     }
   }
   return out;

@@ -2,7 +2,7 @@
 import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
-import type { ExplainedQuery } from './explain';
+import { SCAN_NOTE_BELOW_ROWS, type ExplainedQuery } from './explain';
 
 export interface Figure {
   name: string;
@@ -43,7 +43,11 @@ export function printTable(figures: readonly Figure[]): void {
 
 export function printExplain(explained: readonly ExplainedQuery[]): void {
   const scans = explained.filter((e) => e.fullScans.length > 0);
+  const notes = explained.filter((e) => e.smallScans.length > 0);
   console.log(`\nEXPLAIN: ${explained.length} distinct SELECTs of the list routes checked; ${scans.length} with a full scan of a large table.`);
+  for (const e of notes) {
+    console.log(`  note: scan of ${e.smallScans.join(', ')} (below ${SCAN_NOTE_BELOW_ROWS.toLocaleString('en')} rows, not a failure) — route ${e.route}`);
+  }
   for (const e of scans) {
     console.error(`\n  FULL SCAN of ${e.fullScans.join(', ')} — route ${e.route}\n  SQL: ${e.sql}\n  plan: ${e.plan.join('; ')}`);
   }
