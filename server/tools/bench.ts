@@ -17,7 +17,8 @@ import path from 'node:path';
 import type { Knex } from 'knex';
 import { createDb } from '../data/db';
 import { benchDatabase, type BenchDatabase } from './bench-database';
-import { migrate, seedDemoIfEmpty } from './db-setup';
+import { migrate } from './db-setup';
+import { seedLarge, type LargeDataSummary } from './large-data/seed-large';
 import { ROOT } from './project-files';
 import { ensureBenchUsers, BENCH_ROLES, type BenchRole } from './bench/bench-users';
 import { ensureBigRecipe } from './bench/big-recipe';
@@ -64,31 +65,14 @@ for (const signal of ['SIGINT', 'SIGTERM'] as const) {
   });
 }
 
-/** Fills an empty database with the large data set (or, until that exists, the demo). */
-async function fillIfEmpty(conn: Knex, scale: number): Promise<Record<string, unknown> | null> {
+/** Fills an empty database with the large data set (server/tools/large-data). */
+async function fillIfEmpty(conn: Knex, scale: number): Promise<Omit<LargeDataSummary, 'password'> | null> {
   const row = (await conn('users').count<{ n: number }[]>({ n: '*' }).first()) as { n: number } | undefined;
   if (Number(row?.n ?? 0) > 0) return null;
-  log(`[bench] the database is empty: making the large data set (scale ${scale}); this takes a few minutes at scale 1…`);
-  const t = performance.now();
-  const summary = await seedLarge(conn, scale);
-  log(`[bench] large data set made in ${((performance.now() - t) / 1000).toFixed(0)} s.`);
+  log(`[bench] the database is empty: making the large data set (scale ${scale}); a few minutes at scale 1…`);
+  const { password: _password, ...summary } = await seedLarge(conn, { scale, log });
+  log(`[bench] large data set made in ${summary.seconds.toFixed(0)} s.`);
   return summary;
-}
-
-async function seedLarge(conn: Knex, scale: number): Promise<Record<string, unknown>> {
-  // The large data set's generator (server/tools/large-data/seed-large.ts).
-  const modulePath = './large-data/seed-large.ts';
-  try {
-    const mod = (await import(modulePath)) as { seedLarge: (db: Knex, o: { scale: number; log: (s: string) => void }) => Promise<Record<string, unknown>> };
-    const summary = await mod.seedLarge(conn, { scale, log });
-    const { password: _password, ...rest } = summary;
-    return rest;
-  } catch (err) {
-    if ((err as { code?: string }).code !== 'ERR_MODULE_NOT_FOUND') throw err;
-    log('[bench] the large data set generator is not there yet: using the demo data.');
-    await seedDemoIfEmpty(conn);
-    return { demo: true };
-  }
 }
 
 async function datasetCounts(conn: Knex): Promise<Record<string, number>> {
