@@ -22,6 +22,7 @@ if (!databaseUrl) {
 const config = readConfig({ DATABASE_URL: databaseUrl, SESSION_SECRET: randomBytes(32).toString('base64url'), NODE_ENV: 'production', HOST: '127.0.0.1', PORT: '0' });
 const db = createDb(config.databaseUrl);
 const recorder = queryRecorder(db);
+let stopping = false;
 const { app, ready, close } = createApp({
   config,
   db,
@@ -31,6 +32,10 @@ const { app, ready, close } = createApp({
   supersessionIntervalMs: 0,
   mailIntervalMs: 0,
   reviewReminderIntervalMs: 0,
+  // Requests cut off by the stop itself are not faults worth a stack trace.
+  log: (...args: unknown[]) => {
+    if (!stopping) console.error(...args);
+  },
 });
 await ready;
 
@@ -42,7 +47,6 @@ server.listen(0, '127.0.0.1', () => {
   console.log(`READY http://127.0.0.1:${port}`);
 });
 
-let stopping = false;
 async function stop(): Promise<void> {
   if (stopping) return;
   stopping = true;

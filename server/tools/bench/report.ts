@@ -26,6 +26,8 @@ export function machineInfo() {
     node: process.version,
     platform: `${os.type()} ${os.release()} ${os.arch()}`,
     date: new Date().toISOString(),
+    /** 1, 5 and 15 minute load averages as the run ends: other work on the machine shows in every absolute figure. */
+    loadAverage: os.loadavg().map((n) => Math.round(n * 100) / 100),
   };
 }
 
