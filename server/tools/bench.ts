@@ -68,7 +68,10 @@ for (const signal of ['SIGINT', 'SIGTERM'] as const) {
 /** Fills an empty database with the large data set (server/tools/large-data). */
 async function fillIfEmpty(conn: Knex, scale: number): Promise<Omit<LargeDataSummary, 'password'> | null> {
   const row = (await conn('users').count<{ n: number }[]>({ n: '*' }).first()) as { n: number } | undefined;
-  if (Number(row?.n ?? 0) > 0) return null;
+  if (Number(row?.n ?? 0) > 0) {
+    if (process.argv.includes('--scale')) log('[bench] the database already holds data: --scale applies only when the run has to fill it.');
+    return null;
+  }
   log(`[bench] the database is empty: making the large data set (scale ${scale}); a few minutes at scale 1…`);
   const { password: _password, ...summary } = await seedLarge(conn, { scale, log });
   log(`[bench] large data set made in ${summary.seconds.toFixed(0)} s.`);
