@@ -183,30 +183,69 @@ export const SUMMARY_COLUMNS = [
   'v.updated_at',
 ] as const;
 
+/**
+ * The same row from the library columns kept on `recipes` (migration 20270113090000): the
+ * latest version's fields without reading the wide version row.
+ */
+const LIBRARY_COLUMNS = [
+  'r.id',
+  'r.number',
+  'r.lib_title as title',
+  'r.lib_version as version',
+  'r.lib_status as status',
+  'r.lib_material_group as material_group',
+  'm.name as material_name',
+  'r.lib_shape as shape',
+  'r.lib_size_min_mm as size_min_mm',
+  'r.lib_size_max_mm as size_max_mm',
+  'mc.name as machine_name',
+  'w.name as wheel_name',
+  'r.lib_worst_check as worst_check',
+  'r.lib_updated_at as updated_at',
+] as const;
+
+/** `v.title` → `r.lib_title`: a version column as the library keeps it on the recipe. */
+const onRecipe = (column: string) => (column.startsWith('v.') ? `r.lib_${column.slice(2)}` : column);
+
 export async function listRecipeSummaryRows(db: Knex, filter: RecipeListFilter): Promise<{ rows: RecipeSummaryRow[]; total: number }> {
-  const base = db('recipes as r')
-    .join('recipe_versions as v', 'v.id', filter.currentOnly ? 'r.current_version_id' : 'r.latest_version_id')
-    .leftJoin('materials as m', 'm.id', 'v.material_id')
-    .join('machines as mc', 'mc.id', 'v.machine_id')
-    .join('wheels as w', 'w.id', 'v.wheel_id');
-  if (filter.currentOnly) base.where('v.status', 'approved');
-  if (filter.q) {
-    const pattern = containsPattern(filter.q);
-    base.where((w) =>
-      w.where('r.number', 'like', pattern).orWhere('v.title', 'like', pattern).orWhere('m.name', 'like', pattern).orWhere('m.designation', 'like', pattern),
-    );
-  }
-  if (filter.group) base.where('v.material_group', filter.group);
-  if (filter.shape) base.where('v.shape', filter.shape);
-  if (filter.machineId) base.where('v.machine_id', filter.machineId);
-  if (filter.status) base.where('v.status', filter.status);
-  if (filter.size !== undefined) base.where('v.size_min_mm', '<=', filter.size).andWhere('v.size_max_mm', '>=', filter.size);
-  if (filter.hardnessHv !== undefined) base.where('v.hardness_min_hv', '<=', filter.hardnessHv).andWhere('v.hardness_max_hv', '>=', filter.hardnessHv);
-  const [{ total }] = (await base.clone().count<{ total: number }[]>({ total: '*' })) as [{ total: number }];
-  const rows = (await base
-    .clone()
-    .select(...SUMMARY_COLUMNS)
-    .orderBy(filter.sortColumn, filter.dir)
+  // Operators list current versions (joined); everyone else the latest, from the recipe row.
+  const col = filter.currentOnly ? (c: string) => c : onRecipe;
+  const filtered = (query: Knex.QueryBuilder) => {
+    if (filter.q) {
+      const pattern = containsPattern(filter.q);
+      query.where((w) =>
+        w.where('r.number', 'like', pattern).orWhere(col('v.title'), 'like', pattern).orWhere('m.name', 'like', pattern).orWhere('m.designation', 'like', pattern),
+      );
+    }
+    if (filter.group) query.where(col('v.material_group'), filter.group);
+    if (filter.shape) query.where(col('v.shape'), filter.shape);
+    if (filter.machineId) query.where(col('v.machine_id'), filter.machineId);
+    if (filter.status) query.where(col('v.status'), filter.status);
+    if (filter.size !== undefined) query.where(col('v.size_min_mm'), '<=', filter.size).andWhere(col('v.size_max_mm'), '>=', filter.size);
+    if (filter.hardnessHv !== undefined) query.where(col('v.hardness_min_hv'), '<=', filter.hardnessHv).andWhere(col('v.hardness_max_hv'), '>=', filter.hardnessHv);
+    return query;
+  };
+  const joined = filter.currentOnly
+    ? db('recipes as r')
+        .join('recipe_versions as v', 'v.id', 'r.current_version_id')
+        .leftJoin('materials as m', 'm.id', 'v.material_id')
+        .join('machines as mc', 'mc.id', 'v.machine_id')
+        .join('wheels as w', 'w.id', 'v.wheel_id')
+        .where('v.status', 'approved')
+    : // Left joins (machine and wheel are never null): MariaDB then reads recipes first, by the
+      // filter's index, instead of starting from the three machines and scanning recipes.
+      // No "has a latest version" condition: every recipe has one outside its creating
+      // transaction, and the condition would keep MariaDB off the narrow indexes.
+      db('recipes as r')
+        .leftJoin('materials as m', 'm.id', 'r.lib_material_id')
+        .leftJoin('machines as mc', 'mc.id', 'r.lib_machine_id')
+        .leftJoin('wheels as w', 'w.id', 'r.lib_wheel_id');
+  // The count reads only what the filters need, so it can be answered from an index.
+  const counted = filter.currentOnly ? joined.clone() : filter.q ? db('recipes as r').leftJoin('materials as m', 'm.id', 'r.lib_material_id') : db('recipes as r');
+  const [{ total }] = (await filtered(counted).count<{ total: number }[]>({ total: '*' })) as [{ total: number }];
+  const rows = (await filtered(joined)
+    .select(...(filter.currentOnly ? SUMMARY_COLUMNS : LIBRARY_COLUMNS))
+    .orderBy(col(filter.sortColumn), filter.dir)
     .orderBy('r.id', filter.dir)
     .limit(filter.pageSize)
     .offset(filter.page * filter.pageSize)) as RecipeSummaryRow[];

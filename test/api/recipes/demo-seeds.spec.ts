@@ -13,6 +13,7 @@ import { DEMO_RECIPES } from '../../../seeds/data/demo-recipes';
 import { DEMO_EXTRA_VERSIONS } from '../../../seeds/data/demo-workflow';
 import { DEMO_WHEELS } from '../../../seeds/data/demo-stock';
 import { apiTestContext } from '../support/hooks';
+import { recipesWithStaleLibraryColumns } from '../support/library-columns';
 import { countRows } from '../support/test-database';
 
 describe('Demo seeds', () => {
@@ -34,6 +35,12 @@ describe('Demo seeds', () => {
     // Every selection row points at a wheel in use.
     const orphans = await ctx.db('selection_rows as s').join('wheels as w', 'w.id', 's.wheel_id').where('w.archived', true).count({ n: '*' }).first();
     expect(Number(orphans!.n)).to.equal(0);
+  });
+
+  it('keeps the library columns of every recipe equal to its latest version after the whole demo history (drafts, returns, approvals, new versions)', async () => {
+    expect(await recipesWithStaleLibraryColumns(ctx.db)).to.deep.equal([]);
+    const filled = await ctx.db('recipes').whereNotNull('lib_title').count({ n: '*' }).first();
+    expect(Number(filled!.n)).to.equal(await countRows(ctx.db, 'recipes'));
   });
 
   it('has no blocker in any demo recipe, stored or re-checked', async () => {
