@@ -9,21 +9,12 @@ import os from 'node:os';
 import path from 'node:path';
 import { chromium, type BrowserContext } from 'playwright-core';
 import type { DemoAccount } from '../../../seeds/data/demo-accounts';
+import { CHROMIUM_FLAGS } from '../chromium-flags';
 import { freePort } from './free-port';
 
 export const CHROMIUM = process.env['CHROME_PATH'] ?? '/usr/bin/chromium';
 
-// toolchain.md pitfall 18: without the networking flags chromium floods the closed network.
-const FLAGS = [
-  '--headless',
-  '--no-sandbox',
-  '--disable-gpu',
-  '--disable-dev-shm-usage',
-  '--disable-background-networking',
-  '--disable-component-update',
-  '--disable-sync',
-  '--no-first-run',
-];
+
 
 export interface BenchBrowser {
   /** The remote debugging port Lighthouse connects to. */
@@ -51,7 +42,7 @@ export async function launchBrowser(): Promise<BenchBrowser> {
     headless: true,
     // No viewport of Playwright's own: Lighthouse sets the screen it measures.
     viewport: null,
-    args: [...FLAGS, `--remote-debugging-port=${port}`],
+    args: [...CHROMIUM_FLAGS, `--remote-debugging-port=${port}`],
   });
 
   return {

@@ -18,7 +18,7 @@ import { migrate } from '../db-setup';
 import { planCuts, planDailyWork, planPeopleEvents, versionsInUse } from './activity';
 import { insertBatches, type Row } from './batch-insert';
 import { scaledCounts } from './counts';
-import { emptyTables } from './empty-tables';
+import { emptyTables, restoreLabSettings } from '../../data/empty-tables';
 import { firstWithRole, LARGE_DATA_PASSWORD, planPeople, withRole, type Person } from './people';
 import { DAY_MS, Random } from './random';
 import { planRecipeHistories, type PlannedVersion } from './recipe-history';
@@ -87,6 +87,7 @@ export async function seedLarge(db: Knex, options: SeedLargeOptions): Promise<La
   if (await hasData(db)) {
     if (!options.replace) throw new DatabaseNotEmptyError('The database already holds data. Use --replace to empty it and make the large data set.');
     await emptyTables(db);
+    await restoreLabSettings(db);
     step('emptied the tables');
   }
 

@@ -6,6 +6,7 @@
 import fs from 'node:fs';
 import path from 'node:path';
 import { type Browser, type Page, chromium } from 'playwright-core';
+import { CHROMIUM_FLAGS } from '../../../server/tools/chromium-flags';
 
 export const BASE_URL = process.env['BASE_URL'] ?? 'http://127.0.0.1:4300';
 export const SHOTS_DIR = path.resolve(import.meta.dirname, '../../../.data/screenshots');
@@ -13,16 +14,7 @@ export const SHOTS_DIR = path.resolve(import.meta.dirname, '../../../.data/scree
 export function launch(): Promise<Browser> {
   return chromium.launch({
     executablePath: process.env['CHROMIUM_PATH'] ?? '/usr/bin/chromium',
-    args: [
-      '--headless',
-      '--no-sandbox',
-      '--disable-gpu',
-      '--disable-dev-shm-usage',
-      '--disable-background-networking',
-      '--disable-component-update',
-      '--disable-sync',
-      '--no-first-run',
-    ],
+    args: CHROMIUM_FLAGS,
   });
 }
 

@@ -1,11 +1,11 @@
 /**
- * Empties every table the app fills, for `seed:large --replace`. TRUNCATE, not DELETE: the
- * database refuses deleting submitted versions, signatures and trail rows (triggers), and
- * TRUNCATE fires none. It needs the foreign key checks off, which is per connection: a
- * transaction keeps the statements on one (as test/api/support/test-database.ts does).
+ * Empties every table the app fills — `seed:large --replace` and the API tests' per-file
+ * reset. TRUNCATE, not DELETE: the database refuses deleting submitted versions, signatures
+ * and trail rows (triggers), and TRUNCATE fires none. It needs the foreign key checks off,
+ * which is per connection: a transaction keeps the statements on one.
  */
 import type { Knex } from 'knex';
-import { DEFAULT_FEED_CEILINGS_MM_S } from '../../../migrations/20261208090200_insert_default_feed_ceilings';
+import { DEFAULT_FEED_CEILINGS_MM_S } from '../../migrations/20261208090200_insert_default_feed_ceilings';
 
 /** Children first. lab_settings keeps its row; the counters go back to their start. */
 const TABLES = [
@@ -44,8 +44,13 @@ export async function emptyTables(db: Knex): Promise<void> {
     }
   });
   await db('recipe_number_counter').update({ last_number: 0 });
+  // The trail starts again from nothing: its chain head too, or the first new event would
+  // link to a row that no longer exists (and the verification would rightly say so).
   await db('audit_chain_head').update({ last_event_id: 0, last_hash: '0'.repeat(64) });
-  // The settings row as the migrations leave it.
+}
+
+/** The settings row as the migrations leave it. */
+export async function restoreLabSettings(db: Knex): Promise<void> {
   await db('lab_settings')
     .where({ id: 1 })
     .update({ lab_name: 'Our lab', review_interval_months: 24, sheet_paper: 'A4', default_units: 'metric', feed_ceilings_json: JSON.stringify(DEFAULT_FEED_CEILINGS_MM_S), updated_at: new Date() });
