@@ -22,4 +22,7 @@ export const NOTIFICATION_INFO: readonly NotificationKindInfo[] = [
   { kind: 'version-current', label: 'A new version is in use on my machine (acknowledge it)', audience: 'operators', optional: false },
 ];
 
-export const OPTIONAL_NOTIFICATION_KINDS = NOTIFICATION_INFO.filter((k) => k.optional).map((k) => k.kind);
+/** Whether a person may turn this kind of mail off. */
+export function isOptional(kind: NotificationKind): boolean {
+  return NOTIFICATION_INFO.find((k) => k.kind === kind)?.optional ?? true;
+}

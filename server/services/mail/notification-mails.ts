@@ -3,12 +3,12 @@
  * HTML from composeMail, a subject naming the recipe number, version and title, one link
  * into the app, and — for the kinds a person may turn off — how to turn them off.
  */
-import type { NotificationKind } from '../../../shared/notification-kinds';
+import { isOptional, type NotificationKind } from '../../../shared/notification-kinds';
 import { CUT_OUTCOME_LABELS, type CutOutcome } from '../../../shared/schemas/operator';
 import type { OutgoingMail } from '../mail-outbox';
 import { absoluteLink, composeMail, type MailLink } from './mail-layout';
 import type { MailSettings } from './mail-settings';
-import { isOptional, type Recipient } from './recipients';
+import type { Recipient } from './recipients';
 
 /** The version a mail is about. */
 export interface VersionRef {

@@ -4,17 +4,13 @@
  * Called inside the transaction of the event, so the list matches what committed.
  */
 import type { Knex } from 'knex';
-import { NOTIFICATION_INFO, type NotificationKind } from '../../../shared/notification-kinds';
+import { isOptional, type NotificationKind } from '../../../shared/notification-kinds';
 import { findRecipientRows, type RecipientFilter } from '../../data/recipients';
 
 export interface Recipient {
   id: number;
   name: string;
   email: string;
-}
-
-export function isOptional(kind: NotificationKind): boolean {
-  return NOTIFICATION_INFO.find((k) => k.kind === kind)?.optional ?? true;
 }
 
 async function recipients(db: Knex, kind: NotificationKind, filter: Omit<RecipientFilter, 'optOutKind'>): Promise<Recipient[]> {
