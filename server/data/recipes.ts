@@ -1,7 +1,7 @@
 /** Queries on recipes, recipe_versions and the recipe number counter. */
 import type { Knex } from 'knex';
 import type { RecipeStatus } from '../../shared/vocabulary';
-import { containsPattern } from './users';
+import { wordsMatch } from './search-words';
 
 export interface RecipeRow {
   id: number;
@@ -210,13 +210,9 @@ const onRecipe = (column: string) => (column.startsWith('v.') ? `r.lib_${column.
 export async function listRecipeSummaryRows(db: Knex, filter: RecipeListFilter): Promise<{ rows: RecipeSummaryRow[]; total: number }> {
   // Operators list current versions (joined); everyone else the latest, from the recipe row.
   const col = filter.currentOnly ? (c: string) => c : onRecipe;
+  const matchesWords = await wordsMatch(db, filter.currentOnly ? 'r.current_search' : 'r.lib_search', filter.q ?? '');
   const filtered = (query: Knex.QueryBuilder) => {
-    if (filter.q) {
-      const pattern = containsPattern(filter.q);
-      query.where((w) =>
-        w.where('r.number', 'like', pattern).orWhere(col('v.title'), 'like', pattern).orWhere('m.name', 'like', pattern).orWhere('m.designation', 'like', pattern),
-      );
-    }
+    matchesWords(query);
     if (filter.group) query.where(col('v.material_group'), filter.group);
     if (filter.shape) query.where(col('v.shape'), filter.shape);
     if (filter.machineId) query.where(col('v.machine_id'), filter.machineId);
@@ -241,7 +237,7 @@ export async function listRecipeSummaryRows(db: Knex, filter: RecipeListFilter):
         .leftJoin('machines as mc', 'mc.id', 'r.lib_machine_id')
         .leftJoin('wheels as w', 'w.id', 'r.lib_wheel_id');
   // The count reads only what the filters need, so it can be answered from an index.
-  const counted = filter.currentOnly ? joined.clone() : filter.q ? db('recipes as r').leftJoin('materials as m', 'm.id', 'r.lib_material_id') : db('recipes as r');
+  const counted = filter.currentOnly ? joined.clone() : db('recipes as r');
   const [{ total }] = (await filtered(counted).count<{ total: number }[]>({ total: '*' })) as [{ total: number }];
   const rows = (await filtered(joined)
     .select(...(filter.currentOnly ? SUMMARY_COLUMNS : LIBRARY_COLUMNS))

@@ -90,6 +90,8 @@ export async function start(db: LocalMariadb): Promise<void> {
     '--character-set-server=utf8mb4',
     '--collation-server=utf8mb4_unicode_ci',
     '--innodb-log-file-size=16M',
+    // Index every word of the library's search text, even "KB" of "KB-0012" (default 3).
+    '--innodb-ft-min-token-size=1',
   ];
   const child = spawn(bin('mariadbd'), args, { detached: true, stdio: 'ignore' });
   child.unref();

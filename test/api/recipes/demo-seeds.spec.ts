@@ -13,7 +13,7 @@ import { DEMO_RECIPES } from '../../../seeds/data/demo-recipes';
 import { DEMO_EXTRA_VERSIONS } from '../../../seeds/data/demo-workflow';
 import { DEMO_WHEELS } from '../../../seeds/data/demo-stock';
 import { apiTestContext } from '../support/hooks';
-import { recipesWithStaleLibraryColumns } from '../support/library-columns';
+import { recipesWithStaleLibraryColumns, recipesWithStaleSearchWords } from '../support/library-columns';
 import { countRows } from '../support/test-database';
 
 describe('Demo seeds', () => {
@@ -39,6 +39,7 @@ describe('Demo seeds', () => {
 
   it('keeps the library columns of every recipe equal to its latest version after the whole demo history (drafts, returns, approvals, new versions)', async () => {
     expect(await recipesWithStaleLibraryColumns(ctx.db)).to.deep.equal([]);
+    expect(await recipesWithStaleSearchWords(ctx.db)).to.deep.equal([]);
     const filled = await ctx.db('recipes').whereNotNull('lib_title').count({ n: '*' }).first();
     expect(Number(filled!.n)).to.equal(await countRows(ctx.db, 'recipes'));
   });

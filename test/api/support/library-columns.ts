@@ -11,3 +11,20 @@ export async function recipesWithStaleLibraryColumns(db: Knex): Promise<string[]
   const rows = (await db.raw(`SELECT r.number FROM recipes r JOIN recipe_versions v ON v.id = r.latest_version_id WHERE ${differs} ORDER BY r.id`)) as [{ number: string }[]];
   return rows[0].map((r) => r.number);
 }
+
+/**
+ * Numbers of the recipes whose search words (`lib_search`, `current_search`, kept by
+ * triggers) differ from what their latest and current versions say.
+ */
+export async function recipesWithStaleSearchWords(db: Knex): Promise<string[]> {
+  const rows = (await db.raw(`
+    SELECT r.number FROM recipes r
+      JOIN recipe_versions lv ON lv.id = r.latest_version_id
+      LEFT JOIN materials lm ON lm.id = lv.material_id
+      LEFT JOIN recipe_versions cv ON cv.id = r.current_version_id
+      LEFT JOIN materials cm ON cm.id = cv.material_id
+    WHERE NOT (r.lib_search <=> CONCAT_WS(' ', r.number, lv.title, lm.name, lm.designation))
+       OR NOT (r.current_search <=> IF(cv.id IS NULL, NULL, CONCAT_WS(' ', r.number, cv.title, cm.name, cm.designation)))
+    ORDER BY r.id`)) as [{ number: string }[]];
+  return rows[0].map((r) => r.number);
+}

@@ -13,7 +13,7 @@ import { contentSha256 } from '../../../server/services/workflow';
 import { DatabaseNotEmptyError, seedLarge, type LargeDataSummary } from '../../../server/tools/large-data/seed-large';
 import { apiTestContext } from '../support/hooks';
 import { signedInAgent } from '../support/test-app';
-import { recipesWithStaleLibraryColumns } from '../support/library-columns';
+import { recipesWithStaleLibraryColumns, recipesWithStaleSearchWords } from '../support/library-columns';
 import { countRows } from '../support/test-database';
 
 interface VersionRow {
@@ -41,6 +41,7 @@ describe('Large data set (seed:large)', function () {
 
   it('gives every recipe library columns equal to its latest version (the triggers see batch inserts too)', async () => {
     expect(await recipesWithStaleLibraryColumns(ctx.db)).to.deep.equal([]);
+    expect(await recipesWithStaleSearchWords(ctx.db)).to.deep.equal([]);
     const empty = await ctx.db('recipes').whereNull('lib_title').count({ n: '*' }).first();
     expect(Number(empty!.n)).to.equal(0);
   });
