@@ -146,7 +146,10 @@ export function contentLeafPaths(content: unknown, prefix = ''): string[] {
 
 const KNOWN_PATHS = new Set([...PARAMETER_FIELDS.map((f) => f.path), ...TEXT_FIELDS.map((f) => f.path)]);
 
-export function compareVersions(a: ComparedVersion, b: ComparedVersion, names: StockNames, pref: UnitPreference): VersionComparison {
+/** How two texts are diffed: wordDiff, or a caller's memo of it (the server keeps recent ones). */
+export type TextDiff = (before: string, after: string) => TextChange['parts'];
+
+export function compareVersions(a: ComparedVersion, b: ComparedVersion, names: StockNames, pref: UnitPreference, diffText: TextDiff = wordDiff): VersionComparison {
   const parameters: ParameterChange[] = [];
   for (const field of PARAMETER_FIELDS) {
     const before = at(a.content, field.path);
@@ -174,7 +177,7 @@ export function compareVersions(a: ComparedVersion, b: ComparedVersion, names: S
     const before = String((field.path === 'title' ? a.title : at(a.content, field.path)) ?? '');
     const after = String((field.path === 'title' ? b.title : at(b.content, field.path)) ?? '');
     if (before === after) continue;
-    texts.push({ path: field.path, label: field.label, parts: wordDiff(before, after) });
+    texts.push({ path: field.path, label: field.label, parts: diffText(before, after) });
   }
 
   return {

@@ -12,6 +12,7 @@ import { findRecipeRow, findVersion, type VersionWithNames } from '../data/recip
 import { findStockRows, type StockRowBase, type StockTable } from '../data/stock';
 import { fromJsonColumn } from '../data/json-column';
 import { visibleVersion, type VersionScope } from './operator-visibility';
+import { keptWordDiff } from './text-diff-memo';
 
 async function versionOrNotFound(db: Knex, recipeId: number, version: number): Promise<VersionWithNames> {
   const row = await findVersion(db, recipeId, version);
@@ -44,6 +45,7 @@ export async function compareRecipeVersions(db: Knex, recipeId: number, from: nu
     { version: b.version, status: b.status, title: b.title, content: contentB },
     names,
     pref,
+    keptWordDiff,
   );
   return { recipeId, number: a.number, ...comparison };
 }

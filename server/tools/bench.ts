@@ -24,6 +24,7 @@ import { ensureBenchUsers, BENCH_ROLES, type BenchRole } from './bench/bench-use
 import { ensureBigRecipe } from './bench/big-recipe';
 import { runExplainCheck } from './bench/explain-check';
 import { chainFigures, loadFigures } from './bench/figures';
+import { freshComparisonFigure } from './bench/fresh-comparison';
 import { signIn, type HttpSession } from './bench/http-session';
 import { machineInfo, printExplain, printTable, writeResults, type Figure } from './bench/report';
 import { readSamples } from './bench/samples';
@@ -126,6 +127,7 @@ async function main(): Promise<number> {
   server = null;
   log('[bench] chain verification (in-process)…');
   figures.push(...(await chainFigures(db, log)));
+  figures.push(await freshComparisonFigure(db, big.recipeId));
 
   console.log('');
   printTable(figures);
