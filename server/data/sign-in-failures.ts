@@ -7,16 +7,22 @@ export interface FailureWindow {
   oldest: Date | null;
 }
 
-export async function failuresSince(db: Knex, username: string, clientAddress: string, since: Date): Promise<FailureWindow> {
-  const row = (await db('sign_in_failures')
-    .where({ username, client_address: clientAddress })
-    .andWhere('failed_at', '>', since)
-    .first(db.raw('count(*) as count'), db.raw('min(failed_at) as oldest'))) as { count: number; oldest: Date | null };
+/** Rows of the window; with `upToId`, only that row and the ones written before it. */
+export async function failuresSince(db: Knex, username: string, clientAddress: string, since: Date, upToId?: number): Promise<FailureWindow> {
+  const query = db('sign_in_failures').where({ username, client_address: clientAddress }).andWhere('failed_at', '>', since);
+  if (upToId !== undefined) query.andWhere('id', '<=', upToId);
+  const row = (await query.first(db.raw('count(*) as count'), db.raw('min(failed_at) as oldest'))) as { count: number; oldest: Date | null };
   return { count: Number(row.count), oldest: row.oldest ? new Date(row.oldest) : null };
 }
 
-export async function insertFailure(db: Knex, username: string, clientAddress: string, at: Date): Promise<void> {
-  await db('sign_in_failures').insert({ username, client_address: clientAddress, failed_at: at });
+/** Returns the new row's id. */
+export async function insertFailure(db: Knex, username: string, clientAddress: string, at: Date): Promise<number> {
+  const [id] = await db('sign_in_failures').insert({ username, client_address: clientAddress, failed_at: at });
+  return Number(id);
+}
+
+export async function deleteFailure(db: Knex, id: number): Promise<void> {
+  await db('sign_in_failures').where({ id }).del();
 }
 
 export async function clearFailures(db: Knex, username: string, clientAddress: string): Promise<void> {

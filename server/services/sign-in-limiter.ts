@@ -6,15 +6,24 @@
  */
 import type { Knex } from 'knex';
 import { AppError } from '../app-error';
-import { clearFailures, deleteFailuresBefore, failuresSince, insertFailure } from '../data/sign-in-failures';
+import { clearFailures, deleteFailure, deleteFailuresBefore, failuresSince, insertFailure } from '../data/sign-in-failures';
 
 export const MAX_FAILURES = 10;
 export const WINDOW_MS = 15 * 60 * 1000;
 
-/** Throws 429 TOO_MANY_ATTEMPTS when the limit is reached, before any password is checked. */
-export async function assertSignInAllowed(db: Knex, username: string, clientAddress: string, now = new Date()): Promise<void> {
-  const window = await failuresSince(db, username, clientAddress, new Date(now.getTime() - WINDOW_MS));
-  if (window.count < MAX_FAILURES) return;
+/**
+ * Takes one of the window's places before any password is checked, or throws 429
+ * TOO_MANY_ATTEMPTS. The place is a row written first (and committed) and counted second,
+ * so parallel guesses each count the ones written before them: a burst cannot slip
+ * through one shared count. The row stays as the failure when the password is wrong; a
+ * good sign-in clears it with the others, and releaseSignInAttempt drops it otherwise.
+ */
+export async function reserveSignInAttempt(db: Knex, username: string, clientAddress: string, now = new Date()): Promise<number> {
+  const id = await insertFailure(db, username, clientAddress, now);
+  const window = await failuresSince(db, username, clientAddress, new Date(now.getTime() - WINDOW_MS), id);
+  if (window.count <= MAX_FAILURES) return id;
+  // The refusal itself is not counted as another failure.
+  await deleteFailure(db, id);
   const retryAt = new Date((window.oldest ?? now).getTime() + WINDOW_MS);
   const seconds = Math.max(1, Math.ceil((retryAt.getTime() - now.getTime()) / 1000));
   const minutes = Math.ceil(seconds / 60);
@@ -33,8 +42,13 @@ export async function assertSignInAllowed(db: Knex, username: string, clientAddr
   );
 }
 
-export async function recordSignInFailure(trx: Knex, username: string, clientAddress: string, now = new Date()): Promise<void> {
-  await insertFailure(trx, username, clientAddress, now);
+/** An attempt that was not a guess (e.g. the right password of a deactivated account) gives its place back. */
+export async function releaseSignInAttempt(db: Knex, attemptId: number): Promise<void> {
+  await deleteFailure(db, attemptId);
+}
+
+/** A wrong password: its reserved place stays as the failure; rows far outside any window go now and then. */
+export async function recordSignInFailure(trx: Knex, now = new Date()): Promise<void> {
   await deleteFailuresBefore(trx, new Date(now.getTime() - 24 * 60 * 60 * 1000));
 }
 

@@ -6,7 +6,7 @@ import type { Actor } from './actor';
 import { AUDIT_EVENTS, recordAudit } from './audit';
 import { decoyHash, hashPassword, needsRehash, verifyPassword } from './passwords';
 import type { SessionUser } from './session-user';
-import { assertSignInAllowed, clearSignInFailures, recordSignInFailure } from './sign-in-limiter';
+import { clearSignInFailures, recordSignInFailure, releaseSignInAttempt, reserveSignInAttempt } from './sign-in-limiter';
 import { toUserDto } from './user-dto';
 
 const BAD_CREDENTIALS_MESSAGE = 'The username or password is not correct.';
@@ -24,7 +24,7 @@ export interface SignInAttempt {
 export async function signIn(db: Knex, attempt: SignInAttempt): Promise<SessionUser> {
   const name = attempt.username.trim().toLowerCase();
   const actor: Actor = { userId: null, name, clientAddress: attempt.clientAddress };
-  await assertSignInAllowed(db, name, attempt.clientAddress);
+  const attemptId = await reserveSignInAttempt(db, name, attempt.clientAddress);
 
   const row = POSSIBLE_USERNAME.test(name) ? await findUserRowByUsername(db, name) : undefined;
   // Verify against a decoy when the name is unknown so both cases take the same time.
@@ -32,7 +32,7 @@ export async function signIn(db: Knex, attempt: SignInAttempt): Promise<SessionU
 
   if (!row || !ok) {
     await db.transaction(async (trx) => {
-      await recordSignInFailure(trx, name, attempt.clientAddress);
+      await recordSignInFailure(trx);
       await recordAudit(trx, actor, { type: AUDIT_EVENTS.signInFailed, entityType: 'user', entityId: row?.id ?? null, after: { reason: 'bad credentials' } });
     });
     throw new AppError(401, 'BAD_CREDENTIALS', [{ path: '', message: BAD_CREDENTIALS_MESSAGE }]);
@@ -40,6 +40,7 @@ export async function signIn(db: Knex, attempt: SignInAttempt): Promise<SessionU
 
   if (!row.active) {
     // Told plainly only to someone who knows the password; it is not counted as guessing.
+    await releaseSignInAttempt(db, attemptId);
     await recordAudit(db, { ...actor, userId: row.id, name: row.display_name }, { type: AUDIT_EVENTS.signInFailed, entityType: 'user', entityId: row.id, after: { reason: 'deactivated' } });
     throw new AppError(401, 'BAD_CREDENTIALS', [{ path: '', message: DEACTIVATED_MESSAGE }]);
   }

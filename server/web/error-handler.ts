@@ -48,10 +48,20 @@ function fromBodyParser(err: { type?: unknown }): AppError | null {
   }
 }
 
+/**
+ * Other client faults Express and body-parser mark with status 400 (http-errors): a path
+ * with a malformed %-escape (router), a body that does not match its Content-Encoding (zlib).
+ */
+function fromClientFault(err: { status?: unknown }): AppError | null {
+  if (err.status !== 400) return null;
+  if (err instanceof URIError) return AppError.validation([{ path: '', message: 'The address contains a malformed %-escape.' }]);
+  return new AppError(400, 'INVALID_JSON', [{ path: '', message: 'The request body could not be read (does it match its Content-Encoding?).' }]);
+}
+
 function toAppError(err: unknown): AppError {
   if (err instanceof AppError) return err;
   if (err && typeof err === 'object') {
-    const parsed = fromBodyParser(err as { type?: unknown });
+    const parsed = fromBodyParser(err as { type?: unknown }) ?? fromClientFault(err as { status?: unknown });
     if (parsed) return parsed;
   }
   if (isDatabaseUnavailable(err)) {

@@ -5,103 +5,26 @@
  */
 import { expect } from 'chai';
 import { ROLES, hasAccess } from '../../../shared/roles';
-import { CSRF_HEADER } from '../../../shared/api-types';
 import { routes } from '../../../server/web/routes';
 import { isValidAccess } from '../../../server/web/access';
 import { buildRouter } from '../../../server/web/router';
 import type { RouteContext, RouteDefinition } from '../../../server/web/route-definition';
 import { apiTestContext } from '../support/hooks';
-import { createPerson, type TestPerson } from '../support/people';
-import { anonymousAgent, signedInAgent, type Agent } from '../support/test-app';
-import { createStockSet, recipeInput } from '../support/stock';
-import { createRecipe } from '../../../server/services/recipes';
-import { createSelectionRow } from '../../../server/services/selection-rows';
-import { addAttachment } from '../../../server/services/attachments';
-import sharp from 'sharp';
-import { insertCut } from '../../../server/data/cuts';
-
-/** Existing records the walk's paths point at, so handlers really run (not only 404). */
-interface Targets {
-  user: number;
-  material: number;
-  wheel: number;
-  machine: number;
-  selectionRow: number;
-  recipe: number;
-  attachment: number;
-  cut: number;
-}
-
-/** Fills :id by the resource the path names, :n with version 1 and :attachmentId. */
-function pathFor(route: RouteDefinition, t: Targets): string {
-  const resource = route.path.split('/')[2];
-  const ids: Record<string, number> = {
-    users: t.user,
-    materials: t.material,
-    wheels: t.wheel,
-    machines: t.machine,
-    'selection-rows': t.selectionRow,
-    recipes: t.recipe,
-    attachments: t.attachment,
-  };
-  const id = ids[resource ?? ''];
-  if (route.path.includes(':id') && id === undefined) throw new Error(`The role walk has no target for ${route.path}: add one.`);
-  return route.path
-    .replace(/:id\b/g, String(id))
-    .replace(/:n\b/g, '1')
-    .replace(/:code\b/g, 'ZZZZ-ZZZZ')
-    .replace(/:attachmentId\b/g, String(t.attachment))
-    .replace(/:cutId\b/g, String(t.cut));
-}
-
-function call(agent: Agent, route: RouteDefinition, t: Targets, csrf: string) {
-  const left = route.path.replace(/\/:(id|n|attachmentId|cutId|code)\b/g, '');
-  if (left.includes(':')) throw new Error(`The role walk cannot fill the parameters of ${route.path}.`);
-  return agent[route.method](pathFor(route, t)).set(CSRF_HEADER, csrf);
-}
-
-function label(route: RouteDefinition): string {
-  return `${route.method.toUpperCase()} ${route.path}`;
-}
+import { createPerson } from '../support/people';
+import { anonymousAgent, signedInAgent } from '../support/test-app';
+import { call, createTargets, label, recordHandlerCalls, type Targets } from '../support/route-walk';
 
 describe('Route table access', () => {
   const ctx = apiTestContext();
-  let target: TestPerson;
   let targets: Targets;
+  // Which table lines reached their handler during this walk (checked by the last test).
+  let recorder: ReturnType<typeof recordHandlerCalls>;
 
   before(async () => {
-    // The throw-away records the paths point at.
-    target = await createPerson(ctx.db, { roles: ['operator'] });
-    const writer = await createPerson(ctx.db, { roles: ['author'] });
-    const actor = { userId: writer.id, name: writer.displayName, clientAddress: '' };
-    const stock = await createStockSet(ctx.db);
-    const row = await createSelectionRow(ctx.db, actor, { group: 'copper', hardness: null, wheelId: stock.wheel.id, note: '' });
-    const recipe = await createRecipe(ctx.db, actor, recipeInput(stock));
-    const png = await sharp({ create: { width: 8, height: 8, channels: 3, background: '#808080' } }).png().toBuffer();
-    const attachment = await addAttachment(ctx.db, actor, recipe.recipeId, 1, { role: 'setup', caption: '' }, { bytes: png, fileName: 'walk.png', declaredType: 'image/png' });
-    targets = {
-      user: target.id,
-      material: stock.material.id,
-      wheel: stock.wheel.id,
-      machine: stock.machine.id,
-      selectionRow: row.id,
-      recipe: recipe.recipeId,
-      attachment: attachment.id,
-      // A flagged cut straight in the table (the walk's recipe is a draft; recording is tested in test/api/operator).
-      cut: await insertCut(ctx.db, {
-        version_id: (await ctx.db('recipe_versions').where({ recipe_id: recipe.recipeId, version: 1 }).first('id')).id,
-        recipe_id: recipe.recipeId,
-        specimen_id: 'WALK-1',
-        part_ref: '',
-        quantity: 1,
-        outcome: 'burnt',
-        notes: '',
-        operator_id: target.id,
-        operator_name: target.displayName,
-        cut_at: new Date(),
-      }),
-    };
+    targets = await createTargets(ctx.db);
+    recorder = recordHandlerCalls(routes);
   });
+  after(() => recorder.restore());
 
   it('declares a valid access on every route', () => {
     expect(routes.length).to.be.greaterThan(0);
@@ -232,5 +155,12 @@ describe('Route table access', () => {
       expect(byLine.has(line), line).to.equal(true);
       expect(byLine.get(line), line).to.deep.equal(access);
     }
+  });
+
+  // Runs after the walks above (mocha keeps the order): a line that is shadowed by another,
+  // or that the walk cannot reach, fails here instead of passing unseen.
+  it('reached the handler of every route in the table at least once during the walk', () => {
+    const missed = routes.map(label).filter((line) => !recorder.reached.has(line));
+    expect(missed, 'routes the walk never got through to').to.deep.equal([]);
   });
 });
