@@ -210,7 +210,10 @@ const onRecipe = (column: string) => (column.startsWith('v.') ? `r.lib_${column.
 export async function listRecipeSummaryRows(db: Knex, filter: RecipeListFilter): Promise<{ rows: RecipeSummaryRow[]; total: number }> {
   // Operators list current versions (joined); everyone else the latest, from the recipe row.
   const col = filter.currentOnly ? (c: string) => c : onRecipe;
-  const matchesWords = await wordsMatch(db, filter.currentOnly ? 'r.current_search' : 'r.lib_search', filter.q ?? '');
+  // Within a group or machine the library walks that index (few rows, in title order);
+  // otherwise, and for operators' current versions, the full-text index finds the words.
+  const narrowed = !filter.currentOnly && Boolean(filter.group || filter.machineId);
+  const matchesWords = await wordsMatch(db, filter.currentOnly ? 'r.current_search' : 'r.lib_search', filter.q ?? '', !narrowed);
   const filtered = (query: Knex.QueryBuilder) => {
     matchesWords(query);
     if (filter.group) query.where(col('v.material_group'), filter.group);

@@ -1,9 +1,10 @@
 /**
  * The library's text search: every word of the query must start a word of the recipe's
- * search text (number, title, material name, designation). Words long enough for the
- * server's FULLTEXT index are matched there (an index lookup); shorter or longer ones —
- * MariaDB's default minimum is 3, `npm start` sets 1 — by a word-start REGEXP on the
- * rows the other words or filters already chose.
+ * search text (number, title, material name, designation), which the database keeps as
+ * " word word…" (migration 20270201090000). Words long enough for the server's FULLTEXT
+ * index are matched there (an index lookup); shorter or longer ones — MariaDB's default
+ * minimum is 3, `npm start` sets 1 — and every word of a search the caller narrows by
+ * another index are matched by LIKE '% word%' on the rows already chosen.
  */
 import type { Knex } from 'knex';
 
@@ -21,9 +22,9 @@ export function booleanQuery(words: readonly string[]): string {
   return words.map((w) => `+${w}*`).join(' ');
 }
 
-/** A REGEXP matching `word` at the start of a word (the words hold no REGEXP characters). */
+/** A LIKE pattern for `word` at the start of a word of the kept text (" word word…"). */
 export function wordStartPattern(word: string): string {
-  return `(^|[^[:alnum:]_])${word}`;
+  return `% ${word.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
 }
 
 export interface TokenSizes {
@@ -48,12 +49,17 @@ function readTokenSizes(db: Knex): Promise<TokenSizes> {
 
 /**
  * The search on `column` (which has a FULLTEXT index) as a condition to add to queries;
- * a query without words adds nothing.
+ * a query without words adds nothing. `byIndex` false: the query is narrowed by another
+ * index (group and machine), and reading those rows beats collecting every match.
  */
-export async function wordsMatch(db: Knex, column: string, q: string): Promise<(query: Knex.QueryBuilder) => void> {
+export async function wordsMatch(db: Knex, column: string, q: string, byIndex = true): Promise<(query: Knex.QueryBuilder) => void> {
   const words = searchWords(q);
-  return words.length === 0 ? () => {} : wordsCondition(column, words, await readTokenSizes(db));
+  if (words.length === 0) return () => {};
+  return wordsCondition(column, words, byIndex ? await readTokenSizes(db) : NO_INDEX);
 }
+
+/** Token sizes that no word has: every word by LIKE. */
+const NO_INDEX: TokenSizes = { min: Infinity, max: 0 };
 
 /** The condition for `words` on a server whose index holds words of `sizes`. */
 export function wordsCondition(column: string, words: readonly string[], sizes: TokenSizes): (query: Knex.QueryBuilder) => void {
@@ -61,6 +67,6 @@ export function wordsCondition(column: string, words: readonly string[], sizes: 
   const others = words.filter((w) => !indexed.includes(w));
   return (query) => {
     if (indexed.length > 0) query.whereRaw('MATCH(??) AGAINST (? IN BOOLEAN MODE)', [column, booleanQuery(indexed)]);
-    for (const w of others) query.where(column, 'regexp', wordStartPattern(w));
+    for (const w of others) query.where(column, 'like', wordStartPattern(w));
   };
 }

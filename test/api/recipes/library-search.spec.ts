@@ -99,16 +99,29 @@ describe('Library text search', () => {
     expect(await recipesWithStaleSearchWords(ctx.db)).to.deep.equal([]);
   });
 
-  it('finds the same by word-start patterns where the index holds no such short or long words', async () => {
+  it('finds the same by LIKE where the index holds no such short or long words, or is not used', async () => {
     const search = async (words: string[], sizes: { min: number; max: number }) => {
       const query = ctx.db('recipes as r').select('r.lib_title as title').orderBy('r.lib_title');
       wordsCondition('r.lib_search', words, sizes)(query);
       return ((await query) as { title: string }[]).map((r) => r.title);
     };
-    for (const sizes of [{ min: 1, max: 84 }, { min: 50, max: 84 }, { min: 1, max: 2 }]) {
+    for (const sizes of [{ min: 1, max: 84 }, { min: 50, max: 84 }, { min: 1, max: 2 }, { min: Infinity, max: 0 }]) {
       expect(await search(['thick', 'wall'], sizes), JSON.stringify(sizes)).to.deep.equal(['Thick-wall sleeve']);
       expect(await search(['cold', 'pun'], sizes), JSON.stringify(sizes)).to.deep.equal(['Cold-work punch']);
       expect(await search(['old'], sizes), JSON.stringify(sizes)).to.deep.equal([]);
+    }
+  });
+
+  it('answers the same within a group and machine, where it reads their index instead', async () => {
+    const ids = async (query: object) => ((await author.agent.get('/api/recipes').query(query).expect(200)).body.items as { id: number }[]).map((r) => r.id).sort();
+    for (const stock of [brass, steel]) {
+      const within = { group: stock.material.group, machineId: stock.machine.id };
+      const all = await ids(within);
+      expect(all).to.have.length(1);
+      for (const q of ['leaded', 'thin wall', 'in oil', '1.2379', 'cold pun', rod.number, 'wall x153', 'old', 'snake_case']) {
+        const narrowed = await ids({ q, ...within });
+        expect(narrowed, `${q} in ${stock.material.group}`).to.deep.equal((await ids({ q })).filter((id) => all.includes(id)));
+      }
     }
   });
 
@@ -118,6 +131,7 @@ describe('Library text search', () => {
     expect(searchWords('%_*"+-')).to.deep.equal(['_']);
     expect(searchWords('a b c d e f g h i j')).to.have.length(8);
     expect(booleanQuery(['kb', '0012'])).to.equal('+kb* +0012*');
-    expect(wordStartPattern('kb')).to.equal('(^|[^[:alnum:]_])kb');
+    expect(wordStartPattern('kb')).to.equal('% kb%');
+    expect(wordStartPattern('snake_case')).to.equal('% snake\\_case%');
   });
 });

@@ -12,19 +12,26 @@ export async function recipesWithStaleLibraryColumns(db: Knex): Promise<string[]
   return rows[0].map((r) => r.number);
 }
 
+/** The kept search text of the given parts, normalized independently of the migration's SQL. */
+function keptWords(...parts: (string | null)[]): string {
+  return ` ${parts.filter((p) => p !== null).join(' ').split(/[^\p{L}\p{N}_]+/u).join(' ')}`;
+}
+
 /**
  * Numbers of the recipes whose search words (`lib_search`, `current_search`, kept by
  * triggers) differ from what their latest and current versions say.
  */
 export async function recipesWithStaleSearchWords(db: Knex): Promise<string[]> {
-  const rows = (await db.raw(`
-    SELECT r.number FROM recipes r
+  type Row = { number: string; lib_search: string | null; current_search: string | null; lt: string; ln: string | null; ld: string | null; ct: string | null; cn: string | null; cd: string | null };
+  const [rows] = (await db.raw(`
+    SELECT r.number, r.lib_search, r.current_search, lv.title AS lt, lm.name AS ln, lm.designation AS ld, cv.title AS ct, cm.name AS cn, cm.designation AS cd
+    FROM recipes r
       JOIN recipe_versions lv ON lv.id = r.latest_version_id
       LEFT JOIN materials lm ON lm.id = lv.material_id
       LEFT JOIN recipe_versions cv ON cv.id = r.current_version_id
       LEFT JOIN materials cm ON cm.id = cv.material_id
-    WHERE NOT (r.lib_search <=> CONCAT_WS(' ', r.number, lv.title, lm.name, lm.designation))
-       OR NOT (r.current_search <=> IF(cv.id IS NULL, NULL, CONCAT_WS(' ', r.number, cv.title, cm.name, cm.designation)))
-    ORDER BY r.id`)) as [{ number: string }[]];
-  return rows[0].map((r) => r.number);
+    ORDER BY r.id`)) as [Row[]];
+  return rows
+    .filter((r) => r.lib_search !== keptWords(r.number, r.lt, r.ln, r.ld) || r.current_search !== (r.ct === null ? null : keptWords(r.number, r.ct, r.cn, r.cd)))
+    .map((r) => r.number);
 }
