@@ -69,8 +69,9 @@ function tamper(file: string, into: string, change: (manifest: Manifest, dumpPat
 
 describe('Backup and restore (npm run backup / restore)', function () {
   this.timeout(60000);
-  const work = fs.mkdtempSync(path.join(os.tmpdir(), 'kerfbook-backup-test-'));
-  const options: RestoreOptions = { backupDir: work, ...(scratchMaker() ? { prepareScratch: scratchMaker()! } : {}) };
+  /** Backups of this test go to a temporary folder, not the project's backups/. */
+  let work: string;
+  let options: RestoreOptions;
   let db: Knex;
   let app: Express;
   let close = () => undefined as void;
@@ -101,6 +102,9 @@ describe('Backup and restore (npm run backup / restore)', function () {
   }
 
   before(async function () {
+    work = fs.mkdtempSync(path.join(os.tmpdir(), 'kerfbook-backup-test-'));
+    const prepareScratch = scratchMaker();
+    options = { backupDir: work, ...(prepareScratch ? { prepareScratch } : {}) };
     db = await testDb();
     await resetTables(db);
     await seedDemoIfEmpty(db);
@@ -136,7 +140,7 @@ describe('Backup and restore (npm run backup / restore)', function () {
 
   after(() => {
     close();
-    fs.rmSync(work, { recursive: true, force: true });
+    if (work) fs.rmSync(work, { recursive: true, force: true });
   });
 
   it('writes a manifest that describes the snapshot: schema, counts, chain head, photos', async () => {
