@@ -71,10 +71,16 @@ export async function printBenchSheet(
   const userId = requireActor(actor);
   // 404 for an unknown recipe or version, and for one the person may not see (an operator and a draft).
   const row = await visibleVersion(db, scope, recipeId, version);
-  const dto = await versionDto(db, recipeId, version);
+  // Independent reads at once: a sheet waits on one round trip instead of five.
+  const [dto, roles, codeFound, recipe, settings] = await Promise.all([
+    versionDto(db, recipeId, version),
+    rolesOf(db, userId),
+    findCheckCodeOfVersion(db, row.id),
+    findRecipeRow(db, recipeId).then((r) => r!),
+    findLabSettings(db),
+  ]);
   if (dto.status !== 'approved') {
-    const recipe = await findRecipeRow(db, recipeId);
-    const current = recipe?.current_version_id ? (await db('recipe_versions').where({ id: recipe.current_version_id }).first('version'))?.version : null;
+    const current = recipe.current_version_id ? (await db('recipe_versions').where({ id: recipe.current_version_id }).first('version'))?.version : null;
     const instead = current ? ` Print version ${current}, the current one.` : '';
     throw AppError.conflict(
       `Version ${version} of ${dto.number} ${WHY_NOT[dto.status] ?? `is ${dto.status}`}: only approved versions (current or approved for a later day) print as bench sheets.${instead}`,
@@ -83,16 +89,14 @@ export async function printBenchSheet(
   }
 
   // An operator of the machine reads and acknowledges a version before its sheet reaches the bench.
-  await requireAcknowledgedForSheet(db, { id: userId, roles: await rolesOf(db, userId) }, row);
+  await requireAcknowledgedForSheet(db, { id: userId, roles }, row);
 
-  let code = await findCheckCodeOfVersion(db, row.id);
+  let code = codeFound;
   if (!code) {
     // Approved before codes existed and missed by the backfill: give it one now.
     await assignCheckCode(db, row.id);
     code = (await findCheckCodeOfVersion(db, row.id))!;
   }
-  const recipe = (await findRecipeRow(db, recipeId))!;
-  const settings = await findLabSettings(db);
   const units: UnitPreference = settings?.default_units === 'metric+imperial' ? 'metric+imperial' : 'metric';
   const paper = settings?.sheet_paper === 'Letter' ? 'Letter' : 'A4';
   const checkUrl = `${origin}/check/${code}`;
