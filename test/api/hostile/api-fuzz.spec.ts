@@ -138,7 +138,8 @@ function send(agent: Agent, csrf: string, route: RouteDefinition, t: Targets, r:
   if (r.body.kind === 'json') return req.set('Content-Type', 'application/json').send(JSON.stringify(r.body.value) ?? 'null');
   if (r.body.kind === 'raw') {
     if (r.body.type) req.set('Content-Type', r.body.type);
-    return req.send(r.body.payload);
+    // As it is: superagent would otherwise turn a Buffer sent as JSON into JSON text.
+    return req.serialize((payload: unknown) => payload as string).send(r.body.payload);
   }
   return req;
 }
@@ -194,6 +195,7 @@ describe('API fuzzer: every route, every role, hostile input', function () {
   }
 
   before(async () => {
+    // The targets first: their person is user 1, the only person an odd path value can name (hostile-input.ts).
     targets = await createTargets(ctx.db);
     for (const role of ROLES) people.set(role, await createPerson(ctx.db, { roles: [role] }));
     for (const caller of CALLERS) await signIn(caller);
