@@ -50,7 +50,7 @@ describe('Malformed requests answer 4xx, never 500', () => {
     }
     const bogus = await who.agent.patch('/api/session/preferences').set(CSRF_HEADER, who.csrf).set('Content-Type', 'application/json').set('Content-Encoding', 'bogus').send(body);
     expect(bogus.status).to.equal(415);
-    const real = await who.agent.patch('/api/session/preferences').set(CSRF_HEADER, who.csrf).set('Content-Type', 'application/json').set('Content-Encoding', 'gzip').serialize((b: Buffer) => b).send(gzipSync(body));
+    const real = await who.agent.patch('/api/session/preferences').set(CSRF_HEADER, who.csrf).set('Content-Type', 'application/json').set('Content-Encoding', 'gzip').serialize((b: unknown) => b as string).send(gzipSync(body));
     expect(real.status, JSON.stringify(real.body)).to.equal(200);
     expect(real.body.user.units).to.equal('metric+imperial');
   });
