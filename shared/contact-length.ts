@@ -32,6 +32,8 @@ export const ROCKING_CONTACT_FACTOR = 0.5;
 
 /** Number of depths sampled for the plot unless told otherwise. */
 export const PROFILE_SAMPLES = 41;
+/** Most depths a profile samples: a huge or non-finite count must not exhaust memory. */
+export const PROFILE_SAMPLES_MAX = 100_000;
 
 /** The part's cross-section in the plane of the cut. */
 export interface CutSection {
@@ -145,7 +147,7 @@ export function removalRateMm3S(section: CutSection, setup: CutSetup, x: number)
 /** Contact length and removal rate at `samples` evenly spaced depths from entry to the end of the cut. */
 export function contactProfile(section: CutSection, setup: CutSetup, samples: number = PROFILE_SAMPLES): ContactPoint[] {
   const depth = cutDepthMm(section, setup.motion);
-  const n = Math.max(2, Math.floor(samples));
+  const n = Number.isFinite(samples) ? Math.min(PROFILE_SAMPLES_MAX, Math.max(2, Math.floor(samples))) : PROFILE_SAMPLES;
   const points: ContactPoint[] = [];
   for (let i = 0; i < n; i++) {
     const x = (depth * i) / (n - 1);

@@ -154,7 +154,8 @@ export function conversionApplies(group: MaterialGroup): { applies: true } | { a
   if (CONVERTIBLE_GROUPS.includes(group)) return { applies: true };
   return {
     applies: false,
-    reason: NOT_CONVERTIBLE[group] ?? 'The hardness conversion tables are for non-austenitic steels only; this material keeps its measured scale.',
+    // Own keys only: an inherited name ("__proto__", "constructor") is not a reason.
+    reason: (Object.hasOwn(NOT_CONVERTIBLE, group) ? NOT_CONVERTIBLE[group] : undefined) ?? 'The hardness conversion tables are for non-austenitic steels only; this material keeps its measured scale.',
   };
 }
 

@@ -209,7 +209,8 @@ const RULES: readonly Rule[] = [
 
   ({ content, ctx }) => {
     const mat = ctx.material;
-    if (!mat || (!mat.coated && !mat.caseHardened) || content.clamping?.orientationRule?.trim()) return null;
+    const rule = content.clamping?.orientationRule;
+    if (!mat || (!mat.coated && !mat.caseHardened) || (typeof rule === 'string' && rule.trim())) return null;
     const what = mat.coated ? 'coated' : `case-hardened${mat.caseDepthMm ? ` (case ${mat.caseDepthMm} mm)` : ''}`;
     return result(
       'orientation-rule-missing',

@@ -9,7 +9,7 @@ import { conversionApplies, convertHardness, HARDNESS_CAVEATS } from './hardness
 import { maxRpmForWheel, peripheralSpeedMs, speedMargin, toFtPerMin } from './peripheral-speed';
 import type { RecipeContext } from './recipe-context';
 import type { HardnessWindow } from './schemas/stock';
-import type { RecipeContent } from './schemas/recipe';
+import { recipeCutting, type RecipeContent } from './schemas/recipe';
 
 /** Scope hardness converted to HV for the steel groups. */
 export interface ComputedHardness {
@@ -100,8 +100,11 @@ export function computeRecipe(content: RecipeContent, ctx: RecipeContext): Recip
     shape && sizeMax !== null && (shape !== 'rectangular' || positive(scope.widthMm) !== null) && (shape !== 'tube' || positive(scope.wallMm) !== null)
       ? { shape, sizeMm: sizeMax, widthMm: scope.widthMm, wallMm: scope.wallMm }
       : null;
+  // Passes outside the schema's whole 1–500 give no profile or time yet: the traverse travel is
+  // summed pass by pass, so a half-typed 1e9 would freeze the editor.
+  const passesOk = recipeCutting.shape.passes.safeParse(cutting?.passes ?? null).success;
   const setup: CutSetup | null =
-    motion && feed !== null && thickness !== null && diameter !== null
+    motion && feed !== null && thickness !== null && diameter !== null && passesOk
       ? {
           motion,
           feedMmS: feed,
@@ -113,6 +116,8 @@ export function computeRecipe(content: RecipeContent, ctx: RecipeContext): Recip
         }
       : null;
   const profile = section && setup ? contactProfile(section, setup) : null;
+  // The schema's feeds need only be more than 0: near 5e-324 mm/s the time overflows to ∞; show none.
+  const cutTime = section && setup ? estimateCutTimeS(section, setup) : null;
 
   return {
     peripheralSpeedMs: speed,
@@ -127,7 +132,7 @@ export function computeRecipe(content: RecipeContent, ctx: RecipeContext): Recip
     capacityMarginMm: fit?.marginMm ?? null,
     profile,
     peakRemovalMm3S: profile ? peakRemovalMm3S(profile) : null,
-    cutTimeS: section && setup ? estimateCutTimeS(section, setup) : null,
+    cutTimeS: cutTime !== null && Number.isFinite(cutTime) ? cutTime : null,
     hardness: computeHardness(content, ctx),
   };
 }

@@ -106,7 +106,8 @@ function parseSuperabrasive(s: string): WheelSpecResult {
 
 /** Parse a wheel marking; returns the typed specification or a message saying what is wrong. */
 export function parseWheelSpec(input: string): WheelSpecResult {
-  const s = input.replace(/[\s-]+/g, '').toUpperCase();
+  // A value that is not text (a malformed body or stored row) is refused like an empty marking.
+  const s = typeof input === 'string' ? input.replace(/[\s-]+/g, '').toUpperCase() : '';
   if (s === '') return { ok: false, error: 'Give the wheel marking, e.g. A60K5V.' };
   if (/^(D|CB|B)\d/.test(s)) return parseSuperabrasive(s);
   if (/^[AC]/.test(s)) return parseConventional(s);

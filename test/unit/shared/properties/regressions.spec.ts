@@ -1,0 +1,55 @@
+/** Example tests for the bugs the property specs in this folder found (each fixed in shared/). */
+import { expect } from 'chai';
+import { contactProfile, PROFILE_SAMPLES, PROFILE_SAMPLES_MAX } from '../../../../shared/contact-length';
+import { conversionApplies, convertHardness } from '../../../../shared/hardness';
+import { runChecks } from '../../../../shared/recipe-checks';
+import { computeRecipe } from '../../../../shared/recipe-computations';
+import type { MaterialGroup } from '../../../../shared/vocabulary';
+import { parseWheelSpec } from '../../../../shared/wheel-spec';
+import { content, ctx, material } from '../fixtures';
+
+describe('shared/ regressions found by the property specs', () => {
+  it('parseWheelSpec refuses a value that is not text instead of throwing ("input.replace is not a function")', () => {
+    for (const v of [null, undefined, 42, false, {}, ['A60K5V']]) {
+      const r = parseWheelSpec(v as unknown as string);
+      expect(r).to.deep.equal({ ok: false, error: 'Give the wheel marking, e.g. A60K5V.' });
+    }
+  });
+
+  it('a group named like an Object property gets the plain reason, not Object.prototype', () => {
+    for (const g of ['__proto__', 'constructor', 'toString']) {
+      const a = conversionApplies(g as MaterialGroup);
+      expect(a.applies).to.equal(false);
+      if (!a.applies) expect(a.reason).to.equal('The hardness conversion tables are for non-austenitic steels only; this material keeps its measured scale.');
+      const c = convertHardness(30, 'HRC', 'HV', g as MaterialGroup);
+      expect(!c.ok && typeof c.reason).to.equal('string');
+    }
+  });
+
+  it('contactProfile bounds its sample count (1e15 exhausted the heap) and uses the default for a non-finite one', () => {
+    const bar = { shape: 'round-bar' as const, sizeMm: 40, widthMm: null, wallMm: null };
+    const setup = { motion: 'straight-plunge' as const, feedMmS: 0.5, entryFeedMmS: null, entryLengthMm: null, passes: null, wheelThicknessMm: 1.5, wheelDiameterMm: 250 };
+    expect(contactProfile(bar, setup, 1e15)).to.have.length(PROFILE_SAMPLES_MAX);
+    expect(contactProfile(bar, setup, NaN)).to.have.length(PROFILE_SAMPLES);
+    expect(contactProfile(bar, setup, 20001)).to.have.length(20001);
+  });
+
+  it('computeRecipe gives no time for 1e9 traverse passes (it summed them one by one: minutes of frozen editor)', () => {
+    const r = computeRecipe(content({ cutting: { cutMotion: 'traverse-pass', passes: 1e9 } }), ctx());
+    expect(r.cutTimeS).to.equal(null);
+    expect(r.profile).to.equal(null);
+    expect(computeRecipe(content({ cutting: { cutMotion: 'traverse-pass', passes: 500 } }), ctx()).cutTimeS).to.be.a('number');
+  });
+
+  it('computeRecipe gives no time, rather than Infinity, for a feed of 5e-324 mm/s (valid: more than 0)', () => {
+    expect(computeRecipe(content({ cutting: { feedMmS: Number.MIN_VALUE } }), ctx()).cutTimeS).to.equal(null);
+  });
+
+  it('runChecks takes a half-typed orientation rule that is not text ("trim is not a function")', () => {
+    const coated = ctx({ material: material({ coated: true }) });
+    for (const rule of [42, NaN, {}, true]) {
+      const ids = runChecks(content({ clamping: { orientationRule: rule as unknown as string } }), coated).map((r) => r.id);
+      expect(ids).to.include('orientation-rule-missing');
+    }
+  });
+});
