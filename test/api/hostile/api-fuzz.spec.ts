@@ -3,8 +3,9 @@
  * anonymously and by a person with each single role, with random and malformed bodies,
  * wrong content types, odd query strings, odd headers and odd path values (fast-check).
  * Whatever arrives: never a 5xx; every error is the documented `{ code, errors }` with no
- * stack or SQL in it; nothing leaks onto Object.prototype; and a route whose every answer
- * was a refusal has written nothing (a checksum of every table and the trail head).
+ * stack or SQL in it; nothing leaks onto Object.prototype; and a caller whose requests to
+ * a route were all refused, or who only read, has written nothing (a checksum of every
+ * table and the trail head, before and after each caller's batch).
  *
  * Bounded: RUNS requests per route and caller (the first a plain hostile JSON body with a
  * valid token, so every handler is reached): about 3,000 requests in all.
