@@ -1,0 +1,65 @@
+import { expect } from 'chai';
+import fc from 'fast-check';
+import { CHECK_IDS, runChecks, worstSeverity, type CheckResult, type CheckSeverity } from '../../../../shared/recipe-checks';
+import { computeRecipe } from '../../../../shared/recipe-computations';
+import { contentLeafPaths } from '../../../../shared/recipe-compare';
+import { content as fixtureContent } from '../fixtures';
+import { halfTypedContent, RUNS_HEAVY, validContent, validContext } from './arbitraries';
+
+const RANK: Record<CheckSeverity, number> = { blocker: 0, warning: 1, note: 2 };
+/** The content's field paths (and the hardness window whole), where a check may point. */
+const FIELD_PATHS = new Set(contentLeafPaths(fixtureContent()));
+
+function expectWellFormed(results: CheckResult[]): void {
+  for (let i = 0; i < results.length; i++) {
+    const r = results[i]!;
+    expect(CHECK_IDS as readonly string[]).to.include(r.id);
+    expect(r.message).to.be.a('string').and.not.equal('');
+    expect(r.reason).to.be.a('string').and.not.equal('');
+    expect(`${r.message} ${r.reason}`, r.id).not.to.match(/\bNaN\b|\bundefined\b|Infinity|\[object /);
+    if (r.path !== null) expect(FIELD_PATHS, r.path).to.include(r.path);
+    if (i > 0) expect(RANK[r.severity]).to.be.at.least(RANK[results[i - 1]!.severity]);
+  }
+}
+
+describe('shared/recipe-checks (properties)', () => {
+  it('valid content and stock: known ids, messages in words without NaN, field paths, blockers before warnings before notes', () => {
+    fc.assert(
+      fc.property(validContent, validContext, (c, ctx) => {
+        const results = runChecks(c, ctx);
+        expectWellFormed(results);
+        expect(runChecks(c, ctx, computeRecipe(c, ctx))).to.deep.equal(results);
+        const worst = worstSeverity(results);
+        expect(worst).to.equal(results.length ? results[0]!.severity : null);
+      }),
+      { numRuns: RUNS_HEAVY },
+    );
+  });
+
+  it('flags what its rule says, exactly: missing stock, overspeed, capacity, hazardous dust dry', () => {
+    fc.assert(
+      fc.property(validContent, validContext, (c, ctx) => {
+        const ids = new Set(runChecks(c, ctx).map((r) => r.id));
+        const computed = computeRecipe(c, ctx);
+        expect(ids.has('machine-missing')).to.equal(ctx.machine === null);
+        expect(ids.has('wheel-missing')).to.equal(ctx.wheel === null);
+        expect(ids.has('wheel-overspeed')).to.equal(computed.peripheralSpeedMs !== null && computed.peripheralSpeedMs > computed.markedMaxSpeedMs!);
+        expect(ids.has('scope-exceeds-capacity')).to.equal(computed.capacityFits === false);
+        expect(ids.has('hazardous-dust-dry')).to.equal(ctx.material?.hazardousDust === true && c.coolant.type === 'dry');
+        expect(ids.has('clamping-missing')).to.equal(c.clamping.method === null);
+      }),
+      { numRuns: RUNS_HEAVY },
+    );
+  });
+
+  it('half-typed content (nulls, NaN, ∞, text or objects in any field) never throws, and what it says is well formed', () => {
+    fc.assert(
+      fc.property(halfTypedContent, validContext, (c, ctx) => {
+        const results = runChecks(c, ctx);
+        for (const r of results) expect(CHECK_IDS as readonly string[]).to.include(r.id);
+        worstSeverity(results);
+      }),
+      { numRuns: RUNS_HEAVY },
+    );
+  });
+});

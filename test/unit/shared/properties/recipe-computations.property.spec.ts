@@ -1,0 +1,109 @@
+import { expect } from 'chai';
+import fc from 'fast-check';
+import { capacityFit } from '../../../../shared/capacity';
+import { peripheralSpeedMs } from '../../../../shared/peripheral-speed';
+import type { RecipeContext } from '../../../../shared/recipe-context';
+import { computeRecipe } from '../../../../shared/recipe-computations';
+import { msToFtMin } from '../../../../shared/units';
+import { content as fixtureContent, ctx as fixtureCtx } from '../fixtures';
+import { halfTypedContent, numbersIn, RUNS, validContent, validContext } from './arbitraries';
+
+/** Every computed number of a result is finite; says which one is not. `hardness.measured` echoes the input window as typed. */
+function expectFinite(value: unknown): void {
+  for (const [path, n] of numbersIn(value)) if (!path.startsWith('hardness.measured.')) expect(Number.isFinite(n), `${path} = ${n}`).to.equal(true);
+}
+
+describe('shared/recipe-computations (properties)', () => {
+  it('valid content with valid stock gives only finite numbers, or null where an input is missing', () => {
+    fc.assert(
+      fc.property(validContent, validContext, (c, ctx) => {
+        const r = computeRecipe(c, ctx);
+        expectFinite(r);
+        expect(r.peripheralSpeedMs === null).to.equal(ctx.wheel === null);
+        expect(r.capacityFits === null).to.equal(ctx.wheel === null || ctx.machine === null);
+        // No time also where a feed near 5e-324 mm/s (valid: more than 0) would overflow it.
+        if (ctx.wheel === null || (c.cutting.feedMmS >= 1e-290 && (c.cutting.entryFeedMmS ?? 1) >= 1e-290)) expect(r.cutTimeS === null).to.equal(ctx.wheel === null);
+        expect(r.profile === null).to.equal(ctx.wheel === null);
+        expect(r.hardness === null).to.equal(c.scope.hardness === null && !ctx.material?.hardness);
+      }),
+      { numRuns: RUNS },
+    );
+  });
+
+  it('agrees with the single computations it is made of (speed, ft/min, margin, capacity, peak)', () => {
+    fc.assert(
+      fc.property(validContent, validContext, (c, ctx) => {
+        const r = computeRecipe(c, ctx);
+        if (ctx.wheel) {
+          expect(r.peripheralSpeedMs).to.equal(peripheralSpeedMs(ctx.wheel.diameterMm, c.cutting.wheelRpm));
+          expect(r.peripheralSpeedFtMin).to.equal(msToFtMin(r.peripheralSpeedMs!));
+          expect(r.speedMarginMs! + r.peripheralSpeedMs!).to.be.closeTo(ctx.wheel.maxSpeedMs, 1e-9 * ctx.wheel.maxSpeedMs);
+          expect(peripheralSpeedMs(ctx.wheel.diameterMm, r.rpmAtMarkedMax!)).to.be.at.most(ctx.wheel.maxSpeedMs * (1 + 1e-9));
+          expect(r.peakRemovalMm3S).to.equal(Math.max(0, ...r.profile!.map((p) => p.removalMm3S)));
+        }
+        if (ctx.wheel && ctx.machine) {
+          const fit = capacityFit(c.scope.sizeMaxMm, ctx.wheel.diameterMm, ctx.machine.flangeDiameterMm, c.cutting.cutMotion, c.scope.shape);
+          expect(r.capacityFits).to.equal(fit.fits);
+          expect(r.capacityMarginMm).to.equal(fit.marginMm);
+        }
+        if (r.hardness && r.hardness.minHv !== null && r.hardness.maxHv !== null) expect(r.hardness.minHv).to.be.at.most(r.hardness.maxHv + 1e-9);
+      }),
+      { numRuns: RUNS },
+    );
+  });
+
+  it('a faster spindle never lowers the peripheral speed nor raises the margin', () => {
+    fc.assert(
+      fc.property(validContent, fc.double({ min: 1, max: 2, noNaN: true }), (c, factor) => {
+        const ctx = fixtureCtx();
+        const slow = computeRecipe(c, ctx);
+        const fast = computeRecipe({ ...c, cutting: { ...c.cutting, wheelRpm: c.cutting.wheelRpm * factor } }, ctx);
+        expect(fast.peripheralSpeedMs!).to.be.at.least(slow.peripheralSpeedMs!);
+        expect(fast.speedMarginMs!).to.be.at.most(slow.speedMarginMs!);
+      }),
+      { numRuns: RUNS },
+    );
+  });
+
+  // Beyond ±1e6 a half-typed number may overflow (1e308 rpm is ∞ m/s; 1e308 mm × a 5e-324 feed is
+  // ∞ × 0 = NaN in the plot): the form refuses those values, and no throw is the promise there.
+  it('half-typed content (nulls, NaN, ∞, text or objects in any field) never throws; up to ±1e6 the numbers stay finite or null', () => {
+    fc.assert(
+      fc.property(halfTypedContent, validContext, (c, ctx) => {
+        const r = computeRecipe(c, ctx);
+        if (numbersIn(c).every(([, n]) => !(Math.abs(n) > 1e6))) expectFinite(r);
+      }),
+      { numRuns: RUNS },
+    );
+  });
+
+  it('a feed just above 0 (valid, more than 0 mm/s) gives no time rather than ∞ (regression)', () => {
+    const r = computeRecipe(fixtureContent({ cutting: { feedMmS: Number.MIN_VALUE } }), fixtureCtx());
+    expect(r.cutTimeS).to.equal(null);
+    expect(r.peripheralSpeedMs).to.be.a('number');
+  });
+
+  it('a pass count outside 1–500 gives no time rather than a frozen editor (regression: 1e9 passes looped 1e9 times)', () => {
+    fc.assert(
+      fc.property(fc.oneof(fc.double({ min: 501, max: Number.MAX_VALUE, noNaN: true }), fc.constantFrom(0, -1, 2.5, NaN, Infinity)), (passes) => {
+        const r = computeRecipe(fixtureContent({ cutting: { cutMotion: 'traverse-pass', passes } }), fixtureCtx());
+        expect(r.cutTimeS).to.equal(null);
+        expect(r.profile).to.equal(null);
+        expect(r.peripheralSpeedMs).to.be.a('number');
+      }),
+      { numRuns: 50 },
+    );
+  });
+
+  it('stock records holding odd numbers (0, NaN, ∞, negative) give null or finite values, never a throw', () => {
+    const odd = fc.constantFrom(0, -1, NaN, Infinity, -Infinity, Number.MIN_VALUE);
+    fc.assert(
+      fc.property(validContent, validContext, fc.record({ diameterMm: odd, thicknessMm: odd, maxSpeedMs: odd }, { requiredKeys: [] }), fc.record({ flangeDiameterMm: odd }, { requiredKeys: [] }), (c, ctx, w, m) => {
+        const odd: RecipeContext = { ...ctx, wheel: ctx.wheel && { ...ctx.wheel, ...w }, machine: ctx.machine && { ...ctx.machine, ...m } };
+        const r = computeRecipe(c, odd);
+        for (const [path, n] of numbersIn(r)) expect(Number.isNaN(n), `${path} = ${n}`).to.equal(false);
+      }),
+      { numRuns: RUNS },
+    );
+  });
+});
