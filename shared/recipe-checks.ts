@@ -52,6 +52,8 @@ const SOURCE = {
 
 const n1 = (v: number) => v.toFixed(1);
 const n2 = (v: number) => v.toFixed(2);
+/** A vocabulary label in lower case; an id the vocabulary does not know (older stored content) reads as itself. */
+const lowerLabel = (labels: Readonly<Record<string, string>>, id: unknown): string => (Object.hasOwn(labels, String(id)) ? labels[String(id)]! : String(id)).toLowerCase();
 
 interface Facts {
   content: RecipeContent;
@@ -125,7 +127,7 @@ const RULES: readonly Rule[] = [
       'scope-exceeds-capacity',
       'blocker',
       'scope.sizeMaxMm',
-      `The largest part (${content.scope.sizeMaxMm} mm) is more than the wheel can cut on this machine with ${CUT_MOTION_LABELS[content.cutting.cutMotion].toLowerCase()} (${n1(computed.cuttableSizeMm!)} mm: cutting depth ${n1(computed.cuttingDepthMm!)} mm).`,
+      `The largest part (${content.scope.sizeMaxMm} mm) is more than the wheel can cut on this machine with ${lowerLabel(CUT_MOTION_LABELS, content.cutting.cutMotion)} (${n1(computed.cuttableSizeMm!)} mm: cutting depth ${n1(computed.cuttingDepthMm!)} mm).`,
       'Capacity = (wheel diameter − flange diameter)/2 less a 5 mm clearance (common practice); the flanges cannot enter the cut.',
     );
   },
@@ -139,14 +141,14 @@ const RULES: readonly Rule[] = [
     const method = content.clamping?.method;
     const m = ctx.machine;
     if (!m || !method || m.clampingMethods.includes(method)) return null;
-    return result('clamping-unsupported', 'blocker', 'clamping.method', `${m.name} has no ${CLAMPING_METHOD_LABELS[method].toLowerCase()}.`, "Only the clamping the machine is equipped for holds the part safely (the machine's manual).");
+    return result('clamping-unsupported', 'blocker', 'clamping.method', `${m.name} has no ${lowerLabel(CLAMPING_METHOD_LABELS, method)}.`, "Only the clamping the machine is equipped for holds the part safely (the machine's manual).");
   },
 
   ({ content, ctx }) => {
     const motion = content.cutting?.cutMotion;
     const m = ctx.machine;
     if (!m || !motion || m.cutMotions.includes(motion)) return null;
-    return result('cut-motion-unsupported', 'blocker', 'cutting.cutMotion', `${m.name} cannot cut with ${CUT_MOTION_LABELS[motion].toLowerCase()}.`, "The machine's drives and controls must support the motion (the machine's manual).");
+    return result('cut-motion-unsupported', 'blocker', 'cutting.cutMotion', `${m.name} cannot cut with ${lowerLabel(CUT_MOTION_LABELS, motion)}.`, "The machine's drives and controls must support the motion (the machine's manual).");
   },
 
   ({ ctx, abrasive, group }) => {
@@ -196,13 +198,14 @@ const RULES: readonly Rule[] = [
 
   ({ content, ctx, group }) => {
     const feed = content.cutting?.feedMmS;
-    const ceiling = group ? ctx.limits?.feedCeilingsMmS?.[group] : undefined;
+    const ceilings = ctx.limits?.feedCeilingsMmS;
+    const ceiling = group && ceilings && Object.hasOwn(ceilings, group) ? ceilings[group] : undefined;
     if (!isPositive(feed) || ceiling === undefined || feed <= ceiling) return null;
     return result(
       'feed-above-ceiling',
       'warning',
       'cutting.feedMmS',
-      `A feed of ${feed} mm/s is above the lab's ceiling of ${ceiling} mm/s for ${MATERIAL_GROUP_LABELS[group!].toLowerCase()}.`,
+      `A feed of ${feed} mm/s is above the lab's ceiling of ${ceiling} mm/s for ${lowerLabel(MATERIAL_GROUP_LABELS, group)}.`,
       'Too high a feed burns the part; start low and raise it with experience (common practice; the ceiling is a lab setting).',
     );
   },

@@ -10,6 +10,7 @@ import { maxRpmForWheel, peripheralSpeedMs, speedMargin, toFtPerMin } from './pe
 import type { RecipeContext } from './recipe-context';
 import type { HardnessWindow } from './schemas/stock';
 import { recipeCutting, type RecipeContent } from './schemas/recipe';
+import { CUT_MOTIONS, SHAPES } from './vocabulary';
 
 /** Scope hardness converted to HV for the steel groups. */
 export interface ComputedHardness {
@@ -86,8 +87,9 @@ export function computeRecipe(content: RecipeContent, ctx: RecipeContext): Recip
   const feed = positive(cutting?.feedMmS);
   const thickness = positive(wheel?.thicknessMm);
   const sizeMax = positive(scope?.sizeMaxMm);
-  const motion = cutting?.cutMotion ?? null;
-  const shape = scope?.shape ?? null;
+  // An id the vocabulary does not know (content stored under an older one) is no choice yet.
+  const motion = cutting && CUT_MOTIONS.includes(cutting.cutMotion) ? cutting.cutMotion : null;
+  const shape = scope && SHAPES.includes(scope.shape) ? scope.shape : null;
 
   const speed = diameter !== null && rpm !== null ? peripheralSpeedMs(diameter, rpm) : null;
   const margin = speed !== null && maxSpeed !== null ? speedMargin(speed, maxSpeed) : null;

@@ -258,6 +258,20 @@ export const halfTyped = (leaf: fc.Arbitrary<unknown>): fc.Arbitrary<RecipeConte
     if (halfWindow) set('scope.hardness', halfWindow);
     return out as unknown as RecipeContent;
   });
+/**
+ * Valid content whose choices hold ids the vocabulary does not know (content stored under an
+ * older vocabulary, or a hand-edited row): "x", "", "__proto__", "constructor", odd unicode.
+ */
+export const staleChoiceContent: fc.Arbitrary<RecipeContent> = fc
+  .tuple(validContent, fc.dictionary(fc.constantFrom(...CHOICE_LEAVES.filter((p) => p !== 'scope.hardness')), oddText, { minKeys: 1, maxKeys: 4 }))
+  .map(([c, stale]) => {
+    const out = structuredClone(c) as unknown as Record<string, Record<string, unknown>>;
+    for (const [path, v] of Object.entries(stale)) {
+      const [section, key] = path.split('.') as [string, string];
+      out[section]![key] = v;
+    }
+    return out as unknown as RecipeContent;
+  });
 export const halfTypedContent = halfTyped(outsideValue);
 /** The same with primitive leaves only (what a form control can hold: null, numbers, text). */
 export const halfTypedPrimitiveContent = halfTyped(outsidePrimitive);

@@ -4,7 +4,7 @@ import { CHECK_IDS, runChecks, worstSeverity, type CheckResult, type CheckSeveri
 import { computeRecipe } from '../../../../shared/recipe-computations';
 import { contentLeafPaths } from '../../../../shared/recipe-compare';
 import { content as fixtureContent } from '../fixtures';
-import { halfTypedContent, RUNS_HEAVY, validContent, validContext } from './arbitraries';
+import { halfTypedContent, RUNS_HEAVY, staleChoiceContent, validContent, validContext } from './arbitraries';
 
 const RANK: Record<CheckSeverity, number> = { blocker: 0, warning: 1, note: 2 };
 /** The content's field paths (and the hardness window whole), where a check may point. */
@@ -47,6 +47,15 @@ describe('shared/recipe-checks (properties)', () => {
         expect(ids.has('scope-exceeds-capacity')).to.equal(computed.capacityFits === false);
         expect(ids.has('hazardous-dust-dry')).to.equal(ctx.material?.hazardousDust === true && c.coolant.type === 'dry');
         expect(ids.has('clamping-missing')).to.equal(c.clamping.method === null);
+      }),
+      { numRuns: RUNS_HEAVY },
+    );
+  });
+
+  it('a choice the vocabulary does not know (older stored content) never throws; the messages stay in words', () => {
+    fc.assert(
+      fc.property(staleChoiceContent, validContext, (c, ctx) => {
+        expectWellFormed(runChecks(c, ctx));
       }),
       { numRuns: RUNS_HEAVY },
     );

@@ -6,7 +6,7 @@ import type { RecipeContext } from '../../../../shared/recipe-context';
 import { computeRecipe } from '../../../../shared/recipe-computations';
 import { msToFtMin } from '../../../../shared/units';
 import { content as fixtureContent, ctx as fixtureCtx } from '../fixtures';
-import { halfTypedContent, numbersIn, RUNS, validContent, validContext } from './arbitraries';
+import { halfTypedContent, numbersIn, RUNS, staleChoiceContent, validContent, validContext } from './arbitraries';
 
 /** Every computed number of a result is finite; says which one is not. `hardness.measured` echoes the input window as typed. */
 function expectFinite(value: unknown): void {
@@ -81,6 +81,15 @@ describe('shared/recipe-computations (properties)', () => {
     const r = computeRecipe(fixtureContent({ cutting: { feedMmS: Number.MIN_VALUE } }), fixtureCtx());
     expect(r.cutTimeS).to.equal(null);
     expect(r.peripheralSpeedMs).to.be.a('number');
+  });
+
+  it('a choice the vocabulary does not know (shape, motion, group: older stored content) gives null or finite values, never NaN', () => {
+    fc.assert(
+      fc.property(staleChoiceContent, validContext, (c, ctx) => {
+        expectFinite(computeRecipe(c, ctx));
+      }),
+      { numRuns: RUNS },
+    );
   });
 
   it('a pass count outside 1–500 gives no time rather than a frozen editor (regression: 1e9 passes looped 1e9 times)', () => {

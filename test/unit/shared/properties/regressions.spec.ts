@@ -53,3 +53,27 @@ describe('shared/ regressions found by the property specs', () => {
     }
   });
 });
+
+describe('shared/ regressions: ids the vocabulary does not know (content stored under an older vocabulary)', () => {
+  it('runChecks names an unknown cut motion or clamping method as it is, instead of throwing on its missing label', () => {
+    const stale = content({ cutting: { cutMotion: 'band-saw' as never }, clamping: { method: 'magnet' as never } });
+    const results = runChecks(stale, ctx());
+    expect(results.find((r) => r.id === 'cut-motion-unsupported')!.message).to.equal('Bench saw cannot cut with band-saw.');
+    expect(results.find((r) => r.id === 'clamping-unsupported')!.message).to.equal('Bench saw has no magnet.');
+  });
+
+  it('runChecks does not read a feed ceiling from an inherited key ("constructor")', () => {
+    const results = runChecks(content({ scope: { group: 'constructor' as never } }), ctx({ material: null }));
+    expect(results.map((r) => r.id)).to.not.include('feed-above-ceiling');
+  });
+
+  it('computeRecipe treats an unknown motion or shape as not chosen: no profile, no time, no NaN', () => {
+    for (const over of [{ cutting: { cutMotion: 'band-saw' as never } }, { scope: { shape: 'hexagon' as never } }]) {
+      const r = computeRecipe(content(over), ctx());
+      expect(r.profile).to.equal(null);
+      expect(r.cutTimeS).to.equal(null);
+      expect(r.capacityFits).to.equal(null);
+      expect(r.peripheralSpeedMs).to.be.a('number');
+    }
+  });
+});
