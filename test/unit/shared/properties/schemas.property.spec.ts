@@ -37,10 +37,18 @@ describe('shared/schemas (properties)', () => {
   });
 
   for (const [name, schema] of SCHEMAS) {
-    it(`${name}: safeParse never throws on any value, and a refusal names the field and says why`, () => {
+    // parse() documents one throw: a ZodError for a refused value; nothing else may escape.
+    it(`${name}: safeParse never throws on any value, parse throws only a ZodError, and a refusal gives a field path and a message in words`, () => {
       fc.assert(
         fc.property(fc.oneof(anyValue, outsideValue, shapedLike(schema)), (v) => {
           const r = schema.safeParse(v);
+          try {
+            schema.parse(v);
+            expect(r.success).to.equal(true);
+          } catch (e) {
+            expect(e).to.be.instanceOf(z.ZodError);
+            expect(r.success).to.equal(false);
+          }
           if (r.success) return;
           expect(r.error.issues.length).to.be.above(0);
           for (const e of toFieldErrors(r.error)) {
