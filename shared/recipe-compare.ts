@@ -40,7 +40,22 @@ const COOLANT_LABELS: Record<CoolantType, string> = { 'water-soluble': 'Water-so
 type Formatter = (value: unknown, names: StockNames, pref: UnitPreference) => string;
 
 const yesNo: Formatter = (v) => (v === true ? 'Yes' : v === false ? 'No' : NO_VALUE);
-const plain: Formatter = (v) => (v === null || v === undefined || v === '' ? NO_VALUE : String(v));
+/**
+ * Any stored value as text without calling its own toString: a corrupted row may hold an
+ * object whose "toString" key is not a function, and String() would throw on it.
+ */
+function textOf(v: unknown): string {
+  if (v === null || v === undefined) return '';
+  if (typeof v === 'string') return v;
+  if (typeof v === 'number' || typeof v === 'boolean' || typeof v === 'bigint') return String(v);
+  try {
+    return JSON.stringify(v) ?? '';
+  } catch {
+    return '(unreadable value)';
+  }
+}
+
+const plain: Formatter = (v) => (v === null || v === undefined || v === '' ? NO_VALUE : textOf(v));
 const quantity =
   (kind: QuantityKind): Formatter =>
   (v, _names, pref) =>
@@ -52,7 +67,7 @@ const withUnit =
 const label =
   <K extends string>(labels: Record<K, string>, none = NO_VALUE): Formatter =>
   (v) =>
-    v === null || v === undefined ? none : (labels[v as K] ?? String(v));
+    v === null || v === undefined ? none : typeof v === 'string' ? (labels[v as K] ?? v) : textOf(v);
 const stock =
   (pick: (n: StockNames) => ReadonlyMap<number, string>, none = NO_VALUE): Formatter =>
   (v, names) =>
@@ -79,7 +94,7 @@ export const PARAMETER_FIELDS: readonly ParameterField[] = [
     label: 'Hardness window',
     format: (v) => {
       const w = v as { min: number; max: number; scale: string } | null;
-      return w ? `${w.min}–${w.max} ${w.scale}` : 'Not limited';
+      return w ? `${textOf(w.min)}–${textOf(w.max)} ${textOf(w.scale)}` : 'Not limited';
     },
   },
   { path: 'scope.shape', label: 'Shape', format: label(SHAPE_LABELS) },
@@ -174,8 +189,8 @@ export function compareVersions(a: ComparedVersion, b: ComparedVersion, names: S
 
   const texts: TextChange[] = [];
   for (const field of TEXT_FIELDS) {
-    const before = String((field.path === 'title' ? a.title : at(a.content, field.path)) ?? '');
-    const after = String((field.path === 'title' ? b.title : at(b.content, field.path)) ?? '');
+    const before = textOf(field.path === 'title' ? a.title : at(a.content, field.path));
+    const after = textOf(field.path === 'title' ? b.title : at(b.content, field.path));
     if (before === after) continue;
     texts.push({ path: field.path, label: field.label, parts: diffText(before, after) });
   }

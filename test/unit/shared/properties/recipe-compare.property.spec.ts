@@ -127,13 +127,10 @@ describe('shared/recipe-compare (properties)', () => {
     );
   });
 
-  // SKIPPED (shared/recipe-compare.ts is the lead's file): a leaf that is an object with its own
-  // "toString" or "valueOf" key that is not a function, e.g. instructionsMd = {"toString": null}
-  // or scope.hardness = {"min": 1, "max": {"toString": null}, "scale": "HV"}, makes compareVersions
-  // throw "TypeError: Cannot convert object to primitive value" (String(...) on the text fields,
-  // the `plain` formatter, the hardness window's template string). Stored content passed
-  // recipeContent on save, so only a hand-edited or corrupted row could hold such a leaf.
-  it.skip('never throws on stored content whose leaves are JSON objects with a "toString" or "valueOf" key', () => {
+  // A leaf that is an object with its own "toString" or "valueOf" key that is not a function
+  // (e.g. instructionsMd = {"toString": null}) once made compareVersions throw "Cannot
+  // convert object to primitive value"; only a hand-edited or corrupted row could hold one.
+  it('never throws on stored content whose leaves are JSON objects with a "toString" or "valueOf" key', () => {
     fc.assert(
       fc.property(halfTypedContent, halfTypedContent, pref, (a, b, p) => {
         compareVersions(version(1, a), version(2, b), names, p);
