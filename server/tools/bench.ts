@@ -26,7 +26,7 @@ import { runExplainCheck } from './bench/explain-check';
 import { chainFigures, loadFigures } from './bench/figures';
 import { freshComparisonFigure } from './bench/fresh-comparison';
 import { signIn, type HttpSession } from './bench/http-session';
-import { machineInfo, printExplain, printTable, writeResults, type Figure } from './bench/report';
+import { machineInfo, printExplain, printTable, resultOf, writeResults, type Figure } from './bench/report';
 import { readSamples } from './bench/samples';
 import { startBenchServer, type BenchServer } from './bench/server-process';
 
@@ -138,7 +138,7 @@ async function main(): Promise<number> {
   writeResults(RESULTS_FILE, {
     machine: machineInfo(),
     run: { scale, durationS, seeded, dataset, bigRecipe: { recipeId: big.recipeId, textBytes: big.textBytes } },
-    figures: figures.map(({ name, absolute, ratio, target, pass, values }) => ({ name, absolute, ratio, target, result: pass === null ? 'baseline' : pass ? 'PASS' : 'MISS', ...values })),
+    figures: figures.map((f) => ({ name: f.name, absolute: f.absolute, ratio: f.ratio, target: f.target, result: resultOf(f), ...f.values })),
     explain: explained.map((e) => ({ route: e.route, sql: e.sql, plan: e.plan, fullScans: e.fullScans, smallScans: e.smallScans })),
     summary: { misses: misses.map((f) => f.name), fullScans: scans.map((e) => `${e.route}: ${e.fullScans.join(', ')}`) },
   });

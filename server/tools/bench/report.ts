@@ -11,8 +11,10 @@ export interface Figure {
   /** The ratio to the baseline of the same run, in words, e.g. "0.61× baseline req/s". */
   ratio: string;
   target: string;
-  /** null for a baseline (nothing to meet). */
+  /** null for a baseline or a figure shown for information (nothing to meet). */
   pass: boolean | null;
+  /** A figure for information beside the targets, e.g. latency without queueing. */
+  info?: boolean;
   /** Every number, for results.json. */
   values: Record<string, number>;
 }
@@ -31,11 +33,16 @@ export function machineInfo() {
   };
 }
 
+/** BASELINE, INFO, PASS or MISS as the table and results.json show it. */
+export function resultOf(f: Pick<Figure, 'pass' | 'info'>): string {
+  return f.pass === null ? (f.info ? 'info' : 'baseline') : f.pass ? 'PASS' : 'MISS';
+}
+
 const pad = (s: string, n: number) => (s.length >= n ? s : s + ' '.repeat(n - s.length));
 
 export function printTable(figures: readonly Figure[]): void {
   const head = ['figure', 'absolute', 'ratio', 'target', 'result'];
-  const rows = figures.map((f) => [f.name, f.absolute, f.ratio, f.target, f.pass === null ? 'baseline' : f.pass ? 'PASS' : 'MISS']);
+  const rows = figures.map((f) => [f.name, f.absolute, f.ratio, f.target, resultOf(f)]);
   const widths = head.map((h, i) => Math.max(h.length, ...rows.map((r) => r[i]!.length)));
   const line = (cells: string[]) => cells.map((c, i) => pad(c, widths[i]!)).join(' │ ');
   console.log(line(head));
