@@ -82,8 +82,29 @@ async function sendOne(db: Knex, transport: Transporter, row: MailRow, from: str
     result.failed += 1;
     return;
   }
-  await markMailSent(db, row.id, new Date(), messageId);
+  await markSentWhileClaimed(db, row.id, messageId);
   result.sent += 1;
+}
+
+/** How long a "sent" mark is tried again (MariaDB away): well inside the claim. */
+export const MARK_SENT_RETRY_MS = CLAIM_MS / 2;
+
+/**
+ * The mail is out: its mark must land while the claim holds, or the row is sent a second
+ * time once the claim runs out. So the mark rides out a database outage (found by
+ * `npm run test:soak`: MariaDB killed between the SMTP answer and the mark).
+ */
+async function markSentWhileClaimed(db: Knex, id: number, messageId: string): Promise<void> {
+  const until = Date.now() + MARK_SENT_RETRY_MS;
+  for (;;) {
+    try {
+      await markMailSent(db, id, new Date(), messageId);
+      return;
+    } catch (err) {
+      if (Date.now() > until) throw err;
+      await new Promise((r) => setTimeout(r, 1000));
+    }
+  }
 }
 
 /**

@@ -9,13 +9,30 @@ const CURRENT = { N: 2 ** 15, r: 8, p: 1 };
 const SALT_BYTES = 16;
 const KEY_BYTES = 32;
 
-function scryptAsync(password: string, salt: Buffer, params: typeof CURRENT): Promise<Buffer> {
+/**
+ * Hashes running at once. scrypt runs on libuv's thread pool (4 threads unless
+ * UV_THREADPOOL_SIZE says otherwise), which the gzip of every compressed answer shares: a
+ * burst of sign-ins queued there held every other answer back for seconds (the soak run's
+ * shift start, 200 sign-ins at once). Further hashes wait their turn here instead.
+ */
+const PARALLEL_HASHES = 2;
+let hashing = 0;
+const waitingToHash: (() => void)[] = [];
+
+async function scryptAsync(password: string, salt: Buffer, params: typeof CURRENT): Promise<Buffer> {
   // scrypt needs 128·N·r bytes; the default maxmem (32 MiB) is exactly that at N=2^15, r=8
   // and is refused, so allow twice the requirement.
   const options: ScryptOptions = { ...params, maxmem: 256 * params.N * params.r };
-  return new Promise((resolve, reject) =>
-    scrypt(password, salt, KEY_BYTES, options, (err, key) => (err ? reject(err) : resolve(key))),
-  );
+  // A finished hash hands its place straight to the next one waiting.
+  if (hashing < PARALLEL_HASHES) hashing += 1;
+  else await new Promise<void>((resolve) => waitingToHash.push(resolve));
+  try {
+    return await new Promise((resolve, reject) => scrypt(password, salt, KEY_BYTES, options, (err, key) => (err ? reject(err) : resolve(key))));
+  } finally {
+    const next = waitingToHash.shift();
+    if (next) next();
+    else hashing -= 1;
+  }
 }
 
 /** Unicode passwords typed on different keyboards may arrive composed or decomposed. */
