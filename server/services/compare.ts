@@ -29,17 +29,20 @@ async function namesOf(db: Knex, table: StockTable, ids: (number | null)[]): Pro
 }
 
 export async function compareRecipeVersions(db: Knex, recipeId: number, from: number, to: number, pref: UnitPreference, scope: VersionScope = 'all'): Promise<RecipeComparison> {
-  const [a, b] =
-    scope === 'all'
-      ? [await versionOrNotFound(db, recipeId, from), await versionOrNotFound(db, recipeId, to)]
-      : [await visibleVersion(db, scope, recipeId, from), await visibleVersion(db, scope, recipeId, to)];
+  const read = (n: number) => (scope === 'all' ? versionOrNotFound(db, recipeId, n) : visibleVersion(db, scope, recipeId, n));
+  // Both sides at once; when both are missing, the "from" side's answer is the one given.
+  const [sideA, sideB] = await Promise.allSettled([read(from), read(to)]);
+  if (sideA.status === 'rejected') throw sideA.reason;
+  if (sideB.status === 'rejected') throw sideB.reason;
+  const [a, b] = [sideA.value, sideB.value];
   const contentA = fromJsonColumn<RecipeContent>(a.content_json);
   const contentB = fromJsonColumn<RecipeContent>(b.content_json);
-  const names: StockNames = {
-    materials: await namesOf(db, 'materials', [contentA.scope.materialId, contentB.scope.materialId]),
-    wheels: await namesOf(db, 'wheels', [contentA.cutting.wheelId, contentB.cutting.wheelId]),
-    machines: await namesOf(db, 'machines', [contentA.cutting.machineId, contentB.cutting.machineId]),
-  };
+  const [materials, wheels, machines] = await Promise.all([
+    namesOf(db, 'materials', [contentA.scope.materialId, contentB.scope.materialId]),
+    namesOf(db, 'wheels', [contentA.cutting.wheelId, contentB.cutting.wheelId]),
+    namesOf(db, 'machines', [contentA.cutting.machineId, contentB.cutting.machineId]),
+  ]);
+  const names: StockNames = { materials, wheels, machines };
   const comparison = compareVersions(
     { version: a.version, status: a.status, title: a.title, content: contentA },
     { version: b.version, status: b.status, title: b.title, content: contentB },
