@@ -151,13 +151,15 @@ async function main(): Promise<number> {
     console.log(`[soak] ${(clock() / 1000).toFixed(1)} s: mail service down`);
     faults.mail = await mailOutage(mail!, clock, Math.max(3, Math.round(options.seconds * 0.2)));
     console.log(`[soak] ${(clock() / 1000).toFixed(1)} s: mail service back`);
+    // The app crash first, so that the database outage happens in the restarted process:
+    // outbox rows still held at the end then say by their claim time which fault left them.
     await at(0.5);
+    faults.app = await appCrash(app!, ctx.approvesInFlight, clock);
+    console.log(`[soak] ${(faults.app.killMs / 1000).toFixed(1)} s: app SIGKILLed (${faults.app.approvesInFlight} approvals on their way); listening again at ${(faults.app.upMs / 1000).toFixed(1)} s`);
+    await at(0.7);
     console.log(`[soak] ${(clock() / 1000).toFixed(1)} s: MariaDB killed`);
     faults.database = await databaseOutage(mariadb!, app!, probe, clock, Math.max(3, Math.round(options.seconds * 0.08)));
     console.log(`[soak] ${(faults.database.upMs / 1000).toFixed(1)} s: MariaDB back; app answering again at ${((faults.database.recoveredMs ?? NaN) / 1000).toFixed(1)} s`);
-    await at(0.75);
-    faults.app = await appCrash(app!, ctx.approvesInFlight, clock);
-    console.log(`[soak] ${(faults.app.killMs / 1000).toFixed(1)} s: app SIGKILLed (${faults.app.approvesInFlight} approvals on their way); listening again at ${(faults.app.upMs / 1000).toFixed(1)} s`);
   };
 
   const [people, script] = await Promise.allSettled([Promise.all(lab.people.map((p) => runPerson(p, ctx))), options.faults ? faultScript() : Promise.resolve()]);

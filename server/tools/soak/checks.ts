@@ -234,10 +234,11 @@ interface OutboxRow {
  */
 export function claimedBeforeFault(claimedUntil: Date, faults: FaultLog, t0: number): 'app' | 'database' | null {
   const claimedAt = claimedUntil.getTime() - CLAIM_MS - t0;
-  // A batch is sent within a second or two of its claim; ten seconds leaves room for a slow machine.
-  const within = (from: number | undefined, to: number | undefined) => from !== undefined && to !== undefined && claimedAt >= from - 10_000 && claimedAt <= to + 2000;
-  if (within(faults.app?.killMs, faults.app?.killMs)) return 'app';
-  if (within(faults.database?.downMs, faults.database?.recoveredMs ?? undefined)) return 'database';
+  // The killed process claimed before its successor started; the outage comes later, in the successor.
+  if (faults.app && claimedAt <= faults.app.upMs) return 'app';
+  // A batch is sent within seconds of its claim; ten seconds leaves room for a loaded machine.
+  const db = faults.database;
+  if (db && claimedAt >= db.downMs - 10_000 && claimedAt <= (db.recoveredMs ?? Infinity) + 2000) return 'database';
   return null;
 }
 

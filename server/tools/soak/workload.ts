@@ -52,17 +52,21 @@ const versionPath = (v: VersionRef) => `/api/recipes/${v.recipeId}/versions/${v.
 /** Runs one person until the end of the run. */
 export async function runPerson(person: SoakPerson, ctx: WorkloadContext): Promise<void> {
   const client = new SoakClient(ctx.baseUrl, ctx.record, ctx.clock);
-  // Start spread over the first seconds, as people arrive.
-  await sleep(Math.random() * Math.min(5000, ctx.thinkMs * 3));
+  // People arrive over the first half minute (a quarter of a short run), as at a shift start.
+  await sleep(Math.random() * Math.min(30_000, ctx.endMs / 4));
   let signedIn = false;
+  let signInFailures = 0;
   const state: PersonState = { draft: null, saves: 0, specimen: 0 };
   while (ctx.clock() < ctx.endMs) {
     if (!signedIn) {
       signedIn = await client.signIn(person.username, person.password);
       if (!signedIn) {
-        await sleep(1000);
+        // Back off as a person would (1, 2, 4 … 16 s): retrying at once only queues more password hashes.
+        signInFailures += 1;
+        await sleep(Math.min(16_000, 1000 * 2 ** (signInFailures - 1)) * (0.5 + Math.random()));
         continue;
       }
+      signInFailures = 0;
     }
     let last: Answer<unknown> | null = null;
     const tracked = { track: (a: Answer<unknown>) => (last = a) };
