@@ -8,10 +8,13 @@ import { BASE_URL } from './browser';
 export interface ApiSession {
   get<T>(path: string): Promise<T>;
   post<T>(path: string, body?: unknown): Promise<T>;
+  put<T>(path: string, body: unknown): Promise<T>;
+  /** A multipart upload: text fields and one file in the field "file". */
+  upload<T>(path: string, fields: Record<string, string>, file: { name: string; mimeType: string; buffer: Buffer }): Promise<T>;
   close(): Promise<void>;
 }
 
-async function json<T>(context: APIRequestContext, method: 'get' | 'post', path: string, csrf: string, body?: unknown): Promise<T> {
+async function json<T>(context: APIRequestContext, method: 'get' | 'post' | 'put', path: string, csrf: string, body?: unknown): Promise<T> {
   const res = await context.fetch(`${BASE_URL}${path}`, {
     method: method.toUpperCase(),
     headers: { 'x-csrf-token': csrf, ...(body === undefined ? {} : { 'content-type': 'application/json' }) },
@@ -29,6 +32,13 @@ export async function apiSignIn(username: string, password: string): Promise<Api
   return {
     get: (path) => json(context, 'get', path, csrfToken),
     post: (path, body) => json(context, 'post', path, csrfToken, body ?? {}),
+    put: (path, body) => json(context, 'put', path, csrfToken, body),
+    upload: async (path, fields, file) => {
+      const res = await context.fetch(`${BASE_URL}${path}`, { method: 'POST', headers: { 'x-csrf-token': csrfToken }, multipart: { ...fields, file } });
+      const text = await res.text();
+      if (!res.ok()) throw new Error(`POST ${path} → ${res.status()}: ${text.slice(0, 500)}`);
+      return JSON.parse(text) as never;
+    },
     close: () => context.dispose(),
   };
 }
