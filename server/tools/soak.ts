@@ -170,7 +170,10 @@ async function main(): Promise<number> {
   await waitForOutbox(db, faults, t0, 180_000);
   await app.kill('SIGTERM');
 
-  printSummary(records, seconds);
+  const calm = (r: RequestRecord) =>
+    !(faults.app && r.startMs <= faults.app.upMs + 5000 && r.endMs >= faults.app.killMs) &&
+    !(faults.database && r.startMs <= (faults.database.recoveredMs ?? Infinity) + 5000 && r.endMs >= faults.database.downMs);
+  printSummary(records, seconds, calm);
   const l = ctx.ledger;
   console.log(
     `2xx writes: ${l.created.length} drafts created, ${l.saved.length} saves, ${l.submitted.length} submits, ${l.approved.length} approvals, ` +

@@ -74,6 +74,8 @@ export class SoakClient {
       if (!res.ok) code = (parsed as { code?: string } | null)?.code ?? null;
       return { status, body: parsed, ok: res.ok };
     } catch (err) {
+      // No answer, or one cut off inside its body (the app killed while answering): nothing usable came.
+      status = 0;
       code = (err as Error).name === 'TimeoutError' ? 'TIMEOUT' : 'NETWORK';
       const cause = (err as { cause?: { code?: string; message?: string } }).cause;
       error = `${path}: ${cause?.code ?? ''} ${cause?.message ?? (err as Error).message}`.slice(0, 200);
