@@ -9,8 +9,9 @@
  * content security policy switched OFF (bypassCSP), so only the app's own escaping and
  * sanitizing stand between the text and the page. Nothing may run (no xssHit call, no
  * dialog, no request to another host), no live handler, script, frame or script link may
- * be in the page, and plain-text fields must read back exactly as typed. The bench sheet
- * PDF must carry them as plain text and no PDF action.
+ * be in the page, and plain-text fields must read back exactly as typed. The mails the
+ * scene sends are rendered the same way, and the bench sheet PDF must carry the vectors
+ * as plain text and no PDF action.
  */
 import { expect } from 'chai';
 import sharp from 'sharp';
@@ -22,6 +23,7 @@ import { DEMO_ACCOUNTS } from '../../seeds/data/demo-accounts';
 import { type ApiSession, apiSignIn } from './support/api';
 import { settle } from './support/axe';
 import { BASE_URL, launch } from './support/browser';
+import { waitForMail } from './support/mailbox';
 import { readPdfText } from './support/pdf-text';
 import { signIn } from './support/steps';
 import { VECTORS, allVectors, compact, vector } from './support/xss-vectors';
@@ -344,6 +346,22 @@ describe('hostile text in chromium and on the bench sheet (OWASP XSS vectors)', 
     const code = /\b[0-9A-HJKMNP-TV-Z]{4}-[0-9A-HJKMNP-TV-Z]{4}\b/.exec(await readPdfText(await sheet.body()))?.[0];
     expect(code, 'check code on the sheet').to.be.a('string');
     await open('check a sheet', `/check/${code}`, scene.number, [TEXT.title]);
+  });
+
+  it('the mails the scene caused: HTML part rendered in chromium runs nothing, text reads as typed', async function () {
+    if (!process.env['E2E_MAIL_DIR']) this.skip();
+    await as(author);
+    for (const [to, kind] of [
+      [approver.email, /Review requested/],
+      [author.email, /Returned/],
+      [author.email, /Cut flagged/],
+    ] as const) {
+      const mail = await waitForMail(to, (m) => m.subject.includes(M) && kind.test(m.subject));
+      expect(mail.html, `HTML part of "${mail.subject}"`).to.be.a('string');
+      await page.setContent(mail.html!);
+      await expectInert(`mail "${mail.subject}"`, [TEXT.title]);
+      expect(compact(mail.text)).to.contain(compact(TEXT.title));
+    }
   });
 
   it('the author sees the hostile operator on the acknowledgements and cuts tabs', async () => {
