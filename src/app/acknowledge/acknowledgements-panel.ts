@@ -36,7 +36,7 @@ type Load = { state: 'loading' } | { state: 'failed' } | { state: 'ready'; list:
         </p>
         <div class="kb-columns">
           <section aria-labelledby="kb-ack-pending" data-testid="pending">
-            <h3 id="kb-ack-pending"><mat-icon aria-hidden="true">hourglass_empty</mat-icon>Not yet ({{ a.pending.length }})</h3>
+            <h2 id="kb-ack-pending"><mat-icon aria-hidden="true">hourglass_empty</mat-icon>Not yet ({{ a.pending.length }})</h2>
             @if (a.pending.length) {
               <ul>
                 @for (p of a.pending; track p.userId) {
@@ -48,7 +48,7 @@ type Load = { state: 'loading' } | { state: 'failed' } | { state: 'ready'; list:
             }
           </section>
           <section aria-labelledby="kb-ack-done" data-testid="acknowledged">
-            <h3 id="kb-ack-done"><mat-icon aria-hidden="true">task_alt</mat-icon>Acknowledged ({{ a.acknowledged.length }})</h3>
+            <h2 id="kb-ack-done"><mat-icon aria-hidden="true">task_alt</mat-icon>Acknowledged ({{ a.acknowledged.length }})</h2>
             @if (a.acknowledged.length) {
               <ul>
                 @for (x of a.acknowledged; track x.userId) {
@@ -82,7 +82,7 @@ type Load = { state: 'loading' } | { state: 'failed' } | { state: 'ready'; list:
       grid-template-columns: repeat(auto-fill, minmax(280px, 1fr));
       gap: 16px;
     }
-    h3 {
+    h2 {
       display: flex;
       align-items: center;
       gap: 6px;

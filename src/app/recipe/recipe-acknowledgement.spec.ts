@@ -205,7 +205,7 @@ describe('RecipePage acknowledgements', () => {
       await harness.fixture.whenStable();
 
       const pending = root().querySelector('[data-testid="pending"]')!;
-      expect(words(pending.querySelector('h3'))).toContain('Not yet (2)');
+      expect(words(pending.querySelector('h2'))).toContain('Not yet (2)');
       expect(Array.from(pending.querySelectorAll('li')).map(words)).toEqual(['Ines Duarte', 'Piet de Vries']);
       const done = root().querySelector('[data-testid="acknowledged"]')!;
       expect(Array.from(done.querySelectorAll('li')).map(words)).toEqual(['Kofi Mensah 1 Dec 2026, 09:15 UTC']);

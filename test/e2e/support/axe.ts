@@ -24,8 +24,13 @@ export async function settle(page: Page): Promise<void> {
   await page.waitForFunction(() => document.querySelector('mat-progress-bar, mat-spinner, mat-progress-spinner') === null, undefined, { timeout: 15_000 }).catch(() => {
     /* a screen may keep an indicator on purpose; axe still runs */
   });
-  // Material's ripples and enter animations end within a frame or two.
-  await page.waitForTimeout(150);
+  // Colours are measured as painted: let enter animations and transitions (an error message
+  // fading in, a dialog growing) finish first, or axe sees a half-faded colour. Endless ones
+  // (progress bars) are left alone.
+  await page.evaluate(async () => {
+    const finite = document.getAnimations().filter((a) => Number.isFinite(Number(a.effect?.getComputedTiming().endTime)));
+    await Promise.race([Promise.all(finite.map((a) => a.finished.catch(() => undefined))), new Promise((r) => setTimeout(r, 3000))]);
+  });
 }
 
 /** Runs axe on the page (or inside `include`) and prints every violation with its targets. */
