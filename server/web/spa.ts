@@ -39,7 +39,9 @@ export function spa(distDir: string): Router {
       return;
     }
     // index.html names the hashed bundles: always revalidate it.
-    res.sendFile(index, { headers: { 'Cache-Control': 'no-cache' } });
+    // dotfiles 'allow': the build may sit under a dot folder (KERFBOOK_DIST=.data/…), which
+    // send() would otherwise refuse, turning every page into a 500.
+    res.sendFile(index, { headers: { 'Cache-Control': 'no-cache' }, dotfiles: 'allow' });
   });
   return router;
 }

@@ -42,7 +42,7 @@ describe('Delivery of the web app: compression and caching', () => {
       const index = await request(built.app).get('/library').set('Accept-Encoding', 'gzip').expect(200);
       expect(index.headers['cache-control']).to.equal('no-cache');
     } finally {
-      built.close();
+      await built.close();
     }
   });
 
@@ -54,7 +54,7 @@ describe('Delivery of the web app: compression and caching', () => {
       expect(res.text).to.have.length(50000);
       expect(res.headers['cache-control']).to.equal('public, max-age=31536000, immutable');
     } finally {
-      built.close();
+      await built.close();
     }
   });
 
@@ -64,5 +64,20 @@ describe('Delivery of the web app: compression and caching', () => {
     expect(isContentHashed('/x/styles-X4TIJKXE.css')).to.equal(true);
     expect(isContentHashed('/x/favicon.svg')).to.equal(false);
     expect(isContentHashed('/x/index.html')).to.equal(false);
+  });
+
+  it('serves the app from a build inside a dot folder (KERFBOOK_DIST=.data/…)', async () => {
+    const hidden = path.join(dist, '.hidden-build');
+    fs.mkdirSync(hidden, { recursive: true });
+    fs.writeFileSync(path.join(hidden, 'index.html'), '<!doctype html><title>Kerfbook hidden</title>');
+    fs.writeFileSync(path.join(hidden, 'chunk-ABCD2345.js'), 'export const b = 1;\n');
+    const built = await buildTestApp(ctx.db, { config: { distDir: hidden } });
+    try {
+      const page = await request(built.app).get('/library').expect(200);
+      expect(page.text).to.contain('Kerfbook hidden');
+      expect((await request(built.app).get('/chunk-ABCD2345.js').expect(200)).text).to.equal('export const b = 1;\n');
+    } finally {
+      await built.close();
+    }
   });
 });
