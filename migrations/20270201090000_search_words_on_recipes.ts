@@ -71,8 +71,9 @@ export async function up(knex: Knex): Promise<void> {
       JOIN recipe_versions v ON v.id = r.current_version_id
       LEFT JOIN materials m ON m.id = v.material_id
     SET r.current_search = ${words(`CONCAT_WS(' ', r.number, v.title, m.name, m.designation)`)}`);
-  // Every word is indexed, however common ("in", "for"): a search for a word must find it.
-  // The session setting applies to indexes built on this connection (one per migration).
+  // Every word is indexed, however common ("in", "for"). The session setting covers this
+  // build only; later rebuilds (TRUNCATE, a restore) follow the server's, and
+  // server/data/search-words.ts reads a server's stopwords by LIKE.
   await knex.raw('SET SESSION innodb_ft_enable_stopword = OFF');
   await knex.raw('CREATE FULLTEXT INDEX recipes_lib_search ON recipes (lib_search)');
   await knex.raw('CREATE FULLTEXT INDEX recipes_current_search ON recipes (current_search)');

@@ -92,6 +92,9 @@ export async function start(db: LocalMariadb): Promise<void> {
     '--innodb-log-file-size=16M',
     // Index every word of the library's search text, even "KB" of "KB-0012" (default 3).
     '--innodb-ft-min-token-size=1',
+    // …and common words ("in", "for"): the default stopword list would leave them out of
+    // every index rebuild (TRUNCATE, a restore), and the search would read them by LIKE.
+    '--innodb-ft-enable-stopword=0',
   ];
   const child = spawn(bin('mariadbd'), args, { detached: true, stdio: 'ignore' });
   child.unref();

@@ -6,7 +6,7 @@
 import { expect } from 'chai';
 import { CSRF_HEADER } from '../../../shared/api-types';
 import type { RecipeVersionDto } from '../../../shared/recipe-types';
-import { booleanQuery, searchWords, wordsCondition, wordStartPattern } from '../../../server/data/search-words';
+import { booleanQuery, searchWords, wordsCondition, wordStartPattern, type IndexedWords } from '../../../server/data/search-words';
 import { apiTestContext } from '../support/hooks';
 import { recipesWithStaleSearchWords } from '../support/library-columns';
 import { createStockSet, type StockSet } from '../support/stock';
@@ -100,12 +100,20 @@ describe('Library text search', () => {
   });
 
   it('finds the same by LIKE where the index holds no such short or long words, or is not used', async () => {
-    const search = async (words: string[], sizes: { min: number; max: number }) => {
+    const search = async (words: string[], sizes: IndexedWords) => {
       const query = ctx.db('recipes as r').select('r.lib_title as title').orderBy('r.lib_title');
       wordsCondition('r.lib_search', words, sizes)(query);
       return ((await query) as { title: string }[]).map((r) => r.title);
     };
-    for (const sizes of [{ min: 1, max: 84 }, { min: 50, max: 84 }, { min: 1, max: 2 }, { min: Infinity, max: 0 }]) {
+    const none: string[] = [];
+    for (const sizes of [
+      { min: 1, max: 84, stopwords: none },
+      { min: 50, max: 84, stopwords: none },
+      { min: 1, max: 2, stopwords: none },
+      { min: Infinity, max: 0, stopwords: none },
+      // Stopwords the index left out, and a word that starts one ("pun" of "punch").
+      { min: 1, max: 84, stopwords: ['thick', 'wall', 'punch'] },
+    ]) {
       expect(await search(['thick', 'wall'], sizes), JSON.stringify(sizes)).to.deep.equal(['Thick-wall sleeve']);
       expect(await search(['cold', 'pun'], sizes), JSON.stringify(sizes)).to.deep.equal(['Cold-work punch']);
       expect(await search(['old'], sizes), JSON.stringify(sizes)).to.deep.equal([]);
@@ -133,5 +141,15 @@ describe('Library text search', () => {
     expect(booleanQuery(['kb', '0012'])).to.equal('+kb* +0012*');
     expect(wordStartPattern('kb')).to.equal('% kb%');
     expect(wordStartPattern('snake_case')).to.equal('% snake\\_case%');
+  });
+
+  it('finds common words, whether or not the server leaves stopwords out of its index', async () => {
+    // A server with stopwords on rebuilds the index without "with", "the"… on every TRUNCATE
+    // (each test file starts with one) or restore; ours has them off.
+    const plate = await createStockSet(ctx.db, { material: { name: 'Spring steel', designation: '1.8159', group: 'plain-low-alloy-steel', hardness: { value: 450, scale: 'HV' } } });
+    await createDraft(author, plate, { title: 'Plate with the burr side up', scope: { group: 'plain-low-alloy-steel', hardness: null } });
+    expect(await titles(author, 'with the')).to.deep.equal(['Plate with the burr side up']);
+    expect(await titles(author, 'th burr')).to.deep.equal(['Plate with the burr side up']);
+    expect(await titles(author, 'plate wit')).to.deep.equal(['Plate with the burr side up']);
   });
 });
