@@ -32,6 +32,7 @@ export async function freshComparisonFigure(db: Knex, bigRecipeId: number): Prom
     ratio: '—',
     target: '— (first opening of a pair)',
     pass: null,
+    info: true,
     values: { medianMs: Math.round(median * 10) / 10, slowestMs: Math.round(worst * 10) / 10, runs: RUNS },
   };
 }
