@@ -30,6 +30,9 @@ export interface LighthouseRun {
   lhr: Result;
 }
 
+const ATTEMPTS = 3;
+const RETRIED_ERRORS = new Set(['NO_NAVSTART', 'NO_TRACING_STARTED', 'PROTOCOL_TIMEOUT']);
+
 export async function runLighthouse(url: string, port: number, formFactor: FormFactor, withAccessibility: boolean): Promise<LighthouseRun> {
   const flags: Flags = {
     port,
@@ -38,10 +41,17 @@ export async function runLighthouse(url: string, port: number, formFactor: FormF
     onlyCategories: withAccessibility ? ['performance', 'accessibility'] : ['performance'],
     disableStorageReset: true,
   };
-  const result = await lighthouse(url, flags, formFactor === 'desktop' ? desktopConfig : undefined);
-  if (!result) throw new Error(`Lighthouse returned nothing for ${url}.`);
-  const lhr = result.lhr;
-  if (lhr.runtimeError) throw new Error(`Lighthouse could not load ${url}: ${lhr.runtimeError.message}`);
+  let lhr: Result | undefined;
+  for (let attempt = 1; ; attempt++) {
+    const result = await lighthouse(url, flags, formFactor === 'desktop' ? desktopConfig : undefined);
+    if (!result) throw new Error(`Lighthouse returned nothing for ${url}.`);
+    lhr = result.lhr;
+    const code = lhr.runtimeError?.code;
+    if (!code) break;
+    // Trace-recording hiccups ("Please run Lighthouse again") are Lighthouse's, not the page's.
+    if (!RETRIED_ERRORS.has(code) || attempt === ATTEMPTS) throw new Error(`Lighthouse could not load ${url}: ${lhr.runtimeError!.message}`);
+    console.log(`  (Lighthouse: ${code} on ${url}; running it again, ${attempt + 1} of ${ATTEMPTS})`);
+  }
   const score = (id: string) => {
     const s = lhr.categories[id]?.score;
     return s === null || s === undefined ? null : Math.round(s * 100);
