@@ -116,7 +116,8 @@ export async function stop(db: LocalMariadb): Promise<void> {
   for (let i = 0; i < 200 && pid && alive(pid); i++) await new Promise((r) => setTimeout(r, 50));
 }
 
-function alive(pid: number): boolean {
+/** Whether a process with this id is running (signal 0 only asks). */
+export function alive(pid: number): boolean {
   try {
     process.kill(pid, 0);
     return true;

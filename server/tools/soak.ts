@@ -11,7 +11,6 @@
  */
 import { randomBytes } from 'node:crypto';
 import fs from 'node:fs';
-import net from 'node:net';
 import path from 'node:path';
 import type { Knex } from 'knex';
 import { createDb } from '../data/db';
@@ -25,6 +24,7 @@ import { SoakClient, type RequestRecord } from './soak/soak-client';
 import { createSoakLab } from './soak/soak-people';
 import { printSummary } from './soak/summary';
 import { emptyLedger, runPerson, type WorkloadContext } from './soak/workload';
+import { freePort } from './free-port';
 
 interface Options {
   users: number;
@@ -49,17 +49,6 @@ function readOptions(argv: string[]): Options {
     else throw new Error(`Unknown option ${flag}. Use --users N --seconds S [--think-ms MS] [--no-faults].`);
   }
   return options;
-}
-
-function freePort(): Promise<number> {
-  return new Promise((resolve, reject) => {
-    const srv = net.createServer();
-    srv.once('error', reject);
-    srv.listen(0, '127.0.0.1', () => {
-      const { port } = srv.address() as net.AddressInfo;
-      srv.close(() => resolve(port));
-    });
-  });
 }
 
 /** The app's output of the last run (kept: the story behind a failed check). */

@@ -6,7 +6,6 @@
  */
 import { spawn } from 'node:child_process';
 import fs from 'node:fs';
-import net from 'node:net';
 import path from 'node:path';
 import { createDb } from '../data/db';
 import { migrate, seedDemoIfEmpty } from './db-setup';
@@ -14,6 +13,7 @@ import { ensureDebianPackage, ensureDatabase, initDataDir, localMariadb, start, 
 import { startMailCatcher } from './mail-catcher';
 import { BIN, DATA_DIR, ROOT } from './project-files';
 import { type Counts, mochaCounts, vitestCounts } from './suite-counts';
+import { freePort } from './free-port';
 
 const env = process.env;
 const results: { suite: string; counts: Counts }[] = [];
@@ -38,17 +38,6 @@ function record(suite: string, counts: Counts | null, code: number): void {
   const c = counts ?? { passed: 0, failed: 0, skipped: 0 };
   if (code !== 0 && c.failed === 0) c.failed = 1;
   results.push({ suite, counts: c });
-}
-
-function freePort(): Promise<number> {
-  return new Promise((resolve, reject) => {
-    const srv = net.createServer();
-    srv.once('error', reject);
-    srv.listen(0, '127.0.0.1', () => {
-      const { port } = srv.address() as net.AddressInfo;
-      srv.close(() => resolve(port));
-    });
-  });
 }
 
 async function waitForHealth(url: string, ms: number): Promise<void> {

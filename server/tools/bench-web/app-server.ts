@@ -7,7 +7,7 @@ import { spawn, type ChildProcess } from 'node:child_process';
 import { randomBytes } from 'node:crypto';
 import path from 'node:path';
 import { BIN, ROOT } from '../project-files';
-import { freePort } from './free-port';
+import { freePort } from '../free-port';
 
 export interface AppServer {
   url: string;

@@ -10,7 +10,7 @@ import path from 'node:path';
 import { chromium, type BrowserContext } from 'playwright-core';
 import type { DemoAccount } from '../../../seeds/data/demo-accounts';
 import { CHROMIUM_FLAGS } from '../chromium-flags';
-import { freePort } from './free-port';
+import { freePort } from '../free-port';
 
 export const CHROMIUM = process.env['CHROME_PATH'] ?? '/usr/bin/chromium';
 

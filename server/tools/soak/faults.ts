@@ -5,7 +5,7 @@
  * started) so that the checks can tell expected failures from real ones.
  */
 import fs from 'node:fs';
-import { start, type LocalMariadb } from '../local-mariadb';
+import { alive, start, type LocalMariadb } from '../local-mariadb';
 import { startMailCatcher, type CaughtMail, type MailCatcher } from '../mail-catcher';
 import type { SoakApp } from './soak-app';
 import { SoakClient } from './soak-client';
@@ -47,15 +47,6 @@ export interface FaultLog {
 }
 
 const sleep = (ms: number) => new Promise((r) => setTimeout(r, ms));
-
-function alive(pid: number): boolean {
-  try {
-    process.kill(pid, 0);
-    return true;
-  } catch {
-    return false;
-  }
-}
 
 /** Kills mariadbd outright (a crash, not a clean shutdown), keeps it down for `seconds`, starts it again. */
 export async function databaseOutage(mariadb: LocalMariadb, app: SoakApp, probe: SoakClient, clock: () => number, seconds: number): Promise<DatabaseOutage> {

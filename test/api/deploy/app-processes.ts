@@ -4,9 +4,10 @@
  * node process tsx runs underneath.
  */
 import { spawn, type ChildProcess } from 'node:child_process';
-import net from 'node:net';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
+import { freePort } from '../../../server/tools/free-port';
+export { freePort };
 
 const ROOT = fileURLToPath(new URL('../../../', import.meta.url));
 const TSX = path.join(ROOT, 'node_modules', '.bin', 'tsx');
@@ -21,18 +22,6 @@ export interface AppProcess {
   output(): string;
   /** SIGTERM (a clean stop), then SIGKILL after `graceMs`. Safe to call twice. */
   stop(graceMs?: number): Promise<void>;
-}
-
-/** A port nothing listens on right now (the OS picks it; closed again before use). */
-export function freePort(): Promise<number> {
-  return new Promise((resolve, reject) => {
-    const server = net.createServer();
-    server.once('error', reject);
-    server.listen(0, '127.0.0.1', () => {
-      const { port } = server.address() as net.AddressInfo;
-      server.close(() => resolve(port));
-    });
-  });
 }
 
 // Last resort when mocha exits without running `after` (e.g. killed by --exit mid-hook).
