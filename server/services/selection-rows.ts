@@ -32,7 +32,8 @@ export function toSelectionRow(row: SelectionRowRow): SelectionRow {
   };
 }
 
-function values(body: SelectionRowBody): SelectionRowValues {
+/** The table's columns for a validated body (also used by the large data set). */
+export function selectionRowValues(body: SelectionRowBody): SelectionRowValues {
   return {
     material_group: body.group,
     hardness_min: body.hardness?.min ?? null,
@@ -69,7 +70,7 @@ export async function createSelectionRow(db: Knex, actor: Actor, body: Selection
   return db.transaction(async (trx) => {
     await assertWheelUsable(trx, body.wheelId);
     const now = new Date();
-    const id = await insertSelectionRowRow(trx, values(body), now);
+    const id = await insertSelectionRowRow(trx, selectionRowValues(body), now);
     const created = await mustFind(trx, id);
     await recordAudit(trx, actor, { type: AUDIT_EVENTS.selectionRowCreated, entityType: 'selection_row', entityId: id, before: null, after: snapshot(created) }, now);
     return created;
@@ -81,7 +82,7 @@ export async function updateSelectionRow(db: Knex, actor: Actor, id: number, bod
     const before = await mustFind(trx, id, true);
     if (body.wheelId !== before.wheelId) await assertWheelUsable(trx, body.wheelId);
     const now = new Date();
-    await updateSelectionRowRow(trx, id, values(body), now);
+    await updateSelectionRowRow(trx, id, selectionRowValues(body), now);
     const after = await mustFind(trx, id);
     const changes = diff(snapshot(before), snapshot(after));
     if (Object.keys(changes.after).length > 0) {

@@ -12,7 +12,7 @@ import type { MachineRecord, MaterialRecord, WheelRecord } from '../../../shared
 import { matchesStarterWheel, STARTER_SELECTION } from '../../../shared/wheel-suggestion';
 import { DEMO_MACHINES, DEMO_MATERIALS, DEMO_WHEELS } from '../../../seeds/data/demo-stock';
 import { getLabLimits } from '../../services/lab-limits';
-import { toSelectionRow } from '../../services/selection-rows';
+import { selectionRowValues, toSelectionRow } from '../../services/selection-rows';
 import { MACHINES, MATERIALS, WHEELS, type MachineRow, type MaterialRow, type StockKind, type WheelRow } from '../../services/stock-records';
 import { AUDIT_EVENTS } from '../../services/audit';
 import type { SelectionRowRow } from '../../data/selection-rows';
@@ -103,12 +103,7 @@ export async function insertStock(db: Knex, at: number, actor: TrailActor, plan:
   if (selection.length > 0) {
     await db('selection_rows').insert(
       selection.map((body, i) => ({
-        material_group: body.group,
-        hardness_min: body.hardness?.min ?? null,
-        hardness_max: body.hardness?.max ?? null,
-        hardness_scale: body.hardness?.scale ?? null,
-        wheel_id: body.wheelId,
-        note: body.note,
+        ...selectionRowValues(body),
         created_at: new Date(selectionAt + i * MINUTE_MS),
         updated_at: new Date(selectionAt + i * MINUTE_MS),
       })),
