@@ -1,7 +1,7 @@
 import type { Knex } from 'knex';
 import type { RecipeVersionDto } from '../shared/recipe-types';
 import type { Actor } from '../server/services/actor';
-import { utcDay } from '../server/services/calendar-dates';
+import { utcDay } from '../shared/calendar-dates';
 import { saveDraft, versionDto } from '../server/services/recipes';
 import { approveVersion, createNextVersion, returnVersion, submitVersion, withdrawVersion } from '../server/services/workflow';
 import { DEMO_ACCOUNTS } from './data/demo-accounts';

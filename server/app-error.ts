@@ -1,4 +1,4 @@
-import type { FieldError } from '../shared/api-error';
+import type { ApiErrorCode, FieldError } from '../shared/api-error';
 
 /**
  * An error meant for the client: HTTP status, stable `code` and `{path, message}` list.
@@ -7,7 +7,7 @@ import type { FieldError } from '../shared/api-error';
 export class AppError extends Error {
   constructor(
     readonly status: number,
-    readonly code: string,
+    readonly code: ApiErrorCode,
     readonly errors: FieldError[],
     options?: { cause?: unknown; headers?: Record<string, string>; extra?: Record<string, unknown> },
   ) {

@@ -5,13 +5,38 @@ export interface FieldError {
   message: string;
 }
 
+/** Every `code` the server answers with; the client branches on these, never on messages. */
+export const API_ERROR_CODES = [
+  'VALIDATION_FAILED',
+  'INVALID_JSON',
+  'LINK_INVALID',
+  'BAD_CREDENTIALS',
+  'NOT_SIGNED_IN',
+  'CSRF_INVALID',
+  'FORBIDDEN',
+  'OWN_VERSION',
+  'PASSWORD_CHANGE_REQUIRED',
+  'NOT_FOUND',
+  'CONFLICT',
+  'BLOCKERS',
+  'ACKNOWLEDGE_FIRST',
+  'LINK_EXPIRED',
+  'LINK_USED',
+  'PAYLOAD_TOO_LARGE',
+  'UNSUPPORTED_MEDIA_TYPE',
+  'TOO_MANY_ATTEMPTS',
+  'INTERNAL',
+  'DATABASE_UNAVAILABLE',
+] as const;
+export type ApiErrorCode = (typeof API_ERROR_CODES)[number];
+
 /**
  * The error envelope every `/api` route answers with on failure:
  * `{ "errors": [{ "path": …, "message": … }], "code": … }`.
  */
 export interface ApiErrorBody {
   /** Stable machine-readable code, e.g. `VALIDATION_FAILED`, `FORBIDDEN`, `DATABASE_UNAVAILABLE`. */
-  code: string;
+  code: ApiErrorCode;
   errors: FieldError[];
 }
 
@@ -20,11 +45,11 @@ export function isApiErrorBody(value: unknown): value is ApiErrorBody {
     typeof value === 'object' &&
     value !== null &&
     Array.isArray((value as ApiErrorBody).errors) &&
-    typeof (value as ApiErrorBody).code === 'string'
+    (API_ERROR_CODES as readonly unknown[]).includes((value as ApiErrorBody).code)
   );
 }
 
 /** One line of plain text for a person, from an error envelope. */
-export function describeApiError(body: ApiErrorBody): string {
+export function describeApiError(body: Pick<ApiErrorBody, 'errors'>): string {
   return body.errors.map((e) => (e.path ? `${e.path}: ${e.message}` : e.message)).join('; ');
 }

@@ -341,6 +341,15 @@ export function runChecks(content: RecipeContent, ctx: RecipeContext, computed: 
   return results.map((r, i) => ({ r, i })).sort((a, b) => RANK[a.r.severity] - RANK[b.r.severity] || a.i - b.i).map(({ r }) => r);
 }
 
+/**
+ * From version 2 on, a version must say why it differs from the one before (change
+ * control: what changed and why is kept with the record). Checked on submit and live in
+ * the editor; a draft may be saved without it.
+ */
+export function changeReasonMissing(version: number, changeReason: string): string | null {
+  return version >= 2 && changeReason.trim() === '' ? 'Say why this version differs from the one before (required from version 2 on).' : null;
+}
+
 /** The most serious severity among results, or null when there are none. */
 export function worstSeverity(results: readonly CheckResult[]): CheckSeverity | null {
   let worst: CheckSeverity | null = null;

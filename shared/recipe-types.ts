@@ -229,7 +229,7 @@ export interface CutRecordDto {
   specimenId: string;
   partRef: string;
   quantity: number;
-  outcome: import('./schemas/operator').CutOutcome;
+  outcome: import('./vocabulary').CutOutcome;
   notes: string;
   operatorId: number;
   operatorName: string;

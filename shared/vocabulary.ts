@@ -112,8 +112,52 @@ export const SHAPE_LABELS: Record<Shape, string> = {
 export const CUT_ORIENTATIONS = ['transverse', 'longitudinal', 'other'] as const;
 export type CutOrientation = (typeof CUT_ORIENTATIONS)[number];
 
+export const CUT_ORIENTATION_LABELS: Record<CutOrientation, string> = {
+  transverse: 'Transverse',
+  longitudinal: 'Longitudinal',
+  other: 'Other',
+};
+
 export const COOLANT_TYPES = ['water-soluble', 'oil', 'dry'] as const;
 export type CoolantType = (typeof COOLANT_TYPES)[number];
 
+export const COOLANT_TYPE_LABELS: Record<CoolantType, string> = {
+  'water-soluble': 'Water-soluble coolant',
+  oil: 'Cutting oil',
+  dry: 'Dry (no coolant)',
+};
+
 export const RECIPE_STATUSES = ['draft', 'in-review', 'returned', 'approved', 'superseded', 'withdrawn'] as const;
 export type RecipeStatus = (typeof RECIPE_STATUSES)[number];
+
+/** A status as a short label (chips, tables, headings). */
+export const RECIPE_STATUS_LABELS: Record<RecipeStatus, string> = {
+  draft: 'Draft',
+  'in-review': 'In review',
+  returned: 'Returned for changes',
+  approved: 'Approved',
+  superseded: 'Superseded',
+  withdrawn: 'Withdrawn',
+};
+
+/** A status inside a sentence: "KB-0001 version 2 is {phrase}." */
+export const RECIPE_STATUS_PHRASES: Record<RecipeStatus, string> = {
+  draft: 'a draft',
+  'in-review': 'in review',
+  returned: 'returned to its author',
+  approved: 'approved',
+  superseded: 'superseded',
+  withdrawn: 'withdrawn',
+};
+
+/** What an operator reports about a cut; anything but `good` flags the recipe for its author. */
+export const CUT_OUTCOMES = ['good', 'burnt', 'deformed', 'wheel-failure', 'other'] as const;
+export type CutOutcome = (typeof CUT_OUTCOMES)[number];
+
+export const CUT_OUTCOME_LABELS: Record<CutOutcome, string> = {
+  good: 'Good',
+  burnt: 'Discoloured or burnt',
+  deformed: 'Deformed or burr',
+  'wheel-failure': 'Wheel broke or glazed',
+  other: 'Other',
+};

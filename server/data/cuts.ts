@@ -1,6 +1,6 @@
 /** Queries on cut_records: insert, find, the lists per version and per specimen, flags per recipe. */
 import type { Knex } from 'knex';
-import type { CutOutcome } from '../../shared/schemas/operator';
+import type { CutOutcome } from '../../shared/vocabulary';
 
 export interface CutRow {
   id: number;

@@ -6,7 +6,7 @@
 import type { Knex } from 'knex';
 import { advanceChainHead, insertAuditEvent, lockChainHead, recipeIdOfVersion } from '../data/audit-events';
 import type { Actor } from './actor';
-import { canonicalJson } from './canonical-json';
+import { canonicalJson } from '../../shared/canonical-json';
 import { chainedFields } from './trail';
 import { trailHash } from './trail-hash';
 

@@ -9,7 +9,7 @@ import type { Knex } from 'knex';
 import type { CheckCodeResult } from '../../shared/recipe-types';
 import { AppError } from '../app-error';
 import { findVersionByCheckCode, setCheckCode } from '../data/check-codes';
-import { dayOf } from './calendar-dates';
+import { dayOf } from '../../shared/calendar-dates';
 
 /** Crockford base32: digits and letters without I, L, O and U (the alphabet of CHECK_CODE_PATTERN). */
 export const CHECK_CODE_ALPHABET = '0123456789ABCDEFGHJKMNPQRSTVWXYZ';

@@ -6,7 +6,7 @@ import type { MaterialGroup, Shape } from '../../shared/vocabulary';
 import type { AttachmentMetaRow } from '../data/attachments';
 import type { RecipeSummaryRow, VersionWithNames } from '../data/recipes';
 import type { EditorRow, SignatureRow } from '../data/workflow';
-import { dayOf } from './calendar-dates';
+import { dayOf } from '../../shared/calendar-dates';
 import { toSignatureDto } from './signatures';
 
 /** The rows of other tables a version's workflow facts come from (for one or many versions). */

@@ -29,7 +29,7 @@ import { listEditorRows, listSignatureRows, touchEditor } from '../data/workflow
 import { myAcknowledgement, type Viewer } from './acknowledgements';
 import type { Actor } from './actor';
 import { AUDIT_EVENTS, recordAudit } from './audit';
-import { canonicalJson } from './canonical-json';
+import { canonicalJson } from '../../shared/canonical-json';
 import { changedKeys } from './changes';
 import { canSeeStatus, recipeNotFound, visibleVersion, type VersionScope } from './operator-visibility';
 import { loadRecipeContext } from './recipe-context-loader';

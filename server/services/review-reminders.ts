@@ -8,7 +8,7 @@
 import type { Knex } from 'knex';
 import { startRepeatingJob } from './repeating-job';
 import { insertReminder, isStillCurrent, reminderCandidates } from '../data/review-reminders';
-import { addDays, dayOf, utcDay } from './calendar-dates';
+import { addDays, dayOf, utcDay } from '../../shared/calendar-dates';
 import { DEFAULT_MAIL_SETTINGS, type MailSettings } from './mail/mail-settings';
 import { notifyReviewDue } from './mail/notifications';
 

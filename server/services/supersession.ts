@@ -24,7 +24,7 @@ import {
 } from '../data/workflow';
 import type { Actor } from './actor';
 import { AUDIT_EVENTS, recordAudit } from './audit';
-import { dayOf, utcDay } from './calendar-dates';
+import { dayOf, utcDay } from '../../shared/calendar-dates';
 import { DEFAULT_MAIL_SETTINGS, type MailSettings } from './mail/mail-settings';
 import { notifyVersionCurrent } from './mail/notifications';
 

@@ -8,7 +8,7 @@ import type { Role } from '../../shared/roles';
 import type { RecipeSummary, TodayDto } from '../../shared/recipe-types';
 import { flaggedCutRows } from '../data/cuts';
 import { myDraftRows, reviewDueRows, toAcknowledgeRows, waitingForReviewRows, type WorkflowSummaryRow } from '../data/workflow';
-import { addDays, dayOf, utcDay } from './calendar-dates';
+import { addDays, dayOf, utcDay } from '../../shared/calendar-dates';
 import { toRecipeSummary } from './recipe-dto';
 
 /** How far ahead "review due" looks, days. */

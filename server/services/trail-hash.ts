@@ -23,7 +23,7 @@
  * a migration that keeps the old rows verifiable.
  */
 import { createHash } from 'node:crypto';
-import { canonicalJson } from './canonical-json';
+import { canonicalJson } from '../../shared/canonical-json';
 
 export const TRAIL_HASH_VERSION = 'kb-trail-1';
 

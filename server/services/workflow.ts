@@ -8,7 +8,7 @@
 import { createHash } from 'node:crypto';
 import type { Knex } from 'knex';
 import type { FieldError } from '../../shared/api-error';
-import { runChecks, worstSeverity, type CheckResult } from '../../shared/recipe-checks';
+import { changeReasonMissing, runChecks, worstSeverity, type CheckResult } from '../../shared/recipe-checks';
 import type { RecipeVersionDto } from '../../shared/recipe-types';
 import type { RecipeContent } from '../../shared/schemas/recipe';
 import type { ApproveBody, NewVersionBody, ReturnBody, SubmitBody, WithdrawBody } from '../../shared/schemas/workflow';
@@ -32,7 +32,7 @@ import {
 import type { Actor } from './actor';
 import { AUDIT_EVENTS, recordAudit } from './audit';
 import { assignCheckCode } from './check-codes';
-import { addMonths, isCalendarDay, utcDay } from './calendar-dates';
+import { addMonths, isCalendarDay, utcDay } from '../../shared/calendar-dates';
 import { loadRecipeContext } from './recipe-context-loader';
 import { contentValues, requireActor, versionDto } from './recipes';
 import { verifySignerPassword } from './signatures';
@@ -118,9 +118,8 @@ async function checksNow(trx: Knex, v: VersionRow): Promise<{ content: RecipeCon
 
 function blockerErrors(v: VersionRow, content: RecipeContent, checks: readonly CheckResult[]): FieldError[] {
   const errors: FieldError[] = checks.filter((c) => c.severity === 'blocker').map((c) => ({ path: c.path ?? '', message: c.message }));
-  if (v.version > 1 && content.changeReason.trim() === '') {
-    errors.push({ path: 'changeReason', message: 'Say why this version differs from the one before (required from version 2 on).' });
-  }
+  const reasonMissing = changeReasonMissing(v.version, content.changeReason);
+  if (reasonMissing) errors.push({ path: 'changeReason', message: reasonMissing });
   return errors;
 }
 

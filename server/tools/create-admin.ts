@@ -29,7 +29,7 @@ async function main(): Promise<number> {
   });
   if (!parsed.success) {
     const errors = toFieldErrors(parsed.error).map((e) => (e.path === 'temporaryPassword' ? { ...e, path: 'KERFBOOK_ADMIN_PASSWORD' } : e));
-    console.error(describeApiError({ code: 'VALIDATION_FAILED', errors }));
+    console.error(describeApiError({ errors }));
     return 2;
   }
   const db = createDb(databaseUrl);
@@ -42,7 +42,7 @@ async function main(): Promise<number> {
     return 0;
   } catch (err) {
     if (err instanceof AppError) {
-      console.error(describeApiError({ code: err.code, errors: err.errors }));
+      console.error(describeApiError(err));
       return 1;
     }
     throw err;

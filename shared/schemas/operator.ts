@@ -2,7 +2,7 @@
  * The operator station (design sections 7–9): the finder's query, check codes and cut records.
  */
 import { z } from 'zod';
-import { SHAPES } from '../vocabulary';
+import { CUT_OUTCOMES, SHAPES } from '../vocabulary';
 import { requiredText, text } from './numbers';
 import { hardnessScale, materialGroup } from './stock';
 
@@ -28,17 +28,6 @@ export const checkCodeParam = z
   .toUpperCase()
   .regex(CHECK_CODE_PATTERN, 'A check code has 8 letters and digits, like 7KQ2-M9XD.')
   .transform((c) => c.replace('-', ''));
-
-export const CUT_OUTCOMES = ['good', 'burnt', 'deformed', 'wheel-failure', 'other'] as const;
-export type CutOutcome = (typeof CUT_OUTCOMES)[number];
-
-export const CUT_OUTCOME_LABELS: Record<CutOutcome, string> = {
-  good: 'Good',
-  burnt: 'Discoloured or burnt',
-  deformed: 'Deformed or burr',
-  'wheel-failure': 'Wheel broke or glazed',
-  other: 'Other',
-};
 
 /** POST /api/recipes/:id/versions/:n/cuts — one cut against the exact version used. */
 export const cutRecordBody = z.strictObject({

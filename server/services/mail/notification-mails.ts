@@ -4,7 +4,7 @@
  * into the app, and — for the kinds a person may turn off — how to turn them off.
  */
 import { isOptional, type NotificationKind } from '../../../shared/notification-kinds';
-import { CUT_OUTCOME_LABELS, type CutOutcome } from '../../../shared/schemas/operator';
+import { CUT_OUTCOME_LABELS, type CutOutcome } from '../../../shared/vocabulary';
 import type { OutgoingMail } from '../mail-outbox';
 import { absoluteLink, composeMail, type MailLink } from './mail-layout';
 import type { MailSettings } from './mail-settings';

@@ -4,7 +4,7 @@
  * an author), bench sheets printed, and sign-ins, sign-outs and failed sign-ins filling the
  * trail up to its size. Payloads are those the services write.
  */
-import type { CutOutcome } from '../../../shared/schemas/operator';
+import type { CutOutcome } from '../../../shared/vocabulary';
 import { AUDIT_EVENTS } from '../../services/audit';
 import type { Person } from './people';
 import type { PlannedRecipe, PlannedVersion } from './recipe-history';

@@ -13,7 +13,7 @@ import type { RecipeStatus } from '../../../shared/vocabulary';
 import type { CheckResult } from '../../../shared/recipe-checks';
 import type { VersionContentValues } from '../../data/recipes';
 import { AUDIT_EVENTS } from '../../services/audit';
-import { addMonths, utcDay } from '../../services/calendar-dates';
+import { addMonths, utcDay } from '../../../shared/calendar-dates';
 import { newCheckCode } from '../../services/check-codes';
 import { formatRecipeNumber } from '../../services/recipes';
 import { contentSha256 } from '../../services/workflow';

@@ -7,7 +7,7 @@
 import type { Knex } from 'knex';
 import type { ChainedAuditEventRow } from '../../data/audit-events';
 import { advanceChainHead, CHAIN_HEAD_TABLE } from '../../data/audit-events';
-import { canonicalJson } from '../../services/canonical-json';
+import { canonicalJson } from '../../../shared/canonical-json';
 import { chainedFields } from '../../services/trail';
 import { GENESIS_HASH, trailHash } from '../../services/trail-hash';
 import { BatchWriter } from './batch-insert';

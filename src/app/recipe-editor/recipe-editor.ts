@@ -24,7 +24,7 @@ import { MatSelectModule } from '@angular/material/select';
 import { Router, RouterLink } from '@angular/router';
 import { Subject, catchError, combineLatest, concatMap, debounceTime, firstValueFrom, forkJoin, from, map, merge, of, startWith } from 'rxjs';
 import { PRECEDENCE_LINE, STANDARD_CAUTIONS } from '../../../shared/cautions';
-import { type CheckResult, runChecks } from '../../../shared/recipe-checks';
+import { type CheckResult, changeReasonMissing, runChecks } from '../../../shared/recipe-checks';
 import type { RecipeContext } from '../../../shared/recipe-context';
 import { computeRecipe } from '../../../shared/recipe-computations';
 import type { RecipeVersionDto, StaleSaveBody } from '../../../shared/recipe-types';
@@ -351,9 +351,10 @@ export class RecipeEditor implements OnInit, LeavesSafely {
         const material = this.materials().find((m) => m.id === scope.materialId.value);
         if (material && scope.by.value === 'material' && scope.group.value !== material.group) scope.group.setValue(material.group);
       });
-    this.controls.changeReason.addValidators((c: AbstractControl): ValidationErrors | null =>
-      (this.version()?.version ?? 1) >= 2 && !String(c.value).trim() ? { zod: 'Say why this version differs from the one before (required from version 2 on).' } : null,
-    );
+    this.controls.changeReason.addValidators((c: AbstractControl): ValidationErrors | null => {
+      const missing = changeReasonMissing(this.version()?.version ?? 1, String(c.value));
+      return missing ? { zod: missing } : null;
+    });
 
     // Every change re-validates the whole form: one field can make another (in)valid.
     this.form.valueChanges.pipe(startWith(null), takeUntilDestroyed()).subscribe(() => {

@@ -5,7 +5,7 @@
  */
 import { expect } from 'chai';
 import type { RecipeVersionDto } from '../../../shared/recipe-types';
-import { addDays } from '../../../server/services/calendar-dates';
+import { addDays } from '../../../shared/calendar-dates';
 import { reminderPeriodStart, sendReviewReminders } from '../../../server/services/review-reminders';
 import { apiTestContext } from '../support/hooks';
 import { createPerson } from '../support/people';

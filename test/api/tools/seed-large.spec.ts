@@ -7,7 +7,7 @@ import { expect } from 'chai';
 import { RECIPE_STATUSES } from '../../../shared/vocabulary';
 import { recipeContent } from '../../../shared/schemas/recipe';
 import type { ChainVerification } from '../../../shared/recipe-types';
-import { canonicalJson } from '../../../server/services/canonical-json';
+import { canonicalJson } from '../../../shared/canonical-json';
 import { verifyChain } from '../../../server/services/trail';
 import { contentSha256 } from '../../../server/services/workflow';
 import { DatabaseNotEmptyError, seedLarge, type LargeDataSummary } from '../../../server/tools/large-data/seed-large';

@@ -1,6 +1,6 @@
 import { expect } from 'chai';
 import type { RecipeContext } from '../../../shared/recipe-context';
-import { CHECK_IDS, runChecks, worstSeverity, type CheckResult } from '../../../shared/recipe-checks';
+import { CHECK_IDS, changeReasonMissing, runChecks, worstSeverity, type CheckResult } from '../../../shared/recipe-checks';
 import type { RecipeContent } from '../../../shared/schemas/recipe';
 import { content, ctx, machine, material, precisionMachine, rimWheel, wheel } from './fixtures';
 
@@ -195,5 +195,17 @@ describe('shared/recipe-checks', () => {
     expect(worstSeverity([r('note')])).to.equal('note');
     expect(worstSeverity([r('note'), r('warning')])).to.equal('warning');
     expect(worstSeverity([r('warning'), r('blocker'), r('note')])).to.equal('blocker');
+  });
+});
+
+describe('changeReasonMissing', () => {
+  // Common practice in change control: a revision says why it was made (ISO 9001:2015 §7.5.3.2 asks that changes be controlled).
+  it('asks for a reason from version 2 on', () => {
+    expect(changeReasonMissing(2, '')).to.match(/required from version 2/);
+    expect(changeReasonMissing(3, '   ')).to.match(/required from version 2/);
+  });
+  it('lets version 1 and any version with a reason pass', () => {
+    expect(changeReasonMissing(1, '')).to.equal(null);
+    expect(changeReasonMissing(2, 'Feed lowered after burn marks.')).to.equal(null);
   });
 });

@@ -1,22 +1,25 @@
 import { HttpErrorResponse } from '@angular/common/http';
-import { type ApiErrorBody, type FieldError, describeApiError, isApiErrorBody } from '../../../../shared/api-error';
+import { type ApiErrorCode, type FieldError, describeApiError, isApiErrorBody } from '../../../../shared/api-error';
+
+/** A server code, or what the app says when there was no envelope (no answer, or a proxy's page). */
+export type ClientErrorCode = ApiErrorCode | 'NETWORK' | `HTTP_${number}`;
 
 /**
  * A failed API call as the app sees it: the HTTP status plus the server's error envelope.
  * The error interceptor turns every HttpErrorResponse into one of these, so callers never
  * need to dig into `HttpErrorResponse.error`.
  */
-export class ApiError extends Error implements ApiErrorBody {
+export class ApiError extends Error {
   constructor(
     /** HTTP status; 0 when the server could not be reached. */
     readonly status: number,
     /** The envelope's stable code, e.g. `VALIDATION_FAILED`; `NETWORK` or `HTTP_<status>` when there was no envelope. */
-    readonly code: string,
+    readonly code: ClientErrorCode,
     readonly errors: FieldError[],
     /** The whole response body, for envelopes that carry more (a stale save's `current` version). */
     readonly body: unknown = null,
   ) {
-    super(describeApiError({ code, errors }));
+    super(describeApiError({ errors }));
     this.name = 'ApiError';
   }
 

@@ -1,5 +1,5 @@
 import { expect } from 'chai';
-import { addDays, addMonths, dayOf, isCalendarDay, utcDay } from '../../../../server/services/calendar-dates';
+import { addDays, addMonths, dayOf, isCalendarDay, utcDay } from '../../../shared/calendar-dates';
 
 describe('calendar days (UTC)', () => {
   it('takes the UTC day of an instant, whatever the local zone', () => {

@@ -1,5 +1,5 @@
 import { expect } from 'chai';
-import { canonicalJson } from '../../../../server/services/canonical-json';
+import { canonicalJson } from '../../../shared/canonical-json';
 
 describe('canonicalJson', () => {
   it('sorts keys at every level and keeps array order', () => {
