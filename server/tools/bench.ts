@@ -17,7 +17,7 @@ import path from 'node:path';
 import type { Knex } from 'knex';
 import { createDb } from '../data/db';
 import { benchDatabase, type BenchDatabase } from './bench-database';
-import { migrate } from './db-setup';
+import { migrate } from '../data/migrate';
 import { seedLarge, type LargeDataSummary } from './large-data/seed-large';
 import { ROOT } from './project-files';
 import { ensureBenchUsers, BENCH_ROLES, type BenchRole } from './bench/bench-users';

@@ -5,6 +5,7 @@
  * first so it also works on a brand-new database.
  */
 import { createDb } from '../data/db';
+import { migrate } from '../data/migrate';
 import { createUserBody } from '../../shared/schemas/users';
 import { describeApiError } from '../../shared/api-error';
 import { toFieldErrors } from '../../shared/validation';
@@ -34,7 +35,7 @@ async function main(): Promise<number> {
   }
   const db = createDb(databaseUrl);
   try {
-    await db.migrate.latest();
+    await migrate(db);
     const user = await createUser(db, { userId: null, name: 'command line (admin:create)', clientAddress: 'local' }, parsed.data, {
       passwordIsTemporary: false,
     });

@@ -1,6 +1,6 @@
 /** `npm run db:migrate`: brings the database named by DATABASE_URL up to date (no demo data). */
 import { createDb } from '../data/db';
-import { migrate } from './db-setup';
+import { migrate } from '../data/migrate';
 
 const url = process.env['DATABASE_URL'];
 if (!url) {

@@ -19,7 +19,7 @@ import type mysql from 'mysql2/promise';
 import type { ChainVerification } from '../../../shared/recipe-types';
 import { MIGRATIONS_DIR, createDb } from '../../data/db';
 import { describeVerification, verifyChain } from '../../services/trail';
-import { migrate } from '../db-setup';
+import { migrate } from '../../data/migrate';
 import { NotABackupError, openBackup } from './archive';
 import { makeBackup } from './make-backup';
 import { connect, parseDatabaseUrl, quoteName as q, startLoad, withDatabase, type DbAddress } from './mariadb-clients';

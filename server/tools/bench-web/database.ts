@@ -6,7 +6,8 @@
  */
 import path from 'node:path';
 import { createDb } from '../../data/db';
-import { migrate, seedDemoIfEmpty } from '../db-setup';
+import { migrate } from '../../data/migrate';
+import { seedDemoIfEmpty } from '../db-setup';
 import { ensureDatabase, ensureDebianPackage, initDataDir, isRunning, localMariadb, start, stop } from '../local-mariadb';
 import { DATA_DIR } from '../project-files';
 

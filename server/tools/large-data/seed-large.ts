@@ -14,7 +14,7 @@ import { ROLES } from '../../../shared/roles';
 import { findLabSettings } from '../../data/lab-settings';
 import { hashPassword } from '../../services/passwords';
 import { DEFAULT_REVIEW_INTERVAL_MONTHS } from '../../services/workflow';
-import { migrate } from '../db-setup';
+import { migrate } from '../../data/migrate';
 import { planCuts, planDailyWork, planPeopleEvents, versionsInUse } from './activity';
 import { insertBatches, type Row } from './batch-insert';
 import { scaledCounts } from './counts';

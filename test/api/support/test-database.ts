@@ -4,6 +4,7 @@
  */
 import type { Knex } from 'knex';
 import { createDb } from '../../../server/data/db';
+import { migrate } from '../../../server/data/migrate';
 import { emptyTables } from '../../../server/data/empty-tables';
 
 let shared: Knex | null = null;
@@ -18,7 +19,7 @@ export function testDatabaseUrl(): string {
 /** One Knex pool for the whole mocha run (mocha exits when the run ends). */
 export async function testDb(): Promise<Knex> {
   shared ??= createDb(testDatabaseUrl());
-  migrated ??= shared.migrate.latest();
+  migrated ??= migrate(shared);
   await migrated;
   return shared;
 }
