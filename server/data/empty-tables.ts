@@ -5,7 +5,7 @@
  * which is per connection: a transaction keeps the statements on one.
  */
 import type { Knex } from 'knex';
-import { DEFAULT_FEED_CEILINGS_MM_S } from '../../migrations/20261208090200_insert_default_feed_ceilings';
+import { DEFAULT_FEED_CEILINGS_MM_S } from '../../migrations/20261201222730_insert_default_feed_ceilings';
 
 /** Children first. lab_settings keeps its row; the counters go back to their start. */
 const TABLES = [

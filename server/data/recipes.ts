@@ -184,7 +184,7 @@ export const SUMMARY_COLUMNS = [
 ] as const;
 
 /**
- * The same row from the library columns kept on `recipes` (migration 20270113090000): the
+ * The same row from the library columns kept on `recipes` (migration 20261202022722): the
  * latest version's fields without reading the wide version row.
  */
 const LIBRARY_COLUMNS = [

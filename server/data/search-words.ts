@@ -1,7 +1,7 @@
 /**
  * The library's text search: every word of the query must start a word of the recipe's
  * search text (number, title, material name, designation), which the database keeps as
- * " word word…" (migration 20270201090000). Words long enough for the server's FULLTEXT
+ * " word word…" (migration 20261202030504). Words long enough for the server's FULLTEXT
  * index are matched there (an index lookup); shorter or longer ones — MariaDB's default
  * minimum is 3, `npm start` sets 1 — the server's stopwords (none in `npm start`'s), and
  * every word of a search the caller narrows by another index are matched by

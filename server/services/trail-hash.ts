@@ -1,7 +1,8 @@
 /**
- * The trail's hash chain: the one definition of what a row's hash covers. The chain
- * migration, every append and the verification all use `trailHash`, so they can never
- * disagree about the bytes.
+ * The trail's hash chain: the one definition of what a row's hash covers. Every append
+ * and the verification use `trailHash`, so they can never disagree about the bytes; the
+ * chain migration keeps a frozen copy, held to the same hashes by
+ * test/unit/migrations/chain-trail-hash.spec.ts.
  *
  * Serialisation "kb-trail-1" — a JSON array, no whitespace, in this order:
  *

@@ -22,7 +22,7 @@ export const manifestSchema = z.object({
   schema: z.object({ latestMigration: z.string().min(1), migrations: count }),
   rowCounts: z.record(z.string(), count),
   triggers: z.array(z.string()),
-  /** The chain head; null for a schema older than the chain (20261215090000_chain_audit_events). */
+  /** The chain head; null for a schema older than the chain (20261201230150_chain_audit_events). */
   trail: z.object({ events: count, headEventId: count, headHash: z.string().regex(/^[0-9a-f]{64}$/) }).nullable(),
   /** Photos live in MariaDB (attachments.data, migration create_attachments): no files on disk. */
   attachments: z.object({ storedIn: z.literal('database'), count, bytes: count }),

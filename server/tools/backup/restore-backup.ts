@@ -20,6 +20,7 @@ import type { ChainVerification } from '../../../shared/recipe-types';
 import { MIGRATIONS_DIR, createDb } from '../../data/db';
 import { describeVerification, verifyChain } from '../../services/trail';
 import { migrate } from '../../data/migrate';
+import { currentMigrationName } from '../../data/migration-renames';
 import { NotABackupError, openBackup } from './archive';
 import { makeBackup } from './make-backup';
 import { connect, parseDatabaseUrl, quoteName as q, startLoad, withDatabase, type DbAddress } from './mariadb-clients';
@@ -60,7 +61,8 @@ function codeMigrations(): string[] {
 
 function refuseNewerSchema(manifest: Manifest): void {
   const known = codeMigrations();
-  if (!known.includes(manifest.schema.latestMigration) || manifest.schema.migrations > known.length) {
+  // A backup made before the migrations were renamed names the newest by its old name.
+  if (!known.includes(currentMigrationName(manifest.schema.latestMigration)) || manifest.schema.migrations > known.length) {
     throw new RestoreRefusedError(
       `This backup comes from a newer Kerfbook (schema ${manifest.schema.latestMigration}); this code knows the schema up to ` +
         `${known[known.length - 1]}. Update Kerfbook first, then restore.`,

@@ -1,7 +1,7 @@
 /**
  * The library's text search: every word must start a word of the recipe's number, title,
  * material name or designation. Authors search latest versions, operators current ones;
- * the words are kept by triggers (migration 20270201090000), checked here after real writes.
+ * the words are kept by triggers (migration 20261202030504), checked here after real writes.
  */
 import { expect } from 'chai';
 import { CSRF_HEADER } from '../../../shared/api-types';

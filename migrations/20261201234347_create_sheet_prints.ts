@@ -1,7 +1,7 @@
 import type { Knex } from 'knex';
 
 /**
- * Every bench sheet printed (design 8, "every print is recorded"): which version, who,
+ * Every bench sheet printed, so a sheet found at a saw can be traced: which version, who,
  * when (UTC) and from which client address. Append-only by use; the trail holds the same
  * fact as a `sheet.printed` event.
  */

@@ -1,7 +1,7 @@
 import type { Knex } from 'knex';
 
 /**
- * Review and approval (design 4): the workflow dates on each version, the recipe's current
+ * Review and approval: the workflow dates on each version, the recipe's current
  * version, electronic signatures, review comments and the people who authored or edited
  * each version (an approver may never approve a version they touched).
  */

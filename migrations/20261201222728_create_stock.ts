@@ -1,9 +1,10 @@
 import type { Knex } from 'knex';
 
 /**
- * The lab's stock (design 3): materials, wheels, machines and the wheel-selection table
- * (design 5.8). Stock is archived, never deleted while a recipe version references it;
- * archived records stay readable. Lengths mm, speeds rpm and m/s, feeds mm/s.
+ * The lab's stock: materials, wheels, machines and the wheel-selection table (material
+ * group and hardness band to a wheel of the stock). Stock is archived, never deleted
+ * while a recipe version references it; archived records stay readable. Lengths mm,
+ * speeds rpm and m/s, feeds mm/s.
  */
 export async function up(knex: Knex): Promise<void> {
   await knex.schema.createTable('materials', (t) => {

@@ -1,7 +1,7 @@
 import type { Knex } from 'knex';
 
 /**
- * What the mails of design 4 and 7 need: operators assigned to machines, single-use links
+ * What the workflow's mails need: operators assigned to machines, single-use links
  * (invitation, password reset), notification opt-outs, acknowledgements ("read and
  * understood") and the record of review-due reminders already sent.
  */

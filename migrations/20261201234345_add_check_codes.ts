@@ -1,10 +1,11 @@
 import type { Knex } from 'knex';
 
 /**
- * The check code of an approved version (design 7 "Check a sheet", 8): 8 Crockford base32
- * characters, stored uppercase without the dash and printed as XXXX-XXXX on the bench
- * sheet with its QR code. Null until the version is approved. Binary collation so the
- * unique index compares the exact characters.
+ * The check code of an approved version, which tells whoever holds a printed sheet whether
+ * it is still current (/check/CODE): 8 Crockford base32 characters, stored uppercase
+ * without the dash and printed as XXXX-XXXX on the bench sheet with its QR code. Null
+ * until the version is approved. Binary collation so the unique index compares the exact
+ * characters.
  */
 export async function up(knex: Knex): Promise<void> {
   await knex.schema.alterTable('recipe_versions', (t) => {

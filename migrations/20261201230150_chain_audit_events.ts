@@ -1,11 +1,11 @@
+import { createHash } from 'node:crypto';
 import type { Knex } from 'knex';
-import { GENESIS_HASH, trailHash } from '../server/services/trail-hash';
 
 /**
- * The trail becomes a hash chain (design 4; 21 CFR 11.10(e)): every row stores the hash
- * of the row before it and its own hash (serialisation "kb-trail-1" in
- * server/services/trail-hash.ts, which is frozen). `recipe_id` lets the trail be filtered
- * by recipe whether an event names the recipe, one of its versions or a photo.
+ * The trail becomes a hash chain (21 CFR 11.10(e): secure, computer-generated audit
+ * trails): every row stores the hash of the row before it and its own hash, serialised
+ * as "kb-trail-1" (below). `recipe_id` lets the trail be filtered by recipe whether an
+ * event names the recipe, one of its versions or a photo.
  *
  * Schema and backfill share this file on purpose: the rows already there must be hashed
  * (in id order) before the columns become NOT NULL and the append-only triggers land.
@@ -34,6 +34,64 @@ interface StoredRow {
 }
 
 const json = (value: unknown): unknown => (typeof value === 'string' ? JSON.parse(value) : (value ?? null));
+
+// "kb-trail-1" as it was when this migration was written, copied here so that the chain
+// it builds never follows later changes to the app's code: a JSON array without
+// whitespace, object keys sorted recursively (canonical JSON), SHA-256 in lower-case hex.
+// Pinned to fixed hashes by test/unit/migrations/chain-trail-hash.spec.ts.
+
+const GENESIS_HASH = '0'.repeat(64);
+
+interface ChainedFields {
+  id: number;
+  occurredAt: Date;
+  actorUserId: number | null;
+  actorName: string;
+  eventType: string;
+  entityType: string;
+  entityId: string | null;
+  recipeId: number | null;
+  before: unknown;
+  after: unknown;
+  clientAddress: string | null;
+  prevHash: string;
+}
+
+function sortKeys(value: unknown): unknown {
+  if (Array.isArray(value)) return value.map(sortKeys);
+  if (value !== null && typeof value === 'object') {
+    const out: Record<string, unknown> = {};
+    for (const key of Object.keys(value).sort()) {
+      const member = (value as Record<string, unknown>)[key];
+      if (member !== undefined) out[key] = sortKeys(member);
+    }
+    return out;
+  }
+  if (typeof value === 'number' && !Number.isFinite(value)) throw new Error('Canonical JSON cannot hold NaN or Infinity.');
+  return value;
+}
+
+export function trailHash(row: ChainedFields): string {
+  if (Number.isNaN(row.occurredAt.getTime())) throw new Error(`Trail row ${row.id} has no valid time.`);
+  const serialised = JSON.stringify(
+    sortKeys([
+      'kb-trail-1',
+      row.id,
+      row.occurredAt.toISOString(),
+      row.actorUserId,
+      row.actorName,
+      row.eventType,
+      row.entityType,
+      row.entityId,
+      row.recipeId,
+      row.before ?? null,
+      row.after ?? null,
+      row.clientAddress,
+      row.prevHash,
+    ]),
+  );
+  return createHash('sha256').update(serialised, 'utf8').digest('hex');
+}
 
 export async function up(knex: Knex): Promise<void> {
   await knex.schema.alterTable('audit_events', (t) => {

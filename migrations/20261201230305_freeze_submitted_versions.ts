@@ -1,8 +1,8 @@
 import type { Knex } from 'knex';
 
 /**
- * Submitted content is frozen by the database, not only by the API (design 4; ISO/IEC
- * 17025 §7.11, 21 CFR 11.10(e)): once a version has a content hash, MariaDB itself refuses
+ * Submitted content is frozen by the database, not only by the API (ISO/IEC 17025
+ * §7.11, 21 CFR 11.10(e)): once a version has a content hash, MariaDB itself refuses
  * to change its content, title or identity, or to delete it; signatures and review comments
  * are never changed or deleted; photos of a frozen version are never added, changed or
  * removed. Workflow columns (status, revision, dates) stay writable.

@@ -1,11 +1,12 @@
 import type { Knex } from 'knex';
 
 /**
- * Mail outbox (design 3, 12): a mail is a row written in the transaction of the event that
- * causes it, so it exists exactly when that event committed. A worker in any app process
- * claims due rows (`sending_claimed_by` / `sending_claimed_until`), sends them and marks
- * them sent; a failure records the error and a later `send_after`. A sent row is kept
- * (`sent_at`, `message_id`) and never sent again.
+ * Mail outbox, in the database so that any app process can send: a mail is a row written
+ * in the transaction of the event that causes it, so it exists exactly when that event
+ * committed. A worker in any app process claims due rows (`sending_claimed_by` /
+ * `sending_claimed_until`), sends them and marks them sent; a failure records the error
+ * and a later `send_after`. A sent row is kept (`sent_at`, `message_id`) and never sent
+ * again.
  */
 export async function up(knex: Knex): Promise<void> {
   await knex.schema.createTable('mail_outbox', (t) => {

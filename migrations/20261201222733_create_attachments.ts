@@ -2,7 +2,7 @@ import type { Knex } from 'knex';
 
 /**
  * Photos of a recipe version (setup, good and bad cut faces). The bytes live in MariaDB so
- * that any app process can serve them (design 12). Uploads are capped at 10 MB, below
+ * that any app process can serve them. Uploads are capped at 10 MB, below
  * MariaDB's default max_allowed_packet of 16 MB; the server writes the bytes in pieces
  * (a query carries them hex-escaped, twice their size).
  */

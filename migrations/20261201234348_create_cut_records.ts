@@ -1,7 +1,7 @@
 import type { Knex } from 'knex';
 
 /**
- * Cut records (design 9): each cut an operator makes, against the exact version used.
+ * Cut records: each cut an operator makes, against the exact version used.
  * Anything but a good cut flags the recipe for its author until an author clears the flag
  * (`flag_cleared_at`/`flag_cleared_by`); the record itself is never changed otherwise.
  */

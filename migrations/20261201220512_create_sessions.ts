@@ -3,7 +3,7 @@ import type { Knex } from 'knex';
 /**
  * The session store's table, in the shape connect-session-knex 5 reads and writes
  * (sid, sess, expired). It lives in MariaDB so several app processes share sessions
- * (design section 12); the store is told not to create it itself.
+ * (any process serves any user); the store is told not to create it itself.
  */
 export async function up(knex: Knex): Promise<void> {
   await knex.schema.createTable('sessions', (t) => {

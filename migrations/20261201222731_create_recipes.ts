@@ -1,7 +1,7 @@
 import type { Knex } from 'knex';
 
 /**
- * Recipes and their versions (design 3, "recipes and recipe versions"). Each version holds
+ * Recipes and their versions. Each version holds
  * its full content as canonical JSON plus columns copied out of it for the library's
  * search, filters and sort. `revision` is the optimistic-concurrency counter of a draft.
  */
