@@ -1,5 +1,5 @@
 /**
- * The invented lab's stock: three saws, twelve wheels, fifteen materials. Names are made
+ * The invented lab's stock: three saws, thirteen wheels, fifteen materials. Names are made
  * up; wheels are described by their ISO 525-style marking, materials by EN or UNS numbers.
  * Values are realistic for the demo (typical lab sizes, speeds and feeds; common practice)
  * — invented, not measured. Recipes refer to these records by name.
