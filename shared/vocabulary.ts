@@ -37,7 +37,7 @@ export const MATERIAL_GROUP_LABELS: Record<MaterialGroup, string> = {
   'electronics-mixed': 'Electronics and mixed assemblies',
 };
 
-/** Groups that are mostly metal: a diamond or CBN rim wheel wears out quickly there (common practice). */
+/** Groups that are mostly metal: a diamond rim wheel wears out quickly there, and CBN suits only hardened steels (common practice). */
 export const METALLIC_GROUPS: readonly MaterialGroup[] = [
   'plain-low-alloy-steel',
   'hardened-tool-steel',
