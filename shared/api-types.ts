@@ -1,7 +1,7 @@
 import type { NotificationKind } from './notification-kinds';
 import type { Role } from './roles';
 
-/** Unit display preference; stored values are always metric (design 5.10). */
+/** Unit display preference; stored values are always metric, imperial is shown beside them. */
 export type UnitPreference = 'metric' | 'metric+imperial';
 
 /** A person as the People screen and the session see them. Never carries the password hash. */
@@ -15,7 +15,7 @@ export interface UserDto {
   /** True when an admin set a temporary password that must be changed at the next sign-in. */
   mustChangePassword: boolean;
   units: UnitPreference;
-  /** Machines the person runs (operators; design 3), ids ascending. */
+  /** Machines the person runs (operators), ids ascending. */
   machineIds: number[];
   /** Invited by e-mail and has not set a password yet (the link may have expired). */
   invitationPending: boolean;

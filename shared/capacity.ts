@@ -1,7 +1,7 @@
 /**
- * Cutting capacity of a wheel on a machine (design 5.2). The flanges that clamp the wheel
- * cannot enter the cut, so the usable depth is the wheel's radius beyond the flange, less a
- * clearance so the flange never rubs the part or the vise.
+ * Cutting capacity of a wheel on a machine. The flanges that clamp the wheel cannot enter
+ * the cut, so the usable depth is the wheel's radius beyond the flange, less a clearance so
+ * the flange never rubs the part or the vise.
  */
 import type { CutMotion, Shape } from './vocabulary';
 
@@ -23,7 +23,8 @@ export function cuttingDepthMm(wheelDiameterMm: number, flangeDiameterMm: number
  * Largest part size (mm, the scope's size: a diameter or a section height) that a cutting
  * depth allows with a cut motion. With a turning specimen the part rotates, so the wheel
  * only has to reach the centre of a round part: the cuttable diameter is about twice the
- * depth (design 5.2). A rectangular section does not gain that way, so it keeps the depth.
+ * depth (Kerfbook's model). A rectangular section does not gain that way, so it keeps the
+ * depth.
  */
 export function cuttableSizeMm(depthMm: number, motion: CutMotion, shape: Shape): number {
   return motion === 'turning-specimen' && shape !== 'rectangular' ? 2 * depthMm : depthMm;

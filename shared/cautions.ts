@@ -1,7 +1,8 @@
 /**
- * The standard cautions every recipe page and bench sheet carries (design 6, trade
- * reference §5), in Kerfbook's own words. Kerfbook computes and checks; it never certifies
- * a setup as safe, and these lines defer to local rules and the lab's licensed practice.
+ * The standard cautions every recipe page and bench sheet carries, in Kerfbook's own words,
+ * each with the standards or regulations behind it. Kerfbook computes and checks; it never
+ * certifies a setup as safe, and these lines defer to local rules and the lab's licensed
+ * practice.
  */
 
 export interface Caution {

@@ -1,5 +1,5 @@
 /**
- * Wheel–part contact along the cut, the removal rate and the cutting time (design 5.3).
+ * Wheel–part contact along the cut, the removal rate and the cutting time.
  *
  * Depth x runs from where the wheel enters the part (x = 0) in the feed direction.
  * The section is the part's cross-section in the plane of the cut:
@@ -22,7 +22,7 @@
  *   conservation of volume). A rectangular section is treated as a plunge.
  * - traverse pass: the wheel crosses the part in shallow passes of depth a = H / passes;
  *   the geometric contact length of a shallow pass is l = √(a·D_wheel) (the grinding
- *   textbook formula, e.g. Malkin & Guo, Grinding Technology, 2nd ed., ch. 2 — from memory)
+ *   textbook formula, e.g. Malkin & Guo, Grinding Technology, 2nd ed. — from memory)
  *   and the removal rate is feed × wheel thickness × a.
  */
 import type { CutMotion, Shape } from './vocabulary';

@@ -1,13 +1,13 @@
 /**
- * Hardness conversion for non-austenitic steels (design 5.4, trade reference §1) by linear
- * interpolation between adjacent rows of ASTM E140 Table 1 (HRC range) and Table 2 (HRB
- * range). Never extrapolates: a value outside the embedded rows is refused. Other material
- * groups keep their measured scale.
+ * Hardness conversion for non-austenitic steels by linear interpolation between adjacent
+ * rows of ASTM E140 Table 1 (HRC range) and Table 2 (HRB range). Never extrapolates: a
+ * value outside the embedded rows is refused. Other material groups keep their measured
+ * scale.
  */
 import type { HardnessValue } from './schemas/stock';
 import type { HardnessScale, MaterialGroup } from './vocabulary';
 
-/** The standard's caveats, shown wherever a converted value appears (trade reference §1, own wording). */
+/** The standard's caveats, shown wherever a converted value appears (ASTM E140 and ISO 18265, in our own words). */
 export const HARDNESS_CAVEATS: readonly string[] = [
   'Converted hardness is approximate and depends on the material. Convert specification limits rather than test results where you can, and report the measured value with the converted one in parentheses, e.g. 353 HBW (38 HRC).',
   'ASTM E140 Tables 1 and 2 apply only to homogeneous non-austenitic carbon, alloy and tool steels (as-forged, annealed, normalized, quenched and tempered). Austenitic stainless steels have their own tables; aluminium, copper, titanium, nickel and other alloys keep their measured scale.',
@@ -55,10 +55,10 @@ const HRC_ROWS: readonly Row[] = [
 
 /*
  * ASTM E140, Table 2 (non-austenitic steels, Rockwell B range): HRB, HV, HB (3000 kgf).
- * FROM MEMORY: no public reproduction of Table 2 was found to confirm these rows; the check
- * points 100/240, 90/185 and 80/150 agree with trade reference §1 (itself marked from
- * memory). Only 100 down to 55 HRB is embedded; below that the table changes Brinell load,
- * so lower values are refused rather than guessed. Check against a licensed copy.
+ * FROM MEMORY: no public reproduction of Table 2 was found to confirm these rows, the
+ * check points 100/240, 90/185 and 80/150 included. Only 100 down to 55 HRB is embedded;
+ * below that the table changes Brinell load, so lower values are refused rather than
+ * guessed. Check against a licensed copy.
  */
 const HRB_ROWS: readonly Row[] = [
   [100, 240], [99, 234], [98, 228], [97, 222], [96, 216], [95, 210], [94, 205], [93, 200], [92, 195], [91, 190],

@@ -1,5 +1,5 @@
 /**
- * The mails Kerfbook sends about work (design 4, 7), as a person sees them in their
+ * The mails Kerfbook sends about work (reviews, cut flags, new versions), as a person sees them in their
  * account. `optional: false` — the request to acknowledge a new current version — cannot be
  * turned off: an operator must hear of a change to a recipe for their machine.
  */

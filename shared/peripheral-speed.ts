@@ -1,7 +1,9 @@
 /**
- * Peripheral (surface) speed of a wheel (design 5.1, trade reference §2):
- * v [m/s] = π·D[mm]·n[rpm] / 60 000, and its inverse n = 60 000·v / (π·D).
- * The check is made at the new (largest) wheel diameter, where the speed is highest.
+ * Peripheral (surface) speed of a wheel: v [m/s] = π·D[mm]·n[rpm] / 60 000 (the rim travels
+ * π·D per turn; mm → m and per minute → per second), and its inverse n = 60 000·v / (π·D).
+ * The check is made at the new (largest) wheel diameter, where the speed is highest: a
+ * wheel must never run above the maximum operating speed marked on it (ANSI B7.1, EN 12413,
+ * OSHA 29 CFR 1910.215(d)(1)).
  */
 import { msToFtMin } from './units';
 

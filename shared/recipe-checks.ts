@@ -1,5 +1,5 @@
 /**
- * Recipe checks (design 5.9): rules run on every change, in the editor and on the server.
+ * Recipe checks: rules run on every change, in the editor and on the server.
  * Types first; the rules follow below. Each rule has a stable id (stored with results and
  * referred to by approvers), a severity, a message with the numbers that triggered it, the
  * reason with its source, and the path of the field to fix. The checks flag known problems;
@@ -27,13 +27,13 @@ export interface CheckResult {
   path: string | null;
 }
 
-/** Water-soluble coolant concentration range, % v/v (trade reference §4, common practice). */
+/** Water-soluble coolant concentration range, % v/v (common practice). */
 export const COOLANT_CONCENTRATION_PCT = { min: 2, max: 5 } as const;
 
 /**
  * Feed above which a heat-sensitive material gets a warning, mm/s. Kerfbook's threshold
- * (common practice): the low end of the typical feed ranges of trade reference §4
- * (abrasive 0.05–1.0 mm/s, precision 0.005–0.2 mm/s).
+ * (common practice): the low end of the typical feed ranges (abrasive cut-off
+ * 0.05–1.0 mm/s, precision saw 0.005–0.2 mm/s; common practice).
  */
 export const HEAT_SENSITIVE_FEED_MMS: Record<MachineClass, number> = {
   'bench-abrasive': 0.25,
@@ -163,7 +163,7 @@ const RULES: readonly Rule[] = [
         'Metal clogs and dulls a diamond rim wheel; dressing exposes fresh grains (common practice).',
       );
     if (!METALLIC_GROUPS.includes(group)) return null;
-    // CBN is the superabrasive for hardened steels (trade reference §4, ASTM E3 from memory).
+    // CBN is the superabrasive for hardened steels: they dull diamond (common practice; ASTM E3 from memory).
     if (abrasive === 'cbn' && group === 'hardened-tool-steel') return null;
     const what = abrasive === 'cbn' ? 'A CBN rim wheel' : abrasive === 'diamond' ? 'A diamond rim wheel' : 'A diamond or CBN rim wheel';
     return result(

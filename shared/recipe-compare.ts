@@ -1,5 +1,5 @@
 /**
- * Comparing two versions of a recipe (design 7, "Compare" and "Review"): the parameters
+ * Comparing two versions of a recipe (the Compare and Review screens): the parameters
  * that changed, in plain words with units (stock shown by name), and word-level diffs of
  * the text fields. Pure: the caller supplies the names of the referenced stock.
  */
@@ -8,14 +8,7 @@ import type { UnitPreference } from './api-types';
 import type { ParameterChange, RecipeComparison, TextChange } from './recipe-types';
 import type { RecipeContent } from './schemas/recipe';
 import { formatQuantity, NO_VALUE, type QuantityKind } from './units';
-import {
-  CLAMPING_METHOD_LABELS,
-  CUT_MOTION_LABELS,
-  MATERIAL_GROUP_LABELS,
-  SHAPE_LABELS,
-  type CoolantType,
-  type CutOrientation,
-} from './vocabulary';
+import { CLAMPING_METHOD_LABELS, COOLANT_TYPE_LABELS, CUT_MOTION_LABELS, CUT_ORIENTATION_LABELS, MATERIAL_GROUP_LABELS, SHAPE_LABELS } from './vocabulary';
 
 /** One side of the comparison. */
 export interface ComparedVersion {
@@ -33,9 +26,6 @@ export interface StockNames {
 }
 
 export type VersionComparison = Omit<RecipeComparison, 'recipeId' | 'number'>;
-
-const ORIENTATION_LABELS: Record<CutOrientation, string> = { transverse: 'Transverse', longitudinal: 'Longitudinal', other: 'Other' };
-const COOLANT_LABELS: Record<CoolantType, string> = { 'water-soluble': 'Water-soluble coolant', oil: 'Cutting oil', dry: 'Dry (no coolant)' };
 
 type Formatter = (value: unknown, names: StockNames, pref: UnitPreference) => string;
 
@@ -102,7 +92,7 @@ export const PARAMETER_FIELDS: readonly ParameterField[] = [
   { path: 'scope.sizeMaxMm', label: 'Largest size', format: quantity('length'), unit: 'mm' },
   { path: 'scope.widthMm', label: 'Width', format: quantity('length'), unit: 'mm' },
   { path: 'scope.wallMm', label: 'Wall thickness', format: quantity('length'), unit: 'mm' },
-  { path: 'scope.orientation', label: 'Cut orientation', format: label(ORIENTATION_LABELS) },
+  { path: 'scope.orientation', label: 'Cut orientation', format: label(CUT_ORIENTATION_LABELS) },
   { path: 'scope.orientationNote', label: 'Orientation note', format: plain },
   { path: 'cutting.machineId', label: 'Machine', format: stock((n) => n.machines) },
   { path: 'cutting.wheelId', label: 'Wheel', format: stock((n) => n.wheels) },
@@ -116,7 +106,7 @@ export const PARAMETER_FIELDS: readonly ParameterField[] = [
   { path: 'clamping.bothSides', label: 'Clamped on both sides of the cut', format: yesNo },
   { path: 'clamping.softInserts', label: 'Soft inserts', format: yesNo },
   { path: 'clamping.supportBlocks', label: 'Support blocks', format: yesNo },
-  { path: 'coolant.type', label: 'Coolant', format: label(COOLANT_LABELS) },
+  { path: 'coolant.type', label: 'Coolant', format: label(COOLANT_TYPE_LABELS) },
   { path: 'coolant.concentrationPct', label: 'Coolant concentration', format: withUnit('% v/v') },
   { path: 'coolant.flowLMin', label: 'Coolant flow', format: withUnit('L/min') },
 ];

@@ -1,7 +1,8 @@
 /**
- * Everything the recipe editor, the recipe page and the bench sheet show as computed
- * (design 5.1–5.4). Called on every (debounced) keystroke, so it must stay cheap and must
- * not throw on half-typed content: every field is null while an input it needs is missing.
+ * Everything the recipe editor, the recipe page and the bench sheet show as computed:
+ * peripheral speed, capacity, contact and removal, cutting time, hardness. Called on every
+ * (debounced) keystroke, so it must stay cheap and must not throw on half-typed content:
+ * every field is null while an input it needs is missing.
  */
 import { capacityFit } from './capacity';
 import { contactProfile, estimateCutTimeS, peakRemovalMm3S, type ContactPoint, type CutSection, type CutSetup } from './contact-length';

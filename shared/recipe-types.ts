@@ -188,7 +188,7 @@ export interface ChainVerification {
   firstBroken: { id: number; reason: string } | null;
 }
 
-/** GET /api/today — the signed-in person's lists, per role (design section 7). */
+/** GET /api/today — the signed-in person's lists, per role: the home screen's work lists. */
 export interface TodayDto {
   myDrafts: RecipeSummary[];
   waitingForMyReview: RecipeSummary[];

@@ -1,4 +1,4 @@
-/** The five roles of design section 2. A user may hold several. */
+/** Kerfbook's five roles. A user may hold several. */
 export const ROLES = ['author', 'approver', 'operator', 'auditor', 'admin'] as const;
 
 export type Role = (typeof ROLES)[number];

@@ -14,7 +14,7 @@ export type WheelRecord = WheelBody & Stored;
 export type MachineRecord = MachineBody & Stored;
 export type SelectionRow = SelectionRowBody & { id: number };
 
-/** Lab settings the computations and checks need (design 3, "lab settings"). */
+/** Lab settings the computations and checks need. */
 export interface LabLimits {
   /** Feed ceilings per material group, mm/s: above it the feed check warns. */
   feedCeilingsMmS: Partial<Record<import('./vocabulary').MaterialGroup, number>>;

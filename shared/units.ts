@@ -1,6 +1,7 @@
 /**
- * Unit conversions (trade reference §6). Kerfbook stores SI/metric values; these exact
- * factors convert for display only, and rounding happens only in `formatQuantity`.
+ * Unit conversions. Kerfbook stores SI/metric values; these exact factors (inch = 25.4 mm,
+ * foot = 0.3048 m by the 1959 international yard and pound agreement; NIST SP 811)
+ * convert for display only, and rounding happens only in `formatQuantity`.
  */
 import type { UnitPreference } from './api-types';
 

@@ -1,9 +1,11 @@
 /**
- * Kerfbook's own vocabulary (design sections 3 and 5): material groups, cut motions,
- * clamping methods, machine classes, wheel kinds, shapes. Ids are stored; labels are shown.
+ * Kerfbook's own vocabulary, in its own words: material groups, cut motions, clamping
+ * methods, machine classes, wheel kinds, shapes, orientations, coolants, statuses and cut
+ * outcomes. Ids are stored; labels are shown. Every screen, sheet and comparison takes its
+ * labels from here.
  */
 
-/** Material groups (design 5.5). "Coated" is a flag on a material, with this as its substrate group. */
+/** Material groups, Kerfbook's own list. "Coated" is a flag on a material, with this as its substrate group. */
 export const MATERIAL_GROUPS = [
   'plain-low-alloy-steel',
   'hardened-tool-steel',
@@ -35,7 +37,7 @@ export const MATERIAL_GROUP_LABELS: Record<MaterialGroup, string> = {
   'electronics-mixed': 'Electronics and mixed assemblies',
 };
 
-/** Groups that are mostly metal: a diamond or CBN rim wheel is the wrong choice there (design 5.9). */
+/** Groups that are mostly metal: a diamond rim wheel wears out quickly there, and CBN suits only hardened steels (common practice). */
 export const METALLIC_GROUPS: readonly MaterialGroup[] = [
   'plain-low-alloy-steel',
   'hardened-tool-steel',
@@ -51,7 +53,7 @@ export const METALLIC_GROUPS: readonly MaterialGroup[] = [
 export const HARDNESS_SCALES = ['HV', 'HRC', 'HRB', 'HBW'] as const;
 export type HardnessScale = (typeof HARDNESS_SCALES)[number];
 
-/** Cut motions (design 5.6), our own names. */
+/** Cut motions, our own names; each has a contact-length model in contact-length.ts. */
 export const CUT_MOTIONS = ['straight-plunge', 'pulsed-plunge', 'rocking', 'turning-specimen', 'traverse-pass', 'stepped-depth'] as const;
 export type CutMotion = (typeof CUT_MOTIONS)[number];
 
@@ -64,7 +66,7 @@ export const CUT_MOTION_LABELS: Record<CutMotion, string> = {
   'stepped-depth': 'Stepped depth',
 };
 
-/** Clamping methods (design 5.7), our own names. */
+/** Clamping methods, our own names. */
 export const CLAMPING_METHODS = ['vise-backstop', 'top-clamp', 'v-block', 'fixture-plate', 'adhesive-wax-mount', 'small-part-gripper'] as const;
 export type ClampingMethod = (typeof CLAMPING_METHODS)[number];
 

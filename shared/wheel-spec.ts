@@ -1,10 +1,11 @@
 /**
- * Wheel marking parser (trade reference §3), after ISO 525 / ANSI B74.13 for conventional
- * wheels and the usual superabrasive marking for diamond and cBN wheels.
+ * Wheel marking parser, after ISO 525 / ANSI B74.13 for conventional wheels and the usual
+ * superabrasive marking for diamond and cBN wheels (common practice).
  *
  * Conventional: abrasive (A aluminium oxide, C silicon carbide) · grit · grade (A soft … Z
  * hard) · structure (optional) · bond (V vitrified, B resinoid, BF fibre-reinforced
- * resinoid, R rubber, E shellac, M metal, S silicate). `A60K5V` and `A60KV` are both valid.
+ * resinoid (from memory), R rubber, E shellac, M metal, S silicate). `A60K5V` and `A60KV`
+ * are both valid.
  *
  * Superabrasive: abrasive (D diamond; B or CB cubic boron nitride) · grit · grade
  * (optional) · concentration (optional, only after a grade) · bond (B resin, M metal,
@@ -45,7 +46,7 @@ export interface ConventionalSpec {
   grit: number;
   /** Grade letter, A (soft) … Z (hard). */
   grade: string;
-  /** Structure number (higher = more open), or null when not marked. */
+  /** Structure number (higher = more open, from memory), or null when not marked. */
   structure: number | null;
   bond: ConventionalBond;
   /** The marking as normalised, e.g. "A60K5V". */

@@ -1,7 +1,7 @@
 /**
- * Wheel suggestion from the lab's own selection table (design 5.8): material group ×
- * hardness band → a wheel from the lab's stock. The table is the lab's; Kerfbook only ships
- * a starting table built from common practice (STARTER_SELECTION).
+ * Wheel suggestion from the lab's own selection table: material group × hardness band →
+ * a wheel from the lab's stock. The table is the lab's; Kerfbook only ships a starting
+ * table built from common practice (STARTER_SELECTION).
  */
 import { convertHardness } from './hardness';
 import type { HardnessValue, HardnessWindow } from './schemas/stock';
@@ -96,10 +96,10 @@ const bonded = (abrasive: AbrasiveFamily, grade: GradeBand): StarterWheel => ({ 
 const rim = (...abrasives: AbrasiveFamily[]): StarterWheel => ({ kind: 'rim', abrasives, grade: null });
 
 /**
- * Kerfbook's starting table (design 5.8; trade reference §4, common practice): aluminium
- * oxide for ferrous metals, silicon carbide for non-ferrous metals, diamond (or CBN) rim
- * wheels for ceramics, cemented carbides and hard brittle materials; the harder the
- * material, the softer the bond. A starting point for the lab to adjust from its own trials.
+ * Kerfbook's starting table (common practice): aluminium oxide for ferrous metals, silicon
+ * carbide for non-ferrous metals, diamond (or CBN) rim wheels for ceramics, cemented
+ * carbides and hard brittle materials; the harder the material, the softer the bond, so
+ * worn grains are released. A starting point for the lab to adjust from its own trials.
  */
 export const STARTER_SELECTION: readonly StarterSelectionRow[] = [
   { group: 'plain-low-alloy-steel', hardness: null, wheel: bonded('aluminium-oxide', 'hard'), note: 'Soft ferrous metal: aluminium oxide, harder bond.' },

@@ -1,7 +1,7 @@
 /**
  * The invented lab's recipes: sixteen drafts by the demo author, one per typical job of a
  * plant lab. Stock is named, not numbered (the seed looks the ids up). Parameters are
- * realistic for the demo (trade reference §4, common practice: abrasive 35–65 m/s below the
+ * realistic for the demo (typical ranges, common practice: abrasive 35–65 m/s below the
  * wheel's marked maximum, feed 0.05–1.0 mm/s; precision saw up to 5000 rpm and
  * 0.005–0.2 mm/s; coolant 2–5 % v/v) and every recipe passes the checks without a blocker.
  */

@@ -1,8 +1,8 @@
 /**
- * The invented lab's stock: three saws, twelve wheels, fifteen materials. Names are made
+ * The invented lab's stock: three saws, thirteen wheels, fifteen materials. Names are made
  * up; wheels are described by their ISO 525-style marking, materials by EN or UNS numbers.
- * Values are realistic for the demo (trade reference §4, common practice) — invented, not
- * measured. Recipes refer to these records by name.
+ * Values are realistic for the demo (typical lab sizes, speeds and feeds; common practice)
+ * — invented, not measured. Recipes refer to these records by name.
  */
 import type { z } from 'zod';
 import type { MachineBody, materialBody, WheelBody } from '../../shared/schemas/stock';

@@ -1,8 +1,8 @@
 /**
  * The invented lab's review history: which demo recipes the demo approver reviewed, when,
- * and with which words, so the library shows every state (design 11). Days are counted
- * back from the day the demo is loaded; everything goes through the workflow services
- * with that day as their `now`, so signatures, dates and the trail agree.
+ * and with which words, so the library shows every state a recipe can be in. Days are
+ * counted back from the day the demo is loaded; everything goes through the workflow
+ * services with that day as their `now`, so signatures, dates and the trail agree.
  */
 import type { RecipeContent } from '../../shared/schemas/recipe';
 

@@ -1,7 +1,7 @@
 import { z } from 'zod';
 import { idParam, newPassword } from './fields';
 
-/** Machines an operator runs (design 3): ids of existing machines, each once. */
+/** Machines an operator runs: ids of existing machines, each once. */
 export const machineIdList = z
   .array(idParam, { error: 'Machines must be a list of machine ids.' })
   .max(100, 'At most 100 machines.')

@@ -1,5 +1,5 @@
 /**
- * The operator station (design sections 7–9): the finder's query, check codes and cut records.
+ * The operator station: the finder's query, check codes and cut records.
  */
 import { z } from 'zod';
 import { CUT_OUTCOMES, SHAPES } from '../vocabulary';

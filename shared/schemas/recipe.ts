@@ -1,5 +1,5 @@
 /**
- * Recipe content (design section 3, "Recipe content"): everything a version holds. Stored
+ * Recipe content: everything a version holds. Stored
  * as canonical JSON per version, with indexed columns copied out for the library's search.
  * Every length is mm, speed rpm, feed mm/s, concentration % v/v, flow L/min.
  */

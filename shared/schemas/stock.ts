@@ -1,5 +1,5 @@
 /**
- * Stock: the lab's materials, wheels, machines and wheel-selection table (design 3, 5.8).
+ * Stock: the lab's materials, wheels, machines and wheel-selection table.
  * Authors and admins edit; everyone signed in reads. Stored values are metric.
  */
 import { z } from 'zod';
@@ -93,7 +93,7 @@ export const machineBody = z
   .refine((m) => m.flangeDiameterMm < m.wheelDiameterMaxMm, { path: ['flangeDiameterMm'], message: 'Flange must be smaller than the largest wheel.' });
 export type MachineBody = z.infer<typeof machineBody>;
 
-/** One row of the lab's wheel-selection table: material group × hardness band → wheel (design 5.8). */
+/** One row of the lab's wheel-selection table: material group × hardness band → wheel. */
 export const selectionRowBody = z.strictObject({
   group: materialGroup,
   /** Hardness band; null = any hardness in the group. */

@@ -17,7 +17,7 @@ export const createUserBody = z.strictObject({
   email: email.optional().default(''),
   roles: roleList,
   temporaryPassword: newPassword,
-  /** Machines an operator runs (design 3). */
+  /** Machines an operator runs: their acknowledgements and the finder's default machine. */
   machineIds: machineIdList.optional().default([]),
 });
 export type CreateUserBody = z.infer<typeof createUserBody>;

@@ -1,5 +1,5 @@
 /**
- * Review and approval (design section 4): the bodies of the state transitions. Every
+ * Review and approval: the bodies of the state transitions. Every
  * transition carries the revision the person saw, so acting on a version that changed
  * since the page was opened is refused.
  */

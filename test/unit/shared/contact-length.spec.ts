@@ -70,7 +70,7 @@ describe('shared/contact-length', () => {
       expect(ROCKING_CONTACT_FACTOR).to.equal(0.5);
       expect(contactLengthMm(bar40, setup({ motion: 'rocking' }), 20)).to.equal(20);
     });
-    it('turning specimen: outside in to the centre, effective length 2π·r, removal conserves volume', () => {
+    it('turning specimen (Kerfbook model): outside in to the centre, effective length 2π·r, removal conserves volume', () => {
       const s = setup({ motion: 'turning-specimen' });
       expect(contactLengthMm(bar40, s, 0)).to.be.closeTo(2 * Math.PI * 20, 1e-12);
       expect(contactLengthMm(bar40, s, 20)).to.equal(0);
@@ -88,10 +88,10 @@ describe('shared/contact-length', () => {
       expect(volume).to.be.closeTo(1.5 * Math.PI * 400, 0.5);
     });
     it('traverse pass: l = √(a·D_wheel) (Malkin & Guo, Grinding Technology — from memory), removal = feed × thickness × a', () => {
-      expect(traverseContactMm(5, 250)).to.be.closeTo(35.35534, 1e-5); // √1250
+      expect(traverseContactMm(5, 250)).to.be.closeTo(35.35534, 1e-5); // √(5·250) = √1250, computed by hand
       const s = setup({ motion: 'traverse-pass', passes: 8, feedMmS: 2 });
       expect(contactLengthMm(rect40x25, s, 12)).to.be.closeTo(Math.sqrt(5 * 250), 1e-12);
-      expect(removalRateMm3S(rect40x25, s, 12)).to.equal(2 * 1.5 * 5); // 15 mm³/s
+      expect(removalRateMm3S(rect40x25, s, 12)).to.equal(2 * 1.5 * 5); // 15 mm³/s, computed by hand
     });
   });
 

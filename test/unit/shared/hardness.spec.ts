@@ -17,7 +17,7 @@ function value(r: ReturnType<typeof convertHardness>): number {
 
 describe('shared/hardness', () => {
   describe('ASTM E140, Table 1 (HRC range)', () => {
-    // trade-reference §1 check values, ASTM E140 Table 1
+    // ASTM E140, Table 1 rows (confirmed against the public reproduction named in shared/hardness.ts)
     const checks: [number, number, number | null][] = [
       [68, 940, null],
       [60, 697, 654],
@@ -28,7 +28,7 @@ describe('shared/hardness', () => {
       [20, 238, 226],
     ];
     for (const [hrc, hv, hbw] of checks) {
-      it(`${hrc} HRC ↔ ${hv} HV${hbw ? ` ↔ ${hbw} HBW` : ''} (ASTM E140, Table 1; trade-reference §1)`, () => {
+      it(`${hrc} HRC ↔ ${hv} HV${hbw ? ` ↔ ${hbw} HBW` : ''} (ASTM E140, Table 1)`, () => {
         expect(value(convertHardness(hrc, 'HRC', 'HV'))).to.equal(hv);
         expect(value(convertHardness(hv, 'HV', 'HRC'))).to.equal(hrc);
         if (hbw !== null) {
@@ -38,7 +38,7 @@ describe('shared/hardness', () => {
       });
     }
 
-    it('60 HRC is (654) HBW, in parentheses — not 613, which is the HV at 56 HRC (trade-reference §1 trap)', () => {
+    it('60 HRC is (654) HBW, in parentheses — not 613, which is the HV at 56 HRC (ASTM E140, Table 1; a mix-up found in some open-source tables)', () => {
       const r = convertHardness(60, 'HRC', 'HBW');
       expect(r.ok && r.value).to.equal(654);
       expect(r.ok && r.outsideNormalRange).to.equal(true);
@@ -63,15 +63,15 @@ describe('shared/hardness', () => {
       }
     });
 
-    it('interpolates linearly between adjacent rows (hand-computed: 38.5 HRC = (372 + 382)/2 HV)', () => {
+    it('interpolates linearly between adjacent rows (hand-computed from ASTM E140 Table 1: 38.5 HRC = (372 + 382)/2 HV)', () => {
       expect(value(convertHardness(38.5, 'HRC', 'HV'))).to.equal(377);
       expect(value(convertHardness(377, 'HV', 'HRC'))).to.be.closeTo(38.5, 1e-12);
-      expect(value(convertHardness(300, 'HV', 'HBW'))).to.be.closeTo(286 - (2 / 8) * (286 - 279), 1e-12); // between 30 and 29 HRC rows
+      expect(value(convertHardness(300, 'HV', 'HBW'))).to.be.closeTo(286 - (2 / 8) * (286 - 279), 1e-12); // between the 30 HRC (302 HV, 286 HBW) and 29 HRC (294 HV, 279 HBW) rows, hand-computed
     });
   });
 
   describe('ASTM E140, Table 2 (HRB range) — rows from memory', () => {
-    // trade-reference §1 check values (marked from memory there too)
+    // ASTM E140, Table 2 rows as recalled (from memory: not confirmed against a public reproduction)
     for (const [hrb, hv] of [[100, 240], [90, 185], [80, 150]] as const) {
       it(`${hrb} HRB ↔ ${hv} HV ↔ ${hv} HB (from memory)`, () => {
         expect(value(convertHardness(hrb, 'HRB', 'HV'))).to.equal(hv);
@@ -85,7 +85,7 @@ describe('shared/hardness', () => {
       for (let i = 1; i < HARDNESS_TABLE_2.length; i++) expect(HARDNESS_TABLE_2[i]!.hv).to.be.below(HARDNESS_TABLE_2[i - 1]!.hv);
     });
     it('HRC ↔ HRB only where the tables meet (via HV, 238–240 HV)', () => {
-      expect(value(convertHardness(20, 'HRC', 'HRB'))).to.be.closeTo(99 + 4 / 6, 1e-12); // 238 HV between 99 (234) and 100 (240)
+      expect(value(convertHardness(20, 'HRC', 'HRB'))).to.be.closeTo(99 + 4 / 6, 1e-12); // 20 HRC = 238 HV (Table 1) between 99 HRB = 234 and 100 HRB = 240 HV (Table 2, from memory); interpolated by hand
       expect(convertHardness(30, 'HRC', 'HRB').ok).to.equal(false);
     });
   });
@@ -111,7 +111,7 @@ describe('shared/hardness', () => {
     }
   });
 
-  describe('applies only to non-austenitic steels (ASTM E140 scope; trade-reference §1)', () => {
+  describe('applies only to non-austenitic steels (ASTM E140, scope 1.1–1.2; ISO 18265)', () => {
     it('steel groups convert, with the caveats', () => {
       expect(conversionApplies('plain-low-alloy-steel').applies).to.equal(true);
       const r = convertHardness(40, 'HRC', 'HV', 'hardened-tool-steel');
@@ -138,9 +138,9 @@ describe('shared/hardness', () => {
       expect(toHv(80, 'HRB')).to.equal(150); // ASTM E140, Table 2 (from memory)
       expect(toHv(70, 'HRC')).to.equal(null);
     });
-    it('shows the measured value with the converted one in parentheses, Rockwell rounded (trade-reference §1: 353 HBW (38 HRC))', () => {
+    it('shows the measured value with the converted one in parentheses, Rockwell rounded (353 HBW = 38 HRC: ASTM E140, Table 1; the order is Kerfbook\'s display)', () => {
       expect(formatMeasuredWithConverted({ value: 353, scale: 'HBW' }, 'HRC')).to.equal('353 HBW (38 HRC)');
-      expect(formatMeasuredWithConverted({ value: 355, scale: 'HBW' }, 'HRC')).to.equal('355 HBW (38 HRC)');
+      expect(formatMeasuredWithConverted({ value: 355, scale: 'HBW' }, 'HRC')).to.equal('355 HBW (38 HRC)'); // 38.2 HRC between 353 (38) and 362 (39) HBW, Table 1; rounded
       expect(formatMeasuredWithConverted({ value: 90, scale: 'HBW' }, 'HRC', 'aluminium-magnesium')).to.equal('90 HBW');
     });
   });

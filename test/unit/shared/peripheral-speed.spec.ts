@@ -2,24 +2,24 @@ import { expect } from 'chai';
 import { maxRpmForWheel, peripheralSpeedMs, rpmForSpeed, speedMargin, toFtPerMin } from '../../../shared/peripheral-speed';
 
 describe('shared/peripheral-speed', () => {
-  // trade-reference §2 worked examples: v = π·D·n / 60 000
+  // Worked examples computed by hand: v = π·D·n / 60 000 m/s, then × 60 / 0.3048 for ft/min.
   const examples: [number, number, number, number][] = [
     [250, 3000, 39.269908, 7730.297],
     [300, 2850, 44.767695, 8812.538],
     [150, 300, 2.356194, 463.818],
   ];
   for (const [d, n, v, ftMin] of examples) {
-    it(`Ø${d} mm at ${n} rpm → ${v} m/s, ${ftMin} ft/min (trade-reference §2 worked example)`, () => {
+    it(`Ø${d} mm at ${n} rpm → ${v} m/s, ${ftMin} ft/min (π·D·n/60 000 and × 60/0.3048, computed by hand)`, () => {
       expect(peripheralSpeedMs(d, n)).to.be.closeTo(v, 1e-6);
       expect(toFtPerMin(peripheralSpeedMs(d, n))).to.be.closeTo(ftMin, 1e-3);
     });
   }
 
-  it('n_max for 50 m/s on Ø300 is 3183.099, floored to 3183 (trade-reference §2 worked example)', () => {
+  it('n_max for 50 m/s on Ø300 is 3183.099, floored to 3183 (60 000·50/(π·300), computed by hand)', () => {
     expect(rpmForSpeed(300, 50)).to.be.closeTo(3183.099, 1e-3);
     expect(maxRpmForWheel(300, 50)).to.equal(3183);
     expect(peripheralSpeedMs(300, maxRpmForWheel(300, 50))).to.be.at.most(50);
-    expect(toFtPerMin(50)).to.be.closeTo(9842.52, 1e-3); // trade-reference §2
+    expect(toFtPerMin(50)).to.be.closeTo(9842.52, 1e-3); // 50 × 60/0.3048, computed by hand
   });
 
   it('never floors an exact result one below (hand check: 60 000·π·250·3000/60 000/(π·250) = 3000)', () => {

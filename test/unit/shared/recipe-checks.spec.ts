@@ -46,9 +46,9 @@ describe('shared/recipe-checks', () => {
     expect(ids(content(), ctx())).to.not.include.members(['machine-missing', 'wheel-missing']);
   });
 
-  describe('wheel-overspeed (blocker; ANSI B7.1 / EN 12413 / OSHA 29 CFR 1910.215)', () => {
+  describe('wheel-overspeed (blocker; ANSI B7.1 / EN 12413 / OSHA 29 CFR 1910.215(d)(1))', () => {
     it('fires above the marked maximum, with the numbers', () => {
-      // Ø300 at 3500 rpm = 54.98 m/s > 50 m/s; n_max = 3183 (trade-reference §2 worked example)
+      // Ø300 at 3500 rpm = π·300·3500/60 000 = 54.98 m/s > 50 m/s; n_max = 60 000·50/(π·300) = 3183.1, floored; computed by hand
       const x = ctx({ wheel: wheel({ diameterMm: 300, maxSpeedMs: 50 }), machine: machine({ wheelDiameterMaxMm: 300 }) });
       const r = find(content({ cutting: { wheelRpm: 3500 } }), x, 'wheel-overspeed')!;
       expect(r).to.deep.include({ severity: 'blocker', path: 'cutting.wheelRpm' });
@@ -79,7 +79,7 @@ describe('shared/recipe-checks', () => {
     expect(ids(content(), ctx({ wheel: wheel({ diameterMm: 200 }) }))).to.not.include('wheel-diameter-outside-machine');
   });
 
-  it('scope-exceeds-capacity (blocker): (250 − 80)/2 − 5 = 80 mm', () => {
+  it('scope-exceeds-capacity (blocker): (250 − 80)/2 − 5 = 80 mm, computed by hand', () => {
     const r = find(content({ scope: { sizeMaxMm: 81 } }), ctx(), 'scope-exceeds-capacity')!;
     expect(r).to.deep.include({ severity: 'blocker', path: 'scope.sizeMaxMm' });
     expect(r.message).to.contain('80.0 mm');
@@ -99,7 +99,7 @@ describe('shared/recipe-checks', () => {
       expect(r.severity).to.equal('warning');
       expect(r.message).to.contain('diamond').and.contain('dress');
     });
-    it('a CBN rim wheel on hardened steel does not (trade-reference §4), on copper it does', () => {
+    it('a CBN rim wheel on hardened steel does not (CBN for hardened steels that dull diamond: common practice; ASTM E3 from memory), on copper it does', () => {
       const cbn = precisionCtx({ wheel: rimWheel({ specification: 'B126M' }) });
       expect(ids(precision({ scope: { group: 'hardened-tool-steel' } }), cbn)).to.not.include('rim-wheel-on-metal');
       expect(ids(precision({ scope: { group: 'copper' } }), cbn)).to.include('rim-wheel-on-metal');
@@ -146,7 +146,7 @@ describe('shared/recipe-checks', () => {
   });
 
   it('rim-wheel-low-rpm (note): well below what the rim wheel could run at', () => {
-    // Ceiling: min(machine 5000, floor(60 000·40/(π·150)) = 5092) = 5000; 75 % = 3750
+    // Ceiling: min(machine 5000, floor(60 000·40/(π·150)) = 5092) = 5000; 75 % = 3750; computed by hand
     const r = find(precision({ cutting: { wheelRpm: 3000 } }), precisionCtx(), 'rim-wheel-low-rpm')!;
     expect(r.severity).to.equal('note');
     expect(r.message).to.contain('5000 rpm').and.contain('consumable');
@@ -154,14 +154,14 @@ describe('shared/recipe-checks', () => {
     expect(ids(content({ cutting: { wheelRpm: 1000 } }), ctx())).to.not.include('rim-wheel-low-rpm'); // bonded wheel: lowering rpm is the remedy
   });
 
-  it('heat-sensitive-high-feed (warning)', () => {
+  it('heat-sensitive-high-feed (warning; 0.25 mm/s on abrasive saws, the low end of the usual feed range: Kerfbook\'s threshold, common practice)', () => {
     const hot = ctx({ material: material({ heatSensitive: true }) });
     expect(find(content({ cutting: { feedMmS: 0.5 } }), hot, 'heat-sensitive-high-feed')!.message).to.contain('0.25 mm/s');
     expect(ids(content({ cutting: { feedMmS: 0.2 } }), hot)).to.not.include('heat-sensitive-high-feed');
     expect(ids(content({ cutting: { feedMmS: 0.5 } }), ctx())).to.not.include('heat-sensitive-high-feed');
   });
 
-  it('hazardous-dust-dry (blocker: cut wet and enclosed, trade-reference §5)', () => {
+  it('hazardous-dust-dry (blocker: hazardous dusts are cut wet and enclosed, common practice; OSHA PEL for beryllium 0.2 µg/m³)', () => {
     const dusty = ctx({ material: material({ hazardousDust: true }) });
     const r = find(content({ coolant: { type: 'dry', concentrationPct: null } }), dusty, 'hazardous-dust-dry')!;
     expect(r.severity).to.equal('blocker');

@@ -6,19 +6,19 @@ import { content, ctx, material, precisionMachine, rimWheel } from './fixtures';
 describe('shared/recipe-computations', () => {
   it('combines speed, margin, capacity, profile, time and hardness', () => {
     const c = computeRecipe(content(), ctx());
-    expect(c.peripheralSpeedMs).to.be.closeTo(39.269908, 1e-6); // trade-reference §2 worked example: Ø250 at 3000 rpm
-    expect(c.peripheralSpeedFtMin).to.be.closeTo(7730.297, 1e-3); // trade-reference §2
+    expect(c.peripheralSpeedMs).to.be.closeTo(39.269908, 1e-6); // Ø250 at 3000 rpm: π·250·3000/60 000, computed by hand
+    expect(c.peripheralSpeedFtMin).to.be.closeTo(7730.297, 1e-3); // × 60/0.3048, computed by hand
     expect(c.markedMaxSpeedMs).to.equal(80);
     expect(c.speedMarginMs).to.be.closeTo(80 - 39.269908, 1e-6);
     expect(c.speedMarginPct).to.be.closeTo(((80 - 39.269908) / 80) * 100, 1e-5);
-    expect(c.rpmAtMarkedMax).to.equal(6111); // 60 000·80/(π·250) = 6111.55, floored
-    expect(c.cuttingDepthMm).to.equal(80); // (250 − 80)/2 − 5
+    expect(c.rpmAtMarkedMax).to.equal(6111); // 60 000·80/(π·250) = 6111.55, floored; computed by hand
+    expect(c.cuttingDepthMm).to.equal(80); // (250 − 80)/2 − 5, computed by hand
     expect(c.cuttableSizeMm).to.equal(80);
     expect(c.capacityFits).to.equal(true);
-    expect(c.capacityMarginMm).to.equal(40);
+    expect(c.capacityMarginMm).to.equal(40); // 80 − 40
     expect(c.profile).to.have.length(41);
-    expect(c.peakRemovalMm3S).to.equal(0.5 * 1.5 * 40); // feed × thickness × Ø40 chord at the centre
-    expect(c.cutTimeS).to.equal(80); // 40 mm / 0.5 mm/s
+    expect(c.peakRemovalMm3S).to.equal(0.5 * 1.5 * 40); // feed × thickness × Ø40 chord at the centre, computed by hand
+    expect(c.cutTimeS).to.equal(80); // 40 mm / 0.5 mm/s, computed by hand
     expect(c.hardness).to.deep.include({ minHv: 302, maxHv: 302, applies: true, reason: null }); // ASTM E140 Table 1: 30 HRC = 302 HV
   });
 
@@ -30,7 +30,7 @@ describe('shared/recipe-computations', () => {
     expect(alu.hardness).to.deep.include({ applies: false, minHv: null, maxHv: null });
     expect(alu.hardness!.reason).to.be.a('string');
     const offTable = computeRecipe(content({ scope: { hardness: { min: 10, max: 30, scale: 'HRC' } } }), ctx());
-    expect(offTable.hardness).to.deep.include({ minHv: null, maxHv: 302 });
+    expect(offTable.hardness).to.deep.include({ minHv: null, maxHv: 302 }); // 10 HRC is below Table 1; 30 HRC = 302 HV (ASTM E140, Table 1)
     expect(offTable.hardness!.reason).to.match(/outside/);
   });
 
@@ -39,10 +39,10 @@ describe('shared/recipe-computations', () => {
       content({ scope: { sizeMaxMm: 150 }, cutting: { machineId: 2, wheelId: 2, wheelRpm: 4000, feedMmS: 0.1, cutMotion: 'turning-specimen', entryFeedMmS: 0.05, entryLengthMm: 5 }, clamping: { method: 'adhesive-wax-mount' } }),
       ctx({ wheel: rimWheel(), machine: precisionMachine() }),
     );
-    expect(c.cuttingDepthMm).to.equal(50); // (150 − 40)/2 − 5
-    expect(c.cuttableSizeMm).to.equal(100); // doubled by the turning specimen
+    expect(c.cuttingDepthMm).to.equal(50); // (150 − 40)/2 − 5, computed by hand
+    expect(c.cuttableSizeMm).to.equal(100); // doubled by the turning specimen (Kerfbook model)
     expect(c.capacityFits).to.equal(false);
-    expect(c.cutTimeS).to.be.closeTo(5 / 0.05 + 70 / 0.1, 1e-9); // to the centre of Ø150: 75 mm travel
+    expect(c.cutTimeS).to.be.closeTo(5 / 0.05 + 70 / 0.1, 1e-9); // to the centre of Ø150: 75 mm travel, 5 mm of it at the entry feed; computed by hand
   });
 
   it('every field is null while its inputs are missing, and nothing throws on half-typed content', () => {

@@ -14,7 +14,7 @@ import {
 } from '../../../shared/units';
 
 describe('shared/units', () => {
-  describe('conversions agree with mathjs (general reference library)', () => {
+  describe('conversions agree with mathjs (general reference library, a devDependency)', () => {
     const cases: [string, (v: number) => number, string, string][] = [
       ['mm → in', mmToIn, 'mm', 'inch'],
       ['in → mm', inToMm, 'inch', 'mm'],
@@ -37,13 +37,13 @@ describe('shared/units', () => {
   });
 
   describe('exact factors', () => {
-    it('match trade reference §6', () => {
-      expect(mmToIn(25.4)).to.equal(1); // trade-reference §6: mm ÷ 25.4
-      expect(mmSToMmMin(1)).to.equal(60); // trade-reference §6: × 60
-      expect(mmSToInMin(1)).to.be.closeTo(2.362204724, 1e-9); // trade-reference §6
-      expect(inMinToMmS(1)).to.be.closeTo(0.4233333, 1e-7); // trade-reference §6
-      expect(msToFtMin(1)).to.be.closeTo(196.8503937, 1e-7); // trade-reference §6
-      expect(ftMinToMs(1)).to.be.closeTo(0.00508, 1e-15); // trade-reference §6
+    it('match the exact conversion factors (inch = 25.4 mm, foot = 0.3048 m, 1959 international yard and pound; minute = 60 s)', () => {
+      expect(mmToIn(25.4)).to.equal(1); // inch = 25.4 mm exactly (1959 international yard and pound agreement; NIST SP 811, Appendix B)
+      expect(mmSToMmMin(1)).to.equal(60); // minute = 60 s (ISO 80000-3; NIST SP 811)
+      expect(mmSToInMin(1)).to.be.closeTo(2.362204724, 1e-9); // 60/25.4, computed by hand from the exact inch
+      expect(inMinToMmS(1)).to.be.closeTo(0.4233333, 1e-7); // 25.4/60, computed by hand from the exact inch
+      expect(msToFtMin(1)).to.be.closeTo(196.8503937, 1e-7); // 60/0.3048, computed by hand from the exact foot
+      expect(ftMinToMs(1)).to.be.closeTo(0.00508, 1e-15); // 0.3048/60 = 0.00508 exactly, computed by hand from the exact foot
     });
     it('round-trip without drift', () => {
       expect(inToMm(mmToIn(37.3))).to.be.closeTo(37.3, 1e-12);
@@ -53,14 +53,14 @@ describe('shared/units', () => {
 
   describe('formatQuantity', () => {
     it('feed with imperial beside metric', () => {
-      expect(formatQuantity(0.3, 'feed', 'metric+imperial')).to.equal('0.30 mm/s (0.71 in/min)'); // 0.3 × 2.3622 = 0.709
+      expect(formatQuantity(0.3, 'feed', 'metric+imperial')).to.equal('0.30 mm/s (0.71 in/min)'); // 0.3 × 60/25.4 = 0.709, computed by hand
       expect(formatQuantity(0.3, 'feed', 'metric')).to.equal('0.30 mm/s');
       expect(formatQuantity(0.01, 'feed', 'metric')).to.equal('0.010 mm/s');
     });
     it('speed, length, rpm, removal, time', () => {
-      expect(formatQuantity(39.2699, 'speed', 'metric+imperial')).to.equal('39.3 m/s (7730 ft/min)'); // trade-reference §2 worked example
-      expect(formatQuantity(40, 'length', 'metric+imperial')).to.equal('40.0 mm (1.575 in)');
-      expect(formatQuantity(250, 'length', 'metric+imperial')).to.equal('250 mm (9.843 in)');
+      expect(formatQuantity(39.2699, 'speed', 'metric+imperial')).to.equal('39.3 m/s (7730 ft/min)'); // Ø250 at 3000 rpm: π·250·3000/60 000 m/s × 60/0.3048 = 7730.3 ft/min, computed by hand
+      expect(formatQuantity(40, 'length', 'metric+imperial')).to.equal('40.0 mm (1.575 in)'); // 40/25.4 = 1.5748, computed by hand
+      expect(formatQuantity(250, 'length', 'metric+imperial')).to.equal('250 mm (9.843 in)'); // 250/25.4 = 9.8425, computed by hand
       expect(formatQuantity(3183.099, 'rpm', 'metric+imperial')).to.equal('3183 rpm');
       expect(formatQuantity(30, 'removal', 'metric')).to.equal('30.0 mm³/s');
       expect(formatQuantity(96, 'time', 'metric')).to.equal('1 min 36 s');

@@ -3,7 +3,7 @@ import { abrasiveFamily, gradeBand, parseWheelSpec } from '../../../shared/wheel
 
 describe('shared/wheel-spec', () => {
   describe('conventional wheels (ISO 525 field order: abrasive, grit, grade, structure, bond)', () => {
-    it('reads A60K5V with a structure and A60KV without (trade-reference §3)', () => {
+    it('reads A60K5V with a structure and A60KV without (ISO 525: the structure number may be left out)', () => {
       expect(parseWheelSpec('A60K5V')).to.deep.equal({
         ok: true,
         spec: { type: 'conventional', abrasive: 'A', grit: 60, grade: 'K', structure: 5, bond: 'V', text: 'A60K5V' },
@@ -11,7 +11,7 @@ describe('shared/wheel-spec', () => {
       const r = parseWheelSpec('A60KV');
       expect(r.ok && r.spec.type === 'conventional' && r.spec.structure).to.equal(null);
     });
-    it('reads every bond of trade-reference §3, BF before B', () => {
+    it('reads every bond letter Kerfbook knows (ISO 525 / ANSI B74.13: V, B, BF, R, E, M, S — from memory), BF before B', () => {
       for (const bond of ['V', 'B', 'BF', 'R', 'E', 'M', 'S']) {
         const r = parseWheelSpec(`C120P${bond}`);
         expect(r.ok && r.spec.type === 'conventional' && r.spec.bond, bond).to.equal(bond);
@@ -24,7 +24,7 @@ describe('shared/wheel-spec', () => {
       expect(r.ok && r.spec.text).to.equal('A60K5V');
       expect(parseWheelSpec('C-46-N-B').ok).to.equal(true);
     });
-    it('rejects a grade outside A–Z (trade-reference §3)', () => {
+    it('rejects a grade outside A–Z (ISO 525: grades run from A, softest, to Z, hardest)', () => {
       for (const bad of ['A60ÄV', 'A60#5V', 'A60_5V', 'A60']) {
         const r = parseWheelSpec(bad);
         expect(r.ok, bad).to.equal(false);
@@ -41,7 +41,7 @@ describe('shared/wheel-spec', () => {
     });
   });
 
-  describe('diamond and CBN wheels', () => {
+  describe('diamond and CBN wheels (the usual superabrasive marking, common practice)', () => {
     it('reads abrasive, grit, optional grade and concentration, bond', () => {
       expect(parseWheelSpec('D126M')).to.deep.equal({ ok: true, spec: { type: 'superabrasive', abrasive: 'D', grit: 126, grade: null, concentration: null, bond: 'M', text: 'D126M' } });
       expect(parseWheelSpec('B151N100B')).to.deep.equal({ ok: true, spec: { type: 'superabrasive', abrasive: 'B', grit: 151, grade: 'N', concentration: 100, bond: 'B', text: 'B151N100B' } });

@@ -30,7 +30,7 @@ describe('shared/wheel-suggestion', () => {
     expect(suggestWheels('hardened-tool-steel', { value: 30, scale: 'HRC' }, rows, stock).map((x) => x.wheel.id)).to.deep.equal([11, 10]);
   });
 
-  it('converts a steel hardness to the band scale (ASTM E140, Table 1: 654 HBW = 60 HRC)', () => {
+  it('converts a steel hardness to the band scale (ASTM E140, Table 1: 697 HV = 60 HRC)', () => {
     const s = suggestWheels('hardened-tool-steel', { value: 697, scale: 'HV' }, rows, stock);
     expect(s.map((x) => x.wheel.id)).to.deep.equal([12, 11, 10]);
     expect(s[0]!.reason).to.contain('≈ 60 HRC');
@@ -47,7 +47,7 @@ describe('shared/wheel-suggestion', () => {
     expect(suggestWheels('copper', null, rows, stock).map((x) => x.wheel.id)).to.deep.equal([10]);
   });
 
-  describe('STARTER_SELECTION (design 5.8; trade-reference §4, common practice)', () => {
+  describe('STARTER_SELECTION (common practice: alumina for ferrous, silicon carbide for non-ferrous metals, diamond for hard brittle materials; harder material, softer bond)', () => {
     it('covers every group', () => {
       for (const g of MATERIAL_GROUPS) expect(STARTER_SELECTION.some((r) => r.group === g), g).to.equal(true);
     });
@@ -66,7 +66,7 @@ describe('shared/wheel-suggestion', () => {
     });
     it('matchesStarterWheel checks kind, abrasive and grade band', () => {
       const plain = STARTER_SELECTION.find((r) => r.group === 'plain-low-alloy-steel')!.wheel;
-      expect(matchesStarterWheel(plain, any)).to.equal(true); // A46P… is a hard grade
+      expect(matchesStarterWheel(plain, any)).to.equal(true); // A46P… is a hard grade (P and up: Kerfbook's grade bands, from memory)
       expect(matchesStarterWheel(plain, soft)).to.equal(false);
       const ceramic = STARTER_SELECTION.find((r) => r.group === 'ceramic-glass')!.wheel;
       expect(matchesStarterWheel(ceramic, rimWheel())).to.equal(true);

@@ -172,7 +172,8 @@ describe('shared/contact-length (properties)', () => {
   });
 
   it('never throws, whatever the fields of the section and setup hold (outside values, NaN, ∞, −0)', () => {
-    // Primitives only: computeRecipe builds these objects from checked numbers (see the report on objects in arithmetic).
+    // Primitives only: computeRecipe builds these objects from checked numbers (an object in
+    // arithmetic calls its own valueOf, which may throw).
     const anyField = fc.oneof(anyNumber, outsidePrimitive);
     const hostileSection = fc.record({ shape: fc.oneof(shape, outsidePrimitive), sizeMm: anyField, widthMm: anyField, wallMm: anyField });
     // Passes stay within the schema's 500: the traverse travel is summed pass by pass.

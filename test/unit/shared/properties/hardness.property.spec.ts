@@ -47,8 +47,9 @@ describe('shared/hardness (properties)', () => {
     );
   });
 
-  // Within one table only: where Tables 1 and 2 meet (HV 238–240, HBW 226–240) the standard's
-  // two tables disagree by up to 14 HBW for the same HV, so HV ↔ HBW jumps there (see the report).
+  // Within one table only: where Tables 1 and 2 meet (HV 238–240, HBW 226–240) the two
+  // embedded tables disagree by up to 14 HBW for the same HV (Table 2 from memory), so HV ↔ HBW
+  // jumps there (README.md, "What it does", Computations).
   it('is monotone over each table\'s range: a harder reading never converts to a softer one', () => {
     fc.assert(
       fc.property(scalePair.chain(([from, to]) => fc.tuple(fc.constant(from), fc.constant(to), finite(...RANGE[from]), finite(...RANGE[from]))), ([from, to, a, b]) => {
@@ -129,7 +130,8 @@ describe('shared/hardness (properties)', () => {
   });
 
   it('never throws, whatever value, scales or group it is given; a refusal always says why in words', () => {
-    // Scales and group are ids checked by the schemas: primitives here (an object in a template string may throw; see the report).
+    // Scales and group are ids checked by the schemas: primitives here (an object whose own
+    // "toString" is not a function throws in a template string).
     const anyScale = fc.oneof(scale, outsidePrimitive);
     fc.assert(
       fc.property(fc.oneof(anyNumber, outsideValue), outsidePrimitive, anyScale, anyScale, fc.oneof(group, outsidePrimitive), (v, shown, from, to, g) => {

@@ -21,7 +21,7 @@ const KINDS: QuantityKind[] = ['length', 'feed', 'speed', 'rpm', 'removal', 'tim
 const kind = fc.constantFrom(...KINDS);
 const pref = fc.constantFrom<UnitPreference>('metric', 'metric+imperial');
 
-/** Each conversion with its inverse (trade reference §6: exact factors). */
+/** Each conversion with its inverse (exact factors: inch = 25.4 mm, foot = 0.3048 m by the 1959 international yard and pound agreement; minute = 60 s). */
 const PAIRS: [string, (v: number) => number, (v: number) => number][] = [
   ['mm ↔ in', mmToIn, inToMm],
   ['mm/s ↔ in/min', mmSToInMin, inMinToMmS],
