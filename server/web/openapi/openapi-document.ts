@@ -114,7 +114,7 @@ function successResponses(answers: Answer | readonly Answer[]): Record<string, J
     if (!match) throw new Error(`Cannot read the answer "${answer}".`);
     const [, status, kind, what] = match as unknown as [string, string, string | undefined, string | undefined];
     out[status] = {
-      description: what ?? STATUS_WORDS[status] ?? status,
+      description: what ? what[0]!.toUpperCase() + what.slice(1) : (STATUS_WORDS[status] ?? status),
       ...(kind ? { content: CONTENT[kind] } : {}),
     };
   }
