@@ -1,12 +1,11 @@
 /**
- * Photos of a recipe version (design 3): added and removed only while the version is a
- * draft; served to anyone signed in. The bytes are checked by image-intake before
- * anything is written.
+ * Photos of a recipe version: added and removed only while the version is a draft (what
+ * was submitted never changes); served to anyone signed in. The bytes are checked by
+ * image-intake before anything is written.
  */
 import type { Knex } from 'knex';
-import { z } from 'zod';
 import type { AttachmentDto } from '../../shared/recipe-types';
-import { text } from '../../shared/schemas/numbers';
+import type { AttachmentFields } from '../../shared/schemas/attachment';
 import { AppError } from '../app-error';
 import { deleteAttachmentRow, findAttachmentMeta, insertAttachment, readAttachmentBytes, type AttachmentMetaRow } from '../data/attachments';
 import { findVersion, type VersionWithNames } from '../data/recipes';
@@ -18,13 +17,6 @@ import { toAttachmentDto } from './recipe-dto';
 
 /** Upload size cap: below MariaDB's default max_allowed_packet (16 MB) with room to spare. */
 export const MAX_ATTACHMENT_BYTES = 10 * 1024 * 1024;
-
-/** The text fields that travel with the file. */
-export const attachmentFields = z.strictObject({
-  role: z.enum(['setup', 'good-face', 'bad-face', 'other'], { error: 'Say what the photo shows: setup, good-face, bad-face or other.' }).default('other'),
-  caption: text('Caption', 300).default(''),
-});
-export type AttachmentFields = z.infer<typeof attachmentFields>;
 
 async function draftVersion(db: Knex, recipeId: number, version: number): Promise<VersionWithNames> {
   const row = await findVersion(db, recipeId, version);

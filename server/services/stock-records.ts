@@ -3,9 +3,8 @@
  * API returns, how a validated body becomes a row, which columns may sort a list and which
  * are searched. The stock service is written once against these descriptors.
  */
-import type { z } from 'zod';
 import type { HardnessScale, MaterialGroup } from '../../shared/vocabulary';
-import { machineBody, materialBody, wheelBody, type MachineBody, type MaterialBody, type WheelBody } from '../../shared/schemas/stock';
+import type { MachineBody, MaterialBody, WheelBody } from '../../shared/schemas/stock';
 import type { MachineRecord, MaterialRecord, WheelRecord } from '../../shared/stock-types';
 import { fromJsonColumn } from '../data/json-column';
 import type { StockRowBase, StockTable } from '../data/stock';
@@ -163,7 +162,6 @@ export interface StockKind<Body, Rec extends { id: number; archived: boolean; up
   entityType: AuditEntityType;
   /** "material", for messages. */
   noun: string;
-  body: z.ZodType<Body>;
   toRecord(row: never): Rec;
   values(body: Body): Record<string, unknown>;
   /** API sort name → column; anything else is refused. */
@@ -178,7 +176,6 @@ export const MATERIALS: StockKind<MaterialBody, MaterialRecord> = {
   table: 'materials',
   entityType: 'material',
   noun: 'material',
-  body: materialBody,
   toRecord: toMaterialRecord as (row: never) => MaterialRecord,
   values: materialValues,
   sortColumns: { name: 'name', designation: 'designation', group: 'material_group', condition: 'condition', updatedAt: 'updated_at' },
@@ -197,7 +194,6 @@ export const WHEELS: StockKind<WheelBody, WheelRecord> = {
   table: 'wheels',
   entityType: 'wheel',
   noun: 'wheel',
-  body: wheelBody,
   toRecord: toWheelRecord as (row: never) => WheelRecord,
   values: wheelValues,
   sortColumns: {
@@ -224,7 +220,6 @@ export const MACHINES: StockKind<MachineBody, MachineRecord> = {
   table: 'machines',
   entityType: 'machine',
   noun: 'machine',
-  body: machineBody,
   toRecord: toMachineRecord as (row: never) => MachineRecord,
   values: machineValues,
   sortColumns: { name: 'name', machineClass: 'machine_class', wheelDiameterMaxMm: 'wheel_diameter_max_mm', rpmMax: 'rpm_max', updatedAt: 'updated_at' },

@@ -9,7 +9,7 @@ export function isValidAccess(access: unknown): access is Access {
 }
 
 /** The per-route gate: anonymous → 401, password change pending → 403, role missing → 403. */
-export function requireAccess(route: RouteDefinition): RequestHandler {
+export function requireAccess(route: Pick<RouteDefinition, 'access' | 'whilePasswordChangeRequired'>): RequestHandler {
   return (req, _res, next) => {
     if (route.access === 'public') return next();
     const user = req.user;

@@ -1,7 +1,7 @@
 import { z } from 'zod';
 import { idParam, newPassword } from './fields';
 
-/** Machines an operator runs: ids of existing machines, each once. */
+/** Machines an operator runs (their acknowledgements and the finder's default machine): ids of existing machines, each once. */
 export const machineIdList = z
   .array(idParam, { error: 'Machines must be a list of machine ids.' })
   .max(100, 'At most 100 machines.')
@@ -33,7 +33,15 @@ export type LinkTokenBody = z.infer<typeof linkTokenBody>;
 export const setPasswordBody = z.strictObject({ token: linkToken, newPassword });
 export type SetPasswordBody = z.infer<typeof setPasswordBody>;
 
-/** PATCH /api/session/notifications — turn optional mails on or off; absent kinds stay as they are. */
+/** Why the request to acknowledge a new version has no off switch. */
+export const MANDATORY_KIND_MESSAGE =
+  'The mail asking you to acknowledge a new version in use on your machine cannot be turned off: operators must hear of every change to their recipes.';
+
+/**
+ * PATCH /api/session/notifications — turn optional mails on or off; absent kinds stay as
+ * they are. The mandatory kind is named so that sending it gets its own reason, not
+ * "unknown key".
+ */
 const onOff = (kind: string) => z.boolean({ error: `"${kind}" must be true or false.` }).optional();
 export const notificationPreferencesBody = z
   .strictObject({
@@ -41,6 +49,7 @@ export const notificationPreferencesBody = z
     'review-outcome': onOff('review-outcome'),
     'review-due': onOff('review-due'),
     'cut-flagged': onOff('cut-flagged'),
+    'version-current': z.never({ error: MANDATORY_KIND_MESSAGE }).optional().describe('Cannot be sent: this mail cannot be turned off.'),
   })
   .refine((b) => Object.values(b).some((v) => v !== undefined), 'Nothing to change.');
 export type NotificationPreferencesBody = z.infer<typeof notificationPreferencesBody>;

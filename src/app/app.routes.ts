@@ -165,6 +165,13 @@ export const routes: Routes = [
         loadComponent: () => import('./outbox/outbox').then((m) => m.Outbox),
       },
       {
+        path: 'api-reference',
+        title: 'API reference · Kerfbook',
+        canActivate: [accessGuard],
+        data: { access: ['admin'] } satisfies AccessData,
+        loadComponent: () => import('./api-reference/api-reference').then((m) => m.ApiReference),
+      },
+      {
         path: 'account',
         title: 'My account · Kerfbook',
         canActivate: [accessGuard],

@@ -45,8 +45,8 @@ export function queryRecorder(db: Knex) {
 }
 
 /** The access gate of a route-table entry, reused so the bench routes pay what real ones pay. */
-function gate(path: string, access: RouteDefinition['access']) {
-  return requireAccess({ method: 'get', path, access, handler: () => undefined });
+function gate(access: RouteDefinition['access']) {
+  return requireAccess({ access });
 }
 
 /** A one-page sheet-like document: the sheet's fonts, a heading and a few lines. */
@@ -68,24 +68,24 @@ export function barePdf(): Promise<Buffer> {
 export function benchRouter(db: Knex, recorder: ReturnType<typeof queryRecorder>): Router {
   const router = express.Router();
 
-  router.get('/bench/baseline', gate('/api/bench/baseline', 'signedIn'), async (req, res) => {
+  router.get('/bench/baseline', gate('signedIn'), async (req, res) => {
     const row = (await db('users').where({ id: req.user!.id }).first('id', 'username', 'display_name')) as
       | { id: number; username: string; display_name: string }
       | undefined;
     res.json({ id: row?.id ?? null, username: row?.username ?? null, displayName: row?.display_name ?? null });
   });
 
-  router.get('/bench/bare-pdf', gate('/api/bench/bare-pdf', 'signedIn'), async (_req, res) => {
+  router.get('/bench/bare-pdf', gate('signedIn'), async (_req, res) => {
     const pdf = await barePdf();
     res.status(200).set({ 'Content-Type': 'application/pdf', 'Cache-Control': 'no-store', 'Content-Length': String(pdf.length) }).end(pdf);
   });
 
-  router.post('/bench/capture', gate('/api/bench/capture', ['admin']), (_req, res) => {
+  router.post('/bench/capture', gate(['admin']), (_req, res) => {
     recorder.start();
     res.status(204).end();
   });
 
-  router.get('/bench/captured', gate('/api/bench/captured', ['admin']), (_req, res) => {
+  router.get('/bench/captured', gate(['admin']), (_req, res) => {
     res.json(recorder.stop());
   });
 

@@ -1,27 +1,20 @@
-/** Photo uploads (multipart, read by the route's multer step) and serving the stored bytes. */
+/** Photos: uploads (multipart, read by the route's multer step) and serving the stored bytes. */
 import type { Response } from 'express';
-import { z } from 'zod';
-import { idParam } from '../../../shared/schemas/fields';
+import type { attachmentFields } from '../../../shared/schemas/attachment';
+import type { idParams, versionAttachmentParams, versionParams } from '../../../shared/schemas/params';
 import { AppError } from '../../app-error';
 import * as attachments from '../../services/attachments';
 import type { RouteHandler } from '../route-definition';
-import { idOf, parse } from './parse';
 import { actorOf } from './request-actor';
 
-const versionParams = z.object({ id: idParam, n: idParam });
-const attachmentParams = z.object({ id: idParam, n: idParam, attachmentId: idParam });
-
-export const upload: RouteHandler = async (req, res, { db }) => {
-  const { id, n } = parse(versionParams, req.params);
-  const fields = parse(attachments.attachmentFields, req.body ?? {});
+export const upload: RouteHandler<{ params: typeof versionParams; body: typeof attachmentFields }> = async (req, res, { db }, { params: { id, n }, body }) => {
   const file = req.file;
   if (!file) throw AppError.validation([{ path: 'file', message: 'Attach a photo (JPEG, PNG or WebP) in the form field "file".' }]);
-  const dto = await attachments.addAttachment(db, actorOf(req), id, n, fields, { bytes: file.buffer, fileName: file.originalname, declaredType: file.mimetype });
+  const dto = await attachments.addAttachment(db, actorOf(req), id, n, body, { bytes: file.buffer, fileName: file.originalname, declaredType: file.mimetype });
   res.status(201).json(dto);
 };
 
-export const remove: RouteHandler = async (req, res, { db }) => {
-  const { id, n, attachmentId } = parse(attachmentParams, req.params);
+export const remove: RouteHandler<{ params: typeof versionAttachmentParams }> = async (req, res, { db }, { params: { id, n, attachmentId } }) => {
   await attachments.deleteAttachment(db, actorOf(req), id, n, attachmentId);
   res.status(204).end();
 };
@@ -44,10 +37,10 @@ function send(res: Response, image: attachments.ServedImage, ifNoneMatch: string
   res.type(image.mimeType).send(image.bytes);
 }
 
-export const image: RouteHandler = async (req, res, { db }) => {
-  send(res, await attachments.readAttachment(db, idOf(req.params), 'image'), req.headers['if-none-match']);
+export const image: RouteHandler<{ params: typeof idParams }> = async (req, res, { db }, { params }) => {
+  send(res, await attachments.readAttachment(db, params.id, 'image'), req.headers['if-none-match']);
 };
 
-export const thumbnail: RouteHandler = async (req, res, { db }) => {
-  send(res, await attachments.readAttachment(db, idOf(req.params), 'thumbnail'), req.headers['if-none-match']);
+export const thumbnail: RouteHandler<{ params: typeof idParams }> = async (req, res, { db }, { params }) => {
+  send(res, await attachments.readAttachment(db, params.id, 'thumbnail'), req.headers['if-none-match']);
 };

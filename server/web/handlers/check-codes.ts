@@ -1,13 +1,8 @@
-import { z } from 'zod';
-import { checkCodeParam } from '../../../shared/schemas/operator';
+import type { checkCodeParams } from '../../../shared/schemas/params';
 import { checkCode } from '../../services/check-codes';
 import type { RouteHandler } from '../route-definition';
-import { parse } from './parse';
-
-const params = z.object({ code: checkCodeParam });
 
 /** GET /api/check/:code — is the printed sheet with this code still the one to use? */
-export const check: RouteHandler = async (req, res, { db }) => {
-  const { code } = parse(params, req.params);
-  res.json(await checkCode(db, code));
+export const check: RouteHandler<{ params: typeof checkCodeParams }> = async (_req, res, { db }, { params }) => {
+  res.json(await checkCode(db, params.code));
 };

@@ -1,12 +1,10 @@
-import { compareQuery } from '../../../shared/schemas/workflow';
+import type { idParams } from '../../../shared/schemas/params';
+import type { compareQuery } from '../../../shared/schemas/workflow';
 import * as compare from '../../services/compare';
 import { versionScopeOf } from '../../services/operator-visibility';
 import type { RouteHandler } from '../route-definition';
-import { idOf, parse } from './parse';
 
-export const versions: RouteHandler = async (req, res, { db }) => {
-  const recipeId = idOf(req.params);
-  const { from, to } = parse(compareQuery, req.query);
-  // Units as the person chose to see them (design 5.10): the labels carry the values.
-  res.json(await compare.compareRecipeVersions(db, recipeId, from, to, req.user?.units ?? 'metric', versionScopeOf(req.user?.roles)));
+export const versions: RouteHandler<{ params: typeof idParams; query: typeof compareQuery }> = async (req, res, { db }, { params, query: { from, to } }) => {
+  // Units as the person chose to see them: the labels carry the values.
+  res.json(await compare.compareRecipeVersions(db, params.id, from, to, req.user?.units ?? 'metric', versionScopeOf(req.user?.roles)));
 };

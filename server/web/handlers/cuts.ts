@@ -1,28 +1,19 @@
-import { z } from 'zod';
-import { idParam } from '../../../shared/schemas/fields';
-import { cutRecordBody, cutSearchQuery } from '../../../shared/schemas/operator';
+import type { cutRecordBody, cutSearchQuery } from '../../../shared/schemas/operator';
+import type { cutParams, versionParams } from '../../../shared/schemas/params';
 import * as cuts from '../../services/cuts';
 import { versionScopeOf } from '../../services/operator-visibility';
 import type { RouteHandler } from '../route-definition';
-import { bodyOf, parse } from './parse';
 import { actorOf } from './request-actor';
 
-const versionParams = z.object({ id: idParam, n: idParam });
-const cutParams = z.object({ cutId: idParam });
-
-export const record: RouteHandler = async (req, res, { db, mail }) => {
-  const { id, n } = parse(versionParams, req.params);
-  const body = parse(cutRecordBody, bodyOf(req.body));
+export const record: RouteHandler<{ params: typeof versionParams; body: typeof cutRecordBody }> = async (req, res, { db, mail }, { params: { id, n }, body }) => {
   res.status(201).json(await cuts.recordCut(db, actorOf(req), versionScopeOf(req.user?.roles), id, n, body, new Date(), mail));
 };
 
-export const listOfVersion: RouteHandler = async (req, res, { db }) => {
-  const { id, n } = parse(versionParams, req.params);
+export const listOfVersion: RouteHandler<{ params: typeof versionParams }> = async (req, res, { db }, { params: { id, n } }) => {
   res.json(await cuts.listVersionCuts(db, versionScopeOf(req.user?.roles), id, n));
 };
 
-export const csv: RouteHandler = async (req, res, { db }) => {
-  const { id, n } = parse(versionParams, req.params);
+export const csv: RouteHandler<{ params: typeof versionParams }> = async (req, res, { db }, { params: { id, n } }) => {
   const file = await cuts.versionCutsCsv(db, versionScopeOf(req.user?.roles), id, n);
   res.setHeader('Content-Type', 'text/csv; charset=utf-8');
   res.setHeader('Content-Disposition', `attachment; filename="${file.fileName}"`);
@@ -30,11 +21,10 @@ export const csv: RouteHandler = async (req, res, { db }) => {
   res.send(file.text);
 };
 
-export const search: RouteHandler = async (req, res, { db }) => {
-  res.json(await cuts.traceSpecimen(db, parse(cutSearchQuery, req.query).specimenId));
+export const search: RouteHandler<{ query: typeof cutSearchQuery }> = async (_req, res, { db }, { query }) => {
+  res.json(await cuts.traceSpecimen(db, query.specimenId));
 };
 
-export const clearFlag: RouteHandler = async (req, res, { db }) => {
-  const { cutId } = parse(cutParams, req.params);
-  res.json(await cuts.clearFlag(db, actorOf(req), cutId));
+export const clearFlag: RouteHandler<{ params: typeof cutParams }> = async (req, res, { db }, { params }) => {
+  res.json(await cuts.clearFlag(db, actorOf(req), params.cutId));
 };

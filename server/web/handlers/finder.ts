@@ -1,8 +1,7 @@
-import { finderQuery } from '../../../shared/schemas/operator';
+import type { finderQuery } from '../../../shared/schemas/operator';
 import { findRecipes } from '../../services/finder';
 import type { RouteHandler } from '../route-definition';
-import { parse } from './parse';
 
-export const find: RouteHandler = async (req, res, { db }) => {
-  res.json(await findRecipes(db, parse(finderQuery, req.query)));
+export const find: RouteHandler<{ query: typeof finderQuery }> = async (_req, res, { db }, { query }) => {
+  res.json(await findRecipes(db, query));
 };

@@ -1,8 +1,7 @@
 import { setTimeout as sleep } from 'node:timers/promises';
-import { forgotPasswordBody, linkTokenBody, setPasswordBody } from '../../../shared/schemas/mail';
+import type { forgotPasswordBody, linkTokenBody, setPasswordBody } from '../../../shared/schemas/mail';
 import { FORGOT_FLOOR_MS, inspectLink, requestPasswordReset, setPasswordWithLink } from '../../services/password-links';
 import type { RouteHandler } from '../route-definition';
-import { bodyOf, parse } from './parse';
 import { actorOf } from './request-actor';
 
 /**
@@ -10,9 +9,8 @@ import { actorOf } from './request-actor';
  * the work is done first, then the rest of the floor is waited out, so neither the answer
  * nor its time tells whether the address belongs to anyone.
  */
-export const forgot: RouteHandler = async (req, res, { db, mail }) => {
+export const forgot: RouteHandler<{ body: typeof forgotPasswordBody }> = async (req, res, { db, mail }, { body }) => {
   const started = Date.now();
-  const body = parse(forgotPasswordBody, bodyOf(req.body));
   const answer = await requestPasswordReset(db, actorOf(req), mail, body.email);
   const rest = started + FORGOT_FLOOR_MS - Date.now();
   if (rest > 0) await sleep(rest);
@@ -20,13 +18,11 @@ export const forgot: RouteHandler = async (req, res, { db, mail }) => {
 };
 
 /** POST /api/password/link — what a link is for (LinkInfoDto), or why it no longer works. */
-export const inspect: RouteHandler = async (req, res, { db }) => {
-  const body = parse(linkTokenBody, bodyOf(req.body));
+export const inspect: RouteHandler<{ body: typeof linkTokenBody }> = async (_req, res, { db }, { body }) => {
   res.json(await inspectLink(db, body.token));
 };
 
 /** POST /api/password/set — use the link once to set a password; the person then signs in. */
-export const set: RouteHandler = async (req, res, { db }) => {
-  const body = parse(setPasswordBody, bodyOf(req.body));
+export const set: RouteHandler<{ body: typeof setPasswordBody }> = async (req, res, { db }, { body }) => {
   res.json(await setPasswordWithLink(db, actorOf(req), body.token, body.newPassword));
 };

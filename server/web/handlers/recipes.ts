@@ -1,35 +1,27 @@
-import { z } from 'zod';
-import { idParam } from '../../../shared/schemas/fields';
-import { createRecipeBody, recipeListQuery, saveDraftBody } from '../../../shared/schemas/recipe';
+import type { idParams, versionParams } from '../../../shared/schemas/params';
+import type { createRecipeBody, recipeListQuery, saveDraftBody } from '../../../shared/schemas/recipe';
 import { versionScopeOf } from '../../services/operator-visibility';
 import * as recipes from '../../services/recipes';
 import type { RouteHandler } from '../route-definition';
-import { bodyOf, idOf, parse } from './parse';
 import { actorOf } from './request-actor';
 
-const versionParams = z.object({ id: idParam, n: idParam });
-
-export const list: RouteHandler = async (req, res, { db }) => {
-  res.json(await recipes.listRecipes(db, parse(recipeListQuery, req.query), versionScopeOf(req.user?.roles)));
+export const list: RouteHandler<{ query: typeof recipeListQuery }> = async (req, res, { db }, { query }) => {
+  res.json(await recipes.listRecipes(db, query, versionScopeOf(req.user?.roles)));
 };
 
-export const create: RouteHandler = async (req, res, { db }) => {
-  const body = parse(createRecipeBody, bodyOf(req.body));
+export const create: RouteHandler<{ body: typeof createRecipeBody }> = async (req, res, { db }, { body }) => {
   res.status(201).json(await recipes.createRecipe(db, actorOf(req), body));
 };
 
-export const versions: RouteHandler = async (req, res, { db }) => {
-  res.json(await recipes.listVersions(db, idOf(req.params), versionScopeOf(req.user?.roles)));
+export const versions: RouteHandler<{ params: typeof idParams }> = async (req, res, { db }, { params }) => {
+  res.json(await recipes.listVersions(db, params.id, versionScopeOf(req.user?.roles)));
 };
 
-export const getVersion: RouteHandler = async (req, res, { db }) => {
-  const { id, n } = parse(versionParams, req.params);
+export const getVersion: RouteHandler<{ params: typeof versionParams }> = async (req, res, { db }, { params: { id, n } }) => {
   const viewer = req.user ? { id: req.user.id, roles: req.user.roles } : undefined;
   res.json(await recipes.getVersion(db, id, n, versionScopeOf(req.user?.roles), viewer));
 };
 
-export const saveDraft: RouteHandler = async (req, res, { db }) => {
-  const { id, n } = parse(versionParams, req.params);
-  const body = parse(saveDraftBody, bodyOf(req.body));
+export const saveDraft: RouteHandler<{ params: typeof versionParams; body: typeof saveDraftBody }> = async (req, res, { db }, { params: { id, n }, body }) => {
   res.json(await recipes.saveDraft(db, actorOf(req), id, n, body));
 };

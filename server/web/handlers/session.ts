@@ -1,12 +1,11 @@
 import type { CsrfDto, SessionDto, UserDto } from '../../../shared/api-types';
-import { changePasswordBody, preferencesBody, signInBody } from '../../../shared/schemas/session';
+import type { changePasswordBody, preferencesBody, signInBody } from '../../../shared/schemas/session';
 import { changeOwnPassword, recordSignOut, updatePreferences as saveUnits } from '../../services/account';
 import type { SessionUser } from '../../services/session-user';
 import { authenticateWithPassword, destroySession, startSession } from '../authentication';
 import { CSRF_COOKIE } from '../csrf';
 import type { RouteHandler } from '../route-definition';
 import { SESSION_COOKIE } from '../session-cookie';
-import { bodyOf, parse } from './parse';
 import { actorOf } from './request-actor';
 
 function toDto({ sessionEpoch: _epoch, ...user }: SessionUser): UserDto {
@@ -26,13 +25,14 @@ export const current: RouteHandler = (req, res, { csrf, devOutbox }) => {
   res.json(body);
 };
 
-export const signIn: RouteHandler = async (req, res, { csrf, auth, devOutbox }) => {
-  req.body = parse(signInBody, bodyOf(req.body));
+export const signIn: RouteHandler<{ body: typeof signInBody }> = async (req, res, { csrf, auth, devOutbox }, { body }) => {
+  // The password strategy reads the request body: hand it the validated one.
+  req.body = body;
   const user = await authenticateWithPassword(auth, req, res);
   await startSession(req, user);
   // New session id → the old token no longer matches: hand out a fresh one.
-  const body: SessionDto = { user: toDto(user), csrfToken: csrf.issue(req, res, true), devOutbox };
-  res.json(body);
+  const answer: SessionDto = { user: toDto(user), csrfToken: csrf.issue(req, res, true), devOutbox };
+  res.json(answer);
 };
 
 export const signOut: RouteHandler = async (req, res, { db }) => {
@@ -43,8 +43,7 @@ export const signOut: RouteHandler = async (req, res, { db }) => {
   res.status(204).end();
 };
 
-export const changePassword: RouteHandler = async (req, res, { db, csrf, devOutbox }) => {
-  const body = parse(changePasswordBody, bodyOf(req.body));
+export const changePassword: RouteHandler<{ body: typeof changePasswordBody }> = async (req, res, { db, csrf, devOutbox }, { body }) => {
   const user = await changeOwnPassword(db, actorOf(req), req.user!.id, body.currentPassword, body.newPassword);
   // Every other session just ended (epoch bump); this one carries on under a new id.
   await startSession(req, user);
@@ -52,8 +51,7 @@ export const changePassword: RouteHandler = async (req, res, { db, csrf, devOutb
   res.json(answer);
 };
 
-export const updatePreferences: RouteHandler = async (req, res, { db, csrf, devOutbox }) => {
-  const body = parse(preferencesBody, bodyOf(req.body));
+export const updatePreferences: RouteHandler<{ body: typeof preferencesBody }> = async (req, res, { db, csrf, devOutbox }, { body }) => {
   const user = await saveUnits(db, actorOf(req), req.user!.id, body.units);
   const answer: SessionDto = { user: toDto(user), csrfToken: csrf.issue(req, res), devOutbox };
   res.json(answer);

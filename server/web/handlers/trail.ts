@@ -1,16 +1,15 @@
 import { Readable } from 'node:stream';
 import { pipeline } from 'node:stream/promises';
-import { auditQuery } from '../../../shared/schemas/workflow';
+import type { auditQuery } from '../../../shared/schemas/workflow';
 import * as trail from '../../services/trail';
 import type { RouteHandler } from '../route-definition';
-import { parse } from './parse';
 
-export const list: RouteHandler = async (req, res, { db }) => {
-  res.json(await trail.listTrail(db, parse(auditQuery, req.query)));
+export const list: RouteHandler<{ query: typeof auditQuery }> = async (_req, res, { db }, { query }) => {
+  res.json(await trail.listTrail(db, query));
 };
 
-export const csv: RouteHandler = async (req, res, { db }) => {
-  const chunks = await trail.openTrailCsv(db, parse(auditQuery, req.query));
+export const csv: RouteHandler<{ query: typeof auditQuery }> = async (req, res, { db }, { query }) => {
+  const chunks = await trail.openTrailCsv(db, query);
   res.setHeader('Content-Type', 'text/csv; charset=utf-8');
   res.setHeader('Content-Disposition', `attachment; filename="${trail.csvFileName()}"`);
   // A trail export is a record of its moment: never serve it from a cache.

@@ -1,49 +1,40 @@
-import { z } from 'zod';
-import { idParam } from '../../../shared/schemas/fields';
-import { approveBody, commentBody, newVersionBody, returnBody, submitBody, withdrawBody } from '../../../shared/schemas/workflow';
+import type { idParams, versionParams } from '../../../shared/schemas/params';
+import type { approveBody, commentBody, newVersionBody, returnBody, submitBody, withdrawBody } from '../../../shared/schemas/workflow';
 import { versionScopeOf } from '../../services/operator-visibility';
 import * as comments from '../../services/review-comments';
 import { listReviewsDue } from '../../services/today';
 import * as workflow from '../../services/workflow';
 import type { RouteHandler } from '../route-definition';
-import { bodyOf, idOf, parse } from './parse';
 import { actorOf } from './request-actor';
 
-const versionParams = z.object({ id: idParam, n: idParam });
+type OnVersion = { params: typeof versionParams };
 
-export const submit: RouteHandler = async (req, res, { db, mail }) => {
-  const { id, n } = parse(versionParams, req.params);
-  res.json(await workflow.submitVersion(db, actorOf(req), id, n, parse(submitBody, bodyOf(req.body)), new Date(), mail));
+export const submit: RouteHandler<OnVersion & { body: typeof submitBody }> = async (req, res, { db, mail }, { params: { id, n }, body }) => {
+  res.json(await workflow.submitVersion(db, actorOf(req), id, n, body, new Date(), mail));
 };
 
-export const returnToAuthor: RouteHandler = async (req, res, { db, mail }) => {
-  const { id, n } = parse(versionParams, req.params);
-  res.json(await workflow.returnVersion(db, actorOf(req), id, n, parse(returnBody, bodyOf(req.body)), new Date(), mail));
+export const returnToAuthor: RouteHandler<OnVersion & { body: typeof returnBody }> = async (req, res, { db, mail }, { params: { id, n }, body }) => {
+  res.json(await workflow.returnVersion(db, actorOf(req), id, n, body, new Date(), mail));
 };
 
-export const approve: RouteHandler = async (req, res, { db, mail }) => {
-  const { id, n } = parse(versionParams, req.params);
-  res.json(await workflow.approveVersion(db, actorOf(req), id, n, parse(approveBody, bodyOf(req.body)), new Date(), mail));
+export const approve: RouteHandler<OnVersion & { body: typeof approveBody }> = async (req, res, { db, mail }, { params: { id, n }, body }) => {
+  res.json(await workflow.approveVersion(db, actorOf(req), id, n, body, new Date(), mail));
 };
 
-export const withdraw: RouteHandler = async (req, res, { db }) => {
-  const { id, n } = parse(versionParams, req.params);
-  res.json(await workflow.withdrawVersion(db, actorOf(req), id, n, parse(withdrawBody, bodyOf(req.body))));
+export const withdraw: RouteHandler<OnVersion & { body: typeof withdrawBody }> = async (req, res, { db }, { params: { id, n }, body }) => {
+  res.json(await workflow.withdrawVersion(db, actorOf(req), id, n, body));
 };
 
-export const newVersion: RouteHandler = async (req, res, { db }) => {
-  const id = idOf(req.params);
-  res.status(201).json(await workflow.createNextVersion(db, actorOf(req), id, parse(newVersionBody, bodyOf(req.body))));
+export const newVersion: RouteHandler<{ params: typeof idParams; body: typeof newVersionBody }> = async (req, res, { db }, { params, body }) => {
+  res.status(201).json(await workflow.createNextVersion(db, actorOf(req), params.id, body));
 };
 
-export const listComments: RouteHandler = async (req, res, { db }) => {
-  const { id, n } = parse(versionParams, req.params);
+export const listComments: RouteHandler<OnVersion> = async (req, res, { db }, { params: { id, n } }) => {
   res.json(await comments.listComments(db, id, n, versionScopeOf(req.user?.roles)));
 };
 
-export const addComment: RouteHandler = async (req, res, { db }) => {
-  const { id, n } = parse(versionParams, req.params);
-  res.status(201).json(await comments.addComment(db, actorOf(req), id, n, parse(commentBody, bodyOf(req.body))));
+export const addComment: RouteHandler<OnVersion & { body: typeof commentBody }> = async (req, res, { db }, { params: { id, n }, body }) => {
+  res.status(201).json(await comments.addComment(db, actorOf(req), id, n, body));
 };
 
 export const reviewsDue: RouteHandler = async (_req, res, { db }) => {

@@ -1,13 +1,15 @@
 /**
  * Walking the real route table (server/web/routes.ts): throw-away records the paths point
- * at, a concrete path for every route, and a recorder of which table lines really reached
- * their handler. Used by the role walk, the access tests and the API fuzzer.
+ * at, a concrete path for every route, and a recorder of which table lines really got
+ * through to their own step (validation, then handler). Used by the role walk, the access
+ * tests and the API fuzzer.
  */
 import type { Knex } from 'knex';
 import sharp from 'sharp';
 import { CSRF_HEADER } from '../../../shared/api-types';
-import type { RouteDefinition, RouteHandler } from '../../../server/web/route-definition';
+import type { RouteDefinition } from '../../../server/web/route-definition';
 import { routes } from '../../../server/web/routes';
+import { startValidationRecording } from '../../../server/web/validation-recorder';
 import { createRecipe } from '../../../server/services/recipes';
 import { createSelectionRow } from '../../../server/services/selection-rows';
 import { addAttachment } from '../../../server/services/attachments';
@@ -110,25 +112,17 @@ export function isWrite(route: RouteDefinition): boolean {
 }
 
 /**
- * Records which lines of the route table reached their handler (past access and body
- * parsing): wraps each handler in place until `restore()`. The app reads `route.handler`
- * at call time, so an app built before or after the wrap is observed alike.
+ * Records which lines of the route table got through to their own step (past access, CSRF
+ * and body parsing: the validation of the declared request parts, then the handler) until
+ * `restore()`. Requests to routes of any app built from the table count alike.
  */
-export function recordHandlerCalls(table: readonly RouteDefinition[] = routes): { reached: Set<string>; restore(): void } {
-  const reached = new Set<string>();
-  const originals = new Map<RouteDefinition, RouteHandler>();
-  for (const route of table) {
-    const original = route.handler;
-    originals.set(route, original);
-    (route as { handler: RouteHandler }).handler = (req, res, ctx) => {
-      reached.add(label(route));
-      return original(req, res, ctx);
-    };
-  }
+export function recordHandlerCalls(table: readonly RouteDefinition[] = routes): { readonly reached: Set<string>; restore(): void } {
+  const recording = startValidationRecording();
+  const lines = new Set(table.map(label));
   return {
-    reached,
-    restore: () => {
-      for (const [route, original] of originals) (route as { handler: RouteHandler }).handler = original;
+    get reached() {
+      return new Set(recording.requests.map((r) => label({ method: r.method, path: r.routePath })).filter((line) => lines.has(line)));
     },
+    restore: () => recording.stop(),
   };
 }
