@@ -20,7 +20,7 @@ import { chainRows, insertable, jsonText, lastEventId, linksHold, withoutTrigger
 /** `npm run trail:verify` as an operator would run it: its own process, DATABASE_URL only. */
 function runCli(): Promise<{ code: number; output: string }> {
   return new Promise((resolve, reject) => {
-    const child = spawn('npx', ['tsx', 'server/tools/trail-verify.ts'], {
+    const child = spawn('npx', ['tsx', 'server/cli/trail-verify.ts'], {
       cwd: process.cwd(),
       env: { ...process.env, DATABASE_URL: testDatabaseUrl(), FORCE_COLOR: '0' },
     });
