@@ -18,10 +18,10 @@ import { securityHeaders } from './web/security-headers';
 import { sessionMiddleware } from './web/session-cookie';
 import { SessionStore } from './web/session-store';
 import { spa } from './web/spa';
-import { startSupersessionTimer } from './services/supersession';
-import { startReviewReminderTimer } from './services/review-reminders';
-import { createMailTransport, startMailWorker } from './services/mail-worker';
-import { mailSettingsOf } from './services/mail/mail-settings';
+import { startSupersessionTimer } from './services/recipes/supersession';
+import { startReviewReminderTimer } from './services/mail/review-reminders';
+import { createMailTransport, startMailWorker } from './services/mail/worker';
+import { mailSettingsOf } from './services/mail/settings';
 
 export interface AppDeps {
   config: Config;

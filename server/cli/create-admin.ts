@@ -10,7 +10,7 @@ import { createUserBody } from '../../shared/schemas/users';
 import { describeApiError } from '../../shared/api-error';
 import { toFieldErrors } from '../../shared/validation';
 import { AppError } from '../app-error';
-import { createUser } from '../services/users';
+import { createUser } from '../services/people/users';
 
 const USAGE = 'Usage: KERFBOOK_ADMIN_PASSWORD=… DATABASE_URL=mysql://… npm run admin:create -- <username> "<Display Name>" [e-mail]';
 

@@ -4,7 +4,7 @@
  * (naming the first broken row), 2 when it could not check at all.
  */
 import { createDb } from '../data/db';
-import { describeVerification, verifyChain } from '../services/trail';
+import { describeVerification, verifyChain } from '../services/trail/verify';
 
 const url = process.env['DATABASE_URL'];
 if (!url) {

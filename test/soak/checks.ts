@@ -6,8 +6,8 @@
  * without a restart, every mail sent once).
  */
 import type { Knex } from 'knex';
-import { CLAIM_MS } from '../../server/services/mail-worker';
-import { verifyChain } from '../../server/services/trail';
+import { CLAIM_MS } from '../../server/services/mail/worker';
+import { verifyChain } from '../../server/services/trail/verify';
 import type { CaughtMail } from '../../server/tools/mail-catcher';
 import type { FaultLog } from './faults';
 import type { RequestRecord } from './client';

@@ -12,9 +12,9 @@ import { machineBody } from '../../shared/schemas/stock';
 import { addOptOut } from '../../server/data/notification-opt-outs';
 import { insertUser } from '../../server/data/users';
 import type { Actor } from '../../server/services/actor';
-import { hashPassword } from '../../server/services/passwords';
-import { createStock } from '../../server/services/stock';
-import { MACHINES } from '../../server/services/stock-records';
+import { hashPassword } from '../../server/services/auth/passwords';
+import { createStock } from '../../server/services/stock/stock';
+import { MACHINES } from '../../server/services/stock/records';
 import { DEMO_MACHINES } from '../../seeds/data/demo-stock';
 
 export type SoakRole = 'operator' | 'author' | 'approver' | 'auditor';

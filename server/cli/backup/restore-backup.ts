@@ -18,7 +18,7 @@ import { pipeline } from 'node:stream/promises';
 import type mysql from 'mysql2/promise';
 import type { ChainVerification } from '../../../shared/recipe-types';
 import { MIGRATIONS_DIR, createDb } from '../../data/db';
-import { describeVerification, verifyChain } from '../../services/trail';
+import { describeVerification, verifyChain } from '../../services/trail/verify';
 import { migrate } from '../../data/migrate';
 import { NotABackupError, openBackup } from './archive';
 import { makeBackup } from './make-backup';

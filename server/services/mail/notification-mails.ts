@@ -5,9 +5,9 @@
  */
 import { isOptional, type NotificationKind } from '../../../shared/notification-kinds';
 import { CUT_OUTCOME_LABELS, type CutOutcome } from '../../../shared/vocabulary';
-import type { OutgoingMail } from '../mail-outbox';
-import { absoluteLink, composeMail, type MailLink } from './mail-layout';
-import type { MailSettings } from './mail-settings';
+import type { OutgoingMail } from './outbox';
+import { absoluteLink, composeMail, type MailLink } from './layout';
+import type { MailSettings } from './settings';
 import type { Recipient } from './recipients';
 
 /** The version a mail is about. */

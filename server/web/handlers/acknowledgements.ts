@@ -1,7 +1,7 @@
 import { z } from 'zod';
 import { idParam } from '../../../shared/schemas/fields';
-import * as acknowledgements from '../../services/acknowledgements';
-import { versionScopeOf } from '../../services/operator-visibility';
+import * as acknowledgements from '../../services/recipes/acknowledgements';
+import { versionScopeOf } from '../../services/operator/visibility';
 import type { RouteHandler } from '../route-definition';
 import { parse } from './parse';
 import { actorOf } from './request-actor';

@@ -3,7 +3,7 @@ import type { Response } from 'express';
 import { z } from 'zod';
 import { idParam } from '../../../shared/schemas/fields';
 import { AppError } from '../../app-error';
-import * as attachments from '../../services/attachments';
+import * as attachments from '../../services/recipes/attachments';
 import type { RouteHandler } from '../route-definition';
 import { idOf, parse } from './parse';
 import { actorOf } from './request-actor';

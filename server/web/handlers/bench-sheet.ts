@@ -1,8 +1,8 @@
 import { z } from 'zod';
 import { idParam } from '../../../shared/schemas/fields';
 import { AppError } from '../../app-error';
-import { printBenchSheet } from '../../services/bench-sheet';
-import { versionScopeOf } from '../../services/operator-visibility';
+import { printBenchSheet } from '../../services/bench-sheet/print';
+import { versionScopeOf } from '../../services/operator/visibility';
 import type { RouteHandler } from '../route-definition';
 import { parse } from './parse';
 import { actorOf } from './request-actor';

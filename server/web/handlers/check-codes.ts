@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import { checkCodeParam } from '../../../shared/schemas/operator';
-import { checkCode } from '../../services/check-codes';
+import { checkCode } from '../../services/recipes/check-codes';
 import type { RouteHandler } from '../route-definition';
 import { parse } from './parse';
 

@@ -1,6 +1,6 @@
 import { compareQuery } from '../../../shared/schemas/workflow';
-import * as compare from '../../services/compare';
-import { versionScopeOf } from '../../services/operator-visibility';
+import * as compare from '../../services/recipes/compare';
+import { versionScopeOf } from '../../services/operator/visibility';
 import type { RouteHandler } from '../route-definition';
 import { idOf, parse } from './parse';
 

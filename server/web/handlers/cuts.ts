@@ -1,8 +1,8 @@
 import { z } from 'zod';
 import { idParam } from '../../../shared/schemas/fields';
 import { cutRecordBody, cutSearchQuery } from '../../../shared/schemas/operator';
-import * as cuts from '../../services/cuts';
-import { versionScopeOf } from '../../services/operator-visibility';
+import * as cuts from '../../services/operator/cuts';
+import { versionScopeOf } from '../../services/operator/visibility';
 import type { RouteHandler } from '../route-definition';
 import { bodyOf, parse } from './parse';
 import { actorOf } from './request-actor';

@@ -1,5 +1,5 @@
 import { finderQuery } from '../../../shared/schemas/operator';
-import { findRecipes } from '../../services/finder';
+import { findRecipes } from '../../services/operator/finder';
 import type { RouteHandler } from '../route-definition';
 import { parse } from './parse';
 

@@ -1,5 +1,5 @@
 import { notificationPreferencesBody } from '../../../shared/schemas/mail';
-import { assertNoMandatoryOptOut, getNotificationPreferences, updateNotificationPreferences } from '../../services/notification-preferences';
+import { assertNoMandatoryOptOut, getNotificationPreferences, updateNotificationPreferences } from '../../services/mail/preferences';
 import type { RouteHandler } from '../route-definition';
 import { bodyOf, parse } from './parse';
 import { actorOf } from './request-actor';

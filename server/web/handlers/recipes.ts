@@ -1,8 +1,8 @@
 import { z } from 'zod';
 import { idParam } from '../../../shared/schemas/fields';
 import { createRecipeBody, recipeListQuery, saveDraftBody } from '../../../shared/schemas/recipe';
-import { versionScopeOf } from '../../services/operator-visibility';
-import * as recipes from '../../services/recipes';
+import { versionScopeOf } from '../../services/operator/visibility';
+import * as recipes from '../../services/recipes/recipes';
 import type { RouteHandler } from '../route-definition';
 import { bodyOf, idOf, parse } from './parse';
 import { actorOf } from './request-actor';

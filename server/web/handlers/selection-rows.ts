@@ -1,5 +1,5 @@
 import { selectionRowBody } from '../../../shared/schemas/stock';
-import * as selection from '../../services/selection-rows';
+import * as selection from '../../services/stock/selection-rows';
 import type { RouteHandler } from '../route-definition';
 import { bodyOf, idOf, parse } from './parse';
 import { actorOf } from './request-actor';

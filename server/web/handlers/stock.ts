@@ -1,7 +1,7 @@
 /** Handlers for materials, wheels and machines: the same six routes for each stock kind. */
 import { stockListQuery } from '../../../shared/schemas/stock';
-import * as stock from '../../services/stock';
-import { MACHINES, MATERIALS, WHEELS, type StockKind } from '../../services/stock-records';
+import * as stock from '../../services/stock/stock';
+import { MACHINES, MATERIALS, WHEELS, type StockKind } from '../../services/stock/records';
 import type { RouteHandler } from '../route-definition';
 import { bodyOf, idOf, parse } from './parse';
 import { actorOf } from './request-actor';

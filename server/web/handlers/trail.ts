@@ -1,18 +1,20 @@
 import { Readable } from 'node:stream';
 import { pipeline } from 'node:stream/promises';
 import { auditQuery } from '../../../shared/schemas/workflow';
-import * as trail from '../../services/trail';
+import { csvFileName, openTrailCsv } from '../../services/trail/csv';
+import { listTrail } from '../../services/trail/query';
+import { verifyChain } from '../../services/trail/verify';
 import type { RouteHandler } from '../route-definition';
 import { parse } from './parse';
 
 export const list: RouteHandler = async (req, res, { db }) => {
-  res.json(await trail.listTrail(db, parse(auditQuery, req.query)));
+  res.json(await listTrail(db, parse(auditQuery, req.query)));
 };
 
 export const csv: RouteHandler = async (req, res, { db }) => {
-  const chunks = await trail.openTrailCsv(db, parse(auditQuery, req.query));
+  const chunks = await openTrailCsv(db, parse(auditQuery, req.query));
   res.setHeader('Content-Type', 'text/csv; charset=utf-8');
-  res.setHeader('Content-Disposition', `attachment; filename="${trail.csvFileName()}"`);
+  res.setHeader('Content-Disposition', `attachment; filename="${csvFileName()}"`);
   // A trail export is a record of its moment: never serve it from a cache.
   res.setHeader('Cache-Control', 'no-store');
   // pipeline waits for the client to keep up, so a long trail never piles up in memory.
@@ -26,5 +28,5 @@ export const csv: RouteHandler = async (req, res, { db }) => {
 };
 
 export const verify: RouteHandler = async (_req, res, { db }) => {
-  res.json(await trail.verifyChain(db));
+  res.json(await verifyChain(db));
 };

@@ -1,5 +1,5 @@
 import { createUserBody, inviteBody, temporaryPasswordBody, updateUserBody, userListQuery } from '../../../shared/schemas/users';
-import * as people from '../../services/users';
+import * as people from '../../services/people/users';
 import type { RouteHandler } from '../route-definition';
 import { bodyOf, idOf, parse } from './parse';
 import { actorOf } from './request-actor';

@@ -5,7 +5,7 @@
 import { expect } from 'chai';
 import type { CheckCodeResult, RecipeVersionDto } from '../../../shared/recipe-types';
 import { CHECK_CODE_PATTERN } from '../../../shared/schemas/operator';
-import { assignCheckCode, CHECK_CODE_ALPHABET, newCheckCode } from '../../../server/services/check-codes';
+import { assignCheckCode, CHECK_CODE_ALPHABET, newCheckCode } from '../../../server/services/recipes/check-codes';
 import { up as backfillCheckCodes } from '../../../migrations/20261222090100_backfill_check_codes';
 import { apiTestContext } from '../support/hooks';
 import { createStockSet, type StockSet } from '../support/stock';

@@ -12,7 +12,7 @@ import request from 'supertest';
 import sharp from 'sharp';
 import { CSRF_HEADER } from '../../../shared/api-types';
 import type { AttachmentDto, RecipeVersionDto } from '../../../shared/recipe-types';
-import { verifyChain } from '../../../server/services/trail';
+import { verifyChain } from '../../../server/services/trail/verify';
 import { SESSION_COOKIE } from '../../../server/web/session-cookie';
 import { startMailCatcher, type MailCatcher } from '../../../server/tools/mail-catcher';
 import { assignMachine } from '../mail/notifications-support';

@@ -1,8 +1,8 @@
 /** Invitations: account, roles, machines, the 72 h link and its mail in one transaction; resend; the link sets a password once. */
 import { expect } from 'chai';
 import { CSRF_HEADER } from '../../../shared/api-types';
-import { MACHINES } from '../../../server/services/stock-records';
-import { createStock } from '../../../server/services/stock';
+import { MACHINES } from '../../../server/services/stock/records';
+import { createStock } from '../../../server/services/stock/stock';
 import { apiTestContext } from '../support/hooks';
 import { createPerson, type TestPerson } from '../support/people';
 import { machineInput } from '../support/stock';

@@ -1,7 +1,7 @@
 /** "Forgot password": the same answer and time for any address, a 1 h link for active accounts, a limit per hour; the link ends other sessions. */
 import { expect } from 'chai';
 import { CSRF_HEADER } from '../../../shared/api-types';
-import { FORGOT_FLOOR_MS, FORGOT_MESSAGE } from '../../../server/services/password-links';
+import { FORGOT_FLOOR_MS, FORGOT_MESSAGE } from '../../../server/services/auth/password-links';
 import { apiTestContext } from '../support/hooks';
 import { createPerson, type TestPerson } from '../support/people';
 import { anonymousAgent, signedInAgent } from '../support/test-app';

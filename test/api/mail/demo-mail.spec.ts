@@ -6,11 +6,11 @@
 import { expect } from 'chai';
 import { NOTIFICATION_KINDS } from '../../../shared/notification-kinds';
 import type { MailRow } from '../../../server/data/mail-outbox';
-import { createMailTransport, deliverDueMails } from '../../../server/services/mail-worker';
-import { inspectLink, requestPasswordReset } from '../../../server/services/password-links';
-import { sendReviewReminders } from '../../../server/services/review-reminders';
-import { getToday } from '../../../server/services/today';
-import { inviteUser } from '../../../server/services/users';
+import { createMailTransport, deliverDueMails } from '../../../server/services/mail/worker';
+import { inspectLink, requestPasswordReset } from '../../../server/services/auth/password-links';
+import { sendReviewReminders } from '../../../server/services/mail/review-reminders';
+import { getToday } from '../../../server/services/operator/today';
+import { inviteUser } from '../../../server/services/people/users';
 import { seedDemoIfEmpty } from '../../../server/tools/db-setup';
 import { startMailCatcher } from '../../../server/tools/mail-catcher';
 import { DEMO_ACCOUNTS } from '../../../seeds/data/demo-accounts';

@@ -7,8 +7,8 @@
 import { expect } from 'chai';
 import type { Transporter } from 'nodemailer';
 import type { RecipeVersionDto } from '../../../shared/recipe-types';
-import { applyDueSupersessions } from '../../../server/services/supersession';
-import { createMailTransport, deliverDueMails } from '../../../server/services/mail-worker';
+import { applyDueSupersessions } from '../../../server/services/recipes/supersession';
+import { createMailTransport, deliverDueMails } from '../../../server/services/mail/worker';
 import { startMailCatcher, type MailCatcher } from '../../../server/tools/mail-catcher';
 import { apiTestContext } from '../support/hooks';
 import { createPerson } from '../support/people';

@@ -6,7 +6,7 @@
 import { expect } from 'chai';
 import type { RecipeVersionDto } from '../../../shared/recipe-types';
 import { addDays } from '../../../shared/calendar-dates';
-import { reminderPeriodStart, sendReviewReminders } from '../../../server/services/review-reminders';
+import { reminderPeriodStart, sendReviewReminders } from '../../../server/services/mail/review-reminders';
 import { apiTestContext } from '../support/hooks';
 import { createPerson } from '../support/people';
 import { createStockSet, type StockSet } from '../support/stock';

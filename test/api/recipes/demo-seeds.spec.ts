@@ -8,7 +8,7 @@ import { peripheralSpeedMs } from '../../../shared/peripheral-speed';
 import { runChecks } from '../../../shared/recipe-checks';
 import type { RecipeContent } from '../../../shared/schemas/recipe';
 import { seedDemoIfEmpty } from '../../../server/tools/db-setup';
-import { loadRecipeContext } from '../../../server/services/recipe-context-loader';
+import { loadRecipeContext } from '../../../server/services/recipes/context-loader';
 import { DEMO_RECIPES } from '../../../seeds/data/demo-recipes';
 import { DEMO_EXTRA_VERSIONS } from '../../../seeds/data/demo-workflow';
 import { DEMO_WHEELS } from '../../../seeds/data/demo-stock';

@@ -1,6 +1,6 @@
 import { expect } from 'chai';
 import { CSRF_HEADER } from '../../../shared/api-types';
-import { verifyPassword } from '../../../server/services/passwords';
+import { verifyPassword } from '../../../server/services/auth/passwords';
 import { apiTestContext } from '../support/hooks';
 import { createPerson, type TestPerson } from '../support/people';
 import { signedInAgent } from '../support/test-app';

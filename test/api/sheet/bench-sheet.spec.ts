@@ -7,7 +7,7 @@ import { expect } from 'chai';
 import sharp from 'sharp';
 import { NO_SAFETY_CLAIM, PRECEDENCE_LINE, STANDARD_CAUTIONS } from '../../../shared/cautions';
 import type { RecipeVersionDto } from '../../../shared/recipe-types';
-import { addAttachment } from '../../../server/services/attachments';
+import { addAttachment } from '../../../server/services/recipes/attachments';
 import { apiTestContext } from '../support/hooks';
 import { createStockSet, type StockSet } from '../support/stock';
 import { asJson, countRows } from '../support/test-database';

@@ -5,7 +5,7 @@ import { createPerson } from '../support/people';
 import { createStockSet, machineInput, materialInput, recipeInput, wheelInput } from '../support/stock';
 import { signedInAgent, type Agent } from '../support/test-app';
 import { asJson, countRows } from '../support/test-database';
-import { createRecipe } from '../../../server/services/recipes';
+import { createRecipe } from '../../../server/services/recipes/recipes';
 
 describe('Stock: materials, wheels, machines', () => {
   const ctx = apiTestContext();

@@ -8,8 +8,8 @@ import { spawn } from 'node:child_process';
 import { CSRF_HEADER } from '../../../shared/api-types';
 import type { ChainVerification, RecipeVersionDto } from '../../../shared/recipe-types';
 import { createDb } from '../../../server/data/db';
-import { recordAudit } from '../../../server/services/audit';
-import { GENESIS_HASH } from '../../../server/services/trail-hash';
+import { recordAudit } from '../../../server/services/trail/append';
+import { GENESIS_HASH } from '../../../server/services/trail/hash';
 import { apiTestContext } from '../support/hooks';
 import { createPerson, type TestPerson } from '../support/people';
 import { materialInput, createStockSet, recipeInput } from '../support/stock';
@@ -181,8 +181,8 @@ describe('Trail hash chain', function () {
     it('names the row after an edited one whose hash was recomputed too (the link breaks)', async () => {
       const rows = await chainRows(ctx.db);
       const [victim, next] = [rows[3]!, rows[4]!];
-      const { chainedFields } = await import('../../../server/services/trail');
-      const { trailHash } = await import('../../../server/services/trail-hash');
+      const { chainedFields } = await import('../../../server/services/trail/stored-row');
+      const { trailHash } = await import('../../../server/services/trail/hash');
       const forged = { ...victim, actor_name: 'Forged Name' };
       const forgedHash = trailHash(chainedFields(forged as never));
       await withoutTrigger(ctx.db, 'audit_events_refuse_update', () => ctx.db('audit_events').where({ id: victim.id }).update({ actor_name: 'Forged Name', hash: forgedHash }));
@@ -235,7 +235,7 @@ describe('Trail hash chain', function () {
     });
 
     it('walks the trail in batches and still names the first broken row', async () => {
-      const { verifyChain } = await import('../../../server/services/trail');
+      const { verifyChain } = await import('../../../server/services/trail/verify');
       const rows = await chainRows(ctx.db);
       expect(await verifyChain(ctx.db, 3)).to.deep.equal({ ok: true, checked: rows.length, firstBroken: null });
       const target = rows[7]!;

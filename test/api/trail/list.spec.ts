@@ -5,10 +5,10 @@
 import { expect } from 'chai';
 import sharp from 'sharp';
 import type { AuditEventDto, AuditPage } from '../../../shared/recipe-types';
-import { addAttachment } from '../../../server/services/attachments';
-import { recordAudit } from '../../../server/services/audit';
-import { createRecipe, saveDraft } from '../../../server/services/recipes';
-import { openTrailCsv } from '../../../server/services/trail';
+import { addAttachment } from '../../../server/services/recipes/attachments';
+import { recordAudit } from '../../../server/services/trail/append';
+import { createRecipe, saveDraft } from '../../../server/services/recipes/recipes';
+import { openTrailCsv } from '../../../server/services/trail/csv';
 import { auditQuery } from '../../../shared/schemas/workflow';
 import { apiTestContext } from '../support/hooks';
 import { createPerson, type TestPerson } from '../support/people';

@@ -1,7 +1,7 @@
 /** Helpers for the trail tests: read the chain, tamper with it the way only a DBA could. */
 import type { Knex } from 'knex';
-import { chainedFields } from '../../../server/services/trail';
-import { trailHash } from '../../../server/services/trail-hash';
+import { chainedFields } from '../../../server/services/trail/stored-row';
+import { trailHash } from '../../../server/services/trail/hash';
 
 export interface ChainRow {
   id: number;

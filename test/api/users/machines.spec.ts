@@ -1,8 +1,8 @@
 /** Machines a person runs: set on create and PATCH (the list replaces the set), shown ascending, audited; bad ids change nothing. */
 import { expect } from 'chai';
 import { CSRF_HEADER } from '../../../shared/api-types';
-import { MACHINES } from '../../../server/services/stock-records';
-import { createStock } from '../../../server/services/stock';
+import { MACHINES } from '../../../server/services/stock/records';
+import { createStock } from '../../../server/services/stock/stock';
 import { apiTestContext } from '../support/hooks';
 import { createPerson } from '../support/people';
 import { machineInput } from '../support/stock';

@@ -7,7 +7,7 @@
 import { expect } from 'chai';
 import sharp from 'sharp';
 import type { RecipeVersionDto } from '../../../shared/recipe-types';
-import { addAttachment } from '../../../server/services/attachments';
+import { addAttachment } from '../../../server/services/recipes/attachments';
 import { apiTestContext } from '../support/hooks';
 import { createStockSet, type StockSet } from '../support/stock';
 import { act, approved, createDraft, inReview, ok, post, sessionFor, type Session } from './workflow-support';

@@ -6,7 +6,7 @@
  */
 import { expect } from 'chai';
 import type { RecipeVersionDto } from '../../../shared/recipe-types';
-import { applyDueSupersessions, startSupersessionTimer } from '../../../server/services/supersession';
+import { applyDueSupersessions, startSupersessionTimer } from '../../../server/services/recipes/supersession';
 import { apiTestContext } from '../support/hooks';
 import { createStockSet, type StockSet } from '../support/stock';
 import { asJson, countRows } from '../support/test-database';

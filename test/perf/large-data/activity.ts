@@ -5,7 +5,7 @@
  * trail up to its size. Payloads are those the services write.
  */
 import type { CutOutcome } from '../../../shared/vocabulary';
-import { AUDIT_EVENTS } from '../../../server/services/audit';
+import { AUDIT_EVENTS } from '../../../server/services/trail/append';
 import type { Person } from './people';
 import type { PlannedRecipe, PlannedVersion } from './recipe-history';
 import { DAY_MS, HOUR_MS, MINUTE_MS, type Random } from './random';

@@ -9,7 +9,7 @@
 import { maxRpmForWheel } from '../../../shared/peripheral-speed';
 import { recipeContent, type RecipeContent } from '../../../shared/schemas/recipe';
 import type { VersionContentValues } from '../../../server/data/recipes';
-import { contentValues } from '../../../server/services/recipes';
+import { contentValues } from '../../../server/services/recipes/recipes';
 import { DEMO_RECIPES, type DemoRecipe } from '../../../seeds/data/demo-recipes';
 import type { Random } from './random';
 import type { StockCatalog } from './stock';

@@ -12,11 +12,11 @@
 import type { RecipeStatus } from '../../../shared/vocabulary';
 import type { CheckResult } from '../../../shared/recipe-checks';
 import type { VersionContentValues } from '../../../server/data/recipes';
-import { AUDIT_EVENTS } from '../../../server/services/audit';
+import { AUDIT_EVENTS } from '../../../server/services/trail/append';
 import { addMonths, utcDay } from '../../../shared/calendar-dates';
-import { newCheckCode } from '../../../server/services/check-codes';
-import { formatRecipeNumber } from '../../../server/services/recipes';
-import { contentSha256 } from '../../../server/services/workflow';
+import { newCheckCode } from '../../../server/services/recipes/check-codes';
+import { formatRecipeNumber } from '../../../server/services/recipes/recipes';
+import { contentSha256 } from '../../../server/services/recipes/workflow';
 import { firstContent, nextContent, withReviewFix, type PlannedContent } from './content';
 import type { Person } from './people';
 import { DAY_MS, HOUR_MS, MINUTE_MS, type Random } from './random';

@@ -11,10 +11,10 @@ import { machineBody, materialBody, selectionRowBody, wheelBody } from '../../..
 import type { MachineRecord, MaterialRecord, WheelRecord } from '../../../shared/stock-types';
 import { matchesStarterWheel, STARTER_SELECTION } from '../../../shared/wheel-suggestion';
 import { DEMO_MACHINES, DEMO_MATERIALS, DEMO_WHEELS } from '../../../seeds/data/demo-stock';
-import { getLabLimits } from '../../../server/services/lab-limits';
-import { selectionRowValues, toSelectionRow } from '../../../server/services/selection-rows';
-import { MACHINES, MATERIALS, WHEELS, type MachineRow, type MaterialRow, type StockKind, type WheelRow } from '../../../server/services/stock-records';
-import { AUDIT_EVENTS } from '../../../server/services/audit';
+import { getLabLimits } from '../../../server/services/stock/lab-limits';
+import { selectionRowValues, toSelectionRow } from '../../../server/services/stock/selection-rows';
+import { MACHINES, MATERIALS, WHEELS, type MachineRow, type MaterialRow, type StockKind, type WheelRow } from '../../../server/services/stock/records';
+import { AUDIT_EVENTS } from '../../../server/services/trail/append';
 import type { SelectionRowRow } from '../../../server/data/selection-rows';
 import { MINUTE_MS } from './random';
 import type { TrailActor, TrailPlan } from './trail-plan';

@@ -4,7 +4,7 @@
  * in time order. Ids of recipes, versions, signatures, cuts … are handed out while the
  * events are built, so — as in the running app — they grow with time.
  */
-import type { AuditEntityType, AuditEventType } from '../../../server/services/audit';
+import type { AuditEntityType, AuditEventType } from '../../../server/services/trail/append';
 import type { Person } from './people';
 
 export interface TrailActor {

@@ -1,25 +1,25 @@
 /**
  * Writes the planned trail in time order as the chain `recordAudit` appends: the same row
  * (canonical JSON text, clipped names, null for an empty client address), the same hash
- * (`trailHash` over `chainedFields`, as in audit.ts) linking each row to the one before,
+ * (`trailHash` over `chainedFields`, as in server/services/trail/append.ts) linking each row to the one before,
  * and the chain head moved to the last row at the end.
  */
 import type { Knex } from 'knex';
 import type { ChainedAuditEventRow } from '../../../server/data/audit-events';
 import { advanceChainHead, CHAIN_HEAD_TABLE } from '../../../server/data/audit-events';
 import { canonicalJson } from '../../../shared/canonical-json';
-import { chainedFields } from '../../../server/services/trail';
-import { GENESIS_HASH, trailHash } from '../../../server/services/trail-hash';
+import { chainedFields } from '../../../server/services/trail/stored-row';
+import { GENESIS_HASH, trailHash } from '../../../server/services/trail/hash';
 import { BatchWriter } from './batch-insert';
 import type { TrailPlan } from './trail-plan';
 
-/** As audit.ts: canonical text after a JSON round trip (Dates to ISO text, undefined dropped). */
+/** As append.ts: canonical text after a JSON round trip (Dates to ISO text, undefined dropped). */
 function toJson(value: Record<string, unknown> | null | undefined): string | null {
   if (value == null) return null;
   return canonicalJson(JSON.parse(JSON.stringify(value)));
 }
 
-/** As audit.ts: at most `max` characters, never splitting a character outside the BMP. */
+/** As append.ts: at most `max` characters, never splitting a character outside the BMP. */
 function clip(value: string, max: number): string {
   const chars = Array.from(value);
   return chars.length <= max ? value : chars.slice(0, max).join('');

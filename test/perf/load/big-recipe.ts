@@ -9,8 +9,8 @@
 import type { Knex } from 'knex';
 import type { RecipeContent } from '../../../shared/schemas/recipe';
 import type { Actor } from '../../../server/services/actor';
-import { createRecipe, saveDraft } from '../../../server/services/recipes';
-import { approveVersion, createNextVersion, submitVersion } from '../../../server/services/workflow';
+import { createRecipe, saveDraft } from '../../../server/services/recipes/recipes';
+import { approveVersion, createNextVersion, submitVersion } from '../../../server/services/recipes/workflow';
 import type { BenchRole, BenchUser } from './users';
 
 export const BIG_RECIPE_TITLE = 'Bench — full-length instructions (30 kB)';

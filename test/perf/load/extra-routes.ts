@@ -14,7 +14,7 @@
 import express, { type Router } from 'express';
 import type { Knex } from 'knex';
 import PDFDocument from 'pdfkit';
-import { registerSheetFonts } from '../../../server/services/sheet-fonts';
+import { registerSheetFonts } from '../../../server/services/bench-sheet/fonts';
 import { requireAccess } from '../../../server/web/access';
 import type { RouteDefinition } from '../../../server/web/route-definition';
 

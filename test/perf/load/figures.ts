@@ -4,7 +4,7 @@
  */
 import type { Knex } from 'knex';
 import { chainBatch } from '../../../server/data/audit-events';
-import { verifyChain, VERIFY_BATCH } from '../../../server/services/trail';
+import { verifyChain, VERIFY_BATCH } from '../../../server/services/trail/verify';
 import type { HttpSession } from './http-session';
 import { measure, type LoadFigures } from './measure';
 import type { Figure } from './report';

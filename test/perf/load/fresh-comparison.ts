@@ -1,6 +1,6 @@
 /**
  * What a comparison costs the first time a pair is opened: the server keeps recent word
- * diffs (server/services/text-diff-memo.ts), so the load run mostly measures kept ones.
+ * diffs (server/services/recipes/text-diff-memo.ts), so the load run mostly measures kept ones.
  * Here the two 30 kB versions are compared afresh in process, many times over.
  */
 import type { Knex } from 'knex';

@@ -8,7 +8,7 @@ import { randomBytes } from 'node:crypto';
 import type { Knex } from 'knex';
 import type { Role } from '../../../shared/roles';
 import { findUserRowByUsername, insertUser, replaceRoles, updateUserRow } from '../../../server/data/users';
-import { hashPassword } from '../../../server/services/passwords';
+import { hashPassword } from '../../../server/services/auth/passwords';
 
 export const BENCH_ROLES = ['author', 'approver', 'operator', 'auditor', 'admin'] as const satisfies readonly Role[];
 export type BenchRole = (typeof BENCH_ROLES)[number];
