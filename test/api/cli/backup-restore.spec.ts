@@ -74,15 +74,13 @@ describe('Backup and restore (npm run backup / restore)', function () {
   let options: RestoreOptions;
   let db: Knex;
   let app: Express;
-  let close = () => undefined as void;
   let backup: { file: string; manifest: Manifest };
   /** At the backup, and after the changes that followed it (what a refused restore must leave). */
   let original: Record<string, string[]>;
   let changed: Record<string, string[]>;
 
-  /** Restore needs the database to itself: the test's own pool and app let go of it first. */
+  /** Restore needs the database to itself: the test's own pool lets go of it first. */
   async function restoreAlone(file: string) {
-    close();
     await closeTestDb();
     try {
       return await restoreBackup(testDatabaseUrl(), file, options);
@@ -110,7 +108,6 @@ describe('Backup and restore (npm run backup / restore)', function () {
     await seedDemoIfEmpty(db);
     const built = await buildTestApp(db);
     app = built.app;
-    close = built.close;
 
     // A photo on a version that is then approved: frozen, so its row is guarded by the triggers.
     const stock = await createStockSet(db);
@@ -139,7 +136,6 @@ describe('Backup and restore (npm run backup / restore)', function () {
   });
 
   after(() => {
-    close();
     if (work) fs.rmSync(work, { recursive: true, force: true });
   });
 

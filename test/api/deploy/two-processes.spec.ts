@@ -73,28 +73,24 @@ describe('Several app processes behind a reverse proxy on one MariaDB', () => {
     // Data made through the app's own routes and services, in this process, before the
     // two processes start (its own jobs are off: buildTestApp sets every interval to 0).
     const prep = await buildTestApp(db);
-    try {
-      const author = await sessionFor(prep.app, db, ['author'], 'Ines Author');
-      const approver = await sessionFor(prep.app, db, ['approver'], 'Tomas Approver');
-      const operator = await createPerson(db, { roles: ['operator'], displayName: 'Otto Operator' });
-      traveller = await createPerson(db, { roles: ['author'], displayName: 'Tara Traveller' });
-      const stock = await createStockSet(db);
-      await assignMachine(db, operator.id, stock.machine.id);
+    const author = await sessionFor(prep.app, db, ['author'], 'Ines Author');
+    const approver = await sessionFor(prep.app, db, ['approver'], 'Tomas Approver');
+    const operator = await createPerson(db, { roles: ['operator'], displayName: 'Otto Operator' });
+    traveller = await createPerson(db, { roles: ['author'], displayName: 'Tara Traveller' });
+    const stock = await createStockSet(db);
+    await assignMachine(db, operator.id, stock.machine.id);
 
-      const v1 = await approved(author, approver, stock, { title: 'Effective day has come' });
-      const v2 = ok(await act.newVersion(author, v1.recipeId, 1, 'Feed lowered.'), 201);
-      const submitted = ok(await act.submit(author, ok(await act.save(author, v2, { cutting: { ...v2.content.cutting, feedMmS: 0.3 } }))));
-      pending = ok(await act.approve(approver, submitted, { effectiveDate: day(10) }));
-      // The day has come: move the effective date back (as the supersession test does).
-      await db('recipe_versions').where({ recipe_id: pending.recipeId, version: 2 }).update({ effective_from: day(0) });
+    const v1 = await approved(author, approver, stock, { title: 'Effective day has come' });
+    const v2 = ok(await act.newVersion(author, v1.recipeId, 1, 'Feed lowered.'), 201);
+    const submitted = ok(await act.submit(author, ok(await act.save(author, v2, { cutting: { ...v2.content.cutting, feedMmS: 0.3 } }))));
+    pending = ok(await act.approve(approver, submitted, { effectiveDate: day(10) }));
+    // The day has come: move the effective date back (as the supersession test does).
+    await db('recipe_versions').where({ recipe_id: pending.recipeId, version: 2 }).update({ effective_from: day(0) });
 
-      dueForReview = await approved(author, approver, stock, { title: 'Review due soon' });
-      await db('recipe_versions').where({ recipe_id: dueForReview.recipeId, version: 1 }).update({ review_due_on: day(10) });
+    dueForReview = await approved(author, approver, stock, { title: 'Review due soon' });
+    await db('recipe_versions').where({ recipe_id: dueForReview.recipeId, version: 1 }).update({ review_due_on: day(10) });
 
-      draft = await createDraft({ person: traveller, ...(await signedInAgent(prep.app, traveller)) }, stock, { title: 'Photo from either process' });
-    } finally {
-      prep.close();
-    }
+    draft = await createDraft({ person: traveller, ...(await signedInAgent(prep.app, traveller)) }, stock, { title: 'Photo from either process' });
     mailsBefore = Object.fromEntries(
       ((await db('mail_outbox').select('kind').count({ n: '*' }).groupBy('kind')) as { kind: string; n: number }[]).map((r) => [r.kind, Number(r.n)]),
     );

@@ -173,7 +173,6 @@ describe('Upload and download attacks', () => {
         // The control: the app's own files are served.
         expect((await request(built.app).get('/main-ABCDEFGH.js')).status).to.equal(200);
       } finally {
-        built.close();
         fs.rmSync(base, { recursive: true, force: true });
       }
     });

@@ -259,19 +259,15 @@ describe('POST /api/session (sign in)', () => {
   describe('behind a TLS proxy (TRUST_PROXY)', () => {
     it('marks the cookies Secure when the proxy says the request came over https', async () => {
       const proxied = await buildTestApp(ctx.db, { config: { trustProxy: 'loopback' } });
-      try {
-        const tls = await request(proxied.app).get('/api/session/csrf').set('X-Forwarded-Proto', 'https').expect(200);
-        expect(setCookie(tls, 'kerfbook.sid')).to.match(/;\s*Secure/i);
-        expect(setCookie(tls, 'kerfbook.csrf')).to.match(/;\s*Secure/i);
-        const plain = await request(proxied.app).get('/api/session/csrf').expect(200);
-        expect(setCookie(plain, 'kerfbook.sid')).not.to.match(/;\s*Secure/i);
-        expect(setCookie(plain, 'kerfbook.csrf')).not.to.match(/;\s*Secure/i);
-        // Without trust proxy, the header is ignored.
-        const untrusted = await request(ctx.app).get('/api/session/csrf').set('X-Forwarded-Proto', 'https').expect(200);
-        expect(setCookie(untrusted, 'kerfbook.sid')).not.to.match(/;\s*Secure/i);
-      } finally {
-        proxied.close();
-      }
+      const tls = await request(proxied.app).get('/api/session/csrf').set('X-Forwarded-Proto', 'https').expect(200);
+      expect(setCookie(tls, 'kerfbook.sid')).to.match(/;\s*Secure/i);
+      expect(setCookie(tls, 'kerfbook.csrf')).to.match(/;\s*Secure/i);
+      const plain = await request(proxied.app).get('/api/session/csrf').expect(200);
+      expect(setCookie(plain, 'kerfbook.sid')).not.to.match(/;\s*Secure/i);
+      expect(setCookie(plain, 'kerfbook.csrf')).not.to.match(/;\s*Secure/i);
+      // Without trust proxy, the header is ignored.
+      const untrusted = await request(ctx.app).get('/api/session/csrf').set('X-Forwarded-Proto', 'https').expect(200);
+      expect(setCookie(untrusted, 'kerfbook.sid')).not.to.match(/;\s*Secure/i);
     });
   });
 });

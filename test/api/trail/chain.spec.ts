@@ -126,7 +126,6 @@ describe('Trail hash chain', function () {
       expect(result.ok).to.equal(true);
       expect(result.checked).to.equal(await lastEventId(ctx.db));
     } finally {
-      other.close();
       await otherDb.destroy();
     }
   });

@@ -1,8 +1,9 @@
 /**
  * The app under test for `npm run bench`, in a process of its own so the load generator and
- * the app do not share one event loop: the real app (createApp) with its timers off, plus
- * the bench-only routes of extra-routes.ts. Reads BENCH_DATABASE_URL and listens on a free
- * loopback port; prints `READY <url>` once it answers. SIGTERM/SIGINT stop it.
+ * the app do not share one event loop: the real app (createApp) without the background
+ * jobs of server/jobs.ts, which would skew the figures, plus the bench-only routes of
+ * extra-routes.ts. Reads BENCH_DATABASE_URL and listens on a free loopback port; prints
+ * `READY <url>` once it answers. SIGTERM/SIGINT stop it.
  */
 import http from 'node:http';
 import type { AddressInfo } from 'node:net';
@@ -23,15 +24,10 @@ const config = readConfig({ DATABASE_URL: databaseUrl, SESSION_SECRET: randomByt
 const db = createDb(config.databaseUrl);
 const recorder = queryRecorder(db);
 let stopping = false;
-const { app, ready, close } = createApp({
+const { app, ready } = createApp({
   config,
   db,
   extraApiRouter: benchRouter(db, recorder),
-  // Timers off: background jobs would skew the figures.
-  sessionCleanupIntervalMs: 0,
-  supersessionIntervalMs: 0,
-  mailIntervalMs: 0,
-  reviewReminderIntervalMs: 0,
   // Requests cut off by the stop itself are not faults worth a stack trace.
   log: (...args: unknown[]) => {
     if (!stopping) console.error(...args);
@@ -50,7 +46,6 @@ server.listen(0, '127.0.0.1', () => {
 async function stop(): Promise<void> {
   if (stopping) return;
   stopping = true;
-  close();
   server.closeAllConnections();
   server.close();
   // Handlers of the last requests may still wait for a connection: let them finish first,

@@ -9,12 +9,8 @@ import os from 'node:os';
 import path from 'node:path';
 import { chromium, type BrowserContext } from 'playwright-core';
 import type { DemoAccount } from '../../../seeds/data/demo-accounts';
-import { CHROMIUM_FLAGS } from '../../../server/tools/chromium-flags';
+import { CHROMIUM_FLAGS, CHROMIUM_PATH } from '../../../server/tools/chromium';
 import { freePort } from '../../../server/tools/free-port';
-
-export const CHROMIUM = process.env['CHROME_PATH'] ?? '/usr/bin/chromium';
-
-
 
 export interface BenchBrowser {
   /** The remote debugging port Lighthouse connects to. */
@@ -32,13 +28,13 @@ export interface BenchBrowser {
 }
 
 export async function launchBrowser(): Promise<BenchBrowser> {
-  if (!fs.existsSync(CHROMIUM)) {
-    throw new Error(`${CHROMIUM} is missing: install Debian's chromium (apt-get install -y chromium) or set CHROME_PATH.`);
+  if (!fs.existsSync(CHROMIUM_PATH)) {
+    throw new Error(`${CHROMIUM_PATH} is missing: install Debian's chromium (apt-get install -y chromium) or set CHROMIUM_PATH.`);
   }
   const port = await freePort();
   const profile = fs.mkdtempSync(path.join(os.tmpdir(), 'kerfbook-bench-web-'));
   const context: BrowserContext = await chromium.launchPersistentContext(profile, {
-    executablePath: CHROMIUM,
+    executablePath: CHROMIUM_PATH,
     headless: true,
     // No viewport of Playwright's own: Lighthouse sets the screen it measures.
     viewport: null,
