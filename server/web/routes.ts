@@ -126,9 +126,9 @@ export const routes: readonly RouteDefinition[] = [
   { method: 'get', path: '/api/attachments/:id/thumbnail', access: 'signedIn', handler: attachments.thumbnail },
 
   // The trail (auditors and admins read it; nobody writes it through the API).
-  { method: 'get', path: '/api/audit-events', access: ['auditor', 'admin'], handler: trail.list },
-  { method: 'get', path: '/api/audit-events.csv', access: ['auditor', 'admin'], handler: trail.csv },
-  { method: 'get', path: '/api/audit-events/verify', access: ['auditor', 'admin'], handler: trail.verify },
+  { method: 'get', path: '/api/trail', access: ['auditor', 'admin'], handler: trail.list },
+  { method: 'get', path: '/api/trail.csv', access: ['auditor', 'admin'], handler: trail.csv },
+  { method: 'get', path: '/api/trail/verify', access: ['auditor', 'admin'], handler: trail.verify },
   { method: 'get', path: '/api/dev/outbox', access: ['admin'], handler: devOutbox.list },
 
   // What waits for people: periodic reviews coming due, and the signed-in person's Today lists.

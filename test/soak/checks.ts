@@ -93,8 +93,8 @@ export async function checkLedger(list: CheckList, db: Knex, ledger: Ledger): Pr
   });
   list.add('every approval is in force or later, signed by its approver', lostApprovals.length === 0, `${ledger.approved.length} approvals, ${lostApprovals.length} lost${sample(lostApprovals)}`);
 
-  // audit_events.entity_id is text (it names entities of any kind).
-  const returnedIds = new Set(((await db('audit_events').where({ event_type: 'recipe.version_returned' }).pluck('entity_id')) as string[]).map(Number));
+  // trail_events.entity_id is text (it names entities of any kind).
+  const returnedIds = new Set(((await db('trail_events').where({ event_type: 'recipe.version_returned' }).pluck('entity_id')) as string[]).map(Number));
   const lostReturns = ledger.returned.filter((r) => !returnedIds.has(versions.get(key(r))?.id ?? -1));
   list.add('every return to the author is on the trail', lostReturns.length === 0, `${ledger.returned.length} returns, ${lostReturns.length} lost${sample(lostReturns)}`);
 
@@ -123,9 +123,9 @@ export async function checkLedger(list: CheckList, db: Knex, ledger: Ledger): Pr
 
 /** No half-done transition anywhere in the database, whatever the soak's own ledger says. */
 export async function checkConsistency(list: CheckList, db: Knex): Promise<void> {
-  // audit_events.entity_id is text (it names entities of any kind).
+  // trail_events.entity_id is text (it names entities of any kind).
   const events = async (type: string) =>
-    ((await db('audit_events').where({ event_type: type }).select('entity_id', 'after_json')) as { entity_id: string; after_json: unknown }[]).map((e) => ({
+    ((await db('trail_events').where({ event_type: type }).select('entity_id', 'after_json')) as { entity_id: string; after_json: unknown }[]).map((e) => ({
       entity_id: Number(e.entity_id),
       after_json: e.after_json,
     }));
@@ -175,11 +175,11 @@ export async function checkConsistency(list: CheckList, db: Knex): Promise<void>
 
   const countOf = async (q: Knex.QueryBuilder) => Number(((await q.count({ n: '*' }).first()) as { n: number }).n);
   const cuts = await countOf(db('cut_records'));
-  const cutEvents = await countOf(db('audit_events').where({ event_type: 'cut.recorded' }));
+  const cutEvents = await countOf(db('trail_events').where({ event_type: 'cut.recorded' }));
   const acks = await countOf(db('acknowledgements'));
-  const ackEvents = await countOf(db('audit_events').where({ event_type: 'recipe.version_acknowledged' }));
+  const ackEvents = await countOf(db('trail_events').where({ event_type: 'recipe.version_acknowledged' }));
   const prints = await countOf(db('sheet_prints'));
-  const printEvents = await countOf(db('audit_events').where({ event_type: 'sheet.printed' }));
+  const printEvents = await countOf(db('trail_events').where({ event_type: 'sheet.printed' }));
   list.add(
     'cuts, acknowledgements and sheet prints each have their trail event',
     cuts === cutEvents && acks === ackEvents && prints === printEvents,

@@ -233,8 +233,8 @@ const ACTIONS: Record<SoakPerson['role'], Action> = {
 
   async auditor(client, _person, ctx, _state, track) {
     const r = Math.random();
-    if (r < 0.05) await get(client, track, 'trail-verify', '/api/audit-events/verify');
-    else if (r < 0.5) await get(client, track, 'trail', '/api/audit-events?limit=50');
+    if (r < 0.05) await get(client, track, 'trail-verify', '/api/trail/verify');
+    else if (r < 0.5) await get(client, track, 'trail', '/api/trail?limit=50');
     else if (r < 0.7 && ctx.ledger.cuts.length > 0) await get(client, track, 'trace', `/api/cuts?specimenId=${encodeURIComponent(pick(ctx.ledger.cuts).specimenId)}`);
     else await search(client, track);
   },

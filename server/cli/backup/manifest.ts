@@ -35,6 +35,15 @@ export type DatabaseFacts = Omit<Manifest, 'format' | 'formatVersion' | 'created
 
 type Rows = mysql.RowDataPacket[];
 
+/**
+ * The trail's two tables under today's names, then under the names they had before the
+ * migration rename_audit_tables_to_trail: an older backup still restores (and is migrated).
+ */
+const TRAIL_TABLE_NAMES = [
+  { events: 'trail_events', head: 'trail_chain_head' },
+  { events: 'audit_events', head: 'audit_chain_head' },
+];
+
 export async function baseTables(c: mysql.Connection, database: string): Promise<string[]> {
   const [rows] = await c.query<Rows>(
     `SELECT TABLE_NAME AS name FROM information_schema.TABLES WHERE TABLE_SCHEMA = ? AND TABLE_TYPE = 'BASE TABLE' ORDER BY TABLE_NAME`,
@@ -62,10 +71,11 @@ export async function readFacts(c: mysql.Connection, database: string, tables: s
   const [[latest]] = await c.query<Rows>(`SELECT name FROM ${db}.knex_migrations ORDER BY id DESC LIMIT 1`);
   if (!latest) throw new Error(`${database} has no migrations recorded.`);
   let trail: DatabaseFacts['trail'] = null;
-  if (tables.includes('audit_chain_head')) {
-    const [[head]] = await c.query<Rows>(`SELECT last_event_id, last_hash FROM ${db}.audit_chain_head WHERE id = 1`);
+  const names = TRAIL_TABLE_NAMES.find((n) => tables.includes(n.head));
+  if (names) {
+    const [[head]] = await c.query<Rows>(`SELECT last_event_id, last_hash FROM ${db}.${quoteName(names.head)} WHERE id = 1`);
     if (!head) throw new Error(`${database} has no trail chain head.`);
-    trail = { events: rowCounts['audit_events'] ?? 0, headEventId: Number(head['last_event_id']), headHash: String(head['last_hash']) };
+    trail = { events: rowCounts[names.events] ?? 0, headEventId: Number(head['last_event_id']), headHash: String(head['last_hash']) };
   }
   let photos = { n: 0, bytes: 0 };
   if (tables.includes('attachments')) {

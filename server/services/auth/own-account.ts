@@ -4,7 +4,8 @@ import type { UnitPreference } from '../../../shared/api-types';
 import { AppError } from '../../app-error';
 import { findUserById, updateUserRow } from '../../data/users';
 import type { Actor } from '../actor';
-import { AUDIT_EVENTS, recordAudit } from '../trail/append';
+import { TRAIL_EVENTS } from '../trail/event-types';
+import { appendTrailEvent } from '../trail/append';
 import { replacePassword } from './password-replacement';
 import { hashPassword, verifyPassword } from './passwords';
 import type { SessionUser } from './session-user';
@@ -40,11 +41,11 @@ export async function updatePreferences(db: Knex, actor: Actor, userId: number, 
     if (user.units === units) return;
     const now = new Date();
     await updateUserRow(trx, userId, { units, updated_at: now });
-    await recordAudit(trx, actor, { type: AUDIT_EVENTS.preferencesChanged, entityType: 'user', entityId: userId, before: { units: user.units }, after: { units } }, now);
+    await appendTrailEvent(trx, actor, { type: TRAIL_EVENTS.preferencesChanged, entityType: 'user', entityId: userId, before: { units: user.units }, after: { units } }, now);
   });
   return reload(db, userId);
 }
 
 export async function recordSignOut(db: Knex, actor: Actor, userId: number): Promise<void> {
-  await recordAudit(db, actor, { type: AUDIT_EVENTS.signedOut, entityType: 'user', entityId: userId });
+  await appendTrailEvent(db, actor, { type: TRAIL_EVENTS.signedOut, entityType: 'user', entityId: userId });
 }

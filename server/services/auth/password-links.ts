@@ -9,7 +9,8 @@ import { findLabSettings } from '../../data/lab-settings';
 import { countRecentTokens } from '../../data/user-tokens';
 import { findActiveUsersByEmail, findUserRowById } from '../../data/users';
 import type { Actor } from '../actor';
-import { AUDIT_EVENTS, recordAudit } from '../trail/append';
+import { TRAIL_EVENTS } from '../trail/event-types';
+import { appendTrailEvent } from '../trail/append';
 import { enqueueMail } from '../mail/outbox';
 import { passwordResetMail } from '../mail/account-mails';
 import type { MailSettings } from '../mail/settings';
@@ -45,10 +46,10 @@ export async function requestPasswordReset(db: Knex, actor: Actor, mail: MailSet
         if (recent >= RESETS_PER_HOUR) continue;
         const link = await issueToken(trx, user.id, 'password-reset', null, now);
         await enqueueMail(trx, passwordResetMail(mail, { to: user.email, displayName: user.display_name, username: user.username, labName, token: link.token }), now);
-        await recordAudit(
+        await appendTrailEvent(
           trx,
           actor,
-          { type: AUDIT_EVENTS.passwordResetRequested, entityType: 'user', entityId: user.id, actorName: user.email, after: { email: user.email } },
+          { type: TRAIL_EVENTS.passwordResetRequested, entityType: 'user', entityId: user.id, actorName: user.email, after: { email: user.email } },
           now,
         );
       }

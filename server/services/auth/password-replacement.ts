@@ -8,7 +8,8 @@ import type { Knex } from 'knex';
 import { voidOpenTokens } from '../../data/user-tokens';
 import { bumpSessionEpoch, updateUserRow } from '../../data/users';
 import type { Actor } from '../actor';
-import { AUDIT_EVENTS, recordAudit } from '../trail/append';
+import { TRAIL_EVENTS } from '../trail/event-types';
+import { appendTrailEvent } from '../trail/append';
 
 export interface PasswordReplacement {
   userId: number;
@@ -26,11 +27,11 @@ export async function replacePassword(trx: Knex, actor: Actor, change: PasswordR
   await updateUserRow(trx, change.userId, { password_hash: change.passwordHash, must_change_password: change.mustChange, updated_at: now });
   await bumpSessionEpoch(trx, change.userId);
   await voidOpenTokens(trx, change.userId, now);
-  await recordAudit(
+  await appendTrailEvent(
     trx,
     actor,
     {
-      type: change.byLink ? AUDIT_EVENTS.passwordSetByLink : change.mustChange ? AUDIT_EVENTS.userTemporaryPasswordSet : AUDIT_EVENTS.ownPasswordChanged,
+      type: change.byLink ? TRAIL_EVENTS.passwordSetByLink : change.mustChange ? TRAIL_EVENTS.userTemporaryPasswordSet : TRAIL_EVENTS.ownPasswordChanged,
       entityType: 'user',
       entityId: change.userId,
       before: { mustChangePassword: change.mustChangeBefore },

@@ -17,7 +17,8 @@ import { findCheckCodeOfVersion, insertSheetPrint } from '../../data/sheet-print
 import { rolesOf } from '../../data/users';
 import { requireAcknowledgedForSheet } from '../recipes/acknowledgements';
 import type { Actor } from '../actor';
-import { AUDIT_EVENTS, recordAudit } from '../trail/append';
+import { TRAIL_EVENTS } from '../trail/event-types';
+import { appendTrailEvent } from '../trail/append';
 import { assignCheckCode, formatCheckCode } from '../recipes/check-codes';
 import { visibleVersion, type VersionScope } from '../operator/visibility';
 import { loadRecipeContext } from '../recipes/context-loader';
@@ -121,11 +122,11 @@ export async function printBenchSheet(
 
   await db.transaction(async (trx) => {
     const printId = await insertSheetPrint(trx, { version_id: row.id, user_id: userId, printed_at: now, client_address: actor.clientAddress.slice(0, 45) });
-    await recordAudit(
+    await appendTrailEvent(
       trx,
       actor,
       {
-        type: AUDIT_EVENTS.sheetPrinted,
+        type: TRAIL_EVENTS.sheetPrinted,
         entityType: 'recipe_version',
         entityId: row.id,
         after: { printId, number: dto.number, version: dto.version, checkCode: code, paper, current: recipe.current_version_id === row.id },

@@ -1,7 +1,7 @@
 /**
  * Enqueues the notification mails of one event: finds the recipients and writes one mail
  * each into the outbox, inside the caller's transaction (the mail exists exactly when the
- * event committed). Callers do this before their audit event, whose head lock comes last.
+ * event committed). Callers do this before their trail event, whose head lock comes last.
  */
 import type { Knex } from 'knex';
 import { findMachineName } from '../../data/acknowledgements';

@@ -10,7 +10,8 @@ import type { NotificationPreferencesBody } from '../../../shared/schemas/mail';
 import { AppError } from '../../app-error';
 import { addOptOut, optedOutKinds, removeOptOut } from '../../data/notification-opt-outs';
 import type { Actor } from '../actor';
-import { AUDIT_EVENTS, recordAudit } from '../trail/append';
+import { TRAIL_EVENTS } from '../trail/event-types';
+import { appendTrailEvent } from '../trail/append';
 
 export const MANDATORY_KIND_MESSAGE =
   'The mail asking you to acknowledge a new version in use on your machine cannot be turned off: operators must hear of every change to their recipes.';
@@ -51,7 +52,7 @@ export async function updateNotificationPreferences(db: Knex, actor: Actor, user
       else await addOptOut(trx, userId, kind);
     }
     if (Object.keys(after).length > 0) {
-      await recordAudit(trx, actor, { type: AUDIT_EVENTS.notificationPreferencesChanged, entityType: 'user', entityId: userId, before, after });
+      await appendTrailEvent(trx, actor, { type: TRAIL_EVENTS.notificationPreferencesChanged, entityType: 'user', entityId: userId, before, after });
     }
   });
   return getNotificationPreferences(db, userId);

@@ -14,7 +14,8 @@ import { fromJsonColumn } from '../../data/json-column';
 import { findVersionById } from '../../data/recipes';
 import { listSignatureRows, lockRecipe } from '../../data/workflow';
 import type { Actor } from '../actor';
-import { AUDIT_EVENTS, recordAudit } from '../trail/append';
+import { TRAIL_EVENTS } from '../trail/event-types';
+import { appendTrailEvent } from '../trail/append';
 import { CSV_BOM, csvLine } from '../csv';
 import { DEFAULT_MAIL_SETTINGS, type MailSettings } from '../mail/settings';
 import { notifyCutFlagged } from '../mail/notifications';
@@ -94,11 +95,11 @@ export async function recordCut(
       const ref = { recipeId, number: recipe.number, version: target.version, title: target.title };
       await notifyCutFlagged(trx, mail, target.id, ref, { operatorName: actor.name, specimenId: body.specimenId, outcome: body.outcome, notes: body.notes }, now);
     }
-    await recordAudit(
+    await appendTrailEvent(
       trx,
       actor,
       {
-        type: AUDIT_EVENTS.cutRecorded,
+        type: TRAIL_EVENTS.cutRecorded,
         entityType: 'recipe_version',
         entityId: target.id,
         before: null,
@@ -152,11 +153,11 @@ export async function clearFlag(db: Knex, actor: Actor, cutId: number, now = new
     if (cut.outcome === 'good') throw AppError.conflict(`Cut ${cutId} was good, so it carries no flag to clear.`);
     if (cut.flag_cleared_at !== null) throw AppError.conflict(`The flag on cut ${cutId} was already cleared at ${new Date(cut.flag_cleared_at).toISOString()}.`);
     await clearCutFlag(trx, cutId, userId, now);
-    await recordAudit(
+    await appendTrailEvent(
       trx,
       actor,
       {
-        type: AUDIT_EVENTS.cutFlagCleared,
+        type: TRAIL_EVENTS.cutFlagCleared,
         entityType: 'recipe_version',
         entityId: cut.version_id,
         before: { cutId, versionId: cut.version_id, outcome: cut.outcome, flagClearedAt: null },

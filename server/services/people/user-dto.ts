@@ -20,7 +20,7 @@ export function toUserDto(user: UserWithRoles): UserDto {
 }
 
 /** What the trail records of a person (before/after); the same fields as the DTO minus times. */
-export function auditSnapshot(user: UserWithRoles): Record<string, unknown> {
+export function trailSnapshot(user: UserWithRoles): Record<string, unknown> {
   const dto = toUserDto(user);
   return {
     username: dto.username,

@@ -20,7 +20,8 @@ import {
 import type { VersionRow, VersionWithNames } from '../../data/recipes';
 import { lockRecipe, lockVersion } from '../../data/workflow';
 import type { Actor } from '../actor';
-import { AUDIT_EVENTS, recordAudit } from '../trail/append';
+import { TRAIL_EVENTS } from '../trail/event-types';
+import { appendTrailEvent } from '../trail/append';
 import { visibleVersion, type VersionScope } from '../operator/visibility';
 
 /** The person asking, as the acknowledgement rules need them. */
@@ -83,11 +84,11 @@ export async function acknowledgeVersion(db: Knex, actor: Actor, viewer: Viewer,
         throw AppError.conflict(`Version ${version} of ${seen.number} is for ${machine}, which is not one of your machines, so it is not yours to acknowledge.`, 'machine');
       }
       const id = await insertAcknowledgement(trx, { version_id: v.id, user_id: userId, user_name: actor.name.slice(0, 100), acknowledged_at: now });
-      await recordAudit(
+      await appendTrailEvent(
         trx,
         actor,
         {
-          type: AUDIT_EVENTS.versionAcknowledged,
+          type: TRAIL_EVENTS.versionAcknowledged,
           entityType: 'recipe_version',
           entityId: v.id,
           before: null,

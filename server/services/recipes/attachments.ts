@@ -12,7 +12,8 @@ import { deleteAttachmentRow, findAttachmentMeta, insertAttachment, readAttachme
 import { findVersion, type VersionWithNames } from '../../data/recipes';
 import { touchEditor } from '../../data/workflow';
 import type { Actor } from '../actor';
-import { AUDIT_EVENTS, recordAudit } from '../trail/append';
+import { TRAIL_EVENTS } from '../trail/event-types';
+import { appendTrailEvent } from '../trail/append';
 import { acceptImage, type Upload } from './image-intake';
 import { toAttachmentDto } from './recipe-dto';
 
@@ -75,11 +76,11 @@ export async function addAttachment(db: Knex, actor: Actor, recipeId: number, ve
     );
     // Changing a version's photos is editing it: that person may not approve it.
     await touchEditor(trx, locked.id, userId, now);
-    await recordAudit(
+    await appendTrailEvent(
       trx,
       actor,
       {
-        type: AUDIT_EVENTS.attachmentAdded,
+        type: TRAIL_EVENTS.attachmentAdded,
         entityType: 'attachment',
         entityId: newId,
         before: null,
@@ -102,8 +103,8 @@ export async function deleteAttachment(db: Knex, actor: Actor, recipeId: number,
     if (!meta || meta.version_id !== row.id) throw AppError.notFound(`Version ${version} of ${row.number} has no attachment ${attachmentId}.`);
     await deleteAttachmentRow(trx, attachmentId);
     if (actor.userId !== null) await touchEditor(trx, row.id, actor.userId, new Date());
-    await recordAudit(trx, actor, {
-      type: AUDIT_EVENTS.attachmentDeleted,
+    await appendTrailEvent(trx, actor, {
+      type: TRAIL_EVENTS.attachmentDeleted,
       entityType: 'attachment',
       entityId: attachmentId,
       before: { versionId: row.id, role: meta.role, caption: meta.caption, fileName: meta.file_name, sha256: meta.sha256 },

@@ -28,7 +28,8 @@ import {
 import { listEditorRows, listSignatureRows, touchEditor } from '../../data/workflow';
 import { myAcknowledgement, type Viewer } from './acknowledgements';
 import type { Actor } from '../actor';
-import { AUDIT_EVENTS, recordAudit } from '../trail/append';
+import { TRAIL_EVENTS } from '../trail/event-types';
+import { appendTrailEvent } from '../trail/append';
 import { canonicalJson } from '../../../shared/canonical-json';
 import { changedKeys } from '../trail/changes';
 import { canSeeStatus, recipeNotFound, visibleVersion, type VersionScope } from '../operator/visibility';
@@ -122,10 +123,10 @@ export async function createRecipe(db: Knex, actor: Actor, body: CreateRecipeBod
     });
     await updateRecipeRow(trx, id, { latest_version_id: versionId });
     await touchEditor(trx, versionId, userId, now);
-    await recordAudit(
+    await appendTrailEvent(
       trx,
       actor,
-      { type: AUDIT_EVENTS.recipeCreated, entityType: 'recipe', entityId: id, before: null, after: { number, title: body.title, version: 1, status: 'draft', worstCheck: values.worst_check } },
+      { type: TRAIL_EVENTS.recipeCreated, entityType: 'recipe', entityId: id, before: null, after: { number, title: body.title, version: 1, status: 'draft', worstCheck: values.worst_check } },
       now,
     );
     return id;
@@ -235,21 +236,21 @@ export async function saveDraft(db: Knex, actor: Actor, recipeId: number, versio
     const recipe = await findRecipeRow(trx, recipeId);
     if (recipe?.latest_version_id === before.id) await updateRecipeRow(trx, recipeId, { title: body.title, updated_at: now });
     const contentKeys = changedKeys(JSON.parse(before.content_json) as Record<string, unknown>, JSON.parse(values.content_json) as Record<string, unknown>);
-    const auditBefore: Record<string, unknown> = { revision: before.revision };
-    const auditAfter: Record<string, unknown> = { revision: before.revision + 1, changed: contentKeys };
+    const trailBefore: Record<string, unknown> = { revision: before.revision };
+    const trailAfter: Record<string, unknown> = { revision: before.revision + 1, changed: contentKeys };
     if (before.title !== body.title) {
-      auditBefore['title'] = before.title;
-      auditAfter['title'] = body.title;
+      trailBefore['title'] = before.title;
+      trailAfter['title'] = body.title;
     }
     if (before.status !== 'draft') {
-      auditBefore['status'] = before.status;
-      auditAfter['status'] = 'draft';
+      trailBefore['status'] = before.status;
+      trailAfter['status'] = 'draft';
     }
     if (before.worst_check !== values.worst_check) {
-      auditBefore['worstCheck'] = before.worst_check;
-      auditAfter['worstCheck'] = values.worst_check;
+      trailBefore['worstCheck'] = before.worst_check;
+      trailAfter['worstCheck'] = values.worst_check;
     }
-    await recordAudit(trx, actor, { type: AUDIT_EVENTS.draftSaved, entityType: 'recipe_version', entityId: before.id, before: auditBefore, after: auditAfter }, now);
+    await appendTrailEvent(trx, actor, { type: TRAIL_EVENTS.draftSaved, entityType: 'recipe_version', entityId: before.id, before: trailBefore, after: trailAfter }, now);
     return true;
   });
 

@@ -9,7 +9,8 @@ import { AppError } from '../../app-error';
 import { findRecipeRow, findVersion } from '../../data/recipes';
 import { findReviewCommentRow, insertReviewComment, listReviewCommentRows, type ReviewCommentRow } from '../../data/workflow';
 import type { Actor } from '../actor';
-import { AUDIT_EVENTS, recordAudit } from '../trail/append';
+import { TRAIL_EVENTS } from '../trail/event-types';
+import { appendTrailEvent } from '../trail/append';
 import { visibleVersion, type VersionScope } from '../operator/visibility';
 import { requireActor } from './recipes';
 
@@ -42,10 +43,10 @@ export async function addComment(db: Knex, actor: Actor, recipeId: number, versi
   const versionId = await versionIdOf(db, recipeId, version);
   const id = await db.transaction(async (trx) => {
     const commentId = await insertReviewComment(trx, { version_id: versionId, author_id: userId, author_name: actor.name.slice(0, 100), body: body.body, path: body.path, created_at: now });
-    await recordAudit(
+    await appendTrailEvent(
       trx,
       actor,
-      { type: AUDIT_EVENTS.reviewCommentAdded, entityType: 'recipe_version', entityId: versionId, before: null, after: { commentId, versionId, path: body.path, body: body.body } },
+      { type: TRAIL_EVENTS.reviewCommentAdded, entityType: 'recipe_version', entityId: versionId, before: null, after: { commentId, versionId, path: body.path, body: body.body } },
       now,
     );
     return commentId;

@@ -23,7 +23,8 @@ import {
   type LockedRecipe,
 } from '../../data/workflow';
 import type { Actor } from '../actor';
-import { AUDIT_EVENTS, recordAudit } from '../trail/append';
+import { TRAIL_EVENTS } from '../trail/event-types';
+import { appendTrailEvent } from '../trail/append';
 import { dayOf, utcDay } from '../../../shared/calendar-dates';
 import { DEFAULT_MAIL_SETTINGS, type MailSettings } from '../mail/settings';
 import { notifyVersionCurrent } from '../mail/notifications';
@@ -40,7 +41,7 @@ export interface SupersededVersion {
 /**
  * Makes `target` the recipe's current version and supersedes every older approved version.
  * The caller holds the recipe row's lock; the older versions are locked here by id.
- * Writes no audit events: the caller writes them last (the trail's head lock comes last).
+ * Writes no trail events: the caller writes them last (the trail's head lock comes last).
  */
 export async function makeCurrent(trx: Knex.Transaction, recipe: LockedRecipe, target: Pick<VersionRow, 'id' | 'version'>, now: Date): Promise<SupersededVersion[]> {
   const states = await listVersionStates(trx, recipe.id);
@@ -59,11 +60,11 @@ export function replacedVersion(superseded: readonly SupersededVersion[]): numbe
 /** The trail events of versions superseded by `by`. */
 export async function recordSuperseded(trx: Knex, actor: Actor, superseded: readonly SupersededVersion[], by: { id: number; version: number }, now: Date): Promise<void> {
   for (const s of superseded) {
-    await recordAudit(
+    await appendTrailEvent(
       trx,
       actor,
       {
-        type: AUDIT_EVENTS.versionSuperseded,
+        type: TRAIL_EVENTS.versionSuperseded,
         entityType: 'recipe_version',
         entityId: s.id,
         before: { status: 'approved', revision: s.revision },
@@ -109,11 +110,11 @@ async function applyForRecipe(db: Knex, recipeId: number, now: Date, result: Sup
       { recipeId, number: recipe.number, version: target.version, title: target.title },
       now,
     );
-    await recordAudit(
+    await appendTrailEvent(
       trx,
       SCHEDULER_ACTOR,
       {
-        type: AUDIT_EVENTS.versionEffective,
+        type: TRAIL_EVENTS.versionEffective,
         entityType: 'recipe_version',
         entityId: target.id,
         before: { status: 'approved', current: false, revision: target.revision },

@@ -2,7 +2,7 @@
  * Review and approval (design 4): submit, return, approve with a signature, withdraw with a
  * signature, and a new version from a closed one. Each transition is one transaction that
  * locks the version row, checks its status and the revision the person saw, bumps the
- * revision and writes its audit event (before and after status) — so of two people acting
+ * revision and writes its trail event (before and after status) — so of two people acting
  * on the same version at the same moment exactly one succeeds and the other gets 409.
  */
 import { createHash } from 'node:crypto';
@@ -30,7 +30,8 @@ import {
   updateVersionState,
 } from '../../data/workflow';
 import type { Actor } from '../actor';
-import { AUDIT_EVENTS, recordAudit } from '../trail/append';
+import { TRAIL_EVENTS } from '../trail/event-types';
+import { appendTrailEvent } from '../trail/append';
 import { assignCheckCode } from './check-codes';
 import { addMonths, isCalendarDay, utcDay } from '../../../shared/calendar-dates';
 import { loadRecipeContext } from './context-loader';
@@ -165,11 +166,11 @@ export async function submitVersion(
         worst_check: worstSeverity(checks),
       });
       await notifyReviewRequested(trx, mail, v.id, refOf(recipeId, number, v), actor, now);
-      await recordAudit(
+      await appendTrailEvent(
         trx,
         actor,
         {
-          type: AUDIT_EVENTS.versionSubmitted,
+          type: TRAIL_EVENTS.versionSubmitted,
           entityType: 'recipe_version',
           entityId: v.id,
           before: { status: v.status, revision: v.revision },
@@ -203,11 +204,11 @@ export async function returnVersion(
       const commentId = await insertReviewComment(trx, { version_id: v.id, author_id: userId, author_name: actor.name.slice(0, 100), body: body.comment, path: '', created_at: now });
       await updateVersionState(trx, v.id, { status: 'returned' });
       await notifyReturned(trx, mail, v.id, refOf(recipeId, number, v), actor.name, body.comment, now);
-      await recordAudit(
+      await appendTrailEvent(
         trx,
         actor,
         {
-          type: AUDIT_EVENTS.versionReturned,
+          type: TRAIL_EVENTS.versionReturned,
           entityType: 'recipe_version',
           entityId: v.id,
           before: { status: v.status, revision: v.revision },
@@ -313,11 +314,11 @@ export async function approveVersion(
         await notifyVersionCurrent(trx, mail, { machineId: v.machine_id, changeReason: content.changeReason, replaces: replacedVersion(superseded) }, ref, now);
       }
 
-      await recordAudit(
+      await appendTrailEvent(
         trx,
         actor,
         {
-          type: AUDIT_EVENTS.versionApproved,
+          type: TRAIL_EVENTS.versionApproved,
           entityType: 'recipe_version',
           entityId: v.id,
           before: { status: v.status, revision: v.revision },
@@ -370,11 +371,11 @@ export async function withdrawVersion(db: Knex, actor: Actor, recipeId: number, 
       const wasCurrent = recipe.current_version_id === v.id;
       // A withdrawn version is out of use: the recipe has no current version until another is approved.
       if (wasCurrent) await setCurrentVersion(trx, recipe.id, null, now);
-      await recordAudit(
+      await appendTrailEvent(
         trx,
         actor,
         {
-          type: AUDIT_EVENTS.versionWithdrawn,
+          type: TRAIL_EVENTS.versionWithdrawn,
           entityType: 'recipe_version',
           entityId: v.id,
           before: { status: v.status, revision: v.revision, current: wasCurrent },
@@ -427,11 +428,11 @@ export async function createNextVersion(db: Knex, actor: Actor, recipeId: number
     await updateRecipeRow(trx, recipeId, { latest_version_id: versionId, title: source.title, updated_at: now });
     await touchEditor(trx, versionId, userId, now);
     const photos = await copyAttachments(trx, source.id, versionId, userId, now);
-    await recordAudit(
+    await appendTrailEvent(
       trx,
       actor,
       {
-        type: AUDIT_EVENTS.versionCreated,
+        type: TRAIL_EVENTS.versionCreated,
         entityType: 'recipe_version',
         entityId: versionId,
         before: null,

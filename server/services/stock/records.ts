@@ -9,7 +9,7 @@ import { machineBody, materialBody, wheelBody, type MachineBody, type MaterialBo
 import type { MachineRecord, MaterialRecord, WheelRecord } from '../../../shared/stock-types';
 import { fromJsonColumn } from '../../data/json-column';
 import type { StockRowBase, StockTable } from '../../data/stock';
-import { AUDIT_EVENTS, type AuditEntityType, type AuditEventType } from '../trail/append';
+import { TRAIL_EVENTS, type TrailEntityType, type TrailEventType } from '../trail/event-types';
 
 export interface MaterialRow extends StockRowBase {
   name: string;
@@ -160,7 +160,7 @@ export function machineValues(body: MachineBody): Record<string, unknown> {
 
 export interface StockKind<Body, Rec extends { id: number; archived: boolean; updatedAt: string }> {
   table: StockTable;
-  entityType: AuditEntityType;
+  entityType: TrailEntityType;
   /** "material", for messages. */
   noun: string;
   body: z.ZodType<Body>;
@@ -171,7 +171,7 @@ export interface StockKind<Body, Rec extends { id: number; archived: boolean; up
   searchColumns: readonly string[];
   /** Whether the list takes the `group` filter. */
   groupFilter: boolean;
-  events: { created: AuditEventType; updated: AuditEventType; archived: AuditEventType; unarchived: AuditEventType; deleted: AuditEventType };
+  events: { created: TrailEventType; updated: TrailEventType; archived: TrailEventType; unarchived: TrailEventType; deleted: TrailEventType };
 }
 
 export const MATERIALS: StockKind<MaterialBody, MaterialRecord> = {
@@ -185,11 +185,11 @@ export const MATERIALS: StockKind<MaterialBody, MaterialRecord> = {
   searchColumns: ['name', 'designation', 'condition'],
   groupFilter: true,
   events: {
-    created: AUDIT_EVENTS.materialCreated,
-    updated: AUDIT_EVENTS.materialUpdated,
-    archived: AUDIT_EVENTS.materialArchived,
-    unarchived: AUDIT_EVENTS.materialUnarchived,
-    deleted: AUDIT_EVENTS.materialDeleted,
+    created: TRAIL_EVENTS.materialCreated,
+    updated: TRAIL_EVENTS.materialUpdated,
+    archived: TRAIL_EVENTS.materialArchived,
+    unarchived: TRAIL_EVENTS.materialUnarchived,
+    deleted: TRAIL_EVENTS.materialDeleted,
   },
 };
 
@@ -212,11 +212,11 @@ export const WHEELS: StockKind<WheelBody, WheelRecord> = {
   searchColumns: ['name', 'specification'],
   groupFilter: false,
   events: {
-    created: AUDIT_EVENTS.wheelCreated,
-    updated: AUDIT_EVENTS.wheelUpdated,
-    archived: AUDIT_EVENTS.wheelArchived,
-    unarchived: AUDIT_EVENTS.wheelUnarchived,
-    deleted: AUDIT_EVENTS.wheelDeleted,
+    created: TRAIL_EVENTS.wheelCreated,
+    updated: TRAIL_EVENTS.wheelUpdated,
+    archived: TRAIL_EVENTS.wheelArchived,
+    unarchived: TRAIL_EVENTS.wheelUnarchived,
+    deleted: TRAIL_EVENTS.wheelDeleted,
   },
 };
 
@@ -231,10 +231,10 @@ export const MACHINES: StockKind<MachineBody, MachineRecord> = {
   searchColumns: ['name', 'notes'],
   groupFilter: false,
   events: {
-    created: AUDIT_EVENTS.machineCreated,
-    updated: AUDIT_EVENTS.machineUpdated,
-    archived: AUDIT_EVENTS.machineArchived,
-    unarchived: AUDIT_EVENTS.machineUnarchived,
-    deleted: AUDIT_EVENTS.machineDeleted,
+    created: TRAIL_EVENTS.machineCreated,
+    updated: TRAIL_EVENTS.machineUpdated,
+    archived: TRAIL_EVENTS.machineArchived,
+    unarchived: TRAIL_EVENTS.machineUnarchived,
+    deleted: TRAIL_EVENTS.machineDeleted,
   },
 };

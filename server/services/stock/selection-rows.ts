@@ -15,7 +15,8 @@ import {
 } from '../../data/selection-rows';
 import { findStockRow } from '../../data/stock';
 import type { Actor } from '../actor';
-import { AUDIT_EVENTS, recordAudit } from '../trail/append';
+import { TRAIL_EVENTS } from '../trail/event-types';
+import { appendTrailEvent } from '../trail/append';
 import { diff } from '../trail/changes';
 import type { WheelRow } from './records';
 
@@ -72,7 +73,7 @@ export async function createSelectionRow(db: Knex, actor: Actor, body: Selection
     const now = new Date();
     const id = await insertSelectionRowRow(trx, selectionRowValues(body), now);
     const created = await mustFind(trx, id);
-    await recordAudit(trx, actor, { type: AUDIT_EVENTS.selectionRowCreated, entityType: 'selection_row', entityId: id, before: null, after: snapshot(created) }, now);
+    await appendTrailEvent(trx, actor, { type: TRAIL_EVENTS.selectionRowCreated, entityType: 'selection_row', entityId: id, before: null, after: snapshot(created) }, now);
     return created;
   });
 }
@@ -86,7 +87,7 @@ export async function updateSelectionRow(db: Knex, actor: Actor, id: number, bod
     const after = await mustFind(trx, id);
     const changes = diff(snapshot(before), snapshot(after));
     if (Object.keys(changes.after).length > 0) {
-      await recordAudit(trx, actor, { type: AUDIT_EVENTS.selectionRowUpdated, entityType: 'selection_row', entityId: id, ...changes }, now);
+      await appendTrailEvent(trx, actor, { type: TRAIL_EVENTS.selectionRowUpdated, entityType: 'selection_row', entityId: id, ...changes }, now);
     }
     return after;
   });
@@ -96,6 +97,6 @@ export async function deleteSelectionRow(db: Knex, actor: Actor, id: number): Pr
   await db.transaction(async (trx) => {
     const before = await mustFind(trx, id, true);
     await deleteSelectionRowRow(trx, id);
-    await recordAudit(trx, actor, { type: AUDIT_EVENTS.selectionRowDeleted, entityType: 'selection_row', entityId: id, before: snapshot(before), after: null });
+    await appendTrailEvent(trx, actor, { type: TRAIL_EVENTS.selectionRowDeleted, entityType: 'selection_row', entityId: id, before: snapshot(before), after: null });
   });
 }

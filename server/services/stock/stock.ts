@@ -16,7 +16,7 @@ import {
   updateStockRow,
 } from '../../data/stock';
 import type { Actor } from '../actor';
-import { recordAudit } from '../trail/append';
+import { appendTrailEvent } from '../trail/append';
 import { diff } from '../trail/changes';
 import type { StockKind } from './records';
 
@@ -61,7 +61,7 @@ export async function createStock<B, R extends AnyRecord>(db: Knex, actor: Actor
     const now = new Date();
     const id = await insertStockRow(trx, kind.table, { ...kind.values(body), archived: false, archived_at: null, created_at: now, updated_at: now });
     const created = await mustFind(trx, kind, id);
-    await recordAudit(trx, actor, { type: kind.events.created, entityType: kind.entityType, entityId: id, before: null, after: snapshot(created) }, now);
+    await appendTrailEvent(trx, actor, { type: kind.events.created, entityType: kind.entityType, entityId: id, before: null, after: snapshot(created) }, now);
     return created;
   });
 }
@@ -74,7 +74,7 @@ export async function updateStock<B, R extends AnyRecord>(db: Knex, actor: Actor
     const after = await mustFind(trx, kind, id);
     const changes = diff(snapshot(before), snapshot(after));
     if (Object.keys(changes.after).length > 0) {
-      await recordAudit(trx, actor, { type: kind.events.updated, entityType: kind.entityType, entityId: id, ...changes }, now);
+      await appendTrailEvent(trx, actor, { type: kind.events.updated, entityType: kind.entityType, entityId: id, ...changes }, now);
     }
     return after;
   });
@@ -82,7 +82,7 @@ export async function updateStock<B, R extends AnyRecord>(db: Knex, actor: Actor
 
 async function setArchived<B, R extends AnyRecord>(trx: Knex, actor: Actor, kind: StockKind<B, R>, id: number, archived: boolean, now: Date): Promise<R> {
   await updateStockRow(trx, kind.table, id, { archived, archived_at: archived ? now : null, updated_at: now });
-  await recordAudit(
+  await appendTrailEvent(
     trx,
     actor,
     { type: archived ? kind.events.archived : kind.events.unarchived, entityType: kind.entityType, entityId: id, before: { archived: !archived }, after: { archived } },
@@ -128,7 +128,7 @@ export async function deleteStock<B, R extends AnyRecord>(db: Knex, actor: Actor
       const before = await mustFind(trx, kind, id, true);
       if (await isStockReferenced(trx, kind.table, id)) return null;
       await deleteStockRow(trx, kind.table, id);
-      await recordAudit(trx, actor, { type: kind.events.deleted, entityType: kind.entityType, entityId: id, before: snapshot(before), after: null });
+      await appendTrailEvent(trx, actor, { type: kind.events.deleted, entityType: kind.entityType, entityId: id, before: snapshot(before), after: null });
       return { archived: false };
     }).then((result) => result ?? archiveInstead());
   } catch (err) {

@@ -4,67 +4,12 @@
  * event carries the hash of the one before it (see hash.ts for what is hashed).
  */
 import type { Knex } from 'knex';
-import { advanceChainHead, insertAuditEvent, lockChainHead, recipeIdOfVersion } from '../../data/audit-events';
+import { advanceChainHead, insertTrailEvent, lockChainHead, recipeIdOfVersion } from '../../data/trail-events';
 import type { Actor } from '../actor';
 import { canonicalJson } from '../../../shared/canonical-json';
 import { chainedFields } from './stored-row';
+import type { TrailEntityType, TrailEventType } from './event-types';
 import { trailHash } from './hash';
-
-export const AUDIT_EVENTS = {
-  userCreated: 'user.created',
-  userRolesChanged: 'user.roles_changed',
-  userDetailsChanged: 'user.details_changed',
-  userDeactivated: 'user.deactivated',
-  userReactivated: 'user.reactivated',
-  userTemporaryPasswordSet: 'user.temporary_password_set',
-  ownPasswordChanged: 'user.password_changed',
-  preferencesChanged: 'user.preferences_changed',
-  userInvited: 'user.invited',
-  invitationResent: 'user.invitation_resent',
-  userMachinesChanged: 'user.machines_changed',
-  passwordSetByLink: 'user.password_set_by_link',
-  passwordResetRequested: 'user.password_reset_requested',
-  notificationPreferencesChanged: 'user.notification_preferences_changed',
-  signedIn: 'session.signed_in',
-  signInFailed: 'session.sign_in_failed',
-  signedOut: 'session.signed_out',
-  materialCreated: 'material.created',
-  materialUpdated: 'material.updated',
-  materialArchived: 'material.archived',
-  materialUnarchived: 'material.unarchived',
-  materialDeleted: 'material.deleted',
-  wheelCreated: 'wheel.created',
-  wheelUpdated: 'wheel.updated',
-  wheelArchived: 'wheel.archived',
-  wheelUnarchived: 'wheel.unarchived',
-  wheelDeleted: 'wheel.deleted',
-  machineCreated: 'machine.created',
-  machineUpdated: 'machine.updated',
-  machineArchived: 'machine.archived',
-  machineUnarchived: 'machine.unarchived',
-  machineDeleted: 'machine.deleted',
-  selectionRowCreated: 'selection_row.created',
-  selectionRowUpdated: 'selection_row.updated',
-  selectionRowDeleted: 'selection_row.deleted',
-  recipeCreated: 'recipe.created',
-  draftSaved: 'recipe.draft_saved',
-  attachmentAdded: 'attachment.added',
-  attachmentDeleted: 'attachment.deleted',
-  versionSubmitted: 'recipe.version_submitted',
-  versionReturned: 'recipe.version_returned',
-  versionApproved: 'recipe.version_approved',
-  versionEffective: 'recipe.version_effective',
-  versionSuperseded: 'recipe.version_superseded',
-  versionWithdrawn: 'recipe.version_withdrawn',
-  versionCreated: 'recipe.version_created',
-  reviewCommentAdded: 'recipe.review_comment_added',
-  sheetPrinted: 'sheet.printed',
-  cutRecorded: 'cut.recorded',
-  cutFlagCleared: 'cut.flag_cleared',
-  versionAcknowledged: 'recipe.version_acknowledged',
-} as const;
-
-export type AuditEventType = (typeof AUDIT_EVENTS)[keyof typeof AUDIT_EVENTS];
 
 /** Keys that must never reach the trail, whatever a caller passes in before/after. */
 const SECRET_KEYS = /password|hash|secret|token/i;
@@ -78,17 +23,15 @@ function toJson(value: Record<string, unknown> | null | undefined): string | nul
   if (value == null) return null;
   for (const key of Object.keys(value)) {
     if (SECRET_KEYS.test(key) && key !== 'mustChangePassword') {
-      throw new Error(`Refusing to write "${key}" to the audit trail.`);
+      throw new Error(`Refusing to write "${key}" to the trail.`);
     }
   }
   return canonicalJson(JSON.parse(JSON.stringify(value)));
 }
 
-export type AuditEntityType = 'user' | 'material' | 'wheel' | 'machine' | 'selection_row' | 'recipe' | 'recipe_version' | 'attachment';
-
-export interface AuditEntry {
-  type: AuditEventType;
-  entityType: AuditEntityType;
+export interface TrailEntry {
+  type: TrailEventType;
+  entityType: TrailEntityType;
   entityId: number | null;
   before?: Record<string, unknown> | null;
   after?: Record<string, unknown> | null;
@@ -108,7 +51,7 @@ function clip(value: string, max: number): string {
   return chars.length <= max ? value : chars.slice(0, max).join('');
 }
 
-async function recipeOf(trx: Knex, entry: AuditEntry): Promise<number | null> {
+async function recipeOf(trx: Knex, entry: TrailEntry): Promise<number | null> {
   if (entry.recipeId !== undefined) return entry.recipeId;
   if (entry.entityId === null) return null;
   if (entry.entityType === 'recipe') return entry.entityId;
@@ -123,7 +66,7 @@ async function recipeOf(trx: Knex, entry: AuditEntry): Promise<number | null> {
  * stays locked until that transaction ends: appends from every app process queue on it, and
  * each row links to the row committed just before it.
  */
-export async function recordAudit(trx: Knex, actor: Actor, entry: AuditEntry, at = new Date()): Promise<void> {
+export async function appendTrailEvent(trx: Knex, actor: Actor, entry: TrailEntry, at = new Date()): Promise<void> {
   const append = async (t: Knex.Transaction) => {
     const recipeId = await recipeOf(t, entry);
     const head = await lockChainHead(t);
@@ -142,7 +85,7 @@ export async function recordAudit(trx: Knex, actor: Actor, entry: AuditEntry, at
       prev_hash: head.lastHash,
     };
     const hash = trailHash(chainedFields({ ...row, hash: '' }));
-    await insertAuditEvent(t, { ...row, hash });
+    await insertTrailEvent(t, { ...row, hash });
     await advanceChainHead(t, { lastEventId: row.id, lastHash: hash });
   };
   if (trx.isTransaction) await append(trx as Knex.Transaction);

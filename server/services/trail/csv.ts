@@ -2,10 +2,10 @@
 import type { Knex } from 'knex';
 import type { AuditEventDto } from '../../../shared/recipe-types';
 import type { AuditQuery } from '../../../shared/schemas/workflow';
-import { listAuditEventRows } from '../../data/audit-events';
+import { listTrailEventRows } from '../../data/trail-events';
 import { CSV_BOM, csvLine } from '../csv';
 import { filterOf } from './query';
-import { toAuditEventDto } from './stored-row';
+import { toTrailEventDto } from './stored-row';
 
 // CSV (RFC 4180): CRLF line ends, fields quoted when they hold a quote, comma or line break.
 
@@ -31,14 +31,14 @@ export function csvFileName(now = new Date()): string {
  */
 export async function openTrailCsv(db: Knex, query: AuditQuery, batchSize = CSV_BATCH): Promise<AsyncIterable<string>> {
   const { beforeId: _ignored, ...filter } = filterOf(query);
-  const first = await listAuditEventRows(db, filter, batchSize);
+  const first = await listTrailEventRows(db, filter, batchSize);
   async function* chunks(): AsyncGenerator<string> {
     yield CSV_BOM + csvLine(CSV_HEADER);
     let rows = first;
     while (rows.length > 0) {
-      yield rows.map((r) => csvRow(toAuditEventDto(r))).join('');
+      yield rows.map((r) => csvRow(toTrailEventDto(r))).join('');
       if (rows.length < batchSize) return;
-      rows = await listAuditEventRows(db, { ...filter, beforeId: Number(rows[rows.length - 1]!.id) }, batchSize);
+      rows = await listTrailEventRows(db, { ...filter, beforeId: Number(rows[rows.length - 1]!.id) }, batchSize);
     }
   }
   return chunks();

@@ -3,8 +3,8 @@ import type { Knex } from 'knex';
 import type { AuditPage } from '../../../shared/recipe-types';
 import type { AuditQuery } from '../../../shared/schemas/workflow';
 import { AppError } from '../../app-error';
-import { type AuditFilter, listAuditEventRows } from '../../data/audit-events';
-import { toAuditEventDto } from './stored-row';
+import { type TrailFilter, listTrailEventRows } from '../../data/trail-events';
+import { toTrailEventDto } from './stored-row';
 
 /** YYYY-MM-DD as the UTC midnight that starts it, refusing dates that do not exist (2027-02-31). */
 function utcDay(value: string, path: string): Date {
@@ -18,11 +18,11 @@ function utcDay(value: string, path: string): Date {
 const DAY_MS = 86_400_000;
 
 /** The query's filters as bounds: `from` and `to` are whole UTC days, both included. */
-export function filterOf(query: AuditQuery): AuditFilter {
+export function filterOf(query: AuditQuery): TrailFilter {
   const from = query.from === undefined ? undefined : utcDay(query.from, 'from');
   const to = query.to === undefined ? undefined : utcDay(query.to, 'to');
   if (from && to && from > to) throw AppError.validation([{ path: 'to', message: 'The last day must not be before the first.' }]);
-  const filter: AuditFilter = {};
+  const filter: TrailFilter = {};
   if (query.recipeId !== undefined) filter.recipeId = query.recipeId;
   if (query.userId !== undefined) filter.userId = query.userId;
   if (query.type) filter.type = query.type;
@@ -34,8 +34,8 @@ export function filterOf(query: AuditQuery): AuditFilter {
 
 /** A page, newest first; `nextBefore` is set only when an older row exists. */
 export async function listTrail(db: Knex, query: AuditQuery): Promise<AuditPage> {
-  const rows = await listAuditEventRows(db, filterOf(query), query.limit + 1);
-  const items = rows.slice(0, query.limit).map(toAuditEventDto);
+  const rows = await listTrailEventRows(db, filterOf(query), query.limit + 1);
+  const items = rows.slice(0, query.limit).map(toTrailEventDto);
   const more = rows.length > query.limit;
   return { items, nextBefore: more && items.length > 0 ? items[items.length - 1]!.id : null };
 }

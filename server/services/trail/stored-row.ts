@@ -1,12 +1,12 @@
 /** A trail row as read back from the database: the fields its hash covers, and its DTO. */
 import type { AuditEventDto } from '../../../shared/recipe-types';
-import type { StoredAuditEventRow } from '../../data/audit-events';
+import type { StoredTrailEventRow } from '../../data/trail-events';
 import type { ChainedFields } from './hash';
 
 const json = (value: unknown): unknown => (typeof value === 'string' ? JSON.parse(value) : (value ?? null));
 
 /** A stored row as the fields its hash covers. */
-export function chainedFields(row: Omit<StoredAuditEventRow, 'hash'> & { hash?: string }): ChainedFields {
+export function chainedFields(row: Omit<StoredTrailEventRow, 'hash'> & { hash?: string }): ChainedFields {
   return {
     id: Number(row.id),
     occurredAt: row.occurred_at,
@@ -23,7 +23,7 @@ export function chainedFields(row: Omit<StoredAuditEventRow, 'hash'> & { hash?: 
   };
 }
 
-export function toAuditEventDto(row: StoredAuditEventRow): AuditEventDto {
+export function toTrailEventDto(row: StoredTrailEventRow): AuditEventDto {
   return {
     id: Number(row.id),
     occurredAt: row.occurred_at.toISOString(),

@@ -4,7 +4,7 @@
  */
 import type { Knex } from 'knex';
 import type { ChainVerification } from '../../../shared/recipe-types';
-import { type StoredAuditEventRow, chainBatch, readChainHead } from '../../data/audit-events';
+import { type StoredTrailEventRow, chainBatch, readChainHead } from '../../data/trail-events';
 import { GENESIS_HASH, trailHash } from './hash';
 import { chainedFields } from './stored-row';
 
@@ -29,7 +29,7 @@ export async function verifyChain(db: Knex, batchSize = VERIFY_BATCH): Promise<C
       // The next batch is asked for before this one is hashed, so the database reads while we
       // hash (npm run bench: chain verification ≥ 100,000 events/s). A read still pending when
       // a broken row ends the walk is awaited first: the transaction must not end under it.
-      let pending: Promise<StoredAuditEventRow[]> = chainBatch(trx, 0, batchSize);
+      let pending: Promise<StoredTrailEventRow[]> = chainBatch(trx, 0, batchSize);
       const stop = async (result: ChainVerification): Promise<ChainVerification> => {
         await pending.catch(() => undefined);
         return result;

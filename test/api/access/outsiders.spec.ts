@@ -151,7 +151,7 @@ describe('Operators, auditors and anonymous callers: no drafts, no people, no wr
       const before = await dbFingerprint(ctx.db);
       const res = await author.agent.post(`/api/materials/${targets.material}/archive`).set(CSRF_HEADER, author.csrf);
       expect(res.status).to.equal(200);
-      expect(changedTables(before, await dbFingerprint(ctx.db))).to.include.members(['materials', 'audit_events', 'trail head']);
+      expect(changedTables(before, await dbFingerprint(ctx.db))).to.include.members(['materials', 'trail_events', 'trail head']);
     });
   });
 });

@@ -13,7 +13,9 @@ import os from 'node:os';
 import path from 'node:path';
 import type { Express } from 'express';
 import type { Knex } from 'knex';
-import { AUDIT_EVENTS, recordAudit } from '../../../server/services/trail/append';
+import { MIGRATIONS_DIR } from '../../../server/data/db';
+import { TRAIL_EVENTS } from '../../../server/services/trail/event-types';
+import { appendTrailEvent } from '../../../server/services/trail/append';
 import { verifyChain } from '../../../server/services/trail/verify';
 import { seedDemoIfEmpty } from '../../../server/tools/db-setup';
 import { DUMP_FILE, MANIFEST_FILE, type Manifest } from '../../../server/cli/backup/manifest';
@@ -147,9 +149,9 @@ describe('Backup and restore (npm run backup / restore)', function () {
     expect(m.schema.latestMigration).to.equal(fromDb.name);
     expect(m.rowCounts['recipes']).to.equal(original['recipes']!.length);
     expect(m.rowCounts['signatures']).to.equal(original['signatures']!.length).and.to.be.above(0);
-    expect(m.trail?.events).to.equal(original['audit_events']!.length);
+    expect(m.trail?.events).to.equal(original['trail_events']!.length);
     expect(m.attachments).to.include({ storedIn: 'database', count: 1 });
-    expect(m.triggers).to.include.members(['audit_events_refuse_update', 'recipe_versions_frozen_update', 'signatures_no_delete', 'attachments_frozen_insert', 'recipes_library_insert']);
+    expect(m.triggers).to.include.members(['trail_events_refuse_update', 'recipe_versions_frozen_update', 'signatures_no_delete', 'attachments_frozen_insert', 'recipes_library_insert']);
   });
 
   it('refuses a missing file, changing nothing', async () => {
@@ -207,7 +209,7 @@ describe('Backup and restore (npm run backup / restore)', function () {
     expect(fs.existsSync(result.previousContents!)).to.equal(true);
 
     const after = await fingerprint(db);
-    for (const t of ['recipes', 'recipe_versions', 'signatures', 'audit_events', 'audit_chain_head', 'attachments', 'cut_records', 'users']) {
+    for (const t of ['recipes', 'recipe_versions', 'signatures', 'trail_events', 'trail_chain_head', 'attachments', 'cut_records', 'users']) {
       expect(after[t], t).to.deep.equal(original[t]);
     }
     expect(after).to.deep.equal(original);
@@ -218,7 +220,7 @@ describe('Backup and restore (npm run backup / restore)', function () {
     const frozen = (await db('recipe_versions').whereNotNull('content_hash').first('id')) as { id: number };
     let refused = await db('recipe_versions').where({ id: frozen.id }).update({ title: 'Changed after restore' }).then(() => null, (e: Error) => e);
     expect(refused?.message).to.match(/content is frozen/);
-    refused = await db('audit_events').where('id', 1).del().then(() => null, (e: Error) => e);
+    refused = await db('trail_events').where('id', 1).del().then(() => null, (e: Error) => e);
     expect(refused?.message).to.match(/append-only/);
     refused = await db('signatures').del().then(() => null, (e: Error) => e);
     expect(refused?.message).to.match(/signatures are permanent/);
@@ -237,7 +239,7 @@ describe('Backup and restore (npm run backup / restore)', function () {
     let writing = true;
     const writer = (async () => {
       const actor = { userId: null, name: 'Backup test', clientAddress: '127.0.0.1' };
-      while (writing) await recordAudit(db, actor, { type: AUDIT_EVENTS.preferencesChanged, entityType: 'user', entityId: null });
+      while (writing) await appendTrailEvent(db, actor, { type: TRAIL_EVENTS.preferencesChanged, entityType: 'user', entityId: null });
     })();
     try {
       await new Promise((r) => setTimeout(r, 100));
@@ -250,8 +252,8 @@ describe('Backup and restore (npm run backup / restore)', function () {
       execFileSync('tar', ['-xzf', during.file, '-C', dir]);
       const dump = fs.readFileSync(path.join(dir, DUMP_FILE), 'latin1');
       const { headEventId, headHash, events } = during.manifest.trail!;
-      const upToHead = (await db('audit_events').where('id', '<=', headEventId).orderBy('id').pluck('hash')) as string[];
-      const later = (await db('audit_events').where('id', '>', headEventId).pluck('hash')) as string[];
+      const upToHead = (await db('trail_events').where('id', '<=', headEventId).orderBy('id').pluck('hash')) as string[];
+      const later = (await db('trail_events').where('id', '>', headEventId).pluck('hash')) as string[];
       expect(later.length, 'events appended after the snapshot').to.be.above(0);
       expect(upToHead.length).to.equal(events);
       expect(upToHead[upToHead.length - 1]).to.equal(headHash);
@@ -261,5 +263,25 @@ describe('Backup and restore (npm run backup / restore)', function () {
       writing = false;
       await writer;
     }
+  });
+
+  it('restores a backup made before the trail tables were renamed: migrated, the same chain verifying under the new names', async () => {
+    const rename = fs.readdirSync(MIGRATIONS_DIR).find((f) => f.endsWith('_rename_audit_tables_to_trail.ts'))!;
+    const hashes = (await db('trail_events').orderBy('id').pluck('hash')) as string[];
+    await db.migrate.down({ name: rename });
+    const old = await makeBackup(testDatabaseUrl(), { dir: work });
+    expect(old.manifest.rowCounts).to.include.keys('audit_events', 'audit_chain_head');
+    expect(old.manifest.trail!.events).to.equal(hashes.length);
+    expect(old.manifest.triggers).to.include('audit_events_refuse_update');
+
+    const result = await restoreAlone(old.file);
+    expect(result.migrationsRun).to.deep.equal([rename]);
+    expect(result.verification).to.deep.equal({ ok: true, checked: hashes.length, firstBroken: null });
+    expect(await db('trail_events').orderBy('id').pluck('hash')).to.deep.equal(hashes);
+    const names = await triggerNames(db);
+    expect(names).to.include.members(['trail_events_refuse_update', 'trail_events_refuse_delete']);
+    expect(names.filter((n) => n.startsWith('audit_'))).to.deep.equal([]);
+    const refused = await db('trail_events').where('id', 1).update({ actor_name: 'Edited' }).then(() => null, (e: Error) => e);
+    expect(refused?.message).to.match(/append-only/);
   });
 });

@@ -225,8 +225,8 @@ describe('Several app processes behind a reverse proxy on one MariaDB', () => {
       // Supersession: one trail event each, the chain intact.
       expect(await currentVersionOf(pending.recipeId)).to.equal(2);
       expect((await db('recipe_versions').where({ recipe_id: pending.recipeId, version: 1 }).first('status')).status).to.equal('superseded');
-      expect(await countWhere('audit_events', { event_type: 'recipe.version_effective', recipe_id: pending.recipeId })).to.equal(1);
-      expect(await countWhere('audit_events', { event_type: 'recipe.version_superseded', recipe_id: pending.recipeId })).to.equal(1);
+      expect(await countWhere('trail_events', { event_type: 'recipe.version_effective', recipe_id: pending.recipeId })).to.equal(1);
+      expect(await countWhere('trail_events', { event_type: 'recipe.version_superseded', recipe_id: pending.recipeId })).to.equal(1);
       const chain = await verifyChain(db);
       expect(chain.ok, JSON.stringify(chain)).to.equal(true);
 

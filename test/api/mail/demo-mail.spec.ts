@@ -45,7 +45,7 @@ describe('Demo seeds: machines, acknowledgements and the mail they caused', () =
   it('leaves only the newest version on his saws to acknowledge, on his Today', async () => {
     const today = await getToday(ctx.db, { id: operatorId, roles: operator.roles });
     expect(today.toAcknowledge.map((r) => r.title)).to.deep.equal(['42CrMo4 quenched and tempered bar, large diameters']);
-    const events = await ctx.db('audit_events').where({ event_type: 'recipe.version_acknowledged', actor_user_id: operatorId }).count({ n: '*' }).first();
+    const events = await ctx.db('trail_events').where({ event_type: 'recipe.version_acknowledged', actor_user_id: operatorId }).count({ n: '*' }).first();
     expect(Number(events!.n)).to.be.at.least(4);
   });
 

@@ -47,10 +47,10 @@ describe('Large data set (seed:large)', function () {
   });
 
   it('holds the promised counts at scale 0.002', async () => {
-    expect(summary.counts).to.include({ recipes: 20, auditEvents: 2000, cutRecords: 200, users: 8 });
+    expect(summary.counts).to.include({ recipes: 20, trailEvents: 2000, cutRecords: 200, users: 8 });
     expect(await countRows(ctx.db, 'recipes')).to.equal(20);
     expect(await countRows(ctx.db, 'users')).to.equal(8);
-    expect(await countRows(ctx.db, 'audit_events')).to.equal(2000);
+    expect(await countRows(ctx.db, 'trail_events')).to.equal(2000);
     expect(await countRows(ctx.db, 'cut_records')).to.equal(200);
     const versions = await countRows(ctx.db, 'recipe_versions');
     expect(versions).to.equal(summary.counts.recipeVersions).and.to.be.within(60, 100);
@@ -66,10 +66,10 @@ describe('Large data set (seed:large)', function () {
     const result = await verifyChain(ctx.db);
     expect(result).to.deep.equal({ ok: true, checked: 2000, firstBroken: null });
     const auditor = await signedInAgent(ctx.app, { username: summary.usernames.auditor, password: summary.password });
-    const res = await auditor.agent.get('/api/audit-events/verify').expect(200);
+    const res = await auditor.agent.get('/api/trail/verify').expect(200);
     // The auditor's own sign-in is appended to the chain and verified with it.
     expect((res.body as ChainVerification).ok).to.equal(true);
-    const times = (await ctx.db('audit_events').where('id', '<=', 2000).orderBy('id').pluck('occurred_at')) as Date[];
+    const times = (await ctx.db('trail_events').where('id', '<=', 2000).orderBy('id').pluck('occurred_at')) as Date[];
     expect(times.every((t, i) => i === 0 || t.getTime() >= times[i - 1]!.getTime())).to.equal(true);
   });
 

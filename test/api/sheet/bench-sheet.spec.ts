@@ -148,7 +148,7 @@ describe('Bench sheet', () => {
     expect(print).to.include({ version_id: versionId, user_id: operator.person.id });
     expect(print.client_address).to.be.a('string').and.not.equal('');
     expect(Date.now() - new Date(print.printed_at).getTime()).to.be.below(60000);
-    const event = await ctx.db('audit_events').orderBy('id', 'desc').first();
+    const event = await ctx.db('trail_events').orderBy('id', 'desc').first();
     expect(event).to.include({ event_type: 'sheet.printed', entity_type: 'recipe_version' });
     expect(Number(event.entity_id)).to.equal(versionId);
     expect(Number(event.actor_user_id)).to.equal(operator.person.id);

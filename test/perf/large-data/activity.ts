@@ -5,7 +5,7 @@
  * trail up to its size. Payloads are those the services write.
  */
 import type { CutOutcome } from '../../../shared/vocabulary';
-import { AUDIT_EVENTS } from '../../../server/services/trail/append';
+import { TRAIL_EVENTS } from '../../../server/services/trail/event-types';
 import type { Person } from './people';
 import type { PlannedRecipe, PlannedVersion } from './recipe-history';
 import { DAY_MS, HOUR_MS, MINUTE_MS, type Random } from './random';
@@ -14,7 +14,7 @@ import { actorOf, IdSequence, type TrailActor, type TrailPlan } from './trail-pl
 /** Who the trail names for the first admin, made on the command line (server/cli/create-admin.ts). */
 const COMMAND_LINE: TrailActor = { userId: null, name: 'command line (admin:create)', clientAddress: 'local' };
 
-/** The trail snapshot of a person (user-dto.ts `auditSnapshot`). */
+/** The trail snapshot of a person (user-dto.ts `trailSnapshot`). */
 function personSnapshot(p: Person): Record<string, unknown> {
   return { username: p.username, displayName: p.displayName, email: p.email, roles: p.roles, active: true, mustChangePassword: false, units: 'metric', machineIds: [] };
 }
@@ -23,7 +23,7 @@ export function planPeopleEvents(people: readonly Person[], plan: TrailPlan): vo
   const [first] = people;
   if (!first) return;
   for (const p of people) {
-    plan.add(p.createdAt, p === first ? COMMAND_LINE : actorOf(first), () => ({ type: AUDIT_EVENTS.userCreated, entityType: 'user', entityId: p.id, recipeId: null, before: null, after: personSnapshot(p) }));
+    plan.add(p.createdAt, p === first ? COMMAND_LINE : actorOf(first), () => ({ type: TRAIL_EVENTS.userCreated, entityType: 'user', entityId: p.id, recipeId: null, before: null, after: personSnapshot(p) }));
   }
 }
 
@@ -102,7 +102,7 @@ export function planCuts(count: number, inUse: readonly InUse[], operators: read
       cut.specimenId = `LD-${new Date(t).getUTCFullYear() % 100}-${String(cut.id).padStart(6, '0')}`;
       rows.push(cut);
       return {
-        type: AUDIT_EVENTS.cutRecorded,
+        type: TRAIL_EVENTS.cutRecorded,
         entityType: 'recipe_version',
         entityId: version.id,
         recipeId: version.recipe.id,
@@ -119,7 +119,7 @@ export function planCuts(count: number, inUse: readonly InUse[], operators: read
         cut.flagClearedBy = author;
         const base = { cutId: cut.id, versionId: version.id, outcome };
         return {
-          type: AUDIT_EVENTS.cutFlagCleared,
+          type: TRAIL_EVENTS.cutFlagCleared,
           entityType: 'recipe_version',
           entityId: version.id,
           recipeId: version.recipe.id,
@@ -159,7 +159,7 @@ export function planDailyWork(events: number, inUse: readonly InUse[], people: r
       print.id = ids.next();
       prints.push(print);
       return {
-        type: AUDIT_EVENTS.sheetPrinted,
+        type: TRAIL_EVENTS.sheetPrinted,
         entityType: 'recipe_version',
         entityId: version.id,
         recipeId: version.recipe.id,
@@ -176,7 +176,7 @@ export function planDailyWork(events: number, inUse: readonly InUse[], people: r
     const known = random.chance(0.7);
     const name = known ? p.username : `${p.username.slice(0, -1)}x`;
     plan.add(t, { userId: null, name, clientAddress: p.clientAddress }, () => ({
-      type: AUDIT_EVENTS.signInFailed,
+      type: TRAIL_EVENTS.signInFailed,
       entityType: 'user',
       entityId: known ? p.id : null,
       recipeId: null,
@@ -189,10 +189,10 @@ export function planDailyWork(events: number, inUse: readonly InUse[], people: r
     const p = random.pick(people);
     const t = random.between(p.createdAt + HOUR_MS, end - 10 * HOUR_MS);
     p.lastSignInAt = Math.max(p.lastSignInAt ?? 0, Math.floor(t));
-    plan.add(t, actorOf(p), () => ({ type: AUDIT_EVENTS.signedIn, entityType: 'user', entityId: p.id, recipeId: null }));
+    plan.add(t, actorOf(p), () => ({ type: TRAIL_EVENTS.signedIn, entityType: 'user', entityId: p.id, recipeId: null }));
     left -= 1;
     if (left === 0) break;
-    plan.add(t + random.between(HOUR_MS, 9 * HOUR_MS), actorOf(p), () => ({ type: AUDIT_EVENTS.signedOut, entityType: 'user', entityId: p.id, recipeId: null }));
+    plan.add(t + random.between(HOUR_MS, 9 * HOUR_MS), actorOf(p), () => ({ type: TRAIL_EVENTS.signedOut, entityType: 'user', entityId: p.id, recipeId: null }));
     left -= 1;
   }
   return { prints, ids };

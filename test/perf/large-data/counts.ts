@@ -2,14 +2,14 @@
 export interface LargeDataCounts {
   recipes: number;
   users: number;
-  auditEvents: number;
+  trailEvents: number;
   cutRecords: number;
 }
 
 export const FULL_SCALE: LargeDataCounts = {
   recipes: 10_000,
   users: 200,
-  auditEvents: 1_000_000,
+  trailEvents: 1_000_000,
   cutRecords: 100_000,
 };
 
@@ -23,7 +23,7 @@ export function scaledCounts(scale: number): LargeDataCounts {
   return {
     recipes: of(FULL_SCALE.recipes),
     users: Math.max(MIN_USERS, of(FULL_SCALE.users)),
-    auditEvents: of(FULL_SCALE.auditEvents),
+    trailEvents: of(FULL_SCALE.trailEvents),
     cutRecords: of(FULL_SCALE.cutRecords),
   };
 }

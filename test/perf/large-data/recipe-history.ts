@@ -12,7 +12,7 @@
 import type { RecipeStatus } from '../../../shared/vocabulary';
 import type { CheckResult } from '../../../shared/recipe-checks';
 import type { VersionContentValues } from '../../../server/data/recipes';
-import { AUDIT_EVENTS } from '../../../server/services/trail/append';
+import { TRAIL_EVENTS } from '../../../server/services/trail/event-types';
 import { addMonths, utcDay } from '../../../shared/calendar-dates';
 import { newCheckCode } from '../../../server/services/recipes/check-codes';
 import { formatRecipeNumber } from '../../../server/services/recipes/recipes';
@@ -221,7 +221,7 @@ function planRecipe(serial: number, createdAt: number, input: HistoryInput, hist
         recipe.number = formatRecipeNumber(recipe.id);
         v.id = history.ids.versions.next();
         return {
-          type: AUDIT_EVENTS.recipeCreated,
+          type: TRAIL_EVENTS.recipeCreated,
           entityType: 'recipe',
           entityId: recipe.id,
           recipeId: recipe.id,
@@ -234,7 +234,7 @@ function planRecipe(serial: number, createdAt: number, input: HistoryInput, hist
       plan.add(s, creatorActor, () => {
         v.id = history.ids.versions.next();
         return {
-          type: AUDIT_EVENTS.versionCreated,
+          type: TRAIL_EVENTS.versionCreated,
           entityType: 'recipe_version',
           entityId: v.id,
           recipeId: recipe.id,
@@ -284,7 +284,7 @@ function planRecipe(serial: number, createdAt: number, input: HistoryInput, hist
     v.updatedAt = t;
     touch(v, saver, t);
     recipe.updatedAt = t;
-    plan.add(t, actorOf(saver), () => ({ type: AUDIT_EVENTS.draftSaved, entityType: 'recipe_version', entityId: v.id, recipeId: recipe.id, before, after }));
+    plan.add(t, actorOf(saver), () => ({ type: TRAIL_EVENTS.draftSaved, entityType: 'recipe_version', entityId: v.id, recipeId: recipe.id, before, after }));
   }
 
   function submit(v: PlannedVersion, t: number, content: PlannedContent): void {
@@ -295,7 +295,7 @@ function planRecipe(serial: number, createdAt: number, input: HistoryInput, hist
     v.revision += 1;
     v.contentHash = hash;
     v.submittedAt = t;
-    plan.add(t, actorOf(v.updatedBy), () => ({ type: AUDIT_EVENTS.versionSubmitted, entityType: 'recipe_version', entityId: v.id, recipeId: recipe.id, before, after }));
+    plan.add(t, actorOf(v.updatedBy), () => ({ type: TRAIL_EVENTS.versionSubmitted, entityType: 'recipe_version', entityId: v.id, recipeId: recipe.id, before, after }));
   }
 
   function returnVersion(v: PlannedVersion, approver: Person, t: number): void {
@@ -308,7 +308,7 @@ function planRecipe(serial: number, createdAt: number, input: HistoryInput, hist
       const comment: PlannedComment = { id: history.ids.comments.next(), version: v, author: approver, body, createdAt: t };
       history.comments.push(comment);
       return {
-        type: AUDIT_EVENTS.versionReturned,
+        type: TRAIL_EVENTS.versionReturned,
         entityType: 'recipe_version',
         entityId: v.id,
         recipeId: recipe.id,
@@ -345,7 +345,7 @@ function planRecipe(serial: number, createdAt: number, input: HistoryInput, hist
       const signature: PlannedSignature = { id: history.ids.signatures.next(), version: v, signer: approver, meaning: 'approved', comment, signedAt: t, contentHash, acknowledgedWarnings: acknowledged };
       history.signatures.push(signature);
       return {
-        type: AUDIT_EVENTS.versionApproved,
+        type: TRAIL_EVENTS.versionApproved,
         entityType: 'recipe_version',
         entityId: v.id,
         recipeId: recipe.id,
@@ -368,7 +368,7 @@ function planRecipe(serial: number, createdAt: number, input: HistoryInput, hist
     if (superseded) {
       const old = superseded.version;
       plan.add(t, actorOf(approver), () => ({
-        type: AUDIT_EVENTS.versionSuperseded,
+        type: TRAIL_EVENTS.versionSuperseded,
         entityType: 'recipe_version',
         entityId: old.id,
         recipeId: recipe.id,
@@ -393,7 +393,7 @@ function planRecipe(serial: number, createdAt: number, input: HistoryInput, hist
       const signature: PlannedSignature = { id: history.ids.signatures.next(), version: v, signer: approver, meaning: 'withdrawn', comment: reason, signedAt: t, contentHash, acknowledgedWarnings: [] };
       history.signatures.push(signature);
       return {
-        type: AUDIT_EVENTS.versionWithdrawn,
+        type: TRAIL_EVENTS.versionWithdrawn,
         entityType: 'recipe_version',
         entityId: v.id,
         recipeId: recipe.id,

@@ -44,7 +44,7 @@ export interface LargeDataSummary {
     users: number;
     recipes: number;
     recipeVersions: number;
-    auditEvents: number;
+    trailEvents: number;
     cutRecords: number;
     sheetPrints: number;
     signatures: number;
@@ -64,7 +64,7 @@ export interface LargeDataSummary {
 const YEAR_MS = 365 * DAY_MS;
 
 async function hasData(db: Knex): Promise<boolean> {
-  for (const table of ['users', 'recipes', 'materials', 'audit_events']) {
+  for (const table of ['users', 'recipes', 'materials', 'trail_events']) {
     if (await db(table).first(db.raw('1 as one'))) return true;
   }
   return false;
@@ -120,7 +120,7 @@ export async function seedLarge(db: Knex, options: SeedLargeOptions): Promise<La
   });
   const inUse = versionsInUse(history.recipes);
   const cuts = planCuts(counts.cutRecords, inUse, operators, authors, end, random, plan);
-  const prints = planDailyWork(Math.max(0, counts.auditEvents - plan.size), inUse, people, operators, end, random, plan);
+  const prints = planDailyWork(Math.max(0, counts.trailEvents - plan.size), inUse, people, operators, end, random, plan);
   step(`planned ${history.recipes.length} recipes, ${plan.size} trail events`);
 
   // --- write --------------------------------------------------------------------------
@@ -130,7 +130,7 @@ export async function seedLarge(db: Knex, options: SeedLargeOptions): Promise<La
   step(`users: ${people.length}`);
 
   const trail = await writeTrail(db, plan, (n) => log(`[seed:large]   trail: ${n} events…`));
-  step(`audit_events: ${trail.events} (chain head ${trail.lastHash.slice(0, 12)}…)`);
+  step(`trail_events: ${trail.events} (chain head ${trail.lastHash.slice(0, 12)}…)`);
 
   const recipes = history.recipes;
   const versions = recipes.flatMap((r) => r.versions).sort((a, b) => a.id - b.id);
@@ -221,7 +221,7 @@ export async function seedLarge(db: Knex, options: SeedLargeOptions): Promise<La
       users: people.length,
       recipes: recipes.length,
       recipeVersions: versions.length,
-      auditEvents: trail.events,
+      trailEvents: trail.events,
       cutRecords: cuts.rows.length,
       sheetPrints: prints.prints.length,
       signatures: signatures.length,

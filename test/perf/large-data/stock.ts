@@ -14,7 +14,7 @@ import { DEMO_MACHINES, DEMO_MATERIALS, DEMO_WHEELS } from '../../../seeds/data/
 import { getLabLimits } from '../../../server/services/stock/lab-limits';
 import { selectionRowValues, toSelectionRow } from '../../../server/services/stock/selection-rows';
 import { MACHINES, MATERIALS, WHEELS, type MachineRow, type MaterialRow, type StockKind, type WheelRow } from '../../../server/services/stock/records';
-import { AUDIT_EVENTS } from '../../../server/services/trail/append';
+import { TRAIL_EVENTS } from '../../../server/services/trail/event-types';
 import type { SelectionRowRow } from '../../../server/data/selection-rows';
 import { MINUTE_MS } from './random';
 import type { TrailActor, TrailPlan } from './trail-plan';
@@ -112,7 +112,7 @@ export async function insertStock(db: Knex, at: number, actor: TrailActor, plan:
   const selectionRows = ((await db('selection_rows').orderBy('id').select('*')) as SelectionRowRow[]).map(toSelectionRow);
   selectionRows.forEach((row, i) => {
     const { id: _id, ...rest } = row;
-    plan.add(selectionAt + i * MINUTE_MS, actor, () => ({ type: AUDIT_EVENTS.selectionRowCreated, entityType: 'selection_row', entityId: row.id, recipeId: null, before: null, after: rest }));
+    plan.add(selectionAt + i * MINUTE_MS, actor, () => ({ type: TRAIL_EVENTS.selectionRowCreated, entityType: 'selection_row', entityId: row.id, recipeId: null, before: null, after: rest }));
   });
 
   const limits = await getLabLimits(db);

@@ -4,7 +4,7 @@
  * in time order. Ids of recipes, versions, signatures, cuts … are handed out while the
  * events are built, so — as in the running app — they grow with time.
  */
-import type { AuditEntityType, AuditEventType } from '../../../server/services/trail/append';
+import type { TrailEntityType, TrailEventType } from '../../../server/services/trail/event-types';
 import type { Person } from './people';
 
 export interface TrailActor {
@@ -13,10 +13,10 @@ export interface TrailActor {
   clientAddress: string;
 }
 
-/** What `recordAudit` is given, with the recipe resolved (it looks it up; the plan knows it). */
+/** What `appendTrailEvent` is given, with the recipe resolved (it looks it up; the plan knows it). */
 export interface TrailEntry {
-  type: AuditEventType;
-  entityType: AuditEntityType;
+  type: TrailEventType;
+  entityType: TrailEntityType;
   entityId: number | null;
   recipeId: number | null;
   before?: Record<string, unknown> | null;

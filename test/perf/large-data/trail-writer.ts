@@ -1,12 +1,12 @@
 /**
- * Writes the planned trail in time order as the chain `recordAudit` appends: the same row
- * (canonical JSON text, clipped names, null for an empty client address), the same hash
- * (`trailHash` over `chainedFields`, as in server/services/trail/append.ts) linking each row to the one before,
- * and the chain head moved to the last row at the end.
+ * Writes the planned trail in time order as the chain `appendTrailEvent` appends: the same
+ * row (canonical JSON text, clipped names, null for an empty client address), the same hash
+ * (`trailHash` over `chainedFields`, as in server/services/trail/append.ts) linking each row
+ * to the one before, and the chain head moved to the last row at the end.
  */
 import type { Knex } from 'knex';
-import type { ChainedAuditEventRow } from '../../../server/data/audit-events';
-import { advanceChainHead, CHAIN_HEAD_TABLE } from '../../../server/data/audit-events';
+import type { ChainedTrailEventRow } from '../../../server/data/trail-events';
+import { advanceChainHead, CHAIN_HEAD_TABLE } from '../../../server/data/trail-events';
 import { canonicalJson } from '../../../shared/canonical-json';
 import { chainedFields } from '../../../server/services/trail/stored-row';
 import { GENESIS_HASH, trailHash } from '../../../server/services/trail/hash';
@@ -34,14 +34,14 @@ export interface WrittenTrail {
 export async function writeTrail(db: Knex, plan: TrailPlan, progress: (written: number) => void): Promise<WrittenTrail> {
   const head = (await db(CHAIN_HEAD_TABLE).where({ id: 1 }).first('last_event_id')) as { last_event_id: number } | undefined;
   if (!head || Number(head.last_event_id) !== 0) throw new Error('The trail is not empty: the large data set starts its own chain.');
-  const writer = new BatchWriter(db, 'audit_events', 2000);
+  const writer = new BatchWriter(db, 'trail_events', 2000);
   let prevHash = GENESIS_HASH;
   let id = 0;
   const events = plan.inTimeOrder();
   for (const event of events) {
     const entry = event.make();
     id += 1;
-    const row: Omit<ChainedAuditEventRow, 'hash'> = {
+    const row: Omit<ChainedTrailEventRow, 'hash'> = {
       id,
       occurred_at: new Date(event.t),
       actor_user_id: event.actor.userId,

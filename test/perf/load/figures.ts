@@ -3,7 +3,7 @@
  * (autocannon against the bench server) and the in-process chain verification.
  */
 import type { Knex } from 'knex';
-import { chainBatch } from '../../../server/data/audit-events';
+import { chainBatch } from '../../../server/data/trail-events';
 import { verifyChain, VERIFY_BATCH } from '../../../server/services/trail/verify';
 import type { HttpSession } from './http-session';
 import { measure, type LoadFigures } from './measure';
@@ -87,7 +87,7 @@ export async function loadFigures(ctx: FigureContext): Promise<Figure[]> {
   const mid = Math.floor((minId + maxId) / 2);
   // Pages start within a small spread of each depth (never below the first event).
   const spread = Math.max(1, Math.min(10_000, Math.floor((maxId - minId) / 10)));
-  const before = (at: number) => `/api/audit-events?before=${Math.max(minId + 1, at)}`;
+  const before = (at: number) => `/api/trail?before=${Math.max(minId + 1, at)}`;
   const depths: [string, () => string][] = [
     ['top', () => before(maxId + 1 - jitter(spread))],
     ['middle', () => before(mid - jitter(spread))],

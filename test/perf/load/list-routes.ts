@@ -31,12 +31,12 @@ export function listRouteCalls(s: Samples, big: { recipeId: number }): RouteCall
     { role: 'author', path: `/api/recipes/${big.recipeId}/compare?from=1&to=2` },
     { role: 'approver', path: `/api/recipes/${big.recipeId}/versions/2/comments` },
     // Trail: top, middle, bottom, and each filter.
-    { role: 'auditor', path: '/api/audit-events' },
-    { role: 'auditor', path: `/api/audit-events?before=${mid}` },
-    { role: 'auditor', path: `/api/audit-events?before=${s.trail.minId + 60}` },
-    { role: 'auditor', path: `/api/audit-events?recipeId=${s.anyRecipeId}` },
-    { role: 'auditor', path: `/api/audit-events?type=${encodeURIComponent(s.eventType)}&before=${mid}` },
-    { role: 'auditor', path: '/api/audit-events?from=2026-01-01&to=2026-01-31' },
+    { role: 'auditor', path: '/api/trail' },
+    { role: 'auditor', path: `/api/trail?before=${mid}` },
+    { role: 'auditor', path: `/api/trail?before=${s.trail.minId + 60}` },
+    { role: 'auditor', path: `/api/trail?recipeId=${s.anyRecipeId}` },
+    { role: 'auditor', path: `/api/trail?type=${encodeURIComponent(s.eventType)}&before=${mid}` },
+    { role: 'auditor', path: '/api/trail?from=2026-01-01&to=2026-01-31' },
     // Operator station, people, reviews, Today for every role.
     { role: 'operator', path: `/api/finder?${q({ group: f.group, sizeMm: 30, machineId: f.machineId })}` },
     { role: 'operator', path: `/api/finder?${q({ group: f.group })}` },
@@ -53,7 +53,7 @@ export function listRouteCalls(s: Samples, big: { recipeId: number }): RouteCall
     { role: 'author', path: '/api/machines' },
     { role: 'author', path: '/api/selection-rows' },
   ];
-  if (s.actorUserId) calls.push({ role: 'auditor', path: `/api/audit-events?userId=${s.actorUserId}` });
+  if (s.actorUserId) calls.push({ role: 'auditor', path: `/api/trail?userId=${s.actorUserId}` });
   if (s.specimenId) calls.push({ role: 'operator', path: `/api/cuts?${q({ specimenId: s.specimenId })}` });
   if (s.versionWithCuts) {
     const { recipeId, version } = s.versionWithCuts;

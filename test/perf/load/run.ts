@@ -81,12 +81,12 @@ async function fillIfEmpty(conn: Knex, scale: number): Promise<Omit<LargeDataSum
 
 async function datasetCounts(conn: Knex): Promise<Record<string, number>> {
   const count = async (table: string) => Number(((await conn(table).count<{ n: number }[]>({ n: '*' }).first()) as { n: number }).n);
-  const head = (await conn('audit_chain_head').where({ id: 1 }).first('last_event_id')) as { last_event_id: number } | undefined;
+  const head = (await conn('trail_chain_head').where({ id: 1 }).first('last_event_id')) as { last_event_id: number } | undefined;
   return {
     recipes: await count('recipes'),
     recipeVersions: await count('recipe_versions'),
     users: await count('users'),
-    auditEvents: Number(head?.last_event_id ?? 0),
+    trailEvents: Number(head?.last_event_id ?? 0),
     cutRecords: await count('cut_records'),
     sheetPrints: await count('sheet_prints'),
   };

@@ -51,11 +51,11 @@ export async function readSamples(db: Knex): Promise<Samples> {
     | { recipe_id: number; version: number; specimen_id: string }
     | undefined;
   const multi = (await db('recipe_versions').where('version', 2).orderBy('id').first('recipe_id')) as { recipe_id: number } | undefined;
-  const actor = (await db('audit_events').whereNotNull('actor_user_id').orderBy('id', 'desc').first('actor_user_id', 'event_type')) as
+  const actor = (await db('trail_events').whereNotNull('actor_user_id').orderBy('id', 'desc').first('actor_user_id', 'event_type')) as
     | { actor_user_id: number; event_type: string }
     | undefined;
-  const range = (await db('audit_events').min({ minId: 'id' }).max({ maxId: 'id' }).first()) as { minId: number | null; maxId: number | null };
-  const count = (await db('audit_chain_head').where({ id: 1 }).first('last_event_id')) as { last_event_id: number } | undefined;
+  const range = (await db('trail_events').min({ minId: 'id' }).max({ maxId: 'id' }).first()) as { minId: number | null; maxId: number | null };
+  const count = (await db('trail_chain_head').where({ id: 1 }).first('last_event_id')) as { last_event_id: number } | undefined;
 
   return {
     filters,

@@ -1,13 +1,14 @@
 /**
  * Queries on the append-only trail and its chain head. Rows are only ever inserted: the
- * database refuses UPDATE and DELETE on audit_events (triggers from the chain migration).
+ * database refuses UPDATE and DELETE on trail_events (its triggers trail_events_refuse_update
+ * and trail_events_refuse_delete).
  */
 import type { Knex } from 'knex';
 
 /** The one-row table holding the newest row's id and hash: the chain's end. */
-export const CHAIN_HEAD_TABLE = 'audit_chain_head';
+export const CHAIN_HEAD_TABLE = 'trail_chain_head';
 
-export interface AuditEventRow {
+export interface TrailEventRow {
   occurred_at: Date;
   actor_user_id: number | null;
   actor_name: string;
@@ -21,7 +22,7 @@ export interface AuditEventRow {
 }
 
 /** A row as the chain stores it. */
-export interface ChainedAuditEventRow extends AuditEventRow {
+export interface ChainedTrailEventRow extends TrailEventRow {
   id: number;
   /** The recipe the event is about (directly or through a version or photo); null otherwise. */
   recipe_id: number | null;
@@ -30,7 +31,7 @@ export interface ChainedAuditEventRow extends AuditEventRow {
 }
 
 /** A row as read back: the JSON columns as mysql2 hands them over (text or parsed). */
-export interface StoredAuditEventRow extends Omit<ChainedAuditEventRow, 'before_json' | 'after_json'> {
+export interface StoredTrailEventRow extends Omit<ChainedTrailEventRow, 'before_json' | 'after_json'> {
   before_json: unknown;
   after_json: unknown;
 }
@@ -48,14 +49,14 @@ export async function lockChainHead(trx: Knex.Transaction): Promise<ChainHead> {
   const row = (await trx(CHAIN_HEAD_TABLE).where({ id: 1 }).forUpdate().first('last_event_id', 'last_hash')) as
     | { last_event_id: number; last_hash: string }
     | undefined;
-  if (!row) throw new Error('The audit chain head row is missing (run the migrations).');
+  if (!row) throw new Error('The trail chain head row is missing (run the migrations).');
   return { lastEventId: Number(row.last_event_id), lastHash: row.last_hash };
 }
 
 /** The chain's end as a plain (consistent-snapshot) read, for verification. */
 export async function readChainHead(db: Knex): Promise<ChainHead> {
   const row = (await db(CHAIN_HEAD_TABLE).where({ id: 1 }).first('last_event_id', 'last_hash')) as { last_event_id: number; last_hash: string } | undefined;
-  if (!row) throw new Error('The audit chain head row is missing (run the migrations).');
+  if (!row) throw new Error('The trail chain head row is missing (run the migrations).');
   return { lastEventId: Number(row.last_event_id), lastHash: row.last_hash };
 }
 
@@ -64,8 +65,8 @@ export async function advanceChainHead(trx: Knex.Transaction, head: ChainHead): 
 }
 
 /** Inserts with an explicit id (the head's id + 1, under the head lock), so the hash can cover it. */
-export async function insertAuditEvent(trx: Knex.Transaction, row: ChainedAuditEventRow): Promise<void> {
-  await trx('audit_events').insert(row);
+export async function insertTrailEvent(trx: Knex.Transaction, row: ChainedTrailEventRow): Promise<void> {
+  await trx('trail_events').insert(row);
 }
 
 /** The recipe a version belongs to, for events recorded against a version or its photos. */
@@ -91,11 +92,11 @@ const CHAIN_COLUMNS = [
 ] as const;
 
 /** Rows with an id above `afterId`, oldest first: one batch of a walk along the chain. */
-export async function chainBatch(db: Knex, afterId: number, limit: number): Promise<StoredAuditEventRow[]> {
-  return db('audit_events').where('id', '>', afterId).orderBy('id', 'asc').limit(limit).select(CHAIN_COLUMNS);
+export async function chainBatch(db: Knex, afterId: number, limit: number): Promise<StoredTrailEventRow[]> {
+  return db('trail_events').where('id', '>', afterId).orderBy('id', 'asc').limit(limit).select(CHAIN_COLUMNS);
 }
 
-export interface AuditFilter {
+export interface TrailFilter {
   recipeId?: number;
   userId?: number;
   type?: string;
@@ -112,8 +113,8 @@ export interface AuditFilter {
  * secondary index, so `actor_user_id`, `event_type` and `recipe_id` each serve "this value,
  * id descending" without a sort).
  */
-export async function listAuditEventRows(db: Knex, filter: AuditFilter, limit: number): Promise<StoredAuditEventRow[]> {
-  const q = db('audit_events').select(CHAIN_COLUMNS).orderBy('id', 'desc').limit(limit);
+export async function listTrailEventRows(db: Knex, filter: TrailFilter, limit: number): Promise<StoredTrailEventRow[]> {
+  const q = db('trail_events').select(CHAIN_COLUMNS).orderBy('id', 'desc').limit(limit);
   if (filter.recipeId !== undefined) q.where('recipe_id', filter.recipeId);
   if (filter.userId !== undefined) q.where('actor_user_id', filter.userId);
   if (filter.type !== undefined) q.where('event_type', filter.type);
