@@ -9,11 +9,17 @@ import type { RecipeContext } from '../../../shared/recipe-context';
 import type { RecipeVersionDto, SignatureDto } from '../../../shared/recipe-types';
 import type { HardnessWindow } from '../../../shared/schemas/stock';
 import { formatQuantity } from '../../../shared/units';
-import { CLAMPING_METHOD_LABELS, CUT_MOTION_LABELS, MACHINE_CLASS_LABELS, MATERIAL_GROUP_LABELS, SHAPE_LABELS } from '../../../shared/vocabulary';
+import {
+  CLAMPING_METHOD_LABELS,
+  COOLANT_TYPE_LABELS,
+  CUT_MOTION_LABELS,
+  CUT_ORIENTATION_LABELS,
+  MACHINE_CLASS_LABELS,
+  MATERIAL_GROUP_LABELS,
+  SHAPE_LABELS,
+} from '../../../shared/vocabulary';
 import type { Row } from './layout';
 
-const ORIENTATION_LABELS = { transverse: 'Transverse', longitudinal: 'Longitudinal', other: 'Other' } as const;
-const COOLANT_LABELS = { 'water-soluble': 'Water-soluble coolant', oil: 'Cutting oil', dry: 'Dry (no coolant)' } as const;
 const MEANING_LABELS: Record<SignatureDto['meaning'], string> = { approved: 'Approved', withdrawn: 'Withdrawn' };
 
 export interface SheetSignature {
@@ -106,7 +112,7 @@ export function buildSheetModel(input: SheetInput): SheetModel {
     { label: 'Material group', value: MATERIAL_GROUP_LABELS[c.scope.group] },
     { label: 'Hardness', value: hardnessText(c.scope.hardness, material?.hardness) },
     { label: 'Shape and size', value: `${SHAPE_LABELS[c.scope.shape]}, ${sizeLine}` },
-    { label: 'Cut orientation', value: `${ORIENTATION_LABELS[c.scope.orientation]}${c.scope.orientationNote ? ` — ${c.scope.orientationNote}` : ''}` },
+    { label: 'Cut orientation', value: `${CUT_ORIENTATION_LABELS[c.scope.orientation]}${c.scope.orientationNote ? ` — ${c.scope.orientationNote}` : ''}` },
   ];
 
   const speed = formatQuantity(computed.peripheralSpeedMs, 'speed', units);
@@ -151,7 +157,7 @@ export function buildSheetModel(input: SheetInput): SheetModel {
     ...(c.clamping.orientationRule ? [{ label: 'Orientation rule', value: c.clamping.orientationRule }] : []),
   ];
 
-  const coolant: Row[] = [{ label: 'Coolant', value: COOLANT_LABELS[c.coolant.type], strong: true }];
+  const coolant: Row[] = [{ label: 'Coolant', value: COOLANT_TYPE_LABELS[c.coolant.type], strong: true }];
   if (c.coolant.concentrationPct !== null) coolant.push({ label: 'Concentration', value: `${num(c.coolant.concentrationPct)} % v/v` });
   if (c.coolant.flowLMin !== null) coolant.push({ label: 'Flow', value: `${num(c.coolant.flowLMin)} L/min` });
 

@@ -26,20 +26,13 @@ import { requireActor, versionDto } from '../recipes/recipes';
 import { buildSheetModel, utcMinute } from './content';
 import { qrPng } from './qr';
 import { renderSheet, type SheetPhoto } from './render';
+import { RECIPE_STATUS_PHRASES } from '../../../shared/vocabulary';
 
 export interface BenchSheet {
   pdf: Buffer;
   /** "KB-0001-v2.pdf". */
   fileName: string;
 }
-
-const WHY_NOT: Partial<Record<RecipeVersionDto['status'], string>> = {
-  draft: 'is a draft',
-  'in-review': 'is still in review',
-  returned: 'was returned to its author',
-  superseded: 'is superseded',
-  withdrawn: 'is withdrawn',
-};
 
 /** The setup photo as JPEG for pdfkit (which embeds JPEG and PNG only), or null when there is none. */
 async function setupPhoto(db: Knex, versionId: number): Promise<SheetPhoto | null> {
@@ -84,7 +77,7 @@ export async function printBenchSheet(
     const current = recipe.current_version_id ? (await db('recipe_versions').where({ id: recipe.current_version_id }).first('version'))?.version : null;
     const instead = current ? ` Print version ${current}, the current one.` : '';
     throw AppError.conflict(
-      `Version ${version} of ${dto.number} ${WHY_NOT[dto.status] ?? `is ${dto.status}`}: only approved versions (current or approved for a later day) print as bench sheets.${instead}`,
+      `Version ${version} of ${dto.number} is ${RECIPE_STATUS_PHRASES[dto.status]}: only approved versions (current or approved for a later day) print as bench sheets.${instead}`,
       'status',
     );
   }

@@ -22,6 +22,8 @@ import { notifyCutFlagged } from '../mail/notifications';
 import { visibleVersion, type VersionScope } from './visibility';
 import { requireActor } from '../recipes/recipes';
 import { toSignatureDto } from '../recipes/signatures';
+import { utcDay } from '../../../shared/calendar-dates';
+import { RECIPE_STATUS_PHRASES } from '../../../shared/vocabulary';
 
 /** Cuts a specimen search answers at most (a specimen id is cut a handful of times). */
 const SPECIMEN_LIMIT = 200;
@@ -75,7 +77,7 @@ export async function recordCut(
     if (!recipe) throw AppError.notFound(`There is no recipe with id ${recipeId}.`);
     if (recipe.current_version_id !== target.id) {
       const current = recipe.current_version_id === null ? undefined : await findVersionById(trx, recipe.current_version_id);
-      const state = target.status === 'approved' ? 'approved but not in force yet' : target.status;
+      const state = target.status === 'approved' ? 'approved but not in force yet' : RECIPE_STATUS_PHRASES[target.status];
       const where = current ? `Use version ${current.version}, the one in force.` : `${recipe.number} has no version in force, so no cuts can be recorded on it.`;
       throw AppError.conflict(`Version ${version} of ${recipe.number} is ${state}: cuts are recorded only on the current version. ${where}`);
     }
@@ -127,7 +129,7 @@ export async function versionCutsCsv(db: Knex, scope: VersionScope, recipeId: nu
   const lines = cuts.map((c) =>
     csvLine([c.id, c.number, c.version, c.specimenId, c.partRef, c.quantity, c.outcome, c.notes, c.operatorId, c.operatorName, c.cutAt, c.flagClearedAt]),
   );
-  const day = now.toISOString().slice(0, 10).replace(/-/g, '');
+  const day = utcDay(now).replace(/-/g, '');
   return { fileName: `kerfbook-cuts-${target.number}-v${target.version}-${day}.csv`, text: CSV_BOM + csvLine(CSV_HEADER) + lines.join('') };
 }
 

@@ -23,6 +23,7 @@ import type { Actor } from '../actor';
 import { TRAIL_EVENTS } from '../trail/event-types';
 import { appendTrailEvent } from '../trail/append';
 import { visibleVersion, type VersionScope } from '../operator/visibility';
+import { RECIPE_STATUS_PHRASES } from '../../../shared/vocabulary';
 
 /** The person asking, as the acknowledgement rules need them. */
 export interface Viewer {
@@ -75,7 +76,7 @@ export async function acknowledgeVersion(db: Knex, actor: Actor, viewer: Viewer,
       const v = (await lockVersion(trx, recipeId, version))!;
       if (v.status !== 'approved') {
         throw AppError.conflict(
-          `Version ${version} of ${seen.number} is ${v.status}: only an approved version (in use, or approved for a later day) is acknowledged.`,
+          `Version ${version} of ${seen.number} is ${RECIPE_STATUS_PHRASES[v.status]}: only an approved version (in use, or approved for a later day) is acknowledged.`,
           'status',
         );
       }

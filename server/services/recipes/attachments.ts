@@ -16,6 +16,7 @@ import { TRAIL_EVENTS } from '../trail/event-types';
 import { appendTrailEvent } from '../trail/append';
 import { acceptImage, type Upload } from './image-intake';
 import { toAttachmentDto } from './recipe-dto';
+import { RECIPE_STATUS_PHRASES } from '../../../shared/vocabulary';
 
 /** Upload size cap: below MariaDB's default max_allowed_packet (16 MB) with room to spare. */
 export const MAX_ATTACHMENT_BYTES = 10 * 1024 * 1024;
@@ -31,7 +32,7 @@ async function draftVersion(db: Knex, recipeId: number, version: number): Promis
   const row = await findVersion(db, recipeId, version);
   if (!row) throw AppError.notFound(`There is no version ${version} of recipe ${recipeId}.`);
   if (row.status !== 'draft') {
-    throw AppError.conflict(`Version ${version} of ${row.number} is ${row.status}; photos can only be changed on a draft.`);
+    throw AppError.conflict(`Version ${version} of ${row.number} is ${RECIPE_STATUS_PHRASES[row.status]}; photos can only be changed on a draft.`);
   }
   return row;
 }

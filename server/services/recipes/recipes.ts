@@ -10,7 +10,6 @@ import { runChecks, worstSeverity } from '../../../shared/recipe-checks';
 import type { RecipeContext } from '../../../shared/recipe-context';
 import type { RecipeSummary, RecipeVersionDto } from '../../../shared/recipe-types';
 import type { CreateRecipeBody, RecipeContent, RecipeListQuery, SaveDraftBody } from '../../../shared/schemas/recipe';
-import type { HardnessScale, MaterialGroup } from '../../../shared/vocabulary';
 import { AppError } from '../../app-error';
 import { listAttachmentMetaRows } from '../../data/attachments';
 import {
@@ -35,6 +34,7 @@ import { changedKeys } from '../trail/changes';
 import { canSeeStatus, recipeNotFound, visibleVersion, type VersionScope } from '../operator/visibility';
 import { loadRecipeContext } from './context-loader';
 import { toRecipeSummary, toVersionDto } from './recipe-dto';
+import { RECIPE_STATUS_PHRASES, type HardnessScale, type MaterialGroup } from '../../../shared/vocabulary';
 
 export function formatRecipeNumber(n: number): string {
   return `KB-${String(n).padStart(4, '0')}`;
@@ -192,7 +192,7 @@ const EDITABLE = new Set(['draft', 'returned']);
 
 function notEditable(dto: RecipeVersionDto): AppError {
   return AppError.conflict(
-    `Version ${dto.version} of ${dto.number} is ${dto.status}, and only drafts can be edited. Start a new version to change it.`,
+    `Version ${dto.version} of ${dto.number} is ${RECIPE_STATUS_PHRASES[dto.status]}, and only drafts can be edited. Start a new version to change it.`,
   );
 }
 

@@ -12,7 +12,6 @@ import { changeReasonMissing, runChecks, worstSeverity, type CheckResult } from 
 import type { RecipeVersionDto } from '../../../shared/recipe-types';
 import type { RecipeContent } from '../../../shared/schemas/recipe';
 import type { ApproveBody, NewVersionBody, ReturnBody, SubmitBody, WithdrawBody } from '../../../shared/schemas/workflow';
-import type { RecipeStatus } from '../../../shared/vocabulary';
 import { AppError } from '../../app-error';
 import { findLabSettings } from '../../data/lab-settings';
 import { findRecipeRow, findVersion, insertVersion, updateRecipeRow, type VersionRow } from '../../data/recipes';
@@ -41,18 +40,10 @@ import { DEFAULT_MAIL_SETTINGS, type MailSettings } from '../mail/settings';
 import type { VersionRef } from '../mail/notification-mails';
 import { notifyApproved, notifyReturned, notifyReviewRequested, notifyVersionCurrent } from '../mail/notifications';
 import { makeCurrent, recordSuperseded, replacedVersion } from './supersession';
+import { RECIPE_STATUS_PHRASES, type RecipeStatus } from '../../../shared/vocabulary';
 
 /** The review interval when the lab has not set one (design 3: 24 months). */
 export const DEFAULT_REVIEW_INTERVAL_MONTHS = 24;
-
-const STATUS_WORDS: Record<RecipeStatus, string> = {
-  draft: 'a draft',
-  'in-review': 'in review',
-  returned: 'returned to its author',
-  approved: 'approved',
-  superseded: 'superseded',
-  withdrawn: 'withdrawn',
-};
 
 /**
  * Thrown inside a transaction when the version is not in the state the action needs or has
@@ -96,7 +87,7 @@ function label(number: string, v: Pick<VersionRow, 'version'>): string {
 /** Refuses unless the locked version is in one of the states and at the revision the person saw. */
 function expectState(number: string, v: VersionRow, allowed: readonly RecipeStatus[], action: string, revision: number): void {
   if (!allowed.includes(v.status)) {
-    throw new VersionConflict(`${label(number, v)} is ${STATUS_WORDS[v.status]}, so it cannot be ${action} now.`, 'status');
+    throw new VersionConflict(`${label(number, v)} is ${RECIPE_STATUS_PHRASES[v.status]}, so it cannot be ${action} now.`, 'status');
   }
   if (v.revision !== revision) {
     throw new VersionConflict(
@@ -404,11 +395,11 @@ export async function createNextVersion(db: Knex, actor: Actor, recipeId: number
     const source = await lockVersion(trx, recipeId, body.fromVersion);
     if (!source) throw AppError.validation([{ path: 'fromVersion', message: `${recipe.number} has no version ${body.fromVersion}.` }]);
     if (!CLOSED.includes(source.status)) {
-      throw AppError.conflict(`${label(recipe.number, source)} is ${STATUS_WORDS[source.status]}; a new version starts from an approved, superseded or withdrawn one.`, 'fromVersion');
+      throw AppError.conflict(`${label(recipe.number, source)} is ${RECIPE_STATUS_PHRASES[source.status]}; a new version starts from an approved, superseded or withdrawn one.`, 'fromVersion');
     }
     const open = await findOpenVersion(trx, recipeId);
     if (open) {
-      throw AppError.conflict(`${label(recipe.number, open)} is still ${STATUS_WORDS[open.status]}. A recipe has one open version at a time: finish that one first.`, 'fromVersion');
+      throw AppError.conflict(`${label(recipe.number, open)} is still ${RECIPE_STATUS_PHRASES[open.status]}. A recipe has one open version at a time: finish that one first.`, 'fromVersion');
     }
     const n = (await maxVersionNumber(trx, recipeId)) + 1;
     const content = { ...(JSON.parse(source.content_json) as RecipeContent), changeReason: body.changeReason };

@@ -2,6 +2,7 @@
 import type { Knex } from 'knex';
 import type { AuditEventDto } from '../../../shared/recipe-types';
 import type { AuditQuery } from '../../../shared/schemas/workflow';
+import { utcDay } from '../../../shared/calendar-dates';
 import { listTrailEventRows } from '../../data/trail-events';
 import { CSV_BOM, csvLine } from '../csv';
 import { filterOf } from './query';
@@ -20,7 +21,7 @@ export const CSV_BATCH = 1000;
 
 /** kerfbook-trail-20270131.csv, dated by the UTC day of the export. */
 export function csvFileName(now = new Date()): string {
-  return `kerfbook-trail-${now.toISOString().slice(0, 10).replace(/-/g, '')}.csv`;
+  return `kerfbook-trail-${utcDay(now).replace(/-/g, '')}.csv`;
 }
 
 /**

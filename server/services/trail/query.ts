@@ -2,32 +2,31 @@
 import type { Knex } from 'knex';
 import type { AuditPage } from '../../../shared/recipe-types';
 import type { AuditQuery } from '../../../shared/schemas/workflow';
+import { addDays, isCalendarDay } from '../../../shared/calendar-dates';
 import { AppError } from '../../app-error';
 import { type TrailFilter, listTrailEventRows } from '../../data/trail-events';
 import { toTrailEventDto } from './stored-row';
 
-/** YYYY-MM-DD as the UTC midnight that starts it, refusing dates that do not exist (2027-02-31). */
-function utcDay(value: string, path: string): Date {
-  const day = new Date(`${value}T00:00:00.000Z`);
-  if (Number.isNaN(day.getTime()) || day.toISOString().slice(0, 10) !== value) {
-    throw AppError.validation([{ path, message: `${value} is not a date on the calendar.` }]);
-  }
-  return day;
+/** A calendar day written YYYY-MM-DD, refusing days that do not exist (2027-02-31). */
+function calendarDay(value: string, path: string): string {
+  if (!isCalendarDay(value)) throw AppError.validation([{ path, message: `${value} is not a date on the calendar.` }]);
+  return value;
 }
 
-const DAY_MS = 86_400_000;
+/** The UTC midnight that starts a day. */
+const startOf = (day: string): Date => new Date(`${day}T00:00:00.000Z`);
 
 /** The query's filters as bounds: `from` and `to` are whole UTC days, both included. */
 export function filterOf(query: AuditQuery): TrailFilter {
-  const from = query.from === undefined ? undefined : utcDay(query.from, 'from');
-  const to = query.to === undefined ? undefined : utcDay(query.to, 'to');
+  const from = query.from === undefined ? undefined : calendarDay(query.from, 'from');
+  const to = query.to === undefined ? undefined : calendarDay(query.to, 'to');
   if (from && to && from > to) throw AppError.validation([{ path: 'to', message: 'The last day must not be before the first.' }]);
   const filter: TrailFilter = {};
   if (query.recipeId !== undefined) filter.recipeId = query.recipeId;
   if (query.userId !== undefined) filter.userId = query.userId;
   if (query.type) filter.type = query.type;
-  if (from) filter.from = from;
-  if (to) filter.toBefore = new Date(to.getTime() + DAY_MS);
+  if (from) filter.from = startOf(from);
+  if (to) filter.toBefore = startOf(addDays(to, 1));
   if (query.before !== undefined) filter.beforeId = query.before;
   return filter;
 }

@@ -89,7 +89,7 @@ describe('Cut records', () => {
       // Someone who is also an author sees the draft, and is told why it cannot take cuts.
       const res = await cut(draft, { specimenId: 'S-1', outcome: 'good' }, both);
       expect(res.status).to.equal(409);
-      expect(res.body.errors[0].message).to.match(/is draft: cuts are recorded only on the current version/);
+      expect(res.body.errors[0].message).to.match(/is a draft: cuts are recorded only on the current version/);
       expect(await written()).to.deep.equal(before);
     });
 
