@@ -25,7 +25,7 @@ import * as users from './handlers/users';
 import * as workflow from './handlers/workflow';
 import type { RouteDefinition } from './route-definition';
 
-/** Who edits stock (design 2): authors, and admins who keep the lab's lists. */
+/** Who edits stock: authors, and admins who keep the lab's lists. */
 const STOCK_EDITORS = ['author', 'admin'] as const;
 
 export const routes: readonly RouteDefinition[] = [
@@ -106,7 +106,7 @@ export const routes: readonly RouteDefinition[] = [
   { method: 'post', path: '/api/recipes/:id/versions/:n/comments', access: ['author', 'approver'], handler: workflow.addComment },
   { method: 'post', path: '/api/recipes/:id/versions/:n/attachments', access: ['author'], handler: attachments.upload, multipart: true },
   { method: 'delete', path: '/api/recipes/:id/versions/:n/attachments/:attachmentId', access: ['author'], handler: attachments.remove },
-  // "Read and understood" (design 4): operators of the version's machine acknowledge; others see who has not.
+  // "Read and understood": operators of the version's machine acknowledge; others see who has not.
   { method: 'post', path: '/api/recipes/:id/versions/:n/acknowledge', access: ['operator'], handler: acknowledgements.acknowledge },
   { method: 'get', path: '/api/recipes/:id/versions/:n/acknowledgements', access: ['author', 'approver', 'auditor', 'admin'], handler: acknowledgements.list },
   // The bench sheet of an approved version (current or approved for a later day); every print is recorded.

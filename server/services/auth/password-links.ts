@@ -1,5 +1,5 @@
 /**
- * What the public link routes do (design 4): "forgot password" mails a 1 h link to every
+ * What the public link routes do: "forgot password" mails a 1 h link to every
  * active account with the address, and a link (invitation or reset) lets its person set a
  * password once.
  */

@@ -1,6 +1,7 @@
 /**
  * At most MAX_FAILURES failed sign-ins per (username, client address) in a sliding
- * window. The counter lives in MariaDB so that every app process shares it (design 12).
+ * window. The counter lives in MariaDB so that every app process shares it (several
+ * processes may serve one lab).
  * Keyed by both so that someone guessing from one address cannot lock a person out
  * everywhere.
  */

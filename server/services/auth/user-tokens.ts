@@ -1,5 +1,5 @@
 /**
- * Single-use links (design 4): invitation (72 h) and password reset (1 h). The token is 32
+ * Single-use links: invitation (72 h) and password reset (1 h). The token is 32
  * random bytes in base64url and only its SHA-256 is stored, so a reader of the database
  * cannot use a link. Issuing a link voids the person's older open links of the same purpose.
  */

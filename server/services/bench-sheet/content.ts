@@ -1,5 +1,5 @@
 /**
- * What the bench sheet says, as plain rows and strings (design 8): built from the version,
+ * What the bench sheet says, as plain rows and strings: built from the version,
  * its stock and the shared computations, with the lab's units. No drawing here, so the
  * wording can be read and tested on its own.
  */

@@ -1,6 +1,7 @@
 /**
  * The bench sheet's fonts: DejaVu Sans regular and bold from `fonts/` (full TTFs, so µ ° ±
- * Ø ≤ and names like "Zoë Ødegård" print; toolchain pitfall 13). Each file is parsed once
+ * Ø ≤ and names like "Zoë Ødegård" print; pdfkit embeds TTF but not the @fontsource
+ * files, which cover one script each). Each file is parsed once
  * per process with fontkit and the parsed font handed to pdfkit, instead of pdfkit parsing
  * the TTF again for every document (~33 ms per font per sheet).
  */

@@ -1,5 +1,5 @@
 /**
- * The bench sheet (design 8): the PDF an operator prints and keeps at the saw. Only an
+ * The bench sheet: the PDF an operator prints and keeps at the saw. Only an
  * approved version prints — the one in force, or one approved for a later day — so a
  * draft, a returned or a superseded version never reaches the bench (ISO/IEC 17025 §8.3).
  * Every print is recorded (sheet_prints) and written to the trail as `sheet.printed`. An

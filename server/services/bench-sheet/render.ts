@@ -1,5 +1,5 @@
 /**
- * Lays out the bench sheet (design 8) from its model: header with the check code and QR,
+ * Lays out the bench sheet from its model: header with the check code and QR,
  * the uncontrolled-copy notice, scope, parameters, clamping (with the setup photo), coolant,
  * numbered instructions, acceptance criteria, cautions, the standard cautions box,
  * signatures, and a footer on every page. One or two pages.
@@ -85,7 +85,10 @@ function header(w: SheetWriter, m: SheetModel, qr: Buffer): void {
   w.y = boxTop + boxHeight + 6;
 }
 
-/** The uncontrolled-copy notice (trade reference §7: printed copies must be checked against the current revision). */
+/**
+ * The uncontrolled-copy notice: a printed copy must be checked against the current revision
+ * before use (ISO/IEC 17025:2017 §8.3, obsolete documents unusable by mistake).
+ */
 function uncontrolledNotice(w: SheetWriter, m: SheetModel): void {
   const pending = m.current ? '' : ` This version is not yet in force: do not use it before ${m.effectiveFrom}.`;
   const text = `Uncontrolled once printed. Before each use, scan the QR code or open ${m.checkUrl} and confirm that version ${m.version} is still the current revision. Do not use a superseded or withdrawn sheet.${pending}`;

@@ -1,5 +1,5 @@
 /**
- * The texts of the notification mails (design 4, 7): one mail per person, plain text and
+ * The texts of the notification mails: one mail per person, plain text and
  * HTML from composeMail, a subject naming the recipe number, version and title, one link
  * into the app, and — for the kinds a person may turn off — how to turn them off.
  */

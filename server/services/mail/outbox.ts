@@ -1,5 +1,5 @@
 /**
- * The mail outbox (design 3, 12). A mail is enqueued in the transaction of the event that
+ * The mail outbox, in MariaDB so that any app process can send it. A mail is enqueued in the transaction of the event that
  * causes it — it exists exactly when that event committed, and a refused or rolled-back
  * change leaves no mail. The worker (worker.ts) sends it later, from any process.
  */

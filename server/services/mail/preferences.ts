@@ -1,5 +1,5 @@
 /**
- * Which optional mails a person wants (design 7). Every kind is on until turned off; the
+ * Which optional mails a person wants (My account). Every kind is on until turned off; the
  * request to acknowledge a new version on one's machine cannot be turned off. The mail
  * senders read `notification_opt_outs` themselves; this service only shows and writes it.
  */

@@ -1,5 +1,5 @@
 /**
- * Review-due reminders (design 3, 7): a job in every app process mails the authors of each
+ * Review-due reminders: a job in every app process mails the authors of each
  * current approved version whose periodic review is due within 30 days or overdue — once a
  * week. The `review_reminders` row (version, Monday of the UTC week) and the mails are
  * written in one transaction; its primary key makes a second run that week, or another

@@ -1,5 +1,5 @@
 /**
- * Sends the mail outbox (design 3, 12). Runs on a timer in every app process, like the
+ * Sends the mail outbox. Runs on a timer in every app process, like the
  * supersession job, and is safe with several processes: rows are claimed in a short
  * transaction with SKIP LOCKED (claimer and claim end written before it commits), then
  * sent outside any transaction, then marked sent. A failed send records the error and

@@ -1,5 +1,5 @@
 /**
- * Cut records (design 9): an operator records each cut against the exact version used —
+ * Cut records: an operator records each cut against the exact version used —
  * only ever the recipe's current approved version. Anything but a good cut flags the
  * recipe for its author until an author has looked at it. From a version the lab finds
  * every cut made with it; from a specimen id, the version and parameters used.

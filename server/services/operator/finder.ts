@@ -1,5 +1,5 @@
 /**
- * The finder (design 7): what the operator has in hand → the current approved recipes that
+ * The finder, the operator's home screen: what the operator has in hand → the current approved recipes that
  * cover it, best first, each with its reasons in plain words.
  *
  * A recipe covers the part when every criterion the operator gave holds:

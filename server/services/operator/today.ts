@@ -1,5 +1,5 @@
 /**
- * The Today page (design 7) and the review-due list: what waits for the signed-in person,
+ * The Today page (everyone's home screen) and the review-due list: what waits for the signed-in person,
  * per role, with the cuts operators flagged and, for operators, the versions in use on
  * their machines that they have not acknowledged yet.
  */

@@ -1,6 +1,6 @@
 /**
- * What a person may see of the library (design 2): operators work from current approved
- * versions only. Someone who holds none of the roles that read the whole library (author,
+ * What a person may see of the library: operators work from current approved versions
+ * only, so an unapproved or obsolete version never reaches the saw. Someone who holds none of the roles that read the whole library (author,
  * approver, auditor, admin) sees released versions only — approved, superseded and
  * withdrawn ones — and the library lists each recipe by its current version. Drafts,
  * versions in review and returned versions answer exactly like versions that do not exist.

@@ -1,4 +1,4 @@
-/** People, managed by admins (design section 2). Nobody is ever deleted: people are deactivated. */
+/** People, managed by admins. Nobody is ever deleted: people are deactivated, and the trail keeps their names. */
 import type { Knex } from 'knex';
 import { randomBytes } from 'node:crypto';
 import type { MessageDto, Page, UserDto } from '../../../shared/api-types';
@@ -112,7 +112,7 @@ function ascending(ids: readonly number[]): number[] {
 }
 
 /**
- * Invites a person by e-mail (design 4): the account (active, with a password nobody knows),
+ * Invites a person by e-mail: the account (active, with a password nobody knows),
  * roles, machines, a 72 h link and the invitation mail, all in one transaction. The person
  * chooses their own password with the link and then signs in.
  */

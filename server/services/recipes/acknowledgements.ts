@@ -1,5 +1,5 @@
 /**
- * "Read and understood" (design 4): when a version comes into use, every operator assigned
+ * "Read and understood": when a version comes into use, every operator assigned
  * to its machine acknowledges it before printing its bench sheet. Only an approved version
  * (current, or approved for a later day) of a machine the operator runs can be
  * acknowledged; a second acknowledgement answers the first one and records nothing.

@@ -1,5 +1,5 @@
 /**
- * Photos of a recipe version (design 3): added and removed only while the version is a
+ * Photos of a recipe version: added and removed only while the version is a
  * draft; served to anyone signed in. The bytes are checked by image-intake before
  * anything is written.
  */

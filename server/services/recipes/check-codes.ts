@@ -1,5 +1,5 @@
 /**
- * Check codes (design 7 "Check a sheet", 8): each approved version gets 8 random Crockford
+ * Check codes (the "Check a sheet" page and the bench sheet): each approved version gets 8 random Crockford
  * base32 characters, printed on its bench sheet as XXXX-XXXX with a QR code of
  * `<origin>/check/<CODE>`. Whoever holds a printed sheet asks here whether that version may
  * still be used (ISO/IEC 17025 §8.3: obsolete documents unusable by mistake).

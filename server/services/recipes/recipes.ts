@@ -1,5 +1,5 @@
 /**
- * Recipes and their drafts (design 3 and 4): create (the server hands out the number),
+ * Recipes and their drafts: create (the server hands out the number),
  * the library list, versions, and saving a draft with optimistic concurrency — a stale
  * save gets 409 with the version as it is now, never a silent overwrite.
  */
@@ -213,7 +213,8 @@ function stale(dto: RecipeVersionDto): AppError {
 /**
  * Saves a draft. The write is one conditional UPDATE (revision and status in its WHERE),
  * so of two saves based on the same revision exactly one lands; the other gets 409 with
- * the version as it is now. A returned version becomes a draft again (design 4).
+ * the version as it is now. A returned version becomes a draft again: the author's edit is
+ * the answer to the approver's comments.
  */
 export async function saveDraft(db: Knex, actor: Actor, recipeId: number, version: number, body: SaveDraftBody, at = new Date()): Promise<RecipeVersionDto> {
   const userId = requireActor(actor);

@@ -1,5 +1,5 @@
 /**
- * Review comments on a version (design 7, Review screen): kept for good (the database
+ * Review comments on a version (the Review screen): kept for good (the database
  * refuses changing or deleting them), each with its author's printed name at the time.
  */
 import type { Knex } from 'knex';

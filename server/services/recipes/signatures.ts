@@ -1,5 +1,5 @@
 /**
- * Electronic signatures (design 4; 21 CFR 11.50, 11.70, 11.200): the signer types their
+ * Electronic signatures (21 CFR 11.50, 11.70, 11.200): the signer types their
  * password again for each signing; the signature keeps the printed name at that moment,
  * the UTC time, its meaning, a comment and the hash of the content it signs.
  */

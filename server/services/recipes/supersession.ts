@@ -1,5 +1,5 @@
 /**
- * Effective dates and supersession (design 4): an approved version becomes current on its
+ * Effective dates and supersession: an approved version becomes current on its
  * effective day, and every older approved version of the recipe (the one in use, or one
  * approved for a later day that never came) becomes superseded at that moment.
  *

@@ -1,5 +1,5 @@
 /**
- * Review and approval (design 4): submit, return, approve with a signature, withdraw with a
+ * Review and approval: submit, return, approve with a signature, withdraw with a
  * signature, and a new version from a closed one. Each transition is one transaction that
  * locks the version row, checks its status and the revision the person saw, bumps the
  * revision and writes its trail event (before and after status) — so of two people acting
@@ -42,7 +42,7 @@ import { notifyApproved, notifyReturned, notifyReviewRequested, notifyVersionCur
 import { makeCurrent, recordSuperseded, replacedVersion } from './supersession';
 import { RECIPE_STATUS_PHRASES, type RecipeStatus } from '../../../shared/vocabulary';
 
-/** The review interval when the lab has not set one (design 3: 24 months). */
+/** The review interval when the lab has not set one: two years, a common periodic-review cycle. */
 export const DEFAULT_REVIEW_INTERVAL_MONTHS = 24;
 
 /**

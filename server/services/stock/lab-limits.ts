@@ -1,4 +1,4 @@
-/** The lab settings the computations and checks need (design 3, "lab settings"). */
+/** The lab settings the computations and checks need (feed ceilings per material group). */
 import type { Knex } from 'knex';
 import type { LabLimits } from '../../../shared/stock-types';
 import { MATERIAL_GROUPS, type MaterialGroup } from '../../../shared/vocabulary';

@@ -1,4 +1,4 @@
-/** The lab's wheel-selection table (design 5.8): material group × hardness band → a wheel of its stock. */
+/** The lab's wheel-selection table: material group × hardness band → a wheel of its stock. */
 import type { Knex } from 'knex';
 import type { SelectionRowBody } from '../../../shared/schemas/stock';
 import type { SelectionRow } from '../../../shared/stock-types';

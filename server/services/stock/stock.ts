@@ -1,5 +1,5 @@
 /**
- * Materials, wheels and machines (design 3): list, read, create, update, archive and
+ * Materials, wheels and machines: list, read, create, update, archive and
  * delete. A record any recipe version references is never deleted: DELETE archives it
  * instead and says so. Every change writes its trail event in the same transaction.
  */

@@ -7,6 +7,6 @@ import { idOf, parse } from './parse';
 export const versions: RouteHandler = async (req, res, { db }) => {
   const recipeId = idOf(req.params);
   const { from, to } = parse(compareQuery, req.query);
-  // Units as the person chose to see them (design 5.10): the labels carry the values.
+  // Units as the person chose to see them (metric, or metric + imperial): the labels carry the values.
   res.json(await compare.compareRecipeVersions(db, recipeId, from, to, req.user?.units ?? 'metric', versionScopeOf(req.user?.roles)));
 };

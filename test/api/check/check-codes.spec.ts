@@ -1,5 +1,5 @@
 /**
- * Check codes (design 7 "Check a sheet"; DEVELOPERS.md "Operator routes"): the code given
+ * Check codes (DEVELOPERS.md "Operator routes"): the code given
  * at approval, and GET /api/check/:code for every state a printed sheet can be in.
  */
 import { expect } from 'chai';

@@ -1,5 +1,5 @@
 /**
- * `npm run backup` / `npm run restore` (issue 8, item 6) on the real MariaDB: a backup of
+ * `npm run backup` / `npm run restore` (server/cli/README.md) on the real MariaDB: a backup of
  * the demo lab plus a photo on an approved version, then changes an app and an admin could
  * make (a new recipe, trail events, a deleted cut, a renamed person, signatures emptied
  * behind the triggers' back), then the restore: every table exactly as it was, the chain

@@ -1,5 +1,5 @@
 /**
- * Several app processes on one MariaDB (design 12): two real `server/main.ts` processes
+ * Several app processes on one MariaDB (README.md, "Performance"): two real `server/main.ts` processes
  * behind a round-robin proxy on loopback. Sessions, uploads and the jobs' state live in
  * the database, so a person signed in through one process works through the other, a photo
  * uploaded through one is served by both, and the scheduled jobs and the mail worker —

@@ -1,5 +1,5 @@
 /**
- * Mails about versions in use (design 4, 7, 9): when a version becomes current — approved
+ * Mails about versions in use: when a version becomes current — approved
  * for today or made current by the scheduled job — every active operator of its machine is
  * asked to acknowledge it (a mail nobody can turn off); a flagged cut tells the authors.
  * One mail is followed end to end: sent to a real SMTP catcher, its link acknowledged.

@@ -1,5 +1,5 @@
 /**
- * Review-due reminders (design 3, 7): the daily job mails the authors of each current
+ * Review-due reminders: the daily job mails the authors of each current
  * approved version whose periodic review is due within 30 days or overdue — once per week
  * (Monday, UTC), however often it runs and however many processes run it.
  */

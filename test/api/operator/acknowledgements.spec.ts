@@ -1,5 +1,5 @@
 /**
- * "Read and understood" (design 4): an operator of the version's machine acknowledges an
+ * "Read and understood": an operator of the version's machine acknowledges an
  * approved version (in use or coming) before printing its bench sheet; everyone else
  * prints as before. Acknowledging is idempotent and audited; the list shows who has not
  * yet; Today lists the versions in use an operator still has to acknowledge.

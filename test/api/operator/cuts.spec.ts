@@ -1,5 +1,5 @@
 /**
- * Cut records (design 9): recorded on the current version only, listed, exported as CSV,
+ * Cut records: recorded on the current version only, listed, exported as CSV,
  * traced by specimen id, flagged on the author's Today until an author clears the flag.
  */
 import { expect } from 'chai';

@@ -1,5 +1,5 @@
 /**
- * The large data set (issue 7) at a tiny scale: the counts it promises, a trail chain the
+ * The large data set (test/perf/large-data/README.md) at a tiny scale: the counts it promises, a trail chain the
  * app's own verification accepts, content that parses and hashes as the app's, and people
  * who sign in with the printed password and find the recipes through the library API.
  */

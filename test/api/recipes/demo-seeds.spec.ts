@@ -1,7 +1,7 @@
 /**
  * The demo scenario loaded into the test database exactly as `npm start` loads it: every
  * demo recipe must pass the shared checks without a blocker, and its numbers must sit in
- * the trade's usual windows (trade reference §4, common practice).
+ * the trade's usual windows (common practice).
  */
 import { expect } from 'chai';
 import { peripheralSpeedMs } from '../../../shared/peripheral-speed';

@@ -1,5 +1,5 @@
 /**
- * The bench sheet (design 8; DEVELOPERS.md "Operator routes"): GET
+ * The bench sheet (DEVELOPERS.md "Operator routes"): GET
  * /api/recipes/:id/versions/:n/sheet.pdf read back with pdf-parse — text, page size and
  * the QR code (jsqr) — against the real MariaDB.
  */

@@ -1,5 +1,5 @@
 /**
- * The trail's hash chain (design 4; 21 CFR 11.10(e)): every change appends a row linked to
+ * The trail's hash chain (21 CFR 11.10(e)): every change appends a row linked to
  * the one before, concurrent writers keep the chain whole, the database refuses edits, and
  * an edit made around the database's refusal is found by the route and by the CLI.
  */

@@ -1,5 +1,5 @@
 /**
- * Submitted content is frozen by MariaDB itself (design 4; ISO/IEC 17025 §7.11): direct
+ * Submitted content is frozen by MariaDB itself (ISO/IEC 17025:2017 §7.11): direct
  * SQL, bypassing the API, cannot change or delete a submitted version, a signature, a
  * review comment or the photos of a frozen version — while the workflow's own columns
  * (status, revision, dates) stay writable.

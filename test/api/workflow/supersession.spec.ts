@@ -1,5 +1,5 @@
 /**
- * Effective dates (design 4): a version approved for a later day stays pending, the
+ * Effective dates: a version approved for a later day stays pending, the
  * previous one stays current until that day, and the scheduled job then makes it current
  * and supersedes its predecessors — once, even when several processes run the job at the
  * same moment.

@@ -1,5 +1,5 @@
 /**
- * Review and approval through the API (design 4; DEVELOPERS.md "Review routes"): every
+ * Review and approval through the API (DEVELOPERS.md "Review routes"): every
  * transition with its refusals, against the real MariaDB.
  */
 import { createHash } from 'node:crypto';

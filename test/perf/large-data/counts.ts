@@ -1,4 +1,4 @@
-/** How much the large data set holds at full scale (issue 7), and the same scaled down. */
+/** How much the large data set holds at full scale, and the same scaled down. */
 export interface LargeDataCounts {
   recipes: number;
   users: number;

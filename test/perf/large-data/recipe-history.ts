@@ -1,6 +1,6 @@
 /**
- * Each recipe's life, planned the way the workflow services would have played it (design
- * 4): version 1 created and saved a few times, submitted (sometimes returned, fixed and
+ * Each recipe's life, planned the way the workflow services would have played it:
+ * version 1 created and saved a few times, submitted (sometimes returned, fixed and
  * submitted again), approved with a signature and made current, superseding the version
  * before it; then the next version from it. The newest version of most recipes is approved
  * and current; some are still drafts, in review, returned, or were withdrawn.

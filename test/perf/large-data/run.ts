@@ -1,5 +1,5 @@
 /**
- * `npm run seed:large -- [--scale <fraction>] [--replace]` (issue 7): fills the large data
+ * `npm run seed:large -- [--scale <fraction>] [--replace]`: fills the large data
  * set's own database (largeDatabase: LARGE_DATABASE_URL, or the project's bench MariaDB on
  * 127.0.0.1:33307) — migrated first — with the large data set of seed-large.ts.
  * A database that already holds data is refused unless --replace, which empties it first.

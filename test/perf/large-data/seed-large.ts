@@ -1,5 +1,5 @@
 /**
- * The large data set (issue 7): at scale 1, 10,000 recipes of 3–5 versions, 200 people,
+ * The large data set: at scale 1, 10,000 recipes of 3–5 versions, 200 people,
  * 1,000,000 trail events in one valid chain and 100,000 cut records, over three years of
  * history ending now. `npm run seed:large` and `npm run bench` call `seedLarge`.
  *

@@ -6,7 +6,7 @@
 import type { Knex } from 'knex';
 import type { CapturedQuery } from './extra-routes';
 
-/** The tables that grow with a company's use (issue 7: 10,000 recipes, 1,000,000 events…). */
+/** The tables that grow with a company's use (at full scale 10,000 recipes, 1,000,000 events…). */
 export const LARGE_TABLES = ['recipes', 'recipe_versions', 'trail_events', 'cut_records', 'users', 'sheet_prints', 'signatures'] as const;
 
 /**

@@ -1,5 +1,5 @@
 /**
- * The figures of issue 7, each measured against a baseline of the same run: the load runs
+ * The load figures (README.md in this folder), each measured against a baseline of the same run: the load runs
  * (autocannon against the bench server) and the in-process chain verification.
  */
 import type { Knex } from 'knex';

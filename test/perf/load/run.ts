@@ -1,5 +1,5 @@
 /**
- * `npm run bench` (issue 7): the large data set's MariaDB (largeDatabase: its own on port
+ * `npm run bench` (README.md in this folder): the large data set's MariaDB (largeDatabase: its own on port
  * 33307, or LARGE_DATABASE_URL), migrated and — when it has no people yet — filled with the
  * large data set; the app in a separate process (app-process.ts) driven over loopback
  * by autocannon; every figure with its absolute numbers and its ratio to a baseline measured
