@@ -1,5 +1,5 @@
 import type { Knex } from 'knex';
-import { hashPassword } from '../server/services/passwords';
+import { hashPassword } from '../server/services/auth/passwords';
 import { insertUser } from '../server/data/users';
 import { DEMO_ACCOUNTS } from './data/demo-accounts';
 

@@ -3,9 +3,9 @@ import { machineBody, materialBody, selectionRowBody, wheelBody } from '../share
 import type { WheelRecord } from '../shared/stock-types';
 import { matchesStarterWheel, STARTER_SELECTION } from '../shared/wheel-suggestion';
 import type { Actor } from '../server/services/actor';
-import { createSelectionRow } from '../server/services/selection-rows';
-import { createStock, listStock } from '../server/services/stock';
-import { MACHINES, MATERIALS, WHEELS } from '../server/services/stock-records';
+import { createSelectionRow } from '../server/services/stock/selection-rows';
+import { createStock, listStock } from '../server/services/stock/stock';
+import { MACHINES, MATERIALS, WHEELS } from '../server/services/stock/records';
 import { DEMO_MACHINES, DEMO_MATERIALS, DEMO_WHEELS } from './data/demo-stock';
 import { demoAuthor } from './data/demo-author';
 

@@ -1,6 +1,6 @@
 import type { Knex } from 'knex';
 import { createRecipeBody } from '../shared/schemas/recipe';
-import { createRecipe } from '../server/services/recipes';
+import { createRecipe } from '../server/services/recipes/recipes';
 import { demoAuthor } from './data/demo-author';
 import { DEMO_RECIPES, type DemoRecipe } from './data/demo-recipes';
 

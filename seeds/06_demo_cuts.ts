@@ -1,7 +1,7 @@
 import type { Knex } from 'knex';
 import type { CutRecordBody } from '../shared/schemas/operator';
 import type { Actor } from '../server/services/actor';
-import { recordCut } from '../server/services/cuts';
+import { recordCut } from '../server/services/operator/cuts';
 import { DEMO_ACCOUNTS } from './data/demo-accounts';
 
 const HOUR_MS = 60 * 60 * 1000;

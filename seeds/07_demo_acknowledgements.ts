@@ -1,6 +1,6 @@
 import type { Knex } from 'knex';
 import type { Actor } from '../server/services/actor';
-import { acknowledgeVersion } from '../server/services/acknowledgements';
+import { acknowledgeVersion } from '../server/services/recipes/acknowledgements';
 import { DEMO_ACCOUNTS } from './data/demo-accounts';
 
 /**

@@ -1,6 +1,6 @@
 /**
- * Builds the Express app; only main.ts / serve.ts listen. Tests import createApp and
- * drive it with supertest.
+ * Builds the Express app; only serve.ts listens, and the background jobs start from
+ * jobs.ts. Building it starts nothing: tests import createApp and drive it with supertest.
  */
 import express, { type Express, type Router } from 'express';
 import compression from 'compression';
@@ -18,10 +18,7 @@ import { securityHeaders } from './web/security-headers';
 import { sessionMiddleware } from './web/session-cookie';
 import { SessionStore } from './web/session-store';
 import { spa } from './web/spa';
-import { startSupersessionTimer } from './services/supersession';
-import { startReviewReminderTimer } from './services/review-reminders';
-import { createMailTransport, startMailWorker } from './services/mail-worker';
-import { mailSettingsOf } from './services/mail/mail-settings';
+import { mailSettingsOf } from './services/mail/settings';
 
 export interface AppDeps {
   config: Config;
@@ -32,23 +29,6 @@ export interface AppDeps {
    * app passes nothing.
    */
   extraApiRouter?: Router;
-  /** How often expired sessions are deleted; 0 turns it off. Default one hour. */
-  sessionCleanupIntervalMs?: number;
-  /**
-   * How often approved versions whose effective day has come are made current (and their
-   * predecessors superseded); 0 turns it off. Default one minute. Safe in every process.
-   */
-  supersessionIntervalMs?: number;
-  /**
-   * How often the mail outbox is sent; 0 turns it off. Default 15 seconds. Off anyway
-   * without `config.smtpUrl` (mail then waits in the outbox). Safe in every process.
-   */
-  mailIntervalMs?: number;
-  /**
-   * How often review-due reminders are looked for (each version is mailed at most once a
-   * week, whatever the number of runs or processes); 0 turns it off. Default one hour.
-   */
-  reviewReminderIntervalMs?: number;
   /** Where server faults are logged. Default console.error. */
   log?: (...args: unknown[]) => void;
 }
@@ -57,8 +37,6 @@ export interface KerfbookApp {
   app: Express;
   /** Resolves when the session store has checked its table; listen only after it. */
   ready: Promise<void>;
-  /** Stops the app's background work (session clean-up, supersession, reminders, mail). Does not close the database. */
-  close(): void;
 }
 
 /** Turns the TRUST_PROXY text into Express's `trust proxy` value. */
@@ -75,7 +53,7 @@ export function createApp(deps: AppDeps): KerfbookApp {
   app.disable('x-powered-by');
   app.set('trust proxy', trustProxyValue(config.trustProxy));
 
-  const store = new SessionStore(db, deps.sessionCleanupIntervalMs ?? 60 * 60 * 1000);
+  const store = new SessionStore(db);
   const csrf = createCsrf(config.sessionSecret);
   const auth = createAuthenticator(db);
 
@@ -99,30 +77,5 @@ export function createApp(deps: AppDeps): KerfbookApp {
   app.use(spa(config.distDir));
   app.use(errorHandler(deps.log));
 
-  const supersessionMs = deps.supersessionIntervalMs ?? 60 * 1000;
-  const stopSupersession = supersessionMs > 0 ? startSupersessionTimer(db, supersessionMs, deps.log, mail) : () => undefined;
-
-  const reminderMs = deps.reviewReminderIntervalMs ?? 60 * 60 * 1000;
-  const stopReminders = reminderMs > 0 ? startReviewReminderTimer(db, reminderMs, deps.log, mail) : () => undefined;
-
-  const mailMs = deps.mailIntervalMs ?? 15 * 1000;
-  const stopMail =
-    mailMs > 0 && config.smtpUrl
-      ? startMailWorker(db, createMailTransport(config.smtpUrl, { ignoreTls: !config.production }), mailMs, {
-          ...(config.mailFrom ? { from: config.mailFrom } : {}),
-          ...(deps.log ? { log: deps.log } : {}),
-        })
-      : () => undefined;
-
-  const ready = store.ready.then(() => undefined);
-  return {
-    app,
-    ready,
-    close: () => {
-      store.stopCleanup();
-      stopSupersession();
-      stopReminders();
-      stopMail();
-    },
-  };
+  return { app, ready: store.ready.then(() => undefined) };
 }

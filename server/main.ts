@@ -1,13 +1,24 @@
-/** `npm run serve`: reads the environment, connects to MariaDB and listens. Runs no migrations. */
+/**
+ * `npm run serve`: reads the environment, connects to MariaDB, listens and runs the
+ * background jobs. Runs no migrations.
+ */
 import { readConfig } from './config';
 import { createDb } from './data/db';
+import { startJobs } from './jobs';
 import { serve } from './serve';
 
-const config = readConfig();
+let config: ReturnType<typeof readConfig>;
+try {
+  config = readConfig();
+} catch (err) {
+  console.error(`Kerfbook could not start:\n${err instanceof Error ? err.message : String(err)}`);
+  process.exit(1);
+}
 const db = createDb(config.databaseUrl);
 
 try {
   const server = await serve(config, db);
+  const jobs = startJobs({ db, config });
   console.log(`Kerfbook is listening on ${server.url}`);
   let stopping = false;
   const stop = async (signal: string) => {
@@ -15,6 +26,7 @@ try {
     stopping = true;
     console.log(`${signal}: stopping…`);
     try {
+      jobs.stop();
       await server.close();
       await db.destroy();
       process.exit(0);

@@ -1,4 +1,7 @@
-/** Starts the HTTP server once the session store is ready. Used by main.ts and the bootstrap. */
+/**
+ * Starts the HTTP server once the session store is ready. Used by main.ts and the bootstrap,
+ * which start the background jobs (jobs.ts) beside it.
+ */
 import http from 'node:http';
 import type { AddressInfo } from 'node:net';
 import type { Knex } from 'knex';
@@ -13,13 +16,7 @@ export interface RunningServer {
 }
 
 export async function serve(config: Config, db: Knex): Promise<RunningServer> {
-  const { app, ready, close: closeApp } = createApp({
-    config,
-    db,
-    ...(config.mailIntervalMs ? { mailIntervalMs: config.mailIntervalMs } : {}),
-    ...(config.supersessionIntervalMs ? { supersessionIntervalMs: config.supersessionIntervalMs } : {}),
-    ...(config.reviewReminderIntervalMs ? { reviewReminderIntervalMs: config.reviewReminderIntervalMs } : {}),
-  });
+  const { app, ready } = createApp({ config, db });
   await ready;
   const server = http.createServer(app);
   await new Promise<void>((resolve, reject) => {
@@ -35,7 +32,6 @@ export async function serve(config: Config, db: Knex): Promise<RunningServer> {
     url: `http://${host}:${port}`,
     close: () =>
       new Promise<void>((resolve, reject) => {
-        closeApp();
         server.close((err) => (err ? reject(err) : resolve()));
         // Idle keep-alive connections would hold close() open; requests in flight finish.
         server.closeIdleConnections();

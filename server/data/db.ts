@@ -13,7 +13,7 @@ export function createDb(databaseUrl: string): Knex {
   return knex({
     client: 'mysql2',
     // No `charset` here: it would make new tables utf8mb4_general_ci instead of the
-    // database's collation (toolchain pitfall 5).
+    // database's collation.
     connection: { uri: databaseUrl, timezone: 'Z', dateStrings: false, connectTimeout: 5000 } as Knex.MySql2ConnectionConfig & { uri: string },
     pool: { min: 0, max: 10 },
     acquireConnectionTimeout: 5000,

@@ -27,7 +27,7 @@ const TABLES = [
   'materials',
   'wheels',
   'machines',
-  'audit_events',
+  'trail_events',
   'sign_in_failures',
   'sessions',
   'user_roles',
@@ -46,7 +46,7 @@ export async function emptyTables(db: Knex): Promise<void> {
   await db('recipe_number_counter').update({ last_number: 0 });
   // The trail starts again from nothing: its chain head too, or the first new event would
   // link to a row that no longer exists (and the verification would rightly say so).
-  await db('audit_chain_head').update({ last_event_id: 0, last_hash: '0'.repeat(64) });
+  await db('trail_chain_head').update({ last_event_id: 0, last_hash: '0'.repeat(64) });
 }
 
 /** The settings row as the migrations leave it. */

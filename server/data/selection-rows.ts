@@ -1,4 +1,4 @@
-/** Queries on the lab's wheel-selection table (design 5.8). */
+/** Queries on the lab's wheel-selection table (material group × hardness band → wheel). */
 import type { Knex } from 'knex';
 
 export interface SelectionRowRow {

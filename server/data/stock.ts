@@ -32,7 +32,7 @@ export interface StockListFilter {
 export async function listStockRows<R extends StockRowBase>(db: Knex, table: StockTable, filter: StockListFilter): Promise<{ rows: R[]; total: number }> {
   const base = db(table);
   if (filter.q) {
-    // where(col, 'like', …), not whereLike() (toolchain pitfall 4).
+    // where(col, 'like', …), not whereLike(): that adds COLLATE utf8_bin, which fails on utf8mb4 columns.
     const pattern = containsPattern(filter.q);
     base.where((w) => {
       for (const column of filter.searchColumns) w.orWhere(`${table}.${column}`, 'like', pattern);

@@ -1,4 +1,4 @@
-/** Queries on `user_machines`: which machines a person runs (design 3). */
+/** Queries on `user_machines`: which machines a person runs (for acknowledgements and the finder). */
 import type { Knex } from 'knex';
 
 /** Machine ids per person, ascending; every asked id has an entry (empty when none). One query for all. */

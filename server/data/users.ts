@@ -137,7 +137,7 @@ export async function listUserRows(db: Knex, filter: UserListFilter): Promise<{ 
   const base = db<UserRow>('users');
   if (filter.q) {
     // where(col, 'like', …) and not whereLike(): the latter adds COLLATE utf8_bin, which
-    // fails on utf8mb4 columns (toolchain pitfall 4). Backslash is MariaDB's LIKE escape.
+    // fails on utf8mb4 columns. Backslash is MariaDB's LIKE escape.
     const pattern = containsPattern(filter.q);
     base.where((w) =>
       w.where('users.username', 'like', pattern).orWhere('users.display_name', 'like', pattern).orWhere('users.email', 'like', pattern),

@@ -1,7 +1,8 @@
 /**
  * A MariaDB of the project's own: data folder inside the project, bound to 127.0.0.1,
  * socket in the data folder. Used by `npm start` and `npm test` when no DATABASE_URL is
- * given. Commands follow toolchain.md ("MariaDB on loopback, no systemd").
+ * given. No systemd: mariadbd runs detached as root (it needs --user=root then), with its
+ * data, socket and log in the data folder.
  */
 import { execFileSync, spawn, spawnSync } from 'node:child_process';
 import { randomBytes } from 'node:crypto';
@@ -138,7 +139,7 @@ export function ensureDatabase(db: LocalMariadb, name: string, user = 'kerfbook'
   const passwordFile = path.join(db.dir, `${user}.password`);
   if (!fs.existsSync(passwordFile)) fs.writeFileSync(passwordFile, randomBytes(18).toString('base64url'), { mode: 0o600 });
   const password = fs.readFileSync(passwordFile, 'utf8').trim();
-  // With --skip-name-resolve, TCP logins from 127.0.0.1 only match '…'@'127.0.0.1' (toolchain pitfall 2).
+  // With --skip-name-resolve, TCP logins from 127.0.0.1 only match '…'@'127.0.0.1', not '…'@'localhost'.
   sql(
     db,
     [

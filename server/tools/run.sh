@@ -16,7 +16,20 @@ if [ ! -x node_modules/.bin/tsx ] || [ ! -x node_modules/.bin/ng ] || [ package-
   npm ci --no-audit --no-fund
 fi
 
-mode="${1:?usage: run.sh start|test|seed-large|bench|bench-web}"
+usage="usage: run.sh start|test|seed-large|bench|bench-web|soak|backup|restore"
+mode="${1:?$usage}"
 shift
-# exec so that Ctrl-C and SIGTERM reach the bootstrap itself (toolchain pitfall 12).
-exec node_modules/.bin/tsx "server/tools/${mode}.ts" "$@"
+case "$mode" in
+  start) entry=server/tools/start.ts ;;
+  test) entry=server/tools/test.ts ;;
+  backup) entry=server/cli/backup.ts ;;
+  restore) entry=server/cli/restore.ts ;;
+  seed-large) entry=test/perf/large-data/run.ts ;;
+  bench) entry=test/perf/load/run.ts ;;
+  bench-web) entry=test/perf/web/run.ts ;;
+  soak) entry=test/soak/run.ts ;;
+  *) echo "$usage" >&2; exit 2 ;;
+esac
+# exec so that Ctrl-C and SIGTERM reach the TypeScript process itself: npm and a shell in
+# between would not pass them on, and the databases it started would stay behind.
+exec node_modules/.bin/tsx "$entry" "$@"

@@ -7,6 +7,7 @@ import { spawnSync } from 'node:child_process';
 import path from 'node:path';
 import { readConfig } from '../config';
 import { createDb } from '../data/db';
+import { startJobs } from '../jobs';
 import { serve } from '../serve';
 import { DEMO_ACCOUNTS } from '../../seeds/data/demo-accounts';
 import { migrate } from '../data/migrate';
@@ -62,8 +63,10 @@ async function main(): Promise<void> {
   }
 
   const server = await serve(config, db);
+  const jobs = startJobs({ db, config });
   const shutdown = async (signal: string) => {
     console.log(`\n[stop] ${signal}: stopping the server${catcher ? ', the mail catcher' : ''}${stopDatabase ? ' and MariaDB' : ''}…`);
+    jobs.stop();
     await server.close().catch(() => undefined);
     if (catcher) await catcher.stop().catch(() => undefined);
     await db.destroy().catch(() => undefined);

@@ -73,7 +73,7 @@ async function main(): Promise<number> {
   }
 
   try {
-    const typecheck = await run(path.join(BIN, 'tsc'), ['-p', 'tsconfig.server.json', '--noEmit']);
+    const typecheck = await run(path.join(BIN, 'tsc'), ['-p', 'server/tsconfig.json', '--noEmit']);
     record('typecheck (server, shared, tests)', { passed: typecheck.code === 0 ? 1 : 0, failed: 0, skipped: 0 }, typecheck.code);
 
     const serverEnv: NodeJS.ProcessEnv = { DATABASE_URL: testUrl, NODE_ENV: 'test' };

@@ -8,8 +8,8 @@ import { Strategy as LocalStrategy } from 'passport-local';
 import type { Request, Response } from 'express';
 import type { Knex } from 'knex';
 import { AppError } from '../app-error';
-import { loadSessionUser, type SessionRef, type SessionUser } from '../services/session-user';
-import { signIn } from '../services/sign-in';
+import { loadSessionUser, type SessionRef, type SessionUser } from '../services/auth/session-user';
+import { signIn } from '../services/auth/sign-in';
 
 export type Authenticator = passport.Authenticator;
 

@@ -1,4 +1,4 @@
-import type { SessionUser } from '../services/session-user';
+import type { SessionUser } from '../services/auth/session-user';
 
 declare global {
   namespace Express {

@@ -6,7 +6,7 @@
 import type { RequestHandler } from 'express';
 import multer from 'multer';
 import { AppError } from '../app-error';
-import { MAX_ATTACHMENT_BYTES } from '../services/attachments';
+import { MAX_ATTACHMENT_BYTES } from '../services/recipes/attachments';
 
 const upload = multer({
   storage: multer.memoryStorage(),

@@ -2,7 +2,7 @@ import type { Request, Response } from 'express';
 import type { Knex } from 'knex';
 import type { z } from 'zod';
 import type { Access } from '../../shared/roles';
-import type { MailSettings } from '../services/mail/mail-settings';
+import type { MailSettings } from '../services/mail/settings';
 import type { Authenticator } from './authentication';
 import type { Csrf } from './csrf';
 

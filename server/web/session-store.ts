@@ -17,14 +17,14 @@ function quiet<T>(promise: Promise<T>): Promise<T> {
 }
 
 export class SessionStore extends ConnectSessionKnexStore {
-  constructor(db: Knex, cleanupIntervalMs: number) {
+  constructor(db: Knex) {
     super({
       knex: db,
       tableName: 'sessions',
       // The table comes from a migration (migrations/…_create_sessions.ts).
       createTable: false,
-      cleanupInterval: cleanupIntervalMs,
-      onDbCleanupError: (err) => console.error('[sessions] could not delete expired sessions:', (err as Error).message),
+      // No timer here: expired sessions are deleted by a job of jobs.ts.
+      cleanupInterval: 0,
     });
     quiet(this.ready);
   }
@@ -50,11 +50,5 @@ export class SessionStore extends ConnectSessionKnexStore {
    */
   override touch(sid: string, session: SessionData, callback?: Callback) {
     return super.touch(sid, session, callback).catch(() => callback?.());
-  }
-
-  /** Stops the periodic clean-up so a closed app leaves no timer behind. */
-  stopCleanup(): void {
-    if (this.nextDbCleanup) clearTimeout(this.nextDbCleanup);
-    this.options.cleanupInterval = 0;
   }
 }

@@ -32,7 +32,7 @@ export function spa(distDir: string): Router {
       },
     }),
   );
-  // Express 5 path syntax: '*' is refused (toolchain pitfall 9).
+  // Express 5 path syntax: a bare '*' is refused, a named wildcard is not.
   router.get('/{*splat}', (_req, res) => {
     if (!fs.existsSync(index)) {
       res.status(503).type('text/plain').send(`The web app has not been built yet (no ${index}). Run \`npm run build\`, then reload.\n`);

@@ -52,7 +52,8 @@ describe('authoring in chromium', () => {
     await page.getByLabel('Steps for the operator').fill('1. Mount the rod in wax.');
 
     // 4900 rpm on a 200 mm wheel is 51.3 m/s, above the 50 m/s marked on it
-    // (v = π·D·n / 60 000, trade reference §2); the saw itself allows 5000 rpm.
+    // (v = π·D·n / 60 000; never above the marked speed: OSHA 29 CFR 1910.215(d)(1));
+    // the saw itself allows 5000 rpm.
     await page.getByLabel('Wheel speed').fill('4900');
     const blocker = page.getByRole('button', { name: /Blocker.*above its marked maximum/ });
     await blocker.waitFor();

@@ -1,6 +1,6 @@
 /// <reference lib="dom" />
 /**
- * The review workflow in chromium, as the people of design section 2 do it: the author
+ * The review workflow in chromium, as an author and an approver do it: the author
  * starts version 2 of an approved recipe and submits it, the approver returns it with a
  * comment, the author fixes it and submits again, the approver signs; version 2 becomes
  * current and version 1 is superseded.

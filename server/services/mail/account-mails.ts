@@ -1,7 +1,7 @@
 /** The two account mails: an invitation (72 h link) and a password reset (1 h link). Never optional. */
-import type { OutgoingMail } from '../mail-outbox';
-import { composeMail } from './mail-layout';
-import type { MailSettings } from './mail-settings';
+import type { OutgoingMail } from './outbox';
+import { composeMail } from './layout';
+import type { MailSettings } from './settings';
 
 /** The client page both links open; the token travels in the query. */
 export function setPasswordPath(token: string): string {

@@ -1,13 +1,13 @@
 /**
- * The texts of the notification mails (design 4, 7): one mail per person, plain text and
+ * The texts of the notification mails: one mail per person, plain text and
  * HTML from composeMail, a subject naming the recipe number, version and title, one link
  * into the app, and — for the kinds a person may turn off — how to turn them off.
  */
 import { isOptional, type NotificationKind } from '../../../shared/notification-kinds';
 import { CUT_OUTCOME_LABELS, type CutOutcome } from '../../../shared/vocabulary';
-import type { OutgoingMail } from '../mail-outbox';
-import { absoluteLink, composeMail, type MailLink } from './mail-layout';
-import type { MailSettings } from './mail-settings';
+import type { OutgoingMail } from './outbox';
+import { absoluteLink, composeMail, type MailLink } from './layout';
+import type { MailSettings } from './settings';
 import type { Recipient } from './recipients';
 
 /** The version a mail is about. */

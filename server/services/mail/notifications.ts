@@ -1,11 +1,11 @@
 /**
  * Enqueues the notification mails of one event: finds the recipients and writes one mail
  * each into the outbox, inside the caller's transaction (the mail exists exactly when the
- * event committed). Callers do this before their audit event, whose head lock comes last.
+ * event committed). Callers do this before their trail event, whose head lock comes last.
  */
 import type { Knex } from 'knex';
 import { findMachineName } from '../../data/acknowledgements';
-import { enqueueMail, type OutgoingMail } from '../mail-outbox';
+import { enqueueMail, type OutgoingMail } from './outbox';
 import {
   cutFlaggedMail,
   reviewDueMail,
@@ -16,7 +16,7 @@ import {
   type FlaggedCut,
   type VersionRef,
 } from './notification-mails';
-import type { MailSettings } from './mail-settings';
+import type { MailSettings } from './settings';
 import { authorsOf, operatorsOf, reviewersOf, type Recipient } from './recipients';
 
 async function enqueueAll(trx: Knex.Transaction, recipients: readonly Recipient[], build: (to: Recipient) => OutgoingMail, now: Date): Promise<number> {

@@ -1,5 +1,5 @@
 /**
- * Who gets each notification mail (design 4, 7). Only active people with an e-mail
+ * Who gets each notification mail. Only active people with an e-mail
  * address; for the optional kinds, not those who turned the kind off under My account.
  * Called inside the transaction of the event, so the list matches what committed.
  */

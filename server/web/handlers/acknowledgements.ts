@@ -1,6 +1,6 @@
 import type { versionParams } from '../../../shared/schemas/params';
-import * as acknowledgements from '../../services/acknowledgements';
-import { versionScopeOf } from '../../services/operator-visibility';
+import * as acknowledgements from '../../services/recipes/acknowledgements';
+import { versionScopeOf } from '../../services/operator/visibility';
 import type { RouteHandler } from '../route-definition';
 import { actorOf } from './request-actor';
 

@@ -3,7 +3,7 @@ import type { Response } from 'express';
 import type { attachmentFields } from '../../../shared/schemas/attachment';
 import type { idParams, versionAttachmentParams, versionParams } from '../../../shared/schemas/params';
 import { AppError } from '../../app-error';
-import * as attachments from '../../services/attachments';
+import * as attachments from '../../services/recipes/attachments';
 import type { RouteHandler } from '../route-definition';
 import { actorOf } from './request-actor';
 

@@ -1,8 +1,8 @@
 import type { Request } from 'express';
 import type { versionParams } from '../../../shared/schemas/params';
 import { AppError } from '../../app-error';
-import { printBenchSheet } from '../../services/bench-sheet';
-import { versionScopeOf } from '../../services/operator-visibility';
+import { printBenchSheet } from '../../services/bench-sheet/print';
+import { versionScopeOf } from '../../services/operator/visibility';
 import type { RouteHandler } from '../route-definition';
 import { actorOf } from './request-actor';
 

@@ -1,5 +1,5 @@
 import type { checkCodeParams } from '../../../shared/schemas/params';
-import { checkCode } from '../../services/check-codes';
+import { checkCode } from '../../services/recipes/check-codes';
 import type { RouteHandler } from '../route-definition';
 
 /** GET /api/check/:code — is the printed sheet with this code still the one to use? */

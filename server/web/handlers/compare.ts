@@ -1,7 +1,7 @@
 import type { idParams } from '../../../shared/schemas/params';
 import type { compareQuery } from '../../../shared/schemas/workflow';
-import * as compare from '../../services/compare';
-import { versionScopeOf } from '../../services/operator-visibility';
+import * as compare from '../../services/recipes/compare';
+import { versionScopeOf } from '../../services/operator/visibility';
 import type { RouteHandler } from '../route-definition';
 
 export const versions: RouteHandler<{ params: typeof idParams; query: typeof compareQuery }> = async (req, res, { db }, { params, query: { from, to } }) => {

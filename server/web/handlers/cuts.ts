@@ -1,7 +1,7 @@
 import type { cutRecordBody, cutSearchQuery } from '../../../shared/schemas/operator';
 import type { cutParams, versionParams } from '../../../shared/schemas/params';
-import * as cuts from '../../services/cuts';
-import { versionScopeOf } from '../../services/operator-visibility';
+import * as cuts from '../../services/operator/cuts';
+import { versionScopeOf } from '../../services/operator/visibility';
 import type { RouteHandler } from '../route-definition';
 import { actorOf } from './request-actor';
 

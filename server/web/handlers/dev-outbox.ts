@@ -1,5 +1,5 @@
 import { AppError } from '../../app-error';
-import { listOutbox } from '../../services/mail-outbox';
+import { listOutbox } from '../../services/mail/outbox';
 import type { RouteHandler } from '../route-definition';
 
 /**

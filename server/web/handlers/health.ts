@@ -1,3 +1,4 @@
+import type { ApiErrorBody } from '../../../shared/api-error';
 import type { RouteHandler } from '../route-definition';
 
 /** Up when the database answers; load balancers poll this. */
@@ -5,7 +6,8 @@ export const check: RouteHandler = async (_req, res, { db }) => {
   try {
     await db.raw('select 1');
   } catch {
-    res.status(503).json({ code: 'DATABASE_UNAVAILABLE', errors: [{ path: '', message: 'The database is not reachable.' }] });
+    const body: ApiErrorBody = { code: 'DATABASE_UNAVAILABLE', errors: [{ path: '', message: 'The database is not reachable.' }] };
+    res.status(503).json(body);
     return;
   }
   res.json({ ok: true });

@@ -1,5 +1,5 @@
 import type { notificationPreferencesBody } from '../../../shared/schemas/mail';
-import { getNotificationPreferences, updateNotificationPreferences } from '../../services/notification-preferences';
+import { getNotificationPreferences, updateNotificationPreferences } from '../../services/mail/preferences';
 import type { RouteHandler } from '../route-definition';
 import { actorOf } from './request-actor';
 

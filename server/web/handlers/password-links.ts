@@ -1,6 +1,6 @@
 import { setTimeout as sleep } from 'node:timers/promises';
 import type { forgotPasswordBody, linkTokenBody, setPasswordBody } from '../../../shared/schemas/mail';
-import { FORGOT_FLOOR_MS, inspectLink, requestPasswordReset, setPasswordWithLink } from '../../services/password-links';
+import { FORGOT_FLOOR_MS, inspectLink, requestPasswordReset, setPasswordWithLink } from '../../services/auth/password-links';
 import type { RouteHandler } from '../route-definition';
 import { actorOf } from './request-actor';
 

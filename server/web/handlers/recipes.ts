@@ -1,7 +1,7 @@
 import type { idParams, versionParams } from '../../../shared/schemas/params';
 import type { createRecipeBody, recipeListQuery, saveDraftBody } from '../../../shared/schemas/recipe';
-import { versionScopeOf } from '../../services/operator-visibility';
-import * as recipes from '../../services/recipes';
+import { versionScopeOf } from '../../services/operator/visibility';
+import * as recipes from '../../services/recipes/recipes';
 import type { RouteHandler } from '../route-definition';
 import { actorOf } from './request-actor';
 

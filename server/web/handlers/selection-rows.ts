@@ -1,6 +1,6 @@
 import type { idParams } from '../../../shared/schemas/params';
 import type { selectionRowBody } from '../../../shared/schemas/stock';
-import * as selection from '../../services/selection-rows';
+import * as selection from '../../services/stock/selection-rows';
 import type { RouteHandler } from '../route-definition';
 import { actorOf } from './request-actor';
 

@@ -1,7 +1,7 @@
 import type { CsrfDto, SessionDto, UserDto } from '../../../shared/api-types';
 import type { changePasswordBody, preferencesBody, signInBody } from '../../../shared/schemas/session';
-import { changeOwnPassword, recordSignOut, updatePreferences as saveUnits } from '../../services/account';
-import type { SessionUser } from '../../services/session-user';
+import { changeOwnPassword, recordSignOut, updatePreferences as saveUnits } from '../../services/auth/own-account';
+import type { SessionUser } from '../../services/auth/session-user';
 import { authenticateWithPassword, destroySession, startSession } from '../authentication';
 import { CSRF_COOKIE } from '../csrf';
 import type { RouteHandler } from '../route-definition';

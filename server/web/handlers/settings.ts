@@ -1,4 +1,4 @@
-import { getLabLimits } from '../../services/lab-limits';
+import { getLabLimits } from '../../services/stock/lab-limits';
 import type { RouteHandler } from '../route-definition';
 
 export const limits: RouteHandler = async (_req, res, { db }) => {

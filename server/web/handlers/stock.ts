@@ -2,8 +2,8 @@
 import type { z } from 'zod';
 import type { idParams } from '../../../shared/schemas/params';
 import type { stockListQuery } from '../../../shared/schemas/stock';
-import * as stock from '../../services/stock';
-import { MACHINES, MATERIALS, WHEELS, type StockKind } from '../../services/stock-records';
+import * as stock from '../../services/stock/stock';
+import { MACHINES, MATERIALS, WHEELS, type StockKind } from '../../services/stock/records';
 import type { RouteHandler } from '../route-definition';
 import { actorOf } from './request-actor';
 

@@ -1,4 +1,4 @@
-import { getToday } from '../../services/today';
+import { getToday } from '../../services/operator/today';
 import type { RouteHandler } from '../route-definition';
 
 export const today: RouteHandler = async (req, res, { db }) => {

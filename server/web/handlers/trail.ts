@@ -1,17 +1,19 @@
 import { Readable } from 'node:stream';
 import { pipeline } from 'node:stream/promises';
 import type { auditQuery } from '../../../shared/schemas/workflow';
-import * as trail from '../../services/trail';
+import { csvFileName, openTrailCsv } from '../../services/trail/csv';
+import { listTrail } from '../../services/trail/query';
+import { verifyChain } from '../../services/trail/verify';
 import type { RouteHandler } from '../route-definition';
 
 export const list: RouteHandler<{ query: typeof auditQuery }> = async (_req, res, { db }, { query }) => {
-  res.json(await trail.listTrail(db, query));
+  res.json(await listTrail(db, query));
 };
 
 export const csv: RouteHandler<{ query: typeof auditQuery }> = async (req, res, { db }, { query }) => {
-  const chunks = await trail.openTrailCsv(db, query);
+  const chunks = await openTrailCsv(db, query);
   res.setHeader('Content-Type', 'text/csv; charset=utf-8');
-  res.setHeader('Content-Disposition', `attachment; filename="${trail.csvFileName()}"`);
+  res.setHeader('Content-Disposition', `attachment; filename="${csvFileName()}"`);
   // A trail export is a record of its moment: never serve it from a cache.
   res.setHeader('Cache-Control', 'no-store');
   // pipeline waits for the client to keep up, so a long trail never piles up in memory.
@@ -25,5 +27,5 @@ export const csv: RouteHandler<{ query: typeof auditQuery }> = async (req, res, 
 };
 
 export const verify: RouteHandler = async (_req, res, { db }) => {
-  res.json(await trail.verifyChain(db));
+  res.json(await verifyChain(db));
 };

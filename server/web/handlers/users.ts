@@ -1,6 +1,6 @@
 import type { idParams } from '../../../shared/schemas/params';
 import type { createUserBody, inviteBody, temporaryPasswordBody, updateUserBody, userListQuery } from '../../../shared/schemas/users';
-import * as people from '../../services/users';
+import * as people from '../../services/people/users';
 import type { RouteHandler } from '../route-definition';
 import { actorOf } from './request-actor';
 

@@ -1,9 +1,9 @@
 import type { idParams, versionParams } from '../../../shared/schemas/params';
 import type { approveBody, commentBody, newVersionBody, returnBody, submitBody, withdrawBody } from '../../../shared/schemas/workflow';
-import { versionScopeOf } from '../../services/operator-visibility';
-import * as comments from '../../services/review-comments';
-import { listReviewsDue } from '../../services/today';
-import * as workflow from '../../services/workflow';
+import { versionScopeOf } from '../../services/operator/visibility';
+import * as comments from '../../services/recipes/review-comments';
+import { listReviewsDue } from '../../services/operator/today';
+import * as workflow from '../../services/recipes/workflow';
 import type { RouteHandler } from '../route-definition';
 import { actorOf } from './request-actor';
 

@@ -1,9 +1,9 @@
 /**
- * People outside authoring (design 2): an operator, an auditor and someone not signed in.
+ * People outside authoring: an operator, an auditor and someone not signed in.
  * None of them reaches the people list or changes anything beyond their own session and
  * an operator's own duties (cut records, acknowledgements) on versions they may see; an
  * operator and an anonymous caller do not reach drafts either. An auditor reads every
- * version, drafts included ("read everything", design 2) — asserted here so that a change
+ * version, drafts included (auditors read everything and change nothing) — asserted here so that a change
  * of that rule is a decision, not an accident.
  */
 import { expect } from 'chai';
@@ -90,7 +90,7 @@ describe('Operators, auditors and anonymous callers: no drafts, no people, no wr
       }
     });
 
-    it('an auditor reads the draft (design 2: auditors read everything) but cannot print it', async () => {
+    it('an auditor reads the draft (auditors read everything) but cannot print it', async () => {
       const list = await auditor.agent.get('/api/recipes').query({ status: 'draft' });
       expect(list.body.items.map((r: { id: number }) => r.id)).to.include(draft.recipeId);
       expect((await auditor.agent.get(`/api/recipes/${draft.recipeId}/versions/1`)).status).to.equal(200);
@@ -151,7 +151,7 @@ describe('Operators, auditors and anonymous callers: no drafts, no people, no wr
       const before = await dbFingerprint(ctx.db);
       const res = await author.agent.post(`/api/materials/${targets.material}/archive`).set(CSRF_HEADER, author.csrf);
       expect(res.status).to.equal(200);
-      expect(changedTables(before, await dbFingerprint(ctx.db))).to.include.members(['materials', 'audit_events', 'trail head']);
+      expect(changedTables(before, await dbFingerprint(ctx.db))).to.include.members(['materials', 'trail_events', 'trail head']);
     });
   });
 });

@@ -11,7 +11,7 @@ import request from 'supertest';
 import { CSRF_HEADER } from '../../../shared/api-types';
 import { ROLES } from '../../../shared/roles';
 import { routes } from '../../../server/web/routes';
-import { MAX_FAILURES } from '../../../server/services/sign-in-limiter';
+import { MAX_FAILURES } from '../../../server/services/auth/sign-in-limiter';
 import { SESSION_COOKIE } from '../../../server/web/session-cookie';
 import { apiTestContext } from '../support/hooks';
 import { createPerson, type TestPerson } from '../support/people';

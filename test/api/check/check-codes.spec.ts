@@ -1,11 +1,11 @@
 /**
- * Check codes (design 7 "Check a sheet"; DEVELOPERS.md "Operator routes"): the code given
+ * Check codes (DEVELOPERS.md "Operator routes"): the code given
  * at approval, and GET /api/check/:code for every state a printed sheet can be in.
  */
 import { expect } from 'chai';
 import type { CheckCodeResult, RecipeVersionDto } from '../../../shared/recipe-types';
 import { CHECK_CODE_PATTERN } from '../../../shared/schemas/operator';
-import { assignCheckCode, CHECK_CODE_ALPHABET, newCheckCode } from '../../../server/services/check-codes';
+import { assignCheckCode, CHECK_CODE_ALPHABET, newCheckCode } from '../../../server/services/recipes/check-codes';
 import { up as backfillCheckCodes } from '../../../migrations/20261201234346_backfill_check_codes';
 import { apiTestContext } from '../support/hooks';
 import { createStockSet, type StockSet } from '../support/stock';

@@ -5,8 +5,8 @@
 import { expect } from 'chai';
 import { CSRF_HEADER } from '../../../shared/api-types';
 import type { RecipeComparison, RecipeVersionDto } from '../../../shared/recipe-types';
-import { createStock } from '../../../server/services/stock';
-import { WHEELS } from '../../../server/services/stock-records';
+import { createStock } from '../../../server/services/stock/stock';
+import { WHEELS } from '../../../server/services/stock/records';
 import { apiTestContext } from '../support/hooks';
 import { createPerson, type TestPerson } from '../support/people';
 import { createStockSet, recipeInput, wheelInput, type StockSet } from '../support/stock';

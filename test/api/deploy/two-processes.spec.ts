@@ -1,5 +1,5 @@
 /**
- * Several app processes on one MariaDB (design 12): two real `server/main.ts` processes
+ * Several app processes on one MariaDB (README.md, "Performance"): two real `server/main.ts` processes
  * behind a round-robin proxy on loopback. Sessions, uploads and the jobs' state live in
  * the database, so a person signed in through one process works through the other, a photo
  * uploaded through one is served by both, and the scheduled jobs and the mail worker —
@@ -12,7 +12,7 @@ import request from 'supertest';
 import sharp from 'sharp';
 import { CSRF_HEADER } from '../../../shared/api-types';
 import type { AttachmentDto, RecipeVersionDto } from '../../../shared/recipe-types';
-import { verifyChain } from '../../../server/services/trail';
+import { verifyChain } from '../../../server/services/trail/verify';
 import { SESSION_COOKIE } from '../../../server/web/session-cookie';
 import { startMailCatcher, type MailCatcher } from '../../../server/tools/mail-catcher';
 import { assignMachine } from '../mail/notifications-support';
@@ -73,28 +73,24 @@ describe('Several app processes behind a reverse proxy on one MariaDB', () => {
     // Data made through the app's own routes and services, in this process, before the
     // two processes start (its own jobs are off: buildTestApp sets every interval to 0).
     const prep = await buildTestApp(db);
-    try {
-      const author = await sessionFor(prep.app, db, ['author'], 'Ines Author');
-      const approver = await sessionFor(prep.app, db, ['approver'], 'Tomas Approver');
-      const operator = await createPerson(db, { roles: ['operator'], displayName: 'Otto Operator' });
-      traveller = await createPerson(db, { roles: ['author'], displayName: 'Tara Traveller' });
-      const stock = await createStockSet(db);
-      await assignMachine(db, operator.id, stock.machine.id);
+    const author = await sessionFor(prep.app, db, ['author'], 'Ines Author');
+    const approver = await sessionFor(prep.app, db, ['approver'], 'Tomas Approver');
+    const operator = await createPerson(db, { roles: ['operator'], displayName: 'Otto Operator' });
+    traveller = await createPerson(db, { roles: ['author'], displayName: 'Tara Traveller' });
+    const stock = await createStockSet(db);
+    await assignMachine(db, operator.id, stock.machine.id);
 
-      const v1 = await approved(author, approver, stock, { title: 'Effective day has come' });
-      const v2 = ok(await act.newVersion(author, v1.recipeId, 1, 'Feed lowered.'), 201);
-      const submitted = ok(await act.submit(author, ok(await act.save(author, v2, { cutting: { ...v2.content.cutting, feedMmS: 0.3 } }))));
-      pending = ok(await act.approve(approver, submitted, { effectiveDate: day(10) }));
-      // The day has come: move the effective date back (as the supersession test does).
-      await db('recipe_versions').where({ recipe_id: pending.recipeId, version: 2 }).update({ effective_from: day(0) });
+    const v1 = await approved(author, approver, stock, { title: 'Effective day has come' });
+    const v2 = ok(await act.newVersion(author, v1.recipeId, 1, 'Feed lowered.'), 201);
+    const submitted = ok(await act.submit(author, ok(await act.save(author, v2, { cutting: { ...v2.content.cutting, feedMmS: 0.3 } }))));
+    pending = ok(await act.approve(approver, submitted, { effectiveDate: day(10) }));
+    // The day has come: move the effective date back (as the supersession test does).
+    await db('recipe_versions').where({ recipe_id: pending.recipeId, version: 2 }).update({ effective_from: day(0) });
 
-      dueForReview = await approved(author, approver, stock, { title: 'Review due soon' });
-      await db('recipe_versions').where({ recipe_id: dueForReview.recipeId, version: 1 }).update({ review_due_on: day(10) });
+    dueForReview = await approved(author, approver, stock, { title: 'Review due soon' });
+    await db('recipe_versions').where({ recipe_id: dueForReview.recipeId, version: 1 }).update({ review_due_on: day(10) });
 
-      draft = await createDraft({ person: traveller, ...(await signedInAgent(prep.app, traveller)) }, stock, { title: 'Photo from either process' });
-    } finally {
-      prep.close();
-    }
+    draft = await createDraft({ person: traveller, ...(await signedInAgent(prep.app, traveller)) }, stock, { title: 'Photo from either process' });
     mailsBefore = Object.fromEntries(
       ((await db('mail_outbox').select('kind').count({ n: '*' }).groupBy('kind')) as { kind: string; n: number }[]).map((r) => [r.kind, Number(r.n)]),
     );
@@ -229,8 +225,8 @@ describe('Several app processes behind a reverse proxy on one MariaDB', () => {
       // Supersession: one trail event each, the chain intact.
       expect(await currentVersionOf(pending.recipeId)).to.equal(2);
       expect((await db('recipe_versions').where({ recipe_id: pending.recipeId, version: 1 }).first('status')).status).to.equal('superseded');
-      expect(await countWhere('audit_events', { event_type: 'recipe.version_effective', recipe_id: pending.recipeId })).to.equal(1);
-      expect(await countWhere('audit_events', { event_type: 'recipe.version_superseded', recipe_id: pending.recipeId })).to.equal(1);
+      expect(await countWhere('trail_events', { event_type: 'recipe.version_effective', recipe_id: pending.recipeId })).to.equal(1);
+      expect(await countWhere('trail_events', { event_type: 'recipe.version_superseded', recipe_id: pending.recipeId })).to.equal(1);
       const chain = await verifyChain(db);
       expect(chain.ok, JSON.stringify(chain)).to.equal(true);
 

@@ -32,7 +32,6 @@ describe('Error chain, headers and the web app', () => {
   describe('faults', () => {
     const logged: unknown[][] = [];
     let app: express.Express;
-    let close = () => undefined as void;
 
     before(async () => {
       // Extra routes mounted behind the real middleware, outside the real route table.
@@ -48,9 +47,7 @@ describe('Error chain, headers and the web app', () => {
       });
       const built = await buildTestApp(ctx.db, { extraApiRouter: faults, log: (...args) => logged.push(args) });
       app = built.app;
-      close = built.close;
     });
-    after(() => close());
 
     it('answers a thrown error with 500 INTERNAL, no stack, and logs the real error', async () => {
       const res = await request(app).get('/api/__test/throw');
@@ -124,7 +121,6 @@ describe('Error chain, headers and the web app', () => {
         expect(api.status).to.equal(404);
         expect(api.type).to.equal('application/json');
       } finally {
-        built.close();
         fs.rmSync(dist, { recursive: true, force: true });
       }
     });

@@ -8,8 +8,8 @@ import { expect } from 'chai';
 import type { Knex } from 'knex';
 import type { AddressInfo } from 'node:net';
 import { SMTPServer } from 'smtp-server';
-import { enqueueMail } from '../../../server/services/mail-outbox';
-import { createMailTransport, deliverDueMails } from '../../../server/services/mail-worker';
+import { enqueueMail } from '../../../server/services/mail/outbox';
+import { createMailTransport, deliverDueMails } from '../../../server/services/mail/worker';
 import { localMariadb, start, stop, type LocalMariadb } from '../../../server/tools/local-mariadb';
 import { testDb } from '../support/test-database';
 

@@ -14,7 +14,7 @@ describe('Session touch while the database is gone', () => {
   it('calls back without an error (the old expiry stays)', async () => {
     await testDb(); // migrated: the sessions table exists
     const db = createDb(testDatabaseUrl());
-    const store = new SessionStore(db, 0);
+    const store = new SessionStore(db);
     await store.ready;
     await db.destroy(); // every later query fails, as with MariaDB away
     const session = { cookie: { expires: new Date(Date.now() + 3600_000), originalMaxAge: 3600_000 } } as unknown as SessionData;

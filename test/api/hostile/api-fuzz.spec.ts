@@ -32,7 +32,7 @@ const CALLERS: readonly Caller[] = ['anonymous', ...ROLES];
 
 /**
  * Refusals that are themselves recorded, by design: a wrong password counts towards the
- * sign-in limit and is written to the trail (server/services/sign-in.ts).
+ * sign-in limit and is written to the trail (server/services/auth/sign-in.ts).
  */
 const RECORDED_REFUSALS: Record<string, number[]> = { 'POST /api/session': [401] };
 

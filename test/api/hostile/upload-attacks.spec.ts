@@ -1,7 +1,7 @@
 /**
  * Hostile uploads and downloads (OWASP File Upload Cheat Sheet; OWASP WSTG-ATHZ-01
  * "Testing Directory Traversal File Include"). Photos live in MariaDB (multer keeps the
- * upload in memory; server/services/attachments.ts), and the only folder served from disk
+ * upload in memory; server/services/recipes/attachments.ts), and the only folder served from disk
  * is the built web app (server/web/spa.ts). So: names with paths are cut to a plain name
  * or refused, nothing lands on disk, attachment URLs with traversal answer 400/404, the
  * web app never serves a file outside its folder, oversized bodies are 413 with nothing
@@ -173,7 +173,6 @@ describe('Upload and download attacks', () => {
         // The control: the app's own files are served.
         expect((await request(built.app).get('/main-ABCDEFGH.js')).status).to.equal(200);
       } finally {
-        built.close();
         fs.rmSync(base, { recursive: true, force: true });
       }
     });

@@ -1,8 +1,8 @@
 /** Invitations: account, roles, machines, the 72 h link and its mail in one transaction; resend; the link sets a password once. */
 import { expect } from 'chai';
 import { CSRF_HEADER } from '../../../shared/api-types';
-import { MACHINES } from '../../../server/services/stock-records';
-import { createStock } from '../../../server/services/stock';
+import { MACHINES } from '../../../server/services/stock/records';
+import { createStock } from '../../../server/services/stock/stock';
 import { apiTestContext } from '../support/hooks';
 import { createPerson, type TestPerson } from '../support/people';
 import { machineInput } from '../support/stock';
@@ -52,7 +52,7 @@ describe('Account mails: invitations', () => {
     expect(res.body).to.include({ username: 'olga.operator', active: true, mustChangePassword: false, invitationPending: true });
     expect(res.body.machineIds).to.deep.equal([sawA, sawB].sort((a, b) => a - b));
 
-    const event = await ctx.db('audit_events').where({ event_type: 'user.invited', entity_id: String(res.body.id) }).first();
+    const event = await ctx.db('trail_events').where({ event_type: 'user.invited', entity_id: String(res.body.id) }).first();
     expect(event).to.include({ actor_user_id: admin.id, actor_name: 'Ada Admin' });
     expect(asJson(event.after_json)).to.include({ username: 'olga.operator', email: 'olga@lab.example' });
 
@@ -86,7 +86,7 @@ describe('Account mails: invitations', () => {
     const set = await publicPost('/api/password/set', { token, newPassword: 'olga chose this one' });
     expect(set.status, JSON.stringify(set.body)).to.equal(200);
     expect(set.body.message).to.be.a('string');
-    expect(await ctx.db('audit_events').where({ event_type: 'user.password_set_by_link', entity_id: String(res.body.id) }).first()).to.not.equal(undefined);
+    expect(await ctx.db('trail_events').where({ event_type: 'user.password_set_by_link', entity_id: String(res.body.id) }).first()).to.not.equal(undefined);
 
     const olga = await signedInAgent(ctx.app, { username: 'olga.operator', password: 'olga chose this one' });
     const me = await olga.agent.get('/api/session').expect(200);
@@ -114,7 +114,7 @@ describe('Account mails: invitations', () => {
       publicPost('/api/password/set', { token, newPassword: 'second of the two' }),
     ]);
     expect(answers.map((a) => a.status).sort()).to.deep.equal([200, 410]);
-    expect(await ctx.db('audit_events').where({ event_type: 'user.password_set_by_link', entity_id: String(res.body.id) })).to.have.length(1);
+    expect(await ctx.db('trail_events').where({ event_type: 'user.password_set_by_link', entity_id: String(res.body.id) })).to.have.length(1);
   });
 
   it('refuses an expired link with 410 LINK_EXPIRED and a clear message', async () => {
@@ -144,7 +144,7 @@ describe('Account mails: invitations', () => {
     expect(second).to.not.equal(first);
     expect((await publicPost('/api/password/link', { token: first })).body.code).to.equal('LINK_USED');
     expect((await publicPost('/api/password/link', { token: second })).status).to.equal(200);
-    expect(await ctx.db('audit_events').where({ event_type: 'user.invitation_resent', entity_id: String(res.body.id) })).to.have.length(1);
+    expect(await ctx.db('trail_events').where({ event_type: 'user.invitation_resent', entity_id: String(res.body.id) })).to.have.length(1);
 
     await post(`/api/users/${res.body.id}/deactivate`).expect(200);
     const refused = await post(`/api/users/${res.body.id}/invitation`);
@@ -160,7 +160,7 @@ describe('Account mails: invitations', () => {
       users: await countRows(ctx.db, 'users'),
       tokens: await countRows(ctx.db, 'user_tokens'),
       mails: await countRows(ctx.db, 'mail_outbox'),
-      events: await countRows(ctx.db, 'audit_events'),
+      events: await countRows(ctx.db, 'trail_events'),
       machines: await countRows(ctx.db, 'user_machines'),
     });
     const before = await counts();

@@ -1,7 +1,7 @@
 /** "Forgot password": the same answer and time for any address, a 1 h link for active accounts, a limit per hour; the link ends other sessions. */
 import { expect } from 'chai';
 import { CSRF_HEADER } from '../../../shared/api-types';
-import { FORGOT_FLOOR_MS, FORGOT_MESSAGE } from '../../../server/services/password-links';
+import { FORGOT_FLOOR_MS, FORGOT_MESSAGE } from '../../../server/services/auth/password-links';
 import { apiTestContext } from '../support/hooks';
 import { createPerson, type TestPerson } from '../support/people';
 import { anonymousAgent, signedInAgent } from '../support/test-app';
@@ -44,7 +44,7 @@ describe('Account mails: forgot password', () => {
     expect(info.body).to.include({ purpose: 'password-reset', username: 'pia.author' });
     const minutes = (Date.parse(info.body.expiresAt) - Date.now()) / 60_000;
     expect(minutes).to.be.within(59, 60);
-    expect(await ctx.db('audit_events').where({ event_type: 'user.password_reset_requested', entity_id: String(pia.id) })).to.have.length(1);
+    expect(await ctx.db('trail_events').where({ event_type: 'user.password_reset_requested', entity_id: String(pia.id) })).to.have.length(1);
   });
 
   it('sends nothing to a deactivated account', async () => {
@@ -98,7 +98,7 @@ describe('Account mails: forgot password', () => {
     const anon = await anonymousAgent(ctx.app);
     const old = await anon.agent.post('/api/session').set(CSRF_HEADER, anon.csrf).send({ username: 'ren.resets', password: person.password });
     expect(old.status).to.equal(401);
-    const event = await ctx.db('audit_events').where({ event_type: 'user.password_set_by_link', entity_id: String(person.id) }).first();
+    const event = await ctx.db('trail_events').where({ event_type: 'user.password_set_by_link', entity_id: String(person.id) }).first();
     expect(event).to.include({ actor_user_id: person.id });
     expect(JSON.stringify(event)).not.to.include('a brand new secret');
   });

@@ -39,12 +39,12 @@ describe('Account mails: notification preferences', () => {
     expect(enabled(back.body.items)).to.include({ 'review-due': true, 'cut-flagged': false });
     const read = await agent.get('/api/session/notifications').expect(200);
     expect(enabled(read.body.items)).to.deep.equal(enabled(back.body.items));
-    expect(await ctx.db('audit_events').where({ event_type: 'user.notification_preferences_changed', entity_id: String(personId) })).to.have.length(2);
+    expect(await ctx.db('trail_events').where({ event_type: 'user.notification_preferences_changed', entity_id: String(personId) })).to.have.length(2);
 
     // The same value again changes nothing and records nothing.
-    const events = await countRows(ctx.db, 'audit_events');
+    const events = await countRows(ctx.db, 'trail_events');
     await patch({ 'cut-flagged': false }).expect(200);
-    expect(await countRows(ctx.db, 'audit_events')).to.equal(events);
+    expect(await countRows(ctx.db, 'trail_events')).to.equal(events);
   });
 
   it('refuses to turn off the acknowledgement request with a clear message, changing nothing', async () => {

@@ -6,11 +6,11 @@
 import { expect } from 'chai';
 import { NOTIFICATION_KINDS } from '../../../shared/notification-kinds';
 import type { MailRow } from '../../../server/data/mail-outbox';
-import { createMailTransport, deliverDueMails } from '../../../server/services/mail-worker';
-import { inspectLink, requestPasswordReset } from '../../../server/services/password-links';
-import { sendReviewReminders } from '../../../server/services/review-reminders';
-import { getToday } from '../../../server/services/today';
-import { inviteUser } from '../../../server/services/users';
+import { createMailTransport, deliverDueMails } from '../../../server/services/mail/worker';
+import { inspectLink, requestPasswordReset } from '../../../server/services/auth/password-links';
+import { sendReviewReminders } from '../../../server/services/mail/review-reminders';
+import { getToday } from '../../../server/services/operator/today';
+import { inviteUser } from '../../../server/services/people/users';
 import { seedDemoIfEmpty } from '../../../server/tools/db-setup';
 import { startMailCatcher } from '../../../server/tools/mail-catcher';
 import { DEMO_ACCOUNTS } from '../../../seeds/data/demo-accounts';
@@ -45,7 +45,7 @@ describe('Demo seeds: machines, acknowledgements and the mail they caused', () =
   it('leaves only the newest version on his saws to acknowledge, on his Today', async () => {
     const today = await getToday(ctx.db, { id: operatorId, roles: operator.roles });
     expect(today.toAcknowledge.map((r) => r.title)).to.deep.equal(['42CrMo4 quenched and tempered bar, large diameters']);
-    const events = await ctx.db('audit_events').where({ event_type: 'recipe.version_acknowledged', actor_user_id: operatorId }).count({ n: '*' }).first();
+    const events = await ctx.db('trail_events').where({ event_type: 'recipe.version_acknowledged', actor_user_id: operatorId }).count({ n: '*' }).first();
     expect(Number(events!.n)).to.be.at.least(4);
   });
 

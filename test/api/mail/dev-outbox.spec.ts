@@ -1,6 +1,6 @@
 /** GET /api/dev/outbox: the outbox as an admin sees it in development, newest first. */
 import { expect } from 'chai';
-import { enqueueMail } from '../../../server/services/mail-outbox';
+import { enqueueMail } from '../../../server/services/mail/outbox';
 import { apiTestContext } from '../support/hooks';
 import { createPerson } from '../support/people';
 import { signedInAgent } from '../support/test-app';

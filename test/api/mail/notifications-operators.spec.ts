@@ -1,5 +1,5 @@
 /**
- * Mails about versions in use (design 4, 7, 9): when a version becomes current — approved
+ * Mails about versions in use: when a version becomes current — approved
  * for today or made current by the scheduled job — every active operator of its machine is
  * asked to acknowledge it (a mail nobody can turn off); a flagged cut tells the authors.
  * One mail is followed end to end: sent to a real SMTP catcher, its link acknowledged.
@@ -7,8 +7,8 @@
 import { expect } from 'chai';
 import type { Transporter } from 'nodemailer';
 import type { RecipeVersionDto } from '../../../shared/recipe-types';
-import { applyDueSupersessions } from '../../../server/services/supersession';
-import { createMailTransport, deliverDueMails } from '../../../server/services/mail-worker';
+import { applyDueSupersessions } from '../../../server/services/recipes/supersession';
+import { createMailTransport, deliverDueMails } from '../../../server/services/mail/worker';
 import { startMailCatcher, type MailCatcher } from '../../../server/tools/mail-catcher';
 import { apiTestContext } from '../support/hooks';
 import { createPerson } from '../support/people';

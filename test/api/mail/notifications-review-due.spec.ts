@@ -1,12 +1,12 @@
 /**
- * Review-due reminders (design 3, 7): the daily job mails the authors of each current
+ * Review-due reminders: the daily job mails the authors of each current
  * approved version whose periodic review is due within 30 days or overdue — once per week
  * (Monday, UTC), however often it runs and however many processes run it.
  */
 import { expect } from 'chai';
 import type { RecipeVersionDto } from '../../../shared/recipe-types';
 import { addDays } from '../../../shared/calendar-dates';
-import { reminderPeriodStart, sendReviewReminders } from '../../../server/services/review-reminders';
+import { reminderPeriodStart, sendReviewReminders } from '../../../server/services/mail/review-reminders';
 import { apiTestContext } from '../support/hooks';
 import { createPerson } from '../support/people';
 import { createStockSet, type StockSet } from '../support/stock';

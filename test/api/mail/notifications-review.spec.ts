@@ -1,5 +1,5 @@
 /**
- * Review mails (design 4, 7): a submitted version tells the approvers who could approve it;
+ * Review mails: a submitted version tells the approvers who could approve it;
  * a return or an approval tells the version's authors. Mails go only to active people with
  * an e-mail who did not turn the kind off, and a refused transition enqueues nothing.
  */

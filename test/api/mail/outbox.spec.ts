@@ -7,12 +7,12 @@ import { expect } from 'chai';
 import type { Knex } from 'knex';
 import type { Transporter } from 'nodemailer';
 import type { MailRow } from '../../../server/data/mail-outbox';
-import { enqueueMail } from '../../../server/services/mail-outbox';
-import { CLAIM_MS, createMailTransport, deliverDueMails, retryDelayMs } from '../../../server/services/mail-worker';
+import { enqueueMail } from '../../../server/services/mail/outbox';
+import { CLAIM_MS, createMailTransport, deliverDueMails, retryDelayMs } from '../../../server/services/mail/worker';
 import { startMailCatcher, type MailCatcher } from '../../../server/tools/mail-catcher';
-import { createApp } from '../../../server/app';
+import { startJobs } from '../../../server/jobs';
 import { testConfig } from '../support/test-app';
-import { countRows, testDb } from '../support/test-database';
+import { countRows, resetTables, testDb } from '../support/test-database';
 
 const T0 = new Date('2027-03-01T08:00:00.000Z');
 const at = (ms: number) => new Date(T0.getTime() + ms);
@@ -51,6 +51,8 @@ describe('Mail outbox', () => {
   before(async function () {
     this.timeout(60000);
     db = await testDb();
+    // Empty tables: startJobs runs every job once, and other files' recipes must not give it work.
+    await resetTables(db);
   });
 
   beforeEach(async () => {
@@ -191,29 +193,24 @@ describe('Mail outbox', () => {
     expect(catcher.messages()).to.have.length(2);
   });
 
-  it('runs on a timer started by the app when SMTP_URL is set, and stops when the app closes', async function () {
+  it('runs on a timer started by startJobs when SMTP_URL is set, and stops when the jobs stop', async function () {
     this.timeout(20000);
     catcher = await startMailCatcher(0, { dir: null });
     const id = await db.transaction((trx) => enqueueMail(trx, { to: 'timer@lab.example', subject: 'From the timer', text: 'Sent by the worker.', kind: 'test.notice' }));
-    const built = createApp({
-      config: testConfig({ smtpUrl: `smtp://127.0.0.1:${catcher.port}`, mailFrom: 'Kerfbook Timer <timer-sender@lab.example>' }),
+    const jobs = startJobs({
       db,
-      sessionCleanupIntervalMs: 0,
-      supersessionIntervalMs: 0,
-      reviewReminderIntervalMs: 0,
-      mailIntervalMs: 50,
+      config: testConfig({ smtpUrl: `smtp://127.0.0.1:${catcher.port}`, mailFrom: 'Kerfbook Timer <timer-sender@lab.example>', mailIntervalMs: 50 }),
     });
     try {
-      await built.ready;
       const deadline = Date.now() + 10000;
       while (catcher.messages().length === 0 && Date.now() < deadline) await new Promise((r) => setTimeout(r, 50));
     } finally {
-      built.close();
+      jobs.stop();
     }
     expect(catcher.messages().map((m) => [m.to, m.from, m.subject])).to.deep.equal([[['timer@lab.example'], 'timer-sender@lab.example', 'From the timer']]);
     expect((await row(id)).sent_at).to.be.instanceOf(Date);
 
-    // Closed: a mail enqueued now stays in the outbox.
+    // Stopped: a mail enqueued now stays in the outbox.
     const later = await enqueue(2);
     await new Promise((r) => setTimeout(r, 300));
     expect((await row(later)).sent_at).to.equal(null);
@@ -222,12 +219,11 @@ describe('Mail outbox', () => {
 
   it('leaves mail in the outbox when no SMTP_URL is set', async () => {
     const id = await enqueue(1);
-    const built = createApp({ config: testConfig(), db, sessionCleanupIntervalMs: 0, supersessionIntervalMs: 0, reviewReminderIntervalMs: 0, mailIntervalMs: 50 });
+    const jobs = startJobs({ db, config: testConfig({ mailIntervalMs: 50 }) });
     try {
-      await built.ready;
       await new Promise((r) => setTimeout(r, 300));
     } finally {
-      built.close();
+      jobs.stop();
     }
     expect((await row(id)).sent_at).to.equal(null);
     expect((await row(id)).attempts).to.equal(0);

@@ -1,5 +1,5 @@
 /**
- * "Read and understood" (design 4): an operator of the version's machine acknowledges an
+ * "Read and understood": an operator of the version's machine acknowledges an
  * approved version (in use or coming) before printing its bench sheet; everyone else
  * prints as before. Acknowledging is idempotent and audited; the list shows who has not
  * yet; Today lists the versions in use an operator still has to acknowledge.
@@ -32,7 +32,7 @@ describe('Acknowledgements', () => {
   const acknowledge = (who: Session, v: Pick<RecipeVersionDto, 'recipeId' | 'version'>) => post(who, `${path(v)}/acknowledge`);
   const mine = async (who: Session, v: RecipeVersionDto) => ((await who.agent.get(path(v)).expect(200)).body as RecipeVersionDto).myAcknowledgement;
   const today = async (who: Session) => (await who.agent.get('/api/today').expect(200)).body as TodayDto;
-  const written = async () => ({ acks: await countRows(ctx.db, 'acknowledgements'), audit: await countRows(ctx.db, 'audit_events') });
+  const written = async () => ({ acks: await countRows(ctx.db, 'acknowledgements'), trail: await countRows(ctx.db, 'trail_events') });
   const assign = (userId: number, machineId: number) => ctx.db('user_machines').insert({ user_id: userId, machine_id: machineId, assigned_at: new Date() });
 
   before(async () => {
@@ -98,11 +98,11 @@ describe('Acknowledgements', () => {
     expect(res.status, JSON.stringify(res.body)).to.equal(200);
     expect(res.body.required).to.equal(false);
     expect(Date.parse(res.body.acknowledgedAt)).to.be.within(t0 - 1000, Date.now() + 1000);
-    expect(await written()).to.deep.equal({ acks: before.acks + 1, audit: before.audit + 1 });
+    expect(await written()).to.deep.equal({ acks: before.acks + 1, trail: before.trail + 1 });
 
     const row = await ctx.db('acknowledgements').where({ user_id: operator.person.id }).first();
     expect(row).to.include({ user_name: 'Kofi Operator' });
-    const event = await ctx.db('audit_events').orderBy('id', 'desc').first();
+    const event = await ctx.db('trail_events').orderBy('id', 'desc').first();
     expect(event).to.include({ event_type: 'recipe.version_acknowledged', actor_user_id: operator.person.id, recipe_id: current.recipeId, entity_type: 'recipe_version' });
     expect(asJson(event.after_json)).to.include({ version: 1, number: current.number, machineId: stock.machine.id });
 
@@ -123,7 +123,7 @@ describe('Acknowledgements', () => {
     const [a, b] = await Promise.all([acknowledge(colleague, current), acknowledge(colleague, current)]);
     expect([a.status, b.status]).to.deep.equal([200, 200]);
     expect(a.body).to.deep.equal(b.body);
-    expect(await written()).to.deep.equal({ acks: before.acks + 1, audit: before.audit + 1 });
+    expect(await written()).to.deep.equal({ acks: before.acks + 1, trail: before.trail + 1 });
   });
 
   it('lists who acknowledged and which active operators of the machine have not yet', async () => {

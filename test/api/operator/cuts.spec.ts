@@ -1,5 +1,5 @@
 /**
- * Cut records (design 9): recorded on the current version only, listed, exported as CSV,
+ * Cut records: recorded on the current version only, listed, exported as CSV,
  * traced by specimen id, flagged on the author's Today until an author clears the flag.
  */
 import { expect } from 'chai';
@@ -23,7 +23,7 @@ describe('Cut records', () => {
   const cutsPath = (v: Pick<RecipeVersionDto, 'recipeId' | 'version'>) => `/api/recipes/${v.recipeId}/versions/${v.version}/cuts`;
   const cut = (v: Pick<RecipeVersionDto, 'recipeId' | 'version'>, body: object, who = operator) => post(who, cutsPath(v), body);
   const today = async (who: Session) => (await who.agent.get('/api/today').expect(200)).body;
-  const written = async () => ({ cuts: await countRows(ctx.db, 'cut_records'), audit: await countRows(ctx.db, 'audit_events') });
+  const written = async () => ({ cuts: await countRows(ctx.db, 'cut_records'), trail: await countRows(ctx.db, 'trail_events') });
 
   before(async () => {
     author = await sessionFor(ctx.app, ctx.db, ['author'], 'Ines Author');
@@ -45,8 +45,8 @@ describe('Cut records', () => {
       expect(dto).to.include({ recipeId: current.recipeId, number: current.number, version: 1, specimenId: 'S-1001', partRef: 'Heat 7731', quantity: 2, outcome: 'good', operatorId: operator.person.id, operatorName: 'Kofi Operator', flagClearedAt: null });
       expect(dto.cutAt).to.match(/Z$/);
       expect(Date.parse(dto.cutAt)).to.be.within(t0 - 1000, Date.now() + 1000);
-      expect(await written()).to.deep.equal({ cuts: before.cuts + 1, audit: before.audit + 1 });
-      const event = await ctx.db('audit_events').orderBy('id', 'desc').first();
+      expect(await written()).to.deep.equal({ cuts: before.cuts + 1, trail: before.trail + 1 });
+      const event = await ctx.db('trail_events').orderBy('id', 'desc').first();
       expect(event).to.include({ event_type: 'cut.recorded', actor_user_id: operator.person.id, recipe_id: current.recipeId });
       expect(asJson(event.after_json)).to.include({ cutId: dto.id, specimenId: 'S-1001', outcome: 'good' });
     });
@@ -89,7 +89,7 @@ describe('Cut records', () => {
       // Someone who is also an author sees the draft, and is told why it cannot take cuts.
       const res = await cut(draft, { specimenId: 'S-1', outcome: 'good' }, both);
       expect(res.status).to.equal(409);
-      expect(res.body.errors[0].message).to.match(/is draft: cuts are recorded only on the current version/);
+      expect(res.body.errors[0].message).to.match(/is a draft: cuts are recorded only on the current version/);
       expect(await written()).to.deep.equal(before);
     });
 
@@ -180,8 +180,8 @@ describe('Cut records', () => {
       expect(res.body.flagClearedAt).to.be.a('string');
       const row = await ctx.db('cut_records').where({ id: burnt.id }).first();
       expect(row.flag_cleared_by).to.equal(author.person.id);
-      expect(await written()).to.deep.equal({ cuts: before.cuts, audit: before.audit + 1 });
-      const event = await ctx.db('audit_events').orderBy('id', 'desc').first();
+      expect(await written()).to.deep.equal({ cuts: before.cuts, trail: before.trail + 1 });
+      const event = await ctx.db('trail_events').orderBy('id', 'desc').first();
       expect(event).to.include({ event_type: 'cut.flag_cleared', actor_user_id: author.person.id, recipe_id: current.recipeId });
       // Two flagged cuts remain (deformed, other).
       expect((await today(author)).flaggedCuts[0].count).to.equal(2);
@@ -192,7 +192,7 @@ describe('Cut records', () => {
       expect((await post(author, `/api/cuts/${good.id}/clear-flag`)).status).to.equal(409);
       expect((await post(author, '/api/cuts/999999/clear-flag')).status).to.equal(404);
       expect((await post(author, '/api/cuts/abc/clear-flag')).status).to.equal(400);
-      expect(await written()).to.deep.equal({ cuts: before.cuts, audit: before.audit + 1 });
+      expect(await written()).to.deep.equal({ cuts: before.cuts, trail: before.trail + 1 });
     });
   });
 

@@ -28,7 +28,7 @@ describe('Demo cut records', () => {
     const burnt = rows.filter((r) => r.outcome === 'burnt');
     expect(burnt).to.have.length(1);
     expect(burnt[0].notes).to.match(/temper colours/i);
-    expect(await ctx.db('audit_events').where({ event_type: 'cut.recorded' }).count({ n: '*' }).first()).to.deep.equal({ n: rows.length });
+    expect(await ctx.db('trail_events').where({ event_type: 'cut.recorded' }).count({ n: '*' }).first()).to.deep.equal({ n: rows.length });
   });
 
   it('shows the flag on the demo author’s Today', async () => {

@@ -5,8 +5,8 @@
 import { expect } from 'chai';
 import type { FinderHit, RecipeVersionDto } from '../../../shared/recipe-types';
 import type { MachineRecord, MaterialRecord } from '../../../shared/stock-types';
-import { createStock } from '../../../server/services/stock';
-import { MACHINES, MATERIALS } from '../../../server/services/stock-records';
+import { createStock } from '../../../server/services/stock/stock';
+import { MACHINES, MATERIALS } from '../../../server/services/stock/records';
 import { apiTestContext } from '../support/hooks';
 import { createStockSet, machineInput, materialInput, recipeInput, type StockSet } from '../support/stock';
 import { act, approved, createDraft, ok, sessionFor, type Session } from '../workflow/workflow-support';

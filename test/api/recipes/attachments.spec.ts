@@ -56,14 +56,14 @@ describe('Attachments (photos of a version)', () => {
 
   async function expectNothingStored(before: { attachments: number; events: number }) {
     expect(await countRows(ctx.db, 'attachments')).to.equal(before.attachments);
-    expect(await countRows(ctx.db, 'audit_events')).to.equal(before.events);
+    expect(await countRows(ctx.db, 'trail_events')).to.equal(before.events);
   }
-  const counts = async () => ({ attachments: await countRows(ctx.db, 'attachments'), events: await countRows(ctx.db, 'audit_events') });
+  const counts = async () => ({ attachments: await countRows(ctx.db, 'attachments'), events: await countRows(ctx.db, 'trail_events') });
 
   describe('accepted', () => {
     let stored: AttachmentDto;
 
-    it('stores a real PNG with its sniffed type, size, SHA-256, dimensions and an audit row', async () => {
+    it('stores a real PNG with its sniffed type, size, SHA-256, dimensions and a trail row', async () => {
       const before = await counts();
       const res = await upload(png, 'setup.png', 'image/png');
       expect(res.status, JSON.stringify(res.body)).to.equal(201);
@@ -72,7 +72,7 @@ describe('Attachments (photos of a version)', () => {
       expect(stored.url).to.equal(`/api/attachments/${stored.id}`);
       expect(stored.thumbnailUrl).to.equal(`/api/attachments/${stored.id}/thumbnail`);
       expect(await countRows(ctx.db, 'attachments')).to.equal(before.attachments + 1);
-      const event = await ctx.db('audit_events').where({ event_type: 'attachment.added' }).orderBy('id', 'desc').first();
+      const event = await ctx.db('trail_events').where({ event_type: 'attachment.added' }).orderBy('id', 'desc').first();
       expect(asJson(event.after_json)).to.include({ fileName: 'setup.png', sha256: sha256(png), mimeType: 'image/png' });
     });
 
@@ -234,11 +234,11 @@ describe('Attachments (photos of a version)', () => {
   });
 
   describe('delete, and only on drafts', () => {
-    it('deletes an attachment of a draft with an audit row; 404 afterwards', async () => {
+    it('deletes an attachment of a draft with a trail row; 404 afterwards', async () => {
       const added = (await upload(png, 'gone.png', 'image/png').expect(201)).body as AttachmentDto;
       await author.agent.delete(`${uploadUrl()}/${added.id}`).set(CSRF_HEADER, author.csrf).expect(204);
       expect((await operator.agent.get(added.url)).status).to.equal(404);
-      const event = await ctx.db('audit_events').where({ event_type: 'attachment.deleted', entity_id: String(added.id) }).first();
+      const event = await ctx.db('trail_events').where({ event_type: 'attachment.deleted', entity_id: String(added.id) }).first();
       expect(asJson(event.before_json)).to.include({ fileName: 'gone.png', sha256: sha256(png) });
       expect((await author.agent.delete(`${uploadUrl()}/${added.id}`).set(CSRF_HEADER, author.csrf)).status).to.equal(404);
     });

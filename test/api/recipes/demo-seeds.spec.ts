@@ -1,14 +1,14 @@
 /**
  * The demo scenario loaded into the test database exactly as `npm start` loads it: every
  * demo recipe must pass the shared checks without a blocker, and its numbers must sit in
- * the trade's usual windows (trade reference §4, common practice).
+ * the trade's usual windows (common practice).
  */
 import { expect } from 'chai';
 import { peripheralSpeedMs } from '../../../shared/peripheral-speed';
 import { runChecks } from '../../../shared/recipe-checks';
 import type { RecipeContent } from '../../../shared/schemas/recipe';
 import { seedDemoIfEmpty } from '../../../server/tools/db-setup';
-import { loadRecipeContext } from '../../../server/services/recipe-context-loader';
+import { loadRecipeContext } from '../../../server/services/recipes/context-loader';
 import { DEMO_RECIPES } from '../../../seeds/data/demo-recipes';
 import { DEMO_EXTRA_VERSIONS } from '../../../seeds/data/demo-workflow';
 import { DEMO_WHEELS } from '../../../seeds/data/demo-stock';

@@ -26,8 +26,8 @@ describe('Recipes and drafts', () => {
   const draftOf = (v: RecipeVersionDto, change: Partial<RecipeVersionDto['content']> = {}, title = v.title) => ({ revision: v.revision, title, content: { ...v.content, ...change } });
 
   describe('create', () => {
-    it('hands out the number, makes version 1 a draft, runs the checks and writes one audit row', async () => {
-      const events = await countRows(ctx.db, 'audit_events');
+    it('hands out the number, makes version 1 a draft, runs the checks and writes one trail row', async () => {
+      const events = await countRows(ctx.db, 'trail_events');
       const res = await create(recipeInput(stock));
       expect(res.status, JSON.stringify(res.body)).to.equal(201);
       const dto = res.body as RecipeVersionDto;
@@ -38,8 +38,8 @@ describe('Recipes and drafts', () => {
       expect(dto.createdBy.name).to.equal('Ines Author');
       expect(dto.attachments).to.deep.equal([]);
       expect(dto.content).to.deep.equal(recipeInput(stock).content);
-      expect(await countRows(ctx.db, 'audit_events')).to.equal(events + 1);
-      const event = await ctx.db('audit_events').orderBy('id', 'desc').first();
+      expect(await countRows(ctx.db, 'trail_events')).to.equal(events + 1);
+      const event = await ctx.db('trail_events').orderBy('id', 'desc').first();
       expect(event).to.include({ event_type: 'recipe.created', entity_type: 'recipe', entity_id: String(dto.recipeId) });
       expect(asJson(event.after_json)).to.include({ number: dto.number, version: 1 });
     });
@@ -82,14 +82,14 @@ describe('Recipes and drafts', () => {
     });
 
     it('refuses unknown material, machine and wheel ids with 400 naming each field, writing nothing', async () => {
-      const before = { recipes: await countRows(ctx.db, 'recipes'), versions: await countRows(ctx.db, 'recipe_versions'), events: await countRows(ctx.db, 'audit_events') };
+      const before = { recipes: await countRows(ctx.db, 'recipes'), versions: await countRows(ctx.db, 'recipe_versions'), events: await countRows(ctx.db, 'trail_events') };
       const res = await create(recipeInput(stock, { scope: { materialId: 999991 }, cutting: { machineId: 999992, wheelId: 999993 } }));
       expect(res.status).to.equal(400);
       expect(res.body.code).to.equal('VALIDATION_FAILED');
       expect(res.body.errors.map((e: { path: string }) => e.path).sort()).to.deep.equal(['content.cutting.machineId', 'content.cutting.wheelId', 'content.scope.materialId']);
       expect(await countRows(ctx.db, 'recipes')).to.equal(before.recipes);
       expect(await countRows(ctx.db, 'recipe_versions')).to.equal(before.versions);
-      expect(await countRows(ctx.db, 'audit_events')).to.equal(before.events);
+      expect(await countRows(ctx.db, 'trail_events')).to.equal(before.events);
       const counter = await ctx.db('recipe_number_counter').first();
       const last = await ctx.db('recipes').max({ n: 'number' }).first();
       expect(`KB-${String(counter.last_number).padStart(4, '0')}`).to.equal(last!.n);
@@ -142,14 +142,14 @@ describe('Recipes and drafts', () => {
       base = (await create(recipeInput(stock, { title: 'Draft to save' })).expect(201)).body;
     });
 
-    it('saves, bumps the revision, re-runs the checks and writes a compact audit row', async () => {
+    it('saves, bumps the revision, re-runs the checks and writes a compact trail row', async () => {
       const res = await save(base.recipeId, 1, draftOf(base, { cutting: { ...base.content.cutting, feedMmS: 0.9 } }, 'Draft, faster feed'));
       expect(res.status, JSON.stringify(res.body)).to.equal(200);
       expect(res.body).to.include({ revision: 1, title: 'Draft, faster feed', status: 'draft' });
       expect(res.body.content.cutting.feedMmS).to.equal(0.9);
       // 0.9 mm/s is above the 0.6 mm/s ceiling for plain steels.
       expect(res.body.checks.map((c: { id: string }) => c.id)).to.include('feed-above-ceiling');
-      const event = await ctx.db('audit_events').where({ event_type: 'recipe.draft_saved' }).orderBy('id', 'desc').first();
+      const event = await ctx.db('trail_events').where({ event_type: 'recipe.draft_saved' }).orderBy('id', 'desc').first();
       expect(asJson(event.before_json)).to.deep.equal({ revision: 0, title: 'Draft to save', worstCheck: null });
       expect(asJson(event.after_json)).to.deep.equal({ revision: 1, changed: ['cutting'], title: 'Draft, faster feed', worstCheck: 'warning' });
       const list = await reader.agent.get('/api/recipes').query({ q: 'faster feed' }).expect(200);
@@ -171,7 +171,7 @@ describe('Recipes and drafts', () => {
       const stored = await reader.agent.get(`/api/recipes/${base.recipeId}/versions/1`).expect(200);
       expect(stored.body.content.instructionsMd).to.equal(won.body.content.instructionsMd);
       expect(stored.body.content).to.deep.equal(won.body.content);
-      expect(await ctx.db('audit_events').where({ event_type: 'recipe.draft_saved', entity_id: String(await versionId(base.recipeId)) }).count({ n: '*' }).first()).to.deep.equal({ n: 1 });
+      expect(await ctx.db('trail_events').where({ event_type: 'recipe.draft_saved', entity_id: String(await versionId(base.recipeId)) }).count({ n: '*' }).first()).to.deep.equal({ n: 1 });
     });
 
     async function versionId(recipeId: number): Promise<number> {
@@ -180,12 +180,12 @@ describe('Recipes and drafts', () => {
 
     it('answers a stale revision with 409 and the current content, writing nothing', async () => {
       await save(base.recipeId, 1, draftOf(base, { cautionsMd: 'first' })).expect(200);
-      const events = await countRows(ctx.db, 'audit_events');
+      const events = await countRows(ctx.db, 'trail_events');
       const res = await save(base.recipeId, 1, draftOf(base, { cautionsMd: 'stale' }));
       expect(res.status).to.equal(409);
       expect(res.body.current.content.cautionsMd).to.equal('first');
       expect(res.body.current.revision).to.equal(1);
-      expect(await countRows(ctx.db, 'audit_events')).to.equal(events);
+      expect(await countRows(ctx.db, 'trail_events')).to.equal(events);
     });
 
     it('refuses to save a version that is not a draft with 409 and a clear message', async () => {
@@ -203,7 +203,7 @@ describe('Recipes and drafts', () => {
       const res = await save(base.recipeId, 1, draftOf(base, { cautionsMd: 'fixed as asked' }));
       expect(res.status, JSON.stringify(res.body)).to.equal(200);
       expect(res.body.status).to.equal('draft');
-      const event = await ctx.db('audit_events').where({ event_type: 'recipe.draft_saved' }).orderBy('id', 'desc').first();
+      const event = await ctx.db('trail_events').where({ event_type: 'recipe.draft_saved' }).orderBy('id', 'desc').first();
       expect(asJson(event.before_json)).to.include({ status: 'returned' });
       expect(asJson(event.after_json)).to.include({ status: 'draft' });
     });

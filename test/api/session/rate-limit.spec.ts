@@ -1,6 +1,6 @@
 import { expect } from 'chai';
 import { CSRF_HEADER } from '../../../shared/api-types';
-import { MAX_FAILURES } from '../../../server/services/sign-in-limiter';
+import { MAX_FAILURES } from '../../../server/services/auth/sign-in-limiter';
 import { apiTestContext } from '../support/hooks';
 import { createPerson, type TestPerson } from '../support/people';
 import { anonymousAgent } from '../support/test-app';

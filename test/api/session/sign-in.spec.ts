@@ -28,7 +28,7 @@ describe('POST /api/session (sign in)', () => {
 
   describe('with the right password', () => {
     it('answers the session: the person, no hash, a fresh CSRF token; and records it', async () => {
-      const before = await countRows(ctx.db, 'audit_events');
+      const before = await countRows(ctx.db, 'trail_events');
       const { agent, csrf } = await anonymousAgent(ctx.app);
       const res = await agent.post('/api/session').set(CSRF_HEADER, csrf).send({ username: operator.username, password: operator.password }).expect(200);
       expect(res.body.user).to.include({ id: operator.id, username: 'sam.operator', active: true, mustChangePassword: false });
@@ -43,8 +43,8 @@ describe('POST /api/session (sign in)', () => {
       const me = await agent.get('/api/session').expect(200);
       expect(me.body.user.id).to.equal(operator.id);
       expect(me.body.devOutbox).to.equal(true);
-      expect(await countRows(ctx.db, 'audit_events')).to.equal(before + 1);
-      const event = await ctx.db('audit_events').orderBy('id', 'desc').first();
+      expect(await countRows(ctx.db, 'trail_events')).to.equal(before + 1);
+      const event = await ctx.db('trail_events').orderBy('id', 'desc').first();
       expect(event).to.include({ event_type: 'session.signed_in', actor_user_id: operator.id, entity_id: String(operator.id) });
     });
 
@@ -96,9 +96,9 @@ describe('POST /api/session (sign in)', () => {
 
     it('records failed attempts in the trail, never the password typed', async () => {
       // The trail is append-only (the database refuses DELETE): look at the rows after a mark.
-      const mark = Number((await ctx.db('audit_events').max({ m: 'id' }).first())?.m ?? 0);
+      const mark = Number((await ctx.db('trail_events').max({ m: 'id' }).first())?.m ?? 0);
       await attempt({ username: operator.username, password: 'secret-guess-123' });
-      const rows = await ctx.db('audit_events').where('id', '>', mark).select();
+      const rows = await ctx.db('trail_events').where('id', '>', mark).select();
       expect(rows).to.have.length(1);
       expect(rows[0]).to.include({ event_type: 'session.sign_in_failed', actor_user_id: null, actor_name: 'sam.operator' });
       expect(JSON.stringify(rows)).not.to.include('secret-guess-123');
@@ -135,7 +135,7 @@ describe('POST /api/session (sign in)', () => {
 
   describe('with a malformed request', () => {
     it('answers 400 with field errors for empty and over-long fields, and writes nothing', async () => {
-      const before = await countRows(ctx.db, 'audit_events');
+      const before = await countRows(ctx.db, 'trail_events');
       const failuresBefore = await countRows(ctx.db, 'sign_in_failures');
       const cases: [unknown, string[]][] = [
         [{ username: '', password: '' }, ['username', 'password']],
@@ -154,7 +154,7 @@ describe('POST /api/session (sign in)', () => {
         expect(res.body.errors.map((e: { path: string }) => e.path).sort(), JSON.stringify(body)).to.deep.equal([...paths].sort());
         for (const e of res.body.errors) expect(e.message).to.be.a('string').and.not.equal('');
       }
-      expect(await countRows(ctx.db, 'audit_events')).to.equal(before);
+      expect(await countRows(ctx.db, 'trail_events')).to.equal(before);
       expect(await countRows(ctx.db, 'sign_in_failures')).to.equal(failuresBefore);
     });
 
@@ -179,7 +179,7 @@ describe('POST /api/session (sign in)', () => {
   describe('CSRF', () => {
     it('refuses a sign-in without a token, with a wrong one or with another session’s, writing nothing', async () => {
       const failures = await countRows(ctx.db, 'sign_in_failures');
-      const events = await countRows(ctx.db, 'audit_events');
+      const events = await countRows(ctx.db, 'trail_events');
       const { agent, csrf } = await anonymousAgent(ctx.app);
       const other = await anonymousAgent(ctx.app);
       const body = { username: operator.username, password: 'wrong-password' };
@@ -191,7 +191,7 @@ describe('POST /api/session (sign in)', () => {
         expect(res.body.code).to.equal('CSRF_INVALID');
       }
       expect(await countRows(ctx.db, 'sign_in_failures')).to.equal(failures);
-      expect(await countRows(ctx.db, 'audit_events')).to.equal(events);
+      expect(await countRows(ctx.db, 'trail_events')).to.equal(events);
     });
 
     it('refuses a state change by a signed-in person without the token; nothing is written', async () => {
@@ -232,7 +232,7 @@ describe('POST /api/session (sign in)', () => {
       const after = await request(ctx.app).get('/api/session').set('Cookie', cookie);
       expect(after.status).to.equal(401);
       expect(after.body.code).to.equal('NOT_SIGNED_IN');
-      const last = await ctx.db('audit_events').orderBy('id', 'desc').first();
+      const last = await ctx.db('trail_events').orderBy('id', 'desc').first();
       expect(last.event_type).to.equal('session.signed_out');
     });
 
@@ -259,19 +259,15 @@ describe('POST /api/session (sign in)', () => {
   describe('behind a TLS proxy (TRUST_PROXY)', () => {
     it('marks the cookies Secure when the proxy says the request came over https', async () => {
       const proxied = await buildTestApp(ctx.db, { config: { trustProxy: 'loopback' } });
-      try {
-        const tls = await request(proxied.app).get('/api/session/csrf').set('X-Forwarded-Proto', 'https').expect(200);
-        expect(setCookie(tls, 'kerfbook.sid')).to.match(/;\s*Secure/i);
-        expect(setCookie(tls, 'kerfbook.csrf')).to.match(/;\s*Secure/i);
-        const plain = await request(proxied.app).get('/api/session/csrf').expect(200);
-        expect(setCookie(plain, 'kerfbook.sid')).not.to.match(/;\s*Secure/i);
-        expect(setCookie(plain, 'kerfbook.csrf')).not.to.match(/;\s*Secure/i);
-        // Without trust proxy, the header is ignored.
-        const untrusted = await request(ctx.app).get('/api/session/csrf').set('X-Forwarded-Proto', 'https').expect(200);
-        expect(setCookie(untrusted, 'kerfbook.sid')).not.to.match(/;\s*Secure/i);
-      } finally {
-        proxied.close();
-      }
+      const tls = await request(proxied.app).get('/api/session/csrf').set('X-Forwarded-Proto', 'https').expect(200);
+      expect(setCookie(tls, 'kerfbook.sid')).to.match(/;\s*Secure/i);
+      expect(setCookie(tls, 'kerfbook.csrf')).to.match(/;\s*Secure/i);
+      const plain = await request(proxied.app).get('/api/session/csrf').expect(200);
+      expect(setCookie(plain, 'kerfbook.sid')).not.to.match(/;\s*Secure/i);
+      expect(setCookie(plain, 'kerfbook.csrf')).not.to.match(/;\s*Secure/i);
+      // Without trust proxy, the header is ignored.
+      const untrusted = await request(ctx.app).get('/api/session/csrf').set('X-Forwarded-Proto', 'https').expect(200);
+      expect(setCookie(untrusted, 'kerfbook.sid')).not.to.match(/;\s*Secure/i);
     });
   });
 });

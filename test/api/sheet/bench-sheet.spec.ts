@@ -1,5 +1,5 @@
 /**
- * The bench sheet (design 8; DEVELOPERS.md "Operator routes"): GET
+ * The bench sheet (DEVELOPERS.md "Operator routes"): GET
  * /api/recipes/:id/versions/:n/sheet.pdf read back with pdf-parse — text, page size and
  * the QR code (jsqr) — against the real MariaDB.
  */
@@ -7,7 +7,7 @@ import { expect } from 'chai';
 import sharp from 'sharp';
 import { NO_SAFETY_CLAIM, PRECEDENCE_LINE, STANDARD_CAUTIONS } from '../../../shared/cautions';
 import type { RecipeVersionDto } from '../../../shared/recipe-types';
-import { addAttachment } from '../../../server/services/attachments';
+import { addAttachment } from '../../../server/services/recipes/attachments';
 import { apiTestContext } from '../support/hooks';
 import { createStockSet, type StockSet } from '../support/stock';
 import { asJson, countRows } from '../support/test-database';
@@ -148,7 +148,7 @@ describe('Bench sheet', () => {
     expect(print).to.include({ version_id: versionId, user_id: operator.person.id });
     expect(print.client_address).to.be.a('string').and.not.equal('');
     expect(Date.now() - new Date(print.printed_at).getTime()).to.be.below(60000);
-    const event = await ctx.db('audit_events').orderBy('id', 'desc').first();
+    const event = await ctx.db('trail_events').orderBy('id', 'desc').first();
     expect(event).to.include({ event_type: 'sheet.printed', entity_type: 'recipe_version' });
     expect(Number(event.entity_id)).to.equal(versionId);
     expect(Number(event.actor_user_id)).to.equal(operator.person.id);

@@ -5,7 +5,7 @@ import { createPerson } from '../support/people';
 import { createStockSet, machineInput, materialInput, recipeInput, wheelInput } from '../support/stock';
 import { signedInAgent, type Agent } from '../support/test-app';
 import { asJson, countRows } from '../support/test-database';
-import { createRecipe } from '../../../server/services/recipes';
+import { createRecipe } from '../../../server/services/recipes/recipes';
 
 describe('Stock: materials, wheels, machines', () => {
   const ctx = apiTestContext();
@@ -24,8 +24,8 @@ describe('Stock: materials, wheels, machines', () => {
   const put = (url: string, body: unknown) => author.agent.put(url).set(CSRF_HEADER, author.csrf).send(body as object);
 
   describe('create, read, update', () => {
-    it('creates a material with one audit row and reads it back', async () => {
-      const before = await countRows(ctx.db, 'audit_events');
+    it('creates a material with one trail row and reads it back', async () => {
+      const before = await countRows(ctx.db, 'trail_events');
       const res = await post('/api/materials', materialInput({ name: 'Ti-6Al-4V', designation: 'UNS R56400', group: 'titanium', hardness: { value: 340, scale: 'HV' } }));
       expect(res.status, JSON.stringify(res.body)).to.equal(201);
       expect(res.body).to.include({ name: 'Ti-6Al-4V', designation: 'UNS R56400', group: 'titanium', archived: false });
@@ -33,8 +33,8 @@ describe('Stock: materials, wheels, machines', () => {
       expect(res.body.updatedAt).to.match(/Z$/);
       const got = await operator.agent.get(`/api/materials/${res.body.id}`).expect(200);
       expect(got.body).to.deep.equal(res.body);
-      expect(await countRows(ctx.db, 'audit_events')).to.equal(before + 1);
-      const event = await ctx.db('audit_events').orderBy('id', 'desc').first();
+      expect(await countRows(ctx.db, 'trail_events')).to.equal(before + 1);
+      const event = await ctx.db('trail_events').orderBy('id', 'desc').first();
       expect(event).to.include({ event_type: 'material.created', entity_type: 'material', entity_id: String(res.body.id), actor_user_id: authorId });
       expect(asJson(event.after_json)).to.include({ name: 'Ti-6Al-4V', group: 'titanium' });
     });
@@ -55,7 +55,7 @@ describe('Stock: materials, wheels, machines', () => {
       const res = await put(`/api/wheels/${created.body.id}`, wheelInput({ name: 'Wheel to edit', maxSpeedMs: 80, notes: 'Re-marked' }));
       expect(res.status, JSON.stringify(res.body)).to.equal(200);
       expect(res.body).to.include({ maxSpeedMs: 80, notes: 'Re-marked' });
-      const event = await ctx.db('audit_events').where({ event_type: 'wheel.updated', entity_id: String(created.body.id) }).first();
+      const event = await ctx.db('trail_events').where({ event_type: 'wheel.updated', entity_id: String(created.body.id) }).first();
       expect(asJson(event.before_json)).to.deep.equal({ maxSpeedMs: 63, notes: '' });
       expect(asJson(event.after_json)).to.deep.equal({ maxSpeedMs: 80, notes: 'Re-marked' });
     });
@@ -95,7 +95,7 @@ describe('Stock: materials, wheels, machines', () => {
         const table = url.split('/').pop()!;
         const base = table === 'wheels' ? wheelInput() : table === 'materials' ? materialInput() : machineInput();
         const rows = await countRows(ctx.db, table);
-        const events = await countRows(ctx.db, 'audit_events');
+        const events = await countRows(ctx.db, 'trail_events');
         const res = await post(url, { ...base, ...change });
         expect(res.status, JSON.stringify(res.body)).to.equal(400);
         expect(res.body.code).to.equal('VALIDATION_FAILED');
@@ -103,7 +103,7 @@ describe('Stock: materials, wheels, machines', () => {
         expect(paths, JSON.stringify(res.body)).to.include(path);
         for (const e of res.body.errors) expect(e.message).to.be.a('string').and.not.equal('');
         expect(await countRows(ctx.db, table)).to.equal(rows);
-        expect(await countRows(ctx.db, 'audit_events')).to.equal(events);
+        expect(await countRows(ctx.db, 'trail_events')).to.equal(events);
       });
     }
 
@@ -184,7 +184,7 @@ describe('Stock: materials, wheels, machines', () => {
   });
 
   describe('archive and delete', () => {
-    it('archives and unarchives, each with an audit row; archiving twice is a 409', async () => {
+    it('archives and unarchives, each with a trail row; archiving twice is a 409', async () => {
       const m = await post('/api/machines', machineInput({ name: 'Old saw' })).expect(201);
       const archived = await author.agent.post(`/api/machines/${m.body.id}/archive`).set(CSRF_HEADER, author.csrf).expect(200);
       expect(archived.body.archived).to.equal(true);
@@ -192,7 +192,7 @@ describe('Stock: materials, wheels, machines', () => {
       expect(again.status).to.equal(409);
       const back = await author.agent.post(`/api/machines/${m.body.id}/unarchive`).set(CSRF_HEADER, author.csrf).expect(200);
       expect(back.body.archived).to.equal(false);
-      const events = await ctx.db('audit_events').where({ entity_type: 'machine', entity_id: String(m.body.id) }).orderBy('id').pluck('event_type');
+      const events = await ctx.db('trail_events').where({ entity_type: 'machine', entity_id: String(m.body.id) }).orderBy('id').pluck('event_type');
       expect(events).to.deep.equal(['machine.created', 'machine.archived', 'machine.unarchived']);
     });
 
@@ -202,7 +202,7 @@ describe('Stock: materials, wheels, machines', () => {
       expect(res.status).to.equal(200);
       expect(res.body).to.deep.equal({ archived: false });
       expect(await ctx.db('wheels').where({ id: w.body.id }).first()).to.equal(undefined);
-      const event = await ctx.db('audit_events').where({ event_type: 'wheel.deleted', entity_id: String(w.body.id) }).first();
+      const event = await ctx.db('trail_events').where({ event_type: 'wheel.deleted', entity_id: String(w.body.id) }).first();
       expect(asJson(event.before_json)).to.include({ name: 'Unused wheel' });
     });
 
@@ -240,7 +240,7 @@ describe('Stock: materials, wheels, machines', () => {
   });
 
   describe('selection table', () => {
-    it('creates, lists, updates and deletes rows, with audit rows', async () => {
+    it('creates, lists, updates and deletes rows, with trail rows', async () => {
       const w = await post('/api/wheels', wheelInput({ name: 'Soft alumina', specification: 'A60J5B' })).expect(201);
       const created = await post('/api/selection-rows', { group: 'hardened-tool-steel', hardness: { min: 45, max: 65, scale: 'HRC' }, wheelId: w.body.id, note: 'Harder → softer bond.' });
       expect(created.status, JSON.stringify(created.body)).to.equal(201);
@@ -251,7 +251,7 @@ describe('Stock: materials, wheels, machines', () => {
       expect(updated.body.hardness).to.equal(null);
       await author.agent.delete(`/api/selection-rows/${created.body.id}`).set(CSRF_HEADER, author.csrf).expect(204);
       expect(await ctx.db('selection_rows').where({ id: created.body.id }).first()).to.equal(undefined);
-      const events = await ctx.db('audit_events').where({ entity_type: 'selection_row', entity_id: String(created.body.id) }).orderBy('id').pluck('event_type');
+      const events = await ctx.db('trail_events').where({ entity_type: 'selection_row', entity_id: String(created.body.id) }).orderBy('id').pluck('event_type');
       expect(events).to.deep.equal(['selection_row.created', 'selection_row.updated', 'selection_row.deleted']);
     });
 

@@ -27,7 +27,7 @@ export async function dbFingerprint(db: Knex, options: { without?: readonly stri
   const print: Fingerprint = {};
   for (const row of rows) print[row.Table.split('.').pop()!] = String(row.Checksum);
   // The chain head is a table too, but name it outright: the trail must not move.
-  const head = await db('audit_chain_head').first('last_event_id', 'last_hash');
+  const head = await db('trail_chain_head').first('last_event_id', 'last_hash');
   print['trail head'] = `${head?.last_event_id}:${head?.last_hash}`;
   return print;
 }

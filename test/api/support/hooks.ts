@@ -15,15 +15,12 @@ export interface ApiTestContext {
 
 export function apiTestContext(config: Partial<Config> = {}): ApiTestContext {
   const ctx = {} as ApiTestContext;
-  let close = () => undefined as void;
   before(async function () {
     this.timeout(60000);
     ctx.db = await testDb();
     await resetTables(ctx.db);
     const built = await buildTestApp(ctx.db, { config });
     ctx.app = built.app;
-    close = built.close;
   });
-  after(() => close());
   return ctx;
 }

@@ -2,7 +2,7 @@
 import type { Knex } from 'knex';
 import type { Role } from '../../../shared/roles';
 import { insertUser, updateUserRow } from '../../../server/data/users';
-import { hashPassword } from '../../../server/services/passwords';
+import { hashPassword } from '../../../server/services/auth/passwords';
 
 export const DEFAULT_PASSWORD = 'correct horse battery';
 

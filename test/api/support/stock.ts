@@ -4,8 +4,8 @@ import type { MachineBody, MaterialBody, WheelBody } from '../../../shared/schem
 import type { CreateRecipeBody } from '../../../shared/schemas/recipe';
 import type { MachineRecord, MaterialRecord, WheelRecord } from '../../../shared/stock-types';
 import type { Actor } from '../../../server/services/actor';
-import { createStock } from '../../../server/services/stock';
-import { MACHINES, MATERIALS, WHEELS } from '../../../server/services/stock-records';
+import { createStock } from '../../../server/services/stock/stock';
+import { MACHINES, MATERIALS, WHEELS } from '../../../server/services/stock/records';
 
 export const materialInput = (over: Partial<MaterialBody> = {}): MaterialBody => ({
   name: 'C45 carbon steel',

@@ -25,28 +25,22 @@ export function testConfig(overrides: Partial<Config> = {}): Config {
 
 export interface TestApp {
   app: Express;
-  close(): void;
 }
 
 export async function buildTestApp(
   db: Knex,
   options: { config?: Partial<Config>; extraApiRouter?: Router; log?: (...args: unknown[]) => void } = {},
 ): Promise<TestApp> {
+  // No background jobs: tests run supersession and reminders themselves with a chosen
+  // `now`, and send the outbox (deliverDueMails) to a catcher they start.
   const built = createApp({
     config: testConfig(options.config),
     db,
-    sessionCleanupIntervalMs: 0,
-    // Tests run the supersession job themselves, with a chosen `now`.
-    supersessionIntervalMs: 0,
-    // Tests run the review-due job themselves, with a chosen `now`.
-    reviewReminderIntervalMs: 0,
-    // Tests send the outbox themselves (deliverDueMails) to a catcher they start.
-    mailIntervalMs: 0,
     ...(options.extraApiRouter ? { extraApiRouter: options.extraApiRouter } : {}),
     ...(options.log ? { log: options.log } : {}),
   });
   await built.ready;
-  return { app: built.app, close: built.close };
+  return { app: built.app };
 }
 
 /** An agent (cookie jar) with the CSRF token of its anonymous session. */

@@ -5,10 +5,10 @@
 import { expect } from 'chai';
 import sharp from 'sharp';
 import type { AuditEventDto, AuditPage } from '../../../shared/recipe-types';
-import { addAttachment } from '../../../server/services/attachments';
-import { recordAudit } from '../../../server/services/audit';
-import { createRecipe, saveDraft } from '../../../server/services/recipes';
-import { openTrailCsv } from '../../../server/services/trail';
+import { addAttachment } from '../../../server/services/recipes/attachments';
+import { appendTrailEvent } from '../../../server/services/trail/append';
+import { createRecipe, saveDraft } from '../../../server/services/recipes/recipes';
+import { openTrailCsv } from '../../../server/services/trail/csv';
 import { auditQuery } from '../../../shared/schemas/workflow';
 import { apiTestContext } from '../support/hooks';
 import { createPerson, type TestPerson } from '../support/people';
@@ -55,7 +55,7 @@ describe('Trail list and CSV export', function () {
   let recipeB: number;
 
   const list = async (query: Record<string, string | number>): Promise<AuditPage> => {
-    const res = await auditor.agent.get('/api/audit-events').query(query);
+    const res = await auditor.agent.get('/api/trail').query(query);
     expect(res.status, JSON.stringify(res.body)).to.equal(200);
     return res.body as AuditPage;
   };
@@ -92,14 +92,14 @@ describe('Trail list and CSV export', function () {
     // Events at chosen moments around UTC day boundaries, and names a spreadsheet could misread.
     const at = (iso: string) => new Date(iso);
     const who = (name: string) => ({ userId: other.id, name, clientAddress: '' });
-    await recordAudit(ctx.db, who('Night Shift'), { type: 'user.details_changed', entityType: 'user', entityId: other.id, before: { displayName: 'a' }, after: { displayName: 'b' } }, at('2020-03-01T23:59:59.999Z'));
-    await recordAudit(ctx.db, who('=HYPERLINK("http://x.example"), "µm" ø'), { type: 'user.details_changed', entityType: 'user', entityId: other.id, after: { note: 'says "hi",\nthen leaves' } }, at('2020-03-02T00:00:00.000Z'));
-    await recordAudit(ctx.db, who('+1 plus'), { type: 'user.details_changed', entityType: 'user', entityId: other.id }, at('2020-03-02T23:59:59.999Z'));
-    await recordAudit(ctx.db, who('-1 minus'), { type: 'user.details_changed', entityType: 'user', entityId: other.id }, at('2020-03-03T00:00:00.000Z'));
-    await recordAudit(ctx.db, who('@at sign'), { type: 'user.details_changed', entityType: 'user', entityId: other.id }, at('2020-03-04T12:00:00.000Z'));
+    await appendTrailEvent(ctx.db, who('Night Shift'), { type: 'user.details_changed', entityType: 'user', entityId: other.id, before: { displayName: 'a' }, after: { displayName: 'b' } }, at('2020-03-01T23:59:59.999Z'));
+    await appendTrailEvent(ctx.db, who('=HYPERLINK("http://x.example"), "µm" ø'), { type: 'user.details_changed', entityType: 'user', entityId: other.id, after: { note: 'says "hi",\nthen leaves' } }, at('2020-03-02T00:00:00.000Z'));
+    await appendTrailEvent(ctx.db, who('+1 plus'), { type: 'user.details_changed', entityType: 'user', entityId: other.id }, at('2020-03-02T23:59:59.999Z'));
+    await appendTrailEvent(ctx.db, who('-1 minus'), { type: 'user.details_changed', entityType: 'user', entityId: other.id }, at('2020-03-03T00:00:00.000Z'));
+    await appendTrailEvent(ctx.db, who('@at sign'), { type: 'user.details_changed', entityType: 'user', entityId: other.id }, at('2020-03-04T12:00:00.000Z'));
   });
 
-  describe('GET /api/audit-events', () => {
+  describe('GET /api/trail', () => {
     it('answers newest first, with the chain hashes and before/after as JSON', async () => {
       const page = await list({ limit: 200 });
       const ids = page.items.map((e) => e.id);
@@ -170,7 +170,7 @@ describe('Trail list and CSV export', function () {
         [{ sort: 'id' }, ''],
       ];
       for (const [query, path] of cases) {
-        for (const url of ['/api/audit-events', '/api/audit-events.csv']) {
+        for (const url of ['/api/trail', '/api/trail.csv']) {
           const res = await auditor.agent.get(url).query(query);
           expect(res.status, `${url} ${JSON.stringify(query)}`).to.equal(400);
           expect(res.body.code).to.equal('VALIDATION_FAILED');
@@ -180,9 +180,9 @@ describe('Trail list and CSV export', function () {
     });
   });
 
-  describe('GET /api/audit-events.csv', () => {
+  describe('GET /api/trail.csv', () => {
     it('sends every matching row as an attachment: UTF-8 with BOM, header, RFC 4180 quoting, CRLF', async () => {
-      const res = await auditor.agent.get('/api/audit-events.csv').buffer(true).parse((r, done) => {
+      const res = await auditor.agent.get('/api/trail.csv').buffer(true).parse((r, done) => {
         const chunks: Buffer[] = [];
         r.on('data', (c: Buffer) => chunks.push(c));
         r.on('end', () => done(null, Buffer.concat(chunks)));
@@ -210,7 +210,7 @@ describe('Trail list and CSV export', function () {
     });
 
     it('neutralises cells a spreadsheet would run as a formula, and quotes commas, quotes and line breaks', async () => {
-      const res = await auditor.agent.get('/api/audit-events.csv').query({ from: '2020-03-01', to: '2020-03-04' });
+      const res = await auditor.agent.get('/api/trail.csv').query({ from: '2020-03-01', to: '2020-03-04' });
       const text = res.text.replace(/^\uFEFF/, '');
       // The raw text: quote doubled, the whole cell quoted, a single quote before the "=".
       expect(text).to.include(`"'=HYPERLINK(""http://x.example""), ""µm"" ø"`);
@@ -222,10 +222,10 @@ describe('Trail list and CSV export', function () {
     });
 
     it('applies the list filters, and ignores paging (the export is the whole selection)', async () => {
-      const res = await auditor.agent.get('/api/audit-events.csv').query({ recipeId: recipeA, limit: 1 });
+      const res = await auditor.agent.get('/api/trail.csv').query({ recipeId: recipeA, limit: 1 });
       const records = parseCsv(res.text.replace(/^\uFEFF/, '')).slice(1);
       expect(records.map((r) => r[4]).sort()).to.deep.equal(['attachment.added', 'recipe.created', 'recipe.draft_saved']);
-      const empty = await auditor.agent.get('/api/audit-events.csv').query({ type: 'no.such_type' });
+      const empty = await auditor.agent.get('/api/trail.csv').query({ type: 'no.such_type' });
       expect(empty.status).to.equal(200);
       expect(parseCsv(empty.text.replace(/^\uFEFF/, ''))).to.have.length(1);
     });
@@ -244,7 +244,7 @@ describe('Trail list and CSV export', function () {
   describe('access', () => {
     it('lets auditors and admins read and export; other roles get 403, strangers 401', async () => {
       const admin = await signedInAgent(ctx.app, await createPerson(ctx.db, { roles: ['admin'] }));
-      for (const url of ['/api/audit-events', '/api/audit-events.csv']) {
+      for (const url of ['/api/trail', '/api/trail.csv']) {
         expect((await admin.agent.get(url)).status, url).to.equal(200);
         expect((await auditor.agent.get(url)).status, url).to.equal(200);
         for (const role of ['author', 'approver', 'operator'] as const) {

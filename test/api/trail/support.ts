@@ -1,7 +1,7 @@
 /** Helpers for the trail tests: read the chain, tamper with it the way only a DBA could. */
 import type { Knex } from 'knex';
-import { chainedFields } from '../../../server/services/trail';
-import { trailHash } from '../../../server/services/trail-hash';
+import { chainedFields } from '../../../server/services/trail/stored-row';
+import { trailHash } from '../../../server/services/trail/hash';
 
 export interface ChainRow {
   id: number;
@@ -13,11 +13,11 @@ export interface ChainRow {
 }
 
 export async function chainRows(db: Knex, afterId = 0): Promise<ChainRow[]> {
-  return db('audit_events').where('id', '>', afterId).orderBy('id') as Promise<ChainRow[]>;
+  return db('trail_events').where('id', '>', afterId).orderBy('id') as Promise<ChainRow[]>;
 }
 
 export async function lastEventId(db: Knex): Promise<number> {
-  const row = (await db('audit_events').max({ m: 'id' }).first()) as { m: number | null } | undefined;
+  const row = (await db('trail_events').max({ m: 'id' }).first()) as { m: number | null } | undefined;
   return Number(row?.m ?? 0);
 }
 
@@ -37,7 +37,7 @@ export function linksHold(rows: ChainRow[], prevHash: string): { ok: true } | { 
  * back exactly as it was (its original CREATE statement, read from MariaDB first) — what
  * someone with the database's admin rights could do.
  */
-export async function withoutTrigger<T>(db: Knex, trigger: 'audit_events_refuse_update' | 'audit_events_refuse_delete', change: () => Promise<T>): Promise<T> {
+export async function withoutTrigger<T>(db: Knex, trigger: 'trail_events_refuse_update' | 'trail_events_refuse_delete', change: () => Promise<T>): Promise<T> {
   const [rows] = (await db.raw(`SHOW CREATE TRIGGER ${trigger}`)) as [Record<string, string>[]];
   const statement = rows[0]!['SQL Original Statement']!;
   await db.raw(`DROP TRIGGER ${trigger}`);

@@ -17,10 +17,10 @@ describe('People (admin)', () => {
   });
 
   async function eventsSince(id: number) {
-    return ctx.db('audit_events').where('id', '>', id).orderBy('id');
+    return ctx.db('trail_events').where('id', '>', id).orderBy('id');
   }
   async function lastEventId(): Promise<number> {
-    const row = await ctx.db('audit_events').max<{ m: number | null }[]>({ m: 'id' }).first();
+    const row = await ctx.db('trail_events').max<{ m: number | null }[]>({ m: 'id' }).first();
     return Number(row?.m ?? 0);
   }
   const post = (path: string, body?: object) => {
@@ -29,7 +29,7 @@ describe('People (admin)', () => {
   };
 
   describe('create', () => {
-    it('creates a person with a temporary password and one audit row without the password', async () => {
+    it('creates a person with a temporary password and one trail row without the password', async () => {
       const mark = await lastEventId();
       const res = await post('/api/users', {
         username: 'New.Person',
@@ -63,7 +63,7 @@ describe('People (admin)', () => {
 
     it('answers 400 with field errors for bad input and writes nothing', async () => {
       const users = await countRows(ctx.db, 'users');
-      const events = await countRows(ctx.db, 'audit_events');
+      const events = await countRows(ctx.db, 'trail_events');
       const cases: [object, string][] = [
         [{ username: 'jürgen', displayName: 'J', roles: [], temporaryPassword: 'long-enough-1' }, 'username'],
         [{ username: 'ab', displayName: 'J', roles: [], temporaryPassword: 'long-enough-1' }, 'username'],
@@ -81,7 +81,7 @@ describe('People (admin)', () => {
         expect(res.body.errors.map((e: { path: string }) => e.path), JSON.stringify(body)).to.include(path);
       }
       expect(await countRows(ctx.db, 'users')).to.equal(users);
-      expect(await countRows(ctx.db, 'audit_events')).to.equal(events);
+      expect(await countRows(ctx.db, 'trail_events')).to.equal(events);
     });
 
     it('stores SQL-looking and non-ASCII names verbatim', async () => {
@@ -166,7 +166,7 @@ describe('People (admin)', () => {
       expect(bad.body.errors[0].path).to.equal('id');
     });
 
-    it('changes name and e-mail with one audit row holding before and after', async () => {
+    it('changes name and e-mail with one trail row holding before and after', async () => {
       const mark = await lastEventId();
       const res = await agent.patch(`/api/users/${person.id}`).set(CSRF_HEADER, csrf).send({ displayName: 'Pia Lund-Berg', email: 'pia@lab.example' });
       expect(res.status).to.equal(200);
@@ -178,7 +178,7 @@ describe('People (admin)', () => {
       expect(asJson(events[0].after_json)).to.deep.equal({ displayName: 'Pia Lund-Berg', email: 'pia@lab.example' });
     });
 
-    it('changes roles with one audit row holding before and after', async () => {
+    it('changes roles with one trail row holding before and after', async () => {
       const mark = await lastEventId();
       const res = await agent.patch(`/api/users/${person.id}`).set(CSRF_HEADER, csrf).send({ roles: ['approver', 'operator'] });
       expect(res.status).to.equal(200);
@@ -223,7 +223,7 @@ describe('People (admin)', () => {
       person = await createPerson(ctx.db, { username: 'ivo.author', roles: ['author'] });
     });
 
-    it('deactivates: one audit row, the person keeps their data, their open sessions end', async () => {
+    it('deactivates: one trail row, the person keeps their data, their open sessions end', async () => {
       const theirs = await signedInAgent(ctx.app, person);
       await theirs.agent.get('/api/session').expect(200);
       const mark = await lastEventId();
@@ -242,7 +242,7 @@ describe('People (admin)', () => {
       expect(again.status).to.equal(409);
     });
 
-    it('reactivates with one audit row; the person can sign in again', async () => {
+    it('reactivates with one trail row; the person can sign in again', async () => {
       const mark = await lastEventId();
       const res = await post(`/api/users/${person.id}/reactivate`);
       expect(res.status).to.equal(200);
@@ -270,7 +270,7 @@ describe('People (admin)', () => {
   });
 
   describe('temporary password', () => {
-    it('sets it (one audit row without the password), ends their sessions, and forces a change', async () => {
+    it('sets it (one trail row without the password), ends their sessions, and forces a change', async () => {
       const person = await createPerson(ctx.db, { username: 'temp.operator', roles: ['operator'] });
       const theirs = await signedInAgent(ctx.app, person);
       const mark = await lastEventId();
@@ -303,11 +303,11 @@ describe('People (admin)', () => {
 
     it('answers 400 for a too-short password, writing nothing; refuses one’s own', async () => {
       const person = await createPerson(ctx.db, { roles: ['auditor'] });
-      const events = await countRows(ctx.db, 'audit_events');
+      const events = await countRows(ctx.db, 'trail_events');
       const res = await post(`/api/users/${person.id}/temporary-password`, { password: 'short' });
       expect(res.status).to.equal(400);
       expect(res.body.errors[0].path).to.equal('password');
-      expect(await countRows(ctx.db, 'audit_events')).to.equal(events);
+      expect(await countRows(ctx.db, 'trail_events')).to.equal(events);
       const row = await ctx.db('users').where({ id: person.id }).first();
       expect(row.must_change_password).to.equal(0);
       const own = await post(`/api/users/${admin.id}/temporary-password`, { password: 'long-enough-99' });

@@ -5,7 +5,7 @@
 import { expect } from 'chai';
 import type { RecipeVersionDto } from '../../../shared/recipe-types';
 import { seedDemoIfEmpty } from '../../../server/tools/db-setup';
-import { applyDueSupersessions } from '../../../server/services/supersession';
+import { applyDueSupersessions } from '../../../server/services/recipes/supersession';
 import { DEMO_ACCOUNTS } from '../../../seeds/data/demo-accounts';
 import { apiTestContext } from '../support/hooks';
 import { signedInAgent, type Agent } from '../support/test-app';

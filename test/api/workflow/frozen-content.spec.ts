@@ -1,5 +1,5 @@
 /**
- * Submitted content is frozen by MariaDB itself (design 4; ISO/IEC 17025 §7.11): direct
+ * Submitted content is frozen by MariaDB itself (ISO/IEC 17025:2017 §7.11): direct
  * SQL, bypassing the API, cannot change or delete a submitted version, a signature, a
  * review comment or the photos of a frozen version — while the workflow's own columns
  * (status, revision, dates) stay writable.
@@ -7,7 +7,7 @@
 import { expect } from 'chai';
 import sharp from 'sharp';
 import type { RecipeVersionDto } from '../../../shared/recipe-types';
-import { addAttachment } from '../../../server/services/attachments';
+import { addAttachment } from '../../../server/services/recipes/attachments';
 import { apiTestContext } from '../support/hooks';
 import { createStockSet, type StockSet } from '../support/stock';
 import { act, approved, createDraft, inReview, ok, post, sessionFor, type Session } from './workflow-support';

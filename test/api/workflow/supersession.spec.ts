@@ -1,12 +1,12 @@
 /**
- * Effective dates (design 4): a version approved for a later day stays pending, the
+ * Effective dates: a version approved for a later day stays pending, the
  * previous one stays current until that day, and the scheduled job then makes it current
  * and supersedes its predecessors — once, even when several processes run the job at the
  * same moment.
  */
 import { expect } from 'chai';
 import type { RecipeVersionDto } from '../../../shared/recipe-types';
-import { applyDueSupersessions, startSupersessionTimer } from '../../../server/services/supersession';
+import { applyDueSupersessions, startSupersessionTimer } from '../../../server/services/recipes/supersession';
 import { apiTestContext } from '../support/hooks';
 import { createStockSet, type StockSet } from '../support/stock';
 import { asJson, countRows } from '../support/test-database';
@@ -60,12 +60,12 @@ describe('Effective dates and supersession', () => {
     expect(await applyDueSupersessions(ctx.db, new Date(`${day(9)}T23:59:59Z`))).to.deep.equal({ madeCurrent: 0, superseded: 0 });
     expect((await stateOf(v1.recipeId)).current).to.equal(1);
 
-    const events = await countRows(ctx.db, 'audit_events');
+    const events = await countRows(ctx.db, 'trail_events');
     const result = await applyDueSupersessions(ctx.db, new Date(`${effectiveDate}T00:00:01Z`));
     expect(result).to.deep.equal({ madeCurrent: 1, superseded: 1 });
     expect(await stateOf(v1.recipeId)).to.deep.equal({ statuses: [[2, 'approved'], [1, 'superseded']], current: 2 });
-    expect(await countRows(ctx.db, 'audit_events')).to.equal(events + 2);
-    const rows = await ctx.db('audit_events').orderBy('id', 'desc').limit(2);
+    expect(await countRows(ctx.db, 'trail_events')).to.equal(events + 2);
+    const rows = await ctx.db('trail_events').orderBy('id', 'desc').limit(2);
     const types = rows.map((r) => r.event_type).sort();
     expect(types).to.deep.equal(['recipe.version_effective', 'recipe.version_superseded']);
     const effective = rows.find((r) => r.event_type === 'recipe.version_effective');
@@ -74,7 +74,7 @@ describe('Effective dates and supersession', () => {
 
     // Idempotent: a second run finds nothing.
     expect(await applyDueSupersessions(ctx.db, new Date(`${effectiveDate}T12:00:00Z`))).to.deep.equal({ madeCurrent: 0, superseded: 0 });
-    expect(await countRows(ctx.db, 'audit_events')).to.equal(events + 2);
+    expect(await countRows(ctx.db, 'trail_events')).to.equal(events + 2);
   });
 
   it('supersedes a still-pending older version when a newer one becomes current first', async () => {
@@ -95,15 +95,15 @@ describe('Effective dates and supersession', () => {
   it('does the work once when two runs start at the same moment', async () => {
     const recipes = [];
     for (let i = 0; i < 4; i++) recipes.push(await pendingSecondVersion(`Concurrent job ${i}`, 5));
-    const events = await countRows(ctx.db, 'audit_events');
+    const events = await countRows(ctx.db, 'trail_events');
     const at = new Date(Date.now() + 6 * DAY_MS);
     const [a, b, c] = await Promise.all([applyDueSupersessions(ctx.db, at), applyDueSupersessions(ctx.db, at), applyDueSupersessions(ctx.db, at)]);
     expect(a.madeCurrent + b.madeCurrent + c.madeCurrent).to.equal(4);
     expect(a.superseded + b.superseded + c.superseded).to.equal(4);
-    expect(await countRows(ctx.db, 'audit_events')).to.equal(events + 8);
+    expect(await countRows(ctx.db, 'trail_events')).to.equal(events + 8);
     for (const { v1 } of recipes) {
       expect(await stateOf(v1.recipeId)).to.deep.equal({ statuses: [[2, 'approved'], [1, 'superseded']], current: 2 });
-      const effective = await ctx.db('audit_events').where({ event_type: 'recipe.version_effective', recipe_id: v1.recipeId }).count({ n: '*' }).first();
+      const effective = await ctx.db('trail_events').where({ event_type: 'recipe.version_effective', recipe_id: v1.recipeId }).count({ n: '*' }).first();
       expect(Number(effective!.n)).to.equal(1);
     }
   });

@@ -1,5 +1,5 @@
 /**
- * Review and approval through the API (design 4; DEVELOPERS.md "Review routes"): every
+ * Review and approval through the API (DEVELOPERS.md "Review routes"): every
  * transition with its refusals, against the real MariaDB.
  */
 import { createHash } from 'node:crypto';
@@ -38,27 +38,27 @@ describe('Review workflow', () => {
       row,
       recipe,
       signatures: await countRows(ctx.db, 'signatures'),
-      audit: await countRows(ctx.db, 'audit_events'),
+      trail: await countRows(ctx.db, 'trail_events'),
       comments: await countRows(ctx.db, 'review_comments'),
       versions: await countRows(ctx.db, 'recipe_versions'),
     };
   }
 
-  const lastEvent = () => ctx.db('audit_events').orderBy('id', 'desc').first();
+  const lastEvent = () => ctx.db('trail_events').orderBy('id', 'desc').first();
 
   describe('the whole path', () => {
     it('draft → submit → return with a comment → author edits → submit → approve with a signature → current; version 2 approved supersedes version 1', async () => {
-      // Draft and submit: hash of the canonical content, submitted_at, one audit event.
+      // Draft and submit: hash of the canonical content, submitted_at, one trail event.
       const draft = await createDraft(author, stock, { title: 'Whole path' });
       expect(draft.workflow).to.deep.include({ signatures: [], effectiveFrom: null, reviewDueOn: null, submittedAt: null, editorIds: [author.person.id] });
-      let events = await countRows(ctx.db, 'audit_events');
+      let events = await countRows(ctx.db, 'trail_events');
       const submitted = ok(await act.submit(author, draft));
       expect(submitted).to.include({ status: 'in-review', revision: draft.revision + 1 });
       const stored = await ctx.db('recipe_versions').where({ recipe_id: draft.recipeId, version: 1 }).first('content_json', 'content_hash', 'submitted_at');
       expect(submitted.contentHash).to.equal(createHash('sha256').update(stored.content_json, 'utf8').digest('hex'));
       expect(stored.content_hash).to.equal(submitted.contentHash);
       expect(submitted.workflow!.submittedAt).to.be.a('string');
-      expect(await countRows(ctx.db, 'audit_events')).to.equal(events + 1);
+      expect(await countRows(ctx.db, 'trail_events')).to.equal(events + 1);
       let event = await lastEvent();
       expect(event).to.include({ event_type: 'recipe.version_submitted', entity_type: 'recipe_version' });
       expect(asJson(event.before_json)).to.include({ status: 'draft' });
@@ -82,7 +82,7 @@ describe('Review workflow', () => {
       expect(resubmitted.contentHash).to.not.equal(submitted.contentHash);
 
       // Approve: signature with printed name, UTC time, meaning, comment and the content hash.
-      events = await countRows(ctx.db, 'audit_events');
+      events = await countRows(ctx.db, 'trail_events');
       const before = Date.now();
       const approvedV1 = ok(await act.approve(approver, resubmitted, { comment: 'Fine for production.' }));
       expect(approvedV1).to.include({ status: 'approved', revision: resubmitted.revision + 1 });
@@ -99,7 +99,7 @@ describe('Review workflow', () => {
       const recipe = await ctx.db('recipes').where({ id: draft.recipeId }).first();
       const v1Row = await ctx.db('recipe_versions').where({ recipe_id: draft.recipeId, version: 1 }).first('id');
       expect(recipe.current_version_id).to.equal(v1Row.id);
-      expect(await countRows(ctx.db, 'audit_events')).to.equal(events + 1);
+      expect(await countRows(ctx.db, 'trail_events')).to.equal(events + 1);
       event = await lastEvent();
       expect(event.event_type).to.equal('recipe.version_approved');
       expect(asJson(event.before_json)).to.include({ status: 'in-review' });
@@ -120,7 +120,7 @@ describe('Review workflow', () => {
       expect(v1now.workflow!.signatures).to.have.length(1);
       const v2Row = await ctx.db('recipe_versions').where({ recipe_id: draft.recipeId, version: 2 }).first('id');
       expect((await ctx.db('recipes').where({ id: draft.recipeId }).first()).current_version_id).to.equal(v2Row.id);
-      const superseded = await ctx.db('audit_events').where({ event_type: 'recipe.version_superseded', entity_id: String(v1Row.id) });
+      const superseded = await ctx.db('trail_events').where({ event_type: 'recipe.version_superseded', entity_id: String(v1Row.id) });
       expect(superseded).to.have.length(1);
       expect(asJson(superseded[0].before_json)).to.include({ status: 'approved' });
       expect(asJson(superseded[0].after_json)).to.include({ status: 'superseded', supersededByVersion: 2 });
@@ -271,13 +271,13 @@ describe('Review workflow', () => {
     it('lets exactly one of two approvers signing the same version at the same moment win', async () => {
       const v = await inReview(author, stock, { title: 'Race to approve' });
       const signatures = await countRows(ctx.db, 'signatures');
-      const approvals = await ctx.db('audit_events').where({ event_type: 'recipe.version_approved' }).count({ n: '*' }).first();
+      const approvals = await ctx.db('trail_events').where({ event_type: 'recipe.version_approved' }).count({ n: '*' }).first();
       const [a, b] = await Promise.all([act.approve(approver, v), act.approve(approver2, v)]);
       expect([a.status, b.status].sort(), JSON.stringify([a.body, b.body])).to.deep.equal([200, 409]);
       const loser = a.status === 409 ? a : b;
       expect(loser.body.code).to.equal('CONFLICT');
       expect(await countRows(ctx.db, 'signatures')).to.equal(signatures + 1);
-      const after = await ctx.db('audit_events').where({ event_type: 'recipe.version_approved' }).count({ n: '*' }).first();
+      const after = await ctx.db('trail_events').where({ event_type: 'recipe.version_approved' }).count({ n: '*' }).first();
       expect(Number(after!.n)).to.equal(Number(approvals!.n) + 1);
       const row = await ctx.db('recipe_versions').where({ recipe_id: v.recipeId, version: 1 }).first('status', 'revision');
       expect(row).to.deep.equal({ status: 'approved', revision: v.revision + 1 });
@@ -407,12 +407,12 @@ describe('Review workflow', () => {
   describe('comments', () => {
     it('are added by authors and approvers, read by anyone signed in, and written to the trail', async () => {
       const v = await inReview(author, stock, { title: 'Comments' });
-      const events = await countRows(ctx.db, 'audit_events');
+      const events = await countRows(ctx.db, 'trail_events');
       const res = await post(approver, `/api/recipes/${v.recipeId}/versions/1/comments`, { body: 'Feed looks high for this hardness.', path: 'cutting.feedMmS' });
       expect(res.status, JSON.stringify(res.body)).to.equal(201);
       expect(res.body).to.include({ body: 'Feed looks high for this hardness.', path: 'cutting.feedMmS', authorName: 'Tomas Approver' });
       expect((await post(author, `/api/recipes/${v.recipeId}/versions/1/comments`, { body: 'It was tried on the last lot.' })).status).to.equal(201);
-      expect(await countRows(ctx.db, 'audit_events')).to.equal(events + 2);
+      expect(await countRows(ctx.db, 'trail_events')).to.equal(events + 2);
       expect((await post(operator, `/api/recipes/${v.recipeId}/versions/1/comments`, { body: 'x' })).status).to.equal(403);
       const empty = await post(approver, `/api/recipes/${v.recipeId}/versions/1/comments`, { body: '  ' });
       expect(empty.status).to.equal(400);

@@ -1,19 +1,19 @@
 /**
- * Debian's chromium through playwright-core (no browser download), with the flags that keep
- * it off the closed network (toolchain pitfall 18). Each page records console errors, CSP
+ * Debian's chromium through playwright-core (no browser download; CHROMIUM_PATH names
+ * another), with the flags that keep it off the closed network (server/tools/chromium.ts). Each page records console errors, CSP
  * violations and any request that leaves the app's own origin.
  */
 import fs from 'node:fs';
 import path from 'node:path';
 import { type Browser, type Page, chromium } from 'playwright-core';
-import { CHROMIUM_FLAGS } from '../../../server/tools/chromium-flags';
+import { CHROMIUM_FLAGS, CHROMIUM_PATH } from '../../../server/tools/chromium';
 
 export const BASE_URL = process.env['BASE_URL'] ?? 'http://127.0.0.1:4300';
 export const SHOTS_DIR = path.resolve(import.meta.dirname, '../../../.data/screenshots');
 
 export function launch(): Promise<Browser> {
   return chromium.launch({
-    executablePath: process.env['CHROMIUM_PATH'] ?? '/usr/bin/chromium',
+    executablePath: CHROMIUM_PATH,
     args: CHROMIUM_FLAGS,
   });
 }

@@ -6,7 +6,7 @@
 import { expect } from 'chai';
 import { createHash } from 'node:crypto';
 import { trailHash as frozenTrailHash } from '../../../migrations/20261201230150_chain_audit_events';
-import { trailHash as appTrailHash } from '../../../server/services/trail-hash';
+import { trailHash as appTrailHash } from '../../../server/services/trail/hash';
 
 const GENESIS = '0'.repeat(64);
 

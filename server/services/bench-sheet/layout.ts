@@ -1,0 +1,251 @@
+/**
+ * Drawing primitives of the bench sheet: a page writer that keeps the cursor, section
+ * headings, ruled label/value tables, boxed blocks and the footer. Black on white with
+ * grey hairlines only: nothing depends on colour, so a grey photocopy reads the same.
+ */
+import PDFDocument from 'pdfkit';
+import { registerSheetFonts, type SheetFont } from './fonts';
+
+export type PaperSize = 'A4' | 'Letter';
+
+/** Points (1/72 in). */
+export const MARGIN = { top: 34, bottom: 46, left: 40, right: 40 } as const;
+export const FOOTER_GAP = 22;
+
+export const TYPE = {
+  body: 9,
+  small: 7.5,
+  label: 8,
+  heading: 9.5,
+  lineGap: 1.8,
+} as const;
+
+export const INK = '#000000';
+/** Rules and secondary text: dark enough to survive a photocopy. */
+export const RULE = '#8a8a8a';
+export const MUTED = '#3c3c3c';
+/** The faint fill behind label columns and headings: decoration only, never meaning. */
+export const TINT = '#efefef';
+
+/** Cell padding of the ruled tables, points. */
+const CELL = { padX: 5, padY: 2.6 } as const;
+
+export interface Row {
+  label: string;
+  value: string;
+  /** A second line under the value, smaller (e.g. where a computed value comes from). */
+  note?: string;
+  /** Printed bold: the values the operator sets on the machine. */
+  strong?: boolean;
+}
+
+export class SheetWriter {
+  readonly doc: PDFKit.PDFDocument;
+
+  constructor(paper: PaperSize, info: { title: string; author: string; subject: string }) {
+    this.doc = new PDFDocument({
+      size: paper === 'Letter' ? 'LETTER' : 'A4',
+      margins: { ...MARGIN },
+      bufferPages: true,
+      info: { Title: info.title, Author: info.author, Subject: info.subject, Creator: 'Kerfbook' },
+      lang: 'en',
+    });
+    registerSheetFonts(this.doc);
+    this.doc.lineGap(TYPE.lineGap);
+  }
+
+  get left(): number {
+    return MARGIN.left;
+  }
+
+  get width(): number {
+    return this.doc.page.width - MARGIN.left - MARGIN.right;
+  }
+
+  get right(): number {
+    return this.left + this.width;
+  }
+
+  /** Lowest y content may reach on this page (the footer sits below it). */
+  get bottom(): number {
+    return this.doc.page.height - MARGIN.bottom;
+  }
+
+  get y(): number {
+    return this.doc.y;
+  }
+
+  set y(value: number) {
+    this.doc.y = value;
+  }
+
+  use(font: SheetFont, size: number, color = INK): this {
+    this.doc.font(font).fontSize(size).fillColor(color);
+    return this;
+  }
+
+  heightOf(text: string, font: SheetFont, size: number, width: number): number {
+    this.use(font, size);
+    return this.doc.heightOfString(text, { width, lineGap: TYPE.lineGap });
+  }
+
+  /** Starts a new page unless `height` points still fit. */
+  ensureSpace(height: number): void {
+    if (this.y + height > this.bottom) {
+      this.doc.addPage();
+      this.y = MARGIN.top;
+    }
+  }
+
+  gap(points: number): void {
+    this.y += points;
+  }
+
+  hrule(y: number, weight = 0.5, color = RULE, x1 = this.left, x2 = this.right): void {
+    this.doc.save().moveTo(x1, y).lineTo(x2, y).lineWidth(weight).strokeColor(color).stroke().restore();
+  }
+
+  vrule(x: number, y1: number, y2: number, weight = 0.5, color = RULE): void {
+    this.doc.save().moveTo(x, y1).lineTo(x, y2).lineWidth(weight).strokeColor(color).stroke().restore();
+  }
+
+  fillRect(x: number, y: number, w: number, h: number, color = TINT): void {
+    this.doc.save().rect(x, y, w, h).fillColor(color).fill().restore();
+  }
+
+  strokeRect(x: number, y: number, w: number, h: number, weight = 0.75, color = INK): void {
+    this.doc.save().rect(x, y, w, h).lineWidth(weight).strokeColor(color).stroke().restore();
+  }
+
+  /** Text at a fixed place, without moving the flow. */
+  place(text: string, x: number, y: number, font: SheetFont, size: number, options: PDFKit.Mixins.TextOptions = {}, color = INK): number {
+    this.use(font, size, color);
+    const height = this.doc.heightOfString(text, { lineGap: TYPE.lineGap, ...options });
+    this.doc.text(text, x, y, { lineGap: TYPE.lineGap, ...options });
+    return height;
+  }
+
+  /**
+   * A numbered section heading: "3  CLAMPING" in bold capitals over a full-width rule.
+   * `keepWith` is the height of what must follow on the same page.
+   */
+  section(number: number, title: string, keepWith = 40): void {
+    this.ensureSpace(22 + keepWith);
+    this.gap(7);
+    const y = this.y;
+    this.place(String(number), this.left, y, 'bold', TYPE.heading, { lineBreak: false });
+    this.place(title.toUpperCase(), this.left + 16, y, 'bold', TYPE.heading, { characterSpacing: 0.6, lineBreak: false });
+    this.hrule(y + 13.5, 1, INK);
+    this.y = y + 18;
+  }
+
+  /**
+   * A ruled two-column table: grey label column, value column; hairlines between rows.
+   * Rows split across pages row by row, never inside a row.
+   */
+  /** The height `table` will take for these rows, on one page. */
+  tableHeight(rows: readonly Row[], labelWidth = 150, tableWidth = this.width): number {
+    return rows.reduce((sum, row) => sum + this.rowHeight(row, labelWidth, tableWidth - labelWidth), 0) + 2;
+  }
+
+  private rowHeight(row: Row, labelWidth: number, valueWidth: number): number {
+    const labelH = this.heightOf(row.label, 'regular', TYPE.label, labelWidth - 2 * CELL.padX);
+    const valueH = this.heightOf(row.value, row.strong ? 'bold' : 'regular', TYPE.body, valueWidth - 2 * CELL.padX);
+    const noteH = row.note ? this.heightOf(row.note, 'regular', TYPE.small, valueWidth - 2 * CELL.padX) : 0;
+    return Math.max(labelH, valueH + noteH) + 2 * CELL.padY;
+  }
+
+  /**
+   * Short facts two to a line (label, value, label, value), for the scope: saves half the
+   * height of a one-per-line table. A row marked `strong` is printed bold.
+   */
+  pairTable(rows: readonly Row[], labelWidth = 88): void {
+    const half = this.width / 2;
+    let top = this.y;
+    this.hrule(top);
+    for (let i = 0; i < rows.length; i += 2) {
+      const pair = rows.slice(i, i + 2);
+      const height = Math.max(...pair.map((r) => this.rowHeight(r, labelWidth, half - labelWidth)));
+      pair.forEach((row, j) => {
+        const x = this.left + j * half;
+        this.fillRect(x, top + 0.25, labelWidth, height - 0.5);
+        this.place(row.label, x + CELL.padX, top + CELL.padY + 0.6, 'regular', TYPE.label, { width: labelWidth - 2 * CELL.padX }, MUTED);
+        this.place(row.value, x + labelWidth + CELL.padX, top + CELL.padY, row.strong ? 'bold' : 'regular', TYPE.body, { width: half - labelWidth - 2 * CELL.padX });
+        this.vrule(x + labelWidth, top, top + height);
+        if (j === 1) this.vrule(x, top, top + height);
+      });
+      this.hrule(top + height);
+      top += height;
+    }
+    this.y = top + 2;
+  }
+
+  table(rows: readonly Row[], labelWidth = 150, tableWidth = this.width): void {
+    const padX = CELL.padX;
+    const padY = CELL.padY;
+    const valueX = this.left + labelWidth;
+    const valueWidth = tableWidth - labelWidth;
+    const tableRight = this.left + tableWidth;
+    let top = this.y;
+    this.hrule(top, 0.5, RULE, this.left, tableRight);
+    for (const row of rows) {
+      const labelH = this.heightOf(row.label, 'regular', TYPE.label, labelWidth - 2 * padX);
+      const valueH = this.heightOf(row.value, row.strong ? 'bold' : 'regular', TYPE.body, valueWidth - 2 * padX);
+      const noteH = row.note ? this.heightOf(row.note, 'regular', TYPE.small, valueWidth - 2 * padX) : 0;
+      const height = Math.max(labelH, valueH + noteH) + 2 * padY;
+      if (top + height > this.bottom) {
+        this.doc.addPage();
+        top = MARGIN.top;
+        this.hrule(top, 0.5, RULE, this.left, tableRight);
+      }
+      this.fillRect(this.left, top + 0.25, labelWidth, height - 0.5);
+      this.place(row.label, this.left + padX, top + padY + 0.6, 'regular', TYPE.label, { width: labelWidth - 2 * padX }, MUTED);
+      this.place(row.value, valueX + padX, top + padY, row.strong ? 'bold' : 'regular', TYPE.body, { width: valueWidth - 2 * padX });
+      if (row.note) this.place(row.note, valueX + padX, top + padY + valueH, 'regular', TYPE.small, { width: valueWidth - 2 * padX }, MUTED);
+      this.vrule(valueX, top, top + height);
+      this.hrule(top + height, 0.5, RULE, this.left, tableRight);
+      top += height;
+    }
+    this.y = top + 2;
+  }
+
+  /** A paragraph in the flow at full width. */
+  paragraph(text: string, font: SheetFont = 'regular', size: number = TYPE.body, color = INK, indent = 0): void {
+    const width = this.width - indent;
+    const height = this.heightOf(text, font, size, width);
+    this.ensureSpace(Math.min(height, 40));
+    this.use(font, size, color);
+    this.doc.text(text, this.left + indent, this.y, { width, lineGap: TYPE.lineGap });
+  }
+
+  /** "Printed … — check the code before use · Page x of y" on every page, written last. */
+  footers(text: string): void {
+    const range = this.doc.bufferedPageRange();
+    for (let i = range.start; i < range.start + range.count; i += 1) {
+      this.doc.switchToPage(i);
+      // Writing below the bottom margin would make pdfkit start a new page: lift it first.
+      const bottomMargin = this.doc.page.margins.bottom;
+      this.doc.page.margins.bottom = 0;
+      const y = this.doc.page.height - MARGIN.bottom + FOOTER_GAP - 8;
+      this.hrule(y - 5, 0.5, RULE);
+      const pageText = `Page ${i - range.start + 1} of ${range.count}`;
+      this.use('regular', TYPE.small, MUTED);
+      const pageWidth = this.doc.widthOfString(pageText);
+      this.doc.text(text, this.left, y, { width: this.width - pageWidth - 12, lineBreak: false, ellipsis: true });
+      this.doc.text(pageText, this.right - pageWidth, y, { lineBreak: false });
+      this.doc.page.margins.bottom = bottomMargin;
+    }
+  }
+
+  /** The finished document's bytes. */
+  async toBuffer(): Promise<Buffer> {
+    const chunks: Buffer[] = [];
+    const done = new Promise<Buffer>((resolve, reject) => {
+      this.doc.on('data', (chunk: Buffer) => chunks.push(chunk));
+      this.doc.on('end', () => resolve(Buffer.concat(chunks)));
+      this.doc.on('error', reject);
+    });
+    this.doc.end();
+    return done;
+  }
+}

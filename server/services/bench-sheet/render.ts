@@ -1,0 +1,275 @@
+/**
+ * Lays out the bench sheet from its model: header with the check code and QR,
+ * the uncontrolled-copy notice, scope, parameters, clamping (with the setup photo), coolant,
+ * numbered instructions, acceptance criteria, cautions, the standard cautions box,
+ * signatures, and a footer on every page. One or two pages.
+ */
+import { NO_SAFETY_CLAIM, PRECEDENCE_LINE, STANDARD_CAUTIONS } from '../../../shared/cautions';
+import type { SheetModel } from './content';
+import { INK, MUTED, RULE, SheetWriter, TINT, TYPE, type PaperSize } from './layout';
+import { markdownHeight, writeMarkdown } from './markdown';
+
+export interface SheetPhoto {
+  jpeg: Buffer;
+  width: number;
+  height: number;
+  caption: string;
+}
+
+export interface SheetRenderInput {
+  model: SheetModel;
+  paper: PaperSize;
+  qrPng: Buffer;
+  photo: SheetPhoto | null;
+  /** "Printed 2026-12-01 14:03 UTC by Ana Operator — check the code before use". */
+  footer: string;
+}
+
+const QR_SIZE = 76;
+
+function header(w: SheetWriter, m: SheetModel, qr: Buffer): void {
+  const top = w.y;
+  // Over the box: who issues the sheet and what it is.
+  w.place(m.labName.toUpperCase(), w.left, top, 'bold', 8, { characterSpacing: 0.8, lineBreak: false, width: w.width * 0.6, ellipsis: true });
+  w.use('regular', 7.5, MUTED);
+  const kind = 'BENCH SHEET · CUTTING RECIPE';
+  w.place(kind, w.right - w.doc.widthOfString(kind, { characterSpacing: 0.8 }) - 1, top + 0.5, 'regular', 7.5, { characterSpacing: 0.8, lineBreak: false }, MUTED);
+
+  const boxTop = top + 14;
+  const sideWidth = 124;
+  const mainWidth = w.width - sideWidth;
+  const pad = 10;
+
+  // Recipe number and version, then the title.
+  let y = boxTop + pad - 1;
+  w.place(m.number, w.left + pad, y, 'bold', 22, { lineBreak: false });
+  w.use('bold', 22);
+  const numberWidth = w.doc.widthOfString(m.number);
+  w.place(`Version ${m.version}`, w.left + pad + numberWidth + 12, y + 8, 'bold', 13, { lineBreak: false });
+  y += 30;
+  y += w.place(m.title, w.left + pad, y, 'bold', 12, { width: mainWidth - 2 * pad }) + 6;
+
+  // Status, effective date, review due: small labels over values.
+  const fields: [string, string][] = [
+    ['Status', m.statusLine],
+    ['Effective from', m.effectiveFrom],
+    ['Review due', m.reviewDueOn],
+  ];
+  // The status gets the widest field: "Approved — not yet current" must fit on one line.
+  const shares = [0.44, 0.28, 0.28];
+  w.hrule(y, 0.5, RULE, w.left + pad, w.left + mainWidth - pad);
+  y += 5;
+  let fx = w.left + pad;
+  fields.forEach(([label, value], i) => {
+    const fieldWidth = shares[i]! * (mainWidth - 2 * pad);
+    w.place(label.toUpperCase(), fx, y, 'regular', 6.5, { characterSpacing: 0.6, lineBreak: false }, MUTED);
+    w.place(value, fx, y + 9, 'bold', 9.5, { width: fieldWidth - 6, lineBreak: false, ellipsis: true });
+    fx += fieldWidth;
+  });
+  y += 26;
+
+  // The check code column: QR code, then the code itself, large.
+  const sideX = w.left + mainWidth;
+  const sideHeight = pad + QR_SIZE + 40;
+  const boxHeight = Math.max(y - boxTop + pad - 4, sideHeight);
+  w.doc.image(qr, sideX + (sideWidth - QR_SIZE) / 2, boxTop + 6, { width: QR_SIZE, height: QR_SIZE });
+  w.place('CHECK CODE', sideX, boxTop + QR_SIZE + 8, 'regular', 6.5, { width: sideWidth, align: 'center', characterSpacing: 0.8, lineBreak: false }, MUTED);
+  // As large as fits the column on one line (W and M are wide).
+  let codeSize = 16;
+  w.use('bold', codeSize);
+  while (codeSize > 10 && w.doc.widthOfString(m.checkCode, { characterSpacing: 0.8 }) > sideWidth - 12) w.use('bold', (codeSize -= 0.5));
+  w.place(m.checkCode, sideX, boxTop + QR_SIZE + 18, 'bold', codeSize, { width: sideWidth, align: 'center', characterSpacing: 0.8, lineBreak: false });
+
+  w.strokeRect(w.left, boxTop, w.width, boxHeight, 1.25, INK);
+  w.vrule(sideX, boxTop, boxTop + boxHeight, 0.75, INK);
+  w.y = boxTop + boxHeight + 6;
+}
+
+/**
+ * The uncontrolled-copy notice: a printed copy must be checked against the current revision
+ * before use (ISO/IEC 17025:2017 §8.3, obsolete documents unusable by mistake).
+ */
+function uncontrolledNotice(w: SheetWriter, m: SheetModel): void {
+  const pending = m.current ? '' : ` This version is not yet in force: do not use it before ${m.effectiveFrom}.`;
+  const text = `Uncontrolled once printed. Before each use, scan the QR code or open ${m.checkUrl} and confirm that version ${m.version} is still the current revision. Do not use a superseded or withdrawn sheet.${pending}`;
+  const height = w.heightOf(text, 'regular', TYPE.small + 0.5, w.width - 14);
+  const top = w.y;
+  w.fillRect(w.left, top, 3, height + 4, INK);
+  w.place(text, w.left + 10, top + 2, 'regular', TYPE.small + 0.5, { width: w.width - 14 }, INK);
+  w.y = top + height + 6;
+}
+
+function photoBlock(w: SheetWriter, photo: SheetPhoto, x: number, y: number, width: number): number {
+  const maxHeight = 150;
+  const scale = Math.min(width / photo.width, maxHeight / photo.height);
+  const pw = photo.width * scale;
+  const ph = photo.height * scale;
+  w.doc.image(photo.jpeg, x + (width - pw) / 2, y, { width: pw, height: ph });
+  w.strokeRect(x + (width - pw) / 2, y, pw, ph, 0.5, RULE);
+  const caption = photo.caption ? `Setup photo — ${photo.caption}` : 'Setup photo';
+  const ch = w.place(caption, x, y + ph + 3, 'regular', TYPE.small, { width, align: 'center' }, MUTED);
+  return ph + 3 + ch;
+}
+
+function cautionsBox(w: SheetWriter): void {
+  const pad = 9;
+  const gutter = 14;
+  const colWidth = (w.width - 2 * pad - gutter) / 2;
+  // Measured all in bold: the bold title makes the real line a little wider than regular text.
+  const items = STANDARD_CAUTIONS.map((c) => ({ ...c, height: w.heightOf(`${c.title}. ${c.text}`, 'bold', TYPE.small + 0.5, colWidth) + 4 }));
+  // Fill the left column to about half the total height, the rest on the right.
+  const total = items.reduce((sum, i) => sum + i.height, 0);
+  const left: typeof items = [];
+  let acc = 0;
+  for (const item of items) {
+    if (acc < total / 2 && left.length < items.length - 1) {
+      left.push(item);
+      acc += item.height;
+    }
+  }
+  const right = items.slice(left.length);
+  const colHeight = Math.max(acc, right.reduce((s, i) => s + i.height, 0));
+  const precedenceHeight = w.heightOf(PRECEDENCE_LINE, 'bold', TYPE.small + 0.5, w.width - 2 * pad);
+  const claimHeight = w.heightOf(NO_SAFETY_CLAIM, 'regular', TYPE.small, w.width - 2 * pad);
+  const boxHeight = pad + 16 + colHeight + 4 + precedenceHeight + 2 + claimHeight + pad;
+  w.ensureSpace(boxHeight + 10);
+  w.gap(6);
+  const top = w.y;
+
+  // Heading bar: a drawn warning sign and the heading, on a faint band.
+  w.fillRect(w.left, top, w.width, 20, TINT);
+  const tx = w.left + pad;
+  const ty = top + 4;
+  w.doc.save().moveTo(tx + 6, ty).lineTo(tx + 12, ty + 11).lineTo(tx, ty + 11).closePath().lineWidth(1).strokeColor(INK).stroke().restore();
+  w.place('!', tx + 4.4, ty + 2.2, 'bold', 7, { lineBreak: false });
+  w.place('STANDARD CAUTIONS', tx + 18, top + 5, 'bold', TYPE.heading, { characterSpacing: 0.6, lineBreak: false });
+  w.place('Read before every cut', w.right - pad - 110, top + 6.5, 'regular', TYPE.small, { width: 110, align: 'right', lineBreak: false }, MUTED);
+
+  const writeColumn = (list: typeof items, x: number): number => {
+    let y = top + 20 + 6;
+    for (const c of list) {
+      w.use('bold', TYPE.small + 0.5);
+      w.doc.text(`${c.title}. `, x, y, { width: colWidth, lineGap: TYPE.lineGap, continued: true });
+      w.use('regular', TYPE.small + 0.5);
+      w.doc.text(c.text, { width: colWidth, lineGap: TYPE.lineGap });
+      y = w.doc.y + 4;
+    }
+    return y;
+  };
+  // Written first; the box is drawn last to the height the columns really took.
+  const columnsEnd = Math.max(writeColumn(left, w.left + pad), writeColumn(right, w.left + pad + colWidth + gutter));
+  w.vrule(w.left + pad + colWidth + gutter / 2, top + 26, columnsEnd - 4, 0.5, RULE);
+
+  let y = columnsEnd + 2;
+  w.hrule(y, 0.5, RULE, w.left + pad, w.right - pad);
+  y += 4;
+  y += w.place(PRECEDENCE_LINE, w.left + pad, y, 'bold', TYPE.small + 0.5, { width: w.width - 2 * pad });
+  y += 2;
+  y += w.place(NO_SAFETY_CLAIM, w.left + pad, y, 'regular', TYPE.small, { width: w.width - 2 * pad }, MUTED);
+
+  const drawnHeight = y + pad - 2 - top;
+  w.strokeRect(w.left, top, w.width, drawnHeight, 1.5, INK);
+  w.y = top + drawnHeight + 4;
+}
+
+function signatures(w: SheetWriter, m: SheetModel): void {
+  const cols = [
+    { title: 'Signed by', width: 0.3 },
+    { title: 'Meaning', width: 0.14 },
+    { title: 'Date and time (UTC)', width: 0.24 },
+    { title: 'Content SHA-256 (first 16)', width: 0.32 },
+  ].map((c) => ({ ...c, width: c.width * w.width }));
+  const pad = 5;
+  let top = w.y;
+  w.fillRect(w.left, top, w.width, 15, TINT);
+  let x = w.left;
+  for (const c of cols) {
+    w.place(c.title.toUpperCase(), x + pad, top + 4, 'regular', 6.5, { characterSpacing: 0.5, lineBreak: false }, MUTED);
+    x += c.width;
+  }
+  w.hrule(top);
+  top += 15;
+  w.hrule(top);
+  if (m.signatures.length === 0) {
+    w.place('No signature recorded.', w.left + pad, top + 4, 'regular', TYPE.body);
+    top += 18;
+    w.hrule(top);
+  }
+  for (const s of m.signatures) {
+    const cells = [s.name, s.meaning, s.signedAt, s.hash];
+    const commentH = s.comment ? w.heightOf(`“${s.comment}”`, 'regular', TYPE.small, cols[0]!.width + cols[1]!.width - 2 * pad) : 0;
+    const height = 20 + commentH;
+    if (top + height > w.bottom) {
+      w.doc.addPage();
+      top = w.y;
+      w.hrule(top);
+    }
+    x = w.left;
+    cells.forEach((text, i) => {
+      w.place(text, x + pad, top + 5, i === 0 ? 'bold' : 'regular', TYPE.body, { width: cols[i]!.width - 2 * pad, lineBreak: false, ellipsis: true });
+      x += cols[i]!.width;
+    });
+    if (s.comment) w.place(`“${s.comment}”`, w.left + pad, top + 17, 'regular', TYPE.small, { width: cols[0]!.width + cols[1]!.width - 2 * pad }, MUTED);
+    top += height;
+    w.hrule(top);
+  }
+  w.y = top + 3;
+  w.paragraph(`Signatures bind the content with SHA-256 ${m.contentHash.slice(0, 16)}…; the full hash and the trail are in Kerfbook.`, 'regular', TYPE.small, MUTED);
+}
+
+export async function renderSheet(input: SheetRenderInput): Promise<Buffer> {
+  const { model: m } = input;
+  const w = new SheetWriter(input.paper, {
+    title: `${m.number} v${m.version} — ${m.title}`,
+    author: m.labName,
+    subject: `Bench sheet, check code ${m.checkCode}`,
+  });
+  w.y = w.doc.page.margins.top;
+  header(w, m, input.qrPng);
+  uncontrolledNotice(w, m);
+
+  let n = 0;
+  w.section(++n, 'Scope');
+  w.pairTable(m.scope);
+
+  w.section(++n, 'Machine, wheel and speeds');
+  w.table(m.parameters);
+
+  // Clamping and coolant beside the setup photo, kept together on one page.
+  const photoWidth = 170;
+  const gap = 12;
+  const rows = [...m.clamping, ...m.coolant];
+  const blockHeight = input.photo ? Math.max(w.tableHeight(rows, 130, w.width - photoWidth - gap), 170) : w.tableHeight(rows, 150);
+  w.section(++n, 'Clamping and coolant', blockHeight);
+  const top = w.y;
+  if (input.photo) {
+    w.table(rows, 130, w.width - photoWidth - gap);
+    const tableEnd = w.y;
+    const photoHeight = photoBlock(w, input.photo, w.right - photoWidth, top, photoWidth);
+    w.y = Math.max(tableEnd, top + photoHeight + 4);
+  } else {
+    w.table(rows);
+  }
+
+  // Steps stay together on one page when they fit on one (up to about half a page).
+  w.section(++n, 'Instructions', Math.min(markdownHeight(w, m.instructionsMd), 360));
+  writeMarkdown(w, m.instructionsMd, { emptyText: 'No instructions beyond the parameters above.' });
+
+  w.section(++n, 'Acceptance criteria for the cut face', 24);
+  writeMarkdown(w, m.acceptanceMd, { emptyText: 'None given.' });
+
+  w.section(++n, 'Cautions for this recipe', 24);
+  writeMarkdown(w, m.cautionsMd, { emptyText: 'None beyond the standard cautions below.' });
+
+  cautionsBox(w);
+
+  w.section(++n, 'Signatures', 60);
+  signatures(w, m);
+  if (m.version > 1 && m.changeReason.trim()) {
+    w.gap(2);
+    w.paragraph(`Why this version: ${m.changeReason.trim()}`, 'regular', TYPE.small, INK);
+  }
+
+  w.footers(input.footer);
+  return w.toBuffer();
+}

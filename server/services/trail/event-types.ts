@@ -1,0 +1,62 @@
+/**
+ * What the trail records: every event type, as stored in each row's event_type. The stored
+ * strings are part of every chained row's hash and of the CSV an auditor keeps: never
+ * change one, add a new one.
+ */
+export const TRAIL_EVENTS = {
+  userCreated: 'user.created',
+  userRolesChanged: 'user.roles_changed',
+  userDetailsChanged: 'user.details_changed',
+  userDeactivated: 'user.deactivated',
+  userReactivated: 'user.reactivated',
+  userTemporaryPasswordSet: 'user.temporary_password_set',
+  ownPasswordChanged: 'user.password_changed',
+  preferencesChanged: 'user.preferences_changed',
+  userInvited: 'user.invited',
+  invitationResent: 'user.invitation_resent',
+  userMachinesChanged: 'user.machines_changed',
+  passwordSetByLink: 'user.password_set_by_link',
+  passwordResetRequested: 'user.password_reset_requested',
+  notificationPreferencesChanged: 'user.notification_preferences_changed',
+  signedIn: 'session.signed_in',
+  signInFailed: 'session.sign_in_failed',
+  signedOut: 'session.signed_out',
+  materialCreated: 'material.created',
+  materialUpdated: 'material.updated',
+  materialArchived: 'material.archived',
+  materialUnarchived: 'material.unarchived',
+  materialDeleted: 'material.deleted',
+  wheelCreated: 'wheel.created',
+  wheelUpdated: 'wheel.updated',
+  wheelArchived: 'wheel.archived',
+  wheelUnarchived: 'wheel.unarchived',
+  wheelDeleted: 'wheel.deleted',
+  machineCreated: 'machine.created',
+  machineUpdated: 'machine.updated',
+  machineArchived: 'machine.archived',
+  machineUnarchived: 'machine.unarchived',
+  machineDeleted: 'machine.deleted',
+  selectionRowCreated: 'selection_row.created',
+  selectionRowUpdated: 'selection_row.updated',
+  selectionRowDeleted: 'selection_row.deleted',
+  recipeCreated: 'recipe.created',
+  draftSaved: 'recipe.draft_saved',
+  attachmentAdded: 'attachment.added',
+  attachmentDeleted: 'attachment.deleted',
+  versionSubmitted: 'recipe.version_submitted',
+  versionReturned: 'recipe.version_returned',
+  versionApproved: 'recipe.version_approved',
+  versionEffective: 'recipe.version_effective',
+  versionSuperseded: 'recipe.version_superseded',
+  versionWithdrawn: 'recipe.version_withdrawn',
+  versionCreated: 'recipe.version_created',
+  reviewCommentAdded: 'recipe.review_comment_added',
+  sheetPrinted: 'sheet.printed',
+  cutRecorded: 'cut.recorded',
+  cutFlagCleared: 'cut.flag_cleared',
+  versionAcknowledged: 'recipe.version_acknowledged',
+} as const;
+
+export type TrailEventType = (typeof TRAIL_EVENTS)[keyof typeof TRAIL_EVENTS];
+
+export type TrailEntityType = 'user' | 'material' | 'wheel' | 'machine' | 'selection_row' | 'recipe' | 'recipe_version' | 'attachment';
