@@ -269,12 +269,19 @@ describe('Backup and restore (npm run backup / restore)', function () {
     const rename = fs.readdirSync(MIGRATIONS_DIR).find((f) => f.endsWith('_rename_audit_tables_to_trail.ts'))!;
     const hashes = (await db('trail_events').orderBy('id').pluck('hash')) as string[];
     await db.migrate.down({ name: rename });
-    const old = await makeBackup(testDatabaseUrl(), { dir: work });
+    let old: Awaited<ReturnType<typeof makeBackup>>;
+    let result: Awaited<ReturnType<typeof restoreAlone>>;
+    try {
+      old = await makeBackup(testDatabaseUrl(), { dir: work });
+      result = await restoreAlone(old.file);
+    } finally {
+      // Whatever happened, the test database ends up under today's names again.
+      await db.migrate.latest();
+    }
     expect(old.manifest.rowCounts).to.include.keys('audit_events', 'audit_chain_head');
     expect(old.manifest.trail!.events).to.equal(hashes.length);
     expect(old.manifest.triggers).to.include('audit_events_refuse_update');
 
-    const result = await restoreAlone(old.file);
     expect(result.migrationsRun).to.deep.equal([rename]);
     expect(result.verification).to.deep.equal({ ok: true, checked: hashes.length, firstBroken: null });
     expect(await db('trail_events').orderBy('id').pluck('hash')).to.deep.equal(hashes);
