@@ -96,8 +96,10 @@ export function sectionChordMm(section: CutSection, x: number): number {
   }
 }
 
+/** Passes as a count to loop over: anything but a finite number of at least 1 (unset, half-typed text, ∞) counts as one. */
 function passCount(setup: Pick<CutSetup, 'passes'>): number {
-  return setup.passes !== null && setup.passes >= 1 ? Math.floor(setup.passes) : 1;
+  const p: unknown = setup.passes;
+  return typeof p === 'number' && Number.isFinite(p) && p >= 1 ? Math.floor(p) : 1;
 }
 
 /** Whether the turning-specimen model applies (a round part). */

@@ -1,6 +1,6 @@
 /** Example tests for the bugs the property specs in this folder found (each fixed in shared/). */
 import { expect } from 'chai';
-import { contactProfile, PROFILE_SAMPLES, PROFILE_SAMPLES_MAX } from '../../../../shared/contact-length';
+import { contactProfile, cutTravelMm, PROFILE_SAMPLES, PROFILE_SAMPLES_MAX } from '../../../../shared/contact-length';
 import { conversionApplies, convertHardness } from '../../../../shared/hardness';
 import { runChecks } from '../../../../shared/recipe-checks';
 import { computeRecipe } from '../../../../shared/recipe-computations';
@@ -32,6 +32,15 @@ describe('shared/ regressions found by the property specs', () => {
     expect(contactProfile(bar, setup, 1e15)).to.have.length(PROFILE_SAMPLES_MAX);
     expect(contactProfile(bar, setup, NaN)).to.have.length(PROFILE_SAMPLES);
     expect(contactProfile(bar, setup, 20001)).to.have.length(20001);
+  });
+
+  it('a pass count that is not a number counts as one pass (the text "1e999" made a traverse loop forever and hung the property run)', () => {
+    const bar = { shape: 'round-bar' as const, sizeMm: 40, widthMm: null, wallMm: null };
+    const setup = { motion: 'stepped-depth' as const, feedMmS: 0.5, entryFeedMmS: null, entryLengthMm: null, wheelThicknessMm: 1.5, wheelDiameterMm: 250 };
+    // Stepped depth with one step travels the depth once: 40 mm (no loop, so today's code answers instead of hanging).
+    for (const passes of ['1e999', '3', Infinity, NaN]) {
+      expect(cutTravelMm(bar, { ...setup, passes: passes as unknown as number })).to.equal(40);
+    }
   });
 
   it('computeRecipe gives no time for 1e9 traverse passes (it summed them one by one: minutes of frozen editor)', () => {
