@@ -1,6 +1,6 @@
 /**
  * `npm test`: a throw-away MariaDB (unless TEST_DATABASE_URL names a database that may be
- * wiped), then every suite — typecheck, shared + server tests (mocha), Angular component
+ * wiped), then every suite — typecheck, lint and format, shared + server tests (mocha), Angular component
  * tests (ng test), end-to-end tests in Debian's chromium against the built app and the
  * real server. Ends with one line `N passed, N failed` that sums every suite.
  */
@@ -75,6 +75,12 @@ async function main(): Promise<number> {
   try {
     const typecheck = await run(path.join(BIN, 'tsc'), ['-p', 'server/tsconfig.json', '--noEmit']);
     record('typecheck (server, shared, tests)', { passed: typecheck.code === 0 ? 1 : 0, failed: 0, skipped: 0 }, typecheck.code);
+
+    // Lint and format are checks like any other: a rule broken anywhere fails the run.
+    const eslint = await run(path.join(BIN, 'eslint'), ['-c', '.config/eslint.config.js', '.']);
+    record('lint (eslint)', { passed: eslint.code === 0 ? 1 : 0, failed: 0, skipped: 0 }, eslint.code);
+    const prettier = await run(path.join(BIN, 'prettier'), ['--check', '.']);
+    record('format (prettier --check)', { passed: prettier.code === 0 ? 1 : 0, failed: 0, skipped: 0 }, prettier.code);
 
     const serverEnv: NodeJS.ProcessEnv = { DATABASE_URL: testUrl, NODE_ENV: 'test' };
     if (local) {
