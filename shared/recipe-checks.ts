@@ -51,7 +51,6 @@ const SOURCE = {
 } as const;
 
 const n1 = (v: number) => v.toFixed(1);
-const n2 = (v: number) => v.toFixed(2);
 /** A vocabulary label in lower case; an id the vocabulary does not know (older stored content) reads as itself. */
 const lowerLabel = (labels: Readonly<Record<string, string>>, id: unknown): string => (Object.hasOwn(labels, String(id)) ? labels[String(id)]! : String(id)).toLowerCase();
 

@@ -1,7 +1,7 @@
 /** Recipe DTOs of the API. */
 import type { CheckResult } from './recipe-checks';
 import type { RecipeContent } from './schemas/recipe';
-import type { MaterialGroup, RecipeStatus, Shape } from './vocabulary';
+import type { CutOutcome, MaterialGroup, RecipeStatus, Shape } from './vocabulary';
 
 /** One row of the library table. */
 export interface RecipeSummary {
@@ -229,7 +229,7 @@ export interface CutRecordDto {
   specimenId: string;
   partRef: string;
   quantity: number;
-  outcome: import('./vocabulary').CutOutcome;
+  outcome: CutOutcome;
   notes: string;
   operatorId: number;
   operatorName: string;
@@ -242,6 +242,6 @@ export interface CutRecordDto {
 /** GET /api/cuts?specimenId= — a cut with the version's parameters, for traceability. */
 export interface CutTrace {
   cut: CutRecordDto;
-  versionContent: import('./schemas/recipe').RecipeContent;
+  versionContent: RecipeContent;
   signatures: SignatureDto[];
 }

@@ -1,5 +1,6 @@
 /** Stock records as the API returns them: the body that was saved plus id and archive state. */
 import type { MachineBody, MaterialBody, SelectionRowBody, WheelBody } from './schemas/stock';
+import type { MaterialGroup } from './vocabulary';
 
 interface Stored {
   id: number;
@@ -17,5 +18,5 @@ export type SelectionRow = SelectionRowBody & { id: number };
 /** Lab settings the computations and checks need. */
 export interface LabLimits {
   /** Feed ceilings per material group, mm/s: above it the feed check warns. */
-  feedCeilingsMmS: Partial<Record<import('./vocabulary').MaterialGroup, number>>;
+  feedCeilingsMmS: Partial<Record<MaterialGroup, number>>;
 }

@@ -8,7 +8,7 @@ import fs from 'node:fs';
 import { alive, start, type LocalMariadb } from '../../server/tools/local-mariadb';
 import { startMailCatcher, type CaughtMail, type MailCatcher } from '../../server/tools/mail-catcher';
 import type { SoakApp } from './app';
-import { SoakClient } from './client';
+import { type SoakClient } from './client';
 
 export interface Probe {
   path: string;

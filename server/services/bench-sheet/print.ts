@@ -8,7 +8,6 @@
 import type { Knex } from 'knex';
 import sharp from 'sharp';
 import type { UnitPreference } from '../../../shared/api-types';
-import type { RecipeVersionDto } from '../../../shared/recipe-types';
 import { AppError } from '../../app-error';
 import { listAttachmentMetaRows, readAttachmentBytes } from '../../data/attachments';
 import { findLabSettings } from '../../data/lab-settings';

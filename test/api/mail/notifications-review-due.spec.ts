@@ -11,7 +11,7 @@ import { apiTestContext } from '../support/hooks';
 import { createPerson } from '../support/people';
 import { createStockSet, type StockSet } from '../support/stock';
 import { countRows } from '../support/test-database';
-import { act, approved, createDraft, ok, sessionFor, type Session } from '../workflow/workflow-support';
+import { act, createDraft, ok, sessionFor, type Session } from '../workflow/workflow-support';
 import { BASE_URL, addressOf, expectMail, mailsOf, optOut, recipientsOf } from './notifications-support';
 
 const noon = (day: string) => new Date(`${day}T12:00:00Z`);

@@ -8,7 +8,7 @@ import type { MachineRecord, MaterialRecord } from '../../../shared/stock-types'
 import { createStock } from '../../../server/services/stock/stock';
 import { MACHINES, MATERIALS } from '../../../server/services/stock/records';
 import { apiTestContext } from '../support/hooks';
-import { createStockSet, machineInput, materialInput, recipeInput, type StockSet } from '../support/stock';
+import { createStockSet, machineInput, materialInput, type recipeInput, type StockSet } from '../support/stock';
 import { act, approved, createDraft, ok, sessionFor, type Session } from '../workflow/workflow-support';
 
 const SETUP = { userId: null, name: 'test set-up', clientAddress: '' };

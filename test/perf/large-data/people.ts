@@ -4,7 +4,7 @@
  * also approving. All share one password, hashed once (scrypt is slow on purpose).
  */
 import type { Role } from '../../../shared/roles';
-import { Random } from './random';
+import { type Random } from './random';
 
 export const LARGE_DATA_PASSWORD = 'large-data-2026';
 
