@@ -159,7 +159,7 @@ export interface RecipeComparison {
 }
 
 /** One row of the trail. */
-export interface AuditEventDto {
+export interface TrailEventDto {
   id: number;
   occurredAt: string;
   actorId: number | null;
@@ -175,8 +175,8 @@ export interface AuditEventDto {
   hash: string;
 }
 
-export interface AuditPage {
-  items: AuditEventDto[];
+export interface TrailPage {
+  items: TrailEventDto[];
   /** Pass as `before` for the next (older) page; null on the last page. */
   nextBefore: number | null;
 }

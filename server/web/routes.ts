@@ -13,7 +13,7 @@ import { createRecipeBody, recipeListQuery, saveDraftBody } from '../../shared/s
 import { changePasswordBody, preferencesBody, signInBody } from '../../shared/schemas/session';
 import { machineBody, materialBody, selectionRowBody, stockListQuery, wheelBody } from '../../shared/schemas/stock';
 import { createUserBody, inviteBody, temporaryPasswordBody, updateUserBody, userListQuery } from '../../shared/schemas/users';
-import { approveBody, auditQuery, commentBody, compareQuery, newVersionBody, returnBody, submitBody, withdrawBody } from '../../shared/schemas/workflow';
+import { approveBody, trailQuery, commentBody, compareQuery, newVersionBody, returnBody, submitBody, withdrawBody } from '../../shared/schemas/workflow';
 import * as acknowledgements from './handlers/acknowledgements';
 import * as attachments from './handlers/attachments';
 import * as benchSheet from './handlers/bench-sheet';
@@ -139,8 +139,8 @@ const table = [
   { method: 'get', path: '/api/attachments/:id/thumbnail', summary: 'The thumbnail of a stored photo (ETag; answers 304 to If-None-Match).', access: 'signedIn', params: idParams, answers: ['200 image: the thumbnail', '304'], handler: attachments.thumbnail },
 
   // The trail (auditors and admins read it; nobody writes it through the API).
-  { method: 'get', path: '/api/trail', summary: 'The trail, newest first, filtered by recipe, person, type and days; a page at a time by event id.', access: ['auditor', 'admin'], query: auditQuery, answers: '200 json: AuditPage', handler: trail.list },
-  { method: 'get', path: '/api/trail.csv', summary: 'The filtered trail as a CSV file.', access: ['auditor', 'admin'], query: auditQuery, answers: '200 csv: one line per event', handler: trail.csv },
+  { method: 'get', path: '/api/trail', summary: 'The trail, newest first, filtered by recipe, person, type and days; a page at a time by event id.', access: ['auditor', 'admin'], query: trailQuery, answers: '200 json: TrailPage', handler: trail.list },
+  { method: 'get', path: '/api/trail.csv', summary: 'The filtered trail as a CSV file.', access: ['auditor', 'admin'], query: trailQuery, answers: '200 csv: one line per event', handler: trail.csv },
   { method: 'get', path: '/api/trail/verify', summary: 'Recompute the trail\'s hash chain and name the first broken link, if any.', access: ['auditor', 'admin'], answers: '200 json: ChainVerification', handler: trail.verify },
   { method: 'get', path: '/api/dev/outbox', summary: 'The mail outbox, newest first (development only: 404 in production).', access: ['admin'], answers: '200 json: { items: OutboxEntryDto[] }', handler: devOutbox.list },
 

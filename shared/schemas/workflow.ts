@@ -71,8 +71,8 @@ export const compareQuery = z.strictObject({
 });
 export type CompareQuery = z.infer<typeof compareQuery>;
 
-/** GET /api/audit-events and /api/audit-events.csv — keyset pagination by id, newest first. */
-export const auditQuery = z.strictObject({
+/** GET /api/trail and /api/trail.csv — keyset pagination by id, newest first. */
+export const trailQuery = z.strictObject({
   recipeId: z.coerce.number().int().positive().optional(),
   userId: z.coerce.number().int().positive().optional(),
   type: z.string().trim().max(60).optional(),
@@ -83,4 +83,4 @@ export const auditQuery = z.strictObject({
   before: z.coerce.number().int().positive().optional(),
   limit: z.coerce.number().int().min(1).max(200).default(50),
 });
-export type AuditQuery = z.infer<typeof auditQuery>;
+export type TrailQuery = z.infer<typeof trailQuery>;

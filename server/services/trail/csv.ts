@@ -1,7 +1,7 @@
 /** The trail as a CSV download: every row the filters select, newest first. */
 import type { Knex } from 'knex';
-import type { AuditEventDto } from '../../../shared/recipe-types';
-import type { AuditQuery } from '../../../shared/schemas/workflow';
+import type { TrailEventDto } from '../../../shared/recipe-types';
+import type { TrailQuery } from '../../../shared/schemas/workflow';
 import { utcDay } from '../../../shared/calendar-dates';
 import { listTrailEventRows } from '../../data/trail-events';
 import { CSV_BOM, csvLine } from '../csv';
@@ -12,7 +12,7 @@ import { toTrailEventDto } from './stored-row';
 
 const CSV_HEADER = ['id', 'occurred_at_utc', 'actor_id', 'actor_name', 'type', 'entity_type', 'entity_id', 'before', 'after', 'client_address', 'prev_hash', 'hash'];
 
-function csvRow(e: AuditEventDto): string {
+function csvRow(e: TrailEventDto): string {
   const text = (v: unknown) => (v === null || v === undefined ? null : JSON.stringify(v));
   return csvLine([e.id, e.occurredAt, e.actorId, e.actorName, e.type, e.entityType, e.entityId, text(e.before), text(e.after), e.clientAddress, e.prevHash, e.hash]);
 }
@@ -30,7 +30,7 @@ export function csvFileName(now = new Date()): string {
  * before this resolves, so a bad query or a database outage still gets a proper error
  * answer instead of a cut-off file; after that, rows are read a batch at a time.
  */
-export async function openTrailCsv(db: Knex, query: AuditQuery, batchSize = CSV_BATCH): Promise<AsyncIterable<string>> {
+export async function openTrailCsv(db: Knex, query: TrailQuery, batchSize = CSV_BATCH): Promise<AsyncIterable<string>> {
   const { beforeId: _ignored, ...filter } = filterOf(query);
   const first = await listTrailEventRows(db, filter, batchSize);
   async function* chunks(): AsyncGenerator<string> {

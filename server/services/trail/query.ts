@@ -1,7 +1,7 @@
 /** Reading the trail: the filtered list, newest first, with keyset pagination. */
 import type { Knex } from 'knex';
-import type { AuditPage } from '../../../shared/recipe-types';
-import type { AuditQuery } from '../../../shared/schemas/workflow';
+import type { TrailPage } from '../../../shared/recipe-types';
+import type { TrailQuery } from '../../../shared/schemas/workflow';
 import { addDays, isCalendarDay } from '../../../shared/calendar-dates';
 import { AppError } from '../../app-error';
 import { type TrailFilter, listTrailEventRows } from '../../data/trail-events';
@@ -17,7 +17,7 @@ function calendarDay(value: string, path: string): string {
 const startOf = (day: string): Date => new Date(`${day}T00:00:00.000Z`);
 
 /** The query's filters as bounds: `from` and `to` are whole UTC days, both included. */
-export function filterOf(query: AuditQuery): TrailFilter {
+export function filterOf(query: TrailQuery): TrailFilter {
   const from = query.from === undefined ? undefined : calendarDay(query.from, 'from');
   const to = query.to === undefined ? undefined : calendarDay(query.to, 'to');
   if (from && to && from > to) throw AppError.validation([{ path: 'to', message: 'The last day must not be before the first.' }]);
@@ -32,7 +32,7 @@ export function filterOf(query: AuditQuery): TrailFilter {
 }
 
 /** A page, newest first; `nextBefore` is set only when an older row exists. */
-export async function listTrail(db: Knex, query: AuditQuery): Promise<AuditPage> {
+export async function listTrail(db: Knex, query: TrailQuery): Promise<TrailPage> {
   const rows = await listTrailEventRows(db, filterOf(query), query.limit + 1);
   const items = rows.slice(0, query.limit).map(toTrailEventDto);
   const more = rows.length > query.limit;

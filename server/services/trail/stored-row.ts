@@ -1,5 +1,5 @@
 /** A trail row as read back from the database: the fields its hash covers, and its DTO. */
-import type { AuditEventDto } from '../../../shared/recipe-types';
+import type { TrailEventDto } from '../../../shared/recipe-types';
 import type { StoredTrailEventRow } from '../../data/trail-events';
 import type { ChainedFields } from './hash';
 
@@ -23,7 +23,7 @@ export function chainedFields(row: Omit<StoredTrailEventRow, 'hash'> & { hash?: 
   };
 }
 
-export function toTrailEventDto(row: StoredTrailEventRow): AuditEventDto {
+export function toTrailEventDto(row: StoredTrailEventRow): TrailEventDto {
   return {
     id: Number(row.id),
     occurredAt: row.occurred_at.toISOString(),

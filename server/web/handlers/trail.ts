@@ -1,16 +1,16 @@
 import { Readable } from 'node:stream';
 import { pipeline } from 'node:stream/promises';
-import type { auditQuery } from '../../../shared/schemas/workflow';
+import type { trailQuery } from '../../../shared/schemas/workflow';
 import { csvFileName, openTrailCsv } from '../../services/trail/csv';
 import { listTrail } from '../../services/trail/query';
 import { verifyChain } from '../../services/trail/verify';
 import type { RouteHandler } from '../route-definition';
 
-export const list: RouteHandler<{ query: typeof auditQuery }> = async (_req, res, { db }, { query }) => {
+export const list: RouteHandler<{ query: typeof trailQuery }> = async (_req, res, { db }, { query }) => {
   res.json(await listTrail(db, query));
 };
 
-export const csv: RouteHandler<{ query: typeof auditQuery }> = async (req, res, { db }, { query }) => {
+export const csv: RouteHandler<{ query: typeof trailQuery }> = async (req, res, { db }, { query }) => {
   const chunks = await openTrailCsv(db, query);
   res.setHeader('Content-Type', 'text/csv; charset=utf-8');
   res.setHeader('Content-Disposition', `attachment; filename="${csvFileName()}"`);

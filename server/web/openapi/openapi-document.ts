@@ -186,7 +186,7 @@ function operation(route: RouteDefinition): JsonSchema {
   };
 }
 
-/** The first segment after /api, without a file extension: `/api/audit-events.csv` → `audit-events`. */
+/** The first segment after /api, without a file extension: `/api/trail.csv` → `trail`. */
 function tagOf(routePath: string): string {
   return (routePath.split('/')[2] ?? 'api').replace(/\.\w+$/, '');
 }

@@ -4,12 +4,12 @@
  */
 import { expect } from 'chai';
 import sharp from 'sharp';
-import type { AuditEventDto, AuditPage } from '../../../shared/recipe-types';
+import type { TrailEventDto, TrailPage } from '../../../shared/recipe-types';
 import { addAttachment } from '../../../server/services/recipes/attachments';
 import { appendTrailEvent } from '../../../server/services/trail/append';
 import { createRecipe, saveDraft } from '../../../server/services/recipes/recipes';
 import { openTrailCsv } from '../../../server/services/trail/csv';
-import { auditQuery } from '../../../shared/schemas/workflow';
+import { trailQuery } from '../../../shared/schemas/workflow';
 import { apiTestContext } from '../support/hooks';
 import { createPerson, type TestPerson } from '../support/people';
 import { createStockSet, recipeInput } from '../support/stock';
@@ -54,15 +54,15 @@ describe('Trail list and CSV export', function () {
   let recipeA: number;
   let recipeB: number;
 
-  const list = async (query: Record<string, string | number>): Promise<AuditPage> => {
+  const list = async (query: Record<string, string | number>): Promise<TrailPage> => {
     const res = await auditor.agent.get('/api/trail').query(query);
     expect(res.status, JSON.stringify(res.body)).to.equal(200);
-    return res.body as AuditPage;
+    return res.body as TrailPage;
   };
 
   /** Every page, following nextBefore. */
-  const everything = async (query: Record<string, string | number>): Promise<AuditEventDto[]> => {
-    const items: AuditEventDto[] = [];
+  const everything = async (query: Record<string, string | number>): Promise<TrailEventDto[]> => {
+    const items: TrailEventDto[] = [];
     let before: number | null = null;
     for (let guard = 0; guard < 100; guard++) {
       const page = await list(before === null ? query : { ...query, before });
@@ -234,7 +234,7 @@ describe('Trail list and CSV export', function () {
       const all = await everything({});
       for (const size of [1, 2, 3, all.length, all.length + 1]) {
         let text = '';
-        for await (const chunk of await openTrailCsv(ctx.db, auditQuery.parse({}), size)) text += chunk;
+        for await (const chunk of await openTrailCsv(ctx.db, trailQuery.parse({}), size)) text += chunk;
         const ids = parseCsv(text.replace(/^\uFEFF/, '')).slice(1).map((r) => Number(r[0]));
         expect(ids, `batch of ${size}`).to.deep.equal(all.map((e) => e.id));
       }
