@@ -17,7 +17,7 @@ import type { AuditEventDto, AuditPage, ChainVerification } from '../../../share
 import { hasAccess } from '../../../shared/roles';
 import { Session } from '../core/session/session';
 import { PeopleApi } from '../people/people-api';
-import { RecipeApi } from '../recipe/recipe-api';
+import { RecipeApi } from '../recipes/recipe-page/recipe-api';
 import { type ChangeSummary, fullJson, summariseChange } from './event-change';
 import { TrailApi } from './trail-api';
 import { TRAIL_PAGE_SIZE, type TrailParams, readTrailParams, recipeIdOf, toAuditFilters, toTrailQueryParams } from './trail-params';

@@ -1,0 +1,176 @@
+import { Clipboard } from '@angular/cdk/clipboard';
+import { DatePipe, DOCUMENT } from '@angular/common';
+import { ChangeDetectionStrategy, Component, computed, inject, input, signal } from '@angular/core';
+import { takeUntilDestroyed, toObservable } from '@angular/core/rxjs-interop';
+import { MatButtonModule } from '@angular/material/button';
+import { MatButtonToggleModule } from '@angular/material/button-toggle';
+import { MatFormFieldModule } from '@angular/material/form-field';
+import { MatIconModule } from '@angular/material/icon';
+import { MatProgressBarModule } from '@angular/material/progress-bar';
+import { MatSelectModule } from '@angular/material/select';
+import { Router, RouterLink } from '@angular/router';
+import { catchError, distinctUntilChanged, map, of, switchMap } from 'rxjs';
+import type { RecipeComparison, RecipeVersionDto } from '../../../../shared/recipe-types';
+import { isApiError } from '../../core/http/api-error';
+import { callerHandles } from '../../core/http/caller-handles';
+import { Notifier } from '../../core/notifier/notifier';
+import { RecipeApi } from '../recipe-page/recipe-api';
+import { RECIPE_STATUS_INFO } from '../recipe-page/recipe-status-chip';
+import { CompareApi } from './compare-api';
+import { type ComparisonLayout, ComparisonView } from './comparison-view';
+
+/** The comparison as the URL names it; `null` until both versions are known. */
+interface Pair {
+  from: number;
+  to: number;
+}
+
+/**
+ * Compare: any two versions of one recipe. The pair and the layout live in the URL
+ * (`?from=1&to=2&layout=inline`), so a copied link opens the same comparison. Without them
+ * the newest version is compared with the one before it.
+ */
+@Component({
+  selector: 'kb-compare-page',
+  imports: [
+    ComparisonView,
+    DatePipe,
+    MatButtonModule,
+    MatButtonToggleModule,
+    MatFormFieldModule,
+    MatIconModule,
+    MatProgressBarModule,
+    MatSelectModule,
+    RouterLink,
+  ],
+  templateUrl: './compare-page.html',
+  styleUrl: './compare-page.scss',
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
+export class ComparePage {
+  private readonly recipes = inject(RecipeApi);
+  private readonly api = inject(CompareApi);
+  private readonly router = inject(Router);
+  private readonly clipboard = inject(Clipboard);
+  private readonly notifier = inject(Notifier);
+  private readonly document = inject(DOCUMENT);
+
+  /** Route parameter `:id`. */
+  readonly id = input.required<string>();
+  /** Query parameters `?from=&to=&layout=`. */
+  readonly from = input<string>();
+  readonly to = input<string>();
+  readonly layout = input<string>();
+
+  protected readonly state = signal<'loading' | 'missing' | 'failed' | 'ready'>('loading');
+  /** Newest first, as the API lists them. */
+  protected readonly versions = signal<RecipeVersionDto[]>([]);
+  protected readonly comparison = signal<RecipeComparison | null>(null);
+  protected readonly comparing = signal(false);
+  protected readonly compareFailed = signal(false);
+
+  protected readonly recipeId = computed(() => Number(this.id()));
+  protected readonly newest = computed(() => this.versions()[0] ?? null);
+  protected readonly shownLayout = computed<ComparisonLayout>(() => (this.layout() === 'inline' ? 'inline' : 'side-by-side'));
+
+  /** The URL's versions when the recipe has them; otherwise the newest and the one before it. */
+  protected readonly pair = computed<Pair | null>(() => {
+    const list = this.versions();
+    if (!list.length) return null;
+    const known = (value: string | undefined) => list.find((v) => v.version === Number(value))?.version;
+    const to = known(this.to()) ?? list[0].version;
+    const older = list.find((v) => v.version < to)?.version;
+    const from = known(this.from()) ?? older ?? to;
+    return { from, to };
+  });
+  protected readonly sameVersion = computed(() => {
+    const pair = this.pair();
+    return pair !== null && pair.from === pair.to;
+  });
+
+  protected readonly statusLabel = (status: RecipeVersionDto['status']) => RECIPE_STATUS_INFO[status].label;
+
+  constructor() {
+    toObservable(this.recipeId)
+      .pipe(
+        switchMap((id) => {
+          this.state.set('loading');
+          // A recipe that does not exist gets its own message on this page, not a snack bar.
+          return this.recipes.versions(id, callerHandles(404)).pipe(
+            map((versions) => ({ versions, state: versions.length ? ('ready' as const) : ('missing' as const) })),
+            catchError((e: unknown) => of({ versions: [], state: isApiError(e) && e.status === 404 ? ('missing' as const) : ('failed' as const) })),
+          );
+        }),
+        takeUntilDestroyed(),
+      )
+      .subscribe(({ versions, state }) => {
+        this.versions.set(versions);
+        this.state.set(state);
+      });
+
+    toObservable(computed(() => ({ id: this.recipeId(), pair: this.pair() })))
+      .pipe(
+        distinctUntilChanged((a, b) => a.id === b.id && a.pair?.from === b.pair?.from && a.pair?.to === b.pair?.to),
+        switchMap(({ id, pair }) => {
+          this.comparison.set(null);
+          this.compareFailed.set(false);
+          if (!pair || pair.from === pair.to) return of(null);
+          this.comparing.set(true);
+          // The error interceptor has already told the user what went wrong.
+          return this.api.compare(id, pair).pipe(
+            catchError(() => {
+              this.compareFailed.set(true);
+              return of(null);
+            }),
+          );
+        }),
+        takeUntilDestroyed(),
+      )
+      .subscribe((comparison) => {
+        this.comparing.set(false);
+        this.comparison.set(comparison);
+      });
+  }
+
+  protected pickFrom(version: number): void {
+    this.show({ from: version }, false);
+  }
+
+  protected pickTo(version: number): void {
+    this.show({ to: version }, false);
+  }
+
+  protected swap(): void {
+    const pair = this.pair();
+    if (pair) this.show({ from: pair.to, to: pair.from }, false);
+  }
+
+  protected pickLayout(layout: ComparisonLayout): void {
+    this.show({ layout }, true);
+  }
+
+  protected copyLink(): void {
+    const link = this.document.location.origin + this.router.serializeUrl(this.urlTree({}));
+    if (this.clipboard.copy(link)) {
+      void this.notifier.show('Link to this comparison copied.', 'OK', 4000);
+    } else {
+      void this.notifier.show(`The link could not be copied. Copy it from here: ${link}`, 'OK', 15000);
+    }
+  }
+
+  /** Every change writes the whole state, so the address bar always holds a complete link. */
+  private show(change: Partial<Pair & { layout: ComparisonLayout }>, replaceUrl: boolean): void {
+    void this.router.navigateByUrl(this.urlTree(change), { replaceUrl });
+  }
+
+  private urlTree(change: Partial<Pair & { layout: ComparisonLayout }>) {
+    const pair = this.pair();
+    return this.router.createUrlTree(['/recipes', this.recipeId(), 'compare'], {
+      queryParams: {
+        from: change.from ?? pair?.from,
+        to: change.to ?? pair?.to,
+        layout: change.layout ?? this.shownLayout(),
+      },
+    });
+  }
+}
