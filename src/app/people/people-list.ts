@@ -21,9 +21,9 @@ import { ROLES, ROLE_INFO, type Role } from '../../../shared/roles';
 import { USER_SORT_FIELDS, type UserListQuery } from '../../../shared/schemas/users';
 import { Notifier } from '../core/notifier/notifier';
 import { Session } from '../core/session/session';
-import { StockApi } from '../stock/stock-api';
+import { StockApi } from '../core/api/stock-api';
 import { ConfirmDialog, type ConfirmDialogData } from '../ui/confirm-dialog';
-import { PeopleApi } from './people-api';
+import { PeopleApi } from '../core/api/people-api';
 import { PersonFormDialog, type PersonFormDialogData } from './person-form-dialog';
 import { TemporaryPasswordDialog, type TemporaryPasswordDialogData } from './temporary-password-dialog';
 

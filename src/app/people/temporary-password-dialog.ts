@@ -13,7 +13,7 @@ import { applyServerErrors } from '../core/forms/server-errors';
 import { zodValidator } from '../core/forms/zod-validator';
 import { isApiError } from '../core/http/api-error';
 import { callerHandles } from '../core/http/caller-handles';
-import { PeopleApi } from './people-api';
+import { PeopleApi } from '../core/api/people-api';
 import { suggestTemporaryPassword } from './temporary-password';
 
 export interface TemporaryPasswordDialogData {

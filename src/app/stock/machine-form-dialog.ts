@@ -22,7 +22,7 @@ import {
 import { controlMessage } from '../core/forms/control-message';
 import { zodValidator } from '../core/forms/zod-validator';
 import { saveStockForm } from './save-stock-form';
-import { StockApi } from './stock-api';
+import { StockApi } from '../core/api/stock-api';
 
 export interface MachineFormDialogData {
   /** The machine to edit; absent to add one. */

@@ -13,7 +13,7 @@ import { HARDNESS_SCALES, type HardnessScale, MATERIAL_GROUPS, MATERIAL_GROUP_LA
 import { controlMessage } from '../core/forms/control-message';
 import { zodValidator } from '../core/forms/zod-validator';
 import { saveStockForm } from './save-stock-form';
-import { StockApi } from './stock-api';
+import { StockApi } from '../core/api/stock-api';
 
 export interface MaterialFormDialogData {
   /** The material to edit; absent to add one. */

@@ -5,8 +5,8 @@ import type { z } from 'zod';
 import { applyServerErrors } from '../core/forms/server-errors';
 import { isApiError } from '../core/http/api-error';
 import { callerHandles } from '../core/http/caller-handles';
-import type { StockResource } from './stock-api';
-import { checkWholeBody } from './whole-body-check';
+import type { StockResource } from '../core/api/stock-api';
+import { checkWholeBody } from '../core/forms/whole-body-check';
 
 export interface StockFormSave<S extends z.ZodType, TRecord> {
   form: FormGroup;

@@ -16,8 +16,8 @@ import { applyServerErrors } from '../core/forms/server-errors';
 import { zodValidator } from '../core/forms/zod-validator';
 import { isApiError } from '../core/http/api-error';
 import { callerHandles } from '../core/http/caller-handles';
-import { StockApi } from './stock-api';
-import { checkWholeBody } from './whole-body-check';
+import { StockApi } from '../core/api/stock-api';
+import { checkWholeBody } from '../core/forms/whole-body-check';
 
 export interface SelectionRowDialogData {
   /** The row to edit; absent to add one. */

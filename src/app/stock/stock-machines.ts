@@ -20,8 +20,8 @@ import {
 } from '../../../shared/vocabulary';
 import { Session } from '../core/session/session';
 import { MachineFormDialog, type MachineFormDialogData } from './machine-form-dialog';
-import { QuantityPipe } from './quantity';
-import { STOCK_EDITORS, StockApi } from './stock-api';
+import { QuantityPipe } from '../ui/quantity';
+import { STOCK_EDITORS, StockApi } from '../core/api/stock-api';
 import { StockListState } from './stock-list-state';
 import { StockRecordActions } from './stock-record-actions';
 import { StockRowActions } from './stock-row-actions';

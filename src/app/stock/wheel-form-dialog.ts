@@ -12,7 +12,7 @@ import { WHEEL_KINDS, WHEEL_KIND_LABELS, type WheelKind } from '../../../shared/
 import { controlMessage } from '../core/forms/control-message';
 import { zodValidator } from '../core/forms/zod-validator';
 import { saveStockForm } from './save-stock-form';
-import { StockApi } from './stock-api';
+import { StockApi } from '../core/api/stock-api';
 
 export interface WheelFormDialogData {
   /** The wheel to edit; absent to add one. */

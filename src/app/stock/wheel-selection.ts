@@ -12,7 +12,7 @@ import { MATERIAL_GROUPS, MATERIAL_GROUP_LABELS } from '../../../shared/vocabula
 import { Notifier } from '../core/notifier/notifier';
 import { Session } from '../core/session/session';
 import { ConfirmDialog, type ConfirmDialogData } from '../ui/confirm-dialog';
-import { STOCK_EDITORS, StockApi } from './stock-api';
+import { STOCK_EDITORS, StockApi } from '../core/api/stock-api';
 import { SelectionRowDialog, type SelectionRowDialogData } from './selection-row-dialog';
 
 /** A row of the table as shown: the wheel looked up by id. */

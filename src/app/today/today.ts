@@ -8,8 +8,8 @@ import { catchError, map, of, startWith } from 'rxjs';
 import type { RecipeSummary, TodayDto } from '../../../shared/recipe-types';
 import { ROLE_INFO, type Role, hasAccess } from '../../../shared/roles';
 import { Session } from '../core/session/session';
-import { RecipeStatusChip } from '../recipes/recipe-page/recipe-status-chip';
-import { WorkflowApi } from '../recipes/review/workflow-api';
+import { RecipeStatusChip } from '../ui/recipe-status-chip';
+import { WorkflowApi } from '../core/api/workflow-api';
 
 /** One line of a Today list: where it leads and what it says. */
 interface TodayItem {

@@ -25,18 +25,18 @@ import {
   SHAPE_LABELS,
   type Shape,
 } from '../../../../shared/vocabulary';
-import { askToAcknowledge } from '../../recipes/acknowledge/acknowledge-dialog';
-import { mustAcknowledge, openInNewTab } from '../../recipes/acknowledge/acknowledgement-state';
+import { askToAcknowledge } from '../../ui/acknowledge-dialog';
+import { mustAcknowledge } from '../../ui/acknowledgement-state';
 import { controlMessage } from '../../core/forms/control-message';
 import { applyServerErrors } from '../../core/forms/server-errors';
 import { isApiError } from '../../core/http/api-error';
 import { callerHandles } from '../../core/http/caller-handles';
 import { Notifier } from '../../core/notifier/notifier';
 import { Session } from '../../core/session/session';
-import { LogCutDialog, type LogCutDialogData } from '../../recipes/cuts/log-cut-dialog';
-import { benchSheetUrl } from '../../recipes/recipe-page/bench-sheet';
-import { RecipeApi } from '../../recipes/recipe-page/recipe-api';
-import { StockApi } from '../../stock/stock-api';
+import { LogCutDialog, type LogCutDialogData } from '../../ui/log-cut-dialog/log-cut-dialog';
+import { benchSheetUrl, openInNewTab } from '../../core/api/bench-sheet';
+import { RecipeApi } from '../../core/api/recipe-api';
+import { StockApi } from '../../core/api/stock-api';
 import { FinderApi } from './finder-api';
 import { finderParams, isEmptyQuery, readFinderParams } from './finder-params';
 

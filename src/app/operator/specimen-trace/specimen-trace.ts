@@ -15,10 +15,10 @@ import { CLAMPING_METHOD_LABELS, CUT_MOTION_LABELS, SHAPE_LABELS } from '../../.
 import { controlMessage } from '../../core/forms/control-message';
 import { zodValidator } from '../../core/forms/zod-validator';
 import { Session } from '../../core/session/session';
-import { SignatureList } from '../../recipes/review/signature-list';
-import { QuantityPipe } from '../../stock/quantity';
-import { CutOutcomeLabel } from '../../recipes/cuts/cut-outcome';
-import { CutsApi } from '../../recipes/cuts/cuts-api';
+import { SignatureList } from '../../ui/signature-list';
+import { QuantityPipe } from '../../ui/quantity';
+import { CutOutcomeLabel } from '../../ui/cut-outcome-label';
+import { CutsApi } from '../../core/api/cuts-api';
 
 type Load = { state: 'idle' } | { state: 'loading' } | { state: 'failed' } | { state: 'ready'; traces: CutTrace[] };
 

@@ -11,15 +11,15 @@ import type { MachineRecord, WheelRecord } from '../../../../shared/stock-types'
 import { isApiError } from '../../core/http/api-error';
 import { callerHandles } from '../../core/http/caller-handles';
 import { Session } from '../../core/session/session';
-import { benchSheetUrl } from '../recipe-page/bench-sheet';
-import { KeyParameters } from '../recipe-page/key-parameters';
-import { RecipeApi } from '../recipe-page/recipe-api';
-import { RECIPE_STATUS_INFO, RecipeStatusChip } from '../recipe-page/recipe-status-chip';
-import { utcToday } from '../review/signature-meaning';
-import { StockApi } from '../../stock/stock-api';
+import { benchSheetUrl } from '../../core/api/bench-sheet';
+import { KeyParameters } from './key-parameters';
+import { RecipeApi } from '../../core/api/recipe-api';
+import { RECIPE_STATUS_INFO, RecipeStatusChip } from '../../ui/recipe-status-chip';
+import { utcToday } from '../../ui/signature-meaning';
+import { StockApi } from '../../core/api/stock-api';
 import { MarkdownView } from '../../ui/markdown-view';
-import { AcknowledgeApi } from './acknowledge-api';
-import { acknowledgeStatement } from './acknowledgement-state';
+import { AcknowledgeApi } from '../../core/api/acknowledge-api';
+import { acknowledgeStatement } from '../../ui/acknowledgement-state';
 
 type Load = { state: 'loading' } | { state: 'missing' } | { state: 'failed' } | { state: 'ready'; version: RecipeVersionDto };
 

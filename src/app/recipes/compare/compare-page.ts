@@ -14,8 +14,8 @@ import type { RecipeComparison, RecipeVersionDto } from '../../../../shared/reci
 import { isApiError } from '../../core/http/api-error';
 import { callerHandles } from '../../core/http/caller-handles';
 import { Notifier } from '../../core/notifier/notifier';
-import { RecipeApi } from '../recipe-page/recipe-api';
-import { RECIPE_STATUS_INFO } from '../recipe-page/recipe-status-chip';
+import { RecipeApi } from '../../core/api/recipe-api';
+import { RECIPE_STATUS_INFO } from '../../ui/recipe-status-chip';
 import { CompareApi } from './compare-api';
 import { type ComparisonLayout, ComparisonView } from './comparison-view';
 

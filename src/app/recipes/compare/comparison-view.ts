@@ -2,7 +2,7 @@ import { NgTemplateOutlet } from '@angular/common';
 import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
 import type { RecipeComparison, TextChange } from '../../../../shared/recipe-types';
 import type { RecipeStatus } from '../../../../shared/vocabulary';
-import { RECIPE_STATUS_INFO } from '../recipe-page/recipe-status-chip';
+import { RECIPE_STATUS_INFO } from '../../ui/recipe-status-chip';
 
 /** How a text diff is laid out: the two versions in columns, or one flow with both marked. */
 export type ComparisonLayout = 'side-by-side' | 'inline';

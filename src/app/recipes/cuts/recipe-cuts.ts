@@ -7,8 +7,8 @@ import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { catchError, firstValueFrom, map, of, startWith, switchMap } from 'rxjs';
 import type { CutRecordDto } from '../../../../shared/recipe-types';
 import { Notifier } from '../../core/notifier/notifier';
-import { CutOutcomeLabel } from './cut-outcome';
-import { CutsApi, cutsCsvUrl } from './cuts-api';
+import { CutOutcomeLabel } from '../../ui/cut-outcome-label';
+import { CutsApi, cutsCsvUrl } from '../../core/api/cuts-api';
 
 type Load = { state: 'loading' } | { state: 'failed' } | { state: 'ready'; cuts: CutRecordDto[] };
 

@@ -54,7 +54,7 @@ import { callerHandles } from '../../core/http/caller-handles';
 import { Notifier } from '../../core/notifier/notifier';
 import { Session } from '../../core/session/session';
 import { CommentsPanel } from '../review/comments-panel';
-import { WorkflowApi } from '../review/workflow-api';
+import { WorkflowApi } from '../../core/api/workflow-api';
 import { ConfirmDialog, type ConfirmDialogData } from '../../ui/confirm-dialog';
 import { MarkdownView } from '../../ui/markdown-view';
 import { RecipeAttachments } from './recipe-attachments';

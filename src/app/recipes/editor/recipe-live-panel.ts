@@ -8,7 +8,7 @@ import type { CheckResult, CheckSeverity } from '../../../../shared/recipe-check
 import type { RecipeComputed } from '../../../../shared/recipe-computations';
 import { NO_VALUE, type QuantityKind, formatQuantity } from '../../../../shared/units';
 import { FIELD_INFO } from './recipe-form';
-import { CutProfilePlot } from './cut-profile-plot';
+import { CutProfilePlot } from '../../ui/cut-profile-plot/cut-profile-plot';
 
 const SEVERITY: Record<CheckSeverity, { icon: string; label: string; plural: string }> = {
   blocker: { icon: 'block', label: 'Blocker', plural: 'blockers' },

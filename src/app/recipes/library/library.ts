@@ -31,11 +31,11 @@ import {
   type Shape,
 } from '../../../../shared/vocabulary';
 import { Session } from '../../core/session/session';
-import { CheckSeverityLabel } from '../recipe-page/check-severity-label';
-import { RecipeApi } from '../recipe-page/recipe-api';
-import { RECIPE_STATUS_INFO, RecipeStatusChip } from '../recipe-page/recipe-status-chip';
-import { QuantityPipe } from '../../stock/quantity';
-import { StockApi } from '../../stock/stock-api';
+import { CheckSeverityLabel } from '../../ui/check-severity-label';
+import { RecipeApi } from '../../core/api/recipe-api';
+import { RECIPE_STATUS_INFO, RecipeStatusChip } from '../../ui/recipe-status-chip';
+import { QuantityPipe } from '../../ui/quantity';
+import { StockApi } from '../../core/api/stock-api';
 import {
   LIBRARY_PAGE_SIZES,
   type LibraryParams,

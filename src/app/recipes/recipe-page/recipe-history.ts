@@ -2,8 +2,8 @@ import { DatePipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, input } from '@angular/core';
 import { RouterLink } from '@angular/router';
 import type { RecipeVersionDto } from '../../../../shared/recipe-types';
-import { SignatureList } from '../review/signature-list';
-import { RecipeStatusChip } from './recipe-status-chip';
+import { SignatureList } from '../../ui/signature-list';
+import { RecipeStatusChip } from '../../ui/recipe-status-chip';
 
 /** Every version of a recipe, newest first: status, dates, author, change reason, signatures and links. */
 @Component({

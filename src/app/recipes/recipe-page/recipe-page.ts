@@ -24,32 +24,32 @@ import {
   SHAPE_LABELS,
   WHEEL_KIND_LABELS,
 } from '../../../../shared/vocabulary';
-import { askToAcknowledge } from '../acknowledge/acknowledge-dialog';
-import { mustAcknowledge } from '../acknowledge/acknowledgement-state';
+import { askToAcknowledge } from '../../ui/acknowledge-dialog';
+import { mustAcknowledge } from '../../ui/acknowledgement-state';
 import { AcknowledgementsPanel } from '../acknowledge/acknowledgements-panel';
 import { isApiError } from '../../core/http/api-error';
 import { callerHandles } from '../../core/http/caller-handles';
 import { Notifier } from '../../core/notifier/notifier';
 import { Session } from '../../core/session/session';
-import { CutProfilePlot } from '../editor/cut-profile-plot';
-import { QuantityPipe } from '../../stock/quantity';
-import { StockApi } from '../../stock/stock-api';
+import { CutProfilePlot } from '../../ui/cut-profile-plot/cut-profile-plot';
+import { QuantityPipe } from '../../ui/quantity';
+import { StockApi } from '../../core/api/stock-api';
 import { CommentsPanel } from '../review/comments-panel';
 import { ReasonDialog, type ReasonDialogData } from '../review/reason-dialog';
 import { ReviewComments } from '../review/review-comments';
 import { SignatureDialog, type SignatureDialogData, type SignatureDialogResult } from '../review/signature-dialog';
-import { SignatureList } from '../review/signature-list';
-import { utcToday } from '../review/signature-meaning';
-import { WorkflowApi } from '../review/workflow-api';
+import { SignatureList } from '../../ui/signature-list';
+import { utcToday } from '../../ui/signature-meaning';
+import { WorkflowApi } from '../../core/api/workflow-api';
 import { MarkdownView } from '../../ui/markdown-view';
-import { LogCutDialog, type LogCutDialogData } from '../cuts/log-cut-dialog';
+import { LogCutDialog, type LogCutDialogData } from '../../ui/log-cut-dialog/log-cut-dialog';
 import { RecipeCuts } from '../cuts/recipe-cuts';
-import { benchSheetUrl } from './bench-sheet';
-import { CheckSeverityLabel } from './check-severity-label';
-import { COOLANT_LABELS } from './key-parameters';
-import { RecipeApi } from './recipe-api';
+import { benchSheetUrl } from '../../core/api/bench-sheet';
+import { CheckSeverityLabel } from '../../ui/check-severity-label';
+import { COOLANT_LABELS } from '../acknowledge/key-parameters';
+import { RecipeApi } from '../../core/api/recipe-api';
 import { RecipeHistory } from './recipe-history';
-import { RECIPE_STATUS_INFO, RecipeStatusChip } from './recipe-status-chip';
+import { RECIPE_STATUS_INFO, RecipeStatusChip } from '../../ui/recipe-status-chip';
 import { StandardCautions } from './standard-cautions';
 
 /** The stock records a version names, fetched by id (null while loading or when missing). */

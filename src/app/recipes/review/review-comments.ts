@@ -14,7 +14,7 @@ import { applyServerErrors } from '../../core/forms/server-errors';
 import { zodValidator } from '../../core/forms/zod-validator';
 import { isApiError } from '../../core/http/api-error';
 import { callerHandles } from '../../core/http/caller-handles';
-import { WorkflowApi } from './workflow-api';
+import { WorkflowApi } from '../../core/api/workflow-api';
 
 /** The review comments of one version, oldest first, with a box to add one when `canAdd`. */
 @Component({

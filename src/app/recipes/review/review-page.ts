@@ -22,19 +22,19 @@ import { isApiError } from '../../core/http/api-error';
 import { callerHandles } from '../../core/http/caller-handles';
 import { Notifier } from '../../core/notifier/notifier';
 import { Session } from '../../core/session/session';
-import { CheckSeverityLabel } from '../recipe-page/check-severity-label';
-import { RecipeApi } from '../recipe-page/recipe-api';
-import { RecipeStatusChip } from '../recipe-page/recipe-status-chip';
-import { formatMetric } from '../../stock/quantity';
-import { StockApi } from '../../stock/stock-api';
+import { CheckSeverityLabel } from '../../ui/check-severity-label';
+import { RecipeApi } from '../../core/api/recipe-api';
+import { RecipeStatusChip } from '../../ui/recipe-status-chip';
+import { formatMetric } from '../../ui/quantity';
+import { StockApi } from '../../core/api/stock-api';
 import type { MachineRecord, MaterialRecord, WheelRecord } from '../../../../shared/stock-types';
 import { MarkdownView } from '../../ui/markdown-view';
 import { ComparisonView } from '../compare/comparison-view';
 import { ReasonDialog, type ReasonDialogData } from './reason-dialog';
 import { ReviewComments } from './review-comments';
 import { SignatureDialog, type SignatureDialogData, type SignatureDialogResult } from './signature-dialog';
-import { SignatureList } from './signature-list';
-import { WorkflowApi } from './workflow-api';
+import { SignatureList } from '../../ui/signature-list';
+import { WorkflowApi } from '../../core/api/workflow-api';
 
 interface StockNames {
   material: MaterialRecord | null;

@@ -16,8 +16,8 @@ import { zodValidator } from '../../core/forms/zod-validator';
 import { isApiError } from '../../core/http/api-error';
 import { callerHandles } from '../../core/http/caller-handles';
 import { Session } from '../../core/session/session';
-import { SIGNATURE_MEANING_INFO, utcToday } from './signature-meaning';
-import { WorkflowApi } from './workflow-api';
+import { SIGNATURE_MEANING_INFO, utcToday } from '../../ui/signature-meaning';
+import { WorkflowApi } from '../../core/api/workflow-api';
 
 export interface SignatureDialogData {
   meaning: SignatureMeaning;

@@ -16,8 +16,8 @@ import { applyServerErrors } from '../../core/forms/server-errors';
 import { zodValidator } from '../../core/forms/zod-validator';
 import { isApiError } from '../../core/http/api-error';
 import { callerHandles } from '../../core/http/caller-handles';
-import { CUT_OUTCOME_ICONS } from './cut-outcome';
-import { CutsApi } from './cuts-api';
+import { CUT_OUTCOME_ICONS } from '../cut-outcome-label';
+import { CutsApi } from '../../core/api/cuts-api';
 
 /** The version the cut was made with. */
 export interface LogCutDialogData {

@@ -1,6 +1,6 @@
 import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
 import { MatIconModule } from '@angular/material/icon';
-import type { RecipeStatus } from '../../../../shared/vocabulary';
+import type { RecipeStatus } from '../../../shared/vocabulary';
 
 /** Plain-words status labels, with an icon each so the status never depends on colour alone. */
 export const RECIPE_STATUS_INFO: Record<RecipeStatus, { label: string; icon: string }> = {

@@ -1,6 +1,6 @@
 import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
 import { MatIconModule } from '@angular/material/icon';
-import type { CheckSeverity } from '../../../../shared/recipe-checks';
+import type { CheckSeverity } from '../../../shared/recipe-checks';
 
 /** Icon and word for each severity (design 5.9), so the severity never depends on colour alone. */
 export const SEVERITY_INFO: Record<CheckSeverity | 'none', { label: string; icon: string }> = {

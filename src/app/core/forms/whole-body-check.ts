@@ -1,6 +1,6 @@
 import type { FormGroup } from '@angular/forms';
 import type { z } from 'zod';
-import { applyServerErrors } from '../core/forms/server-errors';
+import { applyServerErrors } from './server-errors';
 
 /**
  * Runs the whole shared schema over the body a form is about to send, so that rules across

@@ -3,7 +3,7 @@ import type { UnitPreference } from '../../../../shared/api-types';
 import type { RecipeContent } from '../../../../shared/schemas/recipe';
 import type { MachineRecord, WheelRecord } from '../../../../shared/stock-types';
 import { CLAMPING_METHOD_LABELS, CUT_MOTION_LABELS } from '../../../../shared/vocabulary';
-import { QuantityPipe } from '../../stock/quantity';
+import { QuantityPipe } from '../../ui/quantity';
 
 export const COOLANT_LABELS = { 'water-soluble': 'Water-soluble coolant', oil: 'Cutting oil', dry: 'Dry (no coolant)' } as const;
 

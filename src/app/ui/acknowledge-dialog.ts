@@ -4,12 +4,12 @@ import { MAT_DIALOG_DATA, type MatDialog, MatDialogModule, MatDialogRef } from '
 import { MatIconModule } from '@angular/material/icon';
 import { RouterLink } from '@angular/router';
 import { firstValueFrom } from 'rxjs';
-import type { MyAcknowledgementDto } from '../../../../shared/recipe-types';
-import { isApiError } from '../../core/http/api-error';
-import { callerHandles } from '../../core/http/caller-handles';
-import { benchSheetUrl } from '../recipe-page/bench-sheet';
-import { AcknowledgeApi } from './acknowledge-api';
-import { acknowledgeStatement, openInNewTab } from './acknowledgement-state';
+import type { MyAcknowledgementDto } from '../../../shared/recipe-types';
+import { isApiError } from '../core/http/api-error';
+import { callerHandles } from '../core/http/caller-handles';
+import { benchSheetUrl, openInNewTab } from '../core/api/bench-sheet';
+import { AcknowledgeApi } from '../core/api/acknowledge-api';
+import { acknowledgeStatement } from './acknowledgement-state';
 
 /** The version whose sheet the operator asked for. */
 export interface AcknowledgeDialogData {
