@@ -1,4 +1,4 @@
-import { type AbstractControl, FormGroup, type NonNullableFormBuilder, type ValidatorFn, Validators } from '@angular/forms';
+import { type AbstractControl, FormGroup, type NonNullableFormBuilder, type ValidationErrors, type ValidatorFn, Validators } from '@angular/forms';
 import type { QuantityKind } from '../../../../shared/units';
 import { type RecipeContent, recipeContent } from '../../../../shared/schemas/recipe';
 import type {
@@ -75,7 +75,13 @@ export function buildRecipeForm(fb: NonNullableFormBuilder) {
 
 export type RecipeForm = ReturnType<typeof buildRecipeForm>;
 export type RecipeFormValue = ReturnType<RecipeForm['getRawValue']>;
-type FormContent = RecipeFormValue['content'];
+export type FormContent = RecipeFormValue['content'];
+/** The form group of each section, as the section components take them. */
+export type ContentControls = RecipeForm['controls']['content']['controls'];
+export type ScopeGroup = ContentControls['scope'];
+export type CuttingGroup = ContentControls['cutting'];
+export type ClampingGroup = ContentControls['clamping'];
+export type CoolantGroup = ContentControls['coolant'];
 
 /**
  * The content as it would be saved. Fields the shape, motion or coolant do not use are sent
@@ -188,9 +194,16 @@ export function contentLeafPaths(form: RecipeForm): string[] {
   return paths;
 }
 
-/** Gives every content leaf its schema validator. */
+/**
+ * Gives every content leaf its schema validator. The stored content has no "one material"
+ * mode (a material id or none), so the form says itself that this mode needs the material.
+ */
 export function attachContentValidators(form: RecipeForm): void {
   for (const path of contentLeafPaths(form)) form.controls.content.get(path)!.addValidators(contentPathValidator(path));
+  const scope = form.controls.content.controls.scope.controls;
+  scope.materialId.addValidators((c: AbstractControl): ValidationErrors | null =>
+    scope.by.value === 'material' && c.value === null ? { zod: 'Choose a material, or scope the recipe by material group.' } : null,
+  );
 }
 
 /**
