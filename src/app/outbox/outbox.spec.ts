@@ -50,8 +50,7 @@ describe('Outbox', () => {
     backend = TestBed.inject(HttpTestingController);
     fixture = TestBed.createComponent(Outbox);
     root = fixture.nativeElement;
-    await fixture.whenStable();
-    backend.expectOne({ method: 'GET', url: '/api/dev/outbox' }).flush({ items: [invitation, reset] });
+    (await vi.waitFor(() => backend.expectOne({ method: 'GET', url: '/api/dev/outbox' }))).flush({ items: [invitation, reset] });
     await vi.waitFor(async () => {
       await fixture.whenStable();
       expect(mainRows()).toHaveLength(2);

@@ -1,6 +1,6 @@
 import { DatePipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, computed, inject, linkedSignal, signal } from '@angular/core';
-import { takeUntilDestroyed, toObservable, toSignal } from '@angular/core/rxjs-interop';
+import { rxResource, toSignal } from '@angular/core/rxjs-interop';
 import { NonNullableFormBuilder, ReactiveFormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatChipsModule } from '@angular/material/chips';
@@ -14,11 +14,12 @@ import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSelectModule } from '@angular/material/select';
 import { MatSortModule, type Sort } from '@angular/material/sort';
 import { MatTableModule } from '@angular/material/table';
-import { catchError, debounceTime, distinctUntilChanged, firstValueFrom, map, of, switchMap } from 'rxjs';
+import { catchError, debounceTime, distinctUntilChanged, firstValueFrom, map, of } from 'rxjs';
 import type { Page, UserDto } from '../../../shared/api-types';
 import type { MachineRecord } from '../../../shared/stock-types';
 import { ROLES, ROLE_INFO, type Role } from '../../../shared/roles';
 import { USER_SORT_FIELDS, type UserListQuery } from '../../../shared/schemas/users';
+import { latestValue } from '../core/api/latest-value';
 import { Notifier } from '../core/notifier/notifier';
 import { Session } from '../core/session/session';
 import { StockApi } from '../core/api/stock-api';
@@ -88,8 +89,6 @@ export class PeopleList {
     source: () => [this.q(), this.role(), this.status(), this.sort(), this.pageSize()] as const,
     computation: () => 0,
   });
-  /** Bumped after an edit so the same query is asked again. */
-  private readonly reloads = signal(0);
 
   private readonly query = computed<Partial<UserListQuery>>(() => ({
     page: this.pageIndex(),
@@ -101,9 +100,11 @@ export class PeopleList {
     status: this.status(),
   }));
 
-  protected readonly loading = signal(true);
-  protected readonly loadFailed = signal(false);
-  protected readonly result = signal<Page<UserDto>>({ items: [], total: 0, page: 0, pageSize: 25 });
+  private readonly people = rxResource({ params: this.query, stream: ({ params }) => this.api.list(params) });
+  protected readonly loading = computed(() => this.people.isLoading());
+  /** The error interceptor has already told the user what went wrong; the last rows stay. */
+  protected readonly loadFailed = computed(() => !!this.people.error());
+  protected readonly result = latestValue<Page<UserDto>>(this.people, { items: [], total: 0, page: 0, pageSize: 25 });
   protected readonly currentUserId = computed(() => this.session.user()?.id);
 
   /** Every machine, archived ones too: an operator may still be assigned to a retired saw. */
@@ -121,23 +122,6 @@ export class PeopleList {
   /** The operator's machines by name, one per line in the table. */
   protected readonly machineNamesOf = (person: UserDto): string[] =>
     person.machineIds.map((id) => this.machineNames().get(id) ?? `Machine ${id}`);
-
-  constructor() {
-    toObservable(computed(() => ({ query: this.query(), reload: this.reloads() })))
-      .pipe(
-        switchMap(({ query }) => {
-          this.loading.set(true);
-          // The error interceptor has already told the user what went wrong.
-          return this.api.list(query).pipe(catchError(() => of(null)));
-        }),
-        takeUntilDestroyed(),
-      )
-      .subscribe((page) => {
-        this.loading.set(false);
-        this.loadFailed.set(page === null);
-        if (page) this.result.set(page);
-      });
-  }
 
   protected changeSort(sort: Sort): void {
     const active = USER_SORT_FIELDS.find((field) => field === sort.active) ?? 'username';
@@ -277,6 +261,6 @@ export class PeopleList {
   }
 
   private reload(): void {
-    this.reloads.update((n) => n + 1);
+    this.people.reload();
   }
 }

@@ -1,12 +1,13 @@
-import { computed, inject, linkedSignal, signal } from '@angular/core';
-import { takeUntilDestroyed, toObservable, toSignal } from '@angular/core/rxjs-interop';
+import { type ResourceRef, type Signal, computed, inject, linkedSignal, signal } from '@angular/core';
+import { rxResource, toSignal } from '@angular/core/rxjs-interop';
 import { NonNullableFormBuilder } from '@angular/forms';
 import type { PageEvent } from '@angular/material/paginator';
 import type { Sort } from '@angular/material/sort';
-import { type Observable, catchError, debounceTime, distinctUntilChanged, map, of, switchMap } from 'rxjs';
+import { type Observable, debounceTime, distinctUntilChanged, map } from 'rxjs';
 import type { Page } from '../../../shared/api-types';
 import type { StockListQuery } from '../../../shared/schemas/stock';
 import type { MaterialGroup } from '../../../shared/vocabulary';
+import { latestValue } from '../core/api/latest-value';
 
 /** How long the search box waits for typing to pause before asking the server. */
 export const STOCK_SEARCH_DEBOUNCE_MS = 300;
@@ -41,8 +42,6 @@ export class StockListState<T> {
     source: () => [this.q(), this.group(), this.archived(), this.sort(), this.pageSize()] as const,
     computation: () => 0,
   });
-  private readonly reloads = signal(0);
-
   private readonly query = computed<Partial<StockListQuery>>(() => ({
     page: this.pageIndex(),
     pageSize: this.pageSize(),
@@ -52,30 +51,22 @@ export class StockListState<T> {
     group: this.group() || undefined,
     archived: this.archived(),
   }));
+  private readonly page: ResourceRef<Page<T> | undefined>;
 
-  readonly loading = signal(true);
-  readonly loadFailed = signal(false);
-  readonly result = signal<Page<T>>({ items: [], total: 0, page: 0, pageSize: 25 });
+  readonly loading: Signal<boolean>;
+  /** The error interceptor has already told the user what went wrong; the last rows stay. */
+  readonly loadFailed: Signal<boolean>;
+  readonly result: Signal<Page<T>>;
 
   constructor(
     load: (query: Partial<StockListQuery>) => Observable<Page<T>>,
     /** Column ids the server sorts by; other headers are not sortable. */
     private readonly sortable: readonly string[],
   ) {
-    toObservable(computed(() => ({ query: this.query(), reload: this.reloads() })))
-      .pipe(
-        switchMap(({ query }) => {
-          this.loading.set(true);
-          // The error interceptor has already told the user what went wrong.
-          return load(query).pipe(catchError(() => of(null)));
-        }),
-        takeUntilDestroyed(),
-      )
-      .subscribe((page) => {
-        this.loading.set(false);
-        this.loadFailed.set(page === null);
-        if (page) this.result.set(page);
-      });
+    this.page = rxResource({ params: this.query, stream: ({ params }) => load(params) });
+    this.loading = computed(() => this.page.isLoading());
+    this.loadFailed = computed(() => !!this.page.error());
+    this.result = latestValue(this.page, { items: [], total: 0, page: 0, pageSize: 25 });
   }
 
   changeSort(sort: Sort): void {
@@ -96,6 +87,6 @@ export class StockListState<T> {
   }
 
   reload(): void {
-    this.reloads.update((n) => n + 1);
+    this.page.reload();
   }
 }

@@ -39,8 +39,7 @@ describe('Today', () => {
     backend = TestBed.inject(HttpTestingController);
     fixture = TestBed.createComponent(Today);
     root = fixture.nativeElement;
-    await fixture.whenStable();
-    backend.expectOne({ method: 'GET', url: '/api/today' }).flush(answer);
+    (await vi.waitFor(() => backend.expectOne({ method: 'GET', url: '/api/today' }))).flush(answer);
     await fixture.whenStable();
   }
 

@@ -1,10 +1,9 @@
 import { ChangeDetectionStrategy, Component, computed, inject } from '@angular/core';
-import { toSignal } from '@angular/core/rxjs-interop';
+import { rxResource } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { RouterLink } from '@angular/router';
-import { catchError, map, of, startWith } from 'rxjs';
 import type { RecipeSummary, TodayDto } from '../../../shared/recipe-types';
 import { ROLE_INFO, type Role, hasAccess } from '../../../shared/roles';
 import { Session } from '../core/session/session';
@@ -62,15 +61,12 @@ export class Today {
   protected readonly isOperator = computed(() => hasAccess(this.session.roles(), ['operator']));
   protected readonly roles = computed(() => this.session.roles().map((role) => ({ role, ...ROLE_INFO[role] })));
 
-  protected readonly load = toSignal(
-    this.api.today().pipe(
-      map((today): Load => ({ state: 'ready', today })),
-      // The error interceptor has said why; the page keeps the greeting and roles.
-      catchError(() => of<Load>({ state: 'failed' })),
-      startWith<Load>({ state: 'loading' }),
-    ),
-    { requireSync: true },
-  );
+  private readonly today = rxResource({ stream: () => this.api.today() });
+  protected readonly load = computed<Load>(() => {
+    // The error interceptor has said why; the page keeps the greeting and roles.
+    if (this.today.error()) return { state: 'failed' };
+    return this.today.hasValue() ? { state: 'ready', today: this.today.value() } : { state: 'loading' };
+  });
 
   protected readonly lists = computed<TodayList[]>(() => {
     const load = this.load();

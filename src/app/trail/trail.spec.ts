@@ -220,11 +220,13 @@ describe('Trail', () => {
     (await nextEvents()).req.flush(aPage(events, null));
 
     const select = await TestbedHarnessEnvironment.loader(harness.fixture).getHarness(MatSelectHarness);
-    await select.clickOptions({ text: 'Ruth Auditor (ruth.auditor)' });
+    // The harness waits for the page to settle, which it does once the new page of events is answered.
+    const choosing = select.clickOptions({ text: 'Ruth Auditor (ruth.auditor)' });
     const { req, params } = await nextEvents();
     expect(params).toEqual({ userId: '9', limit: '50' });
     expect(queryParams()).toEqual({ user: '9' });
     req.flush(aPage([], null));
+    await choosing;
   });
 
   it('reports an intact chain with the number of events checked', async () => {

@@ -1,5 +1,5 @@
-import { ChangeDetectionStrategy, Component, computed, inject, input, signal } from '@angular/core';
-import { takeUntilDestroyed, toObservable } from '@angular/core/rxjs-interop';
+import { ChangeDetectionStrategy, Component, computed, inject, input } from '@angular/core';
+import { rxResource } from '@angular/core/rxjs-interop';
 import { NonNullableFormBuilder, ReactiveFormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
@@ -7,7 +7,6 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { Router, RouterLink } from '@angular/router';
-import { catchError, map, of, startWith, switchMap } from 'rxjs';
 import type { CheckCodeResult } from '../../../../shared/recipe-types';
 import { checkCodeParam } from '../../../../shared/schemas/operator';
 import { controlMessage } from '../../core/forms/control-message';
@@ -55,7 +54,31 @@ export class CheckPage {
   /** Route parameter `:code`; absent on /check. */
   readonly code = input<string>();
 
-  protected readonly verdict = signal<Verdict>({ state: 'none' });
+  /** The code from the URL, if it has the printed form. */
+  private readonly parsed = computed(() => {
+    const raw = this.code();
+    if (!raw) return { state: 'none' } as const;
+    const parsed = checkCodeParam.safeParse(raw);
+    return parsed.success ? ({ state: 'code', code: parsed.data } as const) : ({ state: 'malformed' } as const);
+  });
+  // Unknown and malformed codes get their own message on this page, not a snack bar.
+  private readonly result = rxResource({
+    params: () => {
+      const parsed = this.parsed();
+      return parsed.state === 'code' ? parsed.code : undefined;
+    },
+    stream: ({ params }) => this.api.check(params, callerHandles(400, 404)),
+  });
+  protected readonly verdict = computed<Verdict>(() => {
+    const parsed = this.parsed();
+    if (parsed.state !== 'code') return parsed;
+    if (this.result.isLoading()) return { state: 'loading' };
+    const error = this.result.error();
+    if (isApiError(error) && error.status === 404) return { state: 'unknown', code: printedCode(parsed.code) };
+    if (isApiError(error) && error.status === 400) return { state: 'malformed' };
+    if (error) return { state: 'failed' };
+    return this.result.hasValue() ? { state: 'ready', result: this.result.value() } : { state: 'loading' };
+  });
   protected readonly info = computed(() => {
     const v = this.verdict();
     return v.state === 'ready' ? CHECK_STATE_INFO[v.result.state] : null;
@@ -64,29 +87,6 @@ export class CheckPage {
   protected readonly codeField = this.form.controls.code;
   protected readonly controlMessage = controlMessage;
   protected readonly printedCode = printedCode;
-
-  constructor() {
-    toObservable(this.code)
-      .pipe(
-        switchMap((raw) => {
-          if (!raw) return of<Verdict>({ state: 'none' });
-          const parsed = checkCodeParam.safeParse(raw);
-          if (!parsed.success) return of<Verdict>({ state: 'malformed' });
-          // Unknown and malformed codes get their own message on this page, not a snack bar.
-          return this.api.check(parsed.data, callerHandles(400, 404)).pipe(
-            map((result): Verdict => ({ state: 'ready', result })),
-            catchError((e: unknown) => {
-              if (isApiError(e) && e.status === 404) return of<Verdict>({ state: 'unknown', code: printedCode(parsed.data) });
-              if (isApiError(e) && e.status === 400) return of<Verdict>({ state: 'malformed' });
-              return of<Verdict>({ state: 'failed' });
-            }),
-            startWith<Verdict>({ state: 'loading' }),
-          );
-        }),
-        takeUntilDestroyed(),
-      )
-      .subscribe((verdict) => this.verdict.set(verdict));
-  }
 
   protected checkTyped(): void {
     this.codeField.markAsTouched();

@@ -1,6 +1,6 @@
 import { DatePipe } from '@angular/common';
-import { ChangeDetectionStrategy, Component, computed, inject, input, signal } from '@angular/core';
-import { takeUntilDestroyed, toObservable } from '@angular/core/rxjs-interop';
+import { ChangeDetectionStrategy, Component, computed, inject, input } from '@angular/core';
+import { rxResource, takeUntilDestroyed, toObservable } from '@angular/core/rxjs-interop';
 import { NonNullableFormBuilder, ReactiveFormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
@@ -8,7 +8,6 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { Router, RouterLink } from '@angular/router';
-import { catchError, map, of, startWith, switchMap } from 'rxjs';
 import type { CutTrace } from '../../../../shared/recipe-types';
 import { cutSearchQuery } from '../../../../shared/schemas/operator';
 import { CLAMPING_METHOD_LABELS, CUT_MOTION_LABELS, SHAPE_LABELS } from '../../../../shared/vocabulary';
@@ -42,7 +41,17 @@ export class SpecimenTrace {
 
   protected readonly form = inject(NonNullableFormBuilder).group({ specimenId: ['', [zodValidator(cutSearchQuery.shape.specimenId)]] });
   protected readonly field = this.form.controls.specimenId;
-  protected readonly load = signal<Load>({ state: 'idle' });
+  private readonly traces = rxResource({
+    params: () => (this.specimen() ?? '').trim() || undefined,
+    stream: ({ params }) => this.api.trace(params),
+  });
+  protected readonly load = computed<Load>(() => {
+    const traces = this.traces;
+    if (traces.status() === 'idle') return { state: 'idle' };
+    // The error interceptor has said why it failed.
+    if (traces.error()) return { state: 'failed' };
+    return traces.hasValue() && !traces.isLoading() ? { state: 'ready', traces: traces.value() } : { state: 'loading' };
+  });
   protected readonly units = computed(() => this.session.user()?.units ?? 'metric');
   protected readonly controlMessage = controlMessage;
   protected readonly motionLabel = CUT_MOTION_LABELS;
@@ -51,22 +60,10 @@ export class SpecimenTrace {
   protected readonly coolantLabel = COOLANT_LABELS;
 
   constructor() {
+    // The specimen in the URL shows in the field (on arrival, back and forward).
     toObservable(this.specimen)
-      .pipe(
-        switchMap((raw) => {
-          const specimen = (raw ?? '').trim();
-          this.field.setValue(specimen);
-          if (!specimen) return of<Load>({ state: 'idle' });
-          return this.api.trace(specimen).pipe(
-            map((traces): Load => ({ state: 'ready', traces })),
-            // The error interceptor has said why.
-            catchError(() => of<Load>({ state: 'failed' })),
-            startWith<Load>({ state: 'loading' }),
-          );
-        }),
-        takeUntilDestroyed(),
-      )
-      .subscribe((load) => this.load.set(load));
+      .pipe(takeUntilDestroyed())
+      .subscribe((raw) => this.field.setValue((raw ?? '').trim()));
   }
 
   protected search(): void {

@@ -1,13 +1,12 @@
 import { DatePipe } from '@angular/common';
-import { ChangeDetectionStrategy, Component, ElementRef, Injector, afterNextRender, computed, inject, input, signal, viewChild } from '@angular/core';
-import { takeUntilDestroyed, toObservable } from '@angular/core/rxjs-interop';
+import { ChangeDetectionStrategy, Component, ElementRef, Injector, afterNextRender, computed, inject, input, linkedSignal, signal, viewChild } from '@angular/core';
+import { rxResource } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { RouterLink } from '@angular/router';
-import { type Observable, catchError, distinctUntilChanged, firstValueFrom, forkJoin, map, of, switchMap } from 'rxjs';
+import { type Observable, firstValueFrom, map, of, switchMap } from 'rxjs';
 import type { MyAcknowledgementDto, RecipeVersionDto } from '../../../../shared/recipe-types';
-import type { MachineRecord, WheelRecord } from '../../../../shared/stock-types';
 import { isApiError } from '../../core/http/api-error';
 import { callerHandles } from '../../core/http/caller-handles';
 import { Session } from '../../core/session/session';
@@ -16,19 +15,12 @@ import { KeyParameters } from './key-parameters';
 import { RecipeApi } from '../../core/api/recipe-api';
 import { RECIPE_STATUS_INFO, RecipeStatusChip } from '../../ui/recipe-status-chip';
 import { utcToday } from '../../ui/signature-meaning';
-import { StockApi } from '../../core/api/stock-api';
+import { stockNamesOf } from '../../core/api/stock-names';
 import { MarkdownView } from '../../ui/markdown-view';
 import { AcknowledgeApi } from '../../core/api/acknowledge-api';
 import { acknowledgeStatement } from '../../ui/acknowledgement-state';
 
 type Load = { state: 'loading' } | { state: 'missing' } | { state: 'failed' } | { state: 'ready'; version: RecipeVersionDto };
-
-interface Stock {
-  wheel: WheelRecord | null;
-  machine: MachineRecord | null;
-}
-
-const NO_STOCK: Stock = { wheel: null, machine: null };
 
 /**
  * Acknowledge (the link in a "new version in use" mail, /recipes/:id/acknowledge?v=N): the
@@ -44,7 +36,6 @@ const NO_STOCK: Stock = { wheel: null, machine: null };
 })
 export class AcknowledgePage {
   private readonly recipes = inject(RecipeApi);
-  private readonly stockApi = inject(StockApi);
   private readonly api = inject(AcknowledgeApi);
   private readonly session = inject(Session);
   private readonly injector = inject(Injector);
@@ -54,20 +45,29 @@ export class AcknowledgePage {
   /** Query parameter `?v=N`: the version to acknowledge. */
   readonly v = input<string>();
 
-  protected readonly load = signal<Load>({ state: 'loading' });
-  protected readonly stock = signal<Stock>(NO_STOCK);
-  /** The operator's acknowledgement, from the version and then from the server's answer. */
-  protected readonly mine = signal<MyAcknowledgementDto | null>(null);
-  /** Acknowledged on this visit (rather than before). */
-  protected readonly justAcknowledged = signal(false);
-  protected readonly busy = signal(false);
-  /** The server's reason when it refuses the acknowledgement (409). */
-  protected readonly refusal = signal('');
-
+  private readonly asked = computed(() => ({ id: Number(this.id()), v: Number(this.v()) }), { equal: (a, b) => a.id === b.id && a.v === b.v });
+  private readonly versionLoad = rxResource({ params: this.asked, stream: ({ params }) => this.fetch(params.id, params.v) });
+  protected readonly load = computed<Load>(() => {
+    const load = this.versionLoad;
+    if (load.isLoading()) return { state: 'loading' };
+    const error = load.error();
+    if (error) return isApiError(error) && error.status === 404 ? { state: 'missing' } : { state: 'failed' };
+    const version = load.hasValue() ? load.value() : null;
+    return version ? { state: 'ready', version } : { state: 'missing' };
+  });
   protected readonly version = computed(() => {
     const load = this.load();
     return load.state === 'ready' ? load.version : null;
   });
+  /** Names of the machine and wheel for the key settings; the ids stand in until they arrive. */
+  protected readonly stock = stockNamesOf(() => this.version()?.content, { withMaterial: false });
+  /** The operator's acknowledgement, from the version and then from the server's answer. */
+  protected readonly mine = linkedSignal<MyAcknowledgementDto | null>(() => this.version()?.myAcknowledgement ?? null);
+  /** Acknowledged on this visit (rather than before); false again for another version. */
+  protected readonly justAcknowledged = linkedSignal({ source: this.asked, computation: () => false });
+  protected readonly busy = signal(false);
+  /** The server's reason when it refuses the acknowledgement (409); cleared for another version. */
+  protected readonly refusal = linkedSignal({ source: this.asked, computation: () => '' });
   protected readonly statement = computed(() => {
     const v = this.version();
     return v ? acknowledgeStatement(v.number, v.version) : '';
@@ -89,41 +89,6 @@ export class AcknowledgePage {
   private readonly confirmation = viewChild<ElementRef<HTMLElement>>('confirmation');
   /** YYYY-MM-DD (UTC), to word an effective date still to come. */
   protected readonly today = utcToday();
-
-  constructor() {
-    toObservable(computed(() => ({ id: Number(this.id()), v: Number(this.v()) })))
-      .pipe(
-        distinctUntilChanged((a, b) => a.id === b.id && a.v === b.v),
-        switchMap(({ id, v }) => {
-          this.load.set({ state: 'loading' });
-          this.refusal.set('');
-          this.justAcknowledged.set(false);
-          return this.fetch(id, v).pipe(
-            map((version): Load => (version ? { state: 'ready', version } : { state: 'missing' })),
-            catchError((e: unknown) => of<Load>(isApiError(e) && e.status === 404 ? { state: 'missing' } : { state: 'failed' })),
-          );
-        }),
-        takeUntilDestroyed(),
-      )
-      .subscribe((load) => {
-        this.load.set(load);
-        this.mine.set(load.state === 'ready' ? (load.version.myAcknowledgement ?? null) : null);
-      });
-
-    // Names of the machine and wheel for the key settings; the ids stand in until they arrive.
-    toObservable(this.version)
-      .pipe(
-        map((v) => (v ? { wheelId: v.content.cutting.wheelId, machineId: v.content.cutting.machineId } : null)),
-        distinctUntilChanged((a, b) => a?.wheelId === b?.wheelId && a?.machineId === b?.machineId),
-        switchMap((ids) =>
-          ids
-            ? forkJoin({ wheel: this.orNull(this.stockApi.wheels.get(ids.wheelId)), machine: this.orNull(this.stockApi.machines.get(ids.machineId)) })
-            : of(NO_STOCK),
-        ),
-        takeUntilDestroyed(),
-      )
-      .subscribe((stock) => this.stock.set(stock));
-  }
 
   protected async acknowledge(): Promise<void> {
     const v = this.version();
@@ -153,10 +118,5 @@ export class AcknowledgePage {
       map((list) => list.find((x) => x.status === 'approved')?.version ?? null),
       switchMap((newest) => (newest === null ? of(null) : this.recipes.version(id, newest, callerHandles(404)))),
     );
-  }
-
-  private orNull<T>(request: Observable<T>): Observable<T | null> {
-    // Shown by the error interceptor; the ids stand in for the names.
-    return request.pipe(catchError(() => of(null)));
   }
 }

@@ -122,11 +122,13 @@ describe('ComparePage', () => {
     (await nextCompare()).req.flush(aComparison(2, 3));
 
     const [from] = await TestbedHarnessEnvironment.loader(harness.fixture).getAllHarnesses(MatSelectHarness);
-    await from.clickOptions({ text: /^v1 ·/ });
+    // The harness waits for the page to settle, which it does once the new pair is answered.
+    const picking = from.clickOptions({ text: /^v1 ·/ });
     const { req, params } = await nextCompare();
     expect(params).toEqual({ from: '1', to: '3' });
     expect(queryParams()).toEqual({ from: '1', to: '3', layout: 'side-by-side' });
     req.flush(aComparison(1, 3));
+    await picking;
   });
 
   it('switches the layout in the URL without asking the server again', async () => {

@@ -1,7 +1,7 @@
 import { Clipboard } from '@angular/cdk/clipboard';
 import { DatePipe, DOCUMENT } from '@angular/common';
-import { ChangeDetectionStrategy, Component, computed, inject, input, signal } from '@angular/core';
-import { takeUntilDestroyed, toObservable } from '@angular/core/rxjs-interop';
+import { ChangeDetectionStrategy, Component, computed, inject, input } from '@angular/core';
+import { rxResource } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
 import { MatButtonToggleModule } from '@angular/material/button-toggle';
 import { MatFormFieldModule } from '@angular/material/form-field';
@@ -9,14 +9,11 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSelectModule } from '@angular/material/select';
 import { Router, RouterLink } from '@angular/router';
-import { catchError, distinctUntilChanged, map, of, switchMap } from 'rxjs';
-import type { RecipeComparison, RecipeVersionDto } from '../../../../shared/recipe-types';
-import { isApiError } from '../../core/http/api-error';
-import { callerHandles } from '../../core/http/caller-handles';
+import type { RecipeVersionDto } from '../../../../shared/recipe-types';
 import { Notifier } from '../../core/notifier/notifier';
-import { RecipeApi } from '../../core/api/recipe-api';
+import { recipeVersions } from '../../core/api/recipe-versions';
+import { WorkflowApi } from '../../core/api/workflow-api';
 import { RECIPE_STATUS_INFO } from '../../ui/recipe-status-chip';
-import { CompareApi } from './compare-api';
 import { type ComparisonLayout, ComparisonView } from './comparison-view';
 
 /** The comparison as the URL names it; `null` until both versions are known. */
@@ -48,8 +45,7 @@ interface Pair {
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class ComparePage {
-  private readonly recipes = inject(RecipeApi);
-  private readonly api = inject(CompareApi);
+  private readonly workflow = inject(WorkflowApi);
   private readonly router = inject(Router);
   private readonly clipboard = inject(Clipboard);
   private readonly notifier = inject(Notifier);
@@ -62,14 +58,11 @@ export class ComparePage {
   readonly to = input<string>();
   readonly layout = input<string>();
 
-  protected readonly state = signal<'loading' | 'missing' | 'failed' | 'ready'>('loading');
-  /** Newest first, as the API lists them. */
-  protected readonly versions = signal<RecipeVersionDto[]>([]);
-  protected readonly comparison = signal<RecipeComparison | null>(null);
-  protected readonly comparing = signal(false);
-  protected readonly compareFailed = signal(false);
-
   protected readonly recipeId = computed(() => Number(this.id()));
+  private readonly loaded = recipeVersions(this.recipeId);
+  protected readonly state = this.loaded.state;
+  /** Newest first, as the API lists them. */
+  protected readonly versions = this.loaded.list;
   protected readonly newest = computed(() => this.versions()[0] ?? null);
   protected readonly shownLayout = computed<ComparisonLayout>(() => (this.layout() === 'inline' ? 'inline' : 'side-by-side'));
 
@@ -88,49 +81,22 @@ export class ComparePage {
     return pair !== null && pair.from === pair.to;
   });
 
+  private readonly comparisonLoad = rxResource({
+    params: computed(
+      () => {
+        const pair = this.pair();
+        return pair && pair.from !== pair.to ? { id: this.recipeId(), ...pair } : undefined;
+      },
+      { equal: (a, b) => a?.id === b?.id && a?.from === b?.from && a?.to === b?.to },
+    ),
+    stream: ({ params }) => this.workflow.compare(params.id, params.from, params.to),
+  });
+  protected readonly comparing = computed(() => this.comparisonLoad.isLoading());
+  /** The error interceptor has already said what went wrong. */
+  protected readonly compareFailed = computed(() => !!this.comparisonLoad.error());
+  protected readonly comparison = computed(() => (this.comparisonLoad.hasValue() ? this.comparisonLoad.value() : null));
+
   protected readonly statusLabel = (status: RecipeVersionDto['status']) => RECIPE_STATUS_INFO[status].label;
-
-  constructor() {
-    toObservable(this.recipeId)
-      .pipe(
-        switchMap((id) => {
-          this.state.set('loading');
-          // A recipe that does not exist gets its own message on this page, not a snack bar.
-          return this.recipes.versions(id, callerHandles(404)).pipe(
-            map((versions) => ({ versions, state: versions.length ? ('ready' as const) : ('missing' as const) })),
-            catchError((e: unknown) => of({ versions: [], state: isApiError(e) && e.status === 404 ? ('missing' as const) : ('failed' as const) })),
-          );
-        }),
-        takeUntilDestroyed(),
-      )
-      .subscribe(({ versions, state }) => {
-        this.versions.set(versions);
-        this.state.set(state);
-      });
-
-    toObservable(computed(() => ({ id: this.recipeId(), pair: this.pair() })))
-      .pipe(
-        distinctUntilChanged((a, b) => a.id === b.id && a.pair?.from === b.pair?.from && a.pair?.to === b.pair?.to),
-        switchMap(({ id, pair }) => {
-          this.comparison.set(null);
-          this.compareFailed.set(false);
-          if (!pair || pair.from === pair.to) return of(null);
-          this.comparing.set(true);
-          // The error interceptor has already told the user what went wrong.
-          return this.api.compare(id, pair).pipe(
-            catchError(() => {
-              this.compareFailed.set(true);
-              return of(null);
-            }),
-          );
-        }),
-        takeUntilDestroyed(),
-      )
-      .subscribe((comparison) => {
-        this.comparing.set(false);
-        this.comparison.set(comparison);
-      });
-  }
 
   protected pickFrom(version: number): void {
     this.show({ from: version }, false);

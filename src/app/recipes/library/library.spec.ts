@@ -133,12 +133,14 @@ describe('Library', () => {
     await open('/library?page=3');
     (await nextListRequest()).req.flush(page(100, 3));
     const [group] = await TestbedHarnessEnvironment.loader(harness.fixture).getAllHarnesses(MatSelectHarness);
-    await group.clickOptions({ text: 'Cemented carbides' });
+    // Harnesses wait for the page to settle, which it does once the list asked for is answered.
+    const choosing = group.clickOptions({ text: 'Cemented carbides' });
 
     const { req, params } = await nextListRequest();
     expect(params).toMatchObject({ group: 'cemented-carbide', page: '0' });
     expect(queryParams()).toEqual({ group: 'cemented-carbide' });
     req.flush(page(1, 0, [recipes[1]]));
+    await choosing;
   });
 
   it('sorts and pages on the server, keeping both in the URL', async () => {
@@ -147,17 +149,19 @@ describe('Library', () => {
     const loader = TestbedHarnessEnvironment.loader(harness.fixture);
 
     const [title] = await (await loader.getHarness(MatSortHarness)).getSortHeaders({ label: 'Title' });
-    await title.click();
+    const sorting = title.click();
     const sorted = await nextListRequest();
     expect(sorted.params).toMatchObject({ sort: 'title', dir: 'asc', page: '0' });
     expect(queryParams()).toEqual({ sort: 'title' });
     sorted.req.flush(page(60));
+    await sorting;
 
-    await (await loader.getHarness(MatPaginatorHarness)).goToNextPage();
+    const paging = (await loader.getHarness(MatPaginatorHarness)).goToNextPage();
     const second = await nextListRequest();
     expect(second.params).toMatchObject({ sort: 'title', page: '1' });
     expect(queryParams()).toEqual({ sort: 'title', page: '1' });
     second.req.flush(page(60, 1));
+    await paging;
   });
 
   it('searches once typing pauses, with the trimmed text', async () => {

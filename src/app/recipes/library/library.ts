@@ -1,6 +1,6 @@
 import { DatePipe } from '@angular/common';
-import { ChangeDetectionStrategy, Component, computed, effect, inject, signal, untracked } from '@angular/core';
-import { takeUntilDestroyed, toObservable, toSignal } from '@angular/core/rxjs-interop';
+import { ChangeDetectionStrategy, Component, computed, effect, inject, untracked } from '@angular/core';
+import { rxResource, takeUntilDestroyed, toSignal } from '@angular/core/rxjs-interop';
 import { NonNullableFormBuilder, ReactiveFormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
@@ -12,7 +12,7 @@ import { MatSelectModule } from '@angular/material/select';
 import { MatSortModule, type Sort } from '@angular/material/sort';
 import { MatTableModule } from '@angular/material/table';
 import { ActivatedRoute, Router, RouterLink } from '@angular/router';
-import { catchError, debounceTime, map, merge, of, switchMap } from 'rxjs';
+import { catchError, debounceTime, map, merge, of } from 'rxjs';
 import type { Page } from '../../../../shared/api-types';
 import type { RecipeSummary } from '../../../../shared/recipe-types';
 import { hasAccess } from '../../../../shared/roles';
@@ -30,6 +30,7 @@ import {
   SHAPE_LABELS,
   type Shape,
 } from '../../../../shared/vocabulary';
+import { latestValue } from '../../core/api/latest-value';
 import { Session } from '../../core/session/session';
 import { CheckSeverityLabel } from '../../ui/check-severity-label';
 import { RecipeApi } from '../../core/api/recipe-api';
@@ -131,26 +132,13 @@ export class Library {
     return !!(p.q || p.group || p.shape || p.machineId || p.status || p.size || p.hardness);
   });
 
-  private readonly reloads = signal(0);
-  protected readonly loading = signal(true);
-  protected readonly loadFailed = signal(false);
-  protected readonly result = signal<Page<RecipeSummary>>({ items: [], total: 0, page: 0, pageSize: 25 });
+  private readonly list = rxResource({ params: () => toRecipeListQuery(this.params()), stream: ({ params }) => this.api.list(params) });
+  protected readonly loading = computed(() => this.list.isLoading());
+  /** The error interceptor has already told the user what went wrong; the last rows stay. */
+  protected readonly loadFailed = computed(() => !!this.list.error());
+  protected readonly result = latestValue<Page<RecipeSummary>>(this.list, { items: [], total: 0, page: 0, pageSize: 25 });
 
   constructor() {
-    toObservable(computed(() => ({ query: toRecipeListQuery(this.params()), reload: this.reloads() })))
-      .pipe(
-        switchMap(({ query }) => {
-          this.loading.set(true);
-          // The error interceptor has already told the user what went wrong.
-          return this.api.list(query).pipe(catchError(() => of(null)));
-        }),
-        takeUntilDestroyed(),
-      )
-      .subscribe((page) => {
-        this.loading.set(false);
-        this.loadFailed.set(page === null);
-        if (page) this.result.set(page);
-      });
 
     // Typing waits for a pause; choosing from a list applies at once.
     const c = this.filters.controls;

@@ -9,13 +9,12 @@ import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSelectModule } from '@angular/material/select';
 import { MatTabsModule } from '@angular/material/tabs';
 import { Router, RouterLink } from '@angular/router';
-import { EMPTY, type Observable, catchError, distinctUntilChanged, firstValueFrom, forkJoin, map, of, switchMap } from 'rxjs';
+import { EMPTY, catchError, distinctUntilChanged, firstValueFrom, switchMap } from 'rxjs';
 import { NO_SAFETY_CLAIM } from '../../../../shared/cautions';
 import type { CheckResult, CheckSeverity } from '../../../../shared/recipe-checks';
 import { computeRecipe } from '../../../../shared/recipe-computations';
 import type { CutRecordDto, MyAcknowledgementDto, RecipeVersionDto } from '../../../../shared/recipe-types';
 import { hasAccess } from '../../../../shared/roles';
-import type { MachineRecord, MaterialRecord, WheelRecord } from '../../../../shared/stock-types';
 import {
   CLAMPING_METHOD_LABELS,
   CUT_MOTION_LABELS,
@@ -33,7 +32,8 @@ import { Notifier } from '../../core/notifier/notifier';
 import { Session } from '../../core/session/session';
 import { CutProfilePlot } from '../../ui/cut-profile-plot/cut-profile-plot';
 import { QuantityPipe } from '../../ui/quantity';
-import { StockApi } from '../../core/api/stock-api';
+import { recipeVersions } from '../../core/api/recipe-versions';
+import { stockNamesOf } from '../../core/api/stock-names';
 import { CommentsPanel } from '../review/comments-panel';
 import { ReasonDialog, type ReasonDialogData } from '../review/reason-dialog';
 import { ReviewComments } from '../review/review-comments';
@@ -52,14 +52,6 @@ import { RecipeHistory } from './recipe-history';
 import { RECIPE_STATUS_INFO, RecipeStatusChip } from '../../ui/recipe-status-chip';
 import { StandardCautions } from './standard-cautions';
 
-/** The stock records a version names, fetched by id (null while loading or when missing). */
-interface StockNames {
-  material: MaterialRecord | null;
-  wheel: WheelRecord | null;
-  machine: MachineRecord | null;
-}
-
-const NO_STOCK: StockNames = { material: null, wheel: null, machine: null };
 const SEVERITY_ORDER: Record<CheckSeverity, number> = { blocker: 0, warning: 1, note: 2 };
 const OPEN_STATUSES: readonly RecipeVersionDto['status'][] = ['draft', 'in-review', 'returned'];
 
@@ -98,7 +90,6 @@ const ATTACHMENT_ROLE_LABELS = { setup: 'Setup', 'good-face': 'Good cut face', '
 })
 export class RecipePage {
   private readonly api = inject(RecipeApi);
-  private readonly stock = inject(StockApi);
   private readonly session = inject(Session);
   private readonly router = inject(Router);
   private readonly workflow = inject(WorkflowApi);
@@ -112,12 +103,21 @@ export class RecipePage {
   /** Query parameter `?tab=cuts`: open on the Cuts tab (from Today's flagged cuts). */
   readonly tab = input<string>();
 
-  protected readonly state = signal<'loading' | 'missing' | 'failed' | 'ready'>('loading');
+  private readonly loaded = recipeVersions(() => Number(this.id()));
+  protected readonly state = this.loaded.state;
+  /**
+   * The operator's own acknowledgement of a version ("recipeId/version" → it), which the list
+   * does not carry; laid over the list.
+   */
+  private readonly myAcknowledgements = signal<ReadonlyMap<string, MyAcknowledgementDto | null>>(new Map());
   /** Newest first, as the API lists them. */
-  protected readonly versions = signal<RecipeVersionDto[]>([]);
-  protected readonly stockNames = signal<StockNames>(NO_STOCK);
-  /** Bumped to fetch the versions again after a workflow step. */
-  private readonly reloads = signal(0);
+  protected readonly versions = computed<RecipeVersionDto[]>(() => {
+    const mine = this.myAcknowledgements();
+    return this.loaded.list().map((x) => {
+      const key = `${x.recipeId}/${x.version}`;
+      return mine.has(key) ? { ...x, myAcknowledgement: mine.get(key) } : x;
+    });
+  });
   protected readonly busy = signal(false);
   /** Why the last submit was refused (blockers found by the server, or a changed version). */
   protected readonly submitError = signal<string[]>([]);
@@ -185,6 +185,8 @@ export class RecipePage {
   /** Index of the Cuts tab, the last one; the Comments tab is left out while comments sit above the tabs. */
   protected readonly initialTab = computed(() => (this.tab() === 'cuts' ? (this.commentsUpFront() ? 6 : 7) : 0));
 
+  protected readonly stockNames = stockNamesOf(() => this.version()?.content);
+
   protected readonly computed = computed(() => {
     const version = this.version();
     if (!version) return null;
@@ -216,48 +218,6 @@ export class RecipePage {
   protected readonly today = utcToday();
 
   constructor() {
-    toObservable(computed(() => ({ id: this.id(), reload: this.reloads() })))
-      .pipe(
-        switchMap(({ id, reload }) => {
-          // A reload after a workflow step keeps the page on screen while it fetches.
-          if (!reload) this.state.set('loading');
-          // A recipe that does not exist gets its own message on this page, not a snack bar.
-          return this.api.versions(Number(id), callerHandles(404)).pipe(
-            map((versions) => ({ versions, state: versions.length ? ('ready' as const) : ('missing' as const) })),
-            catchError((e: unknown) => of({ versions: [], state: isApiError(e) && e.status === 404 ? ('missing' as const) : ('failed' as const) })),
-          );
-        }),
-        takeUntilDestroyed(),
-      )
-      .subscribe(({ versions, state }) => {
-        this.versions.set(versions);
-        this.state.set(state);
-      });
-
-    // Names and figures of the stock the shown version uses; fetched again only when the ids change.
-    toObservable(
-      computed(() => {
-        const content = this.version()?.content;
-        return content
-          ? { materialId: content.scope.materialId, wheelId: content.cutting.wheelId, machineId: content.cutting.machineId }
-          : null;
-      }),
-    )
-      .pipe(
-        distinctUntilChanged((a, b) => JSON.stringify(a) === JSON.stringify(b)),
-        switchMap((ids) =>
-          ids
-            ? forkJoin({
-                material: ids.materialId ? this.orNull(this.stock.materials.get(ids.materialId)) : of(null),
-                wheel: this.orNull(this.stock.wheels.get(ids.wheelId)),
-                machine: this.orNull(this.stock.machines.get(ids.machineId)),
-              })
-            : of(NO_STOCK),
-        ),
-        takeUntilDestroyed(),
-      )
-      .subscribe((names) => this.stockNames.set(names));
-
     // The versions list does not say whether this operator must still acknowledge the shown
     // version; the single version does. Asked for approved versions only, once each.
     toObservable(
@@ -277,7 +237,7 @@ export class RecipePage {
         }),
         takeUntilDestroyed(),
       )
-      .subscribe((fresh) => this.setMyAcknowledgement(fresh.version, fresh.myAcknowledgement ?? null));
+      .subscribe((fresh) => this.setMyAcknowledgement(fresh, fresh.myAcknowledgement ?? null));
   }
 
   protected showVersion(version: number): void {
@@ -341,7 +301,7 @@ export class RecipePage {
         .afterClosed(),
     );
     if (result === 'reload') {
-      this.reloads.update((n) => n + 1);
+      this.loaded.resource.reload();
     } else if (result) {
       this.replace(result);
       void this.notifier.show(`${result.number} version ${result.version} is withdrawn.`);
@@ -354,12 +314,12 @@ export class RecipePage {
     if (!v) return;
     const mine = await askToAcknowledge(this.dialog, { recipeId: v.recipeId, number: v.number, title: v.title, version: v.version });
     if (!mine) return;
-    this.setMyAcknowledgement(v.version, mine);
+    this.setMyAcknowledgement(v, mine);
     void this.notifier.show(`${v.number} version ${v.version} acknowledged.`);
   }
 
-  private setMyAcknowledgement(version: number, mine: MyAcknowledgementDto | null): void {
-    this.versions.update((list) => list.map((x) => (x.version === version ? { ...x, myAcknowledgement: mine } : x)));
+  private setMyAcknowledgement(version: Pick<RecipeVersionDto, 'recipeId' | 'version'>, mine: MyAcknowledgementDto | null): void {
+    this.myAcknowledgements.update((known) => new Map(known).set(`${version.recipeId}/${version.version}`, mine));
   }
 
   protected async logCut(): Promise<void> {
@@ -386,17 +346,12 @@ export class RecipePage {
 
   protected reload(): void {
     this.submitError.set([]);
-    this.reloads.update((n) => n + 1);
+    this.loaded.resource.reload();
   }
 
   /** Puts the server's answer in place of the version it updates, and fetches the rest again (a step can change other versions). */
   private replace(updated: RecipeVersionDto): void {
-    this.versions.update((list) => list.map((x) => (x.version === updated.version ? updated : x)));
-    this.reloads.update((n) => n + 1);
-  }
-
-  private orNull<T>(request: Observable<T>): Observable<T | null> {
-    // Shown by the error interceptor; the page still shows what it has.
-    return request.pipe(catchError(() => of(null)));
+    this.loaded.resource.update((list) => list?.map((x) => (x.version === updated.version ? updated : x)));
+    this.loaded.resource.reload();
   }
 }

@@ -1,13 +1,13 @@
 import { DatePipe } from '@angular/common';
-import { ChangeDetectionStrategy, Component, computed, inject, input, signal } from '@angular/core';
-import { takeUntilDestroyed, toObservable } from '@angular/core/rxjs-interop';
+import { ChangeDetectionStrategy, Component, computed, inject, input, linkedSignal } from '@angular/core';
+import { rxResource } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
 import { MatCheckboxModule } from '@angular/material/checkbox';
 import { MatDialog } from '@angular/material/dialog';
 import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { Router, RouterLink } from '@angular/router';
-import { type Observable, catchError, distinctUntilChanged, firstValueFrom, forkJoin, map, of, switchMap } from 'rxjs';
+import { firstValueFrom } from 'rxjs';
 import { NO_SAFETY_CLAIM } from '../../../../shared/cautions';
 import type { CheckResult, CheckSeverity } from '../../../../shared/recipe-checks';
 import type { RecipeComparison, RecipeVersionDto } from '../../../../shared/recipe-types';
@@ -18,16 +18,14 @@ import {
   MATERIAL_GROUP_LABELS,
   SHAPE_LABELS,
 } from '../../../../shared/vocabulary';
-import { isApiError } from '../../core/http/api-error';
 import { callerHandles } from '../../core/http/caller-handles';
 import { Notifier } from '../../core/notifier/notifier';
 import { Session } from '../../core/session/session';
 import { CheckSeverityLabel } from '../../ui/check-severity-label';
-import { RecipeApi } from '../../core/api/recipe-api';
+import { recipeVersions } from '../../core/api/recipe-versions';
+import { type StockNames, stockNamesOf } from '../../core/api/stock-names';
 import { RecipeStatusChip } from '../../ui/recipe-status-chip';
 import { formatMetric } from '../../ui/quantity';
-import { StockApi } from '../../core/api/stock-api';
-import type { MachineRecord, MaterialRecord, WheelRecord } from '../../../../shared/stock-types';
 import { MarkdownView } from '../../ui/markdown-view';
 import { ComparisonView } from '../compare/comparison-view';
 import { ReasonDialog, type ReasonDialogData } from './reason-dialog';
@@ -36,13 +34,6 @@ import { SignatureDialog, type SignatureDialogData, type SignatureDialogResult }
 import { SignatureList } from '../../ui/signature-list';
 import { WorkflowApi } from '../../core/api/workflow-api';
 
-interface StockNames {
-  material: MaterialRecord | null;
-  wheel: WheelRecord | null;
-  machine: MachineRecord | null;
-}
-
-const NO_STOCK: StockNames = { material: null, wheel: null, machine: null };
 const SEVERITY_ORDER: Record<CheckSeverity, number> = { blocker: 0, warning: 1, note: 2 };
 const COOLANT_LABELS = { 'water-soluble': 'Water-soluble coolant', oil: 'Cutting oil', dry: 'Dry (no coolant)' } as const;
 
@@ -81,9 +72,7 @@ export function comparisonBase(versions: readonly RecipeVersionDto[], shown: Rec
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class ReviewPage {
-  private readonly recipes = inject(RecipeApi);
   private readonly workflow = inject(WorkflowApi);
-  private readonly stock = inject(StockApi);
   private readonly session = inject(Session);
   private readonly dialog = inject(MatDialog);
   private readonly notifier = inject(Notifier);
@@ -94,13 +83,12 @@ export class ReviewPage {
   /** Query parameter `?v=N`: the version under review; the one in review (or the newest) when absent. */
   readonly v = input<string>();
 
-  protected readonly state = signal<'loading' | 'missing' | 'failed' | 'ready'>('loading');
-  protected readonly versions = signal<RecipeVersionDto[]>([]);
-  protected readonly stockNames = signal<StockNames>(NO_STOCK);
-  protected readonly comparison = signal<RecipeComparison | 'loading' | 'failed' | null>(null);
-  /** Ids of the warnings the approver has ticked. */
-  protected readonly acknowledged = signal<ReadonlySet<string>>(new Set());
-  private readonly reloads = signal(0);
+  private readonly loaded = recipeVersions(() => Number(this.id()));
+  /** While the versions load again (after a refused signature) the page waits for them. */
+  protected readonly state = computed(() => (this.loaded.resource.isLoading() ? 'loading' : this.loaded.state()));
+  protected readonly versions = this.loaded.list;
+  /** Ids of the warnings the approver has ticked; none again whenever the versions are loaded. */
+  protected readonly acknowledged = linkedSignal<RecipeVersionDto[], ReadonlySet<string>>({ source: this.versions, computation: () => new Set() });
 
   protected readonly version = computed<RecipeVersionDto | null>(() => {
     const list = this.versions();
@@ -110,6 +98,25 @@ export class ReviewPage {
   protected readonly baseVersion = computed(() => {
     const shown = this.version();
     return shown ? comparisonBase(this.versions(), shown) : null;
+  });
+  private readonly comparisonPair = computed(
+    () => {
+      const v = this.version();
+      const from = this.baseVersion();
+      return v && from !== null ? { id: v.recipeId, from, to: v.version } : undefined;
+    },
+    { equal: (a, b) => a?.id === b?.id && a?.from === b?.from && a?.to === b?.to },
+  );
+  private readonly comparisonLoad = rxResource({
+    params: this.comparisonPair,
+    stream: ({ params }) => this.workflow.compare(params.id, params.from, params.to),
+  });
+  /** The comparison with the version it replaces; null for a first version. */
+  protected readonly comparison = computed<RecipeComparison | 'loading' | 'failed' | null>(() => {
+    const load = this.comparisonLoad;
+    if (load.status() === 'idle') return null;
+    if (load.error()) return 'failed';
+    return load.hasValue() ? load.value() : 'loading';
   });
   protected readonly comparisonResult = computed(() => {
     const c = this.comparison();
@@ -128,69 +135,12 @@ export class ReviewPage {
     if (!v || me === undefined) return false;
     return (v.workflow?.editorIds ?? [v.createdBy.id, v.updatedBy.id]).includes(me);
   });
+  protected readonly stockNames = stockNamesOf(() => this.version()?.content);
   protected readonly summary = computed(() => {
     const v = this.version();
     return v ? this.summarise(v, this.stockNames()) : [];
   });
   protected readonly noSafetyClaim = NO_SAFETY_CLAIM;
-
-  constructor() {
-    toObservable(computed(() => ({ id: Number(this.id()), reload: this.reloads() })))
-      .pipe(
-        switchMap(({ id }) => {
-          this.state.set('loading');
-          return this.recipes.versions(id, callerHandles(404)).pipe(
-            map((versions) => ({ versions, state: versions.length ? ('ready' as const) : ('missing' as const) })),
-            catchError((e: unknown) => of({ versions: [], state: isApiError(e) && e.status === 404 ? ('missing' as const) : ('failed' as const) })),
-          );
-        }),
-        takeUntilDestroyed(),
-      )
-      .subscribe(({ versions, state }) => {
-        this.versions.set(versions);
-        this.acknowledged.set(new Set());
-        this.state.set(state);
-      });
-
-    toObservable(
-      computed(() => {
-        const content = this.version()?.content;
-        return content ? { materialId: content.scope.materialId, wheelId: content.cutting.wheelId, machineId: content.cutting.machineId } : null;
-      }),
-    )
-      .pipe(
-        distinctUntilChanged((a, b) => JSON.stringify(a) === JSON.stringify(b)),
-        switchMap((ids) =>
-          ids
-            ? forkJoin({
-                material: ids.materialId ? this.orNull(this.stock.materials.get(ids.materialId)) : of(null),
-                wheel: this.orNull(this.stock.wheels.get(ids.wheelId)),
-                machine: this.orNull(this.stock.machines.get(ids.machineId)),
-              })
-            : of(NO_STOCK),
-        ),
-        takeUntilDestroyed(),
-      )
-      .subscribe((names) => this.stockNames.set(names));
-
-    toObservable(
-      computed(() => {
-        const v = this.version();
-        const from = this.baseVersion();
-        return v && from !== null ? { id: v.recipeId, from, to: v.version } : null;
-      }),
-    )
-      .pipe(
-        distinctUntilChanged((a, b) => JSON.stringify(a) === JSON.stringify(b)),
-        switchMap((pair) => {
-          if (!pair) return of(null);
-          this.comparison.set('loading');
-          return this.workflow.compare(pair.id, pair.from, pair.to).pipe(catchError(() => of('failed' as const)));
-        }),
-        takeUntilDestroyed(),
-      )
-      .subscribe((comparison) => this.comparison.set(comparison));
-  }
 
   protected setAcknowledged(id: string, checked: boolean): void {
     const next = new Set(this.acknowledged());
@@ -236,7 +186,7 @@ export class ReviewPage {
         .afterClosed(),
     );
     if (result === 'reload') {
-      this.reloads.update((n) => n + 1);
+      this.loaded.resource.reload();
     } else if (result) {
       void this.notifier.show(`${result.number} version ${result.version} is approved and signed.`);
       void this.router.navigate(['/recipes', result.recipeId], { queryParams: { v: result.version } });
@@ -274,9 +224,5 @@ export class ReviewPage {
     ];
     if (c.cutting.entryFeedMmS !== null) rows.splice(8, 0, { label: 'Entry feed', value: formatMetric(c.cutting.entryFeedMmS, 'mm/s', units) });
     return rows;
-  }
-
-  private orNull<T>(request: Observable<T>): Observable<T | null> {
-    return request.pipe(catchError(() => of(null)));
   }
 }
