@@ -6,6 +6,7 @@ import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { RouterLink } from '@angular/router';
 import type { RecipeSummary, TodayDto } from '../../../shared/recipe-types';
 import { ROLE_INFO, type Role, hasAccess } from '../../../shared/roles';
+import { shortDate } from '../core/dates/calendar';
 import { Session } from '../core/session/session';
 import { RecipeStatusChip } from '../ui/recipe-status-chip';
 import { WorkflowApi } from '../core/api/workflow-api';
@@ -133,8 +134,4 @@ export class Today {
     }
     return lists;
   });
-}
-
-function shortDate(iso: string): string {
-  return new Date(iso).toLocaleDateString('en-GB', { day: 'numeric', month: 'short', year: 'numeric', timeZone: 'UTC' });
 }

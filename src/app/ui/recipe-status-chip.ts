@@ -1,15 +1,15 @@
 import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
 import { MatIconModule } from '@angular/material/icon';
-import type { RecipeStatus } from '../../../shared/vocabulary';
+import { RECIPE_STATUS_LABELS, type RecipeStatus } from '../../../shared/vocabulary';
 
-/** Plain-words status labels, with an icon each so the status never depends on colour alone. */
-export const RECIPE_STATUS_INFO: Record<RecipeStatus, { label: string; icon: string }> = {
-  draft: { label: 'Draft', icon: 'edit_note' },
-  'in-review': { label: 'In review', icon: 'rate_review' },
-  returned: { label: 'Returned', icon: 'undo' },
-  approved: { label: 'Approved', icon: 'verified' },
-  superseded: { label: 'Superseded', icon: 'history' },
-  withdrawn: { label: 'Withdrawn', icon: 'block' },
+/** An icon for each status beside its word, so the status never depends on colour alone. */
+const RECIPE_STATUS_ICONS: Record<RecipeStatus, string> = {
+  draft: 'edit_note',
+  'in-review': 'rate_review',
+  returned: 'undo',
+  approved: 'verified',
+  superseded: 'history',
+  withdrawn: 'block',
 };
 
 /** A recipe version's status as a small labelled chip. */
@@ -58,5 +58,5 @@ export const RECIPE_STATUS_INFO: Record<RecipeStatus, { label: string; icon: str
 })
 export class RecipeStatusChip {
   readonly status = input.required<RecipeStatus>();
-  protected readonly info = computed(() => RECIPE_STATUS_INFO[this.status()]);
+  protected readonly info = computed(() => ({ icon: RECIPE_STATUS_ICONS[this.status()], label: RECIPE_STATUS_LABELS[this.status()] }));
 }

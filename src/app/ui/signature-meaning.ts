@@ -5,8 +5,3 @@ export const SIGNATURE_MEANING_INFO: Record<SignatureMeaning, { label: string; s
   approved: { label: 'Approved', statement: 'I have reviewed this version and approve it for use', icon: 'verified' },
   withdrawn: { label: 'Withdrawn', statement: 'this version must no longer be used', icon: 'block' },
 };
-
-/** Today as a UTC calendar date, YYYY-MM-DD: the form the server's effective dates take. */
-export function utcToday(now = new Date()): string {
-  return now.toISOString().slice(0, 10);
-}

@@ -1,5 +1,6 @@
 import type { FormGroup } from '@angular/forms';
 import type { z } from 'zod';
+import { toFieldErrors } from '../../../../shared/validation';
 import { applyServerErrors } from './server-errors';
 
 /**
@@ -16,7 +17,6 @@ export function checkWholeBody<S extends z.ZodType>(
 ): z.infer<S> | null {
   const result = schema.safeParse(body);
   if (result.success) return result.data;
-  const errors = result.error.issues.map((issue) => ({ path: issue.path.map(String).join('.'), message: issue.message }));
-  unmatched(applyServerErrors(form, errors));
+  unmatched(applyServerErrors(form, toFieldErrors(result.error)));
   return null;
 }

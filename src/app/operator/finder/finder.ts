@@ -29,6 +29,7 @@ import { askToAcknowledge } from '../../ui/acknowledge-dialog';
 import { mustAcknowledge } from '../../ui/acknowledgement-state';
 import { controlMessage } from '../../core/forms/control-message';
 import { applyServerErrors } from '../../core/forms/server-errors';
+import { zodValidator } from '../../core/forms/zod-validator';
 import { isApiError } from '../../core/http/api-error';
 import { callerHandles } from '../../core/http/caller-handles';
 import { Notifier } from '../../core/notifier/notifier';
@@ -44,12 +45,8 @@ type Results = { state: 'idle' } | { state: 'loading' } | { state: 'failed'; mes
 
 /** An optional number field checked with the shared schema's words; empty is fine. */
 function optionalNumber(schema: (typeof finderQuery.shape)['sizeMm' | 'hardnessValue']): ValidatorFn {
-  return (control) => {
-    const value: unknown = control.value;
-    if (value === null || value === '') return null;
-    const result = schema.safeParse(value);
-    return result.success ? null : { zod: result.error.issues[0]?.message ?? 'This value is not valid.' };
-  };
+  const check = zodValidator(schema);
+  return (control) => (control.value === null || control.value === '' ? null : check(control));
 }
 
 /**

@@ -10,7 +10,7 @@ import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { Router, RouterLink } from '@angular/router';
 import type { CutTrace } from '../../../../shared/recipe-types';
 import { cutSearchQuery } from '../../../../shared/schemas/operator';
-import { CLAMPING_METHOD_LABELS, CUT_MOTION_LABELS, SHAPE_LABELS } from '../../../../shared/vocabulary';
+import { CLAMPING_METHOD_LABELS, COOLANT_TYPE_LABELS, CUT_MOTION_LABELS, SHAPE_LABELS } from '../../../../shared/vocabulary';
 import { controlMessage } from '../../core/forms/control-message';
 import { zodValidator } from '../../core/forms/zod-validator';
 import { Session } from '../../core/session/session';
@@ -20,8 +20,6 @@ import { CutOutcomeLabel } from '../../ui/cut-outcome-label';
 import { CutsApi } from '../../core/api/cuts-api';
 
 type Load = { state: 'idle' } | { state: 'loading' } | { state: 'failed' } | { state: 'ready'; traces: CutTrace[] };
-
-const COOLANT_LABELS = { 'water-soluble': 'Water-soluble coolant', oil: 'Cutting oil', dry: 'Dry (no coolant)' } as const;
 
 /** Specimen trace (design section 9): from a specimen id to the cut, the exact version used, its key parameters and signatures. */
 @Component({
@@ -57,7 +55,7 @@ export class SpecimenTrace {
   protected readonly motionLabel = CUT_MOTION_LABELS;
   protected readonly clampingLabel = CLAMPING_METHOD_LABELS;
   protected readonly shapeLabel = SHAPE_LABELS;
-  protected readonly coolantLabel = COOLANT_LABELS;
+  protected readonly coolantLabel = COOLANT_TYPE_LABELS;
 
   constructor() {
     // The specimen in the URL shows in the field (on arrival, back and forward).

@@ -7,14 +7,15 @@ import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { RouterLink } from '@angular/router';
 import { type Observable, firstValueFrom, map, of, switchMap } from 'rxjs';
 import type { MyAcknowledgementDto, RecipeVersionDto } from '../../../../shared/recipe-types';
+import { RECIPE_STATUS_LABELS } from '../../../../shared/vocabulary';
 import { isApiError } from '../../core/http/api-error';
 import { callerHandles } from '../../core/http/caller-handles';
 import { Session } from '../../core/session/session';
 import { benchSheetUrl } from '../../core/api/bench-sheet';
 import { KeyParameters } from './key-parameters';
 import { RecipeApi } from '../../core/api/recipe-api';
-import { RECIPE_STATUS_INFO, RecipeStatusChip } from '../../ui/recipe-status-chip';
-import { utcToday } from '../../ui/signature-meaning';
+import { RecipeStatusChip } from '../../ui/recipe-status-chip';
+import { utcToday } from '../../core/dates/calendar';
 import { stockNamesOf } from '../../core/api/stock-names';
 import { MarkdownView } from '../../ui/markdown-view';
 import { AcknowledgeApi } from '../../core/api/acknowledge-api';
@@ -84,7 +85,7 @@ export class AcknowledgePage {
     return v ? benchSheetUrl(v.recipeId, v.version) : null;
   });
   protected readonly units = computed(() => this.session.user()?.units ?? 'metric');
-  protected readonly statusLabel = (status: RecipeVersionDto['status']) => RECIPE_STATUS_INFO[status].label;
+  protected readonly statusLabel = (status: RecipeVersionDto['status']) => RECIPE_STATUS_LABELS[status];
   /** The confirmation box: it takes the focus (and the scroll) once the acknowledgement is recorded. */
   private readonly confirmation = viewChild<ElementRef<HTMLElement>>('confirmation');
   /** YYYY-MM-DD (UTC), to word an effective date still to come. */

@@ -2,10 +2,8 @@ import { ChangeDetectionStrategy, Component, input } from '@angular/core';
 import type { UnitPreference } from '../../../../shared/api-types';
 import type { RecipeContent } from '../../../../shared/schemas/recipe';
 import type { MachineRecord, WheelRecord } from '../../../../shared/stock-types';
-import { CLAMPING_METHOD_LABELS, CUT_MOTION_LABELS } from '../../../../shared/vocabulary';
+import { CLAMPING_METHOD_LABELS, COOLANT_TYPE_LABELS, CUT_MOTION_LABELS } from '../../../../shared/vocabulary';
 import { QuantityPipe } from '../../ui/quantity';
-
-export const COOLANT_LABELS = { 'water-soluble': 'Water-soluble coolant', oil: 'Cutting oil', dry: 'Dry (no coolant)' } as const;
 
 /**
  * The settings an operator dials in at the saw, in one compact list: machine, wheel, speeds,
@@ -98,5 +96,5 @@ export class KeyParameters {
 
   protected readonly motionLabel = CUT_MOTION_LABELS;
   protected readonly clampingLabel = CLAMPING_METHOD_LABELS;
-  protected readonly coolantLabel = COOLANT_LABELS;
+  protected readonly coolantLabel = COOLANT_TYPE_LABELS;
 }

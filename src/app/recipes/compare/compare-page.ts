@@ -10,10 +10,10 @@ import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSelectModule } from '@angular/material/select';
 import { Router, RouterLink } from '@angular/router';
 import type { RecipeVersionDto } from '../../../../shared/recipe-types';
+import { RECIPE_STATUS_LABELS } from '../../../../shared/vocabulary';
 import { Notifier } from '../../core/notifier/notifier';
 import { recipeVersions } from '../../core/api/recipe-versions';
 import { WorkflowApi } from '../../core/api/workflow-api';
-import { RECIPE_STATUS_INFO } from '../../ui/recipe-status-chip';
 import { type ComparisonLayout, ComparisonView } from './comparison-view';
 
 /** The comparison as the URL names it; `null` until both versions are known. */
@@ -96,7 +96,7 @@ export class ComparePage {
   protected readonly compareFailed = computed(() => !!this.comparisonLoad.error());
   protected readonly comparison = computed(() => (this.comparisonLoad.hasValue() ? this.comparisonLoad.value() : null));
 
-  protected readonly statusLabel = (status: RecipeVersionDto['status']) => RECIPE_STATUS_INFO[status].label;
+  protected readonly statusLabel = (status: RecipeVersionDto['status']) => RECIPE_STATUS_LABELS[status];
 
   protected pickFrom(version: number): void {
     this.show({ from: version }, false);

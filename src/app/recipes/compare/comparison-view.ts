@@ -2,7 +2,7 @@ import { NgTemplateOutlet } from '@angular/common';
 import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
 import type { RecipeComparison, TextChange } from '../../../../shared/recipe-types';
 import type { RecipeStatus } from '../../../../shared/vocabulary';
-import { RECIPE_STATUS_INFO } from '../../ui/recipe-status-chip';
+import { RECIPE_STATUS_LABELS } from '../../../../shared/vocabulary';
 
 /** How a text diff is laid out: the two versions in columns, or one flow with both marked. */
 export type ComparisonLayout = 'side-by-side' | 'inline';
@@ -78,7 +78,7 @@ export class ComparisonView {
   protected readonly unchanged = computed(() => this.comparison().parameters.length === 0 && this.comparison().texts.length === 0);
 
   private versionLabel(side: RecipeComparison['from']): string {
-    const status = RECIPE_STATUS_INFO[side.status as RecipeStatus]?.label ?? side.status;
+    const status = RECIPE_STATUS_LABELS[side.status as RecipeStatus] ?? side.status;
     return `Version ${side.version} (${status})`;
   }
 }

@@ -11,6 +11,7 @@ import type {
   Shape,
 } from '../../../../shared/vocabulary';
 import { requiredText } from '../../../../shared/schemas/numbers';
+import { toFieldErrors } from '../../../../shared/validation';
 import { zodValidator } from '../../core/forms/zod-validator';
 
 /** Motions that take a number of passes (design 5.6). */
@@ -154,9 +155,8 @@ export function contentIssues(value: FormContent): Map<string, string> {
   const result = recipeContent.safeParse(toContent(value));
   const issues = new Map<string, string>();
   if (!result.success) {
-    for (const issue of result.error.issues) {
-      const path = issue.path.map(String).join('.');
-      if (!issues.has(path)) issues.set(path, issue.message);
+    for (const { path, message } of toFieldErrors(result.error)) {
+      if (!issues.has(path)) issues.set(path, message);
     }
   }
   return issues;

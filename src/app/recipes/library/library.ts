@@ -25,6 +25,7 @@ import {
   MATERIAL_GROUP_LABELS,
   type MaterialGroup,
   RECIPE_STATUSES,
+  RECIPE_STATUS_LABELS,
   type RecipeStatus,
   SHAPES,
   SHAPE_LABELS,
@@ -34,7 +35,7 @@ import { latestValue } from '../../core/api/latest-value';
 import { Session } from '../../core/session/session';
 import { CheckSeverityLabel } from '../../ui/check-severity-label';
 import { RecipeApi } from '../../core/api/recipe-api';
-import { RECIPE_STATUS_INFO, RecipeStatusChip } from '../../ui/recipe-status-chip';
+import { RecipeStatusChip } from '../../ui/recipe-status-chip';
 import { QuantityPipe } from '../../ui/quantity';
 import { StockApi } from '../../core/api/stock-api';
 import {
@@ -91,7 +92,7 @@ export class Library {
   protected readonly pageSizeOptions = LIBRARY_PAGE_SIZES;
   protected readonly groups = MATERIAL_GROUPS.map((id) => ({ id, label: MATERIAL_GROUP_LABELS[id] }));
   protected readonly shapes = SHAPES.map((id) => ({ id, label: SHAPE_LABELS[id] }));
-  protected readonly statuses = RECIPE_STATUSES.map((id) => ({ id, label: RECIPE_STATUS_INFO[id].label }));
+  protected readonly statuses = RECIPE_STATUSES.map((id) => ({ id, label: RECIPE_STATUS_LABELS[id] }));
   protected readonly scales = HARDNESS_SCALES;
   protected readonly groupLabel = (group: MaterialGroup) => MATERIAL_GROUP_LABELS[group];
   protected readonly shapeLabel = (shape: Shape) => SHAPE_LABELS[shape];

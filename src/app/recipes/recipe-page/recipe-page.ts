@@ -17,9 +17,12 @@ import type { CutRecordDto, MyAcknowledgementDto, RecipeVersionDto } from '../..
 import { hasAccess } from '../../../../shared/roles';
 import {
   CLAMPING_METHOD_LABELS,
+  COOLANT_TYPE_LABELS,
   CUT_MOTION_LABELS,
+  CUT_ORIENTATION_LABELS,
   MACHINE_CLASS_LABELS,
   MATERIAL_GROUP_LABELS,
+  RECIPE_STATUS_LABELS,
   SHAPE_LABELS,
   WHEEL_KIND_LABELS,
 } from '../../../../shared/vocabulary';
@@ -39,23 +42,21 @@ import { ReasonDialog, type ReasonDialogData } from '../review/reason-dialog';
 import { ReviewComments } from '../review/review-comments';
 import { SignatureDialog, type SignatureDialogData, type SignatureDialogResult } from '../review/signature-dialog';
 import { SignatureList } from '../../ui/signature-list';
-import { utcToday } from '../../ui/signature-meaning';
+import { utcToday } from '../../core/dates/calendar';
 import { WorkflowApi } from '../../core/api/workflow-api';
 import { MarkdownView } from '../../ui/markdown-view';
 import { LogCutDialog, type LogCutDialogData } from '../../ui/log-cut-dialog/log-cut-dialog';
 import { RecipeCuts } from '../cuts/recipe-cuts';
 import { benchSheetUrl } from '../../core/api/bench-sheet';
 import { CheckSeverityLabel } from '../../ui/check-severity-label';
-import { COOLANT_LABELS } from '../acknowledge/key-parameters';
 import { RecipeApi } from '../../core/api/recipe-api';
 import { RecipeHistory } from './recipe-history';
-import { RECIPE_STATUS_INFO, RecipeStatusChip } from '../../ui/recipe-status-chip';
+import { RecipeStatusChip } from '../../ui/recipe-status-chip';
 import { StandardCautions } from './standard-cautions';
 
 const SEVERITY_ORDER: Record<CheckSeverity, number> = { blocker: 0, warning: 1, note: 2 };
 const OPEN_STATUSES: readonly RecipeVersionDto['status'][] = ['draft', 'in-review', 'returned'];
 
-const ORIENTATION_LABELS = { transverse: 'Transverse', longitudinal: 'Longitudinal', other: 'Other' } as const;
 const ATTACHMENT_ROLE_LABELS = { setup: 'Setup', 'good-face': 'Good cut face', 'bad-face': 'Bad cut face', other: 'Other' } as const;
 
 /** Recipe: one version of a recipe, read-only, with its computed values, checks, instructions and photos. */
@@ -203,15 +204,15 @@ export class RecipePage {
     return counts;
   });
 
-  protected readonly statusLabel = (status: RecipeVersionDto['status']) => RECIPE_STATUS_INFO[status].label;
+  protected readonly statusLabel = (status: RecipeVersionDto['status']) => RECIPE_STATUS_LABELS[status];
   protected readonly groupLabel = MATERIAL_GROUP_LABELS;
   protected readonly shapeLabel = SHAPE_LABELS;
   protected readonly motionLabel = CUT_MOTION_LABELS;
   protected readonly clampingLabel = CLAMPING_METHOD_LABELS;
   protected readonly machineClassLabel = MACHINE_CLASS_LABELS;
   protected readonly wheelKindLabel = WHEEL_KIND_LABELS;
-  protected readonly coolantLabel = COOLANT_LABELS;
-  protected readonly orientationLabel = ORIENTATION_LABELS;
+  protected readonly coolantLabel = COOLANT_TYPE_LABELS;
+  protected readonly orientationLabel = CUT_ORIENTATION_LABELS;
   protected readonly attachmentRoleLabel = ATTACHMENT_ROLE_LABELS;
   protected readonly noSafetyClaim = NO_SAFETY_CLAIM;
   /** YYYY-MM-DD (UTC), to tell an approved version that is not yet current. */

@@ -13,6 +13,7 @@ import type { CheckResult, CheckSeverity } from '../../../../shared/recipe-check
 import type { RecipeComparison, RecipeVersionDto } from '../../../../shared/recipe-types';
 import {
   CLAMPING_METHOD_LABELS,
+  COOLANT_TYPE_LABELS,
   CUT_MOTION_LABELS,
   MACHINE_CLASS_LABELS,
   MATERIAL_GROUP_LABELS,
@@ -35,7 +36,6 @@ import { SignatureList } from '../../ui/signature-list';
 import { WorkflowApi } from '../../core/api/workflow-api';
 
 const SEVERITY_ORDER: Record<CheckSeverity, number> = { blocker: 0, warning: 1, note: 2 };
-const COOLANT_LABELS = { 'water-soluble': 'Water-soluble coolant', oil: 'Cutting oil', dry: 'Dry (no coolant)' } as const;
 
 /**
  * The version an approver compares against: the approved one it would replace, else the
@@ -219,7 +219,7 @@ export class ReviewPage {
       { label: 'Clamping', value: c.clamping.method ? CLAMPING_METHOD_LABELS[c.clamping.method] : 'none chosen' },
       {
         label: 'Coolant',
-        value: COOLANT_LABELS[c.coolant.type] + (c.coolant.concentrationPct !== null ? `, ${formatMetric(c.coolant.concentrationPct, '% v/v', units)}` : ''),
+        value: COOLANT_TYPE_LABELS[c.coolant.type] + (c.coolant.concentrationPct !== null ? `, ${formatMetric(c.coolant.concentrationPct, '% v/v', units)}` : ''),
       },
     ];
     if (c.cutting.entryFeedMmS !== null) rows.splice(8, 0, { label: 'Entry feed', value: formatMetric(c.cutting.entryFeedMmS, 'mm/s', units) });

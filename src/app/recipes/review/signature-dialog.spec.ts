@@ -10,7 +10,7 @@ import { errorInterceptor } from '../../core/http/error-interceptor';
 import { Notifier } from '../../core/notifier/notifier';
 import { Session } from '../../core/session/session';
 import { SignatureDialog, type SignatureDialogData } from './signature-dialog';
-import { utcToday } from '../../ui/signature-meaning';
+import { utcToday } from '../../core/dates/calendar';
 
 describe('SignatureDialog', () => {
   let fixture: ComponentFixture<SignatureDialog>;

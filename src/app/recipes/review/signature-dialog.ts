@@ -16,7 +16,8 @@ import { zodValidator } from '../../core/forms/zod-validator';
 import { isApiError } from '../../core/http/api-error';
 import { callerHandles } from '../../core/http/caller-handles';
 import { Session } from '../../core/session/session';
-import { SIGNATURE_MEANING_INFO, utcToday } from '../../ui/signature-meaning';
+import { utcToday } from '../../core/dates/calendar';
+import { SIGNATURE_MEANING_INFO } from '../../ui/signature-meaning';
 import { WorkflowApi } from '../../core/api/workflow-api';
 
 export interface SignatureDialogData {
