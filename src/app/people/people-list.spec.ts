@@ -13,7 +13,8 @@ import { aUser } from '../../testing/user-fixture';
 import { Notifier } from '../core/notifier/notifier';
 import { errorInterceptor } from '../core/http/error-interceptor';
 import { Session } from '../core/session/session';
-import { PeopleList, SEARCH_DEBOUNCE_MS } from './people-list';
+import { LIST_SEARCH_DEBOUNCE_MS } from '../ui/paged-list';
+import { PeopleList } from './people-list';
 
 describe('PeopleList', () => {
   let fixture: ComponentFixture<PeopleList>;
@@ -145,7 +146,7 @@ describe('PeopleList', () => {
         vi.advanceTimersByTime(100);
       }
       backend.expectNone('/api/users');
-      vi.advanceTimersByTime(SEARCH_DEBOUNCE_MS);
+      vi.advanceTimersByTime(LIST_SEARCH_DEBOUNCE_MS);
     } finally {
       vi.useRealTimers();
     }

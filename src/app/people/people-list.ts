@@ -1,6 +1,6 @@
 import { DatePipe } from '@angular/common';
-import { ChangeDetectionStrategy, Component, computed, inject, linkedSignal, signal } from '@angular/core';
-import { rxResource, toSignal } from '@angular/core/rxjs-interop';
+import { ChangeDetectionStrategy, Component, computed, inject } from '@angular/core';
+import { toSignal } from '@angular/core/rxjs-interop';
 import { NonNullableFormBuilder, ReactiveFormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatChipsModule } from '@angular/material/chips';
@@ -9,30 +9,25 @@ import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { MatMenuModule } from '@angular/material/menu';
-import { MatPaginatorModule, type PageEvent } from '@angular/material/paginator';
-import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSelectModule } from '@angular/material/select';
-import { MatSortModule, type Sort } from '@angular/material/sort';
+import { MatSortModule } from '@angular/material/sort';
 import { MatTableModule } from '@angular/material/table';
-import { catchError, debounceTime, distinctUntilChanged, firstValueFrom, map, of } from 'rxjs';
-import type { Page, UserDto } from '../../../shared/api-types';
+import { catchError, firstValueFrom, map, of } from 'rxjs';
+import type { UserDto } from '../../../shared/api-types';
 import type { MachineRecord } from '../../../shared/stock-types';
 import { ROLES, ROLE_INFO, type Role } from '../../../shared/roles';
 import { USER_SORT_FIELDS, type UserListQuery } from '../../../shared/schemas/users';
-import { latestValue } from '../core/api/latest-value';
 import { Notifier } from '../core/notifier/notifier';
 import { Session } from '../core/session/session';
 import { StockApi } from '../core/api/stock-api';
 import { ConfirmDialog, type ConfirmDialogData } from '../ui/confirm-dialog';
+import { PagedList } from '../ui/paged-list';
+import { PagedTable } from '../ui/paged-table';
 import { PeopleApi } from '../core/api/people-api';
 import { PersonFormDialog, type PersonFormDialogData } from './person-form-dialog';
 import { TemporaryPasswordDialog, type TemporaryPasswordDialogData } from './temporary-password-dialog';
 
-type SortField = (typeof USER_SORT_FIELDS)[number];
 type StatusFilter = UserListQuery['status'];
-
-/** How long the search box waits for typing to pause before asking the server. */
-export const SEARCH_DEBOUNCE_MS = 300;
 
 /** Admin: the lab's people, sorted, filtered and paged by the server. */
 @Component({
@@ -45,11 +40,10 @@ export const SEARCH_DEBOUNCE_MS = 300;
     MatIconModule,
     MatInputModule,
     MatMenuModule,
-    MatPaginatorModule,
-    MatProgressBarModule,
     MatSelectModule,
     MatSortModule,
     MatTableModule,
+    PagedTable,
     ReactiveFormsModule,
   ],
   templateUrl: './people-list.html',
@@ -66,46 +60,18 @@ export class PeopleList {
   protected readonly columns = ['username', 'displayName', 'email', 'roles', 'machines', 'status', 'lastSignInAt', 'actions'];
   protected readonly roleOptions = ROLES.map((role) => ({ role, label: ROLE_INFO[role].label }));
   protected readonly roleLabel = (role: Role) => ROLE_INFO[role].label;
-  protected readonly pageSizeOptions = [10, 25, 50, 100];
-
-  protected readonly search = this.fb.control('');
   protected readonly roleFilter = this.fb.control<Role | ''>('');
   protected readonly statusFilter = this.fb.control<StatusFilter>('active');
-
-  private readonly q = toSignal(
-    this.search.valueChanges.pipe(
-      map((text) => text.trim()),
-      debounceTime(SEARCH_DEBOUNCE_MS),
-      distinctUntilChanged(),
-    ),
-    { initialValue: '' },
-  );
   private readonly role = toSignal(this.roleFilter.valueChanges, { initialValue: this.roleFilter.value });
   private readonly status = toSignal(this.statusFilter.valueChanges, { initialValue: this.statusFilter.value });
-  protected readonly sort = signal<{ active: SortField; direction: 'asc' | 'desc' }>({ active: 'username', direction: 'asc' });
-  protected readonly pageSize = signal(25);
-  /** Back to the first page whenever the filters or the order change. */
-  protected readonly pageIndex = linkedSignal({
-    source: () => [this.q(), this.role(), this.status(), this.sort(), this.pageSize()] as const,
-    computation: () => 0,
+  protected readonly list = new PagedList<UserDto, Pick<UserListQuery, 'role' | 'status'>, UserListQuery['sort']>({
+    load: (query) => this.api.list(query),
+    filters: () => ({ role: this.role() || undefined, status: this.status() }),
+    sortable: USER_SORT_FIELDS,
+    defaultSort: 'username',
   });
-
-  private readonly query = computed<Partial<UserListQuery>>(() => ({
-    page: this.pageIndex(),
-    pageSize: this.pageSize(),
-    sort: this.sort().active,
-    dir: this.sort().direction,
-    q: this.q() || undefined,
-    role: this.role() || undefined,
-    status: this.status(),
-  }));
-
-  private readonly people = rxResource({ params: this.query, stream: ({ params }) => this.api.list(params) });
-  protected readonly loading = computed(() => this.people.isLoading());
-  /** The error interceptor has already told the user what went wrong; the last rows stay. */
-  protected readonly loadFailed = computed(() => !!this.people.error());
-  protected readonly result = latestValue<Page<UserDto>>(this.people, { items: [], total: 0, page: 0, pageSize: 25 });
   protected readonly currentUserId = computed(() => this.session.user()?.id);
+  protected readonly inactive = (person: UserDto) => !person.active;
 
   /** Every machine, archived ones too: an operator may still be assigned to a retired saw. */
   private readonly machines = toSignal(
@@ -122,23 +88,6 @@ export class PeopleList {
   /** The operator's machines by name, one per line in the table. */
   protected readonly machineNamesOf = (person: UserDto): string[] =>
     person.machineIds.map((id) => this.machineNames().get(id) ?? `Machine ${id}`);
-
-  protected changeSort(sort: Sort): void {
-    const active = USER_SORT_FIELDS.find((field) => field === sort.active) ?? 'username';
-    this.sort.set({ active, direction: sort.direction === 'desc' ? 'desc' : 'asc' });
-  }
-
-  protected changePage(event: PageEvent): void {
-    if (event.pageSize !== this.pageSize()) {
-      this.pageSize.set(event.pageSize);
-    } else {
-      this.pageIndex.set(event.pageIndex);
-    }
-  }
-
-  protected clearSearch(): void {
-    this.search.setValue('');
-  }
 
   protected addPerson(): void {
     this.dialog
@@ -261,6 +210,6 @@ export class PeopleList {
   }
 
   private reload(): void {
-    this.people.reload();
+    this.list.reload();
   }
 }

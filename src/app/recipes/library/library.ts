@@ -6,8 +6,7 @@ import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
-import { MatPaginatorModule, type PageEvent } from '@angular/material/paginator';
-import { MatProgressBarModule } from '@angular/material/progress-bar';
+import type { PageEvent } from '@angular/material/paginator';
 import { MatSelectModule } from '@angular/material/select';
 import { MatSortModule, type Sort } from '@angular/material/sort';
 import { MatTableModule } from '@angular/material/table';
@@ -36,6 +35,7 @@ import { Session } from '../../core/session/session';
 import { CheckSeverityLabel } from '../../ui/check-severity-label';
 import { RecipeApi } from '../../core/api/recipe-api';
 import { RecipeStatusChip } from '../../ui/recipe-status-chip';
+import { PagedTable } from '../../ui/paged-table';
 import { QuantityPipe } from '../../ui/quantity';
 import { StockApi } from '../../core/api/stock-api';
 import {
@@ -61,11 +61,10 @@ export const LIBRARY_TYPING_DEBOUNCE_MS = 300;
     MatFormFieldModule,
     MatIconModule,
     MatInputModule,
-    MatPaginatorModule,
-    MatProgressBarModule,
     MatSelectModule,
     MatSortModule,
     MatTableModule,
+    PagedTable,
     QuantityPipe,
     ReactiveFormsModule,
     RecipeStatusChip,
