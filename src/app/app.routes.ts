@@ -1,6 +1,6 @@
 import { inject } from '@angular/core';
 import type { Routes } from '@angular/router';
-import type { Role } from '../../shared/roles';
+import type { Role } from '@shared/roles';
 import { type AccessData, accessGuard } from './core/session/access-guard';
 import { Session } from './core/session/session';
 

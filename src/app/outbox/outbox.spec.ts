@@ -2,7 +2,7 @@ import { provideHttpClient, withInterceptors } from '@angular/common/http';
 import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
 import { type ComponentFixture, TestBed } from '@angular/core/testing';
 import { provideRouter } from '@angular/router';
-import type { OutboxEntryDto } from '../../../shared/api-types';
+import type { OutboxEntryDto } from '@shared/api-types';
 import { errorInterceptor } from '../core/http/error-interceptor';
 import { Notifier } from '../core/notifier/notifier';
 import { Session } from '../core/session/session';

@@ -8,7 +8,7 @@ import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatTableModule } from '@angular/material/table';
 import { map } from 'rxjs';
 import { latestValue } from '../core/api/latest-value';
-import type { OutboxEntryDto } from '../../../shared/api-types';
+import type { OutboxEntryDto } from '@shared/api-types';
 import { type MailTextPart, mailTextLines } from './mail-text';
 
 /**

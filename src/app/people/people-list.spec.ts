@@ -7,7 +7,7 @@ import { MatPaginatorHarness } from '@angular/material/paginator/testing';
 import { MatSelectHarness } from '@angular/material/select/testing';
 import { MatSortHarness } from '@angular/material/sort/testing';
 import { provideRouter } from '@angular/router';
-import type { Page, UserDto } from '../../../shared/api-types';
+import type { Page, UserDto } from '@shared/api-types';
 import { aMachine } from '../../testing/stock-and-recipe-fixtures';
 import { aUser } from '../../testing/user-fixture';
 import { Notifier } from '../core/notifier/notifier';

@@ -5,8 +5,8 @@ import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
 import { MatRadioModule } from '@angular/material/radio';
 import { MatSelectModule } from '@angular/material/select';
-import { machineBody } from '../../../shared/schemas/stock';
-import type { MachineRecord } from '../../../shared/stock-types';
+import { machineBody } from '@shared/schemas/stock';
+import type { MachineRecord } from '@shared/stock-types';
 import {
   CLAMPING_METHODS,
   CLAMPING_METHOD_LABELS,
@@ -17,7 +17,7 @@ import {
   MACHINE_CLASSES,
   MACHINE_CLASS_LABELS,
   type MachineClass,
-} from '../../../shared/vocabulary';
+} from '@shared/vocabulary';
 import { zodValidator } from '../core/forms/zod-validator';
 import { StockFormDialog } from './stock-form-dialog';
 import { StockFormFrame } from './stock-form-frame';

@@ -2,9 +2,9 @@ import { inject } from '@angular/core';
 import { toSignal } from '@angular/core/rxjs-interop';
 import { NonNullableFormBuilder } from '@angular/forms';
 import type { Observable } from 'rxjs';
-import type { Page } from '../../../shared/api-types';
-import type { StockListQuery } from '../../../shared/schemas/stock';
-import type { MaterialGroup } from '../../../shared/vocabulary';
+import type { Page } from '@shared/api-types';
+import type { StockListQuery } from '@shared/schemas/stock';
+import type { MaterialGroup } from '@shared/vocabulary';
 import { PagedList } from '../ui/paged-list';
 
 

@@ -1,7 +1,7 @@
 import { ChangeDetectionStrategy, Component, computed, inject } from '@angular/core';
 import { MatSortModule } from '@angular/material/sort';
 import { MatTableModule } from '@angular/material/table';
-import type { MachineRecord } from '../../../shared/stock-types';
+import type { MachineRecord } from '@shared/stock-types';
 import {
   CLAMPING_METHOD_LABELS,
   CUT_MOTION_LABELS,
@@ -9,7 +9,7 @@ import {
   type CutMotion,
   MACHINE_CLASS_LABELS,
   type MachineClass,
-} from '../../../shared/vocabulary';
+} from '@shared/vocabulary';
 import { Session } from '../core/session/session';
 import { MachineFormDialog, type MachineFormDialogData } from './machine-form-dialog';
 import { QuantityPipe } from '../ui/quantity';

@@ -8,7 +8,7 @@ import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
 import { MatSort, MatSortModule } from '@angular/material/sort';
 import { MatColumnDef, MatTableModule } from '@angular/material/table';
-import { hasAccess } from '../../../shared/roles';
+import { hasAccess } from '@shared/roles';
 import { STOCK_EDITORS } from '../core/api/stock-api';
 import { Session } from '../core/session/session';
 import { PagedTable } from '../ui/paged-table';

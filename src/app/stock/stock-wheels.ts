@@ -1,8 +1,8 @@
 import { ChangeDetectionStrategy, Component, computed, inject } from '@angular/core';
 import { MatSortModule } from '@angular/material/sort';
 import { MatTableModule } from '@angular/material/table';
-import type { WheelRecord } from '../../../shared/stock-types';
-import type { WheelKind } from '../../../shared/vocabulary';
+import type { WheelRecord } from '@shared/stock-types';
+import type { WheelKind } from '@shared/vocabulary';
 import { Session } from '../core/session/session';
 import { QuantityPipe } from '../ui/quantity';
 import { StockApi } from '../core/api/stock-api';

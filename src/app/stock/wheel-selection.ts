@@ -6,9 +6,9 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatTableModule } from '@angular/material/table';
 import { catchError, firstValueFrom, forkJoin, of } from 'rxjs';
-import { hasAccess } from '../../../shared/roles';
-import type { SelectionRow, WheelRecord } from '../../../shared/stock-types';
-import { MATERIAL_GROUPS, MATERIAL_GROUP_LABELS } from '../../../shared/vocabulary';
+import { hasAccess } from '@shared/roles';
+import type { SelectionRow, WheelRecord } from '@shared/stock-types';
+import { MATERIAL_GROUPS, MATERIAL_GROUP_LABELS } from '@shared/vocabulary';
 import { Notifier } from '../core/notifier/notifier';
 import { Session } from '../core/session/session';
 import { ConfirmDialog, type ConfirmDialogData } from '../ui/confirm-dialog';
@@ -25,7 +25,7 @@ interface ShownRow {
   wheel: WheelRecord | undefined;
 }
 
-/** Stock › Wheel selection: the lab's table material group × hardness band → wheel (design 5.8). */
+/** Stock › Wheel selection: the lab's own table of material group × hardness band → wheel, from which the editor suggests wheels. */
 @Component({
   selector: 'kb-wheel-selection',
   imports: [MatButtonModule, MatIconModule, MatProgressBarModule, MatTableModule],

@@ -4,8 +4,8 @@ import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { RouterLink } from '@angular/router';
-import type { RecipeSummary, TodayDto } from '../../../shared/recipe-types';
-import { ROLE_INFO, type Role, hasAccess } from '../../../shared/roles';
+import type { RecipeSummary, TodayDto } from '@shared/recipe-types';
+import { ROLE_INFO, type Role, hasAccess } from '@shared/roles';
 import { shortDate } from '../core/dates/calendar';
 import { Session } from '../core/session/session';
 import { RecipeStatusChip } from '../ui/recipe-status-chip';
@@ -45,7 +45,7 @@ const recipeItem = (r: RecipeSummary, detail: string): TodayItem => ({
   detail,
 });
 
-/** Home page: who you are here, and the work waiting for each of your roles (design section 7). */
+/** Home page: who you are here, and the work waiting for each of your roles. */
 @Component({
   selector: 'kb-today',
   imports: [MatButtonModule, MatIconModule, MatProgressBarModule, RecipeStatusChip, RouterLink],

@@ -1,8 +1,8 @@
 import { HttpClient, HttpParams } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import type { Observable } from 'rxjs';
-import type { AuditPage, ChainVerification } from '../../../shared/recipe-types';
-import type { AuditQuery } from '../../../shared/schemas/workflow';
+import type { AuditPage, ChainVerification } from '@shared/recipe-types';
+import type { AuditQuery } from '@shared/schemas/workflow';
 
 function toParams(query: Partial<AuditQuery>): HttpParams {
   let params = new HttpParams();

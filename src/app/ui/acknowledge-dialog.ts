@@ -4,7 +4,7 @@ import { MAT_DIALOG_DATA, type MatDialog, MatDialogModule, MatDialogRef } from '
 import { MatIconModule } from '@angular/material/icon';
 import { RouterLink } from '@angular/router';
 import { firstValueFrom } from 'rxjs';
-import type { MyAcknowledgementDto } from '../../../shared/recipe-types';
+import type { MyAcknowledgementDto } from '@shared/recipe-types';
 import { isApiError } from '../core/http/api-error';
 import { callerHandles } from '../core/http/caller-handles';
 import { benchSheetUrl, openInNewTab } from '../core/api/bench-sheet';

@@ -1,4 +1,4 @@
-import type { MyAcknowledgementDto, RecipeVersionDto } from '../../../shared/recipe-types';
+import type { MyAcknowledgementDto, RecipeVersionDto } from '@shared/recipe-types';
 
 /** The sentence an operator confirms; the same words on the page and in the print dialog. */
 export function acknowledgeStatement(number: string, version: number): string {

@@ -1,8 +1,8 @@
 import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
 import { MatIconModule } from '@angular/material/icon';
-import type { CheckSeverity } from '../../../shared/recipe-checks';
+import type { CheckSeverity } from '@shared/recipe-checks';
 
-/** Icon and word for each severity (design 5.9), so the severity never depends on colour alone. */
+/** Icon and word for each check severity (blocker, warning, note), so the severity never depends on colour alone. */
 export const SEVERITY_INFO: Record<CheckSeverity | 'none', { label: string; icon: string }> = {
   blocker: { label: 'Blocker', icon: 'block' },
   warning: { label: 'Warning', icon: 'warning' },

@@ -1,6 +1,6 @@
 import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
 import { MatIconModule } from '@angular/material/icon';
-import { CUT_OUTCOME_LABELS, type CutOutcome } from '../../../shared/vocabulary';
+import { CUT_OUTCOME_LABELS, type CutOutcome } from '@shared/vocabulary';
 
 /** Icon per outcome; the word always goes beside it, so colour and shape are never the only cue. */
 export const CUT_OUTCOME_ICONS: Record<CutOutcome, string> = {

@@ -4,7 +4,7 @@ import { NonNullableFormBuilder } from '@angular/forms';
 import type { PageEvent } from '@angular/material/paginator';
 import type { Sort } from '@angular/material/sort';
 import { type Observable, debounceTime, distinctUntilChanged, map } from 'rxjs';
-import type { Page } from '../../../shared/api-types';
+import type { Page } from '@shared/api-types';
 import { latestValue } from '../core/api/latest-value';
 
 /** How long a list's search box waits for typing to pause before asking the server. */

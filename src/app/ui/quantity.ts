@@ -1,8 +1,8 @@
 import { Pipe, type PipeTransform } from '@angular/core';
-import type { UnitPreference } from '../../../shared/api-types';
-import { NO_VALUE, type QuantityKind, formatQuantity } from '../../../shared/units';
+import type { UnitPreference } from '@shared/api-types';
+import { NO_VALUE, type QuantityKind, formatQuantity } from '@shared/units';
 
-/** The metric units Kerfbook stores (design 5.10), as the templates name them. */
+/** The metric units Kerfbook stores (every value is kept metric; imperial is only shown), as the templates name them. */
 export type MetricUnit = 'mm' | 'm/s' | 'mm/s' | 'rpm' | 'mm³/s' | 's' | 'L/min' | '% v/v';
 
 const KIND: Partial<Record<MetricUnit, QuantityKind>> = {

@@ -1,6 +1,6 @@
 import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
 import { MatIconModule } from '@angular/material/icon';
-import { RECIPE_STATUS_LABELS, type RecipeStatus } from '../../../shared/vocabulary';
+import { RECIPE_STATUS_LABELS, type RecipeStatus } from '@shared/vocabulary';
 
 /** An icon for each status beside its word, so the status never depends on colour alone. */
 const RECIPE_STATUS_ICONS: Record<RecipeStatus, string> = {

@@ -1,7 +1,7 @@
 import { DatePipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, input } from '@angular/core';
 import { MatIconModule } from '@angular/material/icon';
-import type { SignatureDto } from '../../../shared/recipe-types';
+import type { SignatureDto } from '@shared/recipe-types';
 import { SIGNATURE_MEANING_INFO } from './signature-meaning';
 
 /**

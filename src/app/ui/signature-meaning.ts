@@ -1,4 +1,4 @@
-import type { SignatureMeaning } from '../../../shared/schemas/workflow';
+import type { SignatureMeaning } from '@shared/schemas/workflow';
 
 /** What each signature means, in the words shown beside it and in the signing dialog (21 CFR 11.50). */
 export const SIGNATURE_MEANING_INFO: Record<SignatureMeaning, { label: string; statement: string; icon: string }> = {

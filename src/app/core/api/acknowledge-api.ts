@@ -1,7 +1,7 @@
 import { HttpClient, type HttpContext } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import type { Observable } from 'rxjs';
-import type { AcknowledgementsDto, MyAcknowledgementDto } from '../../../../shared/recipe-types';
+import type { AcknowledgementsDto, MyAcknowledgementDto } from '@shared/recipe-types';
 
 /** Thin typed wrapper around the acknowledgement routes (DEVELOPERS.md, Mail, link and acknowledgement routes). */
 @Injectable({ providedIn: 'root' })

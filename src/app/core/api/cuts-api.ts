@@ -1,8 +1,8 @@
 import { HttpClient, type HttpContext } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import type { Observable } from 'rxjs';
-import type { CutRecordDto, CutTrace } from '../../../../shared/recipe-types';
-import type { CutRecordBody } from '../../../../shared/schemas/operator';
+import type { CutRecordDto, CutTrace } from '@shared/recipe-types';
+import type { CutRecordBody } from '@shared/schemas/operator';
 
 /** Thin typed wrapper around the cut-record routes (DEVELOPERS.md, Operator routes). */
 @Injectable({ providedIn: 'root' })

@@ -1,8 +1,8 @@
 import { HttpClient, type HttpContext, HttpParams } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import type { Observable } from 'rxjs';
-import type { MessageDto, Page, UserDto } from '../../../../shared/api-types';
-import type { CreateUserBody, InviteBody, UpdateUserBody, UserListQuery } from '../../../../shared/schemas/users';
+import type { MessageDto, Page, UserDto } from '@shared/api-types';
+import type { CreateUserBody, InviteBody, UpdateUserBody, UserListQuery } from '@shared/schemas/users';
 
 /** Thin typed wrapper around the admin's `/api/users` routes (DEVELOPERS.md, Foundation routes). */
 @Injectable({ providedIn: 'root' })

@@ -1,9 +1,9 @@
 import { HttpClient, type HttpContext, HttpParams } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import type { Observable } from 'rxjs';
-import type { Page } from '../../../../shared/api-types';
-import type { RecipeSummary, RecipeVersionDto } from '../../../../shared/recipe-types';
-import type { RecipeListQuery } from '../../../../shared/schemas/recipe';
+import type { Page } from '@shared/api-types';
+import type { RecipeSummary, RecipeVersionDto } from '@shared/recipe-types';
+import type { RecipeListQuery } from '@shared/schemas/recipe';
 
 /** Thin typed wrapper around the read side of `/api/recipes` (DEVELOPERS.md, Authoring routes). */
 @Injectable({ providedIn: 'root' })

@@ -1,7 +1,7 @@
 import { computed } from '@angular/core';
 import { inject } from '@angular/core';
 import { rxResource } from '@angular/core/rxjs-interop';
-import type { RecipeVersionDto } from '../../../../shared/recipe-types';
+import type { RecipeVersionDto } from '@shared/recipe-types';
 import { isApiError } from '../http/api-error';
 import { callerHandles } from '../http/caller-handles';
 import { RecipeApi } from './recipe-api';

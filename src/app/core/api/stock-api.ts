@@ -1,10 +1,10 @@
 import { HttpClient, type HttpContext, HttpParams } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import type { Observable } from 'rxjs';
-import type { Page } from '../../../../shared/api-types';
-import type { Access } from '../../../../shared/roles';
-import type { MachineBody, MaterialBody, SelectionRowBody, StockListQuery, WheelBody } from '../../../../shared/schemas/stock';
-import type { MachineRecord, MaterialRecord, SelectionRow, WheelRecord } from '../../../../shared/stock-types';
+import type { Page } from '@shared/api-types';
+import type { Access } from '@shared/roles';
+import type { MachineBody, MaterialBody, SelectionRowBody, StockListQuery, WheelBody } from '@shared/schemas/stock';
+import type { MachineRecord, MaterialRecord, SelectionRow, WheelRecord } from '@shared/stock-types';
 
 /** Who may change stock records (DEVELOPERS.md, Authoring routes); everyone signed in reads them. */
 export const STOCK_EDITORS: Access = ['author', 'admin'];

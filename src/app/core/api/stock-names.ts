@@ -1,8 +1,8 @@
 import { type Signal, computed, inject } from '@angular/core';
 import { rxResource } from '@angular/core/rxjs-interop';
 import { type Observable, catchError, forkJoin, of } from 'rxjs';
-import type { RecipeContent } from '../../../../shared/schemas/recipe';
-import type { MachineRecord, MaterialRecord, WheelRecord } from '../../../../shared/stock-types';
+import type { RecipeContent } from '@shared/schemas/recipe';
+import type { MachineRecord, MaterialRecord, WheelRecord } from '@shared/stock-types';
 import { latestValue } from './latest-value';
 import { StockApi } from './stock-api';
 

@@ -1,4 +1,4 @@
-import { utcDay } from '../../../../shared/calendar-dates';
+import { utcDay } from '@shared/calendar-dates';
 
 /**
  * The client's dates in one place. Calendar days are UTC "YYYY-MM-DD" strings, as the server's

@@ -1,6 +1,6 @@
 import type { FormGroup } from '@angular/forms';
 import type { z } from 'zod';
-import { toFieldErrors } from '../../../../shared/validation';
+import { toFieldErrors } from '@shared/validation';
 import { applyServerErrors } from './server-errors';
 
 /**

@@ -1,6 +1,6 @@
 import type { AbstractControl, ValidationErrors, ValidatorFn } from '@angular/forms';
 import type { z } from 'zod';
-import { toFieldErrors } from '../../../../shared/validation';
+import { toFieldErrors } from '@shared/validation';
 
 /**
  * A form validator from one of the shared zod schemas, so the form checks exactly what the

@@ -1,6 +1,6 @@
 import { inject } from '@angular/core';
 import { CanActivateFn, Router } from '@angular/router';
-import { type Access, hasAccess } from '../../../../shared/roles';
+import { type Access, hasAccess } from '@shared/roles';
 import { Session } from './session';
 
 /** Where the route table keeps each route's access (app.routes.ts). */

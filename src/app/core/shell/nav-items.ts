@@ -1,4 +1,4 @@
-import type { Access } from '../../../../shared/roles';
+import type { Access } from '@shared/roles';
 
 /** One entry of the side navigation. Shown only to users whose roles meet `access`. */
 export interface NavItem {

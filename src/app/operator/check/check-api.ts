@@ -1,7 +1,7 @@
 import { HttpClient, type HttpContext } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import type { Observable } from 'rxjs';
-import type { CheckCodeResult } from '../../../../shared/recipe-types';
+import type { CheckCodeResult } from '@shared/recipe-types';
 
 /** GET /api/check/:code — what a printed sheet's code says now. */
 @Injectable({ providedIn: 'root' })

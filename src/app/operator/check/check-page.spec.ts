@@ -4,7 +4,7 @@ import { Component } from '@angular/core';
 import { TestBed } from '@angular/core/testing';
 import { Router, provideRouter, withComponentInputBinding } from '@angular/router';
 import { RouterTestingHarness } from '@angular/router/testing';
-import type { CheckCodeResult } from '../../../../shared/recipe-types';
+import type { CheckCodeResult } from '@shared/recipe-types';
 import { errorInterceptor } from '../../core/http/error-interceptor';
 import { Notifier } from '../../core/notifier/notifier';
 import { CheckPage } from './check-page';

@@ -7,8 +7,8 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { Router, RouterLink } from '@angular/router';
-import type { CheckCodeResult } from '../../../../shared/recipe-types';
-import { checkCodeParam } from '../../../../shared/schemas/operator';
+import type { CheckCodeResult } from '@shared/recipe-types';
+import { checkCodeParam } from '@shared/schemas/operator';
 import { controlMessage } from '../../core/forms/control-message';
 import { zodValidator } from '../../core/forms/zod-validator';
 import { isApiError } from '../../core/http/api-error';
@@ -37,7 +37,7 @@ export function printedCode(code: string): string {
 }
 
 /**
- * Check a sheet (design section 7): the code printed on a bench sheet, typed or scanned from
+ * Check a sheet: the code printed on a bench sheet, typed or scanned from
  * its QR code, says whether that version is still the one to use.
  */
 @Component({

@@ -1,6 +1,6 @@
 import type { ParamMap, Params } from '@angular/router';
-import type { FinderQuery } from '../../../../shared/schemas/operator';
-import { HARDNESS_SCALES, MATERIAL_GROUPS, SHAPES } from '../../../../shared/vocabulary';
+import type { FinderQuery } from '@shared/schemas/operator';
+import { HARDNESS_SCALES, MATERIAL_GROUPS, SHAPES } from '@shared/vocabulary';
 
 /** The finder's query parameters are named as the API names them, so the page URL and the request agree. */
 export const FINDER_PARAM_KEYS = ['materialId', 'group', 'hardnessValue', 'hardnessScale', 'shape', 'sizeMm', 'machineId'] as const;

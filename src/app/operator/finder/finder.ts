@@ -11,10 +11,10 @@ import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSelectModule } from '@angular/material/select';
 import { ActivatedRoute, Router, RouterLink } from '@angular/router';
 import { catchError, firstValueFrom, map, of, startWith, switchMap } from 'rxjs';
-import type { FinderHit } from '../../../../shared/recipe-types';
-import { hasAccess } from '../../../../shared/roles';
-import { type FinderQuery, finderQuery } from '../../../../shared/schemas/operator';
-import type { MaterialRecord } from '../../../../shared/stock-types';
+import type { FinderHit } from '@shared/recipe-types';
+import { hasAccess } from '@shared/roles';
+import { type FinderQuery, finderQuery } from '@shared/schemas/operator';
+import type { MaterialRecord } from '@shared/stock-types';
 import {
   HARDNESS_SCALES,
   type HardnessScale,
@@ -24,7 +24,7 @@ import {
   SHAPES,
   SHAPE_LABELS,
   type Shape,
-} from '../../../../shared/vocabulary';
+} from '@shared/vocabulary';
 import { askToAcknowledge } from '../../ui/acknowledge-dialog';
 import { mustAcknowledge } from '../../ui/acknowledgement-state';
 import { controlMessage } from '../../core/forms/control-message';
@@ -50,7 +50,7 @@ function optionalNumber(schema: (typeof finderQuery.shape)['sizeMm' | 'hardnessV
 }
 
 /**
- * Finder (design section 7, the operator's home): what is in hand — material or group,
+ * Finder (the operator's home, made for a tablet at the saw): what is in hand — material or group,
  * hardness, shape, size, machine — to the current approved recipes that cover it, best
  * first, with a bench sheet and a cut log one tap away. The query lives in the URL.
  */

@@ -8,9 +8,9 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { Router, RouterLink } from '@angular/router';
-import type { CutTrace } from '../../../../shared/recipe-types';
-import { cutSearchQuery } from '../../../../shared/schemas/operator';
-import { CLAMPING_METHOD_LABELS, COOLANT_TYPE_LABELS, CUT_MOTION_LABELS, SHAPE_LABELS } from '../../../../shared/vocabulary';
+import type { CutTrace } from '@shared/recipe-types';
+import { cutSearchQuery } from '@shared/schemas/operator';
+import { CLAMPING_METHOD_LABELS, COOLANT_TYPE_LABELS, CUT_MOTION_LABELS, SHAPE_LABELS } from '@shared/vocabulary';
 import { controlMessage } from '../../core/forms/control-message';
 import { zodValidator } from '../../core/forms/zod-validator';
 import { Session } from '../../core/session/session';
@@ -21,7 +21,7 @@ import { CutsApi } from '../../core/api/cuts-api';
 
 type Load = { state: 'idle' } | { state: 'loading' } | { state: 'failed' } | { state: 'ready'; traces: CutTrace[] };
 
-/** Specimen trace (design section 9): from a specimen id to the cut, the exact version used, its key parameters and signatures. */
+/** Specimen trace: from a specimen id to the cut, the exact version used, its key parameters and signatures. */
 @Component({
   selector: 'kb-specimen-trace',
   imports: [CutOutcomeLabel, DatePipe, MatButtonModule, MatFormFieldModule, MatIconModule, MatInputModule, MatProgressBarModule, QuantityPipe, ReactiveFormsModule, RouterLink, SignatureList],

@@ -4,7 +4,7 @@ import { Component, signal } from '@angular/core';
 import { TestBed } from '@angular/core/testing';
 import { provideRouter, withComponentInputBinding } from '@angular/router';
 import { RouterTestingHarness } from '@angular/router/testing';
-import type { RecipeVersionDto } from '../../../../shared/recipe-types';
+import type { RecipeVersionDto } from '@shared/recipe-types';
 import { aVersionToAcknowledge, anOperator, myAcknowledgement } from '../../../testing/acknowledgement-fixtures';
 import { aMachine, aWheel } from '../../../testing/stock-and-recipe-fixtures';
 import { errorInterceptor } from '../../core/http/error-interceptor';

@@ -4,7 +4,7 @@ import { toObservable, toSignal } from '@angular/core/rxjs-interop';
 import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { catchError, map, of, startWith, switchMap } from 'rxjs';
-import type { AcknowledgementsDto } from '../../../../shared/recipe-types';
+import type { AcknowledgementsDto } from '@shared/recipe-types';
 import { AcknowledgeApi } from '../../core/api/acknowledge-api';
 
 type Load = { state: 'loading' } | { state: 'failed' } | { state: 'ready'; list: AcknowledgementsDto };

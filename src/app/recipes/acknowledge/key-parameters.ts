@@ -1,8 +1,8 @@
 import { ChangeDetectionStrategy, Component, input } from '@angular/core';
-import type { UnitPreference } from '../../../../shared/api-types';
-import type { RecipeContent } from '../../../../shared/schemas/recipe';
-import type { MachineRecord, WheelRecord } from '../../../../shared/stock-types';
-import { CLAMPING_METHOD_LABELS, COOLANT_TYPE_LABELS, CUT_MOTION_LABELS } from '../../../../shared/vocabulary';
+import type { UnitPreference } from '@shared/api-types';
+import type { RecipeContent } from '@shared/schemas/recipe';
+import type { MachineRecord, WheelRecord } from '@shared/stock-types';
+import { CLAMPING_METHOD_LABELS, COOLANT_TYPE_LABELS, CUT_MOTION_LABELS } from '@shared/vocabulary';
 import { QuantityPipe } from '../../ui/quantity';
 
 /**

@@ -8,7 +8,7 @@ import { MatButtonToggleGroupHarness } from '@angular/material/button-toggle/tes
 import { MatSelectHarness } from '@angular/material/select/testing';
 import { Router, provideRouter, withComponentInputBinding } from '@angular/router';
 import { RouterTestingHarness } from '@angular/router/testing';
-import type { RecipeComparison } from '../../../../shared/recipe-types';
+import type { RecipeComparison } from '@shared/recipe-types';
 import { aRecipeVersion } from '../../../testing/stock-and-recipe-fixtures';
 import { aUser } from '../../../testing/user-fixture';
 import { errorInterceptor } from '../../core/http/error-interceptor';

@@ -1,5 +1,5 @@
 import { TestBed } from '@angular/core/testing';
-import type { RecipeComparison } from '../../../../shared/recipe-types';
+import type { RecipeComparison } from '@shared/recipe-types';
 import { type ComparisonLayout, ComparisonView } from './comparison-view';
 
 describe('ComparisonView', () => {

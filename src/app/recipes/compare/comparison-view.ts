@@ -1,8 +1,8 @@
 import { NgTemplateOutlet } from '@angular/common';
 import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
-import type { RecipeComparison, TextChange } from '../../../../shared/recipe-types';
-import type { RecipeStatus } from '../../../../shared/vocabulary';
-import { RECIPE_STATUS_LABELS } from '../../../../shared/vocabulary';
+import type { RecipeComparison, TextChange } from '@shared/recipe-types';
+import type { RecipeStatus } from '@shared/vocabulary';
+import { RECIPE_STATUS_LABELS } from '@shared/vocabulary';
 
 /** How a text diff is laid out: the two versions in columns, or one flow with both marked. */
 export type ComparisonLayout = 'side-by-side' | 'inline';

@@ -5,7 +5,7 @@ import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { catchError, firstValueFrom, map, of, startWith, switchMap } from 'rxjs';
-import type { CutRecordDto } from '../../../../shared/recipe-types';
+import type { CutRecordDto } from '@shared/recipe-types';
 import { Notifier } from '../../core/notifier/notifier';
 import { CutOutcomeLabel } from '../../ui/cut-outcome-label';
 import { CutsApi, cutsCsvUrl } from '../../core/api/cuts-api';

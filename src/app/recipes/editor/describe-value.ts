@@ -1,5 +1,5 @@
-import type { UnitPreference } from '../../../../shared/api-types';
-import { formatQuantity } from '../../../../shared/units';
+import type { UnitPreference } from '@shared/api-types';
+import { formatQuantity } from '@shared/units';
 import {
   CLAMPING_METHOD_LABELS,
   COOLANT_TYPE_LABELS,
@@ -7,7 +7,7 @@ import {
   CUT_ORIENTATION_LABELS,
   MATERIAL_GROUP_LABELS,
   SHAPE_LABELS,
-} from '../../../../shared/vocabulary';
+} from '@shared/vocabulary';
 import type { EditorStock } from './editor-stock';
 import { FIELD_INFO } from './recipe-form';
 

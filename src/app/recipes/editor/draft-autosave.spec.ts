@@ -2,7 +2,7 @@ import { provideHttpClient, withInterceptors } from '@angular/common/http';
 import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
 import { TestBed } from '@angular/core/testing';
 import { provideRouter } from '@angular/router';
-import type { SaveDraftBody } from '../../../../shared/schemas/recipe';
+import type { SaveDraftBody } from '@shared/schemas/recipe';
 import { aRecipeVersion } from '../../../testing/stock-and-recipe-fixtures';
 import { errorInterceptor } from '../../core/http/error-interceptor';
 import { Notifier } from '../../core/notifier/notifier';

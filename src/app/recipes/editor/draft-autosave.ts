@@ -4,10 +4,10 @@ import { type AbstractControl, NonNullableFormBuilder, type ValidationErrors } f
 import { MatDialog } from '@angular/material/dialog';
 import { Router } from '@angular/router';
 import { Subject, concatMap, debounceTime, firstValueFrom, from, map, startWith } from 'rxjs';
-import { canonicalJson } from '../../../../shared/canonical-json';
-import { changeReasonMissing } from '../../../../shared/recipe-checks';
-import type { RecipeVersionDto, StaleSaveBody } from '../../../../shared/recipe-types';
-import { RECIPE_STATUS_LABELS, type RecipeStatus } from '../../../../shared/vocabulary';
+import { canonicalJson } from '@shared/canonical-json';
+import { changeReasonMissing } from '@shared/recipe-checks';
+import type { RecipeVersionDto, StaleSaveBody } from '@shared/recipe-types';
+import { RECIPE_STATUS_LABELS, type RecipeStatus } from '@shared/vocabulary';
 import { shortTime } from '../../core/dates/calendar';
 import { applyServerErrors } from '../../core/forms/server-errors';
 import { isApiError } from '../../core/http/api-error';

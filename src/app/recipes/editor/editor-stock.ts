@@ -1,6 +1,6 @@
 import { catchError, firstValueFrom, forkJoin, of } from 'rxjs';
-import type { RecipeVersionDto } from '../../../../shared/recipe-types';
-import type { LabLimits, MachineRecord, MaterialRecord, SelectionRow, WheelRecord } from '../../../../shared/stock-types';
+import type { RecipeVersionDto } from '@shared/recipe-types';
+import type { LabLimits, MachineRecord, MaterialRecord, SelectionRow, WheelRecord } from '@shared/stock-types';
 import type { RecipeEditorApi } from './recipe-editor-api';
 
 /** The stock the editor offers and checks against, with the lab's limits. */

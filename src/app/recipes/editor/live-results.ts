@@ -1,9 +1,9 @@
 import type { Signal } from '@angular/core';
 import { toObservable, toSignal } from '@angular/core/rxjs-interop';
 import { combineLatest, debounceTime, map, startWith } from 'rxjs';
-import { type CheckResult, runChecks } from '../../../../shared/recipe-checks';
-import type { RecipeContext } from '../../../../shared/recipe-context';
-import { type RecipeComputed, computeRecipe } from '../../../../shared/recipe-computations';
+import { type CheckResult, runChecks } from '@shared/recipe-checks';
+import type { RecipeContext } from '@shared/recipe-context';
+import { type RecipeComputed, computeRecipe } from '@shared/recipe-computations';
 import type { EditorStock } from './editor-stock';
 import { type RecipeForm, type RecipeFormValue, toContent } from './recipe-form';
 

@@ -10,7 +10,7 @@ import { MatInputModule } from '@angular/material/input';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSelectModule } from '@angular/material/select';
 import { firstValueFrom } from 'rxjs';
-import type { AttachmentDto } from '../../../../shared/recipe-types';
+import type { AttachmentDto } from '@shared/recipe-types';
 import { isApiError } from '../../core/http/api-error';
 import { callerHandles } from '../../core/http/caller-handles';
 import { ConfirmDialog, type ConfirmDialogData } from '../../ui/confirm-dialog';

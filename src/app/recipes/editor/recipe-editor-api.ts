@@ -1,10 +1,10 @@
 import { HttpClient, type HttpContext, type HttpEvent, HttpParams } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import { type Observable, map } from 'rxjs';
-import type { Page } from '../../../../shared/api-types';
-import type { AttachmentDto, RecipeVersionDto } from '../../../../shared/recipe-types';
-import type { CreateRecipeBody, SaveDraftBody } from '../../../../shared/schemas/recipe';
-import type { LabLimits, MachineRecord, MaterialRecord, SelectionRow, WheelRecord } from '../../../../shared/stock-types';
+import type { Page } from '@shared/api-types';
+import type { AttachmentDto, RecipeVersionDto } from '@shared/recipe-types';
+import type { CreateRecipeBody, SaveDraftBody } from '@shared/schemas/recipe';
+import type { LabLimits, MachineRecord, MaterialRecord, SelectionRow, WheelRecord } from '@shared/stock-types';
 
 /** Roles an attachment can play on the recipe page and the bench sheet. */
 export type AttachmentRole = AttachmentDto['role'];

@@ -3,10 +3,10 @@ import { HttpTestingController, TestRequest, provideHttpClientTesting } from '@a
 import { signal } from '@angular/core';
 import { type ComponentFixture, TestBed } from '@angular/core/testing';
 import { Router, provideRouter } from '@angular/router';
-import type { UserDto } from '../../../../shared/api-types';
-import type { RecipeVersionDto } from '../../../../shared/recipe-types';
-import type { SaveDraftBody } from '../../../../shared/schemas/recipe';
-import type { LabLimits, MachineRecord, MaterialRecord, SelectionRow, WheelRecord } from '../../../../shared/stock-types';
+import type { UserDto } from '@shared/api-types';
+import type { RecipeVersionDto } from '@shared/recipe-types';
+import type { SaveDraftBody } from '@shared/schemas/recipe';
+import type { LabLimits, MachineRecord, MaterialRecord, SelectionRow, WheelRecord } from '@shared/stock-types';
 import { aUser } from '../../../testing/user-fixture';
 import { errorInterceptor } from '../../core/http/error-interceptor';
 import { Notifier } from '../../core/notifier/notifier';
@@ -200,7 +200,7 @@ describe('RecipeEditor', () => {
 
   it('recomputes the live panel after input and blocks an rpm above the wheel’s marked maximum', async () => {
     await open('3', [aDraft()]);
-    // 250 mm at 3000 rpm: π · 250 · 3000 / 60 000 = 39.27 m/s (trade reference §2, worked example).
+    // 250 mm at 3000 rpm: v = π · D · n / 60 000 = π · 250 · 3000 / 60 000 = 39.27 m/s (peripheral speed, worked by hand).
     await until(() => expect(text('[data-testid="peripheral-speed"] dd')).toBe('39.3 m/s (7730 ft/min)'));
     expect(text('[data-testid="rpm-at-max"] dd')).toBe('6111 rpm');
     expect(root.querySelector('[data-check="wheel-overspeed"]')).toBeNull();

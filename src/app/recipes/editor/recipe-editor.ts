@@ -8,7 +8,7 @@ import { MatInputModule } from '@angular/material/input';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { Router, RouterLink } from '@angular/router';
 import { firstValueFrom, merge } from 'rxjs';
-import { RECIPE_STATUS_LABELS } from '../../../../shared/vocabulary';
+import { RECIPE_STATUS_LABELS } from '@shared/vocabulary';
 import { WorkflowApi } from '../../core/api/workflow-api';
 import { controlMessage } from '../../core/forms/control-message';
 import { isApiError } from '../../core/http/api-error';

@@ -1,6 +1,6 @@
 import { type AbstractControl, FormGroup, type NonNullableFormBuilder, type ValidationErrors, type ValidatorFn, Validators } from '@angular/forms';
-import type { QuantityKind } from '../../../../shared/units';
-import { type RecipeContent, recipeContent } from '../../../../shared/schemas/recipe';
+import type { QuantityKind } from '@shared/units';
+import { type RecipeContent, recipeContent } from '@shared/schemas/recipe';
 import type {
   ClampingMethod,
   CoolantType,
@@ -9,12 +9,12 @@ import type {
   HardnessScale,
   MaterialGroup,
   Shape,
-} from '../../../../shared/vocabulary';
-import { requiredText } from '../../../../shared/schemas/numbers';
-import { toFieldErrors } from '../../../../shared/validation';
+} from '@shared/vocabulary';
+import { requiredText } from '@shared/schemas/numbers';
+import { toFieldErrors } from '@shared/validation';
 import { zodValidator } from '../../core/forms/zod-validator';
 
-/** Motions that take a number of passes (design 5.6). */
+/** Motions that cut in passes (a shallow traverse, a deep cut in depth steps), so they take a number of passes. */
 export const MOTIONS_WITH_PASSES: readonly CutMotion[] = ['traverse-pass', 'stepped-depth'];
 
 /**

@@ -1,12 +1,12 @@
 import { ChangeDetectionStrategy, Component, computed, input, output } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
-import type { UnitPreference } from '../../../../shared/api-types';
-import { NO_SAFETY_CLAIM } from '../../../../shared/cautions';
-import { formatHardness } from '../../../../shared/hardness';
-import type { CheckResult, CheckSeverity } from '../../../../shared/recipe-checks';
-import type { RecipeComputed } from '../../../../shared/recipe-computations';
-import { NO_VALUE, type QuantityKind, formatQuantity } from '../../../../shared/units';
+import type { UnitPreference } from '@shared/api-types';
+import { NO_SAFETY_CLAIM } from '@shared/cautions';
+import { formatHardness } from '@shared/hardness';
+import type { CheckResult, CheckSeverity } from '@shared/recipe-checks';
+import type { RecipeComputed } from '@shared/recipe-computations';
+import { NO_VALUE, type QuantityKind, formatQuantity } from '@shared/units';
 import { FIELD_INFO } from './recipe-form';
 import { CutProfilePlot } from '../../ui/cut-profile-plot/cut-profile-plot';
 

@@ -1,7 +1,7 @@
 import { type ComponentFixture, TestBed } from '@angular/core/testing';
 import { MAT_DIALOG_DATA, MatDialogRef } from '@angular/material/dialog';
-import type { RecipeVersionDto } from '../../../../shared/recipe-types';
-import type { RecipeContent } from '../../../../shared/schemas/recipe';
+import type { RecipeVersionDto } from '@shared/recipe-types';
+import type { RecipeContent } from '@shared/schemas/recipe';
 import { type DraftBody, SaveConflictDialog, differences, merge } from './save-conflict-dialog';
 
 const content = (over: { rpm?: number; hardness?: RecipeContent['scope']['hardness']; instructions?: string } = {}) =>

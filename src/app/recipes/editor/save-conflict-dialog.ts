@@ -3,8 +3,8 @@ import { ChangeDetectionStrategy, Component, computed, inject, signal } from '@a
 import { MatButtonModule } from '@angular/material/button';
 import { MAT_DIALOG_DATA, MatDialogModule, MatDialogRef } from '@angular/material/dialog';
 import { MatRadioModule } from '@angular/material/radio';
-import type { RecipeVersionDto } from '../../../../shared/recipe-types';
-import type { RecipeContent } from '../../../../shared/schemas/recipe';
+import type { RecipeVersionDto } from '@shared/recipe-types';
+import type { RecipeContent } from '@shared/schemas/recipe';
 import { FIELD_INFO } from './recipe-form';
 
 /** What the author tried to save: title and content. */

@@ -12,11 +12,11 @@ import { MatSortModule, type Sort } from '@angular/material/sort';
 import { MatTableModule } from '@angular/material/table';
 import { ActivatedRoute, Router, RouterLink } from '@angular/router';
 import { catchError, debounceTime, map, merge, of } from 'rxjs';
-import type { Page } from '../../../../shared/api-types';
-import type { RecipeSummary } from '../../../../shared/recipe-types';
-import { hasAccess } from '../../../../shared/roles';
-import { RECIPE_SORT_FIELDS } from '../../../../shared/schemas/recipe';
-import type { MachineRecord } from '../../../../shared/stock-types';
+import type { Page } from '@shared/api-types';
+import type { RecipeSummary } from '@shared/recipe-types';
+import { hasAccess } from '@shared/roles';
+import { RECIPE_SORT_FIELDS } from '@shared/schemas/recipe';
+import type { MachineRecord } from '@shared/stock-types';
 import {
   HARDNESS_SCALES,
   type HardnessScale,
@@ -29,7 +29,7 @@ import {
   SHAPES,
   SHAPE_LABELS,
   type Shape,
-} from '../../../../shared/vocabulary';
+} from '@shared/vocabulary';
 import { latestValue } from '../../core/api/latest-value';
 import { Session } from '../../core/session/session';
 import { CheckSeverityLabel } from '../../ui/check-severity-label';

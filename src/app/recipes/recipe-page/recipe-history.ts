@@ -1,7 +1,7 @@
 import { DatePipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, input } from '@angular/core';
 import { RouterLink } from '@angular/router';
-import type { RecipeVersionDto } from '../../../../shared/recipe-types';
+import type { RecipeVersionDto } from '@shared/recipe-types';
 import { SignatureList } from '../../ui/signature-list';
 import { RecipeStatusChip } from '../../ui/recipe-status-chip';
 

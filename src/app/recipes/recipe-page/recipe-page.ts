@@ -10,11 +10,11 @@ import { MatSelectModule } from '@angular/material/select';
 import { MatTabsModule } from '@angular/material/tabs';
 import { Router, RouterLink } from '@angular/router';
 import { EMPTY, catchError, distinctUntilChanged, firstValueFrom, switchMap } from 'rxjs';
-import { NO_SAFETY_CLAIM } from '../../../../shared/cautions';
-import type { CheckResult, CheckSeverity } from '../../../../shared/recipe-checks';
-import { computeRecipe } from '../../../../shared/recipe-computations';
-import type { CutRecordDto, MyAcknowledgementDto, RecipeVersionDto } from '../../../../shared/recipe-types';
-import { hasAccess } from '../../../../shared/roles';
+import { NO_SAFETY_CLAIM } from '@shared/cautions';
+import type { CheckResult, CheckSeverity } from '@shared/recipe-checks';
+import { computeRecipe } from '@shared/recipe-computations';
+import type { CutRecordDto, MyAcknowledgementDto, RecipeVersionDto } from '@shared/recipe-types';
+import { hasAccess } from '@shared/roles';
 import {
   CLAMPING_METHOD_LABELS,
   COOLANT_TYPE_LABELS,
@@ -25,7 +25,7 @@ import {
   RECIPE_STATUS_LABELS,
   SHAPE_LABELS,
   WHEEL_KIND_LABELS,
-} from '../../../../shared/vocabulary';
+} from '@shared/vocabulary';
 import { askToAcknowledge } from '../../ui/acknowledge-dialog';
 import { mustAcknowledge } from '../../ui/acknowledgement-state';
 import { AcknowledgementsPanel } from '../acknowledge/acknowledgements-panel';

@@ -1,8 +1,8 @@
 import { ChangeDetectionStrategy, Component } from '@angular/core';
 import { MatIconModule } from '@angular/material/icon';
-import { NO_SAFETY_CLAIM, PRECEDENCE_LINE, STANDARD_CAUTIONS } from '../../../../shared/cautions';
+import { NO_SAFETY_CLAIM, PRECEDENCE_LINE, STANDARD_CAUTIONS } from '@shared/cautions';
 
-/** The standard cautions box every recipe page carries (design 6). */
+/** The standard cautions box every recipe page carries: wheels can burst and saws cut fingers, whatever the recipe. */
 @Component({
   selector: 'kb-standard-cautions',
   imports: [MatIconModule],

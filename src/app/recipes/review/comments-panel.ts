@@ -1,6 +1,6 @@
 import { ChangeDetectionStrategy, Component, input, output } from '@angular/core';
 import { MatIconModule } from '@angular/material/icon';
-import type { ReviewCommentDto } from '../../../../shared/recipe-types';
+import type { ReviewCommentDto } from '@shared/recipe-types';
 import { ReviewComments } from './review-comments';
 
 /** Review comments set apart from the page, for the author of a returned version. */

@@ -5,8 +5,8 @@ import { MAT_DIALOG_DATA, MatDialogModule, MatDialogRef } from '@angular/materia
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
 import { type Observable, firstValueFrom } from 'rxjs';
-import type { RecipeVersionDto } from '../../../../shared/recipe-types';
-import { requiredText } from '../../../../shared/schemas/numbers';
+import type { RecipeVersionDto } from '@shared/recipe-types';
+import { requiredText } from '@shared/schemas/numbers';
 import { controlMessage } from '../../core/forms/control-message';
 import { zodValidator } from '../../core/forms/zod-validator';
 import { isApiError } from '../../core/http/api-error';

@@ -8,9 +8,9 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { Router, RouterLink } from '@angular/router';
 import { firstValueFrom } from 'rxjs';
-import { NO_SAFETY_CLAIM } from '../../../../shared/cautions';
-import type { CheckResult, CheckSeverity } from '../../../../shared/recipe-checks';
-import type { RecipeComparison, RecipeVersionDto } from '../../../../shared/recipe-types';
+import { NO_SAFETY_CLAIM } from '@shared/cautions';
+import type { CheckResult, CheckSeverity } from '@shared/recipe-checks';
+import type { RecipeComparison, RecipeVersionDto } from '@shared/recipe-types';
 import {
   CLAMPING_METHOD_LABELS,
   COOLANT_TYPE_LABELS,
@@ -18,7 +18,7 @@ import {
   MACHINE_CLASS_LABELS,
   MATERIAL_GROUP_LABELS,
   SHAPE_LABELS,
-} from '../../../../shared/vocabulary';
+} from '@shared/vocabulary';
 import { callerHandles } from '../../core/http/caller-handles';
 import { Notifier } from '../../core/notifier/notifier';
 import { Session } from '../../core/session/session';

@@ -1,6 +1,6 @@
 import { Component, signal } from '@angular/core';
 import { type ComponentFixture, TestBed } from '@angular/core/testing';
-import type { ContactPoint } from '../../../../shared/contact-length';
+import type { ContactPoint } from '@shared/contact-length';
 import { CutProfilePlot, niceTicks } from './cut-profile-plot';
 
 @Component({

@@ -1,5 +1,5 @@
 import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
-import type { ContactPoint } from '../../../../shared/contact-length';
+import type { ContactPoint } from '@shared/contact-length';
 
 /** Plot area inside the SVG's viewBox (user units). */
 const VIEW = { width: 420, height: 230 };

@@ -8,9 +8,9 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { MatRadioModule } from '@angular/material/radio';
 import { firstValueFrom } from 'rxjs';
-import type { CutRecordDto } from '../../../../shared/recipe-types';
-import { cutRecordBody } from '../../../../shared/schemas/operator';
-import { CUT_OUTCOMES, CUT_OUTCOME_LABELS, type CutOutcome } from '../../../../shared/vocabulary';
+import type { CutRecordDto } from '@shared/recipe-types';
+import { cutRecordBody } from '@shared/schemas/operator';
+import { CUT_OUTCOMES, CUT_OUTCOME_LABELS, type CutOutcome } from '@shared/vocabulary';
 import { controlMessage } from '../../core/forms/control-message';
 import { applyServerErrors } from '../../core/forms/server-errors';
 import { zodValidator } from '../../core/forms/zod-validator';
@@ -41,7 +41,7 @@ function notesWhenNotGood(group: AbstractControl): ValidationErrors | null {
 }
 
 /**
- * Log a cut (design section 9): one cut against the exact version used. Anything but a good
+ * Log a cut: one cut against the exact version used, so a specimen can be traced back to it. Anything but a good
  * outcome flags the recipe for its author; the dialog says so before and after sending.
  */
 @Component({

@@ -1,8 +1,8 @@
 import { ChangeDetectionStrategy, Component, input } from '@angular/core';
 import type { FormControl } from '@angular/forms';
 import { MatIconModule } from '@angular/material/icon';
-import { PRECEDENCE_LINE, STANDARD_CAUTIONS } from '../../../../../shared/cautions';
-import type { CheckResult } from '../../../../../shared/recipe-checks';
+import { PRECEDENCE_LINE, STANDARD_CAUTIONS } from '@shared/cautions';
+import type { CheckResult } from '@shared/recipe-checks';
 import { InlineChecks } from './inline-checks';
 import { MarkdownField } from './markdown-field';
 

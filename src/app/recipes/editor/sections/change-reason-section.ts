@@ -2,7 +2,7 @@ import { ChangeDetectionStrategy, Component, input } from '@angular/core';
 import { type FormControl, ReactiveFormsModule } from '@angular/forms';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
-import type { CheckResult } from '../../../../../shared/recipe-checks';
+import type { CheckResult } from '@shared/recipe-checks';
 import { controlMessage } from '../../../core/forms/control-message';
 import { InlineChecks } from './inline-checks';
 

@@ -1,6 +1,6 @@
 import { ChangeDetectionStrategy, Component, input } from '@angular/core';
 import { MatIconModule } from '@angular/material/icon';
-import type { CheckResult } from '../../../../../shared/recipe-checks';
+import type { CheckResult } from '@shared/recipe-checks';
 
 /** The blockers and warnings about one section's fields, repeated at its top so they are seen in context. */
 @Component({

@@ -1,6 +1,6 @@
 import { ChangeDetectionStrategy, Component, input } from '@angular/core';
 import type { FormControl } from '@angular/forms';
-import type { CheckResult } from '../../../../../shared/recipe-checks';
+import type { CheckResult } from '@shared/recipe-checks';
 import { InlineChecks } from './inline-checks';
 import { MarkdownField } from './markdown-field';
 

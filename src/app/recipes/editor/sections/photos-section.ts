@@ -1,5 +1,5 @@
 import { ChangeDetectionStrategy, Component, input } from '@angular/core';
-import type { RecipeVersionDto } from '../../../../../shared/recipe-types';
+import type { RecipeVersionDto } from '@shared/recipe-types';
 import { RecipeAttachments } from '../recipe-attachments';
 
 /** Photos: the setup and good and bad cut faces, once the draft exists to attach them to. */

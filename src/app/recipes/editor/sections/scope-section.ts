@@ -5,8 +5,8 @@ import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
 import { MatRadioModule } from '@angular/material/radio';
 import { MatSelectModule } from '@angular/material/select';
-import type { CheckResult } from '../../../../../shared/recipe-checks';
-import type { MaterialRecord } from '../../../../../shared/stock-types';
+import type { CheckResult } from '@shared/recipe-checks';
+import type { MaterialRecord } from '@shared/stock-types';
 import {
   CUT_ORIENTATIONS,
   CUT_ORIENTATION_LABELS,
@@ -15,7 +15,7 @@ import {
   MATERIAL_GROUP_LABELS,
   SHAPES,
   SHAPE_LABELS,
-} from '../../../../../shared/vocabulary';
+} from '@shared/vocabulary';
 import { controlMessage } from '../../../core/forms/control-message';
 import type { FormContent, ScopeGroup } from '../recipe-form';
 import { imperialHint } from './imperial-hint';
