@@ -1,5 +1,4 @@
-import { signal } from '@angular/core';
-import { inject } from '@angular/core';
+import { inject, signal } from '@angular/core';
 import { type FormGroup, NonNullableFormBuilder } from '@angular/forms';
 import { MatDialogRef } from '@angular/material/dialog';
 import { firstValueFrom } from 'rxjs';

@@ -1,5 +1,4 @@
-import { computed } from '@angular/core';
-import { inject } from '@angular/core';
+import { computed, inject } from '@angular/core';
 import { rxResource } from '@angular/core/rxjs-interop';
 import type { RecipeVersionDto } from '@shared/recipe-types';
 import { isApiError } from '../http/api-error';
