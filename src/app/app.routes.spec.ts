@@ -1,4 +1,4 @@
-import type { Route } from '@angular/router';
+import type { Route, Routes } from '@angular/router';
 import { routes } from './app.routes';
 import type { AccessData } from './core/session/access-guard';
 import { accessGuard } from './core/session/access-guard';
@@ -10,6 +10,28 @@ function flatten(table: readonly Route[], prefix = ''): { path: string; route: R
     const path = [prefix, route.path].filter(Boolean).join('/');
     return [{ path, route }, ...flatten(route.children ?? [], path)];
   });
+}
+
+interface WalkedRoute {
+  path: string;
+  route: Route;
+  /** The access of the nearest guarded ancestor, which Angular's data inheritance and the guard apply. */
+  inherited: AccessData['access'] | undefined;
+}
+
+/** Like flatten, but also into the tables lazily loaded features bring. */
+async function flattenWithFeatures(table: readonly Route[], prefix = '', inherited?: AccessData['access']): Promise<WalkedRoute[]> {
+  const walked: WalkedRoute[] = [];
+  for (const route of table) {
+    const path = [prefix, route.path].filter(Boolean).join('/');
+    walked.push({ path, route, inherited });
+    const own = (route.data as Partial<AccessData> | undefined)?.access;
+    const guarded = own !== undefined && (own === 'public' || !!route.canActivate?.includes(accessGuard)) ? own : inherited;
+    // The tables lazily loaded features bring (recipes, operator, stock, people).
+    const children = route.loadChildren ? await (route.loadChildren as () => Promise<Routes>)() : (route.children ?? []);
+    walked.push(...(await flattenWithFeatures(children, path, guarded)));
+  }
+  return walked;
 }
 
 describe('route table', () => {
@@ -31,11 +53,23 @@ describe('route table', () => {
     expect((last.data as AccessData).access).toBe('public');
   });
 
-  it('gives each navigation entry the same access as the route it opens', () => {
+  it('gives each navigation entry the same access as the route it opens', async () => {
+    const withFeatures = await flattenWithFeatures(routes);
     for (const item of NAV_ITEMS) {
-      const match = all.find(({ path }) => '/' + path === item.path);
+      const match = withFeatures.find(({ path, route }) => '/' + path === item.path);
       expect(match, `no route for nav entry ${item.path}`).toBeDefined();
       expect((match!.route.data as AccessData).access).toEqual(item.access);
+    }
+  });
+
+  it('declares or inherits access on every page of the lazily loaded features', async () => {
+    const pages = (await flattenWithFeatures(routes)).filter(({ route }) => route.loadComponent || route.component);
+    for (const { path, route, inherited } of pages) {
+      const own = (route.data as Partial<AccessData> | undefined)?.access;
+      expect(own ?? inherited, `route "${path}"`).toBeDefined();
+      if (own !== undefined && own !== 'public') {
+        expect(route.canActivate, `route "${path}" is not guarded`).toContain(accessGuard);
+      }
     }
   });
 });

@@ -1,10 +1,8 @@
 import { inject } from '@angular/core';
 import type { Routes } from '@angular/router';
-import type { Role } from '../../shared/roles';
+import type { Role } from '@shared/roles';
 import { type AccessData, accessGuard } from './core/session/access-guard';
 import { Session } from './core/session/session';
-import { unsavedChangesGuard } from './recipe-editor/unsaved-changes-guard';
-import { numericIdParam } from './recipe/numeric-id-param';
 
 function isOnlyOperator(roles: readonly Role[]): boolean {
   return roles.length > 0 && roles.every((r) => r === 'operator');
@@ -13,7 +11,8 @@ function isOnlyOperator(roles: readonly Role[]): boolean {
 /**
  * The one route table. Every route declares who may open it in `data.access` (public,
  * signedIn or a list of roles), checked by accessGuard; nav-items.ts repeats the access for
- * the entries it shows. Pages load lazily.
+ * the entries it shows. Pages load lazily; a feature with several pages brings its own table
+ * (recipes.routes.ts, operator.routes.ts, stock.routes.ts, people.routes.ts).
  */
 export const routes: Routes = [
   {
@@ -51,91 +50,18 @@ export const routes: Routes = [
         loadComponent: () => import('./today/today').then((m) => m.Today),
       },
       {
-        path: 'recipes/new',
-        title: 'New recipe · Kerfbook',
-        canActivate: [accessGuard],
-        canDeactivate: [unsavedChangesGuard],
-        data: { access: ['author'] } satisfies AccessData,
-        loadComponent: () => import('./recipe-editor/recipe-editor').then((m) => m.RecipeEditor),
-      },
-      {
-        path: 'recipes/:id/edit',
-        title: 'Edit recipe · Kerfbook',
-        canActivate: [accessGuard],
-        canDeactivate: [unsavedChangesGuard],
-        data: { access: ['author'] } satisfies AccessData,
-        loadComponent: () => import('./recipe-editor/recipe-editor').then((m) => m.RecipeEditor),
-      },
-      {
-        path: 'recipes/:id/review',
-        title: 'Review · Kerfbook',
-        canMatch: [numericIdParam],
-        canActivate: [accessGuard],
-        data: { access: ['approver'] } satisfies AccessData,
-        loadComponent: () => import('./review/review-page').then((m) => m.ReviewPage),
-      },
-      {
-        path: 'library',
-        title: 'Library · Kerfbook',
+        // Library, recipe page, editor, review, compare and acknowledgement: /library and /recipes/…
+        path: '',
         canActivate: [accessGuard],
         data: { access: 'signedIn' } satisfies AccessData,
-        loadComponent: () => import('./library/library').then((m) => m.Library),
+        loadChildren: () => import('./recipes/recipes.routes').then((m) => m.recipesRoutes),
       },
       {
-        // Before the generic recipes/:id, and numeric ids only like it.
-        path: 'recipes/:id/compare',
-        title: 'Compare versions · Kerfbook',
-        canMatch: [numericIdParam],
+        // The pages at the saw: /finder, /check and /cuts.
+        path: '',
         canActivate: [accessGuard],
         data: { access: 'signedIn' } satisfies AccessData,
-        loadComponent: () => import('./compare/compare-page').then((m) => m.ComparePage),
-      },
-      {
-        // The link in a "new version in use" mail: /recipes/:id/acknowledge?v=N
-        path: 'recipes/:id/acknowledge',
-        title: 'Acknowledge a version · Kerfbook',
-        canMatch: [numericIdParam],
-        canActivate: [accessGuard],
-        data: { access: ['operator'] } satisfies AccessData,
-        loadComponent: () => import('./acknowledge/acknowledge-page').then((m) => m.AcknowledgePage),
-      },
-      {
-        // Numeric ids only, so /recipes/new (the editor) never lands here whatever the order.
-        path: 'recipes/:id',
-        title: 'Recipe · Kerfbook',
-        canMatch: [numericIdParam],
-        canActivate: [accessGuard],
-        data: { access: 'signedIn' } satisfies AccessData,
-        loadComponent: () => import('./recipe/recipe-page').then((m) => m.RecipePage),
-      },
-      {
-        path: 'finder',
-        title: 'Find a recipe · Kerfbook',
-        canActivate: [accessGuard],
-        data: { access: 'signedIn' } satisfies AccessData,
-        loadComponent: () => import('./finder/finder').then((m) => m.Finder),
-      },
-      {
-        // The QR code on a bench sheet points here; signed-out visitors come back after signing in.
-        path: 'check/:code',
-        title: 'Check a sheet · Kerfbook',
-        canActivate: [accessGuard],
-        data: { access: 'signedIn' } satisfies AccessData,
-        loadComponent: () => import('./check/check-page').then((m) => m.CheckPage),
-      },
-      {
-        path: 'check',
-        title: 'Check a sheet · Kerfbook',
-        canActivate: [accessGuard],
-        data: { access: 'signedIn' } satisfies AccessData,
-        loadComponent: () => import('./check/check-page').then((m) => m.CheckPage),
-      },
-      {
-        path: 'cuts',
-        title: 'Trace a specimen · Kerfbook',
-        canActivate: [accessGuard],
-        data: { access: 'signedIn' } satisfies AccessData,
-        loadComponent: () => import('./cuts/specimen-trace').then((m) => m.SpecimenTrace),
+        loadChildren: () => import('./operator/operator.routes').then((m) => m.operatorRoutes),
       },
       {
         path: 'stock',

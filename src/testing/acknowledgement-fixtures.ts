@@ -1,5 +1,5 @@
-import type { UserDto } from '../../shared/api-types';
-import type { AcknowledgementsDto, MyAcknowledgementDto, RecipeVersionDto } from '../../shared/recipe-types';
+import type { UserDto } from '@shared/api-types';
+import type { AcknowledgementsDto, MyAcknowledgementDto, RecipeVersionDto } from '@shared/recipe-types';
 import { aRecipeVersion } from './stock-and-recipe-fixtures';
 import { aUser } from './user-fixture';
 

@@ -1,5 +1,5 @@
-import type { RecipeSummary, RecipeVersionDto } from '../../shared/recipe-types';
-import type { MachineRecord, MaterialRecord, WheelRecord } from '../../shared/stock-types';
+import type { RecipeSummary, RecipeVersionDto } from '@shared/recipe-types';
+import type { MachineRecord, MaterialRecord, WheelRecord } from '@shared/stock-types';
 
 /** Invented stock and recipes for the Stock, Library and Recipe specs; override what the test is about. */
 

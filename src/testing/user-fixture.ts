@@ -1,4 +1,4 @@
-import type { UserDto } from '../../shared/api-types';
+import type { UserDto } from '@shared/api-types';
 
 /** An invented lab user for specs; override what the test is about. */
 export function aUser(overrides: Partial<UserDto> = {}): UserDto {

@@ -12,13 +12,14 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { MatRadioModule } from '@angular/material/radio';
 import { Router } from '@angular/router';
-import type { UnitPreference } from '../../../shared/api-types';
-import { ROLE_INFO } from '../../../shared/roles';
-import { newPassword } from '../../../shared/schemas/fields';
-import { changePasswordBody } from '../../../shared/schemas/session';
+import type { UnitPreference } from '@shared/api-types';
+import { ROLE_INFO } from '@shared/roles';
+import { newPassword } from '@shared/schemas/fields';
+import { changePasswordBody } from '@shared/schemas/session';
 import { controlMessage } from '../core/forms/control-message';
 import { sameAsNewPassword } from '../core/forms/same-as-new-password';
 import { applyServerErrors } from '../core/forms/server-errors';
+import { checkWholeBody } from '../core/forms/whole-body-check';
 import { zodValidator } from '../core/forms/zod-validator';
 import { isApiError } from '../core/http/api-error';
 import { safeReturnUrl } from '../core/session/return-url';
@@ -84,19 +85,12 @@ export class Account {
     }
     const { currentPassword, newPassword: chosen } = form.getRawValue();
     // The shared schema's whole-body rules (e.g. new must differ from current), before asking the server.
-    const parsed = changePasswordBody.safeParse({ currentPassword, newPassword: chosen });
-    if (!parsed.success) {
-      const rest = applyServerErrors(
-        form,
-        parsed.error.issues.map((issue) => ({ path: issue.path.join('.'), message: issue.message })),
-      );
-      this.passwordError.set(rest.join(' '));
-      return;
-    }
+    const body = checkWholeBody(form, changePasswordBody, { currentPassword, newPassword: chosen }, (rest) => this.passwordError.set(rest.join(' ')));
+    if (!body) return;
     const wasRequired = this.mustChangePassword();
     this.passwordBusy.set(true);
     try {
-      await this.session.changePassword(parsed.data);
+      await this.session.changePassword(body);
       this.passwordDirective().resetForm();
       void this.notifier.show('Your password has been changed.', 'OK', 5000);
       if (wasRequired) await this.router.navigateByUrl(safeReturnUrl(this.returnUrl()));

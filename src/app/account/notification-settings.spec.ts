@@ -5,7 +5,7 @@ import { type ComponentFixture, TestBed } from '@angular/core/testing';
 import { TestbedHarnessEnvironment } from '@angular/cdk/testing/testbed';
 import { MatSlideToggleHarness } from '@angular/material/slide-toggle/testing';
 import { provideRouter } from '@angular/router';
-import type { NotificationPreferenceDto } from '../../../shared/api-types';
+import type { NotificationPreferenceDto } from '@shared/api-types';
 import { aUser } from '../../testing/user-fixture';
 import { errorInterceptor } from '../core/http/error-interceptor';
 import { Notifier } from '../core/notifier/notifier';

@@ -2,14 +2,15 @@ import { HttpClient } from '@angular/common/http';
 import { ChangeDetectionStrategy, Component, type OnInit, computed, inject, signal } from '@angular/core';
 import { MatSlideToggleModule, type MatSlideToggleChange } from '@angular/material/slide-toggle';
 import { firstValueFrom } from 'rxjs';
-import type { NotificationPreferenceDto, NotificationPreferencesDto } from '../../../shared/api-types';
-import type { NotificationPreferencesBody } from '../../../shared/schemas/mail';
+import type { NotificationPreferenceDto, NotificationPreferencesDto } from '@shared/api-types';
+import type { NotificationPreferencesBody } from '@shared/schemas/mail';
 import { Notifier } from '../core/notifier/notifier';
 import { Session } from '../core/session/session';
 
 /**
  * "Mail notifications" on My account: one switch per kind of mail. The mail asking an
- * operator to acknowledge a new version cannot be turned off (design 7).
+ * operator to acknowledge a new version cannot be turned off: operators must acknowledge
+ * every new version for their machines, and the mail is how they learn of it.
  */
 @Component({
   selector: 'kb-notification-settings',

@@ -1,7 +1,7 @@
 import { ChangeDetectionStrategy, Component, computed, inject, input } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
 import { RouterLink } from '@angular/router';
-import { ROLE_INFO } from '../../../shared/roles';
+import { ROLE_INFO } from '@shared/roles';
 import { Session } from '../core/session/session';
 
 /** Where the access guard sends a signed-in user whose roles do not open the page asked for. */

@@ -2,7 +2,7 @@ import { provideHttpClient, withInterceptors } from '@angular/common/http';
 import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
 import { type ComponentFixture, TestBed } from '@angular/core/testing';
 import { provideRouter } from '@angular/router';
-import type { OutboxEntryDto } from '../../../shared/api-types';
+import type { OutboxEntryDto } from '@shared/api-types';
 import { errorInterceptor } from '../core/http/error-interceptor';
 import { Notifier } from '../core/notifier/notifier';
 import { Session } from '../core/session/session';
@@ -50,8 +50,7 @@ describe('Outbox', () => {
     backend = TestBed.inject(HttpTestingController);
     fixture = TestBed.createComponent(Outbox);
     root = fixture.nativeElement;
-    await fixture.whenStable();
-    backend.expectOne({ method: 'GET', url: '/api/dev/outbox' }).flush({ items: [invitation, reset] });
+    (await vi.waitFor(() => backend.expectOne({ method: 'GET', url: '/api/dev/outbox' }))).flush({ items: [invitation, reset] });
     await vi.waitFor(async () => {
       await fixture.whenStable();
       expect(mainRows()).toHaveLength(2);

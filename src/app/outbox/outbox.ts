@@ -1,12 +1,14 @@
 import { DatePipe, DOCUMENT } from '@angular/common';
-import { ChangeDetectionStrategy, Component, type OnInit, inject, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, inject, signal } from '@angular/core';
+import { rxResource } from '@angular/core/rxjs-interop';
 import { HttpClient } from '@angular/common/http';
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatTableModule } from '@angular/material/table';
-import { firstValueFrom } from 'rxjs';
-import type { OutboxEntryDto } from '../../../shared/api-types';
+import { map } from 'rxjs';
+import { latestValue } from '../core/api/latest-value';
+import type { OutboxEntryDto } from '@shared/api-types';
 import { type MailTextPart, mailTextLines } from './mail-text';
 
 /**
@@ -20,32 +22,21 @@ import { type MailTextPart, mailTextLines } from './mail-text';
   styleUrl: './outbox.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
-export class Outbox implements OnInit {
+export class Outbox {
   private readonly http = inject(HttpClient);
   private readonly origin = inject(DOCUMENT).location.origin;
 
   protected readonly columns = ['expand', 'to', 'subject', 'kind', 'created', 'delivery'];
-  protected readonly items = signal<OutboxEntryDto[]>([]);
-  protected readonly loading = signal(false);
-  protected readonly loadFailed = signal(false);
+  private readonly outbox = rxResource({ stream: () => this.http.get<{ items: OutboxEntryDto[] }>('/api/dev/outbox').pipe(map((answer) => answer.items)) });
+  /** The mails last listed; they stay while the list is asked again and when that fails. */
+  protected readonly items = latestValue<OutboxEntryDto[]>(this.outbox, []);
+  protected readonly loading = computed(() => this.outbox.isLoading());
+  /** The error interceptor has told the user why. */
+  protected readonly loadFailed = computed(() => !!this.outbox.error());
   protected readonly expandedId = signal<number | null>(null);
 
-  ngOnInit(): void {
-    void this.refresh();
-  }
-
-  protected async refresh(): Promise<void> {
-    this.loading.set(true);
-    try {
-      const answer = await firstValueFrom(this.http.get<{ items: OutboxEntryDto[] }>('/api/dev/outbox'));
-      this.items.set(answer.items);
-      this.loadFailed.set(false);
-    } catch {
-      // The error interceptor has told the user why.
-      this.loadFailed.set(true);
-    } finally {
-      this.loading.set(false);
-    }
+  protected refresh(): void {
+    this.outbox.reload();
   }
 
   protected toggle(entry: OutboxEntryDto): void {

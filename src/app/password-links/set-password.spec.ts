@@ -2,7 +2,7 @@ import { provideHttpClient, withInterceptors } from '@angular/common/http';
 import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
 import { type ComponentFixture, TestBed } from '@angular/core/testing';
 import { Router, provideRouter } from '@angular/router';
-import type { LinkInfoDto } from '../../../shared/api-types';
+import type { LinkInfoDto } from '@shared/api-types';
 import { csrfInterceptor } from '../core/http/csrf-interceptor';
 import { errorInterceptor } from '../core/http/error-interceptor';
 import { Notifier } from '../core/notifier/notifier';

@@ -7,13 +7,14 @@ import { MatPaginatorHarness } from '@angular/material/paginator/testing';
 import { MatSelectHarness } from '@angular/material/select/testing';
 import { MatSortHarness } from '@angular/material/sort/testing';
 import { provideRouter } from '@angular/router';
-import type { Page, UserDto } from '../../../shared/api-types';
+import type { Page, UserDto } from '@shared/api-types';
 import { aMachine } from '../../testing/stock-and-recipe-fixtures';
 import { aUser } from '../../testing/user-fixture';
 import { Notifier } from '../core/notifier/notifier';
 import { errorInterceptor } from '../core/http/error-interceptor';
 import { Session } from '../core/session/session';
-import { PeopleList, SEARCH_DEBOUNCE_MS } from './people-list';
+import { LIST_SEARCH_DEBOUNCE_MS } from '../ui/paged-list';
+import { PeopleList } from './people-list';
 
 describe('PeopleList', () => {
   let fixture: ComponentFixture<PeopleList>;
@@ -53,7 +54,6 @@ describe('PeopleList', () => {
     backend = TestBed.inject(HttpTestingController);
     fixture = TestBed.createComponent(PeopleList);
     root = fixture.nativeElement;
-    await fixture.whenStable();
     // Machine names for the operators' rows: every machine, archived ones too.
     const machines = await vi.waitFor(() => backend.expectOne((r) => r.url === '/api/machines'));
     expect(machines.request.params.get('archived')).toBe('all');
@@ -92,15 +92,18 @@ describe('PeopleList', () => {
     const sort = await TestbedHarnessEnvironment.loader(fixture).getHarness(MatSortHarness);
     const [name] = await sort.getSortHeaders({ label: 'Name' });
 
-    await name.click();
+    // Harnesses wait for the page to settle, which it does once the list they ask for is answered.
+    let clicking = name.click();
     const asc = await nextListRequest();
     expect(asc.params).toMatchObject({ sort: 'displayName', dir: 'asc', page: '0' });
     asc.req.flush(page(2));
+    await clicking;
 
-    await name.click();
+    clicking = name.click();
     const desc = await nextListRequest();
     expect(desc.params).toMatchObject({ sort: 'displayName', dir: 'desc' });
     desc.req.flush(page(2));
+    await clicking;
   });
 
   it('pages on the server, and goes back to the first page when a filter changes', async () => {
@@ -108,25 +111,28 @@ describe('PeopleList', () => {
     const loader = TestbedHarnessEnvironment.loader(fixture);
     const paginator = await loader.getHarness(MatPaginatorHarness);
 
-    await paginator.goToNextPage();
+    const paging = paginator.goToNextPage();
     const second = await nextListRequest();
     expect(second.params).toMatchObject({ page: '1', pageSize: '25' });
     second.req.flush(page(60, 1));
+    await paging;
 
     const [, status] = await loader.getAllHarnesses(MatSelectHarness);
-    await status.clickOptions({ text: 'Inactive' });
+    const choosing = status.clickOptions({ text: 'Inactive' });
     const filtered = await nextListRequest();
     expect(filtered.params).toMatchObject({ page: '0', status: 'inactive' });
     filtered.req.flush(page(1, 0, [people[1]]));
+    await choosing;
   });
 
   it('filters by role', async () => {
     (await nextListRequest()).req.flush(page(2));
     const [role] = await TestbedHarnessEnvironment.loader(fixture).getAllHarnesses(MatSelectHarness);
-    await role.clickOptions({ text: 'Operator' });
+    const choosing = role.clickOptions({ text: 'Operator' });
     const { req, params } = await nextListRequest();
     expect(params).toMatchObject({ role: 'operator', page: '0' });
     req.flush(page(1, 0, [people[1]]));
+    await choosing;
   });
 
   it('searches once typing pauses, with the trimmed text', async () => {
@@ -140,7 +146,7 @@ describe('PeopleList', () => {
         vi.advanceTimersByTime(100);
       }
       backend.expectNone('/api/users');
-      vi.advanceTimersByTime(SEARCH_DEBOUNCE_MS);
+      vi.advanceTimersByTime(LIST_SEARCH_DEBOUNCE_MS);
     } finally {
       vi.useRealTimers();
     }

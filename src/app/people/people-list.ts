@@ -1,6 +1,6 @@
 import { DatePipe } from '@angular/common';
-import { ChangeDetectionStrategy, Component, computed, inject, linkedSignal, signal } from '@angular/core';
-import { takeUntilDestroyed, toObservable, toSignal } from '@angular/core/rxjs-interop';
+import { ChangeDetectionStrategy, Component, computed, inject } from '@angular/core';
+import { toSignal } from '@angular/core/rxjs-interop';
 import { NonNullableFormBuilder, ReactiveFormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatChipsModule } from '@angular/material/chips';
@@ -9,29 +9,25 @@ import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { MatMenuModule } from '@angular/material/menu';
-import { MatPaginatorModule, type PageEvent } from '@angular/material/paginator';
-import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSelectModule } from '@angular/material/select';
-import { MatSortModule, type Sort } from '@angular/material/sort';
+import { MatSortModule } from '@angular/material/sort';
 import { MatTableModule } from '@angular/material/table';
-import { catchError, debounceTime, distinctUntilChanged, firstValueFrom, map, of, switchMap } from 'rxjs';
-import type { Page, UserDto } from '../../../shared/api-types';
-import type { MachineRecord } from '../../../shared/stock-types';
-import { ROLES, ROLE_INFO, type Role } from '../../../shared/roles';
-import { USER_SORT_FIELDS, type UserListQuery } from '../../../shared/schemas/users';
+import { catchError, firstValueFrom, map, of } from 'rxjs';
+import type { UserDto } from '@shared/api-types';
+import type { MachineRecord } from '@shared/stock-types';
+import { ROLES, ROLE_INFO, type Role } from '@shared/roles';
+import { USER_SORT_FIELDS, type UserListQuery } from '@shared/schemas/users';
 import { Notifier } from '../core/notifier/notifier';
 import { Session } from '../core/session/session';
-import { StockApi } from '../stock/stock-api';
+import { StockApi } from '../core/api/stock-api';
 import { ConfirmDialog, type ConfirmDialogData } from '../ui/confirm-dialog';
-import { PeopleApi } from './people-api';
+import { PagedList } from '../ui/paged-list';
+import { PagedTable } from '../ui/paged-table';
+import { PeopleApi } from '../core/api/people-api';
 import { PersonFormDialog, type PersonFormDialogData } from './person-form-dialog';
 import { TemporaryPasswordDialog, type TemporaryPasswordDialogData } from './temporary-password-dialog';
 
-type SortField = (typeof USER_SORT_FIELDS)[number];
 type StatusFilter = UserListQuery['status'];
-
-/** How long the search box waits for typing to pause before asking the server. */
-export const SEARCH_DEBOUNCE_MS = 300;
 
 /** Admin: the lab's people, sorted, filtered and paged by the server. */
 @Component({
@@ -44,11 +40,10 @@ export const SEARCH_DEBOUNCE_MS = 300;
     MatIconModule,
     MatInputModule,
     MatMenuModule,
-    MatPaginatorModule,
-    MatProgressBarModule,
     MatSelectModule,
     MatSortModule,
     MatTableModule,
+    PagedTable,
     ReactiveFormsModule,
   ],
   templateUrl: './people-list.html',
@@ -65,46 +60,18 @@ export class PeopleList {
   protected readonly columns = ['username', 'displayName', 'email', 'roles', 'machines', 'status', 'lastSignInAt', 'actions'];
   protected readonly roleOptions = ROLES.map((role) => ({ role, label: ROLE_INFO[role].label }));
   protected readonly roleLabel = (role: Role) => ROLE_INFO[role].label;
-  protected readonly pageSizeOptions = [10, 25, 50, 100];
-
-  protected readonly search = this.fb.control('');
   protected readonly roleFilter = this.fb.control<Role | ''>('');
   protected readonly statusFilter = this.fb.control<StatusFilter>('active');
-
-  private readonly q = toSignal(
-    this.search.valueChanges.pipe(
-      map((text) => text.trim()),
-      debounceTime(SEARCH_DEBOUNCE_MS),
-      distinctUntilChanged(),
-    ),
-    { initialValue: '' },
-  );
   private readonly role = toSignal(this.roleFilter.valueChanges, { initialValue: this.roleFilter.value });
   private readonly status = toSignal(this.statusFilter.valueChanges, { initialValue: this.statusFilter.value });
-  protected readonly sort = signal<{ active: SortField; direction: 'asc' | 'desc' }>({ active: 'username', direction: 'asc' });
-  protected readonly pageSize = signal(25);
-  /** Back to the first page whenever the filters or the order change. */
-  protected readonly pageIndex = linkedSignal({
-    source: () => [this.q(), this.role(), this.status(), this.sort(), this.pageSize()] as const,
-    computation: () => 0,
+  protected readonly list = new PagedList<UserDto, Pick<UserListQuery, 'role' | 'status'>, UserListQuery['sort']>({
+    load: (query) => this.api.list(query),
+    filters: () => ({ role: this.role() || undefined, status: this.status() }),
+    sortable: USER_SORT_FIELDS,
+    defaultSort: 'username',
   });
-  /** Bumped after an edit so the same query is asked again. */
-  private readonly reloads = signal(0);
-
-  private readonly query = computed<Partial<UserListQuery>>(() => ({
-    page: this.pageIndex(),
-    pageSize: this.pageSize(),
-    sort: this.sort().active,
-    dir: this.sort().direction,
-    q: this.q() || undefined,
-    role: this.role() || undefined,
-    status: this.status(),
-  }));
-
-  protected readonly loading = signal(true);
-  protected readonly loadFailed = signal(false);
-  protected readonly result = signal<Page<UserDto>>({ items: [], total: 0, page: 0, pageSize: 25 });
   protected readonly currentUserId = computed(() => this.session.user()?.id);
+  protected readonly inactive = (person: UserDto) => !person.active;
 
   /** Every machine, archived ones too: an operator may still be assigned to a retired saw. */
   private readonly machines = toSignal(
@@ -121,40 +88,6 @@ export class PeopleList {
   /** The operator's machines by name, one per line in the table. */
   protected readonly machineNamesOf = (person: UserDto): string[] =>
     person.machineIds.map((id) => this.machineNames().get(id) ?? `Machine ${id}`);
-
-  constructor() {
-    toObservable(computed(() => ({ query: this.query(), reload: this.reloads() })))
-      .pipe(
-        switchMap(({ query }) => {
-          this.loading.set(true);
-          // The error interceptor has already told the user what went wrong.
-          return this.api.list(query).pipe(catchError(() => of(null)));
-        }),
-        takeUntilDestroyed(),
-      )
-      .subscribe((page) => {
-        this.loading.set(false);
-        this.loadFailed.set(page === null);
-        if (page) this.result.set(page);
-      });
-  }
-
-  protected changeSort(sort: Sort): void {
-    const active = USER_SORT_FIELDS.find((field) => field === sort.active) ?? 'username';
-    this.sort.set({ active, direction: sort.direction === 'desc' ? 'desc' : 'asc' });
-  }
-
-  protected changePage(event: PageEvent): void {
-    if (event.pageSize !== this.pageSize()) {
-      this.pageSize.set(event.pageSize);
-    } else {
-      this.pageIndex.set(event.pageIndex);
-    }
-  }
-
-  protected clearSearch(): void {
-    this.search.setValue('');
-  }
 
   protected addPerson(): void {
     this.dialog
@@ -277,6 +210,6 @@ export class PeopleList {
   }
 
   private reload(): void {
-    this.reloads.update((n) => n + 1);
+    this.list.reload();
   }
 }

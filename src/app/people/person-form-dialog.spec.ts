@@ -6,7 +6,7 @@ import { MatCheckboxHarness } from '@angular/material/checkbox/testing';
 import { MatSelectHarness } from '@angular/material/select/testing';
 import { MAT_DIALOG_DATA, MatDialogRef } from '@angular/material/dialog';
 import { provideRouter } from '@angular/router';
-import type { UserDto } from '../../../shared/api-types';
+import type { UserDto } from '@shared/api-types';
 import { aMachine } from '../../testing/stock-and-recipe-fixtures';
 import { aUser } from '../../testing/user-fixture';
 import { errorInterceptor } from '../core/http/error-interceptor';

@@ -9,17 +9,17 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
 import { firstValueFrom } from 'rxjs';
-import type { UserDto } from '../../../shared/api-types';
-import { ROLES, ROLE_INFO, type Role } from '../../../shared/roles';
-import { displayName, email, newPassword, username } from '../../../shared/schemas/fields';
-import { requiredEmail } from '../../../shared/schemas/mail';
-import type { MachineRecord } from '../../../shared/stock-types';
+import type { UserDto } from '@shared/api-types';
+import { ROLES, ROLE_INFO, type Role } from '@shared/roles';
+import { displayName, email, newPassword, username } from '@shared/schemas/fields';
+import { requiredEmail } from '@shared/schemas/mail';
+import type { MachineRecord } from '@shared/stock-types';
 import { controlMessage } from '../core/forms/control-message';
 import { applyServerErrors } from '../core/forms/server-errors';
 import { zodValidator } from '../core/forms/zod-validator';
 import { isApiError } from '../core/http/api-error';
 import { callerHandles } from '../core/http/caller-handles';
-import { PeopleApi } from './people-api';
+import { PeopleApi } from '../core/api/people-api';
 import { suggestTemporaryPassword } from './temporary-password';
 
 export interface PersonFormDialogData {

@@ -6,14 +6,14 @@ import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { firstValueFrom } from 'rxjs';
-import type { UserDto } from '../../../shared/api-types';
-import { newPassword } from '../../../shared/schemas/fields';
+import type { UserDto } from '@shared/api-types';
+import { newPassword } from '@shared/schemas/fields';
 import { controlMessage } from '../core/forms/control-message';
 import { applyServerErrors } from '../core/forms/server-errors';
 import { zodValidator } from '../core/forms/zod-validator';
 import { isApiError } from '../core/http/api-error';
 import { callerHandles } from '../core/http/caller-handles';
-import { PeopleApi } from './people-api';
+import { PeopleApi } from '../core/api/people-api';
 import { suggestTemporaryPassword } from './temporary-password';
 
 export interface TemporaryPasswordDialogData {

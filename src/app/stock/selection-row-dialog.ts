@@ -8,16 +8,16 @@ import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
 import { firstValueFrom } from 'rxjs';
-import { hardnessWindow, materialGroup, selectionRowBody } from '../../../shared/schemas/stock';
-import type { SelectionRow, WheelRecord } from '../../../shared/stock-types';
-import { HARDNESS_SCALES, type HardnessScale, MATERIAL_GROUPS, MATERIAL_GROUP_LABELS, type MaterialGroup } from '../../../shared/vocabulary';
+import { hardnessWindow, materialGroup, selectionRowBody } from '@shared/schemas/stock';
+import type { SelectionRow, WheelRecord } from '@shared/stock-types';
+import { HARDNESS_SCALES, type HardnessScale, MATERIAL_GROUPS, MATERIAL_GROUP_LABELS, type MaterialGroup } from '@shared/vocabulary';
 import { controlMessage } from '../core/forms/control-message';
 import { applyServerErrors } from '../core/forms/server-errors';
 import { zodValidator } from '../core/forms/zod-validator';
 import { isApiError } from '../core/http/api-error';
 import { callerHandles } from '../core/http/caller-handles';
-import { StockApi } from './stock-api';
-import { checkWholeBody } from './whole-body-check';
+import { StockApi } from '../core/api/stock-api';
+import { checkWholeBody } from '../core/forms/whole-body-check';
 
 export interface SelectionRowDialogData {
   /** The row to edit; absent to add one. */

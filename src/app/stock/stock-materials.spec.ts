@@ -9,9 +9,9 @@ import { MatSelectHarness } from '@angular/material/select/testing';
 import { MatSortHarness } from '@angular/material/sort/testing';
 import { provideRouter } from '@angular/router';
 import { of } from 'rxjs';
-import type { Page } from '../../../shared/api-types';
-import type { Role } from '../../../shared/roles';
-import type { MaterialRecord } from '../../../shared/stock-types';
+import type { Page } from '@shared/api-types';
+import type { Role } from '@shared/roles';
+import type { MaterialRecord } from '@shared/stock-types';
 import { aMaterial } from '../../testing/stock-and-recipe-fixtures';
 import { aUser } from '../../testing/user-fixture';
 import { errorInterceptor } from '../core/http/error-interceptor';
@@ -60,7 +60,6 @@ describe('StockMaterials', () => {
     backend = TestBed.inject(HttpTestingController);
     fixture = TestBed.createComponent(StockMaterials);
     root = fixture.nativeElement;
-    await fixture.whenStable();
   }
 
   async function nextListRequest(): Promise<{ req: TestRequest; params: Record<string, string> }> {
@@ -98,21 +97,25 @@ describe('StockMaterials', () => {
     const loader = TestbedHarnessEnvironment.loader(fixture);
     const [group, archived] = await loader.getAllHarnesses(MatSelectHarness);
 
-    await group.clickOptions({ text: 'Hardened and tool steels' });
+    // Harnesses wait for the page to settle, which it does once the list they ask for is answered.
+    let acting = group.clickOptions({ text: 'Hardened and tool steels' });
     const byGroup = await nextListRequest();
     expect(byGroup.params).toMatchObject({ group: 'hardened-tool-steel', page: '0' });
     byGroup.req.flush(page([materials[1]]));
+    await acting;
 
-    await archived.clickOptions({ text: 'All' });
+    acting = archived.clickOptions({ text: 'All' });
     const all = await nextListRequest();
     expect(all.params).toMatchObject({ group: 'hardened-tool-steel', archived: 'all' });
     all.req.flush(page([materials[1]]));
+    await acting;
 
     const [designation] = await (await loader.getHarness(MatSortHarness)).getSortHeaders({ label: 'Designation' });
-    await designation.click();
+    acting = designation.click();
     const sorted = await nextListRequest();
     expect(sorted.params).toMatchObject({ sort: 'designation', dir: 'asc' });
     sorted.req.flush(page([materials[1]]));
+    await acting;
   });
 
   it('gives an author the add button and a menu of edit, archive and delete on each row', async () => {

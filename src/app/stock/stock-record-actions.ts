@@ -4,7 +4,7 @@ import { MatDialog } from '@angular/material/dialog';
 import { type Observable, firstValueFrom } from 'rxjs';
 import { Notifier } from '../core/notifier/notifier';
 import { ConfirmDialog, type ConfirmDialogData } from '../ui/confirm-dialog';
-import type { DeleteOutcome } from './stock-api';
+import type { DeleteOutcome } from '../core/api/stock-api';
 
 /** What the archive / unarchive / delete actions need from a stock kind. */
 export interface ArchivableResource {

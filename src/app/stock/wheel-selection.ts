@@ -1,18 +1,19 @@
-import { ChangeDetectionStrategy, Component, DestroyRef, computed, inject, signal } from '@angular/core';
-import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
+import { ChangeDetectionStrategy, Component, computed, inject } from '@angular/core';
+import { rxResource } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
 import { MatDialog } from '@angular/material/dialog';
 import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatTableModule } from '@angular/material/table';
-import { catchError, firstValueFrom, forkJoin, of } from 'rxjs';
-import { hasAccess } from '../../../shared/roles';
-import type { SelectionRow, WheelRecord } from '../../../shared/stock-types';
-import { MATERIAL_GROUPS, MATERIAL_GROUP_LABELS } from '../../../shared/vocabulary';
+import { firstValueFrom, forkJoin } from 'rxjs';
+import { hasAccess } from '@shared/roles';
+import type { SelectionRow, WheelRecord } from '@shared/stock-types';
+import { MATERIAL_GROUPS, MATERIAL_GROUP_LABELS } from '@shared/vocabulary';
+import { latestValue } from '../core/api/latest-value';
 import { Notifier } from '../core/notifier/notifier';
 import { Session } from '../core/session/session';
 import { ConfirmDialog, type ConfirmDialogData } from '../ui/confirm-dialog';
-import { STOCK_EDITORS, StockApi } from './stock-api';
+import { STOCK_EDITORS, StockApi } from '../core/api/stock-api';
 import { SelectionRowDialog, type SelectionRowDialogData } from './selection-row-dialog';
 
 /** A row of the table as shown: the wheel looked up by id. */
@@ -25,7 +26,7 @@ interface ShownRow {
   wheel: WheelRecord | undefined;
 }
 
-/** Stock › Wheel selection: the lab's table material group × hardness band → wheel (design 5.8). */
+/** Stock › Wheel selection: the lab's own table of material group × hardness band → wheel, from which the editor suggests wheels. */
 @Component({
   selector: 'kb-wheel-selection',
   imports: [MatButtonModule, MatIconModule, MatProgressBarModule, MatTableModule],
@@ -38,18 +39,23 @@ export class WheelSelection {
   private readonly dialog = inject(MatDialog);
   private readonly notifier = inject(Notifier);
   private readonly session = inject(Session);
-  private readonly destroyRef = inject(DestroyRef);
 
   protected readonly canEdit = computed(() => hasAccess(this.session.roles(), STOCK_EDITORS));
   protected readonly columns = computed(() => {
     const base = ['group', 'band', 'wheel', 'note'];
     return this.canEdit() ? [...base, 'actions'] : base;
   });
-  protected readonly loading = signal(true);
-  protected readonly loadFailed = signal(false);
-  private readonly rows = signal<SelectionRow[]>([]);
-  /** Every wheel, archived ones too: an old row may still name one. */
-  private readonly wheels = signal<WheelRecord[]>([]);
+  /** The table's rows, with every wheel (archived ones too: an old row may still name one). */
+  private readonly table = rxResource({
+    stream: () => forkJoin({ rows: this.api.selectionRows(), wheels: this.api.wheels.list({ pageSize: 200, archived: 'all' }) }),
+  });
+  /** The rows last loaded stay while the table is asked again and when that fails. */
+  private readonly loaded = latestValue(this.table, { rows: [] as SelectionRow[], wheels: { items: [] as WheelRecord[], total: 0, page: 0, pageSize: 200 } });
+  protected readonly loading = computed(() => this.table.isLoading());
+  /** The error interceptor has said why. */
+  protected readonly loadFailed = computed(() => !!this.table.error());
+  private readonly rows = computed(() => this.loaded().rows);
+  private readonly wheels = computed(() => this.loaded().wheels.items);
 
   protected readonly shown = computed<ShownRow[]>(() => {
     const wheels = new Map(this.wheels().map((w) => [w.id, w]));
@@ -66,10 +72,6 @@ export class WheelSelection {
       wheel: wheels.get(row.wheelId),
     }));
   });
-
-  constructor() {
-    this.load();
-  }
 
   protected addRow(): void {
     this.openForm({ wheels: this.wheels() });
@@ -112,23 +114,7 @@ export class WheelSelection {
         this.load();
       });
   }
-
   private load(): void {
-    this.loading.set(true);
-    forkJoin({
-      rows: this.api.selectionRows(),
-      wheels: this.api.wheels.list({ pageSize: 200, archived: 'all' }),
-    })
-      .pipe(
-        catchError(() => of(null)),
-        takeUntilDestroyed(this.destroyRef),
-      )
-      .subscribe((result) => {
-        this.loading.set(false);
-        this.loadFailed.set(result === null);
-        if (!result) return;
-        this.rows.set(result.rows);
-        this.wheels.set(result.wheels.items);
-      });
+    this.table.reload();
   }
 }

@@ -3,8 +3,8 @@ import { HttpTestingController, provideHttpClientTesting } from '@angular/common
 import { signal } from '@angular/core';
 import { type ComponentFixture, TestBed } from '@angular/core/testing';
 import { provideRouter } from '@angular/router';
-import type { TodayDto } from '../../../shared/recipe-types';
-import type { Role } from '../../../shared/roles';
+import type { TodayDto } from '@shared/recipe-types';
+import type { Role } from '@shared/roles';
 import { aRecipeSummary } from '../../testing/stock-and-recipe-fixtures';
 import { aUser } from '../../testing/user-fixture';
 import { errorInterceptor } from '../core/http/error-interceptor';
@@ -39,8 +39,7 @@ describe('Today', () => {
     backend = TestBed.inject(HttpTestingController);
     fixture = TestBed.createComponent(Today);
     root = fixture.nativeElement;
-    await fixture.whenStable();
-    backend.expectOne({ method: 'GET', url: '/api/today' }).flush(answer);
+    (await vi.waitFor(() => backend.expectOne({ method: 'GET', url: '/api/today' }))).flush(answer);
     await fixture.whenStable();
   }
 

@@ -1,15 +1,15 @@
 import { ChangeDetectionStrategy, Component, computed, inject } from '@angular/core';
-import { toSignal } from '@angular/core/rxjs-interop';
+import { rxResource } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { RouterLink } from '@angular/router';
-import { catchError, map, of, startWith } from 'rxjs';
-import type { RecipeSummary, TodayDto } from '../../../shared/recipe-types';
-import { ROLE_INFO, type Role, hasAccess } from '../../../shared/roles';
+import type { RecipeSummary, TodayDto } from '@shared/recipe-types';
+import { ROLE_INFO, type Role, hasAccess } from '@shared/roles';
+import { shortDate } from '../core/dates/calendar';
 import { Session } from '../core/session/session';
-import { RecipeStatusChip } from '../recipe/recipe-status-chip';
-import { WorkflowApi } from '../review/workflow-api';
+import { RecipeStatusChip } from '../ui/recipe-status-chip';
+import { WorkflowApi } from '../core/api/workflow-api';
 
 /** One line of a Today list: where it leads and what it says. */
 interface TodayItem {
@@ -45,7 +45,7 @@ const recipeItem = (r: RecipeSummary, detail: string): TodayItem => ({
   detail,
 });
 
-/** Home page: who you are here, and the work waiting for each of your roles (design section 7). */
+/** Home page: who you are here, and the work waiting for each of your roles. */
 @Component({
   selector: 'kb-today',
   imports: [MatButtonModule, MatIconModule, MatProgressBarModule, RecipeStatusChip, RouterLink],
@@ -62,15 +62,12 @@ export class Today {
   protected readonly isOperator = computed(() => hasAccess(this.session.roles(), ['operator']));
   protected readonly roles = computed(() => this.session.roles().map((role) => ({ role, ...ROLE_INFO[role] })));
 
-  protected readonly load = toSignal(
-    this.api.today().pipe(
-      map((today): Load => ({ state: 'ready', today })),
-      // The error interceptor has said why; the page keeps the greeting and roles.
-      catchError(() => of<Load>({ state: 'failed' })),
-      startWith<Load>({ state: 'loading' }),
-    ),
-    { requireSync: true },
-  );
+  private readonly today = rxResource({ stream: () => this.api.today() });
+  protected readonly load = computed<Load>(() => {
+    // The error interceptor has said why; the page keeps the greeting and roles.
+    if (this.today.error()) return { state: 'failed' };
+    return this.today.hasValue() ? { state: 'ready', today: this.today.value() } : { state: 'loading' };
+  });
 
   protected readonly lists = computed<TodayList[]>(() => {
     const load = this.load();
@@ -137,8 +134,4 @@ export class Today {
     }
     return lists;
   });
-}
-
-function shortDate(iso: string): string {
-  return new Date(iso).toLocaleDateString('en-GB', { day: 'numeric', month: 'short', year: 'numeric', timeZone: 'UTC' });
 }

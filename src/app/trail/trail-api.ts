@@ -1,8 +1,8 @@
 import { HttpClient, HttpParams } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import type { Observable } from 'rxjs';
-import type { AuditPage, ChainVerification } from '../../../shared/recipe-types';
-import type { AuditQuery } from '../../../shared/schemas/workflow';
+import type { AuditPage, ChainVerification } from '@shared/recipe-types';
+import type { AuditQuery } from '@shared/schemas/workflow';
 
 function toParams(query: Partial<AuditQuery>): HttpParams {
   let params = new HttpParams();
@@ -12,24 +12,24 @@ function toParams(query: Partial<AuditQuery>): HttpParams {
   return params;
 }
 
-/** Thin typed wrapper around `/api/audit-events` (DEVELOPERS.md, Review routes). */
+/** Thin typed wrapper around `/api/trail` (DEVELOPERS.md, Review routes). */
 @Injectable({ providedIn: 'root' })
 export class TrailApi {
   private readonly http = inject(HttpClient);
 
   /** One page, newest first; empty filters are left out of the query string. */
   list(query: Partial<AuditQuery>): Observable<AuditPage> {
-    return this.http.get<AuditPage>('/api/audit-events', { params: toParams(query) });
+    return this.http.get<AuditPage>('/api/trail', { params: toParams(query) });
   }
 
   /** Recomputes the whole hash chain on the server. */
   verify(): Observable<ChainVerification> {
-    return this.http.get<ChainVerification>('/api/audit-events/verify');
+    return this.http.get<ChainVerification>('/api/trail/verify');
   }
 
   /** A plain link for the browser to download: the session cookie goes along, no script involved. */
   csvUrl(query: Partial<AuditQuery>): string {
     const params = toParams(query).toString();
-    return '/api/audit-events.csv' + (params ? `?${params}` : '');
+    return '/api/trail.csv' + (params ? `?${params}` : '');
   }
 }

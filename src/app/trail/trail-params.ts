@@ -1,5 +1,5 @@
 import type { ParamMap, Params } from '@angular/router';
-import type { AuditQuery } from '../../../shared/schemas/workflow';
+import type { AuditQuery } from '@shared/schemas/workflow';
 
 /** Events per page; the server's default, sent explicitly so a page is the same size everywhere. */
 export const TRAIL_PAGE_SIZE = 50;

@@ -6,9 +6,9 @@ import { TestBed } from '@angular/core/testing';
 import { MatSelectHarness } from '@angular/material/select/testing';
 import { Router, provideRouter } from '@angular/router';
 import { RouterTestingHarness } from '@angular/router/testing';
-import type { Page } from '../../../shared/api-types';
-import type { AuditEventDto, AuditPage, RecipeSummary } from '../../../shared/recipe-types';
-import type { Role } from '../../../shared/roles';
+import type { Page } from '@shared/api-types';
+import type { AuditEventDto, AuditPage, RecipeSummary } from '@shared/recipe-types';
+import type { Role } from '@shared/roles';
 import { aRecipeSummary } from '../../testing/stock-and-recipe-fixtures';
 import { aUser } from '../../testing/user-fixture';
 import { errorInterceptor } from '../core/http/error-interceptor';
@@ -71,7 +71,7 @@ describe('Trail', () => {
   }
 
   async function nextEvents(): Promise<{ req: TestRequest; params: Record<string, string> }> {
-    const req = await vi.waitFor(() => backend.expectOne((r) => r.method === 'GET' && r.url === '/api/audit-events'));
+    const req = await vi.waitFor(() => backend.expectOne((r) => r.method === 'GET' && r.url === '/api/trail'));
     return { req, params: paramsOf(req) };
   }
 
@@ -145,7 +145,7 @@ describe('Trail', () => {
     await settle();
 
     const csv = Array.from(root().querySelectorAll('a')).find((a) => a.textContent?.includes('Export CSV'))!;
-    expect(csv.getAttribute('href')).toBe('/api/audit-events.csv?recipeId=12&userId=4&type=recipe.created&from=2026-11-01&to=2026-11-30');
+    expect(csv.getAttribute('href')).toBe('/api/trail.csv?recipeId=12&userId=4&type=recipe.created&from=2026-11-01&to=2026-11-30');
     expect(csv.hasAttribute('download')).toBe(true);
     expect(root().querySelector<HTMLInputElement>('input[formcontrolname="recipe"]')!.value).toBe('12');
     expect(root().querySelector<HTMLInputElement>('input[formcontrolname="from"]')!.value).toBe('2026-11-01');
@@ -172,7 +172,7 @@ describe('Trail', () => {
     await open('/trail?recipe=KB-9999');
     (await vi.waitFor(() => backend.expectOne((r) => r.url === '/api/recipes'))).flush({ items: [], total: 0, page: 0, pageSize: 25 });
     await settle();
-    backend.expectNone('/api/audit-events');
+    backend.expectNone('/api/trail');
     expect(root().textContent).toContain('No recipe numbered “KB-9999”.');
   });
 
@@ -220,18 +220,20 @@ describe('Trail', () => {
     (await nextEvents()).req.flush(aPage(events, null));
 
     const select = await TestbedHarnessEnvironment.loader(harness.fixture).getHarness(MatSelectHarness);
-    await select.clickOptions({ text: 'Ruth Auditor (ruth.auditor)' });
+    // The harness waits for the page to settle, which it does once the new page of events is answered.
+    const choosing = select.clickOptions({ text: 'Ruth Auditor (ruth.auditor)' });
     const { req, params } = await nextEvents();
     expect(params).toEqual({ userId: '9', limit: '50' });
     expect(queryParams()).toEqual({ user: '9' });
     req.flush(aPage([], null));
+    await choosing;
   });
 
   it('reports an intact chain with the number of events checked', async () => {
     await open('/trail');
     (await nextEvents()).req.flush(aPage(events, null));
     button('Verify chain').click();
-    backend.expectOne('/api/audit-events/verify').flush({ ok: true, checked: 1234, firstBroken: null });
+    backend.expectOne('/api/trail/verify').flush({ ok: true, checked: 1234, firstBroken: null });
     await settle();
     const result = root().querySelector('[data-testid="verify-result"]')!;
     expect(result.getAttribute('role')).toBe('status');
@@ -243,7 +245,7 @@ describe('Trail', () => {
     await open('/trail?type=user.created');
     (await nextEvents()).req.flush(aPage(events, null));
     button('Verify chain').click();
-    backend.expectOne('/api/audit-events/verify').flush({ ok: false, checked: 57, firstBroken: { id: 57, reason: 'stored hash does not match the row' } });
+    backend.expectOne('/api/trail/verify').flush({ ok: false, checked: 57, firstBroken: { id: 57, reason: 'stored hash does not match the row' } });
     await settle();
     const result = root().querySelector('[data-testid="verify-result"]')!;
     expect(result.getAttribute('role')).toBe('alert');

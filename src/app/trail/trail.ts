@@ -1,6 +1,6 @@
 import { DatePipe } from '@angular/common';
-import { ChangeDetectionStrategy, Component, type ElementRef, computed, effect, inject, signal, untracked, viewChild } from '@angular/core';
-import { takeUntilDestroyed, toObservable, toSignal } from '@angular/core/rxjs-interop';
+import { ChangeDetectionStrategy, Component, type ElementRef, computed, effect, inject, linkedSignal, signal, untracked, viewChild } from '@angular/core';
+import { rxResource, takeUntilDestroyed, toSignal } from '@angular/core/rxjs-interop';
 import { NonNullableFormBuilder, ReactiveFormsModule } from '@angular/forms';
 import { MatAutocompleteModule } from '@angular/material/autocomplete';
 import { MatButtonModule } from '@angular/material/button';
@@ -12,12 +12,13 @@ import { MatSelectModule } from '@angular/material/select';
 import { MatTableModule } from '@angular/material/table';
 import { ActivatedRoute, Router } from '@angular/router';
 import { type Observable, catchError, debounceTime, map, merge, of, switchMap } from 'rxjs';
-import type { UserDto } from '../../../shared/api-types';
-import type { AuditEventDto, AuditPage, ChainVerification } from '../../../shared/recipe-types';
-import { hasAccess } from '../../../shared/roles';
+import type { UserDto } from '@shared/api-types';
+import type { AuditEventDto, AuditPage, ChainVerification } from '@shared/recipe-types';
+import { hasAccess } from '@shared/roles';
 import { Session } from '../core/session/session';
-import { PeopleApi } from '../people/people-api';
-import { RecipeApi } from '../recipe/recipe-api';
+import { latestValue } from '../core/api/latest-value';
+import { PeopleApi } from '../core/api/people-api';
+import { RecipeApi } from '../core/api/recipe-api';
 import { type ChangeSummary, fullJson, summariseChange } from './event-change';
 import { TrailApi } from './trail-api';
 import { TRAIL_PAGE_SIZE, type TrailParams, readTrailParams, recipeIdOf, toAuditFilters, toTrailQueryParams } from './trail-params';
@@ -81,6 +82,13 @@ type RecipeFilter = { state: 'none' } | { state: 'id'; id: number; number: strin
 
 const EMPTY_PAGE: AuditPage = { items: [], nextBefore: null };
 
+/** What the list shows: the recipe filter as it resolved, the page, and whether the page failed to load. */
+interface TrailLoad {
+  recipe: RecipeFilter;
+  page: AuditPage;
+  failed: boolean;
+}
+
 /**
  * Trail (auditor, admin): the audit events, newest first, filtered and paged by keyset on the
  * server; the view lives in the URL. Verifies the hash chain and exports the same filters as CSV.
@@ -131,12 +139,22 @@ export class Trail {
     to: [this.params().to],
   });
 
-  protected readonly users = signal<UserDto[]>([]);
-  protected readonly loading = signal(true);
-  protected readonly loadFailed = signal(false);
-  protected readonly page = signal<AuditPage>(EMPTY_PAGE);
-  protected readonly recipeFilter = signal<RecipeFilter>({ state: 'none' });
-  protected readonly expanded = signal<ReadonlySet<number>>(new Set());
+  /** Admins may pick a person from the list; fetched only for them. */
+  private readonly userList = rxResource({
+    params: () => this.canListUsers() || undefined,
+    stream: () => this.people.list({ pageSize: 100, status: 'all', sort: 'displayName', dir: 'asc' }).pipe(catchError(() => of(null))),
+  });
+  protected readonly users = computed<UserDto[]>(() => (this.userList.hasValue() ? (this.userList.value()?.items ?? []) : []));
+
+  /** The page the URL asks for, with the recipe filter it was read with. */
+  private readonly events = rxResource({ params: () => this.params(), stream: ({ params }) => this.loadEvents(params) });
+  private readonly shown = latestValue(this.events, { recipe: { state: 'none' }, page: EMPTY_PAGE, failed: false } as TrailLoad);
+  protected readonly loading = computed(() => this.events.isLoading());
+  protected readonly loadFailed = computed(() => this.shown().failed);
+  protected readonly page = computed(() => this.shown().page);
+  protected readonly recipeFilter = computed(() => this.shown().recipe);
+  /** Events opened to show their change in full; none again on every new page. */
+  protected readonly expanded = linkedSignal<AuditPage, ReadonlySet<number>>({ source: this.page, computation: () => new Set() });
   protected readonly verifying = signal(false);
   protected readonly verification = signal<ChainVerification | null>(null);
   protected readonly verifyFailed = signal(false);
@@ -153,7 +171,11 @@ export class Trail {
     const filter = this.recipeFilter();
     return this.api.csvUrl(toAuditFilters(this.params(), filter.state === 'id' ? filter.id : null));
   });
-  private readonly seenTypes = signal<ReadonlySet<string>>(new Set(SUGGESTED_TYPES));
+  /** The suggested types and every type seen on a page so far. */
+  private readonly seenTypes = linkedSignal<AuditPage, ReadonlySet<string>>({
+    source: this.page,
+    computation: (page, previous) => new Set([...(previous?.value ?? SUGGESTED_TYPES), ...page.items.map((e) => e.type)]),
+  });
   private readonly typedType = toSignal(this.filters.controls.type.valueChanges, { initialValue: this.filters.controls.type.value });
   protected readonly typeOptions = computed(() => {
     const typed = this.typedType().trim().toLowerCase();
@@ -163,40 +185,6 @@ export class Trail {
   protected readonly json = fullJson;
 
   constructor() {
-    toObservable(this.params)
-      .pipe(
-        switchMap((p) => {
-          this.loading.set(true);
-          return this.resolveRecipe(p.recipe).pipe(
-            switchMap((recipe) => {
-              this.recipeFilter.set(recipe);
-              if (recipe.state === 'unknown' || recipe.state === 'failed') return of(EMPTY_PAGE);
-              const query = { ...toAuditFilters(p, recipe.state === 'id' ? recipe.id : null), before: p.before ?? undefined, limit: TRAIL_PAGE_SIZE };
-              // The error interceptor has already told the user what went wrong.
-              return this.api.list(query).pipe(catchError(() => of(null)));
-            }),
-          );
-        }),
-        takeUntilDestroyed(),
-      )
-      .subscribe((page) => {
-        this.loading.set(false);
-        this.loadFailed.set(page === null);
-        this.page.set(page ?? EMPTY_PAGE);
-        this.expanded.set(new Set());
-        if (page?.items.length) this.seenTypes.update((seen) => new Set([...seen, ...page.items.map((e) => e.type)]));
-      });
-
-    if (this.canListUsers()) {
-      this.people
-        .list({ pageSize: 100, status: 'all', sort: 'displayName', dir: 'asc' })
-        .pipe(
-          catchError(() => of(null)),
-          takeUntilDestroyed(),
-        )
-        .subscribe((page) => this.users.set(page?.items ?? []));
-    }
-
     // Typing waits for a pause; choosing from a list or a calendar applies at once.
     const c = this.filters.controls;
     merge(merge(c.recipe.valueChanges, c.type.valueChanges, c.userId.valueChanges).pipe(debounceTime(TRAIL_TYPING_DEBOUNCE_MS)), merge(c.from.valueChanges, c.to.valueChanges))
@@ -271,6 +259,21 @@ export class Trail {
 
   protected userLabel(user: UserDto): string {
     return `${user.displayName} (${user.username})${user.active ? '' : ' · inactive'}`;
+  }
+
+  /** One page of events for the URL's filters; a recipe number is looked up first. Never fails: a failure is part of the answer. */
+  private loadEvents(p: TrailParams): Observable<TrailLoad> {
+    return this.resolveRecipe(p.recipe).pipe(
+      switchMap((recipe) => {
+        if (recipe.state === 'unknown' || recipe.state === 'failed') return of({ recipe, page: EMPTY_PAGE, failed: false });
+        const query = { ...toAuditFilters(p, recipe.state === 'id' ? recipe.id : null), before: p.before ?? undefined, limit: TRAIL_PAGE_SIZE };
+        // The error interceptor has already told the user what went wrong.
+        return this.api.list(query).pipe(
+          map((page) => ({ recipe, page, failed: false })),
+          catchError(() => of({ recipe, page: EMPTY_PAGE, failed: true })),
+        );
+      }),
+    );
   }
 
   private resolveRecipe(reference: string): Observable<RecipeFilter> {

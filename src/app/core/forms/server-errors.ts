@@ -1,5 +1,5 @@
 import type { AbstractControl, FormGroup } from '@angular/forms';
-import type { FieldError } from '../../../../shared/api-error';
+import type { FieldError } from '@shared/api-error';
 
 /**
  * Puts the server's 400/409 field errors on the matching controls as `{ server: message }`

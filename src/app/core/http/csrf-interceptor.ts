@@ -1,6 +1,6 @@
 import { HttpInterceptorFn } from '@angular/common/http';
 import { inject } from '@angular/core';
-import { CSRF_HEADER } from '../../../../shared/api-types';
+import { CSRF_HEADER } from '@shared/api-types';
 import { Session } from '../session/session';
 
 const STATE_CHANGING = new Set(['POST', 'PUT', 'PATCH', 'DELETE']);

@@ -5,7 +5,7 @@ import { Router, provideRouter } from '@angular/router';
 import { firstValueFrom } from 'rxjs';
 import { Notifier } from '../notifier/notifier';
 import { Session } from '../session/session';
-import { ApiError } from './api-error';
+import { ApiError, type ClientErrorCode } from './api-error';
 import { callerHandles } from './caller-handles';
 import { errorInterceptor } from './error-interceptor';
 
@@ -50,7 +50,7 @@ describe('errorInterceptor', () => {
     const error = await fail(403, { code: 'FORBIDDEN', errors: [{ path: '', message: 'Admins only.' }] });
     expect(error).toBeInstanceOf(ApiError);
     expect(error.status).toBe(403);
-    expect(error.code).toBe('FORBIDDEN');
+    expect(error.code).toBe<ClientErrorCode>('FORBIDDEN');
     expect(error.errors).toEqual([{ path: '', message: 'Admins only.' }]);
   });
 
@@ -67,7 +67,7 @@ describe('errorInterceptor', () => {
   it('leaves a 401 alone when the caller handles it (the session load itself)', async () => {
     const navigate = vi.spyOn(router, 'navigate');
     const error = await fail(401, { code: 'NOT_SIGNED_IN', errors: [] }, callerHandles(401));
-    expect(error.code).toBe('NOT_SIGNED_IN');
+    expect(error.code).toBe<ClientErrorCode>('NOT_SIGNED_IN');
     expect(session.clear).not.toHaveBeenCalled();
     expect(navigate).not.toHaveBeenCalled();
   });
@@ -91,7 +91,7 @@ describe('errorInterceptor', () => {
 
   it('describes an answer without an envelope', async () => {
     const error = await fail(502, '<html>gateway</html>');
-    expect(error.code).toBe('HTTP_502');
+    expect(error.code).toBe<ClientErrorCode>('HTTP_502');
     expect(notifier.show).toHaveBeenCalledWith(expect.stringContaining('502'));
   });
 });

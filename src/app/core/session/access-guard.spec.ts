@@ -1,7 +1,7 @@
 import { Component, signal } from '@angular/core';
 import { TestBed } from '@angular/core/testing';
 import { Router, provideRouter } from '@angular/router';
-import type { Access, Role } from '../../../../shared/roles';
+import type { Access, Role } from '@shared/roles';
 import { accessGuard } from './access-guard';
 import { Session } from './session';
 

@@ -1,9 +1,9 @@
 import { inject } from '@angular/core';
 import { CanActivateFn, Router } from '@angular/router';
-import { type Access, hasAccess } from '../../../../shared/roles';
+import { type Access, hasAccess } from '@shared/roles';
 import { Session } from './session';
 
-/** Where the route table keeps each route's access (app.routes.ts). */
+/** Where the route tables (app.routes.ts and the features' own) keep each route's access. */
 export interface AccessData {
   access: Access;
 }

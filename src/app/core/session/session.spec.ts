@@ -2,7 +2,7 @@ import { provideHttpClient, withInterceptors } from '@angular/common/http';
 import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
 import { TestBed } from '@angular/core/testing';
 import { provideRouter } from '@angular/router';
-import type { SessionDto } from '../../../../shared/api-types';
+import type { SessionDto } from '@shared/api-types';
 import { aUser } from '../../../testing/user-fixture';
 import { csrfInterceptor } from '../http/csrf-interceptor';
 import { errorInterceptor } from '../http/error-interceptor';

@@ -1,9 +1,9 @@
 import { HttpClient } from '@angular/common/http';
 import { Injectable, computed, inject, signal } from '@angular/core';
 import { firstValueFrom } from 'rxjs';
-import type { CsrfDto, SessionDto, UnitPreference, UserDto } from '../../../../shared/api-types';
-import type { Role } from '../../../../shared/roles';
-import type { ChangePasswordBody } from '../../../../shared/schemas/session';
+import type { CsrfDto, SessionDto, UnitPreference, UserDto } from '@shared/api-types';
+import type { Role } from '@shared/roles';
+import type { ChangePasswordBody } from '@shared/schemas/session';
 import { isApiError } from '../http/api-error';
 import { callerHandles } from '../http/caller-handles';
 

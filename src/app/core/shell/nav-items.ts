@@ -1,4 +1,4 @@
-import type { Access } from '../../../../shared/roles';
+import type { Access } from '@shared/roles';
 
 /** One entry of the side navigation. Shown only to users whose roles meet `access`. */
 export interface NavItem {
@@ -7,7 +7,7 @@ export interface NavItem {
   icon: string;
   /** Absolute router path. */
   path: string;
-  /** Should match the access of the route it opens (app.routes.ts). */
+  /** Should match the access of the route it opens (app.routes.ts or the feature's own route table); the route spec checks it. */
   access: Access;
   /** Shown only when the server keeps a development outbox (SessionDto.devOutbox). */
   devOnly?: true;

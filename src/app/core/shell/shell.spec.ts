@@ -1,8 +1,8 @@
 import { computed, signal } from '@angular/core';
 import { TestBed } from '@angular/core/testing';
 import { provideRouter } from '@angular/router';
-import type { UserDto } from '../../../../shared/api-types';
-import type { Role } from '../../../../shared/roles';
+import type { UserDto } from '@shared/api-types';
+import type { Role } from '@shared/roles';
 import { aUser } from '../../../testing/user-fixture';
 import { Session } from '../session/session';
 import { Shell } from './shell';

@@ -9,7 +9,7 @@ import { MatSidenavModule } from '@angular/material/sidenav';
 import { MatToolbarModule } from '@angular/material/toolbar';
 import { Router, RouterLink, RouterLinkActive, RouterOutlet } from '@angular/router';
 import { map } from 'rxjs';
-import { hasAccess } from '../../../../shared/roles';
+import { hasAccess } from '@shared/roles';
 import { Session } from '../session/session';
 import { NAV_ITEMS } from './nav-items';
 
