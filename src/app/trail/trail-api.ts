@@ -1,10 +1,10 @@
 import { HttpClient, HttpParams } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import type { Observable } from 'rxjs';
-import type { AuditPage, ChainVerification } from '@shared/recipe-types';
-import type { AuditQuery } from '@shared/schemas/workflow';
+import type { TrailPage, ChainVerification } from '@shared/recipe-types';
+import type { TrailQuery } from '@shared/schemas/workflow';
 
-function toParams(query: Partial<AuditQuery>): HttpParams {
+function toParams(query: Partial<TrailQuery>): HttpParams {
   let params = new HttpParams();
   for (const [key, value] of Object.entries(query)) {
     if (value !== undefined && value !== null && value !== '') params = params.set(key, String(value));
@@ -18,8 +18,8 @@ export class TrailApi {
   private readonly http = inject(HttpClient);
 
   /** One page, newest first; empty filters are left out of the query string. */
-  list(query: Partial<AuditQuery>): Observable<AuditPage> {
-    return this.http.get<AuditPage>('/api/trail', { params: toParams(query) });
+  list(query: Partial<TrailQuery>): Observable<TrailPage> {
+    return this.http.get<TrailPage>('/api/trail', { params: toParams(query) });
   }
 
   /** Recomputes the whole hash chain on the server. */
@@ -28,7 +28,7 @@ export class TrailApi {
   }
 
   /** A plain link for the browser to download: the session cookie goes along, no script involved. */
-  csvUrl(query: Partial<AuditQuery>): string {
+  csvUrl(query: Partial<TrailQuery>): string {
     const params = toParams(query).toString();
     return '/api/trail.csv' + (params ? `?${params}` : '');
   }

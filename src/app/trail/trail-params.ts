@@ -1,5 +1,5 @@
 import type { ParamMap, Params } from '@angular/router';
-import type { AuditQuery } from '@shared/schemas/workflow';
+import type { TrailQuery } from '@shared/schemas/workflow';
 
 /** Events per page; the server's default, sent explicitly so a page is the same size everywhere. */
 export const TRAIL_PAGE_SIZE = 50;
@@ -63,7 +63,7 @@ export function recipeIdOf(reference: string): number | null {
 }
 
 /** The API's filters for a view, once the recipe reference is resolved to an id (without paging). */
-export function toAuditFilters(p: TrailParams, recipeId: number | null): Partial<AuditQuery> {
+export function toTrailFilters(p: TrailParams, recipeId: number | null): Partial<TrailQuery> {
   return {
     recipeId: recipeId ?? undefined,
     userId: p.userId ?? undefined,

@@ -7,7 +7,7 @@ import { MatSelectHarness } from '@angular/material/select/testing';
 import { Router, provideRouter } from '@angular/router';
 import { RouterTestingHarness } from '@angular/router/testing';
 import type { Page } from '@shared/api-types';
-import type { AuditEventDto, AuditPage, RecipeSummary } from '@shared/recipe-types';
+import type { TrailEventDto, TrailPage, RecipeSummary } from '@shared/recipe-types';
 import type { Role } from '@shared/roles';
 import { aRecipeSummary } from '../../testing/stock-and-recipe-fixtures';
 import { aUser } from '../../testing/user-fixture';
@@ -21,7 +21,7 @@ describe('Trail', () => {
   let harness: RouterTestingHarness;
   let router: Router;
 
-  function anEvent(overrides: Partial<AuditEventDto> = {}): AuditEventDto {
+  function anEvent(overrides: Partial<TrailEventDto> = {}): TrailEventDto {
     return {
       id: 900,
       occurredAt: '2026-11-30T07:15:04.000Z',
@@ -44,7 +44,7 @@ describe('Trail', () => {
     anEvent({ id: 899, type: 'recipe.created', entityType: 'recipe', entityId: '12', before: null, after: { number: 'KB-0012', title: 'Thin-wall tube', version: 1, status: 'draft' } }),
   ];
 
-  function aPage(items: AuditEventDto[], nextBefore: number | null): AuditPage {
+  function aPage(items: TrailEventDto[], nextBefore: number | null): TrailPage {
     return { items, nextBefore };
   }
 

@@ -13,7 +13,7 @@ import { MatTableModule } from '@angular/material/table';
 import { ActivatedRoute, Router } from '@angular/router';
 import { type Observable, catchError, debounceTime, map, merge, of, switchMap } from 'rxjs';
 import type { UserDto } from '@shared/api-types';
-import type { AuditEventDto, AuditPage, ChainVerification } from '@shared/recipe-types';
+import type { TrailEventDto, TrailPage, ChainVerification } from '@shared/recipe-types';
 import { hasAccess } from '@shared/roles';
 import { Session } from '../core/session/session';
 import { latestValue } from '../core/api/latest-value';
@@ -21,7 +21,7 @@ import { PeopleApi } from '../core/api/people-api';
 import { RecipeApi } from '../core/api/recipe-api';
 import { type ChangeSummary, fullJson, summariseChange } from './event-change';
 import { TrailApi } from './trail-api';
-import { TRAIL_PAGE_SIZE, type TrailParams, readTrailParams, recipeIdOf, toAuditFilters, toTrailQueryParams } from './trail-params';
+import { TRAIL_PAGE_SIZE, type TrailParams, readTrailParams, recipeIdOf, toTrailFilters, toTrailQueryParams } from './trail-params';
 
 /** How long the typed filters wait for a pause before the list changes. */
 export const TRAIL_TYPING_DEBOUNCE_MS = 400;
@@ -72,7 +72,7 @@ const ENTITY_LABELS: Record<string, string> = {
 
 /** A trail row with what the table shows already worked out. */
 interface EventRow {
-  event: AuditEventDto;
+  event: TrailEventDto;
   what: string;
   change: ChangeSummary;
 }
@@ -80,12 +80,12 @@ interface EventRow {
 /** How the recipe filter turned out: no filter, an id to send, or a number the library does not know. */
 type RecipeFilter = { state: 'none' } | { state: 'id'; id: number; number: string | null } | { state: 'unknown'; reference: string } | { state: 'failed' };
 
-const EMPTY_PAGE: AuditPage = { items: [], nextBefore: null };
+const EMPTY_PAGE: TrailPage = { items: [], nextBefore: null };
 
 /** What the list shows: the recipe filter as it resolved, the page, and whether the page failed to load. */
 interface TrailLoad {
   recipe: RecipeFilter;
-  page: AuditPage;
+  page: TrailPage;
   failed: boolean;
 }
 
@@ -154,7 +154,7 @@ export class Trail {
   protected readonly page = computed(() => this.shown().page);
   protected readonly recipeFilter = computed(() => this.shown().recipe);
   /** Events opened to show their change in full; none again on every new page. */
-  protected readonly expanded = linkedSignal<AuditPage, ReadonlySet<number>>({ source: this.page, computation: () => new Set() });
+  protected readonly expanded = linkedSignal<TrailPage, ReadonlySet<number>>({ source: this.page, computation: () => new Set() });
   protected readonly verifying = signal(false);
   protected readonly verification = signal<ChainVerification | null>(null);
   protected readonly verifyFailed = signal(false);
@@ -169,10 +169,10 @@ export class Trail {
   /** The same filters as a CSV download (every matching row, so no keyset position). */
   protected readonly csvUrl = computed(() => {
     const filter = this.recipeFilter();
-    return this.api.csvUrl(toAuditFilters(this.params(), filter.state === 'id' ? filter.id : null));
+    return this.api.csvUrl(toTrailFilters(this.params(), filter.state === 'id' ? filter.id : null));
   });
   /** The suggested types and every type seen on a page so far. */
-  private readonly seenTypes = linkedSignal<AuditPage, ReadonlySet<string>>({
+  private readonly seenTypes = linkedSignal<TrailPage, ReadonlySet<string>>({
     source: this.page,
     computation: (page, previous) => new Set([...(previous?.value ?? SUGGESTED_TYPES), ...page.items.map((e) => e.type)]),
   });
@@ -266,7 +266,7 @@ export class Trail {
     return this.resolveRecipe(p.recipe).pipe(
       switchMap((recipe) => {
         if (recipe.state === 'unknown' || recipe.state === 'failed') return of({ recipe, page: EMPTY_PAGE, failed: false });
-        const query = { ...toAuditFilters(p, recipe.state === 'id' ? recipe.id : null), before: p.before ?? undefined, limit: TRAIL_PAGE_SIZE };
+        const query = { ...toTrailFilters(p, recipe.state === 'id' ? recipe.id : null), before: p.before ?? undefined, limit: TRAIL_PAGE_SIZE };
         // The error interceptor has already told the user what went wrong.
         return this.api.list(query).pipe(
           map((page) => ({ recipe, page, failed: false })),
@@ -289,7 +289,7 @@ export class Trail {
     );
   }
 
-  private describeEntity(event: AuditEventDto): string {
+  private describeEntity(event: TrailEventDto): string {
     const label = ENTITY_LABELS[event.entityType] ?? event.entityType;
     return event.entityId ? `${label} · id ${event.entityId}` : label;
   }

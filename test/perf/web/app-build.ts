@@ -17,7 +17,7 @@ export function buildIsStale(): boolean {
   const index = path.join(BROWSER_DIR, 'index.html');
   if (!fs.existsSync(index)) return true;
   const built = fs.statSync(index).mtimeMs;
-  const sources = ['src', 'shared', 'angular.json', 'package-lock.json', 'tsconfig.app.json'].map((p) => path.join(ROOT, p));
+  const sources = ['src', 'shared', 'angular.json', 'package-lock.json', 'tsconfig.json'].map((p) => path.join(ROOT, p));
   return sources.filter((p) => fs.existsSync(p)).some((p) => newestMtime(p) > built);
 }
 
