@@ -56,7 +56,7 @@ describe('route table', () => {
   it('gives each navigation entry the same access as the route it opens', async () => {
     const withFeatures = await flattenWithFeatures(routes);
     for (const item of NAV_ITEMS) {
-      const match = withFeatures.find(({ path, route }) => '/' + path === item.path);
+      const match = withFeatures.find(({ path }) => '/' + path === item.path);
       expect(match, `no route for nav entry ${item.path}`).toBeDefined();
       expect((match!.route.data as AccessData).access).toEqual(item.access);
     }

@@ -1,7 +1,7 @@
 import { ChangeDetectionStrategy, Component, computed, inject, input, signal, viewChild } from '@angular/core';
 import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
 import {
-  FormGroupDirective,
+  type FormGroupDirective,
   NonNullableFormBuilder,
   ReactiveFormsModule,
   Validators,

@@ -1,4 +1,4 @@
-import { HttpErrorResponse } from '@angular/common/http';
+import { type HttpErrorResponse } from '@angular/common/http';
 import { type ApiErrorCode, type FieldError, describeApiError, isApiErrorBody } from '@shared/api-error';
 
 /** A server code, or what the app says when there was no envelope (no answer, or a proxy's page). */

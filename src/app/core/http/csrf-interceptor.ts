@@ -1,4 +1,4 @@
-import { HttpInterceptorFn } from '@angular/common/http';
+import { type HttpInterceptorFn } from '@angular/common/http';
 import { inject } from '@angular/core';
 import { CSRF_HEADER } from '@shared/api-types';
 import { Session } from '../session/session';
