@@ -7,7 +7,24 @@ import boundaries from 'eslint-plugin-boundaries';
 import tseslint from 'typescript-eslint';
 
 /** What shared/ may never import: it runs in the browser and in Node alike. */
-const RUNTIME_ONLY = ['@angular/*', 'rxjs', 'rxjs/*', 'express', 'express-*', 'knex', 'mysql2', 'mysql2/*', 'node:*', 'fs', 'path', 'crypto', 'pdfkit', 'nodemailer', 'passport', 'passport-*'];
+const RUNTIME_ONLY = [
+  '@angular/*',
+  'rxjs',
+  'rxjs/*',
+  'express',
+  'express-*',
+  'knex',
+  'mysql2',
+  'mysql2/*',
+  'node:*',
+  'fs',
+  'path',
+  'crypto',
+  'pdfkit',
+  'nodemailer',
+  'passport',
+  'passport-*',
+];
 
 export default tseslint.config(
   { ignores: ['dist/**', '.angular/**', '.data/**', 'node_modules/**', 'backups/**', 'test/perf/results/**'] },

@@ -12,7 +12,9 @@ const DAY_MS = 24 * 60 * 60 * 1000;
 
 async function demoApprover(knex: Knex): Promise<{ actor: Actor; password: string }> {
   const account = DEMO_ACCOUNTS.find((a) => a.roles.includes('approver'));
-  const row = account ? ((await knex('users').where({ username: account.username }).first('id', 'display_name')) as { id: number; display_name: string } | undefined) : undefined;
+  const row = account
+    ? ((await knex('users').where({ username: account.username }).first('id', 'display_name')) as { id: number; display_name: string } | undefined)
+    : undefined;
   if (!account || !row) throw new Error('The demo approver is missing: the people seed must run first.');
   return { actor: { userId: row.id, name: row.display_name, clientAddress: '' }, password: account.password };
 }
@@ -47,7 +49,14 @@ export async function seed(knex: Knex): Promise<void> {
   }
 }
 
-async function play(knex: Knex, step: DemoStep, v: RecipeVersionDto, at: Date, author: Actor, approver: { actor: Actor; password: string }): Promise<RecipeVersionDto> {
+async function play(
+  knex: Knex,
+  step: DemoStep,
+  v: RecipeVersionDto,
+  at: Date,
+  author: Actor,
+  approver: { actor: Actor; password: string },
+): Promise<RecipeVersionDto> {
   const { recipeId, version, revision } = v;
   switch (step.kind) {
     case 'submit':

@@ -9,19 +9,31 @@ const HOUR_MS = 60 * 60 * 1000;
 /** Cuts by the demo operator on three recipes in force: mostly good, one burnt (a flag on the author's Today). */
 const DEMO_CUTS: { title: string; hoursAgo: number; cut: CutRecordBody }[] = [
   { title: 'C45 bar, transverse section', hoursAgo: 50, cut: { specimenId: 'HF-24-0412', partRef: 'Heat 7731', quantity: 1, outcome: 'good', notes: '' } },
-  { title: 'C45 bar, transverse section', hoursAgo: 49, cut: { specimenId: 'HF-24-0413', partRef: 'Heat 7731', quantity: 2, outcome: 'good', notes: 'Clean face, no burr.' } },
+  {
+    title: 'C45 bar, transverse section',
+    hoursAgo: 49,
+    cut: { specimenId: 'HF-24-0413', partRef: 'Heat 7731', quantity: 2, outcome: 'good', notes: 'Clean face, no burr.' },
+  },
   { title: 'EN AW-6082 bar, transverse', hoursAgo: 30, cut: { specimenId: 'HF-24-0420', partRef: 'Lot A-118', quantity: 1, outcome: 'good', notes: '' } },
   {
     title: 'EN AW-6082 bar, transverse',
     hoursAgo: 28,
-    cut: { specimenId: 'HF-24-0421', partRef: 'Lot A-118', quantity: 1, outcome: 'burnt', notes: 'Temper colours on the face near the centre; coolant flow looked low at the end of the cut.' },
+    cut: {
+      specimenId: 'HF-24-0421',
+      partRef: 'Lot A-118',
+      quantity: 1,
+      outcome: 'burnt',
+      notes: 'Temper colours on the face near the centre; coolant flow looked low at the end of the cut.',
+    },
   },
   { title: 'CW614N brass bar', hoursAgo: 5, cut: { specimenId: 'HF-24-0430', partRef: 'Lot B-52', quantity: 3, outcome: 'good', notes: '' } },
 ];
 
 async function demoOperator(knex: Knex): Promise<Actor> {
   const account = DEMO_ACCOUNTS.find((a) => a.roles.includes('operator'));
-  const row = account ? ((await knex('users').where({ username: account.username }).first('id', 'display_name')) as { id: number; display_name: string } | undefined) : undefined;
+  const row = account
+    ? ((await knex('users').where({ username: account.username }).first('id', 'display_name')) as { id: number; display_name: string } | undefined)
+    : undefined;
   if (!row) throw new Error('The demo operator is missing: the people seed must run first.');
   return { userId: row.id, name: row.display_name, clientAddress: '' };
 }

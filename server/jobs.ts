@@ -47,7 +47,9 @@ export function startJobs({ db, config, log = console.error }: JobsDeps): Jobs {
   ];
   if (config.smtpUrl) {
     const transport = createMailTransport(config.smtpUrl, { ignoreTls: !config.production });
-    stops.push(startMailWorker(db, transport, config.mailIntervalMs ?? DEFAULT_MAIL_INTERVAL_MS, { ...(config.mailFrom ? { from: config.mailFrom } : {}), log }));
+    stops.push(
+      startMailWorker(db, transport, config.mailIntervalMs ?? DEFAULT_MAIL_INTERVAL_MS, { ...(config.mailFrom ? { from: config.mailFrom } : {}), log }),
+    );
   }
   return { stop: () => stops.forEach((stop) => stop()) };
 }

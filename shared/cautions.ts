@@ -15,12 +15,10 @@ export interface Caution {
 }
 
 /** Shown with the cautions, always. */
-export const PRECEDENCE_LINE =
-  "Local regulations, the machine's manual and the lab's licensed safety practice take precedence over this sheet.";
+export const PRECEDENCE_LINE = "Local regulations, the machine's manual and the lab's licensed safety practice take precedence over this sheet.";
 
 /** Shown beside computed values and checks: the app never claims a setup is safe. */
-export const NO_SAFETY_CLAIM =
-  'Kerfbook computes values and flags known problems; it does not certify that a setup is safe.';
+export const NO_SAFETY_CLAIM = 'Kerfbook computes values and flags known problems; it does not certify that a setup is safe.';
 
 export const STANDARD_CAUTIONS: readonly Caution[] = [
   {
@@ -44,7 +42,7 @@ export const STANDARD_CAUTIONS: readonly Caution[] = [
   {
     id: 'coolant',
     title: 'Coolant',
-    text: 'Avoid skin contact and mist (dermatitis, asthma). Check the concentration and bacteria regularly; add biocides only within the supplier\'s limits.',
+    text: "Avoid skin contact and mist (dermatitis, asthma). Check the concentration and bacteria regularly; add biocides only within the supplier's limits.",
     sources: ['NIOSH 98-102', 'NIOSH REL 0.4 mg/m³ (thoracic aerosol)'],
   },
   {

@@ -21,7 +21,8 @@ export const CONVERTIBLE_GROUPS: readonly MaterialGroup[] = ['plain-low-alloy-st
 
 /** Why a group keeps its measured scale. */
 const NOT_CONVERTIBLE: Partial<Record<MaterialGroup, string>> = {
-  'stainless-steel': 'Stainless steels include austenitic grades, which the non-austenitic steel tables do not cover (ASTM E140 has separate tables for them); keep the measured scale.',
+  'stainless-steel':
+    'Stainless steels include austenitic grades, which the non-austenitic steel tables do not cover (ASTM E140 has separate tables for them); keep the measured scale.',
   'cast-iron': 'Cast irons are not covered by the steel conversion tables (ASTM E140 Tables 1 and 2); keep the measured scale.',
 };
 
@@ -44,13 +45,55 @@ interface Row {
  * parentheses; we follow phase2plus there (634 is below the 650 HBW limit of ASTM E10).
  */
 const HRC_ROWS: readonly Row[] = [
-  [68, 940, null], [67, 900, null], [66, 865, null],
-  [65, 832, 739, true], [64, 800, 722, true], [63, 772, 705, true], [62, 746, 688, true], [61, 720, 670, true], [60, 697, 654, true],
-  [59, 674, 634], [58, 653, 615], [57, 633, 595], [56, 613, 577], [55, 595, 560], [54, 577, 543], [53, 560, 525], [52, 544, 512],
-  [51, 528, 496], [50, 513, 481], [49, 498, 469], [48, 484, 455], [47, 471, 443], [46, 458, 432], [45, 446, 421], [44, 434, 409],
-  [43, 423, 400], [42, 412, 390], [41, 402, 381], [40, 392, 371], [39, 382, 362], [38, 372, 353], [37, 363, 344], [36, 354, 336],
-  [35, 345, 327], [34, 336, 319], [33, 327, 311], [32, 318, 301], [31, 310, 294], [30, 302, 286], [29, 294, 279], [28, 286, 271],
-  [27, 279, 264], [26, 272, 258], [25, 266, 253], [24, 260, 247], [23, 254, 243], [22, 248, 237], [21, 243, 231], [20, 238, 226],
+  [68, 940, null],
+  [67, 900, null],
+  [66, 865, null],
+  [65, 832, 739, true],
+  [64, 800, 722, true],
+  [63, 772, 705, true],
+  [62, 746, 688, true],
+  [61, 720, 670, true],
+  [60, 697, 654, true],
+  [59, 674, 634],
+  [58, 653, 615],
+  [57, 633, 595],
+  [56, 613, 577],
+  [55, 595, 560],
+  [54, 577, 543],
+  [53, 560, 525],
+  [52, 544, 512],
+  [51, 528, 496],
+  [50, 513, 481],
+  [49, 498, 469],
+  [48, 484, 455],
+  [47, 471, 443],
+  [46, 458, 432],
+  [45, 446, 421],
+  [44, 434, 409],
+  [43, 423, 400],
+  [42, 412, 390],
+  [41, 402, 381],
+  [40, 392, 371],
+  [39, 382, 362],
+  [38, 372, 353],
+  [37, 363, 344],
+  [36, 354, 336],
+  [35, 345, 327],
+  [34, 336, 319],
+  [33, 327, 311],
+  [32, 318, 301],
+  [31, 310, 294],
+  [30, 302, 286],
+  [29, 294, 279],
+  [28, 286, 271],
+  [27, 279, 264],
+  [26, 272, 258],
+  [25, 266, 253],
+  [24, 260, 247],
+  [23, 254, 243],
+  [22, 248, 237],
+  [21, 243, 231],
+  [20, 238, 226],
 ].map(([hrc, hv, hbw, outside]) => ({ hrc: hrc as number, hv: hv as number, hbw: hbw as number | null, hbwOutside: outside === true }));
 
 /*
@@ -61,11 +104,52 @@ const HRC_ROWS: readonly Row[] = [
  * guessed. Check against a licensed copy.
  */
 const HRB_ROWS: readonly Row[] = [
-  [100, 240], [99, 234], [98, 228], [97, 222], [96, 216], [95, 210], [94, 205], [93, 200], [92, 195], [91, 190],
-  [90, 185], [89, 180], [88, 176], [87, 172], [86, 169], [85, 165], [84, 162], [83, 159], [82, 156], [81, 153],
-  [80, 150], [79, 147], [78, 144], [77, 141], [76, 139], [75, 137], [74, 135], [73, 132], [72, 130], [71, 127],
-  [70, 125], [69, 123], [68, 121], [67, 119], [66, 117], [65, 116], [64, 114], [63, 112], [62, 110], [61, 108],
-  [60, 107], [59, 106], [58, 104], [57, 103], [56, 101], [55, 100],
+  [100, 240],
+  [99, 234],
+  [98, 228],
+  [97, 222],
+  [96, 216],
+  [95, 210],
+  [94, 205],
+  [93, 200],
+  [92, 195],
+  [91, 190],
+  [90, 185],
+  [89, 180],
+  [88, 176],
+  [87, 172],
+  [86, 169],
+  [85, 165],
+  [84, 162],
+  [83, 159],
+  [82, 156],
+  [81, 153],
+  [80, 150],
+  [79, 147],
+  [78, 144],
+  [77, 141],
+  [76, 139],
+  [75, 137],
+  [74, 135],
+  [73, 132],
+  [72, 130],
+  [71, 127],
+  [70, 125],
+  [69, 123],
+  [68, 121],
+  [67, 119],
+  [66, 117],
+  [65, 116],
+  [64, 114],
+  [63, 112],
+  [62, 110],
+  [61, 108],
+  [60, 107],
+  [59, 106],
+  [58, 104],
+  [57, 103],
+  [56, 101],
+  [55, 100],
 ].map(([hrb, hv]) => ({ hrb: hrb as number, hv: hv as number, hbw: hv as number }));
 
 interface Table {
@@ -155,7 +239,9 @@ export function conversionApplies(group: MaterialGroup): { applies: true } | { a
   return {
     applies: false,
     // Own keys only: an inherited name ("__proto__", "constructor") is not a reason.
-    reason: (Object.hasOwn(NOT_CONVERTIBLE, group) ? NOT_CONVERTIBLE[group] : undefined) ?? 'The hardness conversion tables are for non-austenitic steels only; this material keeps its measured scale.',
+    reason:
+      (Object.hasOwn(NOT_CONVERTIBLE, group) ? NOT_CONVERTIBLE[group] : undefined) ??
+      'The hardness conversion tables are for non-austenitic steels only; this material keeps its measured scale.',
   };
 }
 
@@ -181,7 +267,14 @@ export function convertHardness(value: number, from: HardnessScale, to: Hardness
       if (b === a) continue;
       const hit = interpolate(b, hv.value, 'HV', to);
       if (hit)
-        return { ok: true, value: hit.value, scale: to, outsideNormalRange: hv.outside || hit.outside, source: `${a.name} and ${b.name}`, caveats: HARDNESS_CAVEATS };
+        return {
+          ok: true,
+          value: hit.value,
+          scale: to,
+          outsideNormalRange: hv.outside || hit.outside,
+          source: `${a.name} and ${b.name}`,
+          caveats: HARDNESS_CAVEATS,
+        };
     }
   }
   return { ok: false, applies: true, reason: `${value} ${from} is outside the conversion table's range for ${to}; no value is given (never extrapolated).` };

@@ -52,7 +52,8 @@ const SOURCE = {
 
 const n1 = (v: number) => v.toFixed(1);
 /** A vocabulary label in lower case; an id the vocabulary does not know (older stored content) reads as itself. */
-const lowerLabel = (labels: Readonly<Record<string, string>>, id: unknown): string => (Object.hasOwn(labels, String(id)) ? labels[String(id)]! : String(id)).toLowerCase();
+const lowerLabel = (labels: Readonly<Record<string, string>>, id: unknown): string =>
+  (Object.hasOwn(labels, String(id)) ? labels[String(id)]! : String(id)).toLowerCase();
 
 interface Facts {
   content: RecipeContent;
@@ -65,14 +66,32 @@ interface Facts {
 
 type Rule = (f: Facts) => CheckResult | CheckResult[] | null;
 
-const result = (id: string, severity: CheckSeverity, path: string | null, message: string, reason: string): CheckResult => ({ id, severity, message, reason, path });
+const result = (id: string, severity: CheckSeverity, path: string | null, message: string, reason: string): CheckResult => ({
+  id,
+  severity,
+  message,
+  reason,
+  path,
+});
 
 const isPositive = (v: unknown): v is number => typeof v === 'number' && Number.isFinite(v) && v > 0;
 
 /** The rules, in the order they are reported within a severity. */
 const RULES: readonly Rule[] = [
-  ({ ctx }) => (ctx.machine ? null : result('machine-missing', 'blocker', 'cutting.machineId', 'No machine is chosen.', 'Speeds, feeds and capacity can only be checked against a machine.')),
-  ({ ctx }) => (ctx.wheel ? null : result('wheel-missing', 'blocker', 'cutting.wheelId', 'No wheel is chosen.', 'The wheel sets the speed limit, the capacity and the suitability for the material.')),
+  ({ ctx }) =>
+    ctx.machine
+      ? null
+      : result('machine-missing', 'blocker', 'cutting.machineId', 'No machine is chosen.', 'Speeds, feeds and capacity can only be checked against a machine.'),
+  ({ ctx }) =>
+    ctx.wheel
+      ? null
+      : result(
+          'wheel-missing',
+          'blocker',
+          'cutting.wheelId',
+          'No wheel is chosen.',
+          'The wheel sets the speed limit, the capacity and the suitability for the material.',
+        ),
 
   ({ ctx, computed }) => {
     const { peripheralSpeedMs: v, markedMaxSpeedMs: max, rpmAtMarkedMax } = computed;
@@ -98,14 +117,26 @@ const RULES: readonly Rule[] = [
     const m = ctx.machine;
     const feed = content.cutting?.feedMmS;
     if (!m || !isPositive(feed) || (feed >= m.feedMinMmS && feed <= m.feedMaxMmS)) return null;
-    return result('feed-outside-machine', 'blocker', 'cutting.feedMmS', `A feed of ${feed} mm/s is outside the range of ${m.name} (${m.feedMinMmS}–${m.feedMaxMmS} mm/s).`, SOURCE.machine);
+    return result(
+      'feed-outside-machine',
+      'blocker',
+      'cutting.feedMmS',
+      `A feed of ${feed} mm/s is outside the range of ${m.name} (${m.feedMinMmS}–${m.feedMaxMmS} mm/s).`,
+      SOURCE.machine,
+    );
   },
 
   ({ content, ctx }) => {
     const m = ctx.machine;
     const feed = content.cutting?.entryFeedMmS;
     if (!m || !isPositive(feed) || (feed >= m.feedMinMmS && feed <= m.feedMaxMmS)) return null;
-    return result('entry-feed-outside-machine', 'blocker', 'cutting.entryFeedMmS', `An entry feed of ${feed} mm/s is outside the range of ${m.name} (${m.feedMinMmS}–${m.feedMaxMmS} mm/s).`, SOURCE.machine);
+    return result(
+      'entry-feed-outside-machine',
+      'blocker',
+      'cutting.entryFeedMmS',
+      `An entry feed of ${feed} mm/s is outside the range of ${m.name} (${m.feedMinMmS}–${m.feedMaxMmS} mm/s).`,
+      SOURCE.machine,
+    );
   },
 
   ({ ctx }) => {
@@ -134,20 +165,38 @@ const RULES: readonly Rule[] = [
   ({ content }) =>
     content.clamping?.method
       ? null
-      : result('clamping-missing', 'blocker', 'clamping.method', 'No clamping method is given.', 'The part must not move during the cut: a moving part can break the wheel (common practice).'),
+      : result(
+          'clamping-missing',
+          'blocker',
+          'clamping.method',
+          'No clamping method is given.',
+          'The part must not move during the cut: a moving part can break the wheel (common practice).',
+        ),
 
   ({ content, ctx }) => {
     const method = content.clamping?.method;
     const m = ctx.machine;
     if (!m || !method || m.clampingMethods.includes(method)) return null;
-    return result('clamping-unsupported', 'blocker', 'clamping.method', `${m.name} has no ${lowerLabel(CLAMPING_METHOD_LABELS, method)}.`, "Only the clamping the machine is equipped for holds the part safely (the machine's manual).");
+    return result(
+      'clamping-unsupported',
+      'blocker',
+      'clamping.method',
+      `${m.name} has no ${lowerLabel(CLAMPING_METHOD_LABELS, method)}.`,
+      "Only the clamping the machine is equipped for holds the part safely (the machine's manual).",
+    );
   },
 
   ({ content, ctx }) => {
     const motion = content.cutting?.cutMotion;
     const m = ctx.machine;
     if (!m || !motion || m.cutMotions.includes(motion)) return null;
-    return result('cut-motion-unsupported', 'blocker', 'cutting.cutMotion', `${m.name} cannot cut with ${lowerLabel(CUT_MOTION_LABELS, motion)}.`, "The machine's drives and controls must support the motion (the machine's manual).");
+    return result(
+      'cut-motion-unsupported',
+      'blocker',
+      'cutting.cutMotion',
+      `${m.name} cannot cut with ${lowerLabel(CUT_MOTION_LABELS, motion)}.`,
+      "The machine's drives and controls must support the motion (the machine's manual).",
+    );
   },
 
   ({ ctx, abrasive, group }) => {
@@ -192,7 +241,13 @@ const RULES: readonly Rule[] = [
     if (!w || content.coolant?.type !== 'dry') return null;
     if (w.kind !== 'bonded' && w.dryAllowed) return null;
     const why = w.kind === 'bonded' ? 'a consumable bonded wheel' : 'a wheel whose maker does not allow dry cutting';
-    return result('dry-cut-burn-risk', 'warning', 'coolant.type', `Cutting dry with ${why}: the part may burn.`, 'Coolant carries the heat away; dry abrasive cutting overheats the part and changes its structure (common practice).');
+    return result(
+      'dry-cut-burn-risk',
+      'warning',
+      'coolant.type',
+      `Cutting dry with ${why}: the part may burn.`,
+      'Coolant carries the heat away; dry abrasive cutting overheats the part and changes its structure (common practice).',
+    );
   },
 
   ({ content, ctx, group }) => {
@@ -262,7 +317,7 @@ const RULES: readonly Rule[] = [
       'blocker',
       'coolant.type',
       `${mat.name} gives hazardous dust and the recipe cuts it dry.`,
-      'Hazardous dusts (e.g. beryllium, OSHA PEL 0.2 µg/m³; lead; fibre composites) are cut wet and enclosed, under the lab\'s approved procedure for the material.',
+      "Hazardous dusts (e.g. beryllium, OSHA PEL 0.2 µg/m³; lead; fibre composites) are cut wet and enclosed, under the lab's approved procedure for the material.",
     );
   },
 
@@ -337,7 +392,10 @@ export function runChecks(content: RecipeContent, ctx: RecipeContext, computed: 
     const r = rule(facts);
     return r === null ? [] : Array.isArray(r) ? r : [r];
   });
-  return results.map((r, i) => ({ r, i })).sort((a, b) => RANK[a.r.severity] - RANK[b.r.severity] || a.i - b.i).map(({ r }) => r);
+  return results
+    .map((r, i) => ({ r, i }))
+    .sort((a, b) => RANK[a.r.severity] - RANK[b.r.severity] || a.i - b.i)
+    .map(({ r }) => r);
 }
 
 /**

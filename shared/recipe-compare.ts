@@ -154,7 +154,13 @@ const KNOWN_PATHS = new Set([...PARAMETER_FIELDS.map((f) => f.path), ...TEXT_FIE
 /** How two texts are diffed: wordDiff, or a caller's memo of it (the server keeps recent ones). */
 export type TextDiff = (before: string, after: string) => TextChange['parts'];
 
-export function compareVersions(a: ComparedVersion, b: ComparedVersion, names: StockNames, pref: UnitPreference, diffText: TextDiff = wordDiff): VersionComparison {
+export function compareVersions(
+  a: ComparedVersion,
+  b: ComparedVersion,
+  names: StockNames,
+  pref: UnitPreference,
+  diffText: TextDiff = wordDiff,
+): VersionComparison {
   const parameters: ParameterChange[] = [];
   for (const field of PARAMETER_FIELDS) {
     const before = at(a.content, field.path);
@@ -174,7 +180,13 @@ export function compareVersions(a: ComparedVersion, b: ComparedVersion, names: S
   for (const path of extra) {
     const before = at(a.content, path);
     const after = at(b.content, path);
-    if (!same(before, after)) parameters.push({ path, label: path, before: plain(JSON.stringify(before ?? null), names, pref), after: plain(JSON.stringify(after ?? null), names, pref) });
+    if (!same(before, after))
+      parameters.push({
+        path,
+        label: path,
+        before: plain(JSON.stringify(before ?? null), names, pref),
+        after: plain(JSON.stringify(after ?? null), names, pref),
+      });
   }
 
   const texts: TextChange[] = [];

@@ -67,7 +67,8 @@ function positive(n: unknown): number | null {
 function computeHardness(content: RecipeContent, ctx: RecipeContext): ComputedHardness | null {
   const scope = content.scope;
   const measured: HardnessWindow | null =
-    scope?.hardness ?? (ctx.material?.hardness ? { min: ctx.material.hardness.value, max: ctx.material.hardness.value, scale: ctx.material.hardness.scale } : null);
+    scope?.hardness ??
+    (ctx.material?.hardness ? { min: ctx.material.hardness.value, max: ctx.material.hardness.value, scale: ctx.material.hardness.scale } : null);
   if (!measured || !scope?.group) return null;
   const applies = conversionApplies(scope.group);
   if (!applies.applies) return { measured, minHv: null, maxHv: null, applies: false, reason: applies.reason, caveats: HARDNESS_CAVEATS };

@@ -62,12 +62,35 @@ export function formatQuantity(value: number | null | undefined, kind: QuantityK
   const both = pref === 'metric+imperial';
   switch (kind) {
     case 'length': {
-      const metric = `${decimals(value, [[10, 2], [100, 1]], 0)} mm`;
+      const metric = `${decimals(
+        value,
+        [
+          [10, 2],
+          [100, 1],
+        ],
+        0,
+      )} mm`;
       return both ? `${metric} (${decimals(mmToIn(value), [[10, 3]], 2)} in)` : metric;
     }
     case 'feed': {
-      const metric = `${decimals(value, [[0.1, 3], [10, 2]], 1)} mm/s`;
-      return both ? `${metric} (${decimals(mmSToInMin(value), [[0.1, 3], [10, 2]], 1)} in/min)` : metric;
+      const metric = `${decimals(
+        value,
+        [
+          [0.1, 3],
+          [10, 2],
+        ],
+        1,
+      )} mm/s`;
+      return both
+        ? `${metric} (${decimals(
+            mmSToInMin(value),
+            [
+              [0.1, 3],
+              [10, 2],
+            ],
+            1,
+          )} in/min)`
+        : metric;
     }
     case 'speed': {
       const metric = `${decimals(value, [[10, 2]], 1)} m/s`;
@@ -76,8 +99,24 @@ export function formatQuantity(value: number | null | undefined, kind: QuantityK
     case 'rpm':
       return `${Math.round(value)} rpm`;
     case 'removal': {
-      const metric = `${decimals(value, [[10, 2], [100, 1]], 0)} mm³/s`;
-      return both ? `${metric} (${decimals(mm3SToIn3Min(value), [[1, 3], [10, 2]], 1)} in³/min)` : metric;
+      const metric = `${decimals(
+        value,
+        [
+          [10, 2],
+          [100, 1],
+        ],
+        0,
+      )} mm³/s`;
+      return both
+        ? `${metric} (${decimals(
+            mm3SToIn3Min(value),
+            [
+              [1, 3],
+              [10, 2],
+            ],
+            1,
+          )} in³/min)`
+        : metric;
     }
     case 'time':
       return formatTime(value);

@@ -84,8 +84,7 @@ function parseConventional(s: string): WheelSpecResult {
   const tail = /^(\d{1,2})?([A-Z]+)$/.exec(rest.slice(1));
   if (!tail) return { ok: false, error: 'After the grade comes an optional structure number and then the bond, e.g. A60K5V or A60KV.' };
   const bond = tail[2]!;
-  if (!(CONVENTIONAL_BONDS as readonly string[]).includes(bond))
-    return { ok: false, error: `Unknown bond "${bond}": use V, B, BF, R, E, M or S.` };
+  if (!(CONVENTIONAL_BONDS as readonly string[]).includes(bond)) return { ok: false, error: `Unknown bond "${bond}": use V, B, BF, R, E, M or S.` };
   const structure = tail[1] === undefined ? null : Number(tail[1]);
   const text = `${abrasive}${grit}${grade}${structure ?? ''}${bond}`;
   return { ok: true, spec: { type: 'conventional', abrasive, grit, grade, structure, bond: bond as ConventionalBond, text } };
@@ -96,7 +95,8 @@ function parseSuperabrasive(s: string): WheelSpecResult {
   if (!m) return { ok: false, error: 'A diamond or CBN marking reads abrasive, grit, optional grade and concentration, then bond, e.g. D126M or B151N100B.' };
   if (m[4] !== undefined && m[3] === undefined) return { ok: false, error: 'Give the grade letter before the concentration, e.g. D126N100M.' };
   const bond = m[5]!;
-  if (!(SUPERABRASIVE_BONDS as readonly string[]).includes(bond)) return { ok: false, error: `Unknown bond "${bond}" for a diamond or CBN wheel: use B, M, V or G.` };
+  if (!(SUPERABRASIVE_BONDS as readonly string[]).includes(bond))
+    return { ok: false, error: `Unknown bond "${bond}" for a diamond or CBN wheel: use B, M, V or G.` };
   const abrasive = m[1] === 'D' ? 'D' : 'B';
   const grit = Number(m[2]);
   const grade = m[3] ?? null;

@@ -54,12 +54,19 @@ export function suggestWheels(group: MaterialGroup, hardness: HardnessValue | nu
     }
     const width = bandWidth(row.hardness, group);
     if (hardness === null) {
-      ranked.push({ rank: 2, width, order, row, reason: `Lab table: ${groupLabel}, ${describe(row.hardness)} (hardness not given, so the band is not confirmed).` });
+      ranked.push({
+        rank: 2,
+        width,
+        order,
+        row,
+        reason: `Lab table: ${groupLabel}, ${describe(row.hardness)} (hardness not given, so the band is not confirmed).`,
+      });
       return;
     }
     const v = onScale(hardness, row.hardness, group);
     if (v === null || v < row.hardness.min || v > row.hardness.max) return;
-    const converted = hardness.scale === row.hardness.scale ? '' : ` (${hardness.value} ${hardness.scale} ≈ ${Math.round(v)} ${row.hardness.scale}, approximate)`;
+    const converted =
+      hardness.scale === row.hardness.scale ? '' : ` (${hardness.value} ${hardness.scale} ≈ ${Math.round(v)} ${row.hardness.scale}, approximate)`;
     ranked.push({ rank: 0, width, order, row, reason: `Lab table: ${groupLabel}, ${describe(row.hardness)}${converted}.` });
   });
   ranked.sort((a, b) => a.rank - b.rank || a.width - b.width || a.order - b.order);
@@ -103,19 +110,54 @@ const rim = (...abrasives: AbrasiveFamily[]): StarterWheel => ({ kind: 'rim', ab
  */
 export const STARTER_SELECTION: readonly StarterSelectionRow[] = [
   { group: 'plain-low-alloy-steel', hardness: null, wheel: bonded('aluminium-oxide', 'hard'), note: 'Soft ferrous metal: aluminium oxide, harder bond.' },
-  { group: 'hardened-tool-steel', hardness: { min: 20, max: 45, scale: 'HRC' }, wheel: bonded('aluminium-oxide', 'medium'), note: 'Medium-hard steel: aluminium oxide, medium bond.' },
-  { group: 'hardened-tool-steel', hardness: { min: 45, max: 68, scale: 'HRC' }, wheel: bonded('aluminium-oxide', 'soft'), note: 'Hard steel: aluminium oxide, softer bond so worn grains are released.' },
-  { group: 'hardened-tool-steel', hardness: { min: 58, max: 68, scale: 'HRC' }, wheel: rim('cbn'), note: 'Very hard steel on a precision saw: CBN rim wheel (diamond dulls on steel).' },
-  { group: 'stainless-steel', hardness: null, wheel: bonded('aluminium-oxide', 'medium'), note: 'Ferrous metal: aluminium oxide, medium bond; keep the feed low to avoid heat.' },
+  {
+    group: 'hardened-tool-steel',
+    hardness: { min: 20, max: 45, scale: 'HRC' },
+    wheel: bonded('aluminium-oxide', 'medium'),
+    note: 'Medium-hard steel: aluminium oxide, medium bond.',
+  },
+  {
+    group: 'hardened-tool-steel',
+    hardness: { min: 45, max: 68, scale: 'HRC' },
+    wheel: bonded('aluminium-oxide', 'soft'),
+    note: 'Hard steel: aluminium oxide, softer bond so worn grains are released.',
+  },
+  {
+    group: 'hardened-tool-steel',
+    hardness: { min: 58, max: 68, scale: 'HRC' },
+    wheel: rim('cbn'),
+    note: 'Very hard steel on a precision saw: CBN rim wheel (diamond dulls on steel).',
+  },
+  {
+    group: 'stainless-steel',
+    hardness: null,
+    wheel: bonded('aluminium-oxide', 'medium'),
+    note: 'Ferrous metal: aluminium oxide, medium bond; keep the feed low to avoid heat.',
+  },
   { group: 'cast-iron', hardness: null, wheel: bonded('aluminium-oxide', 'medium'), note: 'Ferrous metal: aluminium oxide, medium bond.' },
   { group: 'aluminium-magnesium', hardness: null, wheel: bonded('silicon-carbide', 'hard'), note: 'Soft non-ferrous metal: silicon carbide, harder bond.' },
   { group: 'copper', hardness: null, wheel: bonded('silicon-carbide', 'hard'), note: 'Soft non-ferrous metal: silicon carbide, harder bond.' },
-  { group: 'titanium', hardness: null, wheel: bonded('silicon-carbide', 'medium'), note: 'Non-ferrous metal: silicon carbide, medium bond; plenty of coolant.' },
-  { group: 'nickel-cobalt', hardness: null, wheel: bonded('silicon-carbide', 'medium'), note: 'Non-ferrous metal: silicon carbide, medium bond; a starting point to confirm by trial cuts.' },
+  {
+    group: 'titanium',
+    hardness: null,
+    wheel: bonded('silicon-carbide', 'medium'),
+    note: 'Non-ferrous metal: silicon carbide, medium bond; plenty of coolant.',
+  },
+  {
+    group: 'nickel-cobalt',
+    hardness: null,
+    wheel: bonded('silicon-carbide', 'medium'),
+    note: 'Non-ferrous metal: silicon carbide, medium bond; a starting point to confirm by trial cuts.',
+  },
   { group: 'cemented-carbide', hardness: null, wheel: rim('diamond'), note: 'Hard brittle material: diamond rim wheel.' },
   { group: 'ceramic-glass', hardness: null, wheel: rim('diamond'), note: 'Hard brittle material: diamond rim wheel.' },
   { group: 'polymer-composite', hardness: null, wheel: rim('diamond'), note: 'Fibre composites: diamond rim wheel; cut slowly to avoid fraying.' },
-  { group: 'electronics-mixed', hardness: null, wheel: rim('diamond'), note: 'Mostly non-metallic: diamond rim wheel; dress it with an alumina or SiC stick where metal dulls it.' },
+  {
+    group: 'electronics-mixed',
+    hardness: null,
+    wheel: rim('diamond'),
+    note: 'Mostly non-metallic: diamond rim wheel; dress it with an alumina or SiC stick where metal dulls it.',
+  },
 ];
 
 /** Whether a stocked wheel satisfies a starter row's wheel (kind, abrasive from its marking, grade band). */

@@ -20,7 +20,14 @@ export const DEMO_LAB_NAME = 'Harrowgate Forge — Materials Lab (demo)';
 export const DEMO_ACCOUNTS: DemoAccount[] = [
   { username: 'ines.author', password: 'demo-author-2026', displayName: 'Ines Varga', email: 'ines.varga@harrowgate.example', roles: ['author'] },
   { username: 'tomas.approver', password: 'demo-approver-2026', displayName: 'Tomas Brandt', email: 'tomas.brandt@harrowgate.example', roles: ['approver'] },
-  { username: 'kofi.operator', password: 'demo-operator-2026', displayName: 'Kofi Mensah', email: 'kofi.mensah@harrowgate.example', roles: ['operator'], machines: ['Bay 1 floor saw', 'Bay 2 bench saw'] },
+  {
+    username: 'kofi.operator',
+    password: 'demo-operator-2026',
+    displayName: 'Kofi Mensah',
+    email: 'kofi.mensah@harrowgate.example',
+    roles: ['operator'],
+    machines: ['Bay 1 floor saw', 'Bay 2 bench saw'],
+  },
   { username: 'ruth.auditor', password: 'demo-auditor-2026', displayName: 'Ruth Okafor', email: 'ruth.okafor@harrowgate.example', roles: ['auditor'] },
   { username: 'leon.admin', password: 'demo-admin-2026', displayName: 'Leon Achterberg', email: 'leon.achterberg@harrowgate.example', roles: ['admin'] },
 ];

@@ -5,7 +5,9 @@ import { DEMO_ACCOUNTS } from './demo-accounts';
 
 export async function demoAuthor(knex: Knex): Promise<Actor> {
   const account = DEMO_ACCOUNTS.find((a) => a.roles.includes('author'));
-  const row = account ? ((await knex('users').where({ username: account.username }).first('id', 'display_name')) as { id: number; display_name: string } | undefined) : undefined;
+  const row = account
+    ? ((await knex('users').where({ username: account.username }).first('id', 'display_name')) as { id: number; display_name: string } | undefined)
+    : undefined;
   if (!row) throw new Error('The demo author is missing: the people seed must run first.');
   return { userId: row.id, name: row.display_name, clientAddress: '' };
 }

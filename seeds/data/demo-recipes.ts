@@ -37,7 +37,12 @@ const clamp = (method: RecipeClamping['method'], placement: string, extra: Parti
   ...extra,
 });
 
-const cut = (wheelRpm: number, feedMmS: number, cutMotion: RecipeCutting['cutMotion'], extra: Partial<RecipeCutting> = {}): Omit<RecipeCutting, 'machineId' | 'wheelId'> => ({
+const cut = (
+  wheelRpm: number,
+  feedMmS: number,
+  cutMotion: RecipeCutting['cutMotion'],
+  extra: Partial<RecipeCutting> = {},
+): Omit<RecipeCutting, 'machineId' | 'wheelId'> => ({
   wheelRpm,
   feedMmS,
   entryFeedMmS: null,
@@ -47,7 +52,12 @@ const cut = (wheelRpm: number, feedMmS: number, cutMotion: RecipeCutting['cutMot
   ...extra,
 });
 
-const round = (group: RecipeScope['group'], sizeMinMm: number, sizeMaxMm: number, hardness: RecipeScope['hardness'] = null): Omit<RecipeScope, 'materialId'> => ({
+const round = (
+  group: RecipeScope['group'],
+  sizeMinMm: number,
+  sizeMaxMm: number,
+  hardness: RecipeScope['hardness'] = null,
+): Omit<RecipeScope, 'materialId'> => ({
   group,
   hardness,
   shape: 'round-bar',
@@ -59,7 +69,13 @@ const round = (group: RecipeScope['group'], sizeMinMm: number, sizeMaxMm: number
   orientationNote: '',
 });
 
-const block = (group: RecipeScope['group'], sizeMinMm: number, sizeMaxMm: number, widthMm: number, hardness: RecipeScope['hardness'] = null): Omit<RecipeScope, 'materialId'> => ({
+const block = (
+  group: RecipeScope['group'],
+  sizeMinMm: number,
+  sizeMaxMm: number,
+  widthMm: number,
+  hardness: RecipeScope['hardness'] = null,
+): Omit<RecipeScope, 'materialId'> => ({
   ...round(group, sizeMinMm, sizeMaxMm, hardness),
   shape: 'rectangular',
   widthMm,

@@ -100,12 +100,21 @@ export const DEMO_WHEELS: WheelBody[] = [
   rimWheel('CBN rim 150', 'B126N100M', 0.5, false, 'Fully hardened tool steels on the precision saw.'),
   // The larger blade is marked below what the precision saw can spin it at (50 m/s ≈ 4774 rpm
   // at 200 mm): the over-speed check matters on this machine.
-  { ...rimWheel('Diamond rim 200 metal bond', 'D151N100M', 0.8, false, 'Larger ceramic and carbide sections; mind the marked speed at 200 mm.'), diameterMm: 200 },
+  {
+    ...rimWheel('Diamond rim 200 metal bond', 'D151N100M', 0.8, false, 'Larger ceramic and carbide sections; mind the marked speed at 200 mm.'),
+    diameterMm: 200,
+  },
 ];
 
 export const DEMO_MATERIALS: MaterialInput[] = [
   { name: 'C45 carbon steel', designation: 'EN 1.0503', group: 'plain-low-alloy-steel', condition: 'normalised', hardness: { value: 200, scale: 'HBW' } },
-  { name: '42CrMo4 alloy steel', designation: 'EN 1.7225', group: 'plain-low-alloy-steel', condition: 'quenched and tempered', hardness: { value: 30, scale: 'HRC' } },
+  {
+    name: '42CrMo4 alloy steel',
+    designation: 'EN 1.7225',
+    group: 'plain-low-alloy-steel',
+    condition: 'quenched and tempered',
+    hardness: { value: 30, scale: 'HRC' },
+  },
   {
     name: 'X153CrMoV12 cold-work tool steel',
     designation: 'EN 1.2379',
@@ -125,12 +134,24 @@ export const DEMO_MATERIALS: MaterialInput[] = [
     heatSensitive: true,
     notes: 'Surface hardness; core about 35 HRC. Case depth to 550 HV.',
   },
-  { name: 'X5CrNi18-10 austenitic stainless', designation: 'EN 1.4301 / UNS S30400', group: 'stainless-steel', condition: 'solution annealed', hardness: { value: 180, scale: 'HV' } },
+  {
+    name: 'X5CrNi18-10 austenitic stainless',
+    designation: 'EN 1.4301 / UNS S30400',
+    group: 'stainless-steel',
+    condition: 'solution annealed',
+    hardness: { value: 180, scale: 'HV' },
+  },
   { name: 'Ductile iron', designation: 'EN-GJS-500-7', group: 'cast-iron', condition: 'as cast', hardness: { value: 200, scale: 'HBW' } },
   { name: 'AlSi1MgMn wrought aluminium', designation: 'EN AW-6082', group: 'aluminium-magnesium', condition: 'T6', hardness: { value: 95, scale: 'HBW' } },
   { name: 'CuZn39Pb3 free-cutting brass', designation: 'CW614N', group: 'copper', condition: 'drawn', hardness: { value: 130, scale: 'HV' } },
   { name: 'Ti-6Al-4V', designation: 'UNS R56400', group: 'titanium', condition: 'mill annealed', hardness: { value: 340, scale: 'HV' } },
-  { name: 'Nickel alloy 718', designation: 'UNS N07718', group: 'nickel-cobalt', condition: 'solution treated and aged', hardness: { value: 44, scale: 'HRC' } },
+  {
+    name: 'Nickel alloy 718',
+    designation: 'UNS N07718',
+    group: 'nickel-cobalt',
+    condition: 'solution treated and aged',
+    hardness: { value: 44, scale: 'HRC' },
+  },
   {
     name: 'WC-10Co cemented carbide',
     group: 'cemented-carbide',

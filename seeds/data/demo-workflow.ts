@@ -24,9 +24,27 @@ const TWO_YEARS = 730;
 
 export const DEMO_HISTORY: DemoHistory[] = [
   // Approved and current.
-  { title: 'C45 bar, transverse section', steps: [{ kind: 'submit', daysAgo: 121 }, { kind: 'approve', daysAgo: 120, comment: 'Matches the trial cuts on lot 2207.' }] },
-  { title: 'EN AW-6082 bar, transverse', steps: [{ kind: 'submit', daysAgo: 62 }, { kind: 'approve', daysAgo: 60 }] },
-  { title: 'CW614N brass bar', steps: [{ kind: 'submit', daysAgo: 31 }, { kind: 'approve', daysAgo: 29, comment: 'Approved for the bench saw only.' }] },
+  {
+    title: 'C45 bar, transverse section',
+    steps: [
+      { kind: 'submit', daysAgo: 121 },
+      { kind: 'approve', daysAgo: 120, comment: 'Matches the trial cuts on lot 2207.' },
+    ],
+  },
+  {
+    title: 'EN AW-6082 bar, transverse',
+    steps: [
+      { kind: 'submit', daysAgo: 62 },
+      { kind: 'approve', daysAgo: 60 },
+    ],
+  },
+  {
+    title: 'CW614N brass bar',
+    steps: [
+      { kind: 'submit', daysAgo: 31 },
+      { kind: 'approve', daysAgo: 29, comment: 'Approved for the bench saw only.' },
+    ],
+  },
 
   // Version 2 approved, version 1 superseded.
   {
@@ -82,8 +100,20 @@ export const DEMO_HISTORY: DemoHistory[] = [
   },
 
   // Periodic review due in about three weeks, and one overdue.
-  { title: 'Populated circuit board, solder joint section', steps: [{ kind: 'submit', daysAgo: TWO_YEARS - 20 }, { kind: 'approve', daysAgo: TWO_YEARS - 22 }] },
-  { title: 'X153CrMoV12 hardened block, bench saw', steps: [{ kind: 'submit', daysAgo: TWO_YEARS + 12 }, { kind: 'approve', daysAgo: TWO_YEARS + 9 }] },
+  {
+    title: 'Populated circuit board, solder joint section',
+    steps: [
+      { kind: 'submit', daysAgo: TWO_YEARS - 20 },
+      { kind: 'approve', daysAgo: TWO_YEARS - 22 },
+    ],
+  },
+  {
+    title: 'X153CrMoV12 hardened block, bench saw',
+    steps: [
+      { kind: 'submit', daysAgo: TWO_YEARS + 12 },
+      { kind: 'approve', daysAgo: TWO_YEARS + 9 },
+    ],
+  },
 
   // Waiting for review.
   { title: 'Ti-6Al-4V bar, pulsed cut', steps: [{ kind: 'submit', daysAgo: 2 }] },

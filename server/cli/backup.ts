@@ -17,7 +17,9 @@ async function main(): Promise<void> {
     const rows = Object.values(manifest.rowCounts).reduce((a, b) => a + b, 0);
     console.log(
       `[backup] ${rows} rows in ${Object.keys(manifest.rowCounts).length} tables, ` +
-        (manifest.trail ? `${manifest.trail.events} trail events (head #${manifest.trail.headEventId} ${manifest.trail.headHash.slice(0, 12)}…), ` : 'no trail chain yet, ') +
+        (manifest.trail
+          ? `${manifest.trail.events} trail events (head #${manifest.trail.headEventId} ${manifest.trail.headHash.slice(0, 12)}…), `
+          : 'no trail chain yet, ') +
         `${manifest.attachments.count} photos, ` +
         `schema ${manifest.schema.latestMigration}; ${Date.now() - started} ms`,
     );

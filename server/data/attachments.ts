@@ -41,12 +41,7 @@ const META_COLUMNS = [
  */
 const PIECE_BYTES = 2 * 1024 * 1024;
 
-export async function insertAttachment(
-  trx: Knex.Transaction,
-  meta: Omit<AttachmentMetaRow, 'id'>,
-  data: Buffer,
-  thumbnail: Buffer,
-): Promise<number> {
+export async function insertAttachment(trx: Knex.Transaction, meta: Omit<AttachmentMetaRow, 'id'>, data: Buffer, thumbnail: Buffer): Promise<number> {
   const [id] = await trx('attachments').insert({ ...meta, data: data.subarray(0, PIECE_BYTES), thumbnail });
   for (let offset = PIECE_BYTES; offset < data.length; offset += PIECE_BYTES) {
     await trx('attachments')
@@ -58,11 +53,16 @@ export async function insertAttachment(
 
 export async function listAttachmentMetaRows(db: Knex, versionIds: number[]): Promise<AttachmentMetaRow[]> {
   if (versionIds.length === 0) return [];
-  return db('attachments').whereIn('version_id', versionIds).select(...META_COLUMNS).orderBy('id');
+  return db('attachments')
+    .whereIn('version_id', versionIds)
+    .select(...META_COLUMNS)
+    .orderBy('id');
 }
 
 export async function findAttachmentMeta(db: Knex, id: number): Promise<AttachmentMetaRow | undefined> {
-  return db('attachments').where({ id }).first(...META_COLUMNS);
+  return db('attachments')
+    .where({ id })
+    .first(...META_COLUMNS);
 }
 
 /** The stored bytes of the image or of its thumbnail. */

@@ -53,5 +53,12 @@ export async function emptyTables(db: Knex): Promise<void> {
 export async function restoreLabSettings(db: Knex): Promise<void> {
   await db('lab_settings')
     .where({ id: 1 })
-    .update({ lab_name: 'Our lab', review_interval_months: 24, sheet_paper: 'A4', default_units: 'metric', feed_ceilings_json: JSON.stringify(DEFAULT_FEED_CEILINGS_MM_S), updated_at: new Date() });
+    .update({
+      lab_name: 'Our lab',
+      review_interval_months: 24,
+      sheet_paper: 'A4',
+      default_units: 'metric',
+      feed_ceilings_json: JSON.stringify(DEFAULT_FEED_CEILINGS_MM_S),
+      updated_at: new Date(),
+    });
 }

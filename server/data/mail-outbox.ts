@@ -89,5 +89,10 @@ export async function markMailFailed(db: Knex, id: number, workerId: string, err
 
 /** The outbox, newest first. */
 export async function listMails(db: Knex, limit: number): Promise<MailRow[]> {
-  return db('mail_outbox').orderBy([{ column: 'created_at', order: 'desc' }, { column: 'id', order: 'desc' }]).limit(limit);
+  return db('mail_outbox')
+    .orderBy([
+      { column: 'created_at', order: 'desc' },
+      { column: 'id', order: 'desc' },
+    ])
+    .limit(limit);
 }

@@ -122,13 +122,15 @@ export async function saveDraftRow(
   expectedRevision: number,
   values: VersionContentValues & { updated_by: number; updated_at: Date },
 ): Promise<number> {
-  return db('recipe_versions')
-    .where({ id: versionId, revision: expectedRevision })
-    .whereIn('status', ['draft', 'returned'])
-    // A returned version keeps the hash of what was reviewed until this edit: the edit makes
-    // it a draft again and clears the hash in the same statement (the freeze trigger allows
-    // exactly that step).
-    .update({ ...values, status: 'draft', content_hash: null, revision: db.raw('revision + 1') });
+  return (
+    db('recipe_versions')
+      .where({ id: versionId, revision: expectedRevision })
+      .whereIn('status', ['draft', 'returned'])
+      // A returned version keeps the hash of what was reviewed until this edit: the edit makes
+      // it a draft again and clears the hash in the same statement (the freeze trigger allows
+      // exactly that step).
+      .update({ ...values, status: 'draft', content_hash: null, revision: db.raw('revision + 1') })
+  );
 }
 
 export interface RecipeListFilter {
@@ -221,7 +223,8 @@ export async function listRecipeSummaryRows(db: Knex, filter: RecipeListFilter):
     if (filter.machineId) query.where(col('v.machine_id'), filter.machineId);
     if (filter.status) query.where(col('v.status'), filter.status);
     if (filter.size !== undefined) query.where(col('v.size_min_mm'), '<=', filter.size).andWhere(col('v.size_max_mm'), '>=', filter.size);
-    if (filter.hardnessHv !== undefined) query.where(col('v.hardness_min_hv'), '<=', filter.hardnessHv).andWhere(col('v.hardness_max_hv'), '>=', filter.hardnessHv);
+    if (filter.hardnessHv !== undefined)
+      query.where(col('v.hardness_min_hv'), '<=', filter.hardnessHv).andWhere(col('v.hardness_max_hv'), '>=', filter.hardnessHv);
     return query;
   };
   const joined = filter.currentOnly

@@ -14,7 +14,10 @@ const MAX_WORDS = 8;
 
 /** Words as InnoDB's FULLTEXT parser cuts them: letters, digits and underscores. */
 export function searchWords(q: string): string[] {
-  const words = q.toLowerCase().split(/[^\p{L}\p{N}_]+/u).filter(Boolean);
+  const words = q
+    .toLowerCase()
+    .split(/[^\p{L}\p{N}_]+/u)
+    .filter(Boolean);
   return [...new Set(words)].slice(0, MAX_WORDS);
 }
 

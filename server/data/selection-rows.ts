@@ -31,7 +31,9 @@ export async function insertSelectionRowRow(db: Knex, values: SelectionRowValues
 }
 
 export async function updateSelectionRowRow(db: Knex, id: number, values: SelectionRowValues, now: Date): Promise<void> {
-  await db('selection_rows').where({ id }).update({ ...values, updated_at: now });
+  await db('selection_rows')
+    .where({ id })
+    .update({ ...values, updated_at: now });
 }
 
 export async function deleteSelectionRowRow(db: Knex, id: number): Promise<void> {

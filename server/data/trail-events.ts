@@ -47,8 +47,7 @@ export interface ChainHead {
  */
 export async function lockChainHead(trx: Knex.Transaction): Promise<ChainHead> {
   const row = (await trx(CHAIN_HEAD_TABLE).where({ id: 1 }).forUpdate().first('last_event_id', 'last_hash')) as
-    | { last_event_id: number; last_hash: string }
-    | undefined;
+    { last_event_id: number; last_hash: string } | undefined;
   if (!row) throw new Error('The trail chain head row is missing (run the migrations).');
   return { lastEventId: Number(row.last_event_id), lastHash: row.last_hash };
 }

@@ -139,9 +139,7 @@ export async function listUserRows(db: Knex, filter: UserListFilter): Promise<{ 
     // where(col, 'like', …) and not whereLike(): the latter adds COLLATE utf8_bin, which
     // fails on utf8mb4 columns. Backslash is MariaDB's LIKE escape.
     const pattern = containsPattern(filter.q);
-    base.where((w) =>
-      w.where('users.username', 'like', pattern).orWhere('users.display_name', 'like', pattern).orWhere('users.email', 'like', pattern),
-    );
+    base.where((w) => w.where('users.username', 'like', pattern).orWhere('users.display_name', 'like', pattern).orWhere('users.email', 'like', pattern));
   }
   if (filter.status !== 'all') base.where('users.active', filter.status === 'active');
   if (filter.role) {

@@ -47,15 +47,7 @@ export async function listVersionStates(db: Knex, recipeId: number): Promise<Pic
 export type WorkflowColumns = Partial<
   Pick<
     VersionRow,
-    | 'status'
-    | 'content_hash'
-    | 'checks_json'
-    | 'worst_check'
-    | 'submitted_at'
-    | 'superseded_at'
-    | 'withdrawn_at'
-    | 'withdrawn_reason'
-    | 'updated_at'
+    'status' | 'content_hash' | 'checks_json' | 'worst_check' | 'submitted_at' | 'superseded_at' | 'withdrawn_at' | 'withdrawn_reason' | 'updated_at'
   >
 > & {
   /** UTC days, YYYY-MM-DD (written as text so no time zone can shift them). */
@@ -65,7 +57,9 @@ export type WorkflowColumns = Partial<
 
 /** A state change on a locked version: the columns given, and the revision bumped. */
 export async function updateVersionState(trx: Knex.Transaction, versionId: number, changes: WorkflowColumns): Promise<void> {
-  await trx('recipe_versions').where({ id: versionId }).update({ ...changes, revision: trx.raw('revision + 1') });
+  await trx('recipe_versions')
+    .where({ id: versionId })
+    .update({ ...changes, revision: trx.raw('revision + 1') });
 }
 
 export async function setCurrentVersion(trx: Knex.Transaction, recipeId: number, versionId: number | null, at: Date): Promise<void> {
@@ -200,16 +194,18 @@ function summaries(db: Knex, join: 'latest' | 'current') {
     .leftJoin('materials as m', 'm.id', 'v.material_id')
     .join('machines as mc', 'mc.id', 'v.machine_id')
     .join('wheels as w', 'w.id', 'v.wheel_id')
-    .select(
-      ...SUMMARY_COLUMNS,
-      'v.id as version_id',
-      'v.review_due_on',
-    );
+    .select(...SUMMARY_COLUMNS, 'v.id as version_id', 'v.review_due_on');
 }
 
 /** Current approved versions whose periodic review is due on or before `until`, soonest first. */
 export async function reviewDueRows(db: Knex, until: string, limit: number): Promise<WorkflowSummaryRow[]> {
-  return summaries(db, 'current').where('v.status', 'approved').whereNotNull('v.review_due_on').andWhere('v.review_due_on', '<=', until).orderBy('v.review_due_on').orderBy('r.id').limit(limit);
+  return summaries(db, 'current')
+    .where('v.status', 'approved')
+    .whereNotNull('v.review_due_on')
+    .andWhere('v.review_due_on', '<=', until)
+    .orderBy('v.review_due_on')
+    .orderBy('r.id')
+    .limit(limit);
 }
 
 /** Recipes whose open version (the latest) is a draft or returned and was created or edited by the person. */

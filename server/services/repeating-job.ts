@@ -4,7 +4,12 @@
  * is skipped while one is still going); a failed run is logged and tried again next time.
  * The timers are unref'd so they never keep a process alive on their own.
  */
-export function startRepeatingJob(name: string, job: () => Promise<unknown>, intervalMs: number, log: (...args: unknown[]) => void = console.error): () => void {
+export function startRepeatingJob(
+  name: string,
+  job: () => Promise<unknown>,
+  intervalMs: number,
+  log: (...args: unknown[]) => void = console.error,
+): () => void {
   let running = false;
   let stopped = false;
   const run = async () => {

@@ -66,11 +66,9 @@ export function initDataDir(db: LocalMariadb): boolean {
   const dataDir = path.join(db.dir, 'data');
   if (fs.existsSync(path.join(dataDir, 'mysql'))) return false;
   fs.mkdirSync(dataDir, { recursive: true });
-  execFileSync(
-    'mariadb-install-db',
-    ['--no-defaults', '--user=root', `--datadir=${dataDir}`, '--auth-root-authentication-method=socket', '--skip-test-db'],
-    { stdio: ['ignore', 'ignore', 'inherit'] },
-  );
+  execFileSync('mariadb-install-db', ['--no-defaults', '--user=root', `--datadir=${dataDir}`, '--auth-root-authentication-method=socket', '--skip-test-db'], {
+    stdio: ['ignore', 'ignore', 'inherit'],
+  });
   return true;
 }
 
@@ -104,9 +102,7 @@ export async function start(db: LocalMariadb): Promise<void> {
     if (child.exitCode !== null) break;
     await new Promise((r) => setTimeout(r, 100));
   }
-  const log = fs.existsSync(path.join(db.dir, 'error.log'))
-    ? fs.readFileSync(path.join(db.dir, 'error.log'), 'utf8').split('\n').slice(-15).join('\n')
-    : '';
+  const log = fs.existsSync(path.join(db.dir, 'error.log')) ? fs.readFileSync(path.join(db.dir, 'error.log'), 'utf8').split('\n').slice(-15).join('\n') : '';
   throw new Error(`MariaDB did not start on 127.0.0.1:${db.port}. Last lines of its log:\n${log}`);
 }
 

@@ -18,9 +18,7 @@ export function requireAccess(route: Pick<RouteDefinition, 'access' | 'whilePass
     }
     if (user.mustChangePassword && !route.whilePasswordChangeRequired) {
       return next(
-        new AppError(403, 'PASSWORD_CHANGE_REQUIRED', [
-          { path: '', message: 'Your password was set by an admin. Choose a new password before you continue.' },
-        ]),
+        new AppError(403, 'PASSWORD_CHANGE_REQUIRED', [{ path: '', message: 'Your password was set by an admin. Choose a new password before you continue.' }]),
       );
     }
     if (!hasAccess(user.roles, route.access)) {

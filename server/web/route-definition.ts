@@ -34,7 +34,12 @@ export type RouteInput<S extends RouteSchemas> = { [P in keyof S]: S[P] extends 
  * `{ params: typeof versionParams; body: typeof saveDraftBody }`); routes.ts checks at
  * compile time that every line declares what its handler reads.
  */
-export type RouteHandler<S extends RouteSchemas = Record<never, never>> = (req: Request, res: Response, ctx: RouteContext, input: RouteInput<S>) => Promise<void> | void;
+export type RouteHandler<S extends RouteSchemas = Record<never, never>> = (
+  req: Request,
+  res: Response,
+  ctx: RouteContext,
+  input: RouteInput<S>,
+) => Promise<void> | void;
 
 export type HttpMethod = 'get' | 'post' | 'put' | 'patch' | 'delete';
 

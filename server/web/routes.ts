@@ -40,6 +40,8 @@ import type { RouteDefinition, UndeclaredInput } from './route-definition';
 /** Who edits stock: authors, who write recipes against it, and admins who keep the lab's lists. */
 const STOCK_EDITORS = ['author', 'admin'] as const;
 
+// One line per route, however long: the table reads as a table (Prettier leaves it alone).
+// prettier-ignore
 const table = [
   { method: 'get', path: '/api/health', summary: 'Whether the server and its database answer (for load balancers); 503 when the database does not.', access: 'public', answers: '200 json: { ok: true }', handler: health.check },
   { method: 'get', path: '/api/openapi.json', summary: 'This API reference: an OpenAPI 3.1 document generated from the route table.', access: 'signedIn', answers: '200 json: the OpenAPI document', handler: openapi.document },

@@ -30,11 +30,7 @@ export const enteredPassword = z
   .max(PASSWORD_MAX, `Password must be at most ${PASSWORD_MAX} characters.`);
 
 /** A person's printed name, as shown on signatures and sheets. */
-export const displayName = z
-  .string({ error: 'Name is required.' })
-  .trim()
-  .min(1, 'Name is required.')
-  .max(100, 'Name must be at most 100 characters.');
+export const displayName = z.string({ error: 'Name is required.' }).trim().min(1, 'Name is required.').max(100, 'Name must be at most 100 characters.');
 
 export const email = z
   .string()
@@ -43,7 +39,4 @@ export const email = z
   .pipe(z.union([z.literal(''), z.email('Enter a valid e-mail address.')]));
 
 /** Positive integer id from a route parameter or query string. */
-export const idParam = z.coerce
-  .number({ error: 'Must be a number.' })
-  .int('Must be a whole number.')
-  .positive('Must be a positive number.');
+export const idParam = z.coerce.number({ error: 'Must be a number.' }).int('Must be a whole number.').positive('Must be a positive number.');

@@ -27,4 +27,7 @@ export function requiredText(label: string, max: number) {
 
 /** Positive integer id in a body. */
 export const refId = (label: string) =>
-  z.number({ error: `${label} must be chosen.` }).int(`${label} must be a whole number.`).positive(`${label} must be chosen.`);
+  z
+    .number({ error: `${label} must be chosen.` })
+    .int(`${label} must be a whole number.`)
+    .positive(`${label} must be chosen.`);

@@ -34,7 +34,12 @@ export const cutRecordBody = z.strictObject({
   specimenId: requiredText('Specimen id', 60),
   /** Part, lot or heat number. */
   partRef: text('Part / lot / heat', 120).default(''),
-  quantity: z.number({ error: 'Quantity must be a whole number.' }).int('Quantity must be a whole number.').min(1, 'At least 1.').max(1000, 'At most 1000.').default(1),
+  quantity: z
+    .number({ error: 'Quantity must be a whole number.' })
+    .int('Quantity must be a whole number.')
+    .min(1, 'At least 1.')
+    .max(1000, 'At most 1000.')
+    .default(1),
   outcome: z.enum(CUT_OUTCOMES, { error: 'Choose the outcome of the cut.' }),
   notes: text('Notes', 2000).default(''),
 });

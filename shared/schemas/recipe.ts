@@ -45,7 +45,12 @@ export const recipeCutting = z.strictObject({
   entryLengthMm: quantity('Entry length', 'mm', 0, 500).nullable(),
   cutMotion: z.enum(CUT_MOTIONS, { error: 'Choose a cut motion.' }),
   /** Number of passes for traverse or stepped cuts; null for a single cut. */
-  passes: z.number({ error: 'Passes must be a whole number.' }).int('Passes must be a whole number.').min(1, 'At least one pass.').max(500, 'At most 500 passes.').nullable(),
+  passes: z
+    .number({ error: 'Passes must be a whole number.' })
+    .int('Passes must be a whole number.')
+    .min(1, 'At least one pass.')
+    .max(500, 'At most 500 passes.')
+    .nullable(),
 });
 export type RecipeCutting = z.infer<typeof recipeCutting>;
 

@@ -3,11 +3,7 @@ import { enteredPassword, newPassword, username } from './fields';
 
 /** POST /api/session — sign in. */
 export const signInBody = z.strictObject({
-  username: z
-    .string({ error: 'Username is required.' })
-    .trim()
-    .min(1, 'Username is required.')
-    .max(40, 'Username must be at most 40 characters.'),
+  username: z.string({ error: 'Username is required.' }).trim().min(1, 'Username is required.').max(40, 'Username must be at most 40 characters.'),
   password: enteredPassword,
 });
 export type SignInBody = z.infer<typeof signInBody>;

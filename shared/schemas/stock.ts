@@ -3,14 +3,7 @@
  * Authors and admins edit; everyone signed in reads. Stored values are metric.
  */
 import { z } from 'zod';
-import {
-  CLAMPING_METHODS,
-  CUT_MOTIONS,
-  HARDNESS_SCALES,
-  MACHINE_CLASSES,
-  MATERIAL_GROUPS,
-  WHEEL_KINDS,
-} from '../vocabulary';
+import { CLAMPING_METHODS, CUT_MOTIONS, HARDNESS_SCALES, MACHINE_CLASSES, MATERIAL_GROUPS, WHEEL_KINDS } from '../vocabulary';
 import { quantity, refId, requiredText, text } from './numbers';
 
 export const materialGroup = z.enum(MATERIAL_GROUPS, { error: 'Choose a material group.' });
@@ -87,7 +80,10 @@ export const machineBody = z
     clampingMethods: z.array(z.enum(CLAMPING_METHODS)).min(1, 'Choose at least one clamping method.'),
     notes: text('Notes', 2000).default(''),
   })
-  .refine((m) => m.wheelDiameterMinMm <= m.wheelDiameterMaxMm, { path: ['wheelDiameterMaxMm'], message: 'Largest wheel must not be smaller than the smallest.' })
+  .refine((m) => m.wheelDiameterMinMm <= m.wheelDiameterMaxMm, {
+    path: ['wheelDiameterMaxMm'],
+    message: 'Largest wheel must not be smaller than the smallest.',
+  })
   .refine((m) => m.rpmMin <= m.rpmMax, { path: ['rpmMax'], message: 'Highest speed must not be below the lowest.' })
   .refine((m) => m.feedMinMmS <= m.feedMaxMmS, { path: ['feedMaxMmS'], message: 'Highest feed must not be below the lowest.' })
   .refine((m) => m.flangeDiameterMm < m.wheelDiameterMaxMm, { path: ['flangeDiameterMm'], message: 'Flange must be smaller than the largest wheel.' });

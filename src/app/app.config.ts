@@ -1,10 +1,5 @@
 import { provideHttpClient, withInterceptors } from '@angular/common/http';
-import {
-  type ApplicationConfig,
-  inject,
-  provideAppInitializer,
-  provideBrowserGlobalErrorListeners,
-} from '@angular/core';
+import { type ApplicationConfig, inject, provideAppInitializer, provideBrowserGlobalErrorListeners } from '@angular/core';
 import { MAT_FORM_FIELD_DEFAULT_OPTIONS, type MatFormFieldDefaultOptions } from '@angular/material/form-field';
 import { MAT_ICON_DEFAULT_OPTIONS, type MatIconDefaultOptions } from '@angular/material/icon';
 import { provideRouter, withComponentInputBinding } from '@angular/router';

@@ -121,7 +121,8 @@ describe('accessibility in chromium (axe-core, WCAG 2.1 A and AA)', () => {
       await check(page, 'sign-in, field errors', null);
     });
     it('forgot password', () => check(page, 'forgot password', '/forgot-password', (p) => p.getByRole('heading').first().waitFor()));
-    it('set password, broken link', () => check(page, 'set password, broken link', '/set-password?token=not-a-token', (p) => p.getByRole('heading').first().waitFor()));
+    it('set password, broken link', () =>
+      check(page, 'set password, broken link', '/set-password?token=not-a-token', (p) => p.getByRole('heading').first().waitFor()));
     it('set password, from an invitation mail', async function () {
       if (!process.env['E2E_MAIL_DIR']) this.skip();
       const stamp = Date.now().toString(36);
@@ -148,10 +149,11 @@ describe('accessibility in chromium (axe-core, WCAG 2.1 A and AA)', () => {
         await check(page, `author: recipe ${number}`, `/recipes/${id(number)}`, (p) => p.getByRole('tab').first().waitFor());
       }
     });
-    it('new version dialog', () => checkDialog(page, 'author: new version dialog', async (p) => {
-      await p.goto(`${BASE_URL}/recipes/${id('KB-0001')}`);
-      await p.getByRole('button', { name: 'Start a new version' }).click();
-    }));
+    it('new version dialog', () =>
+      checkDialog(page, 'author: new version dialog', async (p) => {
+        await p.goto(`${BASE_URL}/recipes/${id('KB-0001')}`);
+        await p.getByRole('button', { name: 'Start a new version' }).click();
+      }));
     it('editor, new recipe', () => check(page, 'author: editor, new', '/recipes/new', (p) => p.getByLabel('Title', { exact: true }).waitFor()));
     it('editor, every field error and the form error shown', async () => {
       await page.getByRole('button', { name: 'Create draft' }).click();
@@ -169,7 +171,8 @@ describe('accessibility in chromium (axe-core, WCAG 2.1 A and AA)', () => {
       await page.getByRole('button', { name: /Blocker.*above its marked maximum/ }).waitFor();
       await check(page, 'author: editor, blocker', null);
     });
-    it('editor, a draft', () => check(page, 'author: editor, draft', `/recipes/${id('KB-0004')}/edit`, (p) => p.getByLabel('Title', { exact: true }).waitFor()));
+    it('editor, a draft', () =>
+      check(page, 'author: editor, draft', `/recipes/${id('KB-0004')}/edit`, (p) => p.getByLabel('Title', { exact: true }).waitFor()));
     it('compare', () => check(page, 'author: compare', `/recipes/${id('KB-0002')}/compare?from=1&to=2`, (p) => p.getByRole('heading').first().waitFor()));
     it('compare, inline layout', () => check(page, 'author: compare inline', `/recipes/${id('KB-0002')}/compare?from=1&to=2&layout=inline`));
     it('finder', () => check(page, 'author: finder', '/finder'));
@@ -182,12 +185,17 @@ describe('accessibility in chromium (axe-core, WCAG 2.1 A and AA)', () => {
       await check(page, 'author: check a current code', `/check/${code}`, (p) => p.getByText('KB-0001').first().waitFor());
     });
     // Old sheets no longer print, so their codes come from the database (npm test names it).
-    for (const [number, state] of [['KB-0002', 'superseded'], ['KB-0006', 'withdrawn']] as const) {
+    for (const [number, state] of [
+      ['KB-0002', 'superseded'],
+      ['KB-0006', 'withdrawn'],
+    ] as const) {
       it(`check a sheet, a printed code (${state})`, async function () {
         const url = process.env['E2E_DATABASE_URL'];
         if (!url) this.skip();
         const db = createDb(url!);
-        const row = (await db('recipe_versions').where({ recipe_id: id(number), version: 1 }).first('check_code')) as { check_code: string | null } | undefined;
+        const row = (await db('recipe_versions')
+          .where({ recipe_id: id(number), version: 1 })
+          .first('check_code')) as { check_code: string | null } | undefined;
         await db.destroy();
         expect(row?.check_code, `check code of ${number} v1`).to.be.a('string');
         await check(page, `author: check a ${state} code`, `/check/${row!.check_code}`, (p) => p.getByText(number).first().waitFor());
@@ -196,7 +204,8 @@ describe('accessibility in chromium (axe-core, WCAG 2.1 A and AA)', () => {
     it('recipe not found', () => check(page, 'author: recipe not found', '/recipes/999999', (p) => p.getByRole('heading').first().waitFor()));
     it('check a sheet, unknown code', () => check(page, 'author: check unknown code', '/check/AAAA-AAAA'));
     it('specimen trace', () => check(page, 'author: specimen trace', '/cuts'));
-    it('specimen trace, with a result', () => check(page, 'author: specimen trace result', '/cuts?specimen=HF-24-0421', (p) => p.getByText('HF-24-0421').first().waitFor()));
+    it('specimen trace, with a result', () =>
+      check(page, 'author: specimen trace result', '/cuts?specimen=HF-24-0421', (p) => p.getByText('HF-24-0421').first().waitFor()));
     it('stock: materials', () => check(page, 'author: stock materials', '/stock/materials', (p) => p.getByRole('row').nth(1).waitFor()));
     it('stock: material dialog', () => checkDialog(page, 'author: material dialog', (p) => p.getByRole('button', { name: 'Add material' }).click()));
     it('stock: wheels', () => check(page, 'author: stock wheels', '/stock/wheels', (p) => p.getByRole('row').nth(1).waitFor()));
@@ -204,7 +213,8 @@ describe('accessibility in chromium (axe-core, WCAG 2.1 A and AA)', () => {
     it('stock: machines', () => check(page, 'author: stock machines', '/stock/machines', (p) => p.getByRole('row').nth(1).waitFor()));
     it('stock: machine dialog', () => checkDialog(page, 'author: machine dialog', (p) => p.getByRole('button', { name: 'Add machine' }).click()));
     it('stock: wheel selection', () => check(page, 'author: wheel selection', '/stock/wheel-selection', (p) => p.getByRole('row').nth(1).waitFor()));
-    it('stock: wheel selection dialog', () => checkDialog(page, 'author: selection row dialog', (p) => p.getByRole('button', { name: /Add (a )?row/ }).click()));
+    it('stock: wheel selection dialog', () =>
+      checkDialog(page, 'author: selection row dialog', (p) => p.getByRole('button', { name: /Add (a )?row/ }).click()));
     it('my account', () => check(page, 'author: account', '/account'));
     it('my account, password errors shown', async () => {
       await page.getByRole('button', { name: 'Change password' }).click();
@@ -224,30 +234,42 @@ describe('accessibility in chromium (axe-core, WCAG 2.1 A and AA)', () => {
     before(() => as(approver));
 
     it('Today (review queue)', () => check(page, 'approver: Today', '/today'));
-    it('review page', () => check(page, 'approver: review', `/recipes/${id('KB-0009')}/review`, (p) => p.getByRole('button', { name: 'Return with comments' }).waitFor()));
+    it('review page', () =>
+      check(page, 'approver: review', `/recipes/${id('KB-0009')}/review`, (p) => p.getByRole('button', { name: 'Return with comments' }).waitFor()));
     it('return dialog', () => checkDialog(page, 'approver: return dialog', (p) => p.getByRole('button', { name: 'Return with comments' }).click()));
-    it('signature dialog', () => checkDialog(page, 'approver: signature dialog', async (p) => {
-      for (const box of await p.getByRole('checkbox', { name: 'I have considered this warning' }).all()) await box.check();
-      await p.getByRole('button', { name: 'Approve…' }).click();
-    }));
-    it('withdraw dialog', () => checkDialog(page, 'approver: withdraw dialog', async (p) => {
-      await p.goto(`${BASE_URL}/recipes/${id('KB-0008')}`);
-      await p.getByRole('button', { name: 'Withdraw…' }).click();
-    }));
+    it('signature dialog', () =>
+      checkDialog(page, 'approver: signature dialog', async (p) => {
+        for (const box of await p.getByRole('checkbox', { name: 'I have considered this warning' }).all()) await box.check();
+        await p.getByRole('button', { name: 'Approve…' }).click();
+      }));
+    it('withdraw dialog', () =>
+      checkDialog(page, 'approver: withdraw dialog', async (p) => {
+        await p.goto(`${BASE_URL}/recipes/${id('KB-0008')}`);
+        await p.getByRole('button', { name: 'Withdraw…' }).click();
+      }));
   });
 
   describe('operator', () => {
     before(() => as(operator));
 
     it('finder', () => check(page, 'operator: finder', '/finder'));
-    it('finder with results', () => check(page, 'operator: finder results', '/finder?group=plain-low-alloy-steel&sizeMm=30', (p) => p.getByRole('link', { name: /Open KB-/ }).or(p.getByRole('button', { name: /Open KB-/ })).first().waitFor()));
+    it('finder with results', () =>
+      check(page, 'operator: finder results', '/finder?group=plain-low-alloy-steel&sizeMm=30', (p) =>
+        p
+          .getByRole('link', { name: /Open KB-/ })
+          .or(p.getByRole('button', { name: /Open KB-/ }))
+          .first()
+          .waitFor(),
+      ));
     it('Today', () => check(page, 'operator: Today', '/today'));
     it('recipe page, every tab', () => checkRecipeTabs(page, 'operator', 'KB-0001'));
-    it('log a cut dialog', () => checkDialog(page, 'operator: log cut dialog', async (p) => {
-      await p.goto(`${BASE_URL}/recipes/${id('KB-0001')}`);
-      await p.getByRole('button', { name: 'Log a cut' }).first().click();
-    }));
-    it('acknowledge page', () => check(page, 'operator: acknowledge', `/recipes/${id('KB-0002')}/acknowledge?v=2`, (p) => p.getByRole('heading').first().waitFor()));
+    it('log a cut dialog', () =>
+      checkDialog(page, 'operator: log cut dialog', async (p) => {
+        await p.goto(`${BASE_URL}/recipes/${id('KB-0001')}`);
+        await p.getByRole('button', { name: 'Log a cut' }).first().click();
+      }));
+    it('acknowledge page', () =>
+      check(page, 'operator: acknowledge', `/recipes/${id('KB-0002')}/acknowledge?v=2`, (p) => p.getByRole('heading').first().waitFor()));
   });
 
   describe('auditor', () => {
@@ -256,7 +278,10 @@ describe('accessibility in chromium (axe-core, WCAG 2.1 A and AA)', () => {
     it('trail', () => check(page, 'auditor: trail', '/trail', (p) => p.getByRole('row').nth(1).waitFor()));
     it('trail, chain verified', async () => {
       await page.getByRole('button', { name: 'Verify chain' }).click();
-      await page.getByText(/checked/).first().waitFor();
+      await page
+        .getByText(/checked/)
+        .first()
+        .waitFor();
       await check(page, 'auditor: trail verified', null);
     });
     it('recipe page, every tab', () => checkRecipeTabs(page, 'auditor', 'KB-0002'));

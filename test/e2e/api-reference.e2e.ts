@@ -52,14 +52,22 @@ describe('API reference in chromium', () => {
     expect(await navEntries(page)).to.include('API reference');
     // Only this page's violations count (zod's probe for eval support is refused on other pages).
     await page.evaluate(() => (window.cspViolations = []));
-    await page.getByRole('navigation', { name: 'Sections' }).getByRole('link', { name: /API reference/ }).click();
+    await page
+      .getByRole('navigation', { name: 'Sections' })
+      .getByRole('link', { name: /API reference/ })
+      .click();
     await page.waitForURL(/\/api-reference$/);
     await page.getByRole('heading', { level: 1, name: 'API reference' }).waitFor();
 
     const shown = (path: string) => page.locator(`.opblock-summary-path[data-path="${path}"]`).first();
     await shown('/api/recipes').waitFor();
     expect(trailPaths, 'trail routes in the table').to.have.length(3);
-    for (const path of ['/api/recipes', '/api/recipes/{id}/versions/{n}/sheet.pdf', '/api/openapi.json', ...trailPaths.map((p) => p.replace(/:(\w+)/g, '{$1}'))]) {
+    for (const path of [
+      '/api/recipes',
+      '/api/recipes/{id}/versions/{n}/sheet.pdf',
+      '/api/openapi.json',
+      ...trailPaths.map((p) => p.replace(/:(\w+)/g, '{$1}')),
+    ]) {
       expect(await shown(path).isVisible(), `${path} listed`).to.equal(true);
     }
     // One block per route of the table.
@@ -67,7 +75,11 @@ describe('API reference in chromium', () => {
     await screenshot(page, '70-api-reference');
 
     // Opening an operation shows its access and its parameters from the route's schemas.
-    await page.locator('.opblock-get').filter({ has: shown('/api/recipes') }).locator('.opblock-summary-control').click();
+    await page
+      .locator('.opblock-get')
+      .filter({ has: shown('/api/recipes') })
+      .locator('.opblock-summary-control')
+      .click();
     await page.getByText('Access: any signed-in person.').first().waitFor();
     await page.locator('.parameters tr[data-param-name="pageSize"]').first().waitFor();
     await screenshot(page, '71-api-reference-operation');

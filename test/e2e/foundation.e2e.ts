@@ -85,7 +85,10 @@ describe('foundation in chromium', () => {
     const { page } = w;
     await signIn(page, admin.username, admin.password);
     await page.waitForURL(/\/today/);
-    await page.getByRole('navigation', { name: 'Sections' }).getByRole('link', { name: /People/ }).click();
+    await page
+      .getByRole('navigation', { name: 'Sections' })
+      .getByRole('link', { name: /People/ })
+      .click();
     // The table shows before its rows arrive: wait for a demo person's row before counting.
     await page.getByRole('table', { name: 'People' }).getByRole('cell', { name: operator.username, exact: true }).waitFor();
     expect(await page.getByRole('row').count(), 'header + demo people').to.be.greaterThan(DEMO_ACCOUNTS.length);

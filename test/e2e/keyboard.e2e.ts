@@ -93,7 +93,10 @@ describe('keyboard only in chromium', () => {
     expect(await hasFocus(submit)).to.equal(true);
     await page.keyboard.press('Enter');
     await page.waitForURL(new RegExp(`/recipes/${recipeId}(\\?.*)?$`));
-    await page.getByText(/In review/i).first().waitFor();
+    await page
+      .getByText(/In review/i)
+      .first()
+      .waitFor();
     // The stock names arrive after the version: the page shows them, not bare ids.
     await page.getByText('Clean-room precision saw').first().waitFor();
     await screenshot(page, '41-keyboard-submitted');

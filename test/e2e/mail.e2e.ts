@@ -67,7 +67,10 @@ describe('mail links in chromium', () => {
     });
 
     // The worker sends the request to acknowledge to the operator of the bench saw.
-    const mail = await waitForMail(operator.email, (m) => m.subject.includes(NUMBER) && m.text.includes(`/recipes/${recipe.id}/acknowledge?v=${draft.version}`));
+    const mail = await waitForMail(
+      operator.email,
+      (m) => m.subject.includes(NUMBER) && m.text.includes(`/recipes/${recipe.id}/acknowledge?v=${draft.version}`),
+    );
     expect(mail.html, 'HTML part').to.be.a('string').and.include(NUMBER);
     const link = linkIn(mail, BASE_URL);
     expect(link).to.equal(`${BASE_URL}/recipes/${recipe.id}/acknowledge?v=${draft.version}`);
@@ -80,10 +83,16 @@ describe('mail links in chromium', () => {
     await page.getByLabel('Password', { exact: true }).fill(operator.password);
     await page.getByRole('button', { name: 'Sign in' }).click();
     await page.waitForURL(/\/acknowledge/);
-    await page.getByText(new RegExp(`read and understood.*${NUMBER}|${NUMBER}.*read and understood`, 'i')).first().waitFor();
+    await page
+      .getByText(new RegExp(`read and understood.*${NUMBER}|${NUMBER}.*read and understood`, 'i'))
+      .first()
+      .waitFor();
     await screenshot(page, '60-acknowledge');
     await page.getByRole('button', { name: /^Acknowledge/ }).click();
-    await page.getByText(/You acknowledged/i).first().waitFor();
+    await page
+      .getByText(/You acknowledged/i)
+      .first()
+      .waitFor();
 
     const acks = await asApprover.get<AcknowledgementsDto>(`/api/recipes/${recipe.id}/versions/${draft.version}/acknowledgements`);
     expect(acks.acknowledged.map((a) => a.displayName)).to.include(operator.displayName);
@@ -105,7 +114,10 @@ describe('mail links in chromium', () => {
     const { page } = w;
     const password = 'newcomer-password-2026';
     await page.goto(link);
-    await page.getByText(/Mira Solberg/).first().waitFor();
+    await page
+      .getByText(/Mira Solberg/)
+      .first()
+      .waitFor();
     await screenshot(page, '61-set-password');
     await page.getByLabel(/^New password/).fill(password);
     await page.getByLabel(/^Repeat/).fill(password);
@@ -121,7 +133,10 @@ describe('mail links in chromium', () => {
     // Single use: the same link now says so.
     const again = await browser.newPage();
     await again.goto(link);
-    await again.getByText(/already (been )?used/i).first().waitFor();
+    await again
+      .getByText(/already (been )?used/i)
+      .first()
+      .waitFor();
     await again.close();
   });
 });

@@ -52,7 +52,10 @@ describe('review workflow in chromium', () => {
     await waitSaved(page);
     await page.getByRole('button', { name: 'Submit for review' }).click();
     await page.waitForURL(/\/recipes\/\d+(\?.*)?$/);
-    await page.getByText(/In review/i).first().waitFor();
+    await page
+      .getByText(/In review/i)
+      .first()
+      .waitFor();
     await signOut(page, author.displayName);
 
     await signIn(page, approver.username, approver.password);
@@ -64,7 +67,10 @@ describe('review workflow in chromium', () => {
     await page.getByRole('button', { name: 'Return with comments' }).click();
     await page.getByLabel('Comment for the author').fill('Give the entry feed for the first 2 mm as well.');
     await page.getByRole('button', { name: 'Return to author' }).click();
-    await page.getByText(/Returned/i).first().waitFor();
+    await page
+      .getByText(/Returned/i)
+      .first()
+      .waitFor();
     await signOut(page, approver.displayName);
   });
 
@@ -82,7 +88,10 @@ describe('review workflow in chromium', () => {
     await waitSaved(page);
     await page.getByRole('button', { name: 'Submit for review' }).click();
     await page.waitForURL(/\/recipes\/\d+(\?.*)?$/);
-    await page.getByText(/In review/i).first().waitFor();
+    await page
+      .getByText(/In review/i)
+      .first()
+      .waitFor();
     await signOut(page, author.displayName);
   });
 
@@ -111,7 +120,10 @@ describe('review workflow in chromium', () => {
     await screenshot(page, '22-approved-recipe');
     await page.getByRole('tab', { name: /History/ }).click();
     const history = page.getByRole('tabpanel');
-    await history.getByText(/Superseded/i).first().waitFor();
+    await history
+      .getByText(/Superseded/i)
+      .first()
+      .waitFor();
     const text = await history.innerText();
     expect(text).to.match(/Superseded/i);
     expect(text).to.match(/Lower feed after burn marks/);

@@ -108,8 +108,24 @@ async function buildScene(): Promise<Scene> {
       orientation: 'transverse',
       orientationNote: TEXT.orientationNote,
     },
-    cutting: { machineId: machine.id, wheelId: wheel.id, wheelRpm: 3900, feedMmS: 0.05, entryFeedMmS: null, entryLengthMm: null, cutMotion: 'straight-plunge', passes: null },
-    clamping: { method: 'adhesive-wax-mount', placement: TEXT.placement, bothSides: true, softInserts: false, supportBlocks: false, orientationRule: TEXT.orientationRule },
+    cutting: {
+      machineId: machine.id,
+      wheelId: wheel.id,
+      wheelRpm: 3900,
+      feedMmS: 0.05,
+      entryFeedMmS: null,
+      entryLengthMm: null,
+      cutMotion: 'straight-plunge',
+      passes: null,
+    },
+    clamping: {
+      method: 'adhesive-wax-mount',
+      placement: TEXT.placement,
+      bothSides: true,
+      softInserts: false,
+      supportBlocks: false,
+      orientationRule: TEXT.orientationRule,
+    },
     coolant: { type: 'water-soluble', concentrationPct: 3, flowLMin: null },
     instructionsMd: LONG('instructions'),
     acceptanceMd: LONG('acceptance'),
@@ -119,7 +135,9 @@ async function buildScene(): Promise<Scene> {
   let v = await asAuthor.post<RecipeVersionDto>('/api/recipes', { title: TEXT.title, content });
   const { recipeId, number } = v;
   const path = `/api/recipes/${recipeId}/versions/1`;
-  const photo = await sharp({ create: { width: 16, height: 16, channels: 3, background: '#808080' } }).png().toBuffer();
+  const photo = await sharp({ create: { width: 16, height: 16, channels: 3, background: '#808080' } })
+    .png()
+    .toBuffer();
   await asAuthor.upload(`${path}/attachments`, { role: 'setup', caption: TEXT.caption }, { name: TEXT.fileName, mimeType: 'image/png', buffer: photo });
   v = await asAuthor.get<RecipeVersionDto>(path);
   v = await asAuthor.post<RecipeVersionDto>(`${path}/submit`, { revision: v.revision });
@@ -128,7 +146,11 @@ async function buildScene(): Promise<Scene> {
   const asApprover = await apiSignIn(approver.username, approver.password);
   await asApprover.post(`${path}/comments`, { body: LONG('review comment'), path: 'instructionsMd' });
   v = await asApprover.post<RecipeVersionDto>(`${path}/return`, { revision: v.revision, comment: LONG('return comment') });
-  v = await asAuthor.put<RecipeVersionDto>(path, { revision: v.revision, title: TEXT.title, content: { ...content, coolant: { ...content.coolant, flowLMin: 2 } } });
+  v = await asAuthor.put<RecipeVersionDto>(path, {
+    revision: v.revision,
+    title: TEXT.title,
+    content: { ...content, coolant: { ...content.coolant, flowLMin: 2 } },
+  });
   v = await asAuthor.post<RecipeVersionDto>(`${path}/submit`, { revision: v.revision });
   const warnings = v.checks.filter((c) => c.severity === 'warning').map((c) => c.id);
   await asApprover.post(`${path}/approve`, {
@@ -148,7 +170,12 @@ async function buildScene(): Promise<Scene> {
     meaning: 'approved',
     acknowledgedWarnings: w.checks.filter((c) => c.severity === 'warning').map((c) => c.id),
   });
-  await asApprover.post(`/api/recipes/${w.recipeId}/versions/1/withdraw`, { revision: w.revision, password: approver.password, meaning: 'withdrawn', reason: LONG('withdrawal').slice(0, 2000) });
+  await asApprover.post(`/api/recipes/${w.recipeId}/versions/1/withdraw`, {
+    revision: w.revision,
+    password: approver.password,
+    meaning: 'withdrawn',
+    reason: LONG('withdrawal').slice(0, 2000),
+  });
   await asApprover.close();
 
   // Version 2, with a hostile change reason, left in review (the review page shows it).
@@ -229,7 +256,10 @@ describe('hostile text in chromium and on the bench sheet (OWASP XSS vectors)', 
         for (const a of el.attributes) {
           if (/^on/i.test(a.name)) found.push(`<${tag} ${a.name}="${a.value}">`);
           if (a.name === 'srcdoc') found.push(`<${tag} srcdoc>`);
-          if (/^(href|src|action|formaction|data|xlink:href|background|poster)$/i.test(a.name) && /^\s*(javascript|vbscript|data:text\/html)/i.test(a.value.replace(/[\u0000-\u0020]/g, ''))) {
+          if (
+            /^(href|src|action|formaction|data|xlink:href|background|poster)$/i.test(a.name) &&
+            /^\s*(javascript|vbscript|data:text\/html)/i.test(a.value.replace(/[\u0000-\u0020]/g, ''))
+          ) {
             found.push(`<${tag} ${a.name}="${a.value}">`);
           }
           if (a.name === 'style' && /expression|javascript:/i.test(a.value)) found.push(`<${tag} style="${a.value}">`);
@@ -277,7 +307,16 @@ describe('hostile text in chromium and on the bench sheet (OWASP XSS vectors)', 
     await as(author);
     const recipe = `/recipes/${scene.recipeId}`;
     await open('library', `/library?q=${M}`, M, [TEXT.title]);
-    await open('recipe v1', `${recipe}?v=1`, M, [`${M} approval`, TEXT.title, TEXT.materialName, TEXT.machineName, TEXT.wheelName, TEXT.orientationNote, TEXT.placement, TEXT.orientationRule]);
+    await open('recipe v1', `${recipe}?v=1`, M, [
+      `${M} approval`,
+      TEXT.title,
+      TEXT.materialName,
+      TEXT.machineName,
+      TEXT.wheelName,
+      TEXT.orientationNote,
+      TEXT.placement,
+      TEXT.orientationRule,
+    ]);
     await tab(/Instructions/, 'recipe v1, instructions', [`${M} instructions`, `${M} acceptance`, `${M} cautions`]);
     await tab(/Comments/, 'recipe v1, comments', [LONG('review comment'), LONG('return comment')]);
     await tab(/Attachments/, 'recipe v1, attachments', [TEXT.caption]);
@@ -338,7 +377,12 @@ describe('hostile text in chromium and on the bench sheet (OWASP XSS vectors)', 
     await open('finder', '/finder?group=electronics-mixed&sizeMm=10', M, [TEXT.title]);
     await open('recipe as operator', `/recipes/${scene.recipeId}?v=1`, M, [TEXT.title, TEXT.materialName]);
     await tab(/Cuts/, 'recipe, cuts', [TEXT.specimenId, TEXT.partRef, TEXT.personName]);
-    await open('specimen trace', `/cuts?specimen=${encodeURIComponent(TEXT.specimenId)}`, stamp, [TEXT.specimenId, TEXT.partRef, TEXT.personName, `${M} cut notes`]);
+    await open('specimen trace', `/cuts?specimen=${encodeURIComponent(TEXT.specimenId)}`, stamp, [
+      TEXT.specimenId,
+      TEXT.partRef,
+      TEXT.personName,
+      `${M} cut notes`,
+    ]);
     await open('Today (operator)', '/today', 'Today');
     // The check code printed on the sheet, as its QR code opens it.
     const sheet = await page.request.get(`${BASE_URL}/api/recipes/${scene.recipeId}/versions/1/sheet.pdf`);

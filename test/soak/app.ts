@@ -40,7 +40,7 @@ export function soakApp(port: number, env: NodeJS.ProcessEnv, logFile: string): 
 
   return {
     url,
-    pid: () => (child && child.exitCode === null && child.signalCode === null ? child.pid ?? null : null),
+    pid: () => (child && child.exitCode === null && child.signalCode === null ? (child.pid ?? null) : null),
     tail: () => output.split('\n').slice(-30).join('\n'),
     async start() {
       const started = spawn(path.join(BIN, 'tsx'), ['server/main.ts'], {

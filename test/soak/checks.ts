@@ -61,7 +61,9 @@ async function versionRows(db: Knex, refs: VersionRef[]): Promise<Map<string, { 
   const map = new Map<string, { id: number; status: string; revision: number }>();
   const ids = [...new Set(refs.map((r) => r.recipeId))];
   for (let i = 0; i < ids.length; i += 500) {
-    const rows = await db('recipe_versions').whereIn('recipe_id', ids.slice(i, i + 500)).select('id', 'recipe_id', 'version', 'status', 'revision');
+    const rows = await db('recipe_versions')
+      .whereIn('recipe_id', ids.slice(i, i + 500))
+      .select('id', 'recipe_id', 'version', 'status', 'revision');
     for (const r of rows) map.set(`${r.recipe_id}/${r.version}`, { id: r.id, status: r.status, revision: r.revision });
   }
   return map;
@@ -70,52 +72,92 @@ async function versionRows(db: Knex, refs: VersionRef[]): Promise<Map<string, { 
 const key = (v: VersionRef) => `${v.recipeId}/${v.version}`;
 
 export async function checkLedger(list: CheckList, db: Knex, ledger: Ledger): Promise<void> {
-  const versions = await versionRows(db, [...ledger.created, ...ledger.saved, ...ledger.submitted, ...ledger.approved, ...ledger.returned, ...ledger.acknowledged, ...ledger.printed]);
+  const versions = await versionRows(db, [
+    ...ledger.created,
+    ...ledger.saved,
+    ...ledger.submitted,
+    ...ledger.approved,
+    ...ledger.returned,
+    ...ledger.acknowledged,
+    ...ledger.printed,
+  ]);
 
   const missing = ledger.created.filter((c) => !versions.has(key(c)));
   list.add('every created draft is in the database', missing.length === 0, `${ledger.created.length} created, ${missing.length} missing${sample(missing)}`);
 
   const staleSaves = ledger.saved.filter((s) => (versions.get(key(s))?.revision ?? -1) < s.revision);
-  list.add('every saved revision is kept (database revision ≥ the one answered)', staleSaves.length === 0, `${ledger.saved.length} saves, ${staleSaves.length} lost${sample(staleSaves)}`);
+  list.add(
+    'every saved revision is kept (database revision ≥ the one answered)',
+    staleSaves.length === 0,
+    `${ledger.saved.length} saves, ${staleSaves.length} lost${sample(staleSaves)}`,
+  );
 
   const notSubmitted = ledger.submitted.filter((s) => {
     const v = versions.get(key(s));
     return !v || v.status === 'draft' || v.revision < s.revision;
   });
-  list.add('every submitted version left the draft state', notSubmitted.length === 0, `${ledger.submitted.length} submits, ${notSubmitted.length} lost${sample(notSubmitted)}`);
+  list.add(
+    'every submitted version left the draft state',
+    notSubmitted.length === 0,
+    `${ledger.submitted.length} submits, ${notSubmitted.length} lost${sample(notSubmitted)}`,
+  );
 
   const signatures = new Set(
-    (await db('signatures').where({ meaning: 'approved' }).select('version_id', 'signer_id')).map((s: { version_id: number; signer_id: number }) => `${s.version_id}:${s.signer_id}`),
+    (await db('signatures').where({ meaning: 'approved' }).select('version_id', 'signer_id')).map(
+      (s: { version_id: number; signer_id: number }) => `${s.version_id}:${s.signer_id}`,
+    ),
   );
   const lostApprovals = ledger.approved.filter((a) => {
     const v = versions.get(key(a));
     return !v || !['approved', 'superseded', 'withdrawn'].includes(v.status) || !signatures.has(`${v.id}:${a.signerId}`);
   });
-  list.add('every approval is in force or later, signed by its approver', lostApprovals.length === 0, `${ledger.approved.length} approvals, ${lostApprovals.length} lost${sample(lostApprovals)}`);
+  list.add(
+    'every approval is in force or later, signed by its approver',
+    lostApprovals.length === 0,
+    `${ledger.approved.length} approvals, ${lostApprovals.length} lost${sample(lostApprovals)}`,
+  );
 
   // trail_events.entity_id is text (it names entities of any kind).
   const returnedIds = new Set(((await db('trail_events').where({ event_type: 'recipe.version_returned' }).pluck('entity_id')) as string[]).map(Number));
   const lostReturns = ledger.returned.filter((r) => !returnedIds.has(versions.get(key(r))?.id ?? -1));
-  list.add('every return to the author is on the trail', lostReturns.length === 0, `${ledger.returned.length} returns, ${lostReturns.length} lost${sample(lostReturns)}`);
+  list.add(
+    'every return to the author is on the trail',
+    lostReturns.length === 0,
+    `${ledger.returned.length} returns, ${lostReturns.length} lost${sample(lostReturns)}`,
+  );
 
-  const acks = new Set((await db('acknowledgements').select('version_id', 'user_id')).map((a: { version_id: number; user_id: number }) => `${a.version_id}:${a.user_id}`));
+  const acks = new Set(
+    (await db('acknowledgements').select('version_id', 'user_id')).map((a: { version_id: number; user_id: number }) => `${a.version_id}:${a.user_id}`),
+  );
   const lostAcks = ledger.acknowledged.filter((a) => !acks.has(`${versions.get(key(a))?.id}:${a.userId}`));
-  list.add('every acknowledgement is recorded', lostAcks.length === 0, `${ledger.acknowledged.length} acknowledgements, ${lostAcks.length} lost${sample(lostAcks)}`);
+  list.add(
+    'every acknowledgement is recorded',
+    lostAcks.length === 0,
+    `${ledger.acknowledged.length} acknowledgements, ${lostAcks.length} lost${sample(lostAcks)}`,
+  );
 
   const prints = new Map<string, number>();
-  for (const p of await db('sheet_prints').select('version_id', 'user_id')) prints.set(`${p.version_id}:${p.user_id}`, (prints.get(`${p.version_id}:${p.user_id}`) ?? 0) + 1);
+  for (const p of await db('sheet_prints').select('version_id', 'user_id'))
+    prints.set(`${p.version_id}:${p.user_id}`, (prints.get(`${p.version_id}:${p.user_id}`) ?? 0) + 1);
   const answered = new Map<string, number>();
   for (const p of ledger.printed) {
     const k = `${versions.get(key(p))?.id}:${p.userId}`;
     answered.set(k, (answered.get(k) ?? 0) + 1);
   }
   const lostPrints = [...answered].filter(([k, n]) => (prints.get(k) ?? 0) < n);
-  list.add('every bench sheet handed out is recorded', lostPrints.length === 0, `${ledger.printed.length} sheets, ${lostPrints.length} (version, operator) pairs short${sample(lostPrints)}`);
+  list.add(
+    'every bench sheet handed out is recorded',
+    lostPrints.length === 0,
+    `${ledger.printed.length} sheets, ${lostPrints.length} (version, operator) pairs short${sample(lostPrints)}`,
+  );
 
   const cutRows = new Map<number, { specimen_id: string; operator_id: number }>();
   const cutIds = ledger.cuts.map((c) => c.id);
   for (let i = 0; i < cutIds.length; i += 1000) {
-    for (const r of await db('cut_records').whereIn('id', cutIds.slice(i, i + 1000)).select('id', 'specimen_id', 'operator_id')) cutRows.set(r.id, r);
+    for (const r of await db('cut_records')
+      .whereIn('id', cutIds.slice(i, i + 1000))
+      .select('id', 'specimen_id', 'operator_id'))
+      cutRows.set(r.id, r);
   }
   const lostCuts = ledger.cuts.filter((c) => cutRows.get(c.id)?.specimen_id !== c.specimenId || cutRows.get(c.id)?.operator_id !== c.userId);
   list.add('every logged cut is in the database as answered', lostCuts.length === 0, `${ledger.cuts.length} cuts, ${lostCuts.length} lost${sample(lostCuts)}`);
@@ -143,21 +185,37 @@ export async function checkConsistency(list: CheckList, db: Knex): Promise<void>
   }[];
 
   const unsigned = released.filter((v) => !signatureOf.has(v.id) || approvedEventOf.get(v.id)?.signatureId !== signatureOf.get(v.id));
-  list.add('every approved version has its signature and its recipe.version_approved event', unsigned.length === 0, `${released.length} released versions, ${unsigned.length} incomplete${sample(unsigned)}`);
+  list.add(
+    'every approved version has its signature and its recipe.version_approved event',
+    unsigned.length === 0,
+    `${released.length} released versions, ${unsigned.length} incomplete${sample(unsigned)}`,
+  );
 
   const releasedIds = new Set(released.map((v) => v.id));
   const strays = signatures.filter((s) => !releasedIds.has(s.version_id));
   const strayEvents = approvedEvents.filter((e) => !releasedIds.has(e.entity_id));
-  list.add('no signature or approval event on a version that is not approved', strays.length === 0 && strayEvents.length === 0, `${strays.length} signatures, ${strayEvents.length} events`);
+  list.add(
+    'no signature or approval event on a version that is not approved',
+    strays.length === 0 && strayEvents.length === 0,
+    `${strays.length} signatures, ${strayEvents.length} events`,
+  );
 
   const supersededEvents = new Set((await events('recipe.version_superseded')).map((e) => e.entity_id));
   const silent = released.filter((v) => v.status === 'superseded' && !supersededEvents.has(v.id));
-  list.add('every superseded version has its recipe.version_superseded event', silent.length === 0, `${released.filter((v) => v.status === 'superseded').length} superseded, ${silent.length} without${sample(silent)}`);
+  list.add(
+    'every superseded version has its recipe.version_superseded event',
+    silent.length === 0,
+    `${released.filter((v) => v.status === 'superseded').length} superseded, ${silent.length} without${sample(silent)}`,
+  );
 
   const submittedEvents = new Set((await events('recipe.version_submitted')).map((e) => e.entity_id));
   const reviewed = (await db('recipe_versions').whereNot('status', 'draft').select('id')) as { id: number }[];
   const unsubmitted = reviewed.filter((v) => !submittedEvents.has(v.id));
-  list.add('every version past the draft has its recipe.version_submitted event', unsubmitted.length === 0, `${reviewed.length} versions, ${unsubmitted.length} without${sample(unsubmitted)}`);
+  list.add(
+    'every version past the draft has its recipe.version_submitted event',
+    unsubmitted.length === 0,
+    `${reviewed.length} versions, ${unsubmitted.length} without${sample(unsubmitted)}`,
+  );
 
   const today = new Date().toISOString().slice(0, 10);
   const badCurrent = (await db('recipes as r')
@@ -171,7 +229,11 @@ export async function checkConsistency(list: CheckList, db: Knex): Promise<void>
     .groupBy('recipe_id')
     .havingRaw('count(*) > 1')
     .select('recipe_id')) as unknown[];
-  list.add('each recipe has at most one version in force, and it is the current one', badCurrent.length === 0 && inForce.length === 0, `${badCurrent.length} wrong current, ${inForce.length} with two in force${sample([...badCurrent, ...inForce])}`);
+  list.add(
+    'each recipe has at most one version in force, and it is the current one',
+    badCurrent.length === 0 && inForce.length === 0,
+    `${badCurrent.length} wrong current, ${inForce.length} with two in force${sample([...badCurrent, ...inForce])}`,
+  );
 
   const countOf = async (q: Knex.QueryBuilder) => Number(((await q.count({ n: '*' }).first()) as { n: number }).n);
   const cuts = await countOf(db('cut_records'));
@@ -212,7 +274,11 @@ export function checkFaults(list: CheckList, faults: FaultLog, records: RequestR
   const app = faults.app;
   if (app) {
     const later = records.filter((r) => r.startMs > app.upMs && r.method !== 'GET' && r.status >= 200 && r.status < 300);
-    list.add('the restarted app takes writes again (sessions kept in MariaDB)', later.length > 0, `${later.length} writes with 2xx after the restart; ${app.approvesInFlight} approvals were on their way at the kill`);
+    list.add(
+      'the restarted app takes writes again (sessions kept in MariaDB)',
+      later.length > 0,
+      `${later.length} writes with 2xx after the restart; ${app.approvesInFlight} approvals were on their way at the kill`,
+    );
   }
 }
 
@@ -248,20 +314,40 @@ export async function waitForOutbox(db: Knex, faults: FaultLog, t0: number, time
   while (Date.now() < until) {
     const rows = (await db('mail_outbox').whereNull('sent_at').select('sending_claimed_until')) as { sending_claimed_until: Date | null }[];
     const now = Date.now();
-    if (rows.every((r) => r.sending_claimed_until && r.sending_claimed_until.getTime() > now && claimedBeforeFault(r.sending_claimed_until, faults, t0) !== null)) return;
+    if (
+      rows.every((r) => r.sending_claimed_until && r.sending_claimed_until.getTime() > now && claimedBeforeFault(r.sending_claimed_until, faults, t0) !== null)
+    )
+      return;
     await new Promise((r) => setTimeout(r, 1000));
   }
 }
 
 export async function checkMail(list: CheckList, db: Knex, faults: FaultLog, t0: number, caught: CaughtMail[]): Promise<void> {
-  const rows = (await db('mail_outbox').select('id', 'to_address', 'subject', 'created_at', 'attempts', 'sent_at', 'message_id', 'sending_claimed_until')) as OutboxRow[];
+  const rows = (await db('mail_outbox').select(
+    'id',
+    'to_address',
+    'subject',
+    'created_at',
+    'attempts',
+    'sent_at',
+    'message_id',
+    'sending_claimed_until',
+  )) as OutboxRow[];
   const now = Date.now();
   const held = rows.filter((r) => r.sent_at === null && r.sending_claimed_until && r.sending_claimed_until.getTime() > now);
   const unsent = rows.filter((r) => r.sent_at === null && !held.includes(r));
-  list.add('every mail in the outbox went out (or is held by the claim of a worker that died with it)', unsent.length === 0, `${rows.length} rows, ${unsent.length} unsent, ${held.length} held by a claim`);
+  list.add(
+    'every mail in the outbox went out (or is held by the claim of a worker that died with it)',
+    unsent.length === 0,
+    `${rows.length} rows, ${unsent.length} unsent, ${held.length} held by a claim`,
+  );
 
   const oddHolds = held.filter((r) => claimedBeforeFault(r.sending_claimed_until!, faults, t0) === null);
-  list.add('rows still held were claimed before the app crash or the database outage', oddHolds.length === 0, `${held.length} held, ${oddHolds.length} otherwise${sample(oddHolds.map((r) => r.id))}`);
+  list.add(
+    'rows still held were claimed before the app crash or the database outage',
+    oddHolds.length === 0,
+    `${held.length} held, ${oddHolds.length} otherwise${sample(oddHolds.map((r) => r.id))}`,
+  );
 
   // A held row whose mail the catcher already has was sent but not marked: it goes out again when its claim runs out.
   const caughtBy = new Map<string, number>();
@@ -273,14 +359,21 @@ export async function checkMail(list: CheckList, db: Knex, faults: FaultLog, t0:
     if (n > 0) caughtBy.set(k, n - 1);
     return n > 0;
   });
-  const byFault = (list: OutboxRow[], fault: 'app' | 'database') => list.filter((r) => claimedBeforeFault(r.sending_claimed_until!, faults, t0) === fault).length;
+  const byFault = (list: OutboxRow[], fault: 'app' | 'database') =>
+    list.filter((r) => claimedBeforeFault(r.sending_claimed_until!, faults, t0) === fault).length;
   if (faults.database) {
     const n = byFault(delivered, 'database');
-    list.add('no mail delivered but left unmarked by the database outage (it would go out twice)', n === 0, `${byFault(held, 'database')} rows held by a claim from the outage, ${n} of them already delivered`);
+    list.add(
+      'no mail delivered but left unmarked by the database outage (it would go out twice)',
+      n === 0,
+      `${byFault(held, 'database')} rows held by a claim from the outage, ${n} of them already delivered`,
+    );
   }
   if (faults.app) {
     // A process killed between the SMTP server's answer and the "sent" mark cannot tell its successor; reported, not checked.
-    console.log(`       note: ${byFault(held, 'app')} rows held by the killed process's claim, ${byFault(delivered, 'app')} of them already delivered (at-least-once across a SIGKILL)`);
+    console.log(
+      `       note: ${byFault(held, 'app')} rows held by the killed process's claim, ${byFault(delivered, 'app')} of them already delivered (at-least-once across a SIGKILL)`,
+    );
   }
 
   const byId = new Map<string, number>();
@@ -288,7 +381,11 @@ export async function checkMail(list: CheckList, db: Knex, faults: FaultLog, t0:
   const sent = rows.filter((r) => r.sent_at !== null);
   const notOnce = sent.filter((r) => byId.get(r.message_id ?? '') !== 1);
   const twice = [...byId].filter(([, n]) => n > 1);
-  list.add('every sent mail was caught exactly once', notOnce.length === 0 && twice.length === 0, `${sent.length} sent, ${caught.length} caught, ${notOnce.length} not once, ${twice.length} message ids twice`);
+  list.add(
+    'every sent mail was caught exactly once',
+    notOnce.length === 0 && twice.length === 0,
+    `${sent.length} sent, ${caught.length} caught, ${notOnce.length} not once, ${twice.length} message ids twice`,
+  );
 
   const mail = faults.mail;
   if (mail) {

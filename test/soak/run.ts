@@ -99,19 +99,27 @@ async function main(): Promise<number> {
   await seedDemoIfEmpty(db);
   const lab = await createSoakLab(db, options.users);
   const roles = lab.people.reduce<Record<string, number>>((acc, p) => ({ ...acc, [p.role]: (acc[p.role] ?? 0) + 1 }), {});
-  console.log(`[soak] demo seeds + ${lab.people.length} people (${Object.entries(roles).map(([r, n]) => `${n} ${r}s`).join(', ')})`);
+  console.log(
+    `[soak] demo seeds + ${lab.people.length} people (${Object.entries(roles)
+      .map(([r, n]) => `${n} ${r}s`)
+      .join(', ')})`,
+  );
 
   mail = new MailService();
   await mail.start();
-  app = soakApp(await freePort(), {
-    NODE_ENV: 'test',
-    DATABASE_URL: databaseUrl,
-    SESSION_SECRET: randomBytes(32).toString('base64url'),
-    SMTP_URL: `smtp://127.0.0.1:${mail.port}`,
-    APP_BASE_URL: 'http://127.0.0.1',
-    KERFBOOK_DIST: '/nonexistent/kerfbook-dist',
-    MAIL_INTERVAL_MS: '1000',
-  }, APP_LOG);
+  app = soakApp(
+    await freePort(),
+    {
+      NODE_ENV: 'test',
+      DATABASE_URL: databaseUrl,
+      SESSION_SECRET: randomBytes(32).toString('base64url'),
+      SMTP_URL: `smtp://127.0.0.1:${mail.port}`,
+      APP_BASE_URL: 'http://127.0.0.1',
+      KERFBOOK_DIST: '/nonexistent/kerfbook-dist',
+      MAIL_INTERVAL_MS: '1000',
+    },
+    APP_LOG,
+  );
   await app.start();
   console.log(`[soak] app ${app.url}, mail catcher on smtp://127.0.0.1:${mail.port}`);
   console.log(`[soak] ${options.users} people for ${options.seconds} s${options.faults ? ', with faults' : ''}…`);
@@ -134,7 +142,11 @@ async function main(): Promise<number> {
   const faultScript = async () => {
     const S = options.seconds * 1000;
     const at = async (fraction: number) => sleep(Math.max(0, fraction * S - clock()));
-    const probe = new SoakClient(() => app!.url, (r) => records.push(r), clock);
+    const probe = new SoakClient(
+      () => app!.url,
+      (r) => records.push(r),
+      clock,
+    );
     const auditor = lab.people.find((p) => p.role === 'auditor')!;
     if (!(await probe.signIn(auditor.username, auditor.password))) throw new Error('the fault probe could not sign in');
     await at(0.2);
@@ -145,14 +157,21 @@ async function main(): Promise<number> {
     // outbox rows still held at the end then say by their claim time which fault left them.
     await at(0.5);
     faults.app = await appCrash(app!, ctx.approvesInFlight, clock);
-    console.log(`[soak] ${(faults.app.killMs / 1000).toFixed(1)} s: app SIGKILLed (${faults.app.approvesInFlight} approvals on their way); listening again at ${(faults.app.upMs / 1000).toFixed(1)} s`);
+    console.log(
+      `[soak] ${(faults.app.killMs / 1000).toFixed(1)} s: app SIGKILLed (${faults.app.approvesInFlight} approvals on their way); listening again at ${(faults.app.upMs / 1000).toFixed(1)} s`,
+    );
     await at(0.7);
     console.log(`[soak] ${(clock() / 1000).toFixed(1)} s: MariaDB killed`);
     faults.database = await databaseOutage(mariadb!, app!, probe, clock, Math.max(3, Math.round(options.seconds * 0.08)));
-    console.log(`[soak] ${(faults.database.upMs / 1000).toFixed(1)} s: MariaDB back; app answering again at ${((faults.database.recoveredMs ?? NaN) / 1000).toFixed(1)} s`);
+    console.log(
+      `[soak] ${(faults.database.upMs / 1000).toFixed(1)} s: MariaDB back; app answering again at ${((faults.database.recoveredMs ?? NaN) / 1000).toFixed(1)} s`,
+    );
   };
 
-  const [people, script] = await Promise.allSettled([Promise.all(lab.people.map((p) => runPerson(p, ctx))), options.faults ? faultScript() : Promise.resolve()]);
+  const [people, script] = await Promise.allSettled([
+    Promise.all(lab.people.map((p) => runPerson(p, ctx))),
+    options.faults ? faultScript() : Promise.resolve(),
+  ]);
   if (people.status === 'rejected') throw people.reason;
   if (script.status === 'rejected') throw script.reason;
   const seconds = Math.round(clock() / 100) / 10;
@@ -177,7 +196,10 @@ async function main(): Promise<number> {
         `recovered ${d.recoveredMs === null ? 'never' : `${d.recoveredMs - d.upMs} ms`} after MariaDB answered`,
     );
   }
-  if (faults.app) console.log(`App crash: down ${((faults.app.upMs - faults.app.killMs) / 1000).toFixed(1)} s, ${records.filter((r) => r.status === 0 && r.code === 'NETWORK').length} requests without an answer`);
+  if (faults.app)
+    console.log(
+      `App crash: down ${((faults.app.upMs - faults.app.killMs) / 1000).toFixed(1)} s, ${records.filter((r) => r.status === 0 && r.code === 'NETWORK').length} requests without an answer`,
+    );
   if (faults.mail) console.log(`Mail outage: ${((faults.mail.upMs - faults.mail.downMs) / 1000).toFixed(1)} s`);
 
   console.log('\nChecks:');

@@ -14,7 +14,10 @@ function figures(list: RequestRecord[]): { n: number; p50: number; p99: number; 
     const label = r.status === 0 ? (r.code ?? 'no answer') : `${r.status}${r.code ? ` ${r.code}` : ''}`;
     failures.set(label, (failures.get(label) ?? 0) + 1);
   }
-  const failed = [...failures].sort((a, b) => b[1] - a[1]).map(([k, n]) => `${k}×${n}`).join(', ');
+  const failed = [...failures]
+    .sort((a, b) => b[1] - a[1])
+    .map(([k, n]) => `${k}×${n}`)
+    .join(', ');
   return { n: list.length, p50: Math.round(percentile(ms, 50)), p99: Math.round(percentile(ms, 99)), failed };
 }
 
@@ -24,7 +27,9 @@ export function printSummary(records: RequestRecord[], seconds: number, calm: (r
   const all = figures(users);
   const quiet = figures(users.filter(calm));
   console.log(`\nRequests: ${all.n} in ${seconds} s (${(all.n / seconds).toFixed(1)}/s), p50 ${all.p50} ms, p99 ${all.p99} ms`);
-  console.log(`Outside the app crash and the database outage: ${quiet.n} requests, p50 ${quiet.p50} ms, p99 ${quiet.p99} ms, not 2xx: ${quiet.failed || 'none'}`);
+  console.log(
+    `Outside the app crash and the database outage: ${quiet.n} requests, p50 ${quiet.p50} ms, p99 ${quiet.p99} ms, not 2xx: ${quiet.failed || 'none'}`,
+  );
   console.log(`  ${'kind'.padEnd(14)} ${'count'.padStart(7)} ${'p50 ms'.padStart(8)} ${'p99 ms'.padStart(8)}  not 2xx`);
   const kinds = [...new Set(users.map((r) => r.kind))].sort();
   for (const kind of kinds) {

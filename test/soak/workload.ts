@@ -158,7 +158,10 @@ const ACTIONS: Record<SoakPerson['role'], Action> = {
     const src = open.body;
     const saws = ctx.lab.sawsByModel.get(src.content.cutting.machineId) ?? [src.content.cutting.machineId];
     const content = { ...src.content, changeReason: '', cutting: { ...src.content.cutting, machineId: pick(saws) } };
-    const made = await send<RecipeVersionDto>(client, track, 'create', 'POST', '/api/recipes', { title: `${src.title.slice(0, 120)} (${person.username})`, content });
+    const made = await send<RecipeVersionDto>(client, track, 'create', 'POST', '/api/recipes', {
+      title: `${src.title.slice(0, 120)} (${person.username})`,
+      content,
+    });
     if (made.ok) {
       ctx.ledger.created.push({ recipeId: made.body.recipeId, version: made.body.version, by: person.id });
       state.draft = made.body;
@@ -179,7 +182,10 @@ const ACTIONS: Record<SoakPerson['role'], Action> = {
     if (!open.ok || open.body.status !== 'in-review') return;
     const v = open.body;
     if (Math.random() < 0.1) {
-      const res = await send(client, track, 'return', 'POST', `${versionPath(v)}/return`, { revision: v.revision, comment: 'Please give the clamping positions in mm.' });
+      const res = await send(client, track, 'return', 'POST', `${versionPath(v)}/return`, {
+        revision: v.revision,
+        comment: 'Please give the clamping positions in mm.',
+      });
       if (res.ok) ctx.ledger.returned.push({ recipeId: v.recipeId, version: v.version });
       return;
     }
@@ -235,7 +241,8 @@ const ACTIONS: Record<SoakPerson['role'], Action> = {
     const r = Math.random();
     if (r < 0.05) await get(client, track, 'trail-verify', '/api/trail/verify');
     else if (r < 0.5) await get(client, track, 'trail', '/api/trail?limit=50');
-    else if (r < 0.7 && ctx.ledger.cuts.length > 0) await get(client, track, 'trace', `/api/cuts?specimenId=${encodeURIComponent(pick(ctx.ledger.cuts).specimenId)}`);
+    else if (r < 0.7 && ctx.ledger.cuts.length > 0)
+      await get(client, track, 'trace', `/api/cuts?specimenId=${encodeURIComponent(pick(ctx.ledger.cuts).specimenId)}`);
     else await search(client, track);
   },
 };

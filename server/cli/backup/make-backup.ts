@@ -34,7 +34,10 @@ export interface BackupResult {
 
 /** `kerfbook-2026-12-02T03-04-05Z.tar.gz`, with -2, -3… when that name is taken. */
 function fileName(dir: string, database: string, at: Date, label?: string): string {
-  const stamp = at.toISOString().replace(/\.\d+Z$/, 'Z').replace(/:/g, '-');
+  const stamp = at
+    .toISOString()
+    .replace(/\.\d+Z$/, 'Z')
+    .replace(/:/g, '-');
   const base = `${database}-${stamp}${label ? `-${label}` : ''}`;
   for (let n = 1; ; n++) {
     const file = path.join(dir, `${base}${n > 1 ? `-${n}` : ''}.tar.gz`);

@@ -50,7 +50,15 @@ export function connect(address: DbAddress, database: string | null = address.da
 export const quoteName = (name: string): string => `\`${name.replace(/`/g, '``')}\``;
 
 function clientArgs(a: DbAddress): string[] {
-  return ['--no-defaults', '--protocol=TCP', `--host=${a.host}`, `--port=${a.port}`, `--user=${a.user}`, '--default-character-set=utf8mb4', '--max-allowed-packet=1G'];
+  return [
+    '--no-defaults',
+    '--protocol=TCP',
+    `--host=${a.host}`,
+    `--port=${a.port}`,
+    `--user=${a.user}`,
+    '--default-character-set=utf8mb4',
+    '--max-allowed-packet=1G',
+  ];
 }
 
 export interface RunningClient {
@@ -79,11 +87,7 @@ function run(command: string, args: string[], a: DbAddress): RunningClient {
  * a 10 MB photo stays one statement below the server's 16 MB max_allowed_packet.
  */
 export function startDump(a: DbAddress): RunningClient {
-  return run(
-    'mariadb-dump',
-    [...clientArgs(a), '--single-transaction', '--routines', '--triggers', '--no-tablespaces', '--skip-dump-date', a.database],
-    a,
-  );
+  return run('mariadb-dump', [...clientArgs(a), '--single-transaction', '--routines', '--triggers', '--no-tablespaces', '--skip-dump-date', a.database], a);
 }
 
 /** The `mariadb` client reading SQL on stdin into `database`. */

@@ -75,10 +75,9 @@ async function refuseIfInUse(c: mysql.Connection, database: string): Promise<voi
   let rows: Rows = [];
   // A client that has just disconnected can stay listed for a moment: look a few times.
   for (let i = 0; i < 10; i++) {
-    [rows] = await c.query<Rows>(
-      'SELECT ID AS id, USER AS user, HOST AS host FROM information_schema.PROCESSLIST WHERE DB = ? AND ID <> CONNECTION_ID()',
-      [database],
-    );
+    [rows] = await c.query<Rows>('SELECT ID AS id, USER AS user, HOST AS host FROM information_schema.PROCESSLIST WHERE DB = ? AND ID <> CONNECTION_ID()', [
+      database,
+    ]);
     if (rows.length === 0) return;
     await new Promise((r) => setTimeout(r, 100));
   }
@@ -140,12 +139,14 @@ function differences(expected: Manifest, found: Omit<Manifest, 'format' | 'forma
   const out: string[] = [];
   const tables = new Set([...Object.keys(expected.rowCounts), ...Object.keys(found.rowCounts)]);
   for (const t of tables) {
-    if (expected.rowCounts[t] !== found.rowCounts[t]) out.push(`${t}: ${found.rowCounts[t] ?? 'no table'} rows, the manifest says ${expected.rowCounts[t] ?? 'no table'}`);
+    if (expected.rowCounts[t] !== found.rowCounts[t])
+      out.push(`${t}: ${found.rowCounts[t] ?? 'no table'} rows, the manifest says ${expected.rowCounts[t] ?? 'no table'}`);
   }
   if (expected.triggers.join() !== found.triggers.join()) out.push(`triggers ${found.triggers.join(', ')}; the manifest says ${expected.triggers.join(', ')}`);
   const head = (t: Manifest['trail']) => (t ? `#${t.headEventId} ${t.headHash}` : 'none');
   if (head(expected.trail) !== head(found.trail)) out.push(`chain head ${head(found.trail)}; the manifest says ${head(expected.trail)}`);
-  if (expected.schema.latestMigration !== found.schema.latestMigration) out.push(`schema ${found.schema.latestMigration}; the manifest says ${expected.schema.latestMigration}`);
+  if (expected.schema.latestMigration !== found.schema.latestMigration)
+    out.push(`schema ${found.schema.latestMigration}; the manifest says ${expected.schema.latestMigration}`);
   return out;
 }
 
@@ -194,7 +195,9 @@ export async function restoreBackup(databaseUrl: string, file: string, options: 
 
     const [[left]] = await c.query<Rows>('SELECT COUNT(*) AS n FROM information_schema.TABLES WHERE TABLE_SCHEMA = ?', [previous]);
     if (Number(left!['n']) > 0) {
-      throw new RestoreRefusedError(`${previous} still holds the tables an earlier restore could not put back. Look at them, drop ${previous}, then restore again.`);
+      throw new RestoreRefusedError(
+        `${previous} still holds the tables an earlier restore could not put back. Look at them, drop ${previous}, then restore again.`,
+      );
     }
 
     log(`Loading the backup of ${manifest.createdAt} into the scratch database ${scratch}…`);

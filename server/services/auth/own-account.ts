@@ -41,7 +41,12 @@ export async function updatePreferences(db: Knex, actor: Actor, userId: number, 
     if (user.units === units) return;
     const now = new Date();
     await updateUserRow(trx, userId, { units, updated_at: now });
-    await appendTrailEvent(trx, actor, { type: TRAIL_EVENTS.preferencesChanged, entityType: 'user', entityId: userId, before: { units: user.units }, after: { units } }, now);
+    await appendTrailEvent(
+      trx,
+      actor,
+      { type: TRAIL_EVENTS.preferencesChanged, entityType: 'user', entityId: userId, before: { units: user.units }, after: { units } },
+      now,
+    );
   });
   return reload(db, userId);
 }

@@ -45,7 +45,11 @@ export async function requestPasswordReset(db: Knex, actor: Actor, mail: MailSet
         const recent = await countRecentTokens(trx, [user.id], 'password-reset', new Date(now.getTime() - HOUR_MS));
         if (recent >= RESETS_PER_HOUR) continue;
         const link = await issueToken(trx, user.id, 'password-reset', null, now);
-        await enqueueMail(trx, passwordResetMail(mail, { to: user.email, displayName: user.display_name, username: user.username, labName, token: link.token }), now);
+        await enqueueMail(
+          trx,
+          passwordResetMail(mail, { to: user.email, displayName: user.display_name, username: user.username, labName, token: link.token }),
+          now,
+        );
         await appendTrailEvent(
           trx,
           actor,
@@ -74,13 +78,17 @@ export async function setPasswordWithLink(db: Knex, actor: Actor, token: string,
   const passwordHash = await hashPassword(newPassword);
   return db.transaction(async (trx) => {
     const { user } = await redeemToken(trx, token, now);
-    await replacePassword(trx, { ...actor, userId: user.id, name: user.display_name }, {
-      userId: user.id,
-      passwordHash,
-      mustChange: false,
-      mustChangeBefore: Boolean(user.must_change_password),
-      byLink: true,
-    });
+    await replacePassword(
+      trx,
+      { ...actor, userId: user.id, name: user.display_name },
+      {
+        userId: user.id,
+        passwordHash,
+        mustChange: false,
+        mustChangeBefore: Boolean(user.must_change_password),
+        byLink: true,
+      },
+    );
     return { message: `Your password is set. Sign in as ${user.username} with your new password.` };
   });
 }

@@ -34,7 +34,12 @@ export async function signIn(db: Knex, attempt: SignInAttempt): Promise<SessionU
   if (!row || !ok) {
     await db.transaction(async (trx) => {
       await recordSignInFailure(trx);
-      await appendTrailEvent(trx, actor, { type: TRAIL_EVENTS.signInFailed, entityType: 'user', entityId: row?.id ?? null, after: { reason: 'bad credentials' } });
+      await appendTrailEvent(trx, actor, {
+        type: TRAIL_EVENTS.signInFailed,
+        entityType: 'user',
+        entityId: row?.id ?? null,
+        after: { reason: 'bad credentials' },
+      });
     });
     throw new AppError(401, 'BAD_CREDENTIALS', [{ path: '', message: BAD_CREDENTIALS_MESSAGE }]);
   }
@@ -42,7 +47,11 @@ export async function signIn(db: Knex, attempt: SignInAttempt): Promise<SessionU
   if (!row.active) {
     // Told plainly only to someone who knows the password; it is not counted as guessing.
     await releaseSignInAttempt(db, attemptId);
-    await appendTrailEvent(db, { ...actor, userId: row.id, name: row.display_name }, { type: TRAIL_EVENTS.signInFailed, entityType: 'user', entityId: row.id, after: { reason: 'deactivated' } });
+    await appendTrailEvent(
+      db,
+      { ...actor, userId: row.id, name: row.display_name },
+      { type: TRAIL_EVENTS.signInFailed, entityType: 'user', entityId: row.id, after: { reason: 'deactivated' } },
+    );
     throw new AppError(401, 'BAD_CREDENTIALS', [{ path: '', message: DEACTIVATED_MESSAGE }]);
   }
 
@@ -51,7 +60,12 @@ export async function signIn(db: Knex, attempt: SignInAttempt): Promise<SessionU
     const now = new Date();
     await updateUserRow(trx, row.id, { last_sign_in_at: now, ...(newHash ? { password_hash: newHash } : {}) });
     await clearSignInFailures(trx, name, attempt.clientAddress);
-    await appendTrailEvent(trx, { ...actor, userId: row.id, name: row.display_name }, { type: TRAIL_EVENTS.signedIn, entityType: 'user', entityId: row.id }, now);
+    await appendTrailEvent(
+      trx,
+      { ...actor, userId: row.id, name: row.display_name },
+      { type: TRAIL_EVENTS.signedIn, entityType: 'user', entityId: row.id },
+      now,
+    );
     const user = (await findUserById(trx, row.id))!;
     return { ...toUserDto(user), sessionEpoch: user.session_epoch };
   });

@@ -95,8 +95,7 @@ export function buildSheetModel(input: SheetInput): SheetModel {
   const { material, machine, wheel } = ctx;
   const effective = v.workflow?.effectiveFrom ?? '—';
 
-  const size =
-    c.scope.sizeMinMm === c.scope.sizeMaxMm ? `Ø ${len(c.scope.sizeMaxMm)}` : `Ø ${len(c.scope.sizeMinMm)} to ${len(c.scope.sizeMaxMm)}`;
+  const size = c.scope.sizeMinMm === c.scope.sizeMaxMm ? `Ø ${len(c.scope.sizeMaxMm)}` : `Ø ${len(c.scope.sizeMinMm)} to ${len(c.scope.sizeMaxMm)}`;
   const sizeLine =
     c.scope.shape === 'round-bar'
       ? size
@@ -107,7 +106,9 @@ export function buildSheetModel(input: SheetInput): SheetModel {
   const scope: Row[] = [
     {
       label: 'Material',
-      value: material ? `${material.name}${material.designation ? ` (${material.designation})` : ''}${material.condition ? `, ${material.condition}` : ''}` : 'Any material of the group',
+      value: material
+        ? `${material.name}${material.designation ? ` (${material.designation})` : ''}${material.condition ? `, ${material.condition}` : ''}`
+        : 'Any material of the group',
     },
     { label: 'Material group', value: MATERIAL_GROUP_LABELS[c.scope.group] },
     { label: 'Hardness', value: hardnessText(c.scope.hardness, material?.hardness) },

@@ -67,7 +67,10 @@ function withLayoutCache(font: fontkit.Font): fontkit.Font {
       if (cache.size >= LAYOUT_CACHE_MAX) cache.clear();
       cache.set(key, run);
     }
-    return new CopiedRun(run.glyphs, run.positions.map((p) => ({ ...p }))) as unknown as LayoutRun;
+    return new CopiedRun(
+      run.glyphs,
+      run.positions.map((p) => ({ ...p })),
+    ) as unknown as LayoutRun;
   };
   return font;
 }

@@ -170,7 +170,9 @@ export class SheetWriter {
         const x = this.left + j * half;
         this.fillRect(x, top + 0.25, labelWidth, height - 0.5);
         this.place(row.label, x + CELL.padX, top + CELL.padY + 0.6, 'regular', TYPE.label, { width: labelWidth - 2 * CELL.padX }, MUTED);
-        this.place(row.value, x + labelWidth + CELL.padX, top + CELL.padY, row.strong ? 'bold' : 'regular', TYPE.body, { width: half - labelWidth - 2 * CELL.padX });
+        this.place(row.value, x + labelWidth + CELL.padX, top + CELL.padY, row.strong ? 'bold' : 'regular', TYPE.body, {
+          width: half - labelWidth - 2 * CELL.padX,
+        });
         this.vrule(x + labelWidth, top, top + height);
         if (j === 1) this.vrule(x, top, top + height);
       });

@@ -61,7 +61,10 @@ function inlineRuns(tokens: readonly Token[] | undefined, bold: boolean, out: Ru
         const link = token as Tokens.Link;
         const before = out.length;
         inlineRuns(link.tokens, bold, out);
-        const shown = out.slice(before).map((r) => r.text).join('');
+        const shown = out
+          .slice(before)
+          .map((r) => r.text)
+          .join('');
         if (link.href && shown !== link.href) out.push({ text: ` (${link.href})`, bold: false });
         break;
       }
@@ -98,7 +101,8 @@ function listBlocks(list: Tokens.List, depth: number, out: SheetBlock[]): void {
         continue;
       }
       if (child.type === 'space') continue;
-      const runs = child.type === 'text' || child.type === 'paragraph' ? inlineRuns((child as Tokens.Text).tokens ?? [child], false, []) : inlineRuns([child], false, []);
+      const runs =
+        child.type === 'text' || child.type === 'paragraph' ? inlineRuns((child as Tokens.Text).tokens ?? [child], false, []) : inlineRuns([child], false, []);
       out.push({ runs, marker: first ? marker : '', depth, heading: false });
       first = false;
     }
@@ -136,7 +140,14 @@ export function markdownBlocks(markdown: string): SheetBlock[] {
           break;
         case 'table': {
           const table = token as Tokens.Table;
-          const line = (cells: Tokens.TableCell[]) => cells.map((c) => inlineRuns(c.tokens, false, []).map((r) => r.text).join('')).join(' | ');
+          const line = (cells: Tokens.TableCell[]) =>
+            cells
+              .map((c) =>
+                inlineRuns(c.tokens, false, [])
+                  .map((r) => r.text)
+                  .join(''),
+              )
+              .join(' | ');
           out.push({ runs: [{ text: line(table.header), bold: true }], marker: '', depth: 0, heading: false });
           for (const row of table.rows) out.push({ runs: [{ text: line(row), bold: false }], marker: '', depth: 0, heading: false });
           break;

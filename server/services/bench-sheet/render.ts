@@ -33,7 +33,15 @@ function header(w: SheetWriter, m: SheetModel, qr: Buffer): void {
   w.place(m.labName.toUpperCase(), w.left, top, 'bold', 8, { characterSpacing: 0.8, lineBreak: false, width: w.width * 0.6, ellipsis: true });
   w.use('regular', 7.5, MUTED);
   const kind = 'BENCH SHEET · CUTTING RECIPE';
-  w.place(kind, w.right - w.doc.widthOfString(kind, { characterSpacing: 0.8 }) - 1, top + 0.5, 'regular', 7.5, { characterSpacing: 0.8, lineBreak: false }, MUTED);
+  w.place(
+    kind,
+    w.right - w.doc.widthOfString(kind, { characterSpacing: 0.8 }) - 1,
+    top + 0.5,
+    'regular',
+    7.5,
+    { characterSpacing: 0.8, lineBreak: false },
+    MUTED,
+  );
 
   const boxTop = top + 14;
   const sideWidth = 124;
@@ -128,7 +136,10 @@ function cautionsBox(w: SheetWriter): void {
     }
   }
   const right = items.slice(left.length);
-  const colHeight = Math.max(acc, right.reduce((s, i) => s + i.height, 0));
+  const colHeight = Math.max(
+    acc,
+    right.reduce((s, i) => s + i.height, 0),
+  );
   const precedenceHeight = w.heightOf(PRECEDENCE_LINE, 'bold', TYPE.small + 0.5, w.width - 2 * pad);
   const claimHeight = w.heightOf(NO_SAFETY_CLAIM, 'regular', TYPE.small, w.width - 2 * pad);
   const boxHeight = pad + 16 + colHeight + 4 + precedenceHeight + 2 + claimHeight + pad;
@@ -140,7 +151,16 @@ function cautionsBox(w: SheetWriter): void {
   w.fillRect(w.left, top, w.width, 20, TINT);
   const tx = w.left + pad;
   const ty = top + 4;
-  w.doc.save().moveTo(tx + 6, ty).lineTo(tx + 12, ty + 11).lineTo(tx, ty + 11).closePath().lineWidth(1).strokeColor(INK).stroke().restore();
+  w.doc
+    .save()
+    .moveTo(tx + 6, ty)
+    .lineTo(tx + 12, ty + 11)
+    .lineTo(tx, ty + 11)
+    .closePath()
+    .lineWidth(1)
+    .strokeColor(INK)
+    .stroke()
+    .restore();
   w.place('!', tx + 4.4, ty + 2.2, 'bold', 7, { lineBreak: false });
   w.place('STANDARD CAUTIONS', tx + 18, top + 5, 'bold', TYPE.heading, { characterSpacing: 0.6, lineBreak: false });
   w.place('Read before every cut', w.right - pad - 110, top + 6.5, 'regular', TYPE.small, { width: 110, align: 'right', lineBreak: false }, MUTED);
@@ -214,7 +234,12 @@ function signatures(w: SheetWriter, m: SheetModel): void {
     w.hrule(top);
   }
   w.y = top + 3;
-  w.paragraph(`Signatures bind the content with SHA-256 ${m.contentHash.slice(0, 16)}…; the full hash and the trail are in Kerfbook.`, 'regular', TYPE.small, MUTED);
+  w.paragraph(
+    `Signatures bind the content with SHA-256 ${m.contentHash.slice(0, 16)}…; the full hash and the trail are in Kerfbook.`,
+    'regular',
+    TYPE.small,
+    MUTED,
+  );
 }
 
 export async function renderSheet(input: SheetRenderInput): Promise<Buffer> {

@@ -50,7 +50,10 @@ export function reviewRequestedMail(settings: MailSettings, to: Recipient, v: Ve
     'review-requested',
     to,
     `Review requested: ${versionName(v)}`,
-    [`${submittedBy} sent ${versionName(v)} for review.`, 'You did not write or edit this version, so you can review it and approve it or return it to its author.'],
+    [
+      `${submittedBy} sent ${versionName(v)} for review.`,
+      'You did not write or edit this version, so you can review it and approve it or return it to its author.',
+    ],
     { label: 'Review the version', path: `/recipes/${v.recipeId}/review` },
   );
 }
@@ -66,7 +69,14 @@ export function versionReturnedMail(settings: MailSettings, to: Recipient, v: Ve
   );
 }
 
-export function versionApprovedMail(settings: MailSettings, to: Recipient, v: VersionRef, approvedBy: string, effectiveFrom: string, current: boolean): OutgoingMail {
+export function versionApprovedMail(
+  settings: MailSettings,
+  to: Recipient,
+  v: VersionRef,
+  approvedBy: string,
+  effectiveFrom: string,
+  current: boolean,
+): OutgoingMail {
   const when = current ? 'It is in use from today.' : `It comes into use on ${effectiveFrom}.`;
   return mail(settings, 'review-outcome', to, `Approved: ${versionName(v)}`, [`${approvedBy} approved ${versionName(v)}.`, when], {
     label: 'Open the recipe',
@@ -74,7 +84,14 @@ export function versionApprovedMail(settings: MailSettings, to: Recipient, v: Ve
   });
 }
 
-export function versionCurrentMail(settings: MailSettings, to: Recipient, v: VersionRef, machineName: string, changeReason: string, replaces: number | null): OutgoingMail {
+export function versionCurrentMail(
+  settings: MailSettings,
+  to: Recipient,
+  v: VersionRef,
+  machineName: string,
+  changeReason: string,
+  replaces: number | null,
+): OutgoingMail {
   const what =
     replaces === null
       ? v.version === 1
@@ -104,7 +121,9 @@ export interface FlaggedCut {
 }
 
 export function cutFlaggedMail(settings: MailSettings, to: Recipient, v: VersionRef, cut: FlaggedCut): OutgoingMail {
-  const paragraphs = [`${cut.operatorName} recorded a cut with ${versionName(v)} on specimen ${cut.specimenId}: ${CUT_OUTCOME_LABELS[cut.outcome].toLowerCase()}.`];
+  const paragraphs = [
+    `${cut.operatorName} recorded a cut with ${versionName(v)} on specimen ${cut.specimenId}: ${CUT_OUTCOME_LABELS[cut.outcome].toLowerCase()}.`,
+  ];
   if (cut.notes.trim()) paragraphs.push(`Their notes: ${cut.notes.trim()}`);
   paragraphs.push('Look at the cut and clear the flag once you have dealt with it.');
   return mail(settings, 'cut-flagged', to, `Cut flagged: ${versionName(v)}`, paragraphs, { label: 'See the cuts', path: `${recipePath(v)}&tab=cuts` });

@@ -24,12 +24,27 @@ async function enqueueAll(trx: Knex.Transaction, recipients: readonly Recipient[
   return recipients.length;
 }
 
-export async function notifyReviewRequested(trx: Knex.Transaction, settings: MailSettings, versionId: number, v: VersionRef, submitter: { userId: number | null; name: string }, now: Date): Promise<number> {
+export async function notifyReviewRequested(
+  trx: Knex.Transaction,
+  settings: MailSettings,
+  versionId: number,
+  v: VersionRef,
+  submitter: { userId: number | null; name: string },
+  now: Date,
+): Promise<number> {
   const to = await reviewersOf(trx, versionId, submitter.userId);
   return enqueueAll(trx, to, (r) => reviewRequestedMail(settings, r, v, submitter.name), now);
 }
 
-export async function notifyReturned(trx: Knex.Transaction, settings: MailSettings, versionId: number, v: VersionRef, returnedBy: string, comment: string, now: Date): Promise<number> {
+export async function notifyReturned(
+  trx: Knex.Transaction,
+  settings: MailSettings,
+  versionId: number,
+  v: VersionRef,
+  returnedBy: string,
+  comment: string,
+  now: Date,
+): Promise<number> {
   const to = await authorsOf(trx, versionId, 'review-outcome');
   return enqueueAll(trx, to, (r) => versionReturnedMail(settings, r, v, returnedBy, comment), now);
 }
@@ -62,12 +77,27 @@ export async function notifyVersionCurrent(
   return enqueueAll(trx, to, (r) => versionCurrentMail(settings, r, v, machineName, target.changeReason, target.replaces), now);
 }
 
-export async function notifyCutFlagged(trx: Knex.Transaction, settings: MailSettings, versionId: number, v: VersionRef, cut: FlaggedCut, now: Date): Promise<number> {
+export async function notifyCutFlagged(
+  trx: Knex.Transaction,
+  settings: MailSettings,
+  versionId: number,
+  v: VersionRef,
+  cut: FlaggedCut,
+  now: Date,
+): Promise<number> {
   const to = await authorsOf(trx, versionId, 'cut-flagged');
   return enqueueAll(trx, to, (r) => cutFlaggedMail(settings, r, v, cut), now);
 }
 
-export async function notifyReviewDue(trx: Knex.Transaction, settings: MailSettings, versionId: number, v: VersionRef, dueOn: string, today: string, now: Date): Promise<number> {
+export async function notifyReviewDue(
+  trx: Knex.Transaction,
+  settings: MailSettings,
+  versionId: number,
+  v: VersionRef,
+  dueOn: string,
+  today: string,
+  now: Date,
+): Promise<number> {
   const to = await authorsOf(trx, versionId, 'review-due');
   return enqueueAll(trx, to, (r) => reviewDueMail(settings, r, v, dueOn, today), now);
 }

@@ -26,7 +26,12 @@ export async function getNotificationPreferences(db: Knex, userId: number): Prom
   };
 }
 
-export async function updateNotificationPreferences(db: Knex, actor: Actor, userId: number, changes: NotificationPreferencesBody): Promise<NotificationPreferencesDto> {
+export async function updateNotificationPreferences(
+  db: Knex,
+  actor: Actor,
+  userId: number,
+  changes: NotificationPreferencesBody,
+): Promise<NotificationPreferencesDto> {
   await db.transaction(async (trx) => {
     const off = new Set(await optedOutKinds(trx, userId));
     const before: Record<string, boolean> = {};

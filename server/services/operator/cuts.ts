@@ -78,7 +78,9 @@ export async function recordCut(
     if (recipe.current_version_id !== target.id) {
       const current = recipe.current_version_id === null ? undefined : await findVersionById(trx, recipe.current_version_id);
       const state = target.status === 'approved' ? 'approved but not in force yet' : RECIPE_STATUS_PHRASES[target.status];
-      const where = current ? `Use version ${current.version}, the one in force.` : `${recipe.number} has no version in force, so no cuts can be recorded on it.`;
+      const where = current
+        ? `Use version ${current.version}, the one in force.`
+        : `${recipe.number} has no version in force, so no cuts can be recorded on it.`;
       throw AppError.conflict(`Version ${version} of ${recipe.number} is ${state}: cuts are recorded only on the current version. ${where}`);
     }
     const cutId = await insertCut(trx, {
@@ -95,7 +97,14 @@ export async function recordCut(
     });
     if (body.outcome !== 'good') {
       const ref = { recipeId, number: recipe.number, version: target.version, title: target.title };
-      await notifyCutFlagged(trx, mail, target.id, ref, { operatorName: actor.name, specimenId: body.specimenId, outcome: body.outcome, notes: body.notes }, now);
+      await notifyCutFlagged(
+        trx,
+        mail,
+        target.id,
+        ref,
+        { operatorName: actor.name, specimenId: body.specimenId, outcome: body.outcome, notes: body.notes },
+        now,
+      );
     }
     await appendTrailEvent(
       trx,
@@ -105,7 +114,16 @@ export async function recordCut(
         entityType: 'recipe_version',
         entityId: target.id,
         before: null,
-        after: { cutId, versionId: target.id, version, specimenId: body.specimenId, partRef: body.partRef, quantity: body.quantity, outcome: body.outcome, notes: body.notes },
+        after: {
+          cutId,
+          versionId: target.id,
+          version,
+          specimenId: body.specimenId,
+          partRef: body.partRef,
+          quantity: body.quantity,
+          outcome: body.outcome,
+          notes: body.notes,
+        },
       },
       now,
     );
@@ -120,10 +138,29 @@ export async function listVersionCuts(db: Knex, scope: VersionScope, recipeId: n
   return (await listCutsOfVersion(db, target.id)).map(toCutRecordDto);
 }
 
-const CSV_HEADER = ['cut_id', 'recipe', 'version', 'specimen_id', 'part_lot_heat', 'quantity', 'outcome', 'notes', 'operator_id', 'operator_name', 'cut_at_utc', 'flag_cleared_at_utc'];
+const CSV_HEADER = [
+  'cut_id',
+  'recipe',
+  'version',
+  'specimen_id',
+  'part_lot_heat',
+  'quantity',
+  'outcome',
+  'notes',
+  'operator_id',
+  'operator_name',
+  'cut_at_utc',
+  'flag_cleared_at_utc',
+];
 
 /** The version's cuts as CSV (RFC 4180, UTF-8 with BOM, formula-like cells made inert). */
-export async function versionCutsCsv(db: Knex, scope: VersionScope, recipeId: number, version: number, now = new Date()): Promise<{ fileName: string; text: string }> {
+export async function versionCutsCsv(
+  db: Knex,
+  scope: VersionScope,
+  recipeId: number,
+  version: number,
+  now = new Date(),
+): Promise<{ fileName: string; text: string }> {
   const target = await visibleVersion(db, scope, recipeId, version);
   const cuts = (await listCutsOfVersion(db, target.id)).map(toCutRecordDto);
   const lines = cuts.map((c) =>
@@ -137,7 +174,10 @@ export async function versionCutsCsv(db: Knex, scope: VersionScope, recipeId: nu
 export async function traceSpecimen(db: Knex, specimenId: string): Promise<CutTrace[]> {
   const cuts = await listCutsOfSpecimen(db, specimenId, SPECIMEN_LIMIT);
   const versionIds = [...new Set(cuts.map((c) => c.version_id))];
-  const [signatures, versions] = await Promise.all([listSignatureRows(db, versionIds), db('recipe_versions').whereIn('id', versionIds).select('id', 'content_json')]);
+  const [signatures, versions] = await Promise.all([
+    listSignatureRows(db, versionIds),
+    db('recipe_versions').whereIn('id', versionIds).select('id', 'content_json'),
+  ]);
   const content = new Map((versions as { id: number; content_json: unknown }[]).map((v) => [v.id, fromJsonColumn<RecipeContent>(v.content_json)]));
   return cuts.map((c) => ({
     cut: toCutRecordDto(c),
@@ -153,7 +193,8 @@ export async function clearFlag(db: Knex, actor: Actor, cutId: number, now = new
     const cut = await lockCut(trx, cutId);
     if (!cut) throw AppError.notFound(`There is no cut record with id ${cutId}.`);
     if (cut.outcome === 'good') throw AppError.conflict(`Cut ${cutId} was good, so it carries no flag to clear.`);
-    if (cut.flag_cleared_at !== null) throw AppError.conflict(`The flag on cut ${cutId} was already cleared at ${new Date(cut.flag_cleared_at).toISOString()}.`);
+    if (cut.flag_cleared_at !== null)
+      throw AppError.conflict(`The flag on cut ${cutId} was already cleared at ${new Date(cut.flag_cleared_at).toISOString()}.`);
     await clearCutFlag(trx, cutId, userId, now);
     await appendTrailEvent(
       trx,

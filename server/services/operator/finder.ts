@@ -68,23 +68,34 @@ interface Match {
   reasons: string[];
 }
 
-function matchHardness(q: FinderQuery & { hardnessValue: number; hardnessScale: HardnessScale }, row: FinderCandidateRow, content: RecipeContent): Match | null {
+function matchHardness(
+  q: FinderQuery & { hardnessValue: number; hardnessScale: HardnessScale },
+  row: FinderCandidateRow,
+  content: RecipeContent,
+): Match | null {
   const group = content.scope.group;
   const scopeWindow = content.scope.hardness;
   let window: HardnessWindow;
   let note = '';
   if (scopeWindow) window = scopeWindow;
-  else if (row.material_id === null) return { score: FINDER_SCORES.hardness, reasons: [`Hardness ${fmt(q.hardnessValue)} ${q.hardnessScale}: the recipe covers any hardness of the group`] };
+  else if (row.material_id === null)
+    return { score: FINDER_SCORES.hardness, reasons: [`Hardness ${fmt(q.hardnessValue)} ${q.hardnessScale}: the recipe covers any hardness of the group`] };
   else if (row.material_hardness_value !== null && row.material_hardness_scale !== null) {
     const typical = row.material_hardness_value;
-    window = { min: typical * (1 - TYPICAL_HARDNESS_TOLERANCE), max: typical * (1 + TYPICAL_HARDNESS_TOLERANCE), scale: row.material_hardness_scale as HardnessScale };
+    window = {
+      min: typical * (1 - TYPICAL_HARDNESS_TOLERANCE),
+      max: typical * (1 + TYPICAL_HARDNESS_TOLERANCE),
+      scale: row.material_hardness_scale as HardnessScale,
+    };
     note = ` (the material's typical ${fmt(typical)} ${window.scale} ± ${TYPICAL_HARDNESS_TOLERANCE * 100} %)`;
   } else return null; // no window and no typical hardness: nothing to check the part against
   const value = onScale(q.hardnessValue, q.hardnessScale, window.scale, group);
   if (value === null || value < window.min || value > window.max) return null;
   return {
     score: FINDER_SCORES.hardness,
-    reasons: [`Hardness ${partHardnessWords(q.hardnessValue, q.hardnessScale, value, window.scale)} within ${fmt(window.min)}–${fmt(window.max)} ${window.scale}${note}`],
+    reasons: [
+      `Hardness ${partHardnessWords(q.hardnessValue, q.hardnessScale, value, window.scale)} within ${fmt(window.min)}–${fmt(window.max)} ${window.scale}${note}`,
+    ],
   };
 }
 
@@ -99,13 +110,19 @@ function match(q: FinderQuery, partGroup: MaterialGroup | undefined, row: Finder
   };
 
   if (q.materialId !== undefined) {
-    if (row.material_id === q.materialId) add({ score: FINDER_SCORES.material, reasons: [`Material: ${materialWords(row.material_name ?? '', row.material_designation)}`] });
+    if (row.material_id === q.materialId)
+      add({ score: FINDER_SCORES.material, reasons: [`Material: ${materialWords(row.material_name ?? '', row.material_designation)}`] });
     else if (row.material_id === null && row.material_group === partGroup)
       add({ score: FINDER_SCORES.group, reasons: [`Group: ${MATERIAL_GROUP_LABELS[partGroup]} (the recipe covers the whole group)`] });
     else return null;
   } else if (partGroup !== undefined) {
     if (row.material_group !== partGroup) return null;
-    add({ score: FINDER_SCORES.group, reasons: [`Group: ${MATERIAL_GROUP_LABELS[partGroup]}${row.material_name ? ` (written for ${materialWords(row.material_name, row.material_designation)})` : ''}`] });
+    add({
+      score: FINDER_SCORES.group,
+      reasons: [
+        `Group: ${MATERIAL_GROUP_LABELS[partGroup]}${row.material_name ? ` (written for ${materialWords(row.material_name, row.material_designation)})` : ''}`,
+      ],
+    });
   }
 
   if (q.hardnessValue !== undefined && q.hardnessScale !== undefined) {
@@ -122,7 +139,10 @@ function match(q: FinderQuery, partGroup: MaterialGroup | undefined, row: Finder
     const width = row.size_max_mm - row.size_min_mm;
     // 10 points for a window 10 mm wide or less, falling off as the window widens.
     const tightness = FINDER_SCORES.sizeTightness * Math.min(1, 10 / Math.max(width, 1));
-    add({ score: FINDER_SCORES.size + Math.round(tightness * 10) / 10, reasons: [`Size ${fmt(q.sizeMm)} mm within ${fmt(row.size_min_mm)}–${fmt(row.size_max_mm)} mm`] });
+    add({
+      score: FINDER_SCORES.size + Math.round(tightness * 10) / 10,
+      reasons: [`Size ${fmt(q.sizeMm)} mm within ${fmt(row.size_min_mm)}–${fmt(row.size_max_mm)} mm`],
+    });
   }
 
   if (q.machineId !== undefined) {
@@ -143,7 +163,12 @@ export async function findRecipes(db: Knex, q: FinderQuery): Promise<FinderHit[]
     const material = await findStockRow<MaterialRow>(db, 'materials', q.materialId);
     if (!material) throw AppError.validation([{ path: 'materialId', message: `There is no material with id ${q.materialId}.` }]);
     if (q.group !== undefined && q.group !== material.material_group)
-      throw AppError.validation([{ path: 'group', message: `${material.name} is in the group ${MATERIAL_GROUP_LABELS[material.material_group]}, not ${MATERIAL_GROUP_LABELS[q.group]}.` }]);
+      throw AppError.validation([
+        {
+          path: 'group',
+          message: `${material.name} is in the group ${MATERIAL_GROUP_LABELS[material.material_group]}, not ${MATERIAL_GROUP_LABELS[q.group]}.`,
+        },
+      ]);
     partGroup = material.material_group;
   }
 

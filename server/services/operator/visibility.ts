@@ -31,7 +31,11 @@ export function canSeeStatus(scope: VersionScope, status: RecipeStatus): boolean
 }
 
 async function releasedVersionCount(db: Knex, recipeId: number): Promise<number> {
-  const row = (await db('recipe_versions').where({ recipe_id: recipeId }).whereIn('status', [...RELEASED_STATUSES]).count<{ n: number }[]>({ n: '*' }).first()) as { n: number };
+  const row = (await db('recipe_versions')
+    .where({ recipe_id: recipeId })
+    .whereIn('status', [...RELEASED_STATUSES])
+    .count<{ n: number }[]>({ n: '*' })
+    .first()) as { n: number };
   return Number(row.n);
 }
 

@@ -133,7 +133,12 @@ export async function inviteUser(db: Knex, actor: Actor, mail: MailSettings, inp
       const link = await issueToken(trx, id, 'invitation', actor.userId, now);
       const created = await mustFind(trx, id);
       await enqueueMail(trx, invitationMail(mail, await invitationContent(trx, actor, created, link.token)), now);
-      await appendTrailEvent(trx, actor, { type: TRAIL_EVENTS.userInvited, entityType: 'user', entityId: id, before: null, after: trailSnapshot(created) }, now);
+      await appendTrailEvent(
+        trx,
+        actor,
+        { type: TRAIL_EVENTS.userInvited, entityType: 'user', entityId: id, before: null, after: trailSnapshot(created) },
+        now,
+      );
       return toUserDto(created);
     });
   } catch (err) {
@@ -158,7 +163,12 @@ export async function resendInvitation(db: Knex, actor: Actor, mail: MailSetting
     if (!user.email) throw AppError.conflict(`${user.display_name} has no e-mail address; add one first.`, 'email');
     const link = await issueToken(trx, id, 'invitation', actor.userId, now);
     await enqueueMail(trx, invitationMail(mail, await invitationContent(trx, actor, user, link.token)), now);
-    await appendTrailEvent(trx, actor, { type: TRAIL_EVENTS.invitationResent, entityType: 'user', entityId: id, before: null, after: { email: user.email } }, now);
+    await appendTrailEvent(
+      trx,
+      actor,
+      { type: TRAIL_EVENTS.invitationResent, entityType: 'user', entityId: id, before: null, after: { email: user.email } },
+      now,
+    );
     return { message: `A new invitation is on its way to ${user.email}. It works for 72 hours; the earlier link no longer works.` };
   });
 }
@@ -200,12 +210,22 @@ export async function updateUser(db: Knex, actor: Actor, id: number, input: Upda
         ...(details['email'] !== undefined ? { email: details['email'] } : {}),
         updated_at: now,
       });
-      await appendTrailEvent(trx, actor, { type: TRAIL_EVENTS.userDetailsChanged, entityType: 'user', entityId: id, before: detailsBefore, after: details }, now);
+      await appendTrailEvent(
+        trx,
+        actor,
+        { type: TRAIL_EVENTS.userDetailsChanged, entityType: 'user', entityId: id, before: detailsBefore, after: details },
+        now,
+      );
     }
     if (rolesChange) {
       await replaceRoles(trx, id, newRoles);
       await updateUserRow(trx, id, { updated_at: now });
-      await appendTrailEvent(trx, actor, { type: TRAIL_EVENTS.userRolesChanged, entityType: 'user', entityId: id, before: { roles: before.roles }, after: { roles: newRoles } }, now);
+      await appendTrailEvent(
+        trx,
+        actor,
+        { type: TRAIL_EVENTS.userRolesChanged, entityType: 'user', entityId: id, before: { roles: before.roles }, after: { roles: newRoles } },
+        now,
+      );
     }
     if (machinesChange) {
       await replaceUserMachines(trx, id, newMachines, now);
@@ -213,7 +233,13 @@ export async function updateUser(db: Knex, actor: Actor, id: number, input: Upda
       await appendTrailEvent(
         trx,
         actor,
-        { type: TRAIL_EVENTS.userMachinesChanged, entityType: 'user', entityId: id, before: { machineIds: before.machine_ids }, after: { machineIds: newMachines } },
+        {
+          type: TRAIL_EVENTS.userMachinesChanged,
+          entityType: 'user',
+          entityId: id,
+          before: { machineIds: before.machine_ids },
+          after: { machineIds: newMachines },
+        },
         now,
       );
     }
@@ -233,7 +259,12 @@ export async function deactivateUser(db: Knex, actor: Actor, id: number): Promis
     // Ends every session the person has open.
     await bumpSessionEpoch(trx, id);
     const after = await mustFind(trx, id);
-    await appendTrailEvent(trx, actor, { type: TRAIL_EVENTS.userDeactivated, entityType: 'user', entityId: id, before: { active: true }, after: { active: false } }, now);
+    await appendTrailEvent(
+      trx,
+      actor,
+      { type: TRAIL_EVENTS.userDeactivated, entityType: 'user', entityId: id, before: { active: true }, after: { active: false } },
+      now,
+    );
     return toUserDto(after);
   });
 }
@@ -245,7 +276,12 @@ export async function reactivateUser(db: Knex, actor: Actor, id: number): Promis
     const now = new Date();
     await updateUserRow(trx, id, { active: true, deactivated_at: null, updated_at: now });
     const after = await mustFind(trx, id);
-    await appendTrailEvent(trx, actor, { type: TRAIL_EVENTS.userReactivated, entityType: 'user', entityId: id, before: { active: false }, after: { active: true } }, now);
+    await appendTrailEvent(
+      trx,
+      actor,
+      { type: TRAIL_EVENTS.userReactivated, entityType: 'user', entityId: id, before: { active: false }, after: { active: true } },
+      now,
+    );
     return toUserDto(after);
   });
 }

@@ -42,7 +42,11 @@ async function concerns(db: Knex, viewer: Viewer, v: Pick<VersionRow, 'status' |
 }
 
 /** `RecipeVersionDto.myAcknowledgement`: for an operator of the machine while the version is approved, else null. */
-export async function myAcknowledgement(db: Knex, viewer: Viewer | undefined, v: Pick<VersionRow, 'id' | 'status' | 'machine_id'>): Promise<MyAcknowledgementDto | null> {
+export async function myAcknowledgement(
+  db: Knex,
+  viewer: Viewer | undefined,
+  v: Pick<VersionRow, 'id' | 'status' | 'machine_id'>,
+): Promise<MyAcknowledgementDto | null> {
   if (!viewer || !(await concerns(db, viewer, v))) return null;
   return myDto(await findAcknowledgement(db, v.id, viewer.id));
 }
@@ -63,7 +67,15 @@ function isDuplicate(err: unknown): boolean {
 }
 
 /** POST /api/recipes/:id/versions/:n/acknowledge */
-export async function acknowledgeVersion(db: Knex, actor: Actor, viewer: Viewer, scope: VersionScope, recipeId: number, version: number, now = new Date()): Promise<MyAcknowledgementDto> {
+export async function acknowledgeVersion(
+  db: Knex,
+  actor: Actor,
+  viewer: Viewer,
+  scope: VersionScope,
+  recipeId: number,
+  version: number,
+  now = new Date(),
+): Promise<MyAcknowledgementDto> {
   const userId = viewer.id;
   const seen = await visibleVersion(db, scope, recipeId, version);
   const existing = await findAcknowledgement(db, seen.id, userId);
@@ -82,7 +94,10 @@ export async function acknowledgeVersion(db: Knex, actor: Actor, viewer: Viewer,
       }
       if (!viewer.roles.includes('operator') || !(await isOperatorOfMachine(trx, userId, v.machine_id))) {
         const machine = (await findMachineName(trx, v.machine_id)) ?? `machine ${v.machine_id}`;
-        throw AppError.conflict(`Version ${version} of ${seen.number} is for ${machine}, which is not one of your machines, so it is not yours to acknowledge.`, 'machine');
+        throw AppError.conflict(
+          `Version ${version} of ${seen.number} is for ${machine}, which is not one of your machines, so it is not yours to acknowledge.`,
+          'machine',
+        );
       }
       const id = await insertAcknowledgement(trx, { version_id: v.id, user_id: userId, user_name: actor.name.slice(0, 100), acknowledged_at: now });
       await appendTrailEvent(

@@ -32,11 +32,21 @@ async function draftVersion(db: Knex, recipeId: number, version: number): Promis
 /** Keeps a name safe to show and to put in a header: no path, no control characters. */
 function cleanFileName(name: string): string {
   const base = name.split(/[\\/]/).pop() ?? '';
-  const cleaned = base.replace(/[\u0000-\u001f\u007f"]/g, '').trim().slice(0, 200);
+  const cleaned = base
+    .replace(/[\u0000-\u001f\u007f"]/g, '')
+    .trim()
+    .slice(0, 200);
   return cleaned || 'photo';
 }
 
-export async function addAttachment(db: Knex, actor: Actor, recipeId: number, version: number, fields: AttachmentFields, upload: Upload): Promise<AttachmentDto> {
+export async function addAttachment(
+  db: Knex,
+  actor: Actor,
+  recipeId: number,
+  version: number,
+  fields: AttachmentFields,
+  upload: Upload,
+): Promise<AttachmentDto> {
   if (actor.userId === null) throw new Error('Attachments are added by a signed-in person.');
   const userId = actor.userId;
   await draftVersion(db, recipeId, version);
@@ -77,7 +87,15 @@ export async function addAttachment(db: Knex, actor: Actor, recipeId: number, ve
         entityType: 'attachment',
         entityId: newId,
         before: null,
-        after: { versionId: locked.id, role: fields.role, caption: fields.caption, fileName, mimeType: image.mimeType, sizeBytes: upload.bytes.length, sha256: image.sha256 },
+        after: {
+          versionId: locked.id,
+          role: fields.role,
+          caption: fields.caption,
+          fileName,
+          mimeType: image.mimeType,
+          sizeBytes: upload.bytes.length,
+          sha256: image.sha256,
+        },
       },
       now,
     );

@@ -55,9 +55,19 @@ function day(value: Date | string | null): string {
 /** What a printed sheet's code says now. `code` is already validated (checkCodeParam: uppercase, no dash). */
 export async function checkCode(db: Knex, code: string): Promise<CheckCodeResult> {
   const row = await findVersionByCheckCode(db, code);
-  if (!row) throw AppError.notFound(`No sheet has the check code ${formatCheckCode(code)}. Compare it with the sheet; if it matches, do not use the sheet and ask the recipe's author.`);
+  if (!row)
+    throw AppError.notFound(
+      `No sheet has the check code ${formatCheckCode(code)}. Compare it with the sheet; if it matches, do not use the sheet and ask the recipe's author.`,
+    );
   const other = row.current_version !== null && row.current_version !== row.version ? row.current_version : null;
-  const base = { code: formatCheckCode(row.check_code), recipeId: row.recipe_id, number: row.number, title: row.title, version: row.version, currentVersion: other };
+  const base = {
+    code: formatCheckCode(row.check_code),
+    recipeId: row.recipe_id,
+    number: row.number,
+    title: row.title,
+    version: row.version,
+    currentVersion: other,
+  };
 
   if (row.status === 'approved' && row.current_version === row.version) {
     return { ...base, state: 'current', message: `Version ${row.version} is current — this sheet may be used.` };

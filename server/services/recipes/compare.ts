@@ -28,7 +28,14 @@ async function namesOf(db: Knex, table: StockTable, ids: (number | null)[]): Pro
   return new Map(rows.map((r) => [r.id, r.name]));
 }
 
-export async function compareRecipeVersions(db: Knex, recipeId: number, from: number, to: number, pref: UnitPreference, scope: VersionScope = 'all'): Promise<RecipeComparison> {
+export async function compareRecipeVersions(
+  db: Knex,
+  recipeId: number,
+  from: number,
+  to: number,
+  pref: UnitPreference,
+  scope: VersionScope = 'all',
+): Promise<RecipeComparison> {
   const read = (n: number) => (scope === 'all' ? versionOrNotFound(db, recipeId, n) : visibleVersion(db, scope, recipeId, n));
   // Both sides at once; when both are missing, the "from" side's answer is the one given.
   const [sideA, sideB] = await Promise.allSettled([read(from), read(to)]);

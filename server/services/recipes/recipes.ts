@@ -92,7 +92,11 @@ export async function versionDto(db: Knex, recipeId: number, version: number): P
     const recipe = await findRecipeRow(db, recipeId);
     throw AppError.notFound(recipe ? `Recipe ${recipe.number} has no version ${version}.` : `There is no recipe with id ${recipeId}.`);
   }
-  const [attachments, signatures, editors] = await Promise.all([listAttachmentMetaRows(db, [row.id]), listSignatureRows(db, [row.id]), listEditorRows(db, [row.id])]);
+  const [attachments, signatures, editors] = await Promise.all([
+    listAttachmentMetaRows(db, [row.id]),
+    listSignatureRows(db, [row.id]),
+    listEditorRows(db, [row.id]),
+  ]);
   return toVersionDto(row, attachments, { signatures, editors });
 }
 
@@ -126,7 +130,13 @@ export async function createRecipe(db: Knex, actor: Actor, body: CreateRecipeBod
     await appendTrailEvent(
       trx,
       actor,
-      { type: TRAIL_EVENTS.recipeCreated, entityType: 'recipe', entityId: id, before: null, after: { number, title: body.title, version: 1, status: 'draft', worstCheck: values.worst_check } },
+      {
+        type: TRAIL_EVENTS.recipeCreated,
+        entityType: 'recipe',
+        entityId: id,
+        before: null,
+        after: { number, title: body.title, version: 1, status: 'draft', worstCheck: values.worst_check },
+      },
       now,
     );
     return id;
@@ -251,7 +261,12 @@ export async function saveDraft(db: Knex, actor: Actor, recipeId: number, versio
       trailBefore['worstCheck'] = before.worst_check;
       trailAfter['worstCheck'] = values.worst_check;
     }
-    await appendTrailEvent(trx, actor, { type: TRAIL_EVENTS.draftSaved, entityType: 'recipe_version', entityId: before.id, before: trailBefore, after: trailAfter }, now);
+    await appendTrailEvent(
+      trx,
+      actor,
+      { type: TRAIL_EVENTS.draftSaved, entityType: 'recipe_version', entityId: before.id, before: trailBefore, after: trailAfter },
+      now,
+    );
     return true;
   });
 

@@ -42,11 +42,24 @@ export async function addComment(db: Knex, actor: Actor, recipeId: number, versi
   const userId = requireActor(actor);
   const versionId = await versionIdOf(db, recipeId, version);
   const id = await db.transaction(async (trx) => {
-    const commentId = await insertReviewComment(trx, { version_id: versionId, author_id: userId, author_name: actor.name.slice(0, 100), body: body.body, path: body.path, created_at: now });
+    const commentId = await insertReviewComment(trx, {
+      version_id: versionId,
+      author_id: userId,
+      author_name: actor.name.slice(0, 100),
+      body: body.body,
+      path: body.path,
+      created_at: now,
+    });
     await appendTrailEvent(
       trx,
       actor,
-      { type: TRAIL_EVENTS.reviewCommentAdded, entityType: 'recipe_version', entityId: versionId, before: null, after: { commentId, versionId, path: body.path, body: body.body } },
+      {
+        type: TRAIL_EVENTS.reviewCommentAdded,
+        entityType: 'recipe_version',
+        entityId: versionId,
+        before: null,
+        after: { commentId, versionId, path: body.path, body: body.body },
+      },
       now,
     );
     return commentId;

@@ -43,7 +43,12 @@ export interface SupersededVersion {
  * The caller holds the recipe row's lock; the older versions are locked here by id.
  * Writes no trail events: the caller writes them last (the trail's head lock comes last).
  */
-export async function makeCurrent(trx: Knex.Transaction, recipe: LockedRecipe, target: Pick<VersionRow, 'id' | 'version'>, now: Date): Promise<SupersededVersion[]> {
+export async function makeCurrent(
+  trx: Knex.Transaction,
+  recipe: LockedRecipe,
+  target: Pick<VersionRow, 'id' | 'version'>,
+  now: Date,
+): Promise<SupersededVersion[]> {
   const states = await listVersionStates(trx, recipe.id);
   const olderIds = states.filter((s) => s.version < target.version && s.status === 'approved').map((s) => s.id);
   const older = (await lockVersionsById(trx, olderIds)).filter((v) => v.status === 'approved');
@@ -58,7 +63,13 @@ export function replacedVersion(superseded: readonly SupersededVersion[]): numbe
 }
 
 /** The trail events of versions superseded by `by`. */
-export async function recordSuperseded(trx: Knex, actor: Actor, superseded: readonly SupersededVersion[], by: { id: number; version: number }, now: Date): Promise<void> {
+export async function recordSuperseded(
+  trx: Knex,
+  actor: Actor,
+  superseded: readonly SupersededVersion[],
+  by: { id: number; version: number },
+  now: Date,
+): Promise<void> {
   for (const s of superseded) {
     await appendTrailEvent(
       trx,

@@ -18,7 +18,11 @@ const MIN_CHARACTERS = 2_000;
 
 const kept = new LRUCache<string, Parts>({
   maxSize: MAX_KEPT_CHARACTERS,
-  sizeCalculation: (parts) => Math.max(1, parts.reduce((n, p) => n + p.value.length, 0)),
+  sizeCalculation: (parts) =>
+    Math.max(
+      1,
+      parts.reduce((n, p) => n + p.value.length, 0),
+    ),
 });
 
 function keyOf(before: string, after: string): string {

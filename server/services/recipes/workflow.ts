@@ -192,7 +192,14 @@ export async function returnVersion(
       const v = await requireVersion(trx, recipeId, version);
       const number = await numberOf(trx, recipeId);
       expectState(number, v, ['in-review'], 'returned', body.revision);
-      const commentId = await insertReviewComment(trx, { version_id: v.id, author_id: userId, author_name: actor.name.slice(0, 100), body: body.comment, path: '', created_at: now });
+      const commentId = await insertReviewComment(trx, {
+        version_id: v.id,
+        author_id: userId,
+        author_name: actor.name.slice(0, 100),
+        body: body.comment,
+        path: '',
+        created_at: now,
+      });
       await updateVersionState(trx, v.id, { status: 'returned' });
       await notifyReturned(trx, mail, v.id, refOf(recipeId, number, v), actor.name, body.comment, now);
       await appendTrailEvent(
@@ -215,9 +222,7 @@ export async function returnVersion(
 // --- approve ------------------------------------------------------------------------------
 
 function ownVersion(): AppError {
-  return new AppError(403, 'OWN_VERSION', [
-    { path: '', message: 'You authored or edited this version, so another approver must review and approve it.' },
-  ]);
+  return new AppError(403, 'OWN_VERSION', [{ path: '', message: 'You authored or edited this version, so another approver must review and approve it.' }]);
 }
 
 async function reviewIntervalMonths(db: Knex): Promise<number> {
@@ -275,7 +280,9 @@ export async function approveVersion(
       const warnings = checks.filter((c) => c.severity === 'warning');
       const unacknowledged = warnings.filter((c) => !body.acknowledgedWarnings.includes(c.id));
       if (unacknowledged.length > 0) {
-        throw AppError.validation(unacknowledged.map((c) => ({ path: 'acknowledgedWarnings', message: `Acknowledge the warning "${c.id}" before signing: ${c.message}` })));
+        throw AppError.validation(
+          unacknowledged.map((c) => ({ path: 'acknowledgedWarnings', message: `Acknowledge the warning "${c.id}" before signing: ${c.message}` })),
+        );
       }
       const acknowledged = [...new Set(warnings.map((c) => c.id))].sort();
 
@@ -338,7 +345,14 @@ export async function approveVersion(
 // --- withdraw -----------------------------------------------------------------------------
 
 /** Approver takes an approved version (current or still to come) out of use, signed, with a reason. */
-export async function withdrawVersion(db: Knex, actor: Actor, recipeId: number, version: number, body: WithdrawBody, now = new Date()): Promise<RecipeVersionDto> {
+export async function withdrawVersion(
+  db: Knex,
+  actor: Actor,
+  recipeId: number,
+  version: number,
+  body: WithdrawBody,
+  now = new Date(),
+): Promise<RecipeVersionDto> {
   const userId = requireActor(actor);
   if (!(await findVersion(db, recipeId, version))) return versionDto(db, recipeId, version); // 404
   const { displayName } = await verifySignerPassword(db, userId, body.password);
@@ -370,7 +384,15 @@ export async function withdrawVersion(db: Knex, actor: Actor, recipeId: number, 
           entityType: 'recipe_version',
           entityId: v.id,
           before: { status: v.status, revision: v.revision, current: wasCurrent },
-          after: { status: 'withdrawn', revision: v.revision + 1, current: false, signatureId, signerName: displayName, meaning: 'withdrawn', reason: body.reason },
+          after: {
+            status: 'withdrawn',
+            revision: v.revision + 1,
+            current: false,
+            signatureId,
+            signerName: displayName,
+            meaning: 'withdrawn',
+            reason: body.reason,
+          },
         },
         now,
       );
@@ -395,11 +417,17 @@ export async function createNextVersion(db: Knex, actor: Actor, recipeId: number
     const source = await lockVersion(trx, recipeId, body.fromVersion);
     if (!source) throw AppError.validation([{ path: 'fromVersion', message: `${recipe.number} has no version ${body.fromVersion}.` }]);
     if (!CLOSED.includes(source.status)) {
-      throw AppError.conflict(`${label(recipe.number, source)} is ${RECIPE_STATUS_PHRASES[source.status]}; a new version starts from an approved, superseded or withdrawn one.`, 'fromVersion');
+      throw AppError.conflict(
+        `${label(recipe.number, source)} is ${RECIPE_STATUS_PHRASES[source.status]}; a new version starts from an approved, superseded or withdrawn one.`,
+        'fromVersion',
+      );
     }
     const open = await findOpenVersion(trx, recipeId);
     if (open) {
-      throw AppError.conflict(`${label(recipe.number, open)} is still ${RECIPE_STATUS_PHRASES[open.status]}. A recipe has one open version at a time: finish that one first.`, 'fromVersion');
+      throw AppError.conflict(
+        `${label(recipe.number, open)} is still ${RECIPE_STATUS_PHRASES[open.status]}. A recipe has one open version at a time: finish that one first.`,
+        'fromVersion',
+      );
     }
     const n = (await maxVersionNumber(trx, recipeId)) + 1;
     const content = { ...(JSON.parse(source.content_json) as RecipeContent), changeReason: body.changeReason };
@@ -427,7 +455,14 @@ export async function createNextVersion(db: Knex, actor: Actor, recipeId: number
         entityType: 'recipe_version',
         entityId: versionId,
         before: null,
-        after: { version: n, status: 'draft', fromVersion: source.version, changeReason: body.changeReason, photosCopied: photos, worstCheck: values.worst_check },
+        after: {
+          version: n,
+          status: 'draft',
+          fromVersion: source.version,
+          changeReason: body.changeReason,
+          photosCopied: photos,
+          worstCheck: values.worst_check,
+        },
       },
       now,
     );

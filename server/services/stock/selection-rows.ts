@@ -73,7 +73,12 @@ export async function createSelectionRow(db: Knex, actor: Actor, body: Selection
     const now = new Date();
     const id = await insertSelectionRowRow(trx, selectionRowValues(body), now);
     const created = await mustFind(trx, id);
-    await appendTrailEvent(trx, actor, { type: TRAIL_EVENTS.selectionRowCreated, entityType: 'selection_row', entityId: id, before: null, after: snapshot(created) }, now);
+    await appendTrailEvent(
+      trx,
+      actor,
+      { type: TRAIL_EVENTS.selectionRowCreated, entityType: 'selection_row', entityId: id, before: null, after: snapshot(created) },
+      now,
+    );
     return created;
   });
 }
@@ -97,6 +102,12 @@ export async function deleteSelectionRow(db: Knex, actor: Actor, id: number): Pr
   await db.transaction(async (trx) => {
     const before = await mustFind(trx, id, true);
     await deleteSelectionRowRow(trx, id);
-    await appendTrailEvent(trx, actor, { type: TRAIL_EVENTS.selectionRowDeleted, entityType: 'selection_row', entityId: id, before: snapshot(before), after: null });
+    await appendTrailEvent(trx, actor, {
+      type: TRAIL_EVENTS.selectionRowDeleted,
+      entityType: 'selection_row',
+      entityId: id,
+      before: snapshot(before),
+      after: null,
+    });
   });
 }

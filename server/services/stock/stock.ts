@@ -7,14 +7,7 @@ import type { Knex } from 'knex';
 import type { Page } from '../../../shared/api-types';
 import type { StockListQuery } from '../../../shared/schemas/stock';
 import { AppError } from '../../app-error';
-import {
-  deleteStockRow,
-  findStockRow,
-  insertStockRow,
-  isStockReferenced,
-  listStockRows,
-  updateStockRow,
-} from '../../data/stock';
+import { deleteStockRow, findStockRow, insertStockRow, isStockReferenced, listStockRows, updateStockRow } from '../../data/stock';
 import type { Actor } from '../actor';
 import { appendTrailEvent } from '../trail/append';
 import { diff } from '../trail/changes';
@@ -85,7 +78,13 @@ async function setArchived<B, R extends AnyRecord>(trx: Knex, actor: Actor, kind
   await appendTrailEvent(
     trx,
     actor,
-    { type: archived ? kind.events.archived : kind.events.unarchived, entityType: kind.entityType, entityId: id, before: { archived: !archived }, after: { archived } },
+    {
+      type: archived ? kind.events.archived : kind.events.unarchived,
+      entityType: kind.entityType,
+      entityId: id,
+      before: { archived: !archived },
+      after: { archived },
+    },
     now,
   );
   return mustFind(trx, kind, id);
@@ -124,17 +123,18 @@ export async function deleteStock<B, R extends AnyRecord>(db: Knex, actor: Actor
       return { archived: true };
     });
   try {
-    return await db.transaction(async (trx) => {
-      const before = await mustFind(trx, kind, id, true);
-      if (await isStockReferenced(trx, kind.table, id)) return null;
-      await deleteStockRow(trx, kind.table, id);
-      await appendTrailEvent(trx, actor, { type: kind.events.deleted, entityType: kind.entityType, entityId: id, before: snapshot(before), after: null });
-      return { archived: false };
-    }).then((result) => result ?? archiveInstead());
+    return await db
+      .transaction(async (trx) => {
+        const before = await mustFind(trx, kind, id, true);
+        if (await isStockReferenced(trx, kind.table, id)) return null;
+        await deleteStockRow(trx, kind.table, id);
+        await appendTrailEvent(trx, actor, { type: kind.events.deleted, entityType: kind.entityType, entityId: id, before: snapshot(before), after: null });
+        return { archived: false };
+      })
+      .then((result) => result ?? archiveInstead());
   } catch (err) {
     // A recipe saved between our look and the delete: the foreign key refuses; archive.
     if (isReferencedError(err)) return archiveInstead();
     throw err;
   }
 }
-

@@ -10,11 +10,37 @@ import { toTrailEventDto } from './stored-row';
 
 // CSV (RFC 4180): CRLF line ends, fields quoted when they hold a quote, comma or line break.
 
-const CSV_HEADER = ['id', 'occurred_at_utc', 'actor_id', 'actor_name', 'type', 'entity_type', 'entity_id', 'before', 'after', 'client_address', 'prev_hash', 'hash'];
+const CSV_HEADER = [
+  'id',
+  'occurred_at_utc',
+  'actor_id',
+  'actor_name',
+  'type',
+  'entity_type',
+  'entity_id',
+  'before',
+  'after',
+  'client_address',
+  'prev_hash',
+  'hash',
+];
 
 function csvRow(e: TrailEventDto): string {
   const text = (v: unknown) => (v === null || v === undefined ? null : JSON.stringify(v));
-  return csvLine([e.id, e.occurredAt, e.actorId, e.actorName, e.type, e.entityType, e.entityId, text(e.before), text(e.after), e.clientAddress, e.prevHash, e.hash]);
+  return csvLine([
+    e.id,
+    e.occurredAt,
+    e.actorId,
+    e.actorName,
+    e.type,
+    e.entityType,
+    e.entityId,
+    text(e.before),
+    text(e.after),
+    e.clientAddress,
+    e.prevHash,
+    e.hash,
+  ]);
 }
 
 export const CSV_BATCH = 1000;

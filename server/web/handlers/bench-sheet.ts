@@ -15,7 +15,8 @@ const HOST = /^[A-Za-z0-9.-]+(:\d{1,5})?$|^\[[0-9A-Fa-f:.]+\](:\d{1,5})?$/;
  */
 function originOf(req: Request): string {
   const host = req.host;
-  if (!host || !HOST.test(host)) throw AppError.validation([{ path: 'host', message: 'The request has no usable Host header, so the sheet cannot point at its check page.' }]);
+  if (!host || !HOST.test(host))
+    throw AppError.validation([{ path: 'host', message: 'The request has no usable Host header, so the sheet cannot point at its check page.' }]);
   return `${req.protocol}://${host}`;
 }
 

@@ -5,7 +5,12 @@ import { versionScopeOf } from '../../services/operator/visibility';
 import type { RouteHandler } from '../route-definition';
 import { actorOf } from './request-actor';
 
-export const record: RouteHandler<{ params: typeof versionParams; body: typeof cutRecordBody }> = async (req, res, { db, mail }, { params: { id, n }, body }) => {
+export const record: RouteHandler<{ params: typeof versionParams; body: typeof cutRecordBody }> = async (
+  req,
+  res,
+  { db, mail },
+  { params: { id, n }, body },
+) => {
   res.status(201).json(await cuts.recordCut(db, actorOf(req), versionScopeOf(req.user?.roles), id, n, body, new Date(), mail));
 };
 

@@ -58,7 +58,8 @@ const components = {
   },
   responses: {
     BadRequest: {
-      description: 'VALIDATION_FAILED: a part of the request does not match its schema (one entry per field); INVALID_JSON: the body is not JSON. Nothing was written.',
+      description:
+        'VALIDATION_FAILED: a part of the request does not match its schema (one entry per field); INVALID_JSON: the body is not JSON. Nothing was written.',
       content: { 'application/json': { schema: ERROR_ENVELOPE } },
     },
     NotSignedIn: {
@@ -98,7 +99,13 @@ function accessLine(access: Access): string {
   return `Access: people with the role ${access.join(' or ')}.`;
 }
 
-const STATUS_WORDS: Record<string, string> = { '200': 'OK', '201': 'Created', '202': 'Accepted', '204': 'No content.', '304': 'Not modified: the copy the client holds is current.' };
+const STATUS_WORDS: Record<string, string> = {
+  '200': 'OK',
+  '201': 'Created',
+  '202': 'Accepted',
+  '204': 'No content.',
+  '304': 'Not modified: the copy the client holds is current.',
+};
 
 const CONTENT: Record<string, Record<string, JsonSchema>> = {
   json: { 'application/json': {} },

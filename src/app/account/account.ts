@@ -1,11 +1,6 @@
 import { ChangeDetectionStrategy, Component, computed, inject, input, signal, viewChild } from '@angular/core';
 import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
-import {
-  type FormGroupDirective,
-  NonNullableFormBuilder,
-  ReactiveFormsModule,
-  Validators,
-} from '@angular/forms';
+import { type FormGroupDirective, NonNullableFormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
@@ -30,15 +25,7 @@ import { NotificationSettings } from './notification-settings';
 /** My account: change one's own password (required after an admin set a temporary one), units and mail notifications. */
 @Component({
   selector: 'kb-account',
-  imports: [
-    MatButtonModule,
-    MatFormFieldModule,
-    MatIconModule,
-    MatInputModule,
-    MatRadioModule,
-    NotificationSettings,
-    ReactiveFormsModule,
-  ],
+  imports: [MatButtonModule, MatFormFieldModule, MatIconModule, MatInputModule, MatRadioModule, NotificationSettings, ReactiveFormsModule],
   templateUrl: './account.html',
   styleUrl: './account.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -55,7 +42,12 @@ export class Account {
 
   protected readonly user = this.session.user;
   protected readonly mustChangePassword = this.session.mustChangePassword;
-  protected readonly roleLabels = computed(() => this.session.roles().map((role) => ROLE_INFO[role].label).join(', '));
+  protected readonly roleLabels = computed(() =>
+    this.session
+      .roles()
+      .map((role) => ROLE_INFO[role].label)
+      .join(', '),
+  );
   protected readonly controlMessage = controlMessage;
 
   protected readonly passwordForm = this.fb.group({
@@ -112,8 +104,7 @@ export class Account {
     this.unitsBusy.set(true);
     try {
       await this.session.setUnits(units);
-      const message =
-        units === 'metric' ? 'Values will be shown in metric units.' : 'Imperial values will be shown beside metric ones.';
+      const message = units === 'metric' ? 'Values will be shown in metric units.' : 'Imperial values will be shown beside metric ones.';
       void this.notifier.show(message, 'OK', 4000);
     } catch {
       // The error interceptor has told the user why; show the setting that is really stored.

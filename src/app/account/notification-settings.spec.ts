@@ -71,9 +71,7 @@ describe('NotificationSettings', () => {
     const req = await vi.waitFor(() => backend.expectOne({ method: 'PATCH', url: '/api/session/notifications' }));
     expect(req.request.body).toEqual({ 'cut-flagged': true });
     req.flush({ items: items.map((i) => (i.kind === 'cut-flagged' ? { ...i, enabled: true } : i)) });
-    await vi.waitFor(() =>
-      expect(notifier.show).toHaveBeenCalledWith('You will get mails for "An operator flagged a cut on my recipe".', 'OK', 4000),
-    );
+    await vi.waitFor(() => expect(notifier.show).toHaveBeenCalledWith('You will get mails for "An operator flagged a cut on my recipe".', 'OK', 4000));
     expect(await flagged.isChecked()).toBe(true);
   });
 

@@ -38,6 +38,10 @@ export class NotAllowed {
   readonly from = input<string>();
 
   protected readonly roleLabels = computed(
-    () => this.session.roles().map((role) => ROLE_INFO[role].label).join(', ') || 'no role',
+    () =>
+      this.session
+        .roles()
+        .map((role) => ROLE_INFO[role].label)
+        .join(', ') || 'no role',
   );
 }

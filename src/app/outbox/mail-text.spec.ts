@@ -4,11 +4,7 @@ describe('mailTextLines', () => {
   const origin = 'http://localhost:4200';
 
   it('keeps plain lines as text', () => {
-    expect(mailTextLines('Hello Naoko,\n\nWelcome.', origin)).toEqual([
-      [{ text: 'Hello Naoko,' }],
-      [{ text: '' }],
-      [{ text: 'Welcome.' }],
-    ]);
+    expect(mailTextLines('Hello Naoko,\n\nWelcome.', origin)).toEqual([[{ text: 'Hello Naoko,' }], [{ text: '' }], [{ text: 'Welcome.' }]]);
   });
 
   it("links addresses on the page's own origin as paths, without the sentence's full stop", () => {

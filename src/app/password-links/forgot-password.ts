@@ -20,15 +20,7 @@ import { Session } from '../core/session/session';
  */
 @Component({
   selector: 'kb-forgot-password',
-  imports: [
-    MatButtonModule,
-    MatFormFieldModule,
-    MatIconModule,
-    MatInputModule,
-    MatProgressSpinnerModule,
-    ReactiveFormsModule,
-    RouterLink,
-  ],
+  imports: [MatButtonModule, MatFormFieldModule, MatIconModule, MatInputModule, MatProgressSpinnerModule, ReactiveFormsModule, RouterLink],
   templateUrl: './forgot-password.html',
   styleUrls: ['../ui/public-card.scss', './link-pages.scss'],
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -53,12 +45,7 @@ export class ForgotPassword {
     }
     this.busy.set(true);
     try {
-      const answer = await this.session.postAnonymous<MessageDto>(
-        '/api/password/forgot',
-        { email: this.form.getRawValue().email.trim() },
-        400,
-        429,
-      );
+      const answer = await this.session.postAnonymous<MessageDto>('/api/password/forgot', { email: this.form.getRawValue().email.trim() }, 400, 429);
       this.sentMessage.set(answer.message || 'If that address belongs to an account, a link is on its way.');
     } catch (e) {
       if (!isApiError(e)) {

@@ -96,9 +96,7 @@ describe('SetPassword', () => {
     expect(post.request.body).toEqual({ token: TOKEN, newPassword: 'bench saw at dawn' });
     expect(post.request.headers.get('x-csrf-token')).toBe('anon');
     post.flush({ message: 'Your password is set.' });
-    await vi.waitFor(() =>
-      expect(navigate).toHaveBeenCalledWith(['/sign-in'], { queryParams: { username: 'ntakeda', passwordSet: 'yes' } }),
-    );
+    await vi.waitFor(() => expect(navigate).toHaveBeenCalledWith(['/sign-in'], { queryParams: { username: 'ntakeda', passwordSet: 'yes' } }));
   });
 
   it('checks length and that both passwords match before sending', async () => {

@@ -1,11 +1,7 @@
 import { DatePipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, type OnInit, inject, input, signal } from '@angular/core';
 import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
-import {
-  NonNullableFormBuilder,
-  ReactiveFormsModule,
-  Validators,
-} from '@angular/forms';
+import { NonNullableFormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
@@ -29,16 +25,7 @@ import { type LinkProblem, linkProblem } from './link-problem';
  */
 @Component({
   selector: 'kb-set-password',
-  imports: [
-    DatePipe,
-    MatButtonModule,
-    MatFormFieldModule,
-    MatIconModule,
-    MatInputModule,
-    MatProgressSpinnerModule,
-    ReactiveFormsModule,
-    RouterLink,
-  ],
+  imports: [DatePipe, MatButtonModule, MatFormFieldModule, MatIconModule, MatInputModule, MatProgressSpinnerModule, ReactiveFormsModule, RouterLink],
   templateUrl: './set-password.html',
   styleUrls: ['../ui/public-card.scss', './link-pages.scss'],
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -103,13 +90,7 @@ export class SetPassword implements OnInit {
     }
     this.busy.set(true);
     try {
-      await this.session.postAnonymous<MessageDto>(
-        '/api/password/set',
-        { token, newPassword: this.form.getRawValue().newPassword },
-        400,
-        410,
-        429,
-      );
+      await this.session.postAnonymous<MessageDto>('/api/password/set', { token, newPassword: this.form.getRawValue().newPassword }, 400, 410, 429);
       await this.router.navigate(['/sign-in'], { queryParams: { username: info.username, passwordSet: 'yes' } });
     } catch (e) {
       if (this.showLinkProblem(e)) return;

@@ -86,8 +86,7 @@ export class PeopleList {
   private readonly machineNames = computed(() => new Map(this.machines().map((m) => [m.id, m.name])));
   /** "Bench saw B2, Floor saw F1" for an operator's row. */
   /** The operator's machines by name, one per line in the table. */
-  protected readonly machineNamesOf = (person: UserDto): string[] =>
-    person.machineIds.map((id) => this.machineNames().get(id) ?? `Machine ${id}`);
+  protected readonly machineNamesOf = (person: UserDto): string[] => person.machineIds.map((id) => this.machineNames().get(id) ?? `Machine ${id}`);
 
   protected addPerson(): void {
     this.dialog
@@ -99,11 +98,7 @@ export class PeopleList {
       .afterClosed()
       .subscribe((person) => {
         if (!person) return;
-        void this.notifier.show(
-          `${person.displayName} was added. Hand over the temporary password; it must be changed at the first sign-in.`,
-          'OK',
-          8000,
-        );
+        void this.notifier.show(`${person.displayName} was added. Hand over the temporary password; it must be changed at the first sign-in.`, 'OK', 8000);
         this.reload();
       });
   }
@@ -118,11 +113,7 @@ export class PeopleList {
       .afterClosed()
       .subscribe((person) => {
         if (!person) return;
-        void this.notifier.show(
-          `An invitation was sent to ${person.email}. ${person.displayName} has 72 hours to choose a password.`,
-          'OK',
-          8000,
-        );
+        void this.notifier.show(`An invitation was sent to ${person.email}. ${person.displayName} has 72 hours to choose a password.`, 'OK', 8000);
         this.reload();
       });
   }

@@ -156,11 +156,7 @@ describe('PersonFormDialog', () => {
     await vi.waitFor(() => expect(dialogRef.close).toHaveBeenCalled());
   });
 
-  const machines = [
-    aMachine({ id: 1, name: 'Bench saw B2' }),
-    aMachine({ id: 3, name: 'Floor saw F1' }),
-    aMachine({ id: 4, name: 'Old saw', archived: true }),
-  ];
+  const machines = [aMachine({ id: 1, name: 'Bench saw B2' }), aMachine({ id: 3, name: 'Floor saw F1' }), aMachine({ id: 4, name: 'Old saw', archived: true })];
 
   async function machineSelect(): Promise<MatSelectHarness> {
     return TestbedHarnessEnvironment.loader(fixture).getHarness(MatSelectHarness);

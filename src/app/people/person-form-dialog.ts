@@ -43,16 +43,7 @@ interface MachineOption {
  */
 @Component({
   selector: 'kb-person-form-dialog',
-  imports: [
-    MatButtonModule,
-    MatCheckboxModule,
-    MatDialogModule,
-    MatFormFieldModule,
-    MatIconModule,
-    MatInputModule,
-    MatSelectModule,
-    ReactiveFormsModule,
-  ],
+  imports: [MatButtonModule, MatCheckboxModule, MatDialogModule, MatFormFieldModule, MatIconModule, MatInputModule, MatSelectModule, ReactiveFormsModule],
   templateUrl: './person-form-dialog.html',
   styleUrl: './person-form-dialog.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -76,13 +67,8 @@ export class PersonFormDialog {
   protected readonly form = this.fb.group({
     username: [this.person?.username ?? '', [Validators.required, zodValidator(username)]],
     displayName: [this.person?.displayName ?? '', [Validators.required, zodValidator(displayName)]],
-    email: [
-      this.person?.email ?? '',
-      this.isInvite ? [Validators.required, zodValidator(requiredEmail)] : [zodValidator(email)],
-    ],
-    roles: this.fb.group(
-      Object.fromEntries(ROLES.map((role) => [role, this.person?.roles.includes(role) ?? false])) as Record<Role, boolean>,
-    ),
+    email: [this.person?.email ?? '', this.isInvite ? [Validators.required, zodValidator(requiredEmail)] : [zodValidator(email)]],
+    roles: this.fb.group(Object.fromEntries(ROLES.map((role) => [role, this.person?.roles.includes(role) ?? false])) as Record<Role, boolean>),
     temporaryPassword: ['', [Validators.required, zodValidator(newPassword)]],
     machineIds: [this.person?.machineIds ?? ([] as number[])],
   });
@@ -126,10 +112,7 @@ export class PersonFormDialog {
         : this.isInvite
           ? await firstValueFrom(this.api.invite({ username: value.username, displayName, email, roles, machineIds }, context))
           : await firstValueFrom(
-              this.api.create(
-                { username: value.username, displayName, email, roles, temporaryPassword: value.temporaryPassword, machineIds },
-                context,
-              ),
+              this.api.create({ username: value.username, displayName, email, roles, temporaryPassword: value.temporaryPassword, machineIds }, context),
             );
       this.dialogRef.close(saved);
     } catch (e) {

@@ -29,8 +29,8 @@ export interface TemporaryPasswordDialogData {
     <form [formGroup]="form" (ngSubmit)="setPassword()" novalidate>
       <mat-dialog-content class="kb-dialog-content">
         <p>
-          {{ person.displayName }} ({{ person.username }}) signs in with this password once and must then choose their
-          own. Their current password stops working.
+          {{ person.displayName }} ({{ person.username }}) signs in with this password once and must then choose their own. Their current password stops
+          working.
         </p>
         @if (formError()) {
           <p class="kb-form-error" role="alert">{{ formError() }}</p>
@@ -96,9 +96,7 @@ export class TemporaryPasswordDialog {
     }
     this.busy.set(true);
     try {
-      const saved = await firstValueFrom(
-        this.api.setTemporaryPassword(this.person.id, this.form.getRawValue().password, callerHandles(400)),
-      );
+      const saved = await firstValueFrom(this.api.setTemporaryPassword(this.person.id, this.form.getRawValue().password, callerHandles(400)));
       this.dialogRef.close(saved);
     } catch (e) {
       if (!isApiError(e)) throw e;

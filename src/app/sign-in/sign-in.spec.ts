@@ -17,11 +17,7 @@ describe('SignIn', () => {
   beforeEach(async () => {
     TestBed.configureTestingModule({
       imports: [SignIn],
-      providers: [
-        provideRouter([]),
-        provideHttpClient(withInterceptors([csrfInterceptor, errorInterceptor])),
-        provideHttpClientTesting(),
-      ],
+      providers: [provideRouter([]), provideHttpClient(withInterceptors([csrfInterceptor, errorInterceptor])), provideHttpClientTesting()],
     });
     backend = TestBed.inject(HttpTestingController);
     router = TestBed.inject(Router);
@@ -101,9 +97,7 @@ describe('SignIn', () => {
     type('username', 'rlindqvist');
     type('password', 'temporary-pass');
     (await submitAndCatchPost()).flush({ user: aUser({ mustChangePassword: true }), csrfToken: 'fresh' });
-    await vi.waitFor(() =>
-      expect(navigate).toHaveBeenCalledWith(['/account'], { queryParams: { returnUrl: '/today' } }),
-    );
+    await vi.waitFor(() => expect(navigate).toHaveBeenCalledWith(['/account'], { queryParams: { returnUrl: '/today' } }));
   });
 
   it("shows the server's wrong-credentials message in the form", async () => {

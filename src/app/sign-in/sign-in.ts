@@ -23,15 +23,7 @@ const FALLBACK_MESSAGES: Record<number, string> = {
 
 @Component({
   selector: 'kb-sign-in',
-  imports: [
-    MatButtonModule,
-    MatFormFieldModule,
-    MatIconModule,
-    MatInputModule,
-    MatProgressSpinnerModule,
-    ReactiveFormsModule,
-    RouterLink,
-  ],
+  imports: [MatButtonModule, MatFormFieldModule, MatIconModule, MatInputModule, MatProgressSpinnerModule, ReactiveFormsModule, RouterLink],
   templateUrl: './sign-in.html',
   styleUrl: '../ui/public-card.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,

@@ -153,7 +153,13 @@ describe('MaterialFormDialog', () => {
     type('condition', 'annealed');
     submit();
     const req = await vi.waitFor(() => backend.expectOne({ method: 'PUT', url: '/api/materials/5' }));
-    expect(req.request.body).toMatchObject({ condition: 'annealed', caseHardened: true, caseDepthMm: 0.6, hazardousDust: true, hardness: { value: 32, scale: 'HRC' } });
+    expect(req.request.body).toMatchObject({
+      condition: 'annealed',
+      caseHardened: true,
+      caseDepthMm: 0.6,
+      hazardousDust: true,
+      hardness: { value: 32, scale: 'HRC' },
+    });
     req.flush({ ...material, condition: 'annealed' });
     await vi.waitFor(() => expect(dialogRef.close).toHaveBeenCalled());
   });

@@ -27,7 +27,12 @@ export abstract class StockFormDialog<TRecord> {
    * Field rules, then the whole shared schema, then create (no `id`) or update; 400 and 409
    * answers land on their fields (not in a snack bar). Closes with the saved record.
    */
-  protected async saveWith<S extends z.ZodType>(schema: S, candidate: unknown, resource: StockResource<z.infer<S>, TRecord>, id: number | undefined): Promise<void> {
+  protected async saveWith<S extends z.ZodType>(
+    schema: S,
+    candidate: unknown,
+    resource: StockResource<z.infer<S>, TRecord>,
+    id: number | undefined,
+  ): Promise<void> {
     const form = this.form;
     this.formError.set('');
     if (form.invalid) {

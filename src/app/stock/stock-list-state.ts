@@ -7,7 +7,6 @@ import type { StockListQuery } from '@shared/schemas/stock';
 import type { MaterialGroup } from '@shared/vocabulary';
 import { PagedList } from '../ui/paged-list';
 
-
 type StockFilters = Pick<StockListQuery, 'group' | 'archived'>;
 
 /**

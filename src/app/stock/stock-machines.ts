@@ -2,14 +2,7 @@ import { ChangeDetectionStrategy, Component, computed, inject } from '@angular/c
 import { MatSortModule } from '@angular/material/sort';
 import { MatTableModule } from '@angular/material/table';
 import type { MachineRecord } from '@shared/stock-types';
-import {
-  CLAMPING_METHOD_LABELS,
-  CUT_MOTION_LABELS,
-  type ClampingMethod,
-  type CutMotion,
-  MACHINE_CLASS_LABELS,
-  type MachineClass,
-} from '@shared/vocabulary';
+import { CLAMPING_METHOD_LABELS, CUT_MOTION_LABELS, type ClampingMethod, type CutMotion, MACHINE_CLASS_LABELS, type MachineClass } from '@shared/vocabulary';
 import { Session } from '../core/session/session';
 import { MachineFormDialog, type MachineFormDialogData } from './machine-form-dialog';
 import { QuantityPipe } from '../ui/quantity';
@@ -21,12 +14,7 @@ import { StockTable } from './stock-table';
 /** Stock › Machines: the lab's cut-off machines with their wheel, speed and feed ranges. */
 @Component({
   selector: 'kb-stock-machines',
-  imports: [
-    MatSortModule,
-    MatTableModule,
-    QuantityPipe,
-    StockTable,
-  ],
+  imports: [MatSortModule, MatTableModule, QuantityPipe, StockTable],
   templateUrl: './stock-machines.html',
   styleUrl: './stock-table.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,

@@ -155,11 +155,7 @@ describe('StockMaterials', () => {
     const del = await vi.waitFor(() => backend.expectOne({ method: 'DELETE', url: '/api/materials/5' }));
     del.flush({ archived: true });
     await vi.waitFor(() =>
-      expect(notifier.show).toHaveBeenCalledWith(
-        'Tempered chromium-molybdenum steel is used by a recipe, so it was archived instead of deleted.',
-        'OK',
-        8000,
-      ),
+      expect(notifier.show).toHaveBeenCalledWith('Tempered chromium-molybdenum steel is used by a recipe, so it was archived instead of deleted.', 'OK', 8000),
     );
     (await nextListRequest()).req.flush(page());
   });

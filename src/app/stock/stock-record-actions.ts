@@ -62,10 +62,7 @@ export class StockRecordActions {
   async archive(resource: ArchivableResource, record: { id: number; name: string }, noun: string): Promise<boolean> {
     const confirmed = await this.confirm({
       title: `Archive ${record.name}?`,
-      message: [
-        `The ${noun} stays readable in every recipe that uses it, but is no longer offered for new recipes.`,
-        'You can unarchive it at any time.',
-      ],
+      message: [`The ${noun} stays readable in every recipe that uses it, but is no longer offered for new recipes.`, 'You can unarchive it at any time.'],
       confirmLabel: 'Archive',
     });
     if (!confirmed) return false;
@@ -80,19 +77,14 @@ export class StockRecordActions {
   async delete(resource: ArchivableResource, record: { id: number; name: string }, noun: string): Promise<boolean> {
     const confirmed = await this.confirm({
       title: `Delete ${record.name}?`,
-      message: [
-        `If no recipe uses this ${noun}, it is deleted for good.`,
-        'If a recipe uses it, Kerfbook keeps it for that recipe and archives it instead.',
-      ],
+      message: [`If no recipe uses this ${noun}, it is deleted for good.`, 'If a recipe uses it, Kerfbook keeps it for that recipe and archives it instead.'],
       confirmLabel: 'Delete',
     });
     if (!confirmed) return false;
     try {
       const outcome = await firstValueFrom(resource.delete(record.id));
       void this.notifier.show(
-        outcome.archived
-          ? `${record.name} is used by a recipe, so it was archived instead of deleted.`
-          : `${record.name} was deleted.`,
+        outcome.archived ? `${record.name} is used by a recipe, so it was archived instead of deleted.` : `${record.name} was deleted.`,
         'OK',
         8000,
       );

@@ -14,12 +14,7 @@ import { WheelFormDialog, type WheelFormDialogData } from './wheel-form-dialog';
 /** Stock › Wheels: the lab's own cut-off wheels with their marking, size and marked maximum speed. */
 @Component({
   selector: 'kb-stock-wheels',
-  imports: [
-    MatSortModule,
-    MatTableModule,
-    QuantityPipe,
-    StockTable,
-  ],
+  imports: [MatSortModule, MatTableModule, QuantityPipe, StockTable],
   templateUrl: './stock-wheels.html',
   styleUrl: './stock-table.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -29,7 +24,10 @@ export class StockWheels {
   private readonly session = inject(Session);
   private readonly actions = inject(StockRecordActions);
 
-  protected readonly list = new StockListState<WheelRecord>((q) => this.api.wheels.list(q), ['name', 'kind', 'specification', 'diameterMm', 'thicknessMm', 'maxSpeedMs']);
+  protected readonly list = new StockListState<WheelRecord>(
+    (q) => this.api.wheels.list(q),
+    ['name', 'kind', 'specification', 'diameterMm', 'thicknessMm', 'maxSpeedMs'],
+  );
   protected readonly rows = this.actions.rowHandlers<WheelRecord>(this.api.wheels, 'wheel', () => this.list.reload());
   protected readonly units = computed(() => this.session.user()?.units ?? 'metric');
   protected readonly columns = ['kind', 'specification', 'diameterMm', 'thicknessMm', 'boreMm', 'maxSpeedMs', 'dryAllowed'];

@@ -60,9 +60,7 @@ export class WheelSelection {
   protected readonly shown = computed<ShownRow[]>(() => {
     const wheels = new Map(this.wheels().map((w) => [w.id, w]));
     const sorted = [...this.rows()].sort(
-      (a, b) =>
-        MATERIAL_GROUPS.indexOf(a.group) - MATERIAL_GROUPS.indexOf(b.group) ||
-        (a.hardness?.min ?? -1) - (b.hardness?.min ?? -1),
+      (a, b) => MATERIAL_GROUPS.indexOf(a.group) - MATERIAL_GROUPS.indexOf(b.group) || (a.hardness?.min ?? -1) - (b.hardness?.min ?? -1),
     );
     return sorted.map((row, i) => ({
       row,

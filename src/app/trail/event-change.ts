@@ -25,11 +25,8 @@ export function shortValue(value: unknown): string {
   else if (typeof value === 'object') {
     const entries = Object.entries(value as Record<string, unknown>);
     // A flat object (a hardness range, a size) reads better as its pairs than as JSON.
-    text = entries.every(([, v]) => v === null || typeof v !== 'object')
-      ? entries.map(([k, v]) => `${k} ${v ?? '—'}`).join(', ')
-      : JSON.stringify(value);
-  }
-  else text = String(value);
+    text = entries.every(([, v]) => v === null || typeof v !== 'object') ? entries.map(([k, v]) => `${k} ${v ?? '—'}`).join(', ') : JSON.stringify(value);
+  } else text = String(value);
   if (HEX_DIGEST.test(text)) return `${text.slice(0, 12)}…`;
   return text.length > VALUE_CHARS ? `${text.slice(0, VALUE_CHARS - 1)}…` : text;
 }

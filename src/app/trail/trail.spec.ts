@@ -41,7 +41,14 @@ describe('Trail', () => {
 
   const events = [
     anEvent(),
-    anEvent({ id: 899, type: 'recipe.created', entityType: 'recipe', entityId: '12', before: null, after: { number: 'KB-0012', title: 'Thin-wall tube', version: 1, status: 'draft' } }),
+    anEvent({
+      id: 899,
+      type: 'recipe.created',
+      entityType: 'recipe',
+      entityId: '12',
+      before: null,
+      after: { number: 'KB-0012', title: 'Thin-wall tube', version: 1, status: 'draft' },
+    }),
   ];
 
   function aPage(items: TrailEventDto[], nextBefore: number | null): TrailPage {
@@ -216,7 +223,12 @@ describe('Trail', () => {
     await open('/trail', ['admin']);
     const users = await vi.waitFor(() => backend.expectOne((r) => r.url === '/api/users'));
     expect(paramsOf(users)).toMatchObject({ pageSize: '100', status: 'all' });
-    users.flush({ items: [aUser({ id: 4, displayName: 'Ines Author', username: 'ines.author' }), aUser({ id: 9, displayName: 'Ruth Auditor', username: 'ruth.auditor' })], total: 2, page: 0, pageSize: 100 });
+    users.flush({
+      items: [aUser({ id: 4, displayName: 'Ines Author', username: 'ines.author' }), aUser({ id: 9, displayName: 'Ruth Auditor', username: 'ruth.auditor' })],
+      total: 2,
+      page: 0,
+      pageSize: 100,
+    });
     (await nextEvents()).req.flush(aPage(events, null));
 
     const select = await TestbedHarnessEnvironment.loader(harness.fixture).getHarness(MatSelectHarness);

@@ -187,7 +187,10 @@ export class Trail {
   constructor() {
     // Typing waits for a pause; choosing from a list or a calendar applies at once.
     const c = this.filters.controls;
-    merge(merge(c.recipe.valueChanges, c.type.valueChanges, c.userId.valueChanges).pipe(debounceTime(TRAIL_TYPING_DEBOUNCE_MS)), merge(c.from.valueChanges, c.to.valueChanges))
+    merge(
+      merge(c.recipe.valueChanges, c.type.valueChanges, c.userId.valueChanges).pipe(debounceTime(TRAIL_TYPING_DEBOUNCE_MS)),
+      merge(c.from.valueChanges, c.to.valueChanges),
+    )
       .pipe(takeUntilDestroyed())
       .subscribe(() => this.applyFilters());
 

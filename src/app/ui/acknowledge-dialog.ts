@@ -37,8 +37,8 @@ export interface AcknowledgeDialogData {
         </p>
       } @else {
         <p>
-          <strong class="kb-mono">{{ data.number }}</strong> version {{ data.version }} — {{ data.title }} is new for your machine.
-          Read it before you use it; the sheet opens once you have acknowledged it.
+          <strong class="kb-mono">{{ data.number }}</strong> version {{ data.version }} — {{ data.title }} is new for your machine. Read it before you use it;
+          the sheet opens once you have acknowledged it.
         </p>
         <p class="kb-statement" data-testid="ack-statement">{{ statement }}</p>
         @if (refusal()) {
@@ -50,7 +50,14 @@ export interface AcknowledgeDialogData {
       @if (blockedTab()) {
         <button matButton type="button" class="kb-touch" (click)="close()">Close</button>
       } @else {
-        <a matButton class="kb-touch" [routerLink]="['/recipes', data.recipeId, 'acknowledge']" [queryParams]="{ v: data.version }" (click)="cancel()" data-testid="read-first">
+        <a
+          matButton
+          class="kb-touch"
+          [routerLink]="['/recipes', data.recipeId, 'acknowledge']"
+          [queryParams]="{ v: data.version }"
+          (click)="cancel()"
+          data-testid="read-first"
+        >
           Read it first
         </a>
         <button matButton type="button" class="kb-touch" (click)="cancel()">Cancel</button>

@@ -14,7 +14,8 @@ export const SEVERITY_INFO: Record<CheckSeverity | 'none', { label: string; icon
 @Component({
   selector: 'kb-check-severity',
   imports: [MatIconModule],
-  template: `<mat-icon aria-hidden="true">{{ info().icon }}</mat-icon><span>{{ info().label }}</span>`,
+  template: `<mat-icon aria-hidden="true">{{ info().icon }}</mat-icon
+    ><span>{{ info().label }}</span>`,
   styles: `
     :host {
       display: inline-flex;

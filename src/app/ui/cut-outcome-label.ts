@@ -15,7 +15,8 @@ export const CUT_OUTCOME_ICONS: Record<CutOutcome, string> = {
 @Component({
   selector: 'kb-cut-outcome',
   imports: [MatIconModule],
-  template: `<mat-icon aria-hidden="true">{{ icon() }}</mat-icon><span>{{ label() }}</span>`,
+  template: `<mat-icon aria-hidden="true">{{ icon() }}</mat-icon
+    ><span>{{ label() }}</span>`,
   styles: `
     :host {
       display: inline-flex;

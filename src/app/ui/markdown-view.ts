@@ -14,7 +14,26 @@ const SAFE_URI = /^(?:(?:https?|mailto):|[^a-z]|[a-z+.-]+(?:[^a-z+.\-:]|$))/i;
 
 const PURIFY_CONFIG: Config = {
   // Nothing that runs code, styles the page, embeds another page or collects input.
-  FORBID_TAGS: ['script', 'style', 'iframe', 'frame', 'frameset', 'object', 'embed', 'link', 'meta', 'base', 'form', 'input', 'button', 'select', 'option', 'textarea', 'svg', 'math'],
+  FORBID_TAGS: [
+    'script',
+    'style',
+    'iframe',
+    'frame',
+    'frameset',
+    'object',
+    'embed',
+    'link',
+    'meta',
+    'base',
+    'form',
+    'input',
+    'button',
+    'select',
+    'option',
+    'textarea',
+    'svg',
+    'math',
+  ],
   FORBID_ATTR: ['style', 'srcset', 'formaction', 'action'],
   ALLOW_DATA_ATTR: false,
   ALLOWED_URI_REGEXP: SAFE_URI,
@@ -56,11 +75,15 @@ export function renderMarkdown(markdown: string): string {
       :last-child {
         margin-bottom: 0;
       }
-      h1, h2, h3, h4 {
+      h1,
+      h2,
+      h3,
+      h4 {
         font: var(--mat-sys-title-medium);
         margin: 1em 0 0.4em;
       }
-      ol, ul {
+      ol,
+      ul {
         padding-left: 1.4em;
       }
       li + li {
@@ -83,7 +106,8 @@ export function renderMarkdown(markdown: string): string {
       table {
         border-collapse: collapse;
       }
-      th, td {
+      th,
+      td {
         border: 1px solid var(--mat-sys-outline-variant);
         padding: 4px 8px;
       }

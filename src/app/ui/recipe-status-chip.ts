@@ -16,7 +16,8 @@ const RECIPE_STATUS_ICONS: Record<RecipeStatus, string> = {
 @Component({
   selector: 'kb-recipe-status-chip',
   imports: [MatIconModule],
-  template: `<mat-icon aria-hidden="true">{{ info().icon }}</mat-icon>{{ info().label }}`,
+  template: `<mat-icon aria-hidden="true">{{ info().icon }}</mat-icon
+    >{{ info().label }}`,
   styles: `
     :host {
       display: inline-flex;

@@ -20,12 +20,12 @@ import { SIGNATURE_MEANING_INFO } from './signature-meaning';
             <div>
               <p class="kb-sig-line">
                 <strong class="kb-sig-meaning">{{ meaning[s.meaning].label }}</strong>
-                by <span class="kb-sig-name">{{ s.signerName }}</span>
-                on <time class="kb-sig-time" [attr.datetime]="s.signedAt">{{ s.signedAt | date: 'd MMM y, HH:mm' : 'UTC' }} UTC</time>
+                by <span class="kb-sig-name">{{ s.signerName }}</span> on
+                <time class="kb-sig-time" [attr.datetime]="s.signedAt">{{ s.signedAt | date: 'd MMM y, HH:mm' : 'UTC' }} UTC</time>
               </p>
               <p class="kb-sig-detail">
-                Meaning: {{ meaning[s.meaning].label }} — {{ meaning[s.meaning].statement }}.
-                Signed content <code [title]="s.contentHash">{{ s.contentHash.slice(0, 12) }}…</code>
+                Meaning: {{ meaning[s.meaning].label }} — {{ meaning[s.meaning].statement }}. Signed content
+                <code [title]="s.contentHash">{{ s.contentHash.slice(0, 12) }}…</code>
               </p>
               @if (s.comment) {
                 <p class="kb-sig-comment">“{{ s.comment }}”</p>

@@ -62,7 +62,15 @@ describe('Operators, auditors and anonymous callers: no drafts, no people, no wr
   /** Every read of a recipe's versions, pointed at the draft. */
   const draftPaths = () => {
     const base = `/api/recipes/${draft.recipeId}/versions/1`;
-    return [`/api/recipes/${draft.recipeId}/versions`, base, `${base}/comments`, `${base}/cuts`, `${base}/cuts.csv`, `${base}/sheet.pdf`, `/api/recipes/${draft.recipeId}/compare?from=1&to=1`];
+    return [
+      `/api/recipes/${draft.recipeId}/versions`,
+      base,
+      `${base}/comments`,
+      `${base}/cuts`,
+      `${base}/cuts.csv`,
+      `${base}/sheet.pdf`,
+      `/api/recipes/${draft.recipeId}/compare?from=1&to=1`,
+    ];
   };
 
   describe('drafts', () => {
@@ -70,7 +78,10 @@ describe('Operators, auditors and anonymous callers: no drafts, no people, no wr
       for (const query of [{}, { status: 'draft' }, { q: 'Unreleased' }]) {
         const res = await operator.agent.get('/api/recipes').query(query);
         expect(res.status).to.equal(200);
-        expect(res.body.items.map((r: { id: number }) => r.id), JSON.stringify(query)).not.to.include(draft.recipeId);
+        expect(
+          res.body.items.map((r: { id: number }) => r.id),
+          JSON.stringify(query),
+        ).not.to.include(draft.recipeId);
       }
       for (const path of draftPaths()) {
         const res = await operator.agent.get(path);
@@ -130,7 +141,9 @@ describe('Operators, auditors and anonymous callers: no drafts, no people, no wr
       // Operator duties point at the draft; everything else at the walk's records.
       const duty = DUTY_BODIES[label(route)];
       const path = duty ? pathFor(route, { ...targets, recipe: draft.recipeId }) : pathFor(route, targets);
-      return who.agent[route.method](path).set(CSRF_HEADER, who.csrf).send(duty ?? {});
+      return who.agent[route.method](path)
+        .set(CSRF_HEADER, who.csrf)
+        .send(duty ?? {});
     }
 
     for (const who of ['operator', 'auditor', 'anonymous'] as const) {

@@ -92,7 +92,10 @@ describe('Route table access', () => {
   });
 
   it('keeps the routes a pending password change allows to the session and password routes', () => {
-    const allowed = routes.filter((r) => r.whilePasswordChangeRequired).map(label).sort();
+    const allowed = routes
+      .filter((r) => r.whilePasswordChangeRequired)
+      .map(label)
+      .sort();
     expect(allowed).to.deep.equal(
       ['DELETE /api/session', 'GET /api/session', 'GET /api/session/csrf', 'POST /api/session', 'POST /api/session/password'].sort(),
     );

@@ -53,7 +53,11 @@ describe('Session attacks: fixation, forged writes, guessing', () => {
       const attacker = await request(ctx.app).get('/api/session').set('Cookie', plantedSid);
       expect(attacker.status).to.equal(401);
       expect(attacker.body.code).to.equal('NOT_SIGNED_IN');
-      const attackerWrite = await request(ctx.app).patch('/api/session/preferences').set('Cookie', plantedCookies).set(CSRF_HEADER, planted.body.csrfToken).send({ units: 'metric' });
+      const attackerWrite = await request(ctx.app)
+        .patch('/api/session/preferences')
+        .set('Cookie', plantedCookies)
+        .set(CSRF_HEADER, planted.body.csrfToken)
+        .send({ units: 'metric' });
       expect(attackerWrite.status).to.be.oneOf([401, 403]);
     });
 
@@ -82,7 +86,14 @@ describe('Session attacks: fixation, forged writes, guessing', () => {
       const tokens: [string, (r: request.Test) => request.Test][] = [
         ['missing', (r) => r],
         ['empty', (r) => r.set(CSRF_HEADER, '')],
-        ['forged', (r) => r.set(CSRF_HEADER, good.replace(/.$/, (c) => (c === 'a' ? 'b' : 'a')))],
+        [
+          'forged',
+          (r) =>
+            r.set(
+              CSRF_HEADER,
+              good.replace(/.$/, (c) => (c === 'a' ? 'b' : 'a')),
+            ),
+        ],
         ['another session’s', (r) => r.set(CSRF_HEADER, other.csrf)],
         ['stale (before sign-in)', (r) => r.set(CSRF_HEADER, before)],
         ['in the query', (r) => r.query({ _csrf: good, csrfToken: good })],
@@ -98,7 +109,10 @@ describe('Session attacks: fixation, forged writes, guessing', () => {
       }
       expect(changedTables(print, await dbFingerprint(ctx.db)), 'forged writes changed').to.deep.equal([]);
       // Still signed in, and the good token does work: the refusals were about the token.
-      const ok = await agent.post('/api/materials').set(CSRF_HEADER, good).send(materialInput({ name: 'Made with the right token' }));
+      const ok = await agent
+        .post('/api/materials')
+        .set(CSRF_HEADER, good)
+        .send(materialInput({ name: 'Made with the right token' }));
       expect(ok.status, JSON.stringify(ok.body)).to.equal(201);
     });
   });
@@ -114,7 +128,10 @@ describe('Session attacks: fixation, forged writes, guessing', () => {
       const address = '203.0.113.99';
       const burst = await Promise.all(Array.from({ length: MAX_FAILURES * 3 }, (_, i) => attempt(address, `parallel-guess-${i}`)));
       const statuses = burst.map((r) => r.status);
-      expect(statuses.filter((s) => s !== 401 && s !== 429), 'only 401 and 429').to.deep.equal([]);
+      expect(
+        statuses.filter((s) => s !== 401 && s !== 429),
+        'only 401 and 429',
+      ).to.deep.equal([]);
       expect(statuses.filter((s) => s === 401).length, 'guesses checked').to.be.at.most(MAX_FAILURES);
       for (const res of burst.filter((r) => r.status === 429)) expect(res.body.code).to.equal('TOO_MANY_ATTEMPTS');
       const right = await attempt(address, person.password);
@@ -122,7 +139,10 @@ describe('Session attacks: fixation, forged writes, guessing', () => {
       expect(right.body.code).to.equal('TOO_MANY_ATTEMPTS');
       expect(Number(right.headers['retry-after'])).to.be.within(1, 15 * 60);
       // Once the window has passed (the failures aged past 15 minutes), the right password works again.
-      await ctx.db('sign_in_failures').where({ client_address: address }).update({ failed_at: new Date(Date.now() - 16 * 60 * 1000) });
+      await ctx
+        .db('sign_in_failures')
+        .where({ client_address: address })
+        .update({ failed_at: new Date(Date.now() - 16 * 60 * 1000) });
       expect((await attempt(address, person.password)).status).to.equal(200);
     });
   });

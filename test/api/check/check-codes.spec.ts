@@ -123,7 +123,12 @@ describe('Check codes', () => {
         currentVersion: 2,
         message: 'Superseded by version 2 — do not use this sheet; print the current one.',
       });
-      expect(await check(code2)).to.deep.include({ version: 2, state: 'current', currentVersion: null, message: 'Version 2 is current — this sheet may be used.' });
+      expect(await check(code2)).to.deep.include({
+        version: 2,
+        state: 'current',
+        currentVersion: null,
+        message: 'Version 2 is current — this sheet may be used.',
+      });
     });
 
     it('says pending for a version approved for a later day, and names the version in force until then', async () => {

@@ -48,14 +48,24 @@ async function fingerprint(db: Knex): Promise<Record<string, string[]>> {
   for (const t of tables.sort()) {
     const rows = (await db(t).select('*')) as Record<string, unknown>[];
     out[t] = rows
-      .map((r) => JSON.stringify(r, (_k, v: unknown) => (v && typeof v === 'object' && (v as { type?: string }).type === 'Buffer' ? createHash('sha256').update(Buffer.from((v as { data: number[] }).data)).digest('hex') : v)))
+      .map((r) =>
+        JSON.stringify(r, (_k, v: unknown) =>
+          v && typeof v === 'object' && (v as { type?: string }).type === 'Buffer'
+            ? createHash('sha256')
+                .update(Buffer.from((v as { data: number[] }).data))
+                .digest('hex')
+            : v,
+        ),
+      )
       .sort();
   }
   return out;
 }
 
 const triggerNames = async (db: Knex): Promise<string[]> =>
-  ((await db.raw('SELECT TRIGGER_NAME AS n FROM information_schema.TRIGGERS WHERE TRIGGER_SCHEMA = DATABASE() ORDER BY 1')) as [{ n: string }[]])[0].map((r) => r.n);
+  ((await db.raw('SELECT TRIGGER_NAME AS n FROM information_schema.TRIGGERS WHERE TRIGGER_SCHEMA = DATABASE() ORDER BY 1')) as [{ n: string }[]])[0].map(
+    (r) => r.n,
+  );
 
 /** Packs a changed copy of a backup: `change` may edit the manifest object and the dump file. */
 function tamper(file: string, into: string, change: (manifest: Manifest, dumpPath: string) => void): string {
@@ -116,9 +126,16 @@ describe('Backup and restore (npm run backup / restore)', function () {
     const author = await sessionFor(app, db, ['author']);
     const approver = await sessionFor(app, db, ['approver']);
     const sharp = (await import('sharp')).default;
-    const png = await sharp({ create: { width: 16, height: 12, channels: 3, background: '#806040' } }).png().toBuffer();
+    const png = await sharp({ create: { width: 16, height: 12, channels: 3, background: '#806040' } })
+      .png()
+      .toBuffer();
     const draft = await createDraft(author, stock, { title: 'Backed-up bar stock' });
-    await author.agent.post(`/api/recipes/${draft.recipeId}/versions/1/attachments`).set('x-csrf-token', author.csrf).field('role', 'setup').attach('file', png, 'setup.png').expect(201);
+    await author.agent
+      .post(`/api/recipes/${draft.recipeId}/versions/1/attachments`)
+      .set('x-csrf-token', author.csrf)
+      .field('role', 'setup')
+      .attach('file', png, 'setup.png')
+      .expect(201);
     const current = ok(await act.get(author, draft));
     ok(await act.approve(approver, ok(await act.submit(author, current))));
 
@@ -151,7 +168,13 @@ describe('Backup and restore (npm run backup / restore)', function () {
     expect(m.rowCounts['signatures']).to.equal(original['signatures']!.length).and.to.be.above(0);
     expect(m.trail?.events).to.equal(original['trail_events']!.length);
     expect(m.attachments).to.include({ storedIn: 'database', count: 1 });
-    expect(m.triggers).to.include.members(['trail_events_refuse_update', 'recipe_versions_frozen_update', 'signatures_no_delete', 'attachments_frozen_insert', 'recipes_library_insert']);
+    expect(m.triggers).to.include.members([
+      'trail_events_refuse_update',
+      'recipe_versions_frozen_update',
+      'signatures_no_delete',
+      'attachments_frozen_insert',
+      'recipes_library_insert',
+    ]);
   });
 
   it('refuses a missing file, changing nothing', async () => {
@@ -218,11 +241,28 @@ describe('Backup and restore (npm run backup / restore)', function () {
     // The triggers came back with the rows, and they still guard them.
     expect(await triggerNames(db)).to.deep.equal(backup.manifest.triggers);
     const frozen = (await db('recipe_versions').whereNotNull('content_hash').first('id')) as { id: number };
-    let refused = await db('recipe_versions').where({ id: frozen.id }).update({ title: 'Changed after restore' }).then(() => null, (e: Error) => e);
+    let refused = await db('recipe_versions')
+      .where({ id: frozen.id })
+      .update({ title: 'Changed after restore' })
+      .then(
+        () => null,
+        (e: Error) => e,
+      );
     expect(refused?.message).to.match(/content is frozen/);
-    refused = await db('trail_events').where('id', 1).del().then(() => null, (e: Error) => e);
+    refused = await db('trail_events')
+      .where('id', 1)
+      .del()
+      .then(
+        () => null,
+        (e: Error) => e,
+      );
     expect(refused?.message).to.match(/append-only/);
-    refused = await db('signatures').del().then(() => null, (e: Error) => e);
+    refused = await db('signatures')
+      .del()
+      .then(
+        () => null,
+        (e: Error) => e,
+      );
     expect(refused?.message).to.match(/signatures are permanent/);
   });
 
@@ -235,7 +275,7 @@ describe('Backup and restore (npm run backup / restore)', function () {
     expect((await verifyChain(db)).ok).to.equal(true);
   });
 
-  it('takes one snapshot while the trail keeps growing: the dump holds exactly the events up to the manifest\'s chain head', async () => {
+  it("takes one snapshot while the trail keeps growing: the dump holds exactly the events up to the manifest's chain head", async () => {
     let writing = true;
     const writer = (async () => {
       const actor = { userId: null, name: 'Backup test', clientAddress: '127.0.0.1' };
@@ -257,8 +297,14 @@ describe('Backup and restore (npm run backup / restore)', function () {
       expect(later.length, 'events appended after the snapshot').to.be.above(0);
       expect(upToHead.length).to.equal(events);
       expect(upToHead[upToHead.length - 1]).to.equal(headHash);
-      expect(upToHead.filter((h) => !dump.includes(h)), 'events missing from the dump').to.deep.equal([]);
-      expect(later.filter((h) => dump.includes(h)), 'events the manifest does not count').to.deep.equal([]);
+      expect(
+        upToHead.filter((h) => !dump.includes(h)),
+        'events missing from the dump',
+      ).to.deep.equal([]);
+      expect(
+        later.filter((h) => dump.includes(h)),
+        'events the manifest does not count',
+      ).to.deep.equal([]);
     } finally {
       writing = false;
       await writer;
@@ -288,7 +334,13 @@ describe('Backup and restore (npm run backup / restore)', function () {
     const names = await triggerNames(db);
     expect(names).to.include.members(['trail_events_refuse_update', 'trail_events_refuse_delete']);
     expect(names.filter((n) => n.startsWith('audit_'))).to.deep.equal([]);
-    const refused = await db('trail_events').where('id', 1).update({ actor_name: 'Edited' }).then(() => null, (e: Error) => e);
+    const refused = await db('trail_events')
+      .where('id', 1)
+      .update({ actor_name: 'Edited' })
+      .then(
+        () => null,
+        (e: Error) => e,
+      );
     expect(refused?.message).to.match(/append-only/);
   });
 });

@@ -20,7 +20,8 @@ describe('Comparing versions', function () {
   let stock: StockSet;
   let softWheelId: number;
 
-  const compare = (query: Record<string, string | number>, who = reader, id: number = recipe.recipeId) => who.agent.get(`/api/recipes/${id}/compare`).query(query);
+  const compare = (query: Record<string, string | number>, who = reader, id: number = recipe.recipeId) =>
+    who.agent.get(`/api/recipes/${id}/compare`).query(query);
 
   before(async () => {
     const authorPerson = await createPerson(ctx.db, { roles: ['author'], displayName: 'Compare Author' });
@@ -30,21 +31,40 @@ describe('Comparing versions', function () {
     // The versions compared include a draft: an auditor reads every version (operators only released ones).
     reader = await signedInAgent(ctx.app, await createPerson(ctx.db, { roles: ['auditor'] }));
     stock = await createStockSet(ctx.db);
-    softWheelId = (await createStock(ctx.db, { userId: null, name: 'set-up', clientAddress: '' }, WHEELS, wheelInput({ name: 'Alumina 250 soft', specification: 'A60K5B' }))).id;
+    softWheelId = (
+      await createStock(ctx.db, { userId: null, name: 'set-up', clientAddress: '' }, WHEELS, wheelInput({ name: 'Alumina 250 soft', specification: 'A60K5B' }))
+    ).id;
 
     // Version 1: written, submitted and approved through the API.
-    recipe = (await author.agent.post('/api/recipes').set(CSRF_HEADER, author.csrf).send(recipeInput(stock, { instructionsMd: '1. Clamp the bar.\n2. Cut.' })).expect(201)).body;
-    const submitted = await author.agent.post(`/api/recipes/${recipe.recipeId}/versions/1/submit`).set(CSRF_HEADER, author.csrf).send({ revision: recipe.revision });
+    recipe = (
+      await author.agent
+        .post('/api/recipes')
+        .set(CSRF_HEADER, author.csrf)
+        .send(recipeInput(stock, { instructionsMd: '1. Clamp the bar.\n2. Cut.' }))
+        .expect(201)
+    ).body;
+    const submitted = await author.agent
+      .post(`/api/recipes/${recipe.recipeId}/versions/1/submit`)
+      .set(CSRF_HEADER, author.csrf)
+      .send({ revision: recipe.revision });
     expect(submitted.status, JSON.stringify(submitted.body)).to.equal(200);
     const v1 = submitted.body as RecipeVersionDto;
     const approved = await approver.agent
       .post(`/api/recipes/${recipe.recipeId}/versions/1/approve`)
       .set(CSRF_HEADER, approver.csrf)
-      .send({ revision: v1.revision, password: approverPerson.password, meaning: 'approved', acknowledgedWarnings: v1.checks.filter((c) => c.severity === 'warning').map((c) => c.id) });
+      .send({
+        revision: v1.revision,
+        password: approverPerson.password,
+        meaning: 'approved',
+        acknowledgedWarnings: v1.checks.filter((c) => c.severity === 'warning').map((c) => c.id),
+      });
     expect(approved.status, JSON.stringify(approved.body)).to.equal(200);
 
     // Version 2: a new draft with a slower feed, the soft wheel and one more word.
-    const v2 = await author.agent.post(`/api/recipes/${recipe.recipeId}/versions`).set(CSRF_HEADER, author.csrf).send({ fromVersion: 1, changeReason: 'Burn marks at 0.40 mm/s.' });
+    const v2 = await author.agent
+      .post(`/api/recipes/${recipe.recipeId}/versions`)
+      .set(CSRF_HEADER, author.csrf)
+      .send({ fromVersion: 1, changeReason: 'Burn marks at 0.40 mm/s.' });
     expect(v2.status, JSON.stringify(v2.body)).to.equal(201);
     const draft = v2.body as RecipeVersionDto;
     const saved = await author.agent
@@ -53,7 +73,11 @@ describe('Comparing versions', function () {
       .send({
         revision: draft.revision,
         title: draft.title,
-        content: { ...draft.content, cutting: { ...draft.content.cutting, feedMmS: 0.3, wheelId: softWheelId }, instructionsMd: '1. Clamp the bar firmly.\n2. Cut.' },
+        content: {
+          ...draft.content,
+          cutting: { ...draft.content.cutting, feedMmS: 0.3, wheelId: softWheelId },
+          instructionsMd: '1. Clamp the bar firmly.\n2. Cut.',
+        },
       });
     expect(saved.status, JSON.stringify(saved.body)).to.equal(200);
   });

@@ -85,10 +85,14 @@ describe('Several app processes behind a reverse proxy on one MariaDB', () => {
     const submitted = ok(await act.submit(author, ok(await act.save(author, v2, { cutting: { ...v2.content.cutting, feedMmS: 0.3 } }))));
     pending = ok(await act.approve(approver, submitted, { effectiveDate: day(10) }));
     // The day has come: move the effective date back (as the supersession test does).
-    await db('recipe_versions').where({ recipe_id: pending.recipeId, version: 2 }).update({ effective_from: day(0) });
+    await db('recipe_versions')
+      .where({ recipe_id: pending.recipeId, version: 2 })
+      .update({ effective_from: day(0) });
 
     dueForReview = await approved(author, approver, stock, { title: 'Review due soon' });
-    await db('recipe_versions').where({ recipe_id: dueForReview.recipeId, version: 1 }).update({ review_due_on: day(10) });
+    await db('recipe_versions')
+      .where({ recipe_id: dueForReview.recipeId, version: 1 })
+      .update({ review_due_on: day(10) });
 
     draft = await createDraft({ person: traveller, ...(await signedInAgent(prep.app, traveller)) }, stock, { title: 'Photo from either process' });
     mailsBefore = Object.fromEntries(
@@ -166,7 +170,9 @@ describe('Several app processes behind a reverse proxy on one MariaDB', () => {
     });
 
     it('uploads a photo through one process, and both serve it', async () => {
-      const png = await sharp({ create: { width: 400, height: 300, channels: 3, background: { r: 90, g: 120, b: 150 } } }).png().toBuffer();
+      const png = await sharp({ create: { width: 400, height: 300, channels: 3, background: { r: 90, g: 120, b: 150 } } })
+        .png()
+        .toBuffer();
       const res = await agent
         .post(`/api/recipes/${draft.recipeId}/versions/1/attachments`)
         .set(CSRF_HEADER, csrf)

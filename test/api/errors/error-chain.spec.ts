@@ -75,7 +75,12 @@ describe('Error chain, headers and the web app', () => {
     const res = await request(ctx.app).get('/api/health').expect(200);
     expect(res.body).to.deep.equal({ ok: true });
     const csp = res.headers['content-security-policy'] as string;
-    const directives = Object.fromEntries(csp.split(';').map((d) => d.trim().split(/\s+/)).map(([k, ...v]) => [k, v]));
+    const directives = Object.fromEntries(
+      csp
+        .split(';')
+        .map((d) => d.trim().split(/\s+/))
+        .map(([k, ...v]) => [k, v]),
+    );
     expect(directives['default-src']).to.deep.equal(["'self'"]);
     expect(directives['script-src']).to.deep.equal(["'self'"]);
     expect(directives['object-src']).to.deep.equal(["'none'"]);

@@ -36,7 +36,9 @@ describe('Mail marked sent across a database outage', function () {
 
   it('keeps trying the mark until MariaDB is back, so the mail goes out once', async () => {
     const now = new Date();
-    await db.transaction((trx) => enqueueMail(trx, { to: 'operator@lab.example', subject: 'Sent while the database went away', text: 'Text.', kind: 'test.notice' }, now));
+    await db.transaction((trx) =>
+      enqueueMail(trx, { to: 'operator@lab.example', subject: 'Sent while the database went away', text: 'Text.', kind: 'test.notice' }, now),
+    );
 
     // An SMTP server that stops MariaDB before it answers "250 accepted", and starts it again 2 s later.
     let accepted = 0;
@@ -56,7 +58,7 @@ describe('Mail marked sent across a database outage', function () {
       },
     });
     await new Promise<void>((resolve) => smtp!.listen(0, '127.0.0.1', () => resolve()));
-    const smtpPort = ((smtp as unknown as { server: { address(): AddressInfo } }).server.address()).port;
+    const smtpPort = (smtp as unknown as { server: { address(): AddressInfo } }).server.address().port;
     const transport = createMailTransport(`smtp://127.0.0.1:${smtpPort}`, { ignoreTls: true });
 
     const result = await deliverDueMails(db, transport, now);

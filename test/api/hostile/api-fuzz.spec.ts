@@ -37,7 +37,15 @@ const CALLERS: readonly Caller[] = ['anonymous', ...ROLES];
 const RECORDED_REFUSALS: Record<string, number[]> = { 'POST /api/session': [401] };
 
 /** Stack frames, source paths and database error text (OWASP Error Handling Cheat Sheet: no internals in answers). */
-const LEAKS: RegExp[] = [/\n\s+at\s/, /\bat\s+\S+\s+\(\S+:\d+:\d+\)/, /node_modules|\/work\/|\.ts:\d+/, /\bER_[A-Z_]{3,}\b/, /sqlMessage|sqlState|errno/i, /\bfrom\s+`\w+`/i, /"stack"\s*:/];
+const LEAKS: RegExp[] = [
+  /\n\s+at\s/,
+  /\bat\s+\S+\s+\(\S+:\d+:\d+\)/,
+  /node_modules|\/work\/|\.ts:\d+/,
+  /\bER_[A-Z_]{3,}\b/,
+  /sqlMessage|sqlState|errno/i,
+  /\bfrom\s+`\w+`/i,
+  /"stack"\s*:/,
+];
 
 interface HostileRequest {
   body: { kind: 'none' } | { kind: 'json'; value: unknown } | { kind: 'raw'; type: string; payload: string | Buffer };
@@ -96,7 +104,9 @@ function mutationsOf(valid: object): fc.Arbitrary<unknown> {
   const paths = leafPaths(valid);
   return fc.oneof(
     fc.tuple(fc.nat(paths.length - 1), hostileLeaf).map(([i, leaf]) => replaced(valid, paths[i]!, leaf)),
-    fc.tuple(fc.constantFrom(...POLLUTION_KEYS), hostileLeaf).map(([key, leaf]) => JSON.parse(JSON.stringify(valid).replace(/^\{/, `{${JSON.stringify(key)}:${JSON.stringify(leaf) ?? 'null'},`))),
+    fc
+      .tuple(fc.constantFrom(...POLLUTION_KEYS), hostileLeaf)
+      .map(([key, leaf]) => JSON.parse(JSON.stringify(valid).replace(/^\{/, `{${JSON.stringify(key)}:${JSON.stringify(leaf) ?? 'null'},`))),
   );
 }
 
@@ -118,7 +128,13 @@ function hostileRequest(route: RouteDefinition, valid: object | undefined): fc.A
 }
 
 /** The first request of every batch: a plain hostile JSON body on the walk path with a valid token. */
-const PLAIN: HostileRequest = { body: { kind: 'json', value: JSON.parse('{"__proto__":1,"name":["x"],"revision":"1"}') }, query: null, headers: {}, param: null, csrf: 'valid' };
+const PLAIN: HostileRequest = {
+  body: { kind: 'json', value: JSON.parse('{"__proto__":1,"name":["x"],"revision":"1"}') },
+  query: null,
+  headers: {},
+  param: null,
+  csrf: 'valid',
+};
 
 function send(agent: Agent, csrf: string, route: RouteDefinition, t: Targets, r: HostileRequest) {
   let path = pathFor(route, t);
@@ -156,7 +172,9 @@ function expectSafeAnswer(res: Response, what: string): void {
   if (res.status < 400) return;
   expect(res.headers['content-type'], what).to.match(/^application\/json/);
   const body = res.body as { code?: unknown; errors?: unknown };
-  expect(body.code, what).to.be.a('string').and.match(/^[A-Z_]+$/);
+  expect(body.code, what)
+    .to.be.a('string')
+    .and.match(/^[A-Z_]+$/);
   expect(body.errors, what).to.be.an('array').that.is.not.empty;
   for (const e of body.errors as { path?: unknown; message?: unknown }[]) {
     expect(e.path, what).to.be.a('string');
@@ -229,7 +247,10 @@ describe('API fuzzer: every route, every role, hostile input', function () {
         // A read never writes, whatever it answers; any other route writes nothing when it only refused.
         if (onlyRefusals || route.method === 'get') {
           const after = await dbFingerprint(ctx.db);
-          expect(changedTables(before, after), `${label(route)} as ${caller}: ${onlyRefusals ? 'only refusals' : 'a read'}, yet these tables changed`).to.deep.equal([]);
+          expect(
+            changedTables(before, after),
+            `${label(route)} as ${caller}: ${onlyRefusals ? 'only refusals' : 'a read'}, yet these tables changed`,
+          ).to.deep.equal([]);
           compared.add(label(route));
         }
         // After the comparison: signing in again is itself recorded.
@@ -239,7 +260,10 @@ describe('API fuzzer: every route, every role, hostile input', function () {
   }
 
   it('compared the database around at least one caller of every non-public route', () => {
-    const missed = routes.filter((r) => r.access !== 'public').map(label).filter((line) => !compared.has(line));
+    const missed = routes
+      .filter((r) => r.access !== 'public')
+      .map(label)
+      .filter((line) => !compared.has(line));
     expect(missed).to.deep.equal([]);
   });
 

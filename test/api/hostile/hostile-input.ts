@@ -18,15 +18,79 @@ export const POLLUTION_KEYS = ['__proto__', 'constructor', 'prototype', '__defin
 
 /** Field names the API's bodies and queries really use (shared/schemas), so some fuzz lands on real fields. */
 export const FIELD_NAMES = [
-  'username', 'password', 'currentPassword', 'newPassword', 'displayName', 'email', 'roles', 'temporaryPassword', 'machineIds',
-  'units', 'name', 'designation', 'group', 'condition', 'hardness', 'notes', 'kind', 'specification', 'diameterMm',
-  'title', 'content', 'revision', 'comment', 'meaning', 'acknowledgedWarnings', 'reason', 'fromVersion', 'changeReason',
-  'effectiveDate', 'specimenId', 'partRef', 'quantity', 'outcome', 'role', 'caption', 'token', 'wheelId', 'note',
-  'q', 'page', 'pageSize', 'sort', 'dir', 'status', 'limit', 'from', 'to', 'type', 'userId', 'recipeId', 'machineId',
+  'username',
+  'password',
+  'currentPassword',
+  'newPassword',
+  'displayName',
+  'email',
+  'roles',
+  'temporaryPassword',
+  'machineIds',
+  'units',
+  'name',
+  'designation',
+  'group',
+  'condition',
+  'hardness',
+  'notes',
+  'kind',
+  'specification',
+  'diameterMm',
+  'title',
+  'content',
+  'revision',
+  'comment',
+  'meaning',
+  'acknowledgedWarnings',
+  'reason',
+  'fromVersion',
+  'changeReason',
+  'effectiveDate',
+  'specimenId',
+  'partRef',
+  'quantity',
+  'outcome',
+  'role',
+  'caption',
+  'token',
+  'wheelId',
+  'note',
+  'q',
+  'page',
+  'pageSize',
+  'sort',
+  'dir',
+  'status',
+  'limit',
+  'from',
+  'to',
+  'type',
+  'userId',
+  'recipeId',
+  'machineId',
 ];
 
 /** Numbers written as text, and text that looks like numbers to a careless parser. */
-const NUMBERS_AS_STRINGS = ['1', '-1', '0', '-0', '1.5', '1e3', '1e309', '-1e309', 'NaN', 'Infinity', '0x10', '0b1', '08', ' 1 ', '1_000', '9007199254740993', '99999999999999999999999'];
+const NUMBERS_AS_STRINGS = [
+  '1',
+  '-1',
+  '0',
+  '-0',
+  '1.5',
+  '1e3',
+  '1e309',
+  '-1e309',
+  'NaN',
+  'Infinity',
+  '0x10',
+  '0b1',
+  '08',
+  ' 1 ',
+  '1_000',
+  '9007199254740993',
+  '99999999999999999999999',
+];
 
 /** Strings a database, a shell, a path or a template might treat specially. */
 const NASTY_STRINGS = [
@@ -73,9 +137,13 @@ export const hostileLeaf: fc.Arbitrary<unknown> = fc.oneof(
 );
 
 /** An object with real field names and polluting keys, holding hostile values. */
-export const hostileObject: fc.Arbitrary<Record<string, unknown>> = fc.dictionary(fc.oneof(fc.constantFrom(...FIELD_NAMES, ...POLLUTION_KEYS), fc.string({ maxLength: 8 })), hostileLeaf, {
-  maxKeys: 6,
-});
+export const hostileObject: fc.Arbitrary<Record<string, unknown>> = fc.dictionary(
+  fc.oneof(fc.constantFrom(...FIELD_NAMES, ...POLLUTION_KEYS), fc.string({ maxLength: 8 })),
+  hostileLeaf,
+  {
+    maxKeys: 6,
+  },
+);
 
 /** Any JSON value: objects, arrays for objects, scalars for objects, nested a little. */
 export const hostileJson: fc.Arbitrary<unknown> = fc.oneof(
@@ -175,11 +243,17 @@ export const queryString: fc.Arbitrary<string> = fc.oneof(
     '&&&==&=',
     'q',
   ),
-  fc.dictionary(fc.constantFrom(...FIELD_NAMES, ...POLLUTION_KEYS), fc.oneof(fc.string({ maxLength: 30 }), fc.constantFrom(...NUMBERS_AS_STRINGS, ...NASTY_STRINGS)), { maxKeys: 4 }).map((q) =>
-    Object.entries(q)
-      .map(([k, v]) => `${encodeURIComponent(k)}=${encodeURIComponent(v.replace(/[\ud800-\udfff]/g, '?'))}`)
-      .join('&'),
-  ),
+  fc
+    .dictionary(
+      fc.constantFrom(...FIELD_NAMES, ...POLLUTION_KEYS),
+      fc.oneof(fc.string({ maxLength: 30 }), fc.constantFrom(...NUMBERS_AS_STRINGS, ...NASTY_STRINGS)),
+      { maxKeys: 4 },
+    )
+    .map((q) =>
+      Object.entries(q)
+        .map(([k, v]) => `${encodeURIComponent(k)}=${encodeURIComponent(v.replace(/[\ud800-\udfff]/g, '?'))}`)
+        .join('&'),
+    ),
 );
 
 /** Odd request headers (only characters Node's client lets through). */

@@ -44,13 +44,29 @@ describe('Malformed requests answer 4xx, never 500', () => {
   it('answers 400 INVALID_JSON to a body that does not match its Content-Encoding, and reads one that does', async () => {
     const body = JSON.stringify({ units: 'metric+imperial' });
     for (const encoding of ['gzip', 'deflate', 'br']) {
-      const res = await who.agent.patch('/api/session/preferences').set(CSRF_HEADER, who.csrf).set('Content-Type', 'application/json').set('Content-Encoding', encoding).send(body);
+      const res = await who.agent
+        .patch('/api/session/preferences')
+        .set(CSRF_HEADER, who.csrf)
+        .set('Content-Type', 'application/json')
+        .set('Content-Encoding', encoding)
+        .send(body);
       expect(res.status, encoding).to.equal(400);
       expect(res.body.code, encoding).to.equal('INVALID_JSON');
     }
-    const bogus = await who.agent.patch('/api/session/preferences').set(CSRF_HEADER, who.csrf).set('Content-Type', 'application/json').set('Content-Encoding', 'bogus').send(body);
+    const bogus = await who.agent
+      .patch('/api/session/preferences')
+      .set(CSRF_HEADER, who.csrf)
+      .set('Content-Type', 'application/json')
+      .set('Content-Encoding', 'bogus')
+      .send(body);
     expect(bogus.status).to.equal(415);
-    const real = await who.agent.patch('/api/session/preferences').set(CSRF_HEADER, who.csrf).set('Content-Type', 'application/json').set('Content-Encoding', 'gzip').serialize((b: unknown) => b as string).send(gzipSync(body));
+    const real = await who.agent
+      .patch('/api/session/preferences')
+      .set(CSRF_HEADER, who.csrf)
+      .set('Content-Type', 'application/json')
+      .set('Content-Encoding', 'gzip')
+      .serialize((b: unknown) => b as string)
+      .send(gzipSync(body));
     expect(real.status, JSON.stringify(real.body)).to.equal(200);
     expect(real.body.user.units).to.equal('metric+imperial');
   });

@@ -34,7 +34,10 @@ function filesWithMark(): string[] {
   const dirs = [process.cwd(), path.dirname(process.cwd()), os.tmpdir(), '/', '/etc', '/tmp'];
   return dirs.flatMap((dir) => {
     try {
-      return fs.readdirSync(dir).filter((f) => f.includes(MARK)).map((f) => path.join(dir, f));
+      return fs
+        .readdirSync(dir)
+        .filter((f) => f.includes(MARK))
+        .map((f) => path.join(dir, f));
     } catch {
       return [];
     }
@@ -54,7 +57,9 @@ describe('Upload and download attacks', () => {
     all = await signedInAgent(ctx.app, await createPerson(ctx.db, { roles: [...ROLES] }));
     const stock = await createStockSet(ctx.db);
     draft = (await author.agent.post('/api/recipes').set(CSRF_HEADER, author.csrf).send(recipeInput(stock)).expect(201)).body;
-    png = await sharp({ create: { width: 16, height: 16, channels: 3, background: '#406080' } }).png().toBuffer();
+    png = await sharp({ create: { width: 16, height: 16, channels: 3, background: '#406080' } })
+      .png()
+      .toBuffer();
     targets = await createTargets(ctx.db);
   });
 
@@ -202,7 +207,12 @@ describe('Upload and download attacks', () => {
       expect((await many.attach('file', png, 'a.png')).status).to.equal(400);
       const noBoundary = await author.agent.post(uploadUrl()).set(CSRF_HEADER, author.csrf).set('Content-Type', 'multipart/form-data').send('--x\r\n\r\n');
       expect(noBoundary.status).to.equal(400);
-      const polluted = await author.agent.post(uploadUrl()).set(CSRF_HEADER, author.csrf).field('__proto__', 'x').field('constructor', 'y').attach('file', png, 'a.png');
+      const polluted = await author.agent
+        .post(uploadUrl())
+        .set(CSRF_HEADER, author.csrf)
+        .field('__proto__', 'x')
+        .field('constructor', 'y')
+        .attach('file', png, 'a.png');
       expect(polluted.status).to.equal(400);
       expect(({} as Record<string, unknown>)['x']).to.equal(undefined);
       expect(changedTables(before, await dbFingerprint(ctx.db))).to.deep.equal([]);
@@ -210,7 +220,9 @@ describe('Upload and download attacks', () => {
 
     it('refuses a small file that decodes to a huge bitmap (decompression bomb), storing nothing', async function () {
       this.timeout(30_000);
-      const bomb = await sharp({ create: { width: 8_000, height: 6_000, channels: 3, background: '#000000' } }).png({ compressionLevel: 9 }).toBuffer();
+      const bomb = await sharp({ create: { width: 8_000, height: 6_000, channels: 3, background: '#000000' } })
+        .png({ compressionLevel: 9 })
+        .toBuffer();
       expect(bomb.length).to.be.below(1024 * 1024);
       const before = await dbFingerprint(ctx.db);
       const res = await upload(bomb, 'bomb.png');
@@ -222,8 +234,12 @@ describe('Upload and download attacks', () => {
 
   describe('wrong file types', () => {
     it('refuses real images of other kinds and executables dressed as photos (415), storing nothing', async () => {
-      const gif = await sharp({ create: { width: 8, height: 8, channels: 3, background: '#ff0000' } }).gif().toBuffer();
-      const tiff = await sharp({ create: { width: 8, height: 8, channels: 3, background: '#ff0000' } }).tiff().toBuffer();
+      const gif = await sharp({ create: { width: 8, height: 8, channels: 3, background: '#ff0000' } })
+        .gif()
+        .toBuffer();
+      const tiff = await sharp({ create: { width: 8, height: 8, channels: 3, background: '#ff0000' } })
+        .tiff()
+        .toBuffer();
       const bmp = Buffer.concat([Buffer.from('BM'), Buffer.alloc(52)]);
       const elf = Buffer.concat([Buffer.from([0x7f, 0x45, 0x4c, 0x46, 2, 1, 1, 0]), Buffer.alloc(120)]);
       const zip = Buffer.concat([Buffer.from([0x50, 0x4b, 0x03, 0x04, 0x14, 0, 0, 0]), Buffer.alloc(60)]);

@@ -52,7 +52,10 @@ describe('Account mails: invitations', () => {
     expect(res.body).to.include({ username: 'olga.operator', active: true, mustChangePassword: false, invitationPending: true });
     expect(res.body.machineIds).to.deep.equal([sawA, sawB].sort((a, b) => a - b));
 
-    const event = await ctx.db('trail_events').where({ event_type: 'user.invited', entity_id: String(res.body.id) }).first();
+    const event = await ctx
+      .db('trail_events')
+      .where({ event_type: 'user.invited', entity_id: String(res.body.id) })
+      .first();
     expect(event).to.include({ actor_user_id: admin.id, actor_name: 'Ada Admin' });
     expect(asJson(event.after_json)).to.include({ username: 'olga.operator', email: 'olga@lab.example' });
 
@@ -86,7 +89,12 @@ describe('Account mails: invitations', () => {
     const set = await publicPost('/api/password/set', { token, newPassword: 'olga chose this one' });
     expect(set.status, JSON.stringify(set.body)).to.equal(200);
     expect(set.body.message).to.be.a('string');
-    expect(await ctx.db('trail_events').where({ event_type: 'user.password_set_by_link', entity_id: String(res.body.id) }).first()).to.not.equal(undefined);
+    expect(
+      await ctx
+        .db('trail_events')
+        .where({ event_type: 'user.password_set_by_link', entity_id: String(res.body.id) })
+        .first(),
+    ).to.not.equal(undefined);
 
     const olga = await signedInAgent(ctx.app, { username: 'olga.operator', password: 'olga chose this one' });
     const me = await olga.agent.get('/api/session').expect(200);
@@ -120,7 +128,10 @@ describe('Account mails: invitations', () => {
   it('refuses an expired link with 410 LINK_EXPIRED and a clear message', async () => {
     const res = await post('/api/users/invitations', { username: 'late.comer', displayName: 'Late', email: 'late@lab.example', roles: [] });
     const token = tokenIn((await mailsTo(ctx.db, 'late@lab.example'))[0]!.text_body);
-    await ctx.db('user_tokens').where({ user_id: res.body.id }).update({ expires_at: new Date(Date.now() - 1000) });
+    await ctx
+      .db('user_tokens')
+      .where({ user_id: res.body.id })
+      .update({ expires_at: new Date(Date.now() - 1000) });
     for (const path of ['/api/password/link', '/api/password/set']) {
       const answer = await publicPost(path, path.endsWith('/set') ? { token, newPassword: 'too late for this' } : { token });
       expect(answer.status, path).to.equal(410);

@@ -70,13 +70,23 @@ describe('Account mails: forgot password', () => {
     const mails = await mailsTo(ctx.db, 'rate.limited@lab.example');
     expect(mails).to.have.length(3);
     const anon = await anonymousAgent(ctx.app);
-    const first = await anon.agent.post('/api/password/link').set(CSRF_HEADER, anon.csrf).send({ token: tokenIn(mails[0]!.text_body) });
+    const first = await anon.agent
+      .post('/api/password/link')
+      .set(CSRF_HEADER, anon.csrf)
+      .send({ token: tokenIn(mails[0]!.text_body) });
     expect(first.status).to.equal(410);
     expect(first.body.code).to.equal('LINK_USED');
-    await anon.agent.post('/api/password/link').set(CSRF_HEADER, anon.csrf).send({ token: tokenIn(mails[2]!.text_body) }).expect(200);
+    await anon.agent
+      .post('/api/password/link')
+      .set(CSRF_HEADER, anon.csrf)
+      .send({ token: tokenIn(mails[2]!.text_body) })
+      .expect(200);
 
     // An hour later the limit lets another one through.
-    await ctx.db('user_tokens').where({ user_id: person.id }).update({ created_at: new Date(Date.now() - 61 * 60_000) });
+    await ctx
+      .db('user_tokens')
+      .where({ user_id: person.id })
+      .update({ created_at: new Date(Date.now() - 61 * 60_000) });
     await publicPost('/api/password/forgot', { email: 'rate.limited@lab.example' });
     expect(await mailsTo(ctx.db, 'rate.limited@lab.example')).to.have.length(4);
   });
@@ -98,7 +108,10 @@ describe('Account mails: forgot password', () => {
     const anon = await anonymousAgent(ctx.app);
     const old = await anon.agent.post('/api/session').set(CSRF_HEADER, anon.csrf).send({ username: 'ren.resets', password: person.password });
     expect(old.status).to.equal(401);
-    const event = await ctx.db('trail_events').where({ event_type: 'user.password_set_by_link', entity_id: String(person.id) }).first();
+    const event = await ctx
+      .db('trail_events')
+      .where({ event_type: 'user.password_set_by_link', entity_id: String(person.id) })
+      .first();
     expect(event).to.include({ actor_user_id: person.id });
     expect(JSON.stringify(event)).not.to.include('a brand new secret');
   });

@@ -19,7 +19,11 @@ describe('Account mails: notification preferences', () => {
     ({ agent, csrf } = await signedInAgent(ctx.app, person));
   });
 
-  const patch = (body: unknown) => agent.patch('/api/session/notifications').set(CSRF_HEADER, csrf).send(body as object);
+  const patch = (body: unknown) =>
+    agent
+      .patch('/api/session/notifications')
+      .set(CSRF_HEADER, csrf)
+      .send(body as object);
   const enabled = (items: { kind: string; enabled: boolean }[]) => Object.fromEntries(items.map((i) => [i.kind, i.enabled]));
 
   it('lists every kind, all on at first', async () => {
@@ -32,7 +36,13 @@ describe('Account mails: notification preferences', () => {
   it('turns kinds off and on again, keeping the others, and records the change', async () => {
     const off = await patch({ 'review-due': false, 'cut-flagged': false });
     expect(off.status, JSON.stringify(off.body)).to.equal(200);
-    expect(enabled(off.body.items)).to.deep.equal({ 'review-requested': true, 'review-outcome': true, 'review-due': false, 'cut-flagged': false, 'version-current': true });
+    expect(enabled(off.body.items)).to.deep.equal({
+      'review-requested': true,
+      'review-outcome': true,
+      'review-due': false,
+      'cut-flagged': false,
+      'version-current': true,
+    });
     expect(await ctx.db('notification_opt_outs').where({ user_id: personId }).orderBy('kind').pluck('kind')).to.deep.equal(['cut-flagged', 'review-due']);
 
     const back = await patch({ 'review-due': true });

@@ -31,7 +31,12 @@ describe('Demo seeds: machines, acknowledgements and the mail they caused', () =
   });
 
   it('assigns the demo operator to the two bay saws', async () => {
-    const names = (await ctx.db('user_machines as um').join('machines as m', 'm.id', 'um.machine_id').where('um.user_id', operatorId).orderBy('m.name').pluck('m.name')) as string[];
+    const names = (await ctx
+      .db('user_machines as um')
+      .join('machines as m', 'm.id', 'um.machine_id')
+      .where('um.user_id', operatorId)
+      .orderBy('m.name')
+      .pluck('m.name')) as string[];
     expect(names).to.deep.equal([...operator.machines!].sort());
   });
 
@@ -56,7 +61,13 @@ describe('Demo seeds: machines, acknowledgements and the mail they caused', () =
     const adminRow = (await ctx.db('users').where({ username: admin.username }).first('id', 'display_name')) as { id: number; display_name: string };
     const actor = { userId: adminRow.id, name: adminRow.display_name, clientAddress: '127.0.0.1' };
     expect((await sendReviewReminders(ctx.db, new Date(), MAIL)).mails).to.be.greaterThan(0);
-    await inviteUser(ctx.db, actor, MAIL, { username: 'new.starter', displayName: 'Ada Newstart', email: 'ada.newstart@harrowgate.example', roles: ['operator'], machineIds: [] });
+    await inviteUser(ctx.db, actor, MAIL, {
+      username: 'new.starter',
+      displayName: 'Ada Newstart',
+      email: 'ada.newstart@harrowgate.example',
+      roles: ['operator'],
+      machineIds: [],
+    });
     await requestPasswordReset(ctx.db, actor, MAIL, operator.email);
 
     const queued = (await ctx.db<MailRow>('mail_outbox').whereNull('sent_at').orderBy('id')) as MailRow[];
@@ -97,7 +108,10 @@ describe('Demo seeds: machines, acknowledgements and the mail they caused', () =
     expect(recipe, `${kind} links to ${path}`).to.not.equal(null);
     const [, id, screen, ackVersion, viewVersion] = recipe!;
     const version = ackVersion ?? viewVersion;
-    const row = await ctx.db('recipe_versions').where({ recipe_id: Number(id), ...(version ? { version: Number(version) } : {}) }).first('id', 'status');
+    const row = await ctx
+      .db('recipe_versions')
+      .where({ recipe_id: Number(id), ...(version ? { version: Number(version) } : {}) })
+      .first('id', 'status');
     expect(row, path).to.exist;
     if (kind === 'version-current') expect(ackVersion, path).to.be.a('string');
     if (screen === 'review') expect(kind).to.equal('review-requested');

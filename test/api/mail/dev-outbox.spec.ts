@@ -13,7 +13,11 @@ describe('Development outbox API', () => {
       enqueueMail(trx, { to: 'first@lab.example', subject: 'First', text: 'One.', kind: 'test.first' }, new Date('2027-01-01T10:00:00.000Z')),
     );
     const secondId = await ctx.db.transaction((trx) =>
-      enqueueMail(trx, { to: 'second@lab.example', subject: 'Second', text: 'Two.', html: '<p>Two.</p>', kind: 'test.second' }, new Date('2027-01-02T10:00:00.000Z')),
+      enqueueMail(
+        trx,
+        { to: 'second@lab.example', subject: 'Second', text: 'Two.', html: '<p>Two.</p>', kind: 'test.second' },
+        new Date('2027-01-02T10:00:00.000Z'),
+      ),
     );
     await ctx.db('mail_outbox').where({ id: secondId }).update({ attempts: 2, last_error: 'connect ECONNREFUSED 127.0.0.1:2525' });
 

@@ -64,7 +64,11 @@ describe('Notification mails: version in use and flagged cuts', () => {
     const v1 = await approved(author, approver, stock, { title: 'C45 bar in use' });
     expect(await recipientsOf(ctx.db, 'version-current')).to.deep.equal(expectedOperators);
     for (const mail of await mailsOf(ctx.db, 'version-current')) {
-      expectMail(mail, { subject: `New version in use: ${v1.number} v1 "C45 bar in use" — please acknowledge`, path: `/recipes/${v1.recipeId}/acknowledge?v=1`, optional: false });
+      expectMail(mail, {
+        subject: `New version in use: ${v1.number} v1 "C45 bar in use" — please acknowledge`,
+        path: `/recipes/${v1.recipeId}/acknowledge?v=1`,
+        optional: false,
+      });
       expect(mail.text_body).to.contain('first version');
       expect(mail.text_body).to.contain('Bench saw');
     }
@@ -73,7 +77,11 @@ describe('Notification mails: version in use and flagged cuts', () => {
     const v2 = ok(await act.approve(approver, await secondVersion(v1, 'Feed lowered after burn marks.')));
     expect(await recipientsOf(ctx.db, 'version-current')).to.deep.equal(expectedOperators);
     for (const mail of await mailsOf(ctx.db, 'version-current')) {
-      expectMail(mail, { subject: `New version in use: ${v2.number} v2 "C45 bar in use" — please acknowledge`, path: `/recipes/${v1.recipeId}/acknowledge?v=2`, optional: false });
+      expectMail(mail, {
+        subject: `New version in use: ${v2.number} v2 "C45 bar in use" — please acknowledge`,
+        path: `/recipes/${v1.recipeId}/acknowledge?v=2`,
+        optional: false,
+      });
       expect(mail.text_body).to.contain('What changed: Feed lowered after burn marks.');
       expect(mail.text_body).to.contain('It replaces version 1.');
       expect(mail.text_body).to.contain('acknowledge it');
@@ -113,7 +121,8 @@ describe('Notification mails: version in use and flagged cuts', () => {
     draft = ok(await act.save(helper, draft));
     draft = ok(await act.save(quiet, draft));
     const current = ok(await act.approve(approver, ok(await act.submit(author, draft))));
-    const cut = (v: RecipeVersionDto, outcome: string) => post(operator, `/api/recipes/${v.recipeId}/versions/${v.version}/cuts`, { specimenId: 'S-77', outcome, notes: 'Blue at the exit side.' });
+    const cut = (v: RecipeVersionDto, outcome: string) =>
+      post(operator, `/api/recipes/${v.recipeId}/versions/${v.version}/cuts`, { specimenId: 'S-77', outcome, notes: 'Blue at the exit side.' });
     await ctx.db('mail_outbox').delete();
 
     expect((await cut(current, 'good')).status).to.equal(201);

@@ -85,7 +85,11 @@ describe('Notification mails: review due', () => {
 
   it('sends once when two runs start at the same moment', async () => {
     const at = noon(wednesday);
-    const results = await Promise.all([sendReviewReminders(ctx.db, at, settings), sendReviewReminders(ctx.db, at, settings), sendReviewReminders(ctx.db, at, settings)]);
+    const results = await Promise.all([
+      sendReviewReminders(ctx.db, at, settings),
+      sendReviewReminders(ctx.db, at, settings),
+      sendReviewReminders(ctx.db, at, settings),
+    ]);
     expect(results.reduce((n, r) => n + r.reminded, 0)).to.equal(1);
     expect(results.reduce((n, r) => n + r.mails, 0)).to.equal(2);
     expect(await countRows(ctx.db, 'mail_outbox')).to.equal(2);

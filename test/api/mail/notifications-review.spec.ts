@@ -59,7 +59,11 @@ describe('Notification mails: review requested and review outcome', () => {
     // out, not the deactivated approver, not the one without an e-mail, not authors.
     expect(await recipientsOf(ctx.db, 'review-requested')).to.deep.equal([approver.person.username, approverAuthor.person.username].map(addressOf).sort());
     for (const mail of await mailsOf(ctx.db, 'review-requested')) {
-      expectMail(mail, { subject: `Review requested: ${submitted.number} v1 "C45 bar for review mail"`, path: `/recipes/${submitted.recipeId}/review`, optional: true });
+      expectMail(mail, {
+        subject: `Review requested: ${submitted.number} v1 "C45 bar for review mail"`,
+        path: `/recipes/${submitted.recipeId}/review`,
+        optional: true,
+      });
       expect(mail.text_body).to.contain('Ines Author sent');
     }
     expect(await countRows(ctx.db, 'mail_outbox')).to.equal(2);

@@ -163,10 +163,7 @@ describe('Mail outbox', () => {
     const count = 30;
     for (let i = 1; i <= count; i++) await enqueue(i);
 
-    const [a, b] = await Promise.all([
-      deliverDueMails(db, transportTo(catcher.port), at(1000)),
-      deliverDueMails(db, transportTo(catcher.port), at(1000)),
-    ]);
+    const [a, b] = await Promise.all([deliverDueMails(db, transportTo(catcher.port), at(1000)), deliverDueMails(db, transportTo(catcher.port), at(1000))]);
     expect(a.failed + b.failed).to.equal(0);
     expect(a.sent + b.sent).to.equal(count);
 
@@ -181,8 +178,12 @@ describe('Mail outbox', () => {
     const transport = transportTo(catcher.port);
     const abandoned = await enqueue(1);
     const held = await enqueue(2);
-    await db('mail_outbox').where({ id: abandoned }).update({ sending_claimed_by: 'gone:1', sending_claimed_until: at(-1000) });
-    await db('mail_outbox').where({ id: held }).update({ sending_claimed_by: 'busy:2', sending_claimed_until: at(60 * 1000) });
+    await db('mail_outbox')
+      .where({ id: abandoned })
+      .update({ sending_claimed_by: 'gone:1', sending_claimed_until: at(-1000) });
+    await db('mail_outbox')
+      .where({ id: held })
+      .update({ sending_claimed_by: 'busy:2', sending_claimed_until: at(60 * 1000) });
 
     expect(await deliverDueMails(db, transport, at(0))).to.deep.equal({ sent: 1, failed: 0 });
     expect(catcher.messages().map((m) => m.subject)).to.deep.equal(['New version to read — mail 1']);
@@ -196,7 +197,9 @@ describe('Mail outbox', () => {
   it('runs on a timer started by startJobs when SMTP_URL is set, and stops when the jobs stop', async function () {
     this.timeout(20000);
     catcher = await startMailCatcher(0, { dir: null });
-    const id = await db.transaction((trx) => enqueueMail(trx, { to: 'timer@lab.example', subject: 'From the timer', text: 'Sent by the worker.', kind: 'test.notice' }));
+    const id = await db.transaction((trx) =>
+      enqueueMail(trx, { to: 'timer@lab.example', subject: 'From the timer', text: 'Sent by the worker.', kind: 'test.notice' }),
+    );
     const jobs = startJobs({
       db,
       config: testConfig({ smtpUrl: `smtp://127.0.0.1:${catcher.port}`, mailFrom: 'Kerfbook Timer <timer-sender@lab.example>', mailIntervalMs: 50 }),

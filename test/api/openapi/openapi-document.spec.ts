@@ -41,7 +41,10 @@ function documentedParameters(op: Operation, where: 'path' | 'query'): { propert
   if (list.length === 0) return undefined;
   return {
     properties: Object.fromEntries(list.map((p) => [p['name'] as string, p['schema']])),
-    required: list.filter((p) => p['required']).map((p) => p['name'] as string).sort(),
+    required: list
+      .filter((p) => p['required'])
+      .map((p) => p['name'] as string)
+      .sort(),
   };
 }
 

@@ -69,7 +69,10 @@ describe('Acknowledgements', () => {
   it('keeps the sheet from an operator of the machine until they acknowledge; others print as before', async () => {
     const res = await operator.agent.get(`${path(current)}/sheet.pdf`);
     expect(res.status).to.equal(409);
-    expect(res.body).to.deep.equal({ code: 'ACKNOWLEDGE_FIRST', errors: [{ path: '', message: 'Acknowledge this version (read and understood) before printing its sheet.' }] });
+    expect(res.body).to.deep.equal({
+      code: 'ACKNOWLEDGE_FIRST',
+      errors: [{ path: '', message: 'Acknowledge this version (read and understood) before printing its sheet.' }],
+    });
     for (const who of [elsewhere, author, approver]) {
       const sheet = await getSheet(who.agent, current.recipeId, 1);
       expect(sheet.status, who.person.username).to.equal(200);
@@ -103,7 +106,12 @@ describe('Acknowledgements', () => {
     const row = await ctx.db('acknowledgements').where({ user_id: operator.person.id }).first();
     expect(row).to.include({ user_name: 'Kofi Operator' });
     const event = await ctx.db('trail_events').orderBy('id', 'desc').first();
-    expect(event).to.include({ event_type: 'recipe.version_acknowledged', actor_user_id: operator.person.id, recipe_id: current.recipeId, entity_type: 'recipe_version' });
+    expect(event).to.include({
+      event_type: 'recipe.version_acknowledged',
+      actor_user_id: operator.person.id,
+      recipe_id: current.recipeId,
+      entity_type: 'recipe_version',
+    });
     expect(asJson(event.after_json)).to.include({ version: 1, number: current.number, machineId: stock.machine.id });
 
     expect(await mine(operator, current)).to.deep.equal({ required: false, acknowledgedAt: res.body.acknowledgedAt });

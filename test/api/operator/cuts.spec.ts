@@ -42,7 +42,18 @@ describe('Cut records', () => {
       const res = await cut(current, { specimenId: 'S-1001', partRef: 'Heat 7731', quantity: 2, outcome: 'good', notes: '' });
       expect(res.status, JSON.stringify(res.body)).to.equal(201);
       const dto = res.body as CutRecordDto;
-      expect(dto).to.include({ recipeId: current.recipeId, number: current.number, version: 1, specimenId: 'S-1001', partRef: 'Heat 7731', quantity: 2, outcome: 'good', operatorId: operator.person.id, operatorName: 'Kofi Operator', flagClearedAt: null });
+      expect(dto).to.include({
+        recipeId: current.recipeId,
+        number: current.number,
+        version: 1,
+        specimenId: 'S-1001',
+        partRef: 'Heat 7731',
+        quantity: 2,
+        outcome: 'good',
+        operatorId: operator.person.id,
+        operatorName: 'Kofi Operator',
+        flagClearedAt: null,
+      });
       expect(dto.cutAt).to.match(/Z$/);
       expect(Date.parse(dto.cutAt)).to.be.within(t0 - 1000, Date.now() + 1000);
       expect(await written()).to.deep.equal({ cuts: before.cuts + 1, trail: before.trail + 1 });
@@ -107,7 +118,9 @@ describe('Cut records', () => {
       const before = await written();
       const res = await cut(pending, { specimenId: 'S-1', outcome: 'good' });
       expect(res.status).to.equal(409);
-      expect(res.body.errors[0].message).to.equal(`Version 2 of ${first.number} is approved but not in force yet: cuts are recorded only on the current version. Use version 1, the one in force.`);
+      expect(res.body.errors[0].message).to.equal(
+        `Version 2 of ${first.number} is approved but not in force yet: cuts are recorded only on the current version. Use version 1, the one in force.`,
+      );
       expect(await written()).to.deep.equal(before);
     });
   });
@@ -139,11 +152,14 @@ describe('Cut records', () => {
 
     it('exports the version’s cuts as CSV: UTF-8 with BOM, CRLF, quoted fields, formulas made inert', async () => {
       await cut(current, { specimenId: '=HYPERLINK("x")', partRef: 'Ø 40, "as rolled"', outcome: 'other', notes: 'line one\nline two' });
-      const res = await auditor.agent.get(`${cutsPath(current)}.csv`).buffer(true).parse((r, cb) => {
-        const chunks: Buffer[] = [];
-        r.on('data', (c: Buffer) => chunks.push(c));
-        r.on('end', () => cb(null, Buffer.concat(chunks)));
-      });
+      const res = await auditor.agent
+        .get(`${cutsPath(current)}.csv`)
+        .buffer(true)
+        .parse((r, cb) => {
+          const chunks: Buffer[] = [];
+          r.on('data', (c: Buffer) => chunks.push(c));
+          r.on('end', () => cb(null, Buffer.concat(chunks)));
+        });
       expect(res.status).to.equal(200);
       expect(res.headers['content-type']).to.equal('text/csv; charset=utf-8');
       expect(res.headers['content-disposition']).to.match(new RegExp(`attachment; filename="kerfbook-cuts-${current.number}-v1-\\d{8}\\.csv"`));
@@ -151,8 +167,14 @@ describe('Cut records', () => {
       expect([...bytes.subarray(0, 3)]).to.deep.equal([0xef, 0xbb, 0xbf]);
       const text = bytes.toString('utf8').slice(1);
       const lines = text.split('\r\n');
-      expect(lines[0]).to.equal('cut_id,recipe,version,specimen_id,part_lot_heat,quantity,outcome,notes,operator_id,operator_name,cut_at_utc,flag_cleared_at_utc');
-      expect(lines[1]).to.match(new RegExp(`^\\d+,${current.number},1,"'=HYPERLINK\\(""x""\\)","Ø 40, ""as rolled""",1,other,"line one\nline two",${operator.person.id},Kofi Operator,[0-9T:.-]+Z,$`));
+      expect(lines[0]).to.equal(
+        'cut_id,recipe,version,specimen_id,part_lot_heat,quantity,outcome,notes,operator_id,operator_name,cut_at_utc,flag_cleared_at_utc',
+      );
+      expect(lines[1]).to.match(
+        new RegExp(
+          `^\\d+,${current.number},1,"'=HYPERLINK\\(""x""\\)","Ø 40, ""as rolled""",1,other,"line one\nline two",${operator.person.id},Kofi Operator,[0-9T:.-]+Z,$`,
+        ),
+      );
       expect(text.endsWith('\r\n')).to.equal(true);
       expect(lines.filter((l) => /^\d+,/.test(l))).to.have.length(5);
     });
@@ -204,7 +226,9 @@ describe('Cut records', () => {
       const before = await written();
       const refused = await cut(current, { specimenId: 'S-3001', outcome: 'good' });
       expect(refused.status).to.equal(409);
-      expect(refused.body.errors[0].message).to.equal(`Version 1 of ${current.number} is superseded: cuts are recorded only on the current version. Use version 2, the one in force.`);
+      expect(refused.body.errors[0].message).to.equal(
+        `Version 1 of ${current.number} is superseded: cuts are recorded only on the current version. Use version 2, the one in force.`,
+      );
       expect(await written()).to.deep.equal(before);
       expect((await cut(v2, { specimenId: 'S-3001', outcome: 'good' })).status).to.equal(201);
       expect((await operator.agent.get(cutsPath(current))).body).to.have.length(5);

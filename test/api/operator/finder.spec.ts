@@ -33,7 +33,12 @@ describe('Finder', () => {
     approver = await sessionFor(ctx.app, ctx.db, ['approver']);
     operator = await sessionFor(ctx.app, ctx.db, ['operator']);
     stock = await createStockSet(ctx.db); // C45, 200 HBW typical, "Bench saw"
-    crmo = await createStock(ctx.db, SETUP, MATERIALS, materialInput({ name: '42CrMo4 alloy steel', designation: 'EN 1.7225', condition: 'quenched and tempered', hardness: { value: 30, scale: 'HRC' } }));
+    crmo = await createStock(
+      ctx.db,
+      SETUP,
+      MATERIALS,
+      materialInput({ name: '42CrMo4 alloy steel', designation: 'EN 1.7225', condition: 'quenched and tempered', hardness: { value: 30, scale: 'HRC' } }),
+    );
     bay2 = await createStock(ctx.db, SETUP, MACHINES, machineInput({ name: 'Bay 2 bench saw' }));
     const crmoStock = { ...stock, material: crmo };
     const recipes: [string, Parameters<typeof recipeInput>[1], StockSet][] = [
@@ -56,7 +61,16 @@ describe('Finder', () => {
   it('lists every current approved recipe (no drafts) when nothing is given', async () => {
     const res = await find({});
     expect(res.status).to.equal(200);
-    expect(titles(res.body)).to.have.members(['CrMo exact', 'Steel group-wide', 'C45 only', 'Stainless group-wide', 'CrMo plate', 'CrMo on bay 2', 'CrMo hard', 'CrMo typical']);
+    expect(titles(res.body)).to.have.members([
+      'CrMo exact',
+      'Steel group-wide',
+      'C45 only',
+      'Stainless group-wide',
+      'CrMo plate',
+      'CrMo on bay 2',
+      'CrMo hard',
+      'CrMo typical',
+    ]);
     for (const hit of res.body as FinderHit[]) expect(hit.summary.status).to.equal('approved');
   });
 
@@ -144,7 +158,11 @@ describe('Finder', () => {
       const res = await find(query);
       expect(res.status, JSON.stringify(query)).to.equal(400);
       expect(res.body.code).to.equal('VALIDATION_FAILED');
-      if (path) expect(res.body.errors.map((e: { path: string }) => e.path), JSON.stringify(query)).to.include(path);
+      if (path)
+        expect(
+          res.body.errors.map((e: { path: string }) => e.path),
+          JSON.stringify(query),
+        ).to.include(path);
     }
   });
 

@@ -59,7 +59,13 @@ describe('Large data set (seed:large)', function () {
     expect(await countRows(ctx.db, 'materials')).to.be.above(0);
     const counter = (await ctx.db('recipe_number_counter').first('last_number')) as { last_number: number };
     expect(counter.last_number).to.equal(20);
-    expect(summary.usernames).to.include({ author: 'large.author.001', approver: 'large.approver.001', operator: 'large.operator.001', auditor: 'large.auditor.001', admin: 'large.admin.001' });
+    expect(summary.usernames).to.include({
+      author: 'large.author.001',
+      approver: 'large.approver.001',
+      operator: 'large.operator.001',
+      auditor: 'large.auditor.001',
+      admin: 'large.admin.001',
+    });
   });
 
   it('writes one trail chain that the app verifies, in time order', async () => {
@@ -84,7 +90,10 @@ describe('Large data set (seed:large)', function () {
       expect(row.check_code !== null).to.equal(['approved', 'superseded', 'withdrawn'].includes(row.status));
       if (row.version > 1) expect(parsed.changeReason).to.not.equal('');
     }
-    const signatures = (await ctx.db('signatures as s').join('recipe_versions as v', 'v.id', 's.version_id').select('s.content_hash', 'v.content_hash as version_hash')) as {
+    const signatures = (await ctx
+      .db('signatures as s')
+      .join('recipe_versions as v', 'v.id', 's.version_id')
+      .select('s.content_hash', 'v.content_hash as version_hash')) as {
       content_hash: string;
       version_hash: string;
     }[];
@@ -93,7 +102,10 @@ describe('Large data set (seed:large)', function () {
     const statuses = new Set(rows.map((r) => r.status));
     expect([...statuses].every((s) => (RECIPE_STATUSES as readonly string[]).includes(s))).to.equal(true);
     expect(statuses).to.include('superseded').and.to.include('approved');
-    const recipes = (await ctx.db('recipes as r').join('recipe_versions as v', 'v.id', 'r.latest_version_id').select('r.id', 'v.version', 'r.current_version_id')) as {
+    const recipes = (await ctx
+      .db('recipes as r')
+      .join('recipe_versions as v', 'v.id', 'r.latest_version_id')
+      .select('r.id', 'v.version', 'r.current_version_id')) as {
       id: number;
       version: number;
       current_version_id: number | null;
@@ -108,11 +120,21 @@ describe('Large data set (seed:large)', function () {
     expect(all.body.total).to.equal(20);
     const group = (all.body.items as { group: string }[])[0]!.group;
     const filtered = await author.agent.get('/api/recipes').query({ group, status: 'approved', pageSize: 100 }).expect(200);
-    const expected = await ctx.db('recipes as r').join('recipe_versions as v', 'v.id', 'r.latest_version_id').where({ 'v.material_group': group, 'v.status': 'approved' }).count<{ n: number }[]>({ n: '*' });
+    const expected = await ctx
+      .db('recipes as r')
+      .join('recipe_versions as v', 'v.id', 'r.latest_version_id')
+      .where({ 'v.material_group': group, 'v.status': 'approved' })
+      .count<{ n: number }[]>({ n: '*' });
     expect(filtered.body.total).to.equal(Number(expected[0]!.n));
     const operator = await signedInAgent(ctx.app, { username: summary.usernames.operator, password: summary.password });
     const released = await operator.agent.get('/api/recipes').query({ pageSize: 100 }).expect(200);
-    expect(released.body.total).to.equal(await ctx.db('recipes').whereNotNull('current_version_id').count<{ n: number }[]>({ n: '*' }).then((r) => Number(r[0]!.n)));
+    expect(released.body.total).to.equal(
+      await ctx
+        .db('recipes')
+        .whereNotNull('current_version_id')
+        .count<{ n: number }[]>({ n: '*' })
+        .then((r) => Number(r[0]!.n)),
+    );
   });
 
   it('refuses a database that already holds data unless asked to replace it', async () => {

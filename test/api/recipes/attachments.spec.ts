@@ -21,7 +21,9 @@ async function makeImage(format: 'png' | 'jpeg' | 'webp', width = 640, height = 
       raw[i + 1] = (y * 255) / height;
       raw[i + 2] = 128;
     }
-  return sharp(raw, { raw: { width, height, channels: 3 } }).toFormat(format).toBuffer();
+  return sharp(raw, { raw: { width, height, channels: 3 } })
+    .toFormat(format)
+    .toBuffer();
 }
 
 /** Binary supertest responses: collect the bytes. */
@@ -48,7 +50,13 @@ describe('Attachments (photos of a version)', () => {
   });
 
   const uploadUrl = () => `/api/recipes/${draft.recipeId}/versions/1/attachments`;
-  const upload = (bytes: Buffer, filename: string, contentType: string, fields: Record<string, string> = { role: 'setup', caption: 'Vise set-up' }, who = author) => {
+  const upload = (
+    bytes: Buffer,
+    filename: string,
+    contentType: string,
+    fields: Record<string, string> = { role: 'setup', caption: 'Vise set-up' },
+    who = author,
+  ) => {
     let req = who.agent.post(uploadUrl()).set(CSRF_HEADER, who.csrf);
     for (const [k, v] of Object.entries(fields)) req = req.field(k, v);
     return req.attach('file', bytes, { filename, contentType });
@@ -68,7 +76,16 @@ describe('Attachments (photos of a version)', () => {
       const res = await upload(png, 'setup.png', 'image/png');
       expect(res.status, JSON.stringify(res.body)).to.equal(201);
       stored = res.body;
-      expect(stored).to.include({ role: 'setup', caption: 'Vise set-up', fileName: 'setup.png', mimeType: 'image/png', sizeBytes: png.length, sha256: sha256(png), width: 640, height: 480 });
+      expect(stored).to.include({
+        role: 'setup',
+        caption: 'Vise set-up',
+        fileName: 'setup.png',
+        mimeType: 'image/png',
+        sizeBytes: png.length,
+        sha256: sha256(png),
+        width: 640,
+        height: 480,
+      });
       expect(stored.url).to.equal(`/api/attachments/${stored.id}`);
       expect(stored.thumbnailUrl).to.equal(`/api/attachments/${stored.id}/thumbnail`);
       expect(await countRows(ctx.db, 'attachments')).to.equal(before.attachments + 1);
@@ -82,7 +99,9 @@ describe('Attachments (photos of a version)', () => {
       expect(res.headers['content-type']).to.equal('image/png');
       expect(res.headers['x-content-type-options']).to.equal('nosniff');
       expect(res.headers['etag']).to.equal(`"${sha256(png)}"`);
-      expect(res.headers['cache-control']).to.match(/private/).and.match(/max-age=\d+/);
+      expect(res.headers['cache-control'])
+        .to.match(/private/)
+        .and.match(/max-age=\d+/);
       const again = await operator.agent.get(stored.url).set('If-None-Match', `"${sha256(png)}"`);
       expect(again.status).to.equal(304);
     });
@@ -126,8 +145,12 @@ describe('Attachments (photos of a version)', () => {
       const side = 1800;
       const raw = Buffer.alloc(side * side * 3);
       for (let i = 0; i < raw.length; i++) raw[i] = (i * 2654435761) >>> 24;
-      const big = await sharp(raw, { raw: { width: side, height: side, channels: 3 } }).png({ compressionLevel: 0 }).toBuffer();
-      expect(big.length).to.be.greaterThan(9 * 1024 * 1024).and.lessThan(10 * 1024 * 1024);
+      const big = await sharp(raw, { raw: { width: side, height: side, channels: 3 } })
+        .png({ compressionLevel: 0 })
+        .toBuffer();
+      expect(big.length)
+        .to.be.greaterThan(9 * 1024 * 1024)
+        .and.lessThan(10 * 1024 * 1024);
       const res = await upload(big, 'big.png', 'image/png');
       expect(res.status, JSON.stringify(res.body)).to.equal(201);
       expect(res.body.sha256).to.equal(sha256(big));
@@ -212,7 +235,10 @@ describe('Attachments (photos of a version)', () => {
       const role = await upload(png, 'x.png', 'image/png', { role: 'selfie' });
       expect(role.status).to.equal(400);
       expect(role.body.errors[0].path).to.equal('role');
-      const wrongField = await author.agent.post(uploadUrl()).set(CSRF_HEADER, author.csrf).attach('photo', png, { filename: 'x.png', contentType: 'image/png' });
+      const wrongField = await author.agent
+        .post(uploadUrl())
+        .set(CSRF_HEADER, author.csrf)
+        .attach('photo', png, { filename: 'x.png', contentType: 'image/png' });
       expect(wrongField.status).to.equal(400);
       await expectNothingStored(before);
     });
@@ -238,7 +264,10 @@ describe('Attachments (photos of a version)', () => {
       const added = (await upload(png, 'gone.png', 'image/png').expect(201)).body as AttachmentDto;
       await author.agent.delete(`${uploadUrl()}/${added.id}`).set(CSRF_HEADER, author.csrf).expect(204);
       expect((await operator.agent.get(added.url)).status).to.equal(404);
-      const event = await ctx.db('trail_events').where({ event_type: 'attachment.deleted', entity_id: String(added.id) }).first();
+      const event = await ctx
+        .db('trail_events')
+        .where({ event_type: 'attachment.deleted', entity_id: String(added.id) })
+        .first();
       expect(asJson(event.before_json)).to.include({ fileName: 'gone.png', sha256: sha256(png) });
       expect((await author.agent.delete(`${uploadUrl()}/${added.id}`).set(CSRF_HEADER, author.csrf)).status).to.equal(404);
     });

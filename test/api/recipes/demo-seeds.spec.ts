@@ -26,10 +26,14 @@ describe('Demo seeds', () => {
 
   it('loads the invented lab: three saws, about a dozen wheels, about fifteen materials, a selection table, twelve or more recipes', async () => {
     expect(await countRows(ctx.db, 'machines')).to.equal(3);
-    expect(await countRows(ctx.db, 'wheels')).to.equal(DEMO_WHEELS.length).and.to.be.within(12, 14);
+    expect(await countRows(ctx.db, 'wheels'))
+      .to.equal(DEMO_WHEELS.length)
+      .and.to.be.within(12, 14);
     expect(await countRows(ctx.db, 'materials')).to.be.within(14, 17);
     expect(await countRows(ctx.db, 'selection_rows')).to.be.greaterThan(10);
-    expect(await countRows(ctx.db, 'recipes')).to.equal(DEMO_RECIPES.length).and.to.be.at.least(12);
+    expect(await countRows(ctx.db, 'recipes'))
+      .to.equal(DEMO_RECIPES.length)
+      .and.to.be.at.least(12);
     const numbers = (await ctx.db('recipes').orderBy('id').pluck('number')) as string[];
     expect(numbers[0]).to.equal('KB-0001');
     // Every selection row points at a wheel in use.
@@ -45,7 +49,10 @@ describe('Demo seeds', () => {
   });
 
   it('has no blocker in any demo recipe, stored or re-checked', async () => {
-    const versions = await ctx.db('recipe_versions as v').join('recipes as r', 'r.id', 'v.recipe_id').select('r.number', 'v.title', 'v.content_json', 'v.worst_check');
+    const versions = await ctx
+      .db('recipe_versions as v')
+      .join('recipes as r', 'r.id', 'v.recipe_id')
+      .select('r.number', 'v.title', 'v.content_json', 'v.worst_check');
     expect(versions).to.have.length(DEMO_RECIPES.length + DEMO_EXTRA_VERSIONS);
     for (const v of versions) {
       const content = JSON.parse(v.content_json) as RecipeContent;

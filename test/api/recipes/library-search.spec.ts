@@ -27,7 +27,9 @@ describe('Library text search', () => {
     approver = await sessionFor(ctx.app, ctx.db, ['approver']);
     operator = await sessionFor(ctx.app, ctx.db, ['operator']);
     brass = await createStockSet(ctx.db, { material: { name: 'Brass rod', designation: 'CW614N', group: 'copper', hardness: { value: 130, scale: 'HV' } } });
-    steel = await createStockSet(ctx.db, { material: { name: 'Tool steel', designation: '1.2379', group: 'hardened-tool-steel', hardness: { value: 700, scale: 'HV' } } });
+    steel = await createStockSet(ctx.db, {
+      material: { name: 'Tool steel', designation: '1.2379', group: 'hardened-tool-steel', hardness: { value: 700, scale: 'HV' } },
+    });
     tube = await approved(author, approver, brass, { title: 'Thin-wall tube in oil', scope: { group: 'copper', hardness: null } });
     rod = await createDraft(author, steel, { title: 'X153CrMoV12 die block', scope: { group: 'hardened-tool-steel', hardness: null } });
   });
@@ -121,7 +123,8 @@ describe('Library text search', () => {
   });
 
   it('answers the same within a group and machine, where it reads their index instead', async () => {
-    const ids = async (query: object) => ((await author.agent.get('/api/recipes').query(query).expect(200)).body.items as { id: number }[]).map((r) => r.id).sort();
+    const ids = async (query: object) =>
+      ((await author.agent.get('/api/recipes').query(query).expect(200)).body.items as { id: number }[]).map((r) => r.id).sort();
     for (const stock of [brass, steel]) {
       const within = { group: stock.material.group, machineId: stock.machine.id };
       const all = await ids(within);
@@ -146,7 +149,9 @@ describe('Library text search', () => {
   it('finds common words, whether or not the server leaves stopwords out of its index', async () => {
     // A server with stopwords on rebuilds the index without "with", "the"… on every TRUNCATE
     // (each test file starts with one) or restore; ours has them off.
-    const plate = await createStockSet(ctx.db, { material: { name: 'Spring steel', designation: '1.8159', group: 'plain-low-alloy-steel', hardness: { value: 450, scale: 'HV' } } });
+    const plate = await createStockSet(ctx.db, {
+      material: { name: 'Spring steel', designation: '1.8159', group: 'plain-low-alloy-steel', hardness: { value: 450, scale: 'HV' } },
+    });
     await createDraft(author, plate, { title: 'Plate with the burr side up', scope: { group: 'plain-low-alloy-steel', hardness: null } });
     expect(await titles(author, 'with the')).to.deep.equal(['Plate with the burr side up']);
     expect(await titles(author, 'th burr')).to.deep.equal(['Plate with the burr side up']);

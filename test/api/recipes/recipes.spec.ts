@@ -21,9 +21,21 @@ describe('Recipes and drafts', () => {
     stock = await createStockSet(ctx.db);
   });
 
-  const create = (body: unknown, who = author) => who.agent.post('/api/recipes').set(CSRF_HEADER, who.csrf).send(body as object);
-  const save = (id: number, n: number, body: unknown, who = author) => who.agent.put(`/api/recipes/${id}/versions/${n}`).set(CSRF_HEADER, who.csrf).send(body as object);
-  const draftOf = (v: RecipeVersionDto, change: Partial<RecipeVersionDto['content']> = {}, title = v.title) => ({ revision: v.revision, title, content: { ...v.content, ...change } });
+  const create = (body: unknown, who = author) =>
+    who.agent
+      .post('/api/recipes')
+      .set(CSRF_HEADER, who.csrf)
+      .send(body as object);
+  const save = (id: number, n: number, body: unknown, who = author) =>
+    who.agent
+      .put(`/api/recipes/${id}/versions/${n}`)
+      .set(CSRF_HEADER, who.csrf)
+      .send(body as object);
+  const draftOf = (v: RecipeVersionDto, change: Partial<RecipeVersionDto['content']> = {}, title = v.title) => ({
+    revision: v.revision,
+    title,
+    content: { ...v.content, ...change },
+  });
 
   describe('create', () => {
     it('hands out the number, makes version 1 a draft, runs the checks and writes one trail row', async () => {
@@ -82,11 +94,19 @@ describe('Recipes and drafts', () => {
     });
 
     it('refuses unknown material, machine and wheel ids with 400 naming each field, writing nothing', async () => {
-      const before = { recipes: await countRows(ctx.db, 'recipes'), versions: await countRows(ctx.db, 'recipe_versions'), events: await countRows(ctx.db, 'trail_events') };
+      const before = {
+        recipes: await countRows(ctx.db, 'recipes'),
+        versions: await countRows(ctx.db, 'recipe_versions'),
+        events: await countRows(ctx.db, 'trail_events'),
+      };
       const res = await create(recipeInput(stock, { scope: { materialId: 999991 }, cutting: { machineId: 999992, wheelId: 999993 } }));
       expect(res.status).to.equal(400);
       expect(res.body.code).to.equal('VALIDATION_FAILED');
-      expect(res.body.errors.map((e: { path: string }) => e.path).sort()).to.deep.equal(['content.cutting.machineId', 'content.cutting.wheelId', 'content.scope.materialId']);
+      expect(res.body.errors.map((e: { path: string }) => e.path).sort()).to.deep.equal([
+        'content.cutting.machineId',
+        'content.cutting.wheelId',
+        'content.scope.materialId',
+      ]);
       expect(await countRows(ctx.db, 'recipes')).to.equal(before.recipes);
       expect(await countRows(ctx.db, 'recipe_versions')).to.equal(before.versions);
       expect(await countRows(ctx.db, 'trail_events')).to.equal(before.events);
@@ -171,7 +191,13 @@ describe('Recipes and drafts', () => {
       const stored = await reader.agent.get(`/api/recipes/${base.recipeId}/versions/1`).expect(200);
       expect(stored.body.content.instructionsMd).to.equal(won.body.content.instructionsMd);
       expect(stored.body.content).to.deep.equal(won.body.content);
-      expect(await ctx.db('trail_events').where({ event_type: 'recipe.draft_saved', entity_id: String(await versionId(base.recipeId)) }).count({ n: '*' }).first()).to.deep.equal({ n: 1 });
+      expect(
+        await ctx
+          .db('trail_events')
+          .where({ event_type: 'recipe.draft_saved', entity_id: String(await versionId(base.recipeId)) })
+          .count({ n: '*' })
+          .first(),
+      ).to.deep.equal({ n: 1 });
     });
 
     async function versionId(recipeId: number): Promise<number> {
@@ -244,7 +270,12 @@ describe('Recipes and drafts', () => {
         machine: { name: 'Second bench saw' },
       });
       await create(recipeInput(other, { title: 'Brass small', scope: { group: 'copper', sizeMinMm: 5, sizeMaxMm: 20, hardness: null } })).expect(201);
-      await create(recipeInput(other, { title: 'Brass tube', scope: { group: 'copper', shape: 'tube', wallMm: 2, sizeMinMm: 10, sizeMaxMm: 40, hardness: { min: 100, max: 160, scale: 'HV' } } })).expect(201);
+      await create(
+        recipeInput(other, {
+          title: 'Brass tube',
+          scope: { group: 'copper', shape: 'tube', wallMm: 2, sizeMinMm: 10, sizeMaxMm: 40, hardness: { min: 100, max: 160, scale: 'HV' } },
+        }),
+      ).expect(201);
       await create(recipeInput(stock, { title: 'Steel hard window', scope: { hardness: { min: 25, max: 35, scale: 'HRC' } } })).expect(201);
     });
 
@@ -256,7 +287,14 @@ describe('Recipes and drafts', () => {
       const first = byMaterial.body.items[0];
       const byNumber = await reader.agent.get('/api/recipes').query({ q: first.number }).expect(200);
       expect(byNumber.body.items.map((r: { id: number }) => r.id)).to.include(first.id);
-      expect(first).to.include({ materialName: 'Brass rod', machineName: 'Second bench saw', wheelName: 'SiC 250', version: 1, status: 'draft', group: 'copper' });
+      expect(first).to.include({
+        materialName: 'Brass rod',
+        machineName: 'Second bench saw',
+        wheelName: 'SiC 250',
+        version: 1,
+        status: 'draft',
+        group: 'copper',
+      });
     });
 
     it('filters by group, shape, machine, status, size and hardness', async () => {

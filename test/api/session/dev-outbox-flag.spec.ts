@@ -12,7 +12,11 @@ describe('Session: development outbox flag on a production server', () => {
   it('answers devOutbox false', async () => {
     const person = await createPerson(ctx.db, { roles: ['author'] });
     const { agent, csrf } = await anonymousAgent(ctx.app);
-    const res = await agent.post('/api/session').set('X-Forwarded-Proto', 'https').set(CSRF_HEADER, csrf).send({ username: person.username, password: person.password });
+    const res = await agent
+      .post('/api/session')
+      .set('X-Forwarded-Proto', 'https')
+      .set(CSRF_HEADER, csrf)
+      .send({ username: person.username, password: person.password });
     expect(res.status, JSON.stringify(res.body)).to.equal(200);
     expect(res.body.devOutbox).to.equal(false);
   });

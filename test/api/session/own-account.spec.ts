@@ -43,7 +43,10 @@ describe('Own account (any signed-in person)', () => {
       const other = await signedInAgent(ctx.app, person);
       const { agent, csrf } = await signedInAgent(ctx.app, person);
       const events = await countRows(ctx.db, 'trail_events');
-      const res = await agent.post('/api/session/password').set(CSRF_HEADER, csrf).send({ currentPassword: person.password, newPassword: 'Neue-Passphrase-Ü1' });
+      const res = await agent
+        .post('/api/session/password')
+        .set(CSRF_HEADER, csrf)
+        .send({ currentPassword: person.password, newPassword: 'Neue-Passphrase-Ü1' });
       expect(res.status, JSON.stringify(res.body)).to.equal(200);
       expect(res.body.user.id).to.equal(person.id);
       expect(res.body.csrfToken).to.be.a('string').and.not.equal(csrf);
@@ -58,7 +61,10 @@ describe('Own account (any signed-in person)', () => {
       const row = await ctx.db('users').where({ id: person.id }).first();
       expect(await verifyPassword('Neue-Passphrase-Ü1', row.password_hash)).to.equal(true);
       expect(await verifyPassword(person.password, row.password_hash)).to.equal(false);
-      const added = await ctx.db('trail_events').orderBy('id', 'desc').limit((await countRows(ctx.db, 'trail_events')) - events);
+      const added = await ctx
+        .db('trail_events')
+        .orderBy('id', 'desc')
+        .limit((await countRows(ctx.db, 'trail_events')) - events);
       expect(added.map((e: { event_type: string }) => e.event_type)).to.deep.equal(['user.password_changed']);
       expect(JSON.stringify(added)).not.to.match(/Neue-Passphrase|original-pass|scrypt/);
       person.password = 'Neue-Passphrase-Ü1';

@@ -54,7 +54,8 @@ describe('Sign-in limit per (username, client address)', () => {
   });
 
   it('lifts the limit once the failures are older than 15 minutes', async () => {
-    await ctx.db('sign_in_failures')
+    await ctx
+      .db('sign_in_failures')
       .where({ client_address: ATTACKER })
       .update({ failed_at: new Date(Date.now() - 15 * 60 * 1000 - 1000) });
     const res = await attempt(ATTACKER, person.password);

@@ -23,7 +23,10 @@ describe('POST /api/session (sign in)', () => {
 
   async function attempt(body: unknown) {
     const { agent, csrf } = await anonymousAgent(ctx.app);
-    return agent.post('/api/session').set(CSRF_HEADER, csrf).send(body as object);
+    return agent
+      .post('/api/session')
+      .set(CSRF_HEADER, csrf)
+      .send(body as object);
   }
 
   describe('with the right password', () => {
@@ -198,9 +201,7 @@ describe('POST /api/session (sign in)', () => {
       const admin = await createPerson(ctx.db, { roles: ['admin'] });
       const { agent } = await signedInAgent(ctx.app, admin);
       const users = await countRows(ctx.db, 'users');
-      const res = await agent
-        .post('/api/users')
-        .send({ username: 'no.token', displayName: 'No Token', roles: [], temporaryPassword: 'long-enough-pw' });
+      const res = await agent.post('/api/users').send({ username: 'no.token', displayName: 'No Token', roles: [], temporaryPassword: 'long-enough-pw' });
       expect(res.status).to.equal(403);
       expect(res.body.code).to.equal('CSRF_INVALID');
       expect(await countRows(ctx.db, 'users')).to.equal(users);
@@ -249,7 +250,10 @@ describe('POST /api/session (sign in)', () => {
       const signIn = await agent.post('/api/session').set(CSRF_HEADER, csrf).send({ username: operator.username, password: operator.password }).expect(200);
       const cookie = sidCookie(signIn);
       const sid = decodeURIComponent(cookie.split('=')[1]!).slice(2).split('.')[0];
-      const updated = await ctx.db('sessions').where({ sid }).update({ expired: new Date(Date.now() - 60_000) });
+      const updated = await ctx
+        .db('sessions')
+        .where({ sid })
+        .update({ expired: new Date(Date.now() - 60_000) });
       expect(updated).to.equal(1);
       const res = await request(ctx.app).get('/api/session').set('Cookie', cookie);
       expect(res.status).to.equal(401);

@@ -23,7 +23,11 @@ describe('Bench sheet behind a proxy', () => {
   it('refuses a forged host that is not a host name', async () => {
     const author = await sessionFor(ctx.app, ctx.db, ['author']);
     const approver = await sessionFor(ctx.app, ctx.db, ['approver']);
-    const v = await approved(author, approver, await createStockSet(ctx.db, { material: { name: 'Second C45' }, wheel: { name: 'Second wheel' }, machine: { name: 'Second saw' } }));
+    const v = await approved(
+      author,
+      approver,
+      await createStockSet(ctx.db, { material: { name: 'Second C45' }, wheel: { name: 'Second wheel' }, machine: { name: 'Second saw' } }),
+    );
     const res = await getSheet(author.agent, v.recipeId, 1).set('X-Forwarded-Host', 'evil.example/phish?x=').expect(400);
     expect(JSON.parse((res.body as Buffer).toString()).errors[0].path).to.equal('host');
   });

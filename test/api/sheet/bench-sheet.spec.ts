@@ -45,12 +45,21 @@ describe('Bench sheet', () => {
       ].join('\n'),
     });
     // The setup photo, added while the version is still a draft.
-    const png = await sharp({ create: { width: 320, height: 200, channels: 3, background: '#7a8a9a' } }).png().toBuffer();
-    await addAttachment(ctx.db, { userId: author.person.id, name: author.person.displayName, clientAddress: '' }, draft.recipeId, 1, { role: 'setup', caption: 'Vise and backstop' }, {
-      bytes: png,
-      fileName: 'setup.png',
-      declaredType: 'image/png',
-    });
+    const png = await sharp({ create: { width: 320, height: 200, channels: 3, background: '#7a8a9a' } })
+      .png()
+      .toBuffer();
+    await addAttachment(
+      ctx.db,
+      { userId: author.person.id, name: author.person.displayName, clientAddress: '' },
+      draft.recipeId,
+      1,
+      { role: 'setup', caption: 'Vise and backstop' },
+      {
+        bytes: png,
+        fileName: 'setup.png',
+        declaredType: 'image/png',
+      },
+    );
     const fresh = ok(await act.get(author, draft));
     v1 = ok(await act.approve(approver, ok(await act.submit(author, fresh))));
     code = (await ctx.db('recipe_versions').where({ recipe_id: v1.recipeId, version: 1 }).first('check_code')).check_code;

@@ -20,13 +20,24 @@ describe('Stock: materials, wheels, machines', () => {
     operator = await signedInAgent(ctx.app, await createPerson(ctx.db, { roles: ['operator'] }));
   });
 
-  const post = (url: string, body: unknown) => author.agent.post(url).set(CSRF_HEADER, author.csrf).send(body as object);
-  const put = (url: string, body: unknown) => author.agent.put(url).set(CSRF_HEADER, author.csrf).send(body as object);
+  const post = (url: string, body: unknown) =>
+    author.agent
+      .post(url)
+      .set(CSRF_HEADER, author.csrf)
+      .send(body as object);
+  const put = (url: string, body: unknown) =>
+    author.agent
+      .put(url)
+      .set(CSRF_HEADER, author.csrf)
+      .send(body as object);
 
   describe('create, read, update', () => {
     it('creates a material with one trail row and reads it back', async () => {
       const before = await countRows(ctx.db, 'trail_events');
-      const res = await post('/api/materials', materialInput({ name: 'Ti-6Al-4V', designation: 'UNS R56400', group: 'titanium', hardness: { value: 340, scale: 'HV' } }));
+      const res = await post(
+        '/api/materials',
+        materialInput({ name: 'Ti-6Al-4V', designation: 'UNS R56400', group: 'titanium', hardness: { value: 340, scale: 'HV' } }),
+      );
       expect(res.status, JSON.stringify(res.body)).to.equal(201);
       expect(res.body).to.include({ name: 'Ti-6Al-4V', designation: 'UNS R56400', group: 'titanium', archived: false });
       expect(res.body.hardness).to.deep.equal({ value: 340, scale: 'HV' });
@@ -40,9 +51,20 @@ describe('Stock: materials, wheels, machines', () => {
     });
 
     it('creates a wheel and a machine (lists of motions and clamping round-trip)', async () => {
-      const wheel = await post('/api/wheels', wheelInput({ name: 'Diamond rim 150', kind: 'rim', specification: 'D126N100M', diameterMm: 150, thicknessMm: 0.5, boreMm: 12.7, maxSpeedMs: 50 }));
+      const wheel = await post(
+        '/api/wheels',
+        wheelInput({ name: 'Diamond rim 150', kind: 'rim', specification: 'D126N100M', diameterMm: 150, thicknessMm: 0.5, boreMm: 12.7, maxSpeedMs: 50 }),
+      );
       expect(wheel.status, JSON.stringify(wheel.body)).to.equal(201);
-      expect(wheel.body).to.include({ kind: 'rim', specification: 'D126N100M', diameterMm: 150, thicknessMm: 0.5, boreMm: 12.7, maxSpeedMs: 50, dryAllowed: false });
+      expect(wheel.body).to.include({
+        kind: 'rim',
+        specification: 'D126N100M',
+        diameterMm: 150,
+        thicknessMm: 0.5,
+        boreMm: 12.7,
+        maxSpeedMs: 50,
+        dryAllowed: false,
+      });
       const machine = await post('/api/machines', machineInput({ cutMotions: ['rocking', 'straight-plunge'], clampingMethods: ['v-block'] }));
       expect(machine.status, JSON.stringify(machine.body)).to.equal(201);
       expect(machine.body.cutMotions).to.deep.equal(['rocking', 'straight-plunge']);
@@ -55,7 +77,10 @@ describe('Stock: materials, wheels, machines', () => {
       const res = await put(`/api/wheels/${created.body.id}`, wheelInput({ name: 'Wheel to edit', maxSpeedMs: 80, notes: 'Re-marked' }));
       expect(res.status, JSON.stringify(res.body)).to.equal(200);
       expect(res.body).to.include({ maxSpeedMs: 80, notes: 'Re-marked' });
-      const event = await ctx.db('trail_events').where({ event_type: 'wheel.updated', entity_id: String(created.body.id) }).first();
+      const event = await ctx
+        .db('trail_events')
+        .where({ event_type: 'wheel.updated', entity_id: String(created.body.id) })
+        .first();
       expect(asJson(event.before_json)).to.deep.equal({ maxSpeedMs: 63, notes: '' });
       expect(asJson(event.after_json)).to.deep.equal({ maxSpeedMs: 80, notes: 'Re-marked' });
     });
@@ -192,7 +217,11 @@ describe('Stock: materials, wheels, machines', () => {
       expect(again.status).to.equal(409);
       const back = await author.agent.post(`/api/machines/${m.body.id}/unarchive`).set(CSRF_HEADER, author.csrf).expect(200);
       expect(back.body.archived).to.equal(false);
-      const events = await ctx.db('trail_events').where({ entity_type: 'machine', entity_id: String(m.body.id) }).orderBy('id').pluck('event_type');
+      const events = await ctx
+        .db('trail_events')
+        .where({ entity_type: 'machine', entity_id: String(m.body.id) })
+        .orderBy('id')
+        .pluck('event_type');
       expect(events).to.deep.equal(['machine.created', 'machine.archived', 'machine.unarchived']);
     });
 
@@ -202,7 +231,10 @@ describe('Stock: materials, wheels, machines', () => {
       expect(res.status).to.equal(200);
       expect(res.body).to.deep.equal({ archived: false });
       expect(await ctx.db('wheels').where({ id: w.body.id }).first()).to.equal(undefined);
-      const event = await ctx.db('trail_events').where({ event_type: 'wheel.deleted', entity_id: String(w.body.id) }).first();
+      const event = await ctx
+        .db('trail_events')
+        .where({ event_type: 'wheel.deleted', entity_id: String(w.body.id) })
+        .first();
       expect(asJson(event.before_json)).to.include({ name: 'Unused wheel' });
     });
 
@@ -242,16 +274,30 @@ describe('Stock: materials, wheels, machines', () => {
   describe('selection table', () => {
     it('creates, lists, updates and deletes rows, with trail rows', async () => {
       const w = await post('/api/wheels', wheelInput({ name: 'Soft alumina', specification: 'A60J5B' })).expect(201);
-      const created = await post('/api/selection-rows', { group: 'hardened-tool-steel', hardness: { min: 45, max: 65, scale: 'HRC' }, wheelId: w.body.id, note: 'Harder → softer bond.' });
+      const created = await post('/api/selection-rows', {
+        group: 'hardened-tool-steel',
+        hardness: { min: 45, max: 65, scale: 'HRC' },
+        wheelId: w.body.id,
+        note: 'Harder → softer bond.',
+      });
       expect(created.status, JSON.stringify(created.body)).to.equal(201);
       expect(created.body).to.deep.include({ group: 'hardened-tool-steel', hardness: { min: 45, max: 65, scale: 'HRC' }, wheelId: w.body.id });
       const list = await operator.agent.get('/api/selection-rows').expect(200);
       expect(list.body.map((r: { id: number }) => r.id)).to.include(created.body.id);
-      const updated = await put(`/api/selection-rows/${created.body.id}`, { group: 'hardened-tool-steel', hardness: null, wheelId: w.body.id, note: '' }).expect(200);
+      const updated = await put(`/api/selection-rows/${created.body.id}`, {
+        group: 'hardened-tool-steel',
+        hardness: null,
+        wheelId: w.body.id,
+        note: '',
+      }).expect(200);
       expect(updated.body.hardness).to.equal(null);
       await author.agent.delete(`/api/selection-rows/${created.body.id}`).set(CSRF_HEADER, author.csrf).expect(204);
       expect(await ctx.db('selection_rows').where({ id: created.body.id }).first()).to.equal(undefined);
-      const events = await ctx.db('trail_events').where({ entity_type: 'selection_row', entity_id: String(created.body.id) }).orderBy('id').pluck('event_type');
+      const events = await ctx
+        .db('trail_events')
+        .where({ entity_type: 'selection_row', entity_id: String(created.body.id) })
+        .orderBy('id')
+        .pluck('event_type');
       expect(events).to.deep.equal(['selection_row.created', 'selection_row.updated', 'selection_row.deleted']);
     });
 

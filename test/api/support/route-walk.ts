@@ -38,8 +38,17 @@ export async function createTargets(db: Knex): Promise<Targets & { targetPerson:
   const stock = await createStockSet(db);
   const row = await createSelectionRow(db, actor, { group: 'copper', hardness: null, wheelId: stock.wheel.id, note: '' });
   const recipe = await createRecipe(db, actor, recipeInput(stock));
-  const png = await sharp({ create: { width: 8, height: 8, channels: 3, background: '#808080' } }).png().toBuffer();
-  const attachment = await addAttachment(db, actor, recipe.recipeId, 1, { role: 'setup', caption: '' }, { bytes: png, fileName: 'walk.png', declaredType: 'image/png' });
+  const png = await sharp({ create: { width: 8, height: 8, channels: 3, background: '#808080' } })
+    .png()
+    .toBuffer();
+  const attachment = await addAttachment(
+    db,
+    actor,
+    recipe.recipeId,
+    1,
+    { role: 'setup', caption: '' },
+    { bytes: png, fileName: 'walk.png', declaredType: 'image/png' },
+  );
   return {
     targetPerson,
     user: targetPerson.id,

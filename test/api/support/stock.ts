@@ -60,7 +60,10 @@ export interface StockSet {
   machine: MachineRecord;
 }
 
-export async function createStockSet(db: Knex, over: { material?: Partial<MaterialBody>; wheel?: Partial<WheelBody>; machine?: Partial<MachineBody> } = {}): Promise<StockSet> {
+export async function createStockSet(
+  db: Knex,
+  over: { material?: Partial<MaterialBody>; wheel?: Partial<WheelBody>; machine?: Partial<MachineBody> } = {},
+): Promise<StockSet> {
   return {
     material: await createStock(db, SETUP, MATERIALS, materialInput(over.material)),
     wheel: await createStock(db, SETUP, WHEELS, wheelInput(over.wheel)),
@@ -69,7 +72,10 @@ export async function createStockSet(db: Knex, over: { material?: Partial<Materi
 }
 
 /** A blocker-free recipe for the set: C45 bar Ø20–60 on a 250 mm wheel (capacity 85 mm), 39.3 m/s. */
-export function recipeInput(stock: StockSet, over: { title?: string; scope?: object; cutting?: object; clamping?: object; coolant?: object; instructionsMd?: string } = {}): CreateRecipeBody {
+export function recipeInput(
+  stock: StockSet,
+  over: { title?: string; scope?: object; cutting?: object; clamping?: object; coolant?: object; instructionsMd?: string } = {},
+): CreateRecipeBody {
   return {
     title: over.title ?? 'C45 bar, transverse',
     content: {

@@ -61,7 +61,11 @@ describe('Trail hash chain', function () {
 
     const authorPerson = await createPerson(ctx.db, { roles: ['author'] });
     const author = await signedInAgent(ctx.app, authorPerson);
-    await author.agent.post('/api/materials').set(CSRF_HEADER, author.csrf).send(materialInput({ name: 'Chained steel' })).expect(201);
+    await author.agent
+      .post('/api/materials')
+      .set(CSRF_HEADER, author.csrf)
+      .send(materialInput({ name: 'Chained steel' }))
+      .expect(201);
     const stock = await createStockSet(ctx.db);
     const recipe = (await author.agent.post('/api/recipes').set(CSRF_HEADER, author.csrf).send(recipeInput(stock)).expect(201)).body as RecipeVersionDto;
     await author.agent
@@ -71,7 +75,11 @@ describe('Trail hash chain', function () {
       .expect(200);
     await author.agent.patch('/api/session/preferences').set(CSRF_HEADER, author.csrf).send({ units: 'metric+imperial' }).expect(200);
     const stranger = await anonymousAgent(ctx.app);
-    await stranger.agent.post('/api/session').set(CSRF_HEADER, stranger.csrf).send({ username: authorPerson.username, password: 'not the password' }).expect(401);
+    await stranger.agent
+      .post('/api/session')
+      .set(CSRF_HEADER, stranger.csrf)
+      .send({ username: authorPerson.username, password: 'not the password' })
+      .expect(401);
     // Sign-out records without a transaction of its own: appendTrailEvent opens one for the chain.
     await author.agent.delete('/api/session').set(CSRF_HEADER, author.csrf).expect(204);
 
@@ -111,7 +119,15 @@ describe('Trail hash chain', function () {
       const answers = await Promise.all([
         ...sessions.map((s) => s.agent.patch('/api/session/preferences').set(CSRF_HEADER, s.csrf).send({ units: 'metric+imperial' })),
         // Appends with no caller transaction, in parallel with the others.
-        ...people.slice(0, 5).map((p) => appendTrailEvent(otherDb, { userId: p.id, name: p.displayName, clientAddress: '' }, { type: 'user.password_changed', entityType: 'user', entityId: p.id })),
+        ...people
+          .slice(0, 5)
+          .map((p) =>
+            appendTrailEvent(
+              otherDb,
+              { userId: p.id, name: p.displayName, clientAddress: '' },
+              { type: 'user.password_changed', entityType: 'user', entityId: p.id },
+            ),
+          ),
       ]);
       for (const res of answers) if (res) expect((res as { status: number }).status).to.equal(200);
 
@@ -133,10 +149,14 @@ describe('Trail hash chain', function () {
   describe('append-only in the database', () => {
     it('refuses UPDATE of a trail row and leaves it as it was', async () => {
       const row = (await chainRows(ctx.db)).at(-1)!;
-      const err = await ctx.db('trail_events').where({ id: row.id }).update({ actor_name: 'Someone else' }).then(
-        () => null,
-        (e: { sqlState?: string; message: string }) => e,
-      );
+      const err = await ctx
+        .db('trail_events')
+        .where({ id: row.id })
+        .update({ actor_name: 'Someone else' })
+        .then(
+          () => null,
+          (e: { sqlState?: string; message: string }) => e,
+        );
       expect(err, 'the UPDATE went through').to.not.equal(null);
       expect(err!.sqlState).to.equal('45000');
       expect(err!.message).to.match(/append-only/);
@@ -162,10 +182,17 @@ describe('Trail hash chain', function () {
       const target = rows.find((r) => r.event_type === 'user.preferences_changed')!;
       const original = jsonText(target['after_json']);
       await withoutTrigger(ctx.db, 'trail_events_refuse_update', () =>
-        ctx.db('trail_events').where({ id: target.id }).update({ after_json: JSON.stringify({ units: 'metric' }) }),
+        ctx
+          .db('trail_events')
+          .where({ id: target.id })
+          .update({ after_json: JSON.stringify({ units: 'metric' }) }),
       );
 
-      expect(await verify()).to.deep.equal({ ok: false, checked: rows.indexOf(target), firstBroken: { id: target.id, reason: 'stored hash does not match its content' } });
+      expect(await verify()).to.deep.equal({
+        ok: false,
+        checked: rows.indexOf(target),
+        firstBroken: { id: target.id, reason: 'stored hash does not match its content' },
+      });
       const cli = await runCli();
       expect(cli.code, cli.output).to.equal(1);
       expect(cli.output).to.include(`Trail BROKEN at event #${target.id}: stored hash does not match its content`);
@@ -184,12 +211,16 @@ describe('Trail hash chain', function () {
       const { trailHash } = await import('../../../server/services/trail/hash');
       const forged = { ...victim, actor_name: 'Forged Name' };
       const forgedHash = trailHash(chainedFields(forged as never));
-      await withoutTrigger(ctx.db, 'trail_events_refuse_update', () => ctx.db('trail_events').where({ id: victim.id }).update({ actor_name: 'Forged Name', hash: forgedHash }));
+      await withoutTrigger(ctx.db, 'trail_events_refuse_update', () =>
+        ctx.db('trail_events').where({ id: victim.id }).update({ actor_name: 'Forged Name', hash: forgedHash }),
+      );
       try {
         const result = await verify();
         expect(result.firstBroken).to.deep.equal({ id: next.id, reason: `prev_hash does not match row ${victim.id}'s hash` });
       } finally {
-        await withoutTrigger(ctx.db, 'trail_events_refuse_update', () => ctx.db('trail_events').where({ id: victim.id }).update({ actor_name: victim['actor_name'], hash: victim.hash }));
+        await withoutTrigger(ctx.db, 'trail_events_refuse_update', () =>
+          ctx.db('trail_events').where({ id: victim.id }).update({ actor_name: victim['actor_name'], hash: victim.hash }),
+        );
       }
       expect((await verify()).ok).to.equal(true);
     });
@@ -228,7 +259,12 @@ describe('Trail hash chain', function () {
       try {
         expect((await verify()).firstBroken?.id).to.equal(last.id + 1);
       } finally {
-        await withoutTrigger(ctx.db, 'trail_events_refuse_delete', () => ctx.db('trail_events').where({ id: last.id + 1 }).del());
+        await withoutTrigger(ctx.db, 'trail_events_refuse_delete', () =>
+          ctx
+            .db('trail_events')
+            .where({ id: last.id + 1 })
+            .del(),
+        );
       }
       expect((await verify()).ok).to.equal(true);
     });
@@ -242,7 +278,9 @@ describe('Trail hash chain', function () {
       try {
         expect((await verifyChain(ctx.db, 3)).firstBroken).to.deep.equal({ id: target.id, reason: 'stored hash does not match its content' });
       } finally {
-        await withoutTrigger(ctx.db, 'trail_events_refuse_update', () => ctx.db('trail_events').where({ id: target.id }).update({ client_address: target['client_address'] }));
+        await withoutTrigger(ctx.db, 'trail_events_refuse_update', () =>
+          ctx.db('trail_events').where({ id: target.id }).update({ client_address: target['client_address'] }),
+        );
       }
     });
   });

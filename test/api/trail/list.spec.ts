@@ -86,14 +86,33 @@ describe('Trail list and CSV export', function () {
     recipeB = b.recipeId;
     await saveDraft(ctx.db, w, recipeA, 1, { revision: 0, title: 'Recipe A', content: { ...a.content, instructionsMd: 'Cut slowly.' } });
     await saveDraft(ctx.db, o, recipeB, 1, { revision: 0, title: 'Recipe B', content: { ...b.content, instructionsMd: 'Cut.' } });
-    const png = await sharp({ create: { width: 8, height: 8, channels: 3, background: '#808080' } }).png().toBuffer();
-    await addAttachment(ctx.db, w, recipeA, 1, { role: 'setup', caption: 'µ-scale setup, Ø 20 mm' }, { bytes: png, fileName: 'setup.png', declaredType: 'image/png' });
+    const png = await sharp({ create: { width: 8, height: 8, channels: 3, background: '#808080' } })
+      .png()
+      .toBuffer();
+    await addAttachment(
+      ctx.db,
+      w,
+      recipeA,
+      1,
+      { role: 'setup', caption: 'µ-scale setup, Ø 20 mm' },
+      { bytes: png, fileName: 'setup.png', declaredType: 'image/png' },
+    );
 
     // Events at chosen moments around UTC day boundaries, and names a spreadsheet could misread.
     const at = (iso: string) => new Date(iso);
     const who = (name: string) => ({ userId: other.id, name, clientAddress: '' });
-    await appendTrailEvent(ctx.db, who('Night Shift'), { type: 'user.details_changed', entityType: 'user', entityId: other.id, before: { displayName: 'a' }, after: { displayName: 'b' } }, at('2020-03-01T23:59:59.999Z'));
-    await appendTrailEvent(ctx.db, who('=HYPERLINK("http://x.example"), "µm" ø'), { type: 'user.details_changed', entityType: 'user', entityId: other.id, after: { note: 'says "hi",\nthen leaves' } }, at('2020-03-02T00:00:00.000Z'));
+    await appendTrailEvent(
+      ctx.db,
+      who('Night Shift'),
+      { type: 'user.details_changed', entityType: 'user', entityId: other.id, before: { displayName: 'a' }, after: { displayName: 'b' } },
+      at('2020-03-01T23:59:59.999Z'),
+    );
+    await appendTrailEvent(
+      ctx.db,
+      who('=HYPERLINK("http://x.example"), "µm" ø'),
+      { type: 'user.details_changed', entityType: 'user', entityId: other.id, after: { note: 'says "hi",\nthen leaves' } },
+      at('2020-03-02T00:00:00.000Z'),
+    );
     await appendTrailEvent(ctx.db, who('+1 plus'), { type: 'user.details_changed', entityType: 'user', entityId: other.id }, at('2020-03-02T23:59:59.999Z'));
     await appendTrailEvent(ctx.db, who('-1 minus'), { type: 'user.details_changed', entityType: 'user', entityId: other.id }, at('2020-03-03T00:00:00.000Z'));
     await appendTrailEvent(ctx.db, who('@at sign'), { type: 'user.details_changed', entityType: 'user', entityId: other.id }, at('2020-03-04T12:00:00.000Z'));
@@ -174,7 +193,10 @@ describe('Trail list and CSV export', function () {
           const res = await auditor.agent.get(url).query(query);
           expect(res.status, `${url} ${JSON.stringify(query)}`).to.equal(400);
           expect(res.body.code).to.equal('VALIDATION_FAILED');
-          expect(res.body.errors.map((e: { path: string }) => e.path), JSON.stringify(query)).to.include(path);
+          expect(
+            res.body.errors.map((e: { path: string }) => e.path),
+            JSON.stringify(query),
+          ).to.include(path);
         }
       }
     });
@@ -182,11 +204,14 @@ describe('Trail list and CSV export', function () {
 
   describe('GET /api/trail.csv', () => {
     it('sends every matching row as an attachment: UTF-8 with BOM, header, RFC 4180 quoting, CRLF', async () => {
-      const res = await auditor.agent.get('/api/trail.csv').buffer(true).parse((r, done) => {
-        const chunks: Buffer[] = [];
-        r.on('data', (c: Buffer) => chunks.push(c));
-        r.on('end', () => done(null, Buffer.concat(chunks)));
-      });
+      const res = await auditor.agent
+        .get('/api/trail.csv')
+        .buffer(true)
+        .parse((r, done) => {
+          const chunks: Buffer[] = [];
+          r.on('data', (c: Buffer) => chunks.push(c));
+          r.on('end', () => done(null, Buffer.concat(chunks)));
+        });
       expect(res.status).to.equal(200);
       expect(res.headers['content-type']).to.equal('text/csv; charset=utf-8');
       const day = new Date().toISOString().slice(0, 10).replace(/-/g, '');
@@ -195,7 +220,20 @@ describe('Trail list and CSV export', function () {
       expect([...bytes.subarray(0, 3)]).to.deep.equal([0xef, 0xbb, 0xbf]);
       const text = bytes.toString('utf8').slice(1);
       const records = parseCsv(text);
-      expect(records[0]).to.deep.equal(['id', 'occurred_at_utc', 'actor_id', 'actor_name', 'type', 'entity_type', 'entity_id', 'before', 'after', 'client_address', 'prev_hash', 'hash']);
+      expect(records[0]).to.deep.equal([
+        'id',
+        'occurred_at_utc',
+        'actor_id',
+        'actor_name',
+        'type',
+        'entity_type',
+        'entity_id',
+        'before',
+        'after',
+        'client_address',
+        'prev_hash',
+        'hash',
+      ]);
 
       // The same rows as the list, in the same order, field for field.
       const items = await everything({});
@@ -235,7 +273,9 @@ describe('Trail list and CSV export', function () {
       for (const size of [1, 2, 3, all.length, all.length + 1]) {
         let text = '';
         for await (const chunk of await openTrailCsv(ctx.db, trailQuery.parse({}), size)) text += chunk;
-        const ids = parseCsv(text.replace(/^\uFEFF/, '')).slice(1).map((r) => Number(r[0]));
+        const ids = parseCsv(text.replace(/^\uFEFF/, ''))
+          .slice(1)
+          .map((r) => Number(r[0]));
         expect(ids, `batch of ${size}`).to.deep.equal(all.map((e) => e.id));
       }
     });

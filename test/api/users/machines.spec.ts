@@ -54,7 +54,10 @@ describe('People: machine assignment', () => {
     const res = await send('patch', `/api/users/${person.id}`, { machineIds: [saws[2], saws[0]] });
     expect(res.status, JSON.stringify(res.body)).to.equal(200);
     expect(res.body.machineIds).to.deep.equal([saws[0], saws[2]]);
-    const events = await ctx.db('trail_events').where({ event_type: 'user.machines_changed', entity_id: String(person.id) }).orderBy('id');
+    const events = await ctx
+      .db('trail_events')
+      .where({ event_type: 'user.machines_changed', entity_id: String(person.id) })
+      .orderBy('id');
     expect(events).to.have.length(2);
     expect(asJson(events[1].before_json)).to.deep.equal({ machineIds: [saws[1]] });
     expect(asJson(events[1].after_json)).to.deep.equal({ machineIds: [saws[0], saws[2]] });
@@ -81,7 +84,13 @@ describe('People: machine assignment', () => {
     expect(await countRows(ctx.db, 'trail_events')).to.equal(events);
 
     const users = await countRows(ctx.db, 'users');
-    const created = await send('post', '/api/users', { username: 'no.such.saw', displayName: 'N', roles: [], temporaryPassword: 'first-temp-pass', machineIds: [999999] });
+    const created = await send('post', '/api/users', {
+      username: 'no.such.saw',
+      displayName: 'N',
+      roles: [],
+      temporaryPassword: 'first-temp-pass',
+      machineIds: [999999],
+    });
     expect(created.status).to.equal(400);
     expect(created.body.errors[0].path).to.equal('machineIds');
     expect(await countRows(ctx.db, 'users')).to.equal(users);

@@ -39,12 +39,25 @@ describe('People (admin)', () => {
         temporaryPassword: 'first-temp-pass',
       });
       expect(res.status, JSON.stringify(res.body)).to.equal(201);
-      expect(res.body).to.include({ username: 'new.person', displayName: 'Nadia Quist', email: 'nadia@lab.example', active: true, mustChangePassword: true, units: 'metric' });
+      expect(res.body).to.include({
+        username: 'new.person',
+        displayName: 'Nadia Quist',
+        email: 'nadia@lab.example',
+        active: true,
+        mustChangePassword: true,
+        units: 'metric',
+      });
       expect(res.body.roles).to.deep.equal(['author', 'operator']);
       expect(res.body).not.to.have.property('passwordHash');
       const events = await eventsSince(mark);
       expect(events).to.have.length(1);
-      expect(events[0]).to.include({ event_type: 'user.created', actor_user_id: admin.id, actor_name: 'Ada Admin', entity_type: 'user', entity_id: String(res.body.id) });
+      expect(events[0]).to.include({
+        event_type: 'user.created',
+        actor_user_id: admin.id,
+        actor_name: 'Ada Admin',
+        entity_type: 'user',
+        entity_id: String(res.body.id),
+      });
       expect(events[0].before_json).to.equal(null);
       expect(asJson(events[0].after_json)).to.include({ username: 'new.person', mustChangePassword: true });
       expect(JSON.stringify(events)).not.to.match(/first-temp-pass|scrypt/);
@@ -78,7 +91,10 @@ describe('People (admin)', () => {
         const res = await post('/api/users', body);
         expect(res.status, JSON.stringify(body)).to.equal(400);
         expect(res.body.code).to.equal('VALIDATION_FAILED');
-        expect(res.body.errors.map((e: { path: string }) => e.path), JSON.stringify(body)).to.include(path);
+        expect(
+          res.body.errors.map((e: { path: string }) => e.path),
+          JSON.stringify(body),
+        ).to.include(path);
       }
       expect(await countRows(ctx.db, 'users')).to.equal(users);
       expect(await countRows(ctx.db, 'trail_events')).to.equal(events);
@@ -180,7 +196,10 @@ describe('People (admin)', () => {
 
     it('changes roles with one trail row holding before and after', async () => {
       const mark = await lastEventId();
-      const res = await agent.patch(`/api/users/${person.id}`).set(CSRF_HEADER, csrf).send({ roles: ['approver', 'operator'] });
+      const res = await agent
+        .patch(`/api/users/${person.id}`)
+        .set(CSRF_HEADER, csrf)
+        .send({ roles: ['approver', 'operator'] });
       expect(res.status).to.equal(200);
       expect(res.body.roles).to.deep.equal(['approver', 'operator']);
       const events = await eventsSince(mark);
@@ -192,7 +211,11 @@ describe('People (admin)', () => {
 
     it('writes nothing for a change that changes nothing, or for bad input', async () => {
       const mark = await lastEventId();
-      await agent.patch(`/api/users/${person.id}`).set(CSRF_HEADER, csrf).send({ roles: ['operator', 'approver'] }).expect(200);
+      await agent
+        .patch(`/api/users/${person.id}`)
+        .set(CSRF_HEADER, csrf)
+        .send({ roles: ['operator', 'approver'] })
+        .expect(200);
       for (const body of [{}, { roles: ['boss'] }, { displayName: '' }, { username: 'renamed' }]) {
         const res = await agent.patch(`/api/users/${person.id}`).set(CSRF_HEADER, csrf).send(body);
         expect(res.status, JSON.stringify(body)).to.equal(400);
@@ -204,7 +227,10 @@ describe('People (admin)', () => {
 
     it('refuses to let an admin remove their own admin role', async () => {
       const mark = await lastEventId();
-      const res = await agent.patch(`/api/users/${admin.id}`).set(CSRF_HEADER, csrf).send({ roles: ['approver'] });
+      const res = await agent
+        .patch(`/api/users/${admin.id}`)
+        .set(CSRF_HEADER, csrf)
+        .send({ roles: ['approver'] });
       expect(res.status).to.equal(409);
       expect(res.body.errors[0]).to.include({ path: 'roles' });
       expect(res.body.errors[0].message).to.match(/own admin role/);
@@ -212,7 +238,10 @@ describe('People (admin)', () => {
       const roles = await ctx.db('user_roles').where({ user_id: admin.id }).pluck('role');
       expect(roles).to.deep.equal(['admin']);
       // Adding a role to oneself is fine.
-      const more = await agent.patch(`/api/users/${admin.id}`).set(CSRF_HEADER, csrf).send({ roles: ['admin', 'auditor'] });
+      const more = await agent
+        .patch(`/api/users/${admin.id}`)
+        .set(CSRF_HEADER, csrf)
+        .send({ roles: ['admin', 'auditor'] });
       expect(more.status).to.equal(200);
     });
   });

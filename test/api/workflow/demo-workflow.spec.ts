@@ -37,7 +37,10 @@ describe('Demo review history', () => {
 
   it('signs with the demo approver and binds each signature to the content hash', async () => {
     const approver = account('approver');
-    const signatures = await ctx.db('signatures as s').join('recipe_versions as v', 'v.id', 's.version_id').select('s.signer_name', 's.content_hash', 'v.content_hash as version_hash', 's.meaning');
+    const signatures = await ctx
+      .db('signatures as s')
+      .join('recipe_versions as v', 'v.id', 's.version_id')
+      .select('s.signer_name', 's.content_hash', 'v.content_hash as version_hash', 's.meaning');
     expect(signatures.length).to.be.at.least(8);
     for (const s of signatures) {
       expect(s.signer_name).to.equal(approver.displayName);

@@ -34,7 +34,9 @@ describe('Frozen content in the database', () => {
     author = await sessionFor(ctx.app, ctx.db, ['author']);
     approver = await sessionFor(ctx.app, ctx.db, ['approver']);
     stock = await createStockSet(ctx.db);
-    png = await sharp({ create: { width: 8, height: 8, channels: 3, background: '#808080' } }).png().toBuffer();
+    png = await sharp({ create: { width: 8, height: 8, channels: 3, background: '#808080' } })
+      .png()
+      .toBuffer();
   });
 
   const rowOf = (v: Pick<RecipeVersionDto, 'recipeId' | 'version'>) => ctx.db('recipe_versions').where({ recipe_id: v.recipeId, version: v.version });
@@ -116,13 +118,38 @@ describe('Frozen content in the database', () => {
   it('refuses adding, changing or removing photos of a frozen version, and allows it on a draft', async () => {
     const draft = await createDraft(author, stock, { title: 'Photos freeze' });
     const actor = { userId: author.person.id, name: author.person.displayName, clientAddress: '' };
-    const photo = await addAttachment(ctx.db, actor, draft.recipeId, 1, { role: 'setup', caption: 'before' }, { bytes: png, fileName: 'a.png', declaredType: 'image/png' });
+    const photo = await addAttachment(
+      ctx.db,
+      actor,
+      draft.recipeId,
+      1,
+      { role: 'setup', caption: 'before' },
+      { bytes: png, fileName: 'a.png', declaredType: 'image/png' },
+    );
     await ctx.db('attachments').where({ id: photo.id }).update({ caption: 'draft caption' });
     const current = ok(await act.get(author, draft));
     await act.submit(author, current).expect(200);
     expect((await refused(ctx.db('attachments').where({ id: photo.id }).update({ caption: 'changed' }))).message).to.match(/photos cannot be changed/);
     expect((await refused(ctx.db('attachments').where({ id: photo.id }).del())).message).to.match(/photos cannot be removed/);
-    const meta = await ctx.db('attachments').where({ id: photo.id }).first('version_id', 'role', 'file_name', 'mime_type', 'size_bytes', 'sha256', 'width', 'height', 'data', 'thumbnail', 'thumbnail_mime_type', 'thumbnail_sha256', 'created_by', 'created_at');
+    const meta = await ctx
+      .db('attachments')
+      .where({ id: photo.id })
+      .first(
+        'version_id',
+        'role',
+        'file_name',
+        'mime_type',
+        'size_bytes',
+        'sha256',
+        'width',
+        'height',
+        'data',
+        'thumbnail',
+        'thumbnail_mime_type',
+        'thumbnail_sha256',
+        'created_by',
+        'created_at',
+      );
     expect((await refused(ctx.db('attachments').insert({ ...meta, caption: 'slipped in' }))).message).to.match(/cannot be added/);
     expect(await ctx.db('attachments').where({ version_id: meta.version_id }).count({ n: '*' }).first()).to.deep.equal({ n: 1 });
   });

@@ -32,7 +32,8 @@ describe('Effective dates and supersession', () => {
   const stateOf = async (recipeId: number) => {
     const versions = (await reader.agent.get(`/api/recipes/${recipeId}/versions`).expect(200)).body as RecipeVersionDto[];
     const recipe = await ctx.db('recipes').where({ id: recipeId }).first('current_version_id');
-    const current = recipe.current_version_id === null ? null : (await ctx.db('recipe_versions').where({ id: recipe.current_version_id }).first('version')).version;
+    const current =
+      recipe.current_version_id === null ? null : (await ctx.db('recipe_versions').where({ id: recipe.current_version_id }).first('version')).version;
     return { statuses: versions.map((v) => [v.version, v.status]), current };
   };
 
@@ -54,7 +55,13 @@ describe('Effective dates and supersession', () => {
     const due = new Date(`${effectiveDate}T00:00:00Z`);
     due.setUTCMonth(due.getUTCMonth() + months);
     expect(v2.workflow!.reviewDueOn!.slice(0, 7)).to.equal(due.toISOString().slice(0, 7));
-    expect(await stateOf(v1.recipeId)).to.deep.equal({ statuses: [[2, 'approved'], [1, 'approved']], current: 1 });
+    expect(await stateOf(v1.recipeId)).to.deep.equal({
+      statuses: [
+        [2, 'approved'],
+        [1, 'approved'],
+      ],
+      current: 1,
+    });
 
     // The day before: nothing is due.
     expect(await applyDueSupersessions(ctx.db, new Date(`${day(9)}T23:59:59Z`))).to.deep.equal({ madeCurrent: 0, superseded: 0 });
@@ -63,7 +70,13 @@ describe('Effective dates and supersession', () => {
     const events = await countRows(ctx.db, 'trail_events');
     const result = await applyDueSupersessions(ctx.db, new Date(`${effectiveDate}T00:00:01Z`));
     expect(result).to.deep.equal({ madeCurrent: 1, superseded: 1 });
-    expect(await stateOf(v1.recipeId)).to.deep.equal({ statuses: [[2, 'approved'], [1, 'superseded']], current: 2 });
+    expect(await stateOf(v1.recipeId)).to.deep.equal({
+      statuses: [
+        [2, 'approved'],
+        [1, 'superseded'],
+      ],
+      current: 2,
+    });
     expect(await countRows(ctx.db, 'trail_events')).to.equal(events + 2);
     const rows = await ctx.db('trail_events').orderBy('id', 'desc').limit(2);
     const types = rows.map((r) => r.event_type).sort();
@@ -102,7 +115,13 @@ describe('Effective dates and supersession', () => {
     expect(a.superseded + b.superseded + c.superseded).to.equal(4);
     expect(await countRows(ctx.db, 'trail_events')).to.equal(events + 8);
     for (const { v1 } of recipes) {
-      expect(await stateOf(v1.recipeId)).to.deep.equal({ statuses: [[2, 'approved'], [1, 'superseded']], current: 2 });
+      expect(await stateOf(v1.recipeId)).to.deep.equal({
+        statuses: [
+          [2, 'approved'],
+          [1, 'superseded'],
+        ],
+        current: 2,
+      });
       const effective = await ctx.db('trail_events').where({ event_type: 'recipe.version_effective', recipe_id: v1.recipeId }).count({ n: '*' }).first();
       expect(Number(effective!.n)).to.equal(1);
     }
@@ -126,7 +145,13 @@ describe('Effective dates and supersession', () => {
     const { v1, v2, effectiveDate } = await pendingSecondVersion('Withdrawn before its day', 4);
     ok(await act.withdraw(approver, v2, { reason: 'Customer changed the drawing.' }));
     expect(await applyDueSupersessions(ctx.db, new Date(`${effectiveDate}T09:00:00Z`))).to.deep.equal({ madeCurrent: 0, superseded: 0 });
-    expect(await stateOf(v1.recipeId)).to.deep.equal({ statuses: [[2, 'withdrawn'], [1, 'approved']], current: 1 });
+    expect(await stateOf(v1.recipeId)).to.deep.equal({
+      statuses: [
+        [2, 'withdrawn'],
+        [1, 'approved'],
+      ],
+      current: 1,
+    });
   });
 
   it('runs on a timer started with the app settings and stops when asked', async () => {
@@ -135,13 +160,22 @@ describe('Effective dates and supersession', () => {
     expect((await stateOf(v1.recipeId)).current).to.equal(2);
     const { v1: other, v2 } = await pendingSecondVersion('Timer pending', 1);
     // Pretend the day has come: move the effective date back (a seed-style update of a workflow column).
-    await ctx.db('recipe_versions').where({ recipe_id: v2.recipeId, version: 2 }).update({ effective_from: day(0) });
+    await ctx
+      .db('recipe_versions')
+      .where({ recipe_id: v2.recipeId, version: 2 })
+      .update({ effective_from: day(0) });
     const stop = startSupersessionTimer(ctx.db, 50, () => undefined);
     try {
       for (let i = 0; i < 100 && (await stateOf(other.recipeId)).current !== 2; i++) await new Promise((r) => setTimeout(r, 20));
     } finally {
       stop();
     }
-    expect(await stateOf(other.recipeId)).to.deep.equal({ statuses: [[2, 'approved'], [1, 'superseded']], current: 2 });
+    expect(await stateOf(other.recipeId)).to.deep.equal({
+      statuses: [
+        [2, 'approved'],
+        [1, 'superseded'],
+      ],
+      current: 2,
+    });
   });
 });

@@ -32,7 +32,10 @@ describe('Review workflow', () => {
 
   /** What must stay the same when a request is refused. */
   async function snapshot(v: Pick<RecipeVersionDto, 'recipeId' | 'version'>) {
-    const row = await ctx.db('recipe_versions').where({ recipe_id: v.recipeId, version: v.version }).first('status', 'revision', 'content_hash', 'effective_from');
+    const row = await ctx
+      .db('recipe_versions')
+      .where({ recipe_id: v.recipeId, version: v.version })
+      .first('status', 'revision', 'content_hash', 'effective_from');
     const recipe = await ctx.db('recipes').where({ id: v.recipeId }).first('current_version_id', 'latest_version_id');
     return {
       row,
@@ -93,7 +96,13 @@ describe('Review workflow', () => {
       expect(approvedV1.workflow!.reviewDueOn!.slice(0, 7)).to.equal(due.toISOString().slice(0, 7));
       expect(approvedV1.workflow!.signatures).to.have.length(1);
       const sig = approvedV1.workflow!.signatures[0]!;
-      expect(sig).to.include({ signerName: 'Tomas Approver', signerId: approver.person.id, meaning: 'approved', comment: 'Fine for production.', contentHash: resubmitted.contentHash });
+      expect(sig).to.include({
+        signerName: 'Tomas Approver',
+        signerId: approver.person.id,
+        meaning: 'approved',
+        comment: 'Fine for production.',
+        contentHash: resubmitted.contentHash,
+      });
       expect(Date.parse(sig.signedAt)).to.be.within(before - 1000, Date.now() + 1000);
       expect(sig.signedAt).to.match(/Z$/);
       const recipe = await ctx.db('recipes').where({ id: draft.recipeId }).first();
@@ -391,8 +400,15 @@ describe('Review workflow', () => {
     it('copies the photos of the version it starts from', async () => {
       const sharp = (await import('sharp')).default;
       const draft = await createDraft(author, stock, { title: 'With a photo' });
-      const png = await sharp({ create: { width: 16, height: 12, channels: 3, background: '#406080' } }).png().toBuffer();
-      await author.agent.post(`/api/recipes/${draft.recipeId}/versions/1/attachments`).set('x-csrf-token', author.csrf).field('role', 'setup').attach('file', png, 'setup.png').expect(201);
+      const png = await sharp({ create: { width: 16, height: 12, channels: 3, background: '#406080' } })
+        .png()
+        .toBuffer();
+      await author.agent
+        .post(`/api/recipes/${draft.recipeId}/versions/1/attachments`)
+        .set('x-csrf-token', author.csrf)
+        .field('role', 'setup')
+        .attach('file', png, 'setup.png')
+        .expect(201);
       const current = ok(await act.get(author, draft));
       const v1 = ok(await act.approve(approver, ok(await act.submit(author, current))));
       const v2 = ok(await act.newVersion(author, v1.recipeId, 1), 201);
@@ -408,7 +424,10 @@ describe('Review workflow', () => {
     it('are added by authors and approvers, read by anyone signed in, and written to the trail', async () => {
       const v = await inReview(author, stock, { title: 'Comments' });
       const events = await countRows(ctx.db, 'trail_events');
-      const res = await post(approver, `/api/recipes/${v.recipeId}/versions/1/comments`, { body: 'Feed looks high for this hardness.', path: 'cutting.feedMmS' });
+      const res = await post(approver, `/api/recipes/${v.recipeId}/versions/1/comments`, {
+        body: 'Feed looks high for this hardness.',
+        path: 'cutting.feedMmS',
+      });
       expect(res.status, JSON.stringify(res.body)).to.equal(201);
       expect(res.body).to.include({ body: 'Feed looks high for this hardness.', path: 'cutting.feedMmS', authorName: 'Tomas Approver' });
       expect((await post(author, `/api/recipes/${v.recipeId}/versions/1/comments`, { body: 'It was tried on the last lot.' })).status).to.equal(201);
@@ -444,9 +463,18 @@ describe('Review workflow', () => {
       const later = await approved(author2, approver, stock, { title: 'Due later' });
       const overdue = await approved(author2, approver, stock, { title: 'Overdue' });
       const day = (offset: number) => new Date(Date.now() + offset * 86400000).toISOString().slice(0, 10);
-      await ctx.db('recipe_versions').where({ recipe_id: soon.recipeId, version: 1 }).update({ review_due_on: day(30) });
-      await ctx.db('recipe_versions').where({ recipe_id: later.recipeId, version: 1 }).update({ review_due_on: day(90) });
-      await ctx.db('recipe_versions').where({ recipe_id: overdue.recipeId, version: 1 }).update({ review_due_on: day(-3) });
+      await ctx
+        .db('recipe_versions')
+        .where({ recipe_id: soon.recipeId, version: 1 })
+        .update({ review_due_on: day(30) });
+      await ctx
+        .db('recipe_versions')
+        .where({ recipe_id: later.recipeId, version: 1 })
+        .update({ review_due_on: day(90) });
+      await ctx
+        .db('recipe_versions')
+        .where({ recipe_id: overdue.recipeId, version: 1 })
+        .update({ review_due_on: day(-3) });
       const due = (await operator.agent.get('/api/reviews/due').expect(200)).body as { id: number; reviewDueOn: string }[];
       const ids = due.map((d) => d.id);
       expect(ids).to.include.members([soon.recipeId, overdue.recipeId]);

@@ -37,11 +37,20 @@ export const act = {
       ...over,
     }),
   withdraw: (who: Session, v: RecipeVersionDto, over: object = {}) =>
-    post(who, `${versionPath(v)}/withdraw`, { revision: v.revision, password: who.person.password, meaning: 'withdrawn', reason: 'Wheel no longer stocked.', ...over }),
+    post(who, `${versionPath(v)}/withdraw`, {
+      revision: v.revision,
+      password: who.person.password,
+      meaning: 'withdrawn',
+      reason: 'Wheel no longer stocked.',
+      ...over,
+    }),
   newVersion: (who: Session, recipeId: number, fromVersion: number, changeReason = 'Lower feed after burn marks.') =>
     post(who, `/api/recipes/${recipeId}/versions`, { fromVersion, changeReason }),
   save: (who: Session, v: RecipeVersionDto, change: Partial<RecipeVersionDto['content']> = {}) =>
-    who.agent.put(versionPath(v)).set(CSRF_HEADER, who.csrf).send({ revision: v.revision, title: v.title, content: { ...v.content, ...change } }),
+    who.agent
+      .put(versionPath(v))
+      .set(CSRF_HEADER, who.csrf)
+      .send({ revision: v.revision, title: v.title, content: { ...v.content, ...change } }),
   get: (who: Session, v: Pick<RecipeVersionDto, 'recipeId' | 'version'>) => who.agent.get(versionPath(v)),
 };
 

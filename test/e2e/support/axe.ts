@@ -21,9 +21,11 @@ export interface Finding {
 /** Waits until the screen has loaded its data: no request in flight, no progress bar. */
 export async function settle(page: Page): Promise<void> {
   await page.waitForLoadState('networkidle');
-  await page.waitForFunction(() => document.querySelector('mat-progress-bar, mat-spinner, mat-progress-spinner') === null, undefined, { timeout: 15_000 }).catch(() => {
-    /* a screen may keep an indicator on purpose; axe still runs */
-  });
+  await page
+    .waitForFunction(() => document.querySelector('mat-progress-bar, mat-spinner, mat-progress-spinner') === null, undefined, { timeout: 15_000 })
+    .catch(() => {
+      /* a screen may keep an indicator on purpose; axe still runs */
+    });
   // Colours are measured as painted: let enter animations and transitions (an error message
   // fading in, a dialog growing) finish first, or axe sees a half-faded colour. Endless ones
   // (progress bars) are left alone.

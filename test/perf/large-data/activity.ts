@@ -16,14 +16,30 @@ const COMMAND_LINE: TrailActor = { userId: null, name: 'command line (admin:crea
 
 /** The trail snapshot of a person (user-dto.ts `trailSnapshot`). */
 function personSnapshot(p: Person): Record<string, unknown> {
-  return { username: p.username, displayName: p.displayName, email: p.email, roles: p.roles, active: true, mustChangePassword: false, units: 'metric', machineIds: [] };
+  return {
+    username: p.username,
+    displayName: p.displayName,
+    email: p.email,
+    roles: p.roles,
+    active: true,
+    mustChangePassword: false,
+    units: 'metric',
+    machineIds: [],
+  };
 }
 
 export function planPeopleEvents(people: readonly Person[], plan: TrailPlan): void {
   const [first] = people;
   if (!first) return;
   for (const p of people) {
-    plan.add(p.createdAt, p === first ? COMMAND_LINE : actorOf(first), () => ({ type: TRAIL_EVENTS.userCreated, entityType: 'user', entityId: p.id, recipeId: null, before: null, after: personSnapshot(p) }));
+    plan.add(p.createdAt, p === first ? COMMAND_LINE : actorOf(first), () => ({
+      type: TRAIL_EVENTS.userCreated,
+      entityType: 'user',
+      entityId: p.id,
+      recipeId: null,
+      before: null,
+      after: personSnapshot(p),
+    }));
   }
 }
 
@@ -75,7 +91,15 @@ function momentAfter(since: number, end: number, random: Random): number {
   return random.between(from, end - MINUTE_MS);
 }
 
-export function planCuts(count: number, inUse: readonly InUse[], operators: readonly Person[], authors: readonly Person[], end: number, random: Random, plan: TrailPlan): { rows: CutRow[]; ids: IdSequence } {
+export function planCuts(
+  count: number,
+  inUse: readonly InUse[],
+  operators: readonly Person[],
+  authors: readonly Person[],
+  end: number,
+  random: Random,
+  plan: TrailPlan,
+): { rows: CutRow[]; ids: IdSequence } {
   const rows: CutRow[] = [];
   const ids = new IdSequence();
   if (inUse.length === 0) return { rows, ids };
@@ -107,7 +131,16 @@ export function planCuts(count: number, inUse: readonly InUse[], operators: read
         entityId: version.id,
         recipeId: version.recipe.id,
         before: null,
-        after: { cutId: cut.id, versionId: version.id, version: version.version, specimenId: cut.specimenId, partRef: cut.partRef, quantity: cut.quantity, outcome, notes: cut.notes },
+        after: {
+          cutId: cut.id,
+          versionId: version.id,
+          version: version.version,
+          specimenId: cut.specimenId,
+          partRef: cut.partRef,
+          quantity: cut.quantity,
+          outcome,
+          notes: cut.notes,
+        },
       };
     });
     // An author looks at most flagged cuts within a few days.
@@ -143,7 +176,15 @@ export interface PrintRow {
  * Fills the trail up to `events` with prints, sign-ins, sign-outs and failed sign-ins.
  * Answers the print rows (ids handed out as the trail is written).
  */
-export function planDailyWork(events: number, inUse: readonly InUse[], people: readonly Person[], operators: readonly Person[], end: number, random: Random, plan: TrailPlan): { prints: PrintRow[]; ids: IdSequence } {
+export function planDailyWork(
+  events: number,
+  inUse: readonly InUse[],
+  people: readonly Person[],
+  operators: readonly Person[],
+  end: number,
+  random: Random,
+  plan: TrailPlan,
+): { prints: PrintRow[]; ids: IdSequence } {
   const prints: PrintRow[] = [];
   const ids = new IdSequence();
   const printCount = inUse.length === 0 ? 0 : Math.floor(events * 0.3);
@@ -185,14 +226,19 @@ export function planDailyWork(events: number, inUse: readonly InUse[], people: r
   }
 
   // Sign-in, and a few hours later sign-out (the odd one stays signed in).
-  for (let left = sessions; left > 0; ) {
+  for (let left = sessions; left > 0;) {
     const p = random.pick(people);
     const t = random.between(p.createdAt + HOUR_MS, end - 10 * HOUR_MS);
     p.lastSignInAt = Math.max(p.lastSignInAt ?? 0, Math.floor(t));
     plan.add(t, actorOf(p), () => ({ type: TRAIL_EVENTS.signedIn, entityType: 'user', entityId: p.id, recipeId: null }));
     left -= 1;
     if (left === 0) break;
-    plan.add(t + random.between(HOUR_MS, 9 * HOUR_MS), actorOf(p), () => ({ type: TRAIL_EVENTS.signedOut, entityType: 'user', entityId: p.id, recipeId: null }));
+    plan.add(t + random.between(HOUR_MS, 9 * HOUR_MS), actorOf(p), () => ({
+      type: TRAIL_EVENTS.signedOut,
+      entityType: 'user',
+      entityId: p.id,
+      recipeId: null,
+    }));
     left -= 1;
   }
   return { prints, ids };

@@ -42,7 +42,12 @@ const EXTRA_STEPS = [
   '## Waste\n\nCollect the sludge from the sump in the marked drum; it is disposed of as metal-bearing waste.',
 ];
 
-const EXTRA_ACCEPTANCE = ['- Face flat within 0.1 mm across the section.', '- No cracks visible at 10×.', '- Edges free of chipping above 0.2 mm.', '- Specimen id legible on the offcut.'];
+const EXTRA_ACCEPTANCE = [
+  '- Face flat within 0.1 mm across the section.',
+  '- No cracks visible at 10×.',
+  '- Edges free of chipping above 0.2 mm.',
+  '- Specimen id legible on the offcut.',
+];
 
 const CHANGE_REASONS = [
   'Feed lowered after burn marks on two specimens.',

@@ -29,8 +29,60 @@ const ROLE_SHARES: [Role, number][] = [
   ['author', 0.25],
 ];
 
-const FIRST = ['Ada', 'Bela', 'Carla', 'Dmitri', 'Elif', 'Farid', 'Greta', 'Hugo', 'Ingrid', 'Jonas', 'Kaito', 'Lena', 'Marek', 'Nadia', 'Oskar', 'Priya', 'Quentin', 'Rosa', 'Sven', 'Tara', 'Umar', 'Vera', 'Wim', 'Yara', 'Zeno'];
-const LAST = ['Albers', 'Brodsky', 'Castell', 'Duarte', 'Eklund', 'Ferreira', 'Gallo', 'Hartmann', 'Ivanova', 'Jansen', 'Kowalski', 'Lindqvist', 'Moreau', 'Nakamura', 'Okonkwo', 'Petrov', 'Quist', 'Rahman', 'Schuster', 'Tanaka', 'Urban', 'Vos', 'Weber', 'Yilmaz', 'Zeller'];
+const FIRST = [
+  'Ada',
+  'Bela',
+  'Carla',
+  'Dmitri',
+  'Elif',
+  'Farid',
+  'Greta',
+  'Hugo',
+  'Ingrid',
+  'Jonas',
+  'Kaito',
+  'Lena',
+  'Marek',
+  'Nadia',
+  'Oskar',
+  'Priya',
+  'Quentin',
+  'Rosa',
+  'Sven',
+  'Tara',
+  'Umar',
+  'Vera',
+  'Wim',
+  'Yara',
+  'Zeno',
+];
+const LAST = [
+  'Albers',
+  'Brodsky',
+  'Castell',
+  'Duarte',
+  'Eklund',
+  'Ferreira',
+  'Gallo',
+  'Hartmann',
+  'Ivanova',
+  'Jansen',
+  'Kowalski',
+  'Lindqvist',
+  'Moreau',
+  'Nakamura',
+  'Okonkwo',
+  'Petrov',
+  'Quist',
+  'Rahman',
+  'Schuster',
+  'Tanaka',
+  'Urban',
+  'Vos',
+  'Weber',
+  'Yilmaz',
+  'Zeller',
+];
 
 /** How many of `total` people have each primary role: at least one each, two approvers. */
 function roleCounts(total: number): [Role, number][] {

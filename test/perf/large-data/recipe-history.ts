@@ -106,7 +106,14 @@ const RETURN_COMMENTS = [
   'Add the check of the specimen marking to the acceptance list.',
   'The customer specification asks for a crack check; add it.',
 ];
-const APPROVAL_COMMENTS = ['', '', 'Checked against the customer specification.', 'Trial cuts on three specimens were good.', 'Reviewed with the shift lead.', 'Periodic review done; parameters confirmed.'];
+const APPROVAL_COMMENTS = [
+  '',
+  '',
+  'Checked against the customer specification.',
+  'Trial cuts on three specimens were good.',
+  'Reviewed with the shift lead.',
+  'Periodic review done; parameters confirmed.',
+];
 const WITHDRAW_REASONS = [
   'The part is no longer made here.',
   'Replaced by a recipe for the new machine.',
@@ -295,7 +302,14 @@ function planRecipe(serial: number, createdAt: number, input: HistoryInput, hist
     v.revision += 1;
     v.contentHash = hash;
     v.submittedAt = t;
-    plan.add(t, actorOf(v.updatedBy), () => ({ type: TRAIL_EVENTS.versionSubmitted, entityType: 'recipe_version', entityId: v.id, recipeId: recipe.id, before, after }));
+    plan.add(t, actorOf(v.updatedBy), () => ({
+      type: TRAIL_EVENTS.versionSubmitted,
+      entityType: 'recipe_version',
+      entityId: v.id,
+      recipeId: recipe.id,
+      before,
+      after,
+    }));
   }
 
   function returnVersion(v: PlannedVersion, approver: Person, t: number): void {
@@ -321,7 +335,13 @@ function planRecipe(serial: number, createdAt: number, input: HistoryInput, hist
   function approve(v: PlannedVersion, approver: Person, t: number): void {
     const effectiveFrom = utcDay(new Date(t));
     const reviewDueOn = addMonths(effectiveFrom, input.reviewIntervalMonths);
-    const acknowledged = [...new Set(checksOf(v.planned.values).filter((c) => c.severity === 'warning').map((c) => c.id))].sort();
+    const acknowledged = [
+      ...new Set(
+        checksOf(v.planned.values)
+          .filter((c) => c.severity === 'warning')
+          .map((c) => c.id),
+      ),
+    ].sort();
     const comment = random.pick(APPROVAL_COMMENTS);
     const before = { status: 'in-review', revision: v.revision };
     const revision = v.revision + 1;
@@ -342,7 +362,16 @@ function planRecipe(serial: number, createdAt: number, input: HistoryInput, hist
       previous.supersededAt = t;
     }
     plan.add(t, actorOf(approver), () => {
-      const signature: PlannedSignature = { id: history.ids.signatures.next(), version: v, signer: approver, meaning: 'approved', comment, signedAt: t, contentHash, acknowledgedWarnings: acknowledged };
+      const signature: PlannedSignature = {
+        id: history.ids.signatures.next(),
+        version: v,
+        signer: approver,
+        meaning: 'approved',
+        comment,
+        signedAt: t,
+        contentHash,
+        acknowledgedWarnings: acknowledged,
+      };
       history.signatures.push(signature);
       return {
         type: TRAIL_EVENTS.versionApproved,
@@ -390,7 +419,16 @@ function planRecipe(serial: number, createdAt: number, input: HistoryInput, hist
     recipe.current = null;
     recipe.updatedAt = t;
     plan.add(t, actorOf(approver), () => {
-      const signature: PlannedSignature = { id: history.ids.signatures.next(), version: v, signer: approver, meaning: 'withdrawn', comment: reason, signedAt: t, contentHash, acknowledgedWarnings: [] };
+      const signature: PlannedSignature = {
+        id: history.ids.signatures.next(),
+        version: v,
+        signer: approver,
+        meaning: 'withdrawn',
+        comment: reason,
+        signedAt: t,
+        contentHash,
+        acknowledgedWarnings: [],
+      };
       history.signatures.push(signature);
       return {
         type: TRAIL_EVENTS.versionWithdrawn,

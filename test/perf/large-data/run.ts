@@ -43,9 +43,15 @@ async function main(): Promise<number> {
     const c = summary.counts;
     console.log('');
     console.log(`Large data set made in ${summary.seconds.toFixed(0)} s:`);
-    console.log(`  ${c.recipes} recipes, ${c.recipeVersions} versions, ${c.users} people, ${c.trailEvents} trail events, ${c.cutRecords} cut records, ${c.sheetPrints} sheet prints`);
+    console.log(
+      `  ${c.recipes} recipes, ${c.recipeVersions} versions, ${c.users} people, ${c.trailEvents} trail events, ${c.cutRecords} cut records, ${c.sheetPrints} sheet prints`,
+    );
     console.log(`  Every person signs in with the password: ${summary.password}`);
-    console.log(`  One of each role: ${Object.entries(summary.usernames).map(([role, name]) => `${role} ${name}`).join(', ')}`);
+    console.log(
+      `  One of each role: ${Object.entries(summary.usernames)
+        .map(([role, name]) => `${role} ${name}`)
+        .join(', ')}`,
+    );
     return 0;
   } catch (err) {
     if (err instanceof DatabaseNotEmptyError) {

@@ -104,7 +104,9 @@ export async function seedLarge(db: Knex, options: SeedLargeOptions): Promise<La
   const approvers = withRole(people, 'approver');
   const operators = withRole(people, 'operator');
   const stock = await insertStock(db, start + DAY_MS, actorOf(authors[0]!), plan);
-  step(`stock: ${stock.counts.machines} machines, ${stock.counts.wheels} wheels, ${stock.counts.materials} materials, ${stock.counts.selectionRows} selection rows`);
+  step(
+    `stock: ${stock.counts.machines} machines, ${stock.counts.wheels} wheels, ${stock.counts.materials} materials, ${stock.counts.selectionRows} selection rows`,
+  );
 
   const months = (await findLabSettings(db))?.review_interval_months;
   const history = planRecipeHistories({
@@ -125,8 +127,16 @@ export async function seedLarge(db: Knex, options: SeedLargeOptions): Promise<La
 
   // --- write --------------------------------------------------------------------------
   const passwordHash = await hashPassword(LARGE_DATA_PASSWORD);
-  await insertBatches(db, 'users', people.map((p) => userRow(p, passwordHash)));
-  await insertBatches(db, 'user_roles', people.flatMap((p) => p.roles.map((role) => ({ user_id: p.id, role }))));
+  await insertBatches(
+    db,
+    'users',
+    people.map((p) => userRow(p, passwordHash)),
+  );
+  await insertBatches(
+    db,
+    'user_roles',
+    people.flatMap((p) => p.roles.map((role) => ({ user_id: p.id, role }))),
+  );
   step(`users: ${people.length}`);
 
   const trail = await writeTrail(db, plan, (n) => log(`[seed:large]   trail: ${n} events…`));
@@ -137,7 +147,16 @@ export async function seedLarge(db: Knex, options: SeedLargeOptions): Promise<La
   await insertBatches(
     db,
     'recipes',
-    recipes.map((r) => ({ id: r.id, number: r.number, title: r.title, latest_version_id: null, current_version_id: null, created_by: r.createdBy.id, created_at: new Date(r.createdAt), updated_at: new Date(r.updatedAt) })),
+    recipes.map((r) => ({
+      id: r.id,
+      number: r.number,
+      title: r.title,
+      latest_version_id: null,
+      current_version_id: null,
+      created_by: r.createdBy.id,
+      created_at: new Date(r.createdAt),
+      updated_at: new Date(r.updatedAt),
+    })),
   );
   await insertBatches(db, 'recipe_versions', versions.map(versionRow), 500);
   // Now that the versions exist, each recipe points at its latest and current one.
@@ -152,7 +171,10 @@ export async function seedLarge(db: Knex, options: SeedLargeOptions): Promise<La
     updated_at: new Date(r.updatedAt),
   }));
   for (let i = 0; i < links.length; i += 2000) {
-    await db('recipes').insert(links.slice(i, i + 2000)).onConflict('id').merge(['latest_version_id', 'current_version_id']);
+    await db('recipes')
+      .insert(links.slice(i, i + 2000))
+      .onConflict('id')
+      .merge(['latest_version_id', 'current_version_id']);
   }
   await db('recipe_number_counter').where({ id: 1 }).update({ last_number: recipes.length });
   step(`recipes: ${recipes.length}, recipe_versions: ${versions.length}`);
@@ -160,7 +182,9 @@ export async function seedLarge(db: Knex, options: SeedLargeOptions): Promise<La
   await insertBatches(
     db,
     'recipe_version_editors',
-    versions.flatMap((v) => [...v.editors].map(([userId, e]) => ({ version_id: v.id, user_id: userId, first_edited_at: new Date(e.first), last_edited_at: new Date(e.last) }))),
+    versions.flatMap((v) =>
+      [...v.editors].map(([userId, e]) => ({ version_id: v.id, user_id: userId, first_edited_at: new Date(e.first), last_edited_at: new Date(e.last) })),
+    ),
   );
   const signatures = history.signatures.sort((a, b) => a.id - b.id);
   await insertBatches(
@@ -181,7 +205,15 @@ export async function seedLarge(db: Knex, options: SeedLargeOptions): Promise<La
   await insertBatches(
     db,
     'review_comments',
-    history.comments.map((c) => ({ id: c.id, version_id: c.version.id, author_id: c.author.id, author_name: c.author.displayName.slice(0, 100), body: c.body, path: '', created_at: new Date(c.createdAt) })),
+    history.comments.map((c) => ({
+      id: c.id,
+      version_id: c.version.id,
+      author_id: c.author.id,
+      author_name: c.author.displayName.slice(0, 100),
+      body: c.body,
+      path: '',
+      created_at: new Date(c.createdAt),
+    })),
   );
   step(`recipe_version_editors, signatures: ${signatures.length}, review_comments: ${history.comments.length}`);
 
@@ -208,7 +240,13 @@ export async function seedLarge(db: Knex, options: SeedLargeOptions): Promise<La
   await insertBatches(
     db,
     'sheet_prints',
-    prints.prints.map((p) => ({ id: p.id, version_id: p.version.id, user_id: p.user.id, printed_at: new Date(p.printedAt), client_address: p.user.clientAddress.slice(0, 45) })),
+    prints.prints.map((p) => ({
+      id: p.id,
+      version_id: p.version.id,
+      user_id: p.user.id,
+      printed_at: new Date(p.printedAt),
+      client_address: p.user.clientAddress.slice(0, 45),
+    })),
   );
   step(`sheet_prints: ${prints.prints.length}`);
 

@@ -84,8 +84,22 @@ async function insertKind<B, R extends { id: number; archived: boolean; updatedA
 
 /** Inserts the stock (tables must be empty) and plans its trail events from `at` on. */
 export async function insertStock(db: Knex, at: number, actor: TrailActor, plan: TrailPlan): Promise<StockCatalog> {
-  const machines = await insertKind<unknown, MachineRecord, MachineRow>(db, MACHINES as never, DEMO_MACHINES.map((m) => machineBody.parse(m)), at, actor, plan);
-  const wheels = await insertKind<unknown, WheelRecord, WheelRow>(db, WHEELS as never, DEMO_WHEELS.map((w) => wheelBody.parse(w)), at + 10 * MINUTE_MS, actor, plan);
+  const machines = await insertKind<unknown, MachineRecord, MachineRow>(
+    db,
+    MACHINES as never,
+    DEMO_MACHINES.map((m) => machineBody.parse(m)),
+    at,
+    actor,
+    plan,
+  );
+  const wheels = await insertKind<unknown, WheelRecord, WheelRow>(
+    db,
+    WHEELS as never,
+    DEMO_WHEELS.map((w) => wheelBody.parse(w)),
+    at + 10 * MINUTE_MS,
+    actor,
+    plan,
+  );
   const materials = await insertKind<unknown, MaterialRecord, MaterialRow>(
     db,
     MATERIALS as never,
@@ -98,7 +112,9 @@ export async function insertStock(db: Knex, at: number, actor: TrailActor, plan:
   // The selection table: every stocked wheel that fits a starting row (as the demo seed builds it).
   const selectionAt = at + 60 * MINUTE_MS;
   const selection = STARTER_SELECTION.flatMap((row) =>
-    wheels.filter((w) => matchesStarterWheel(row.wheel, w)).map((w) => selectionRowBody.parse({ group: row.group, hardness: row.hardness, wheelId: w.id, note: row.note })),
+    wheels
+      .filter((w) => matchesStarterWheel(row.wheel, w))
+      .map((w) => selectionRowBody.parse({ group: row.group, hardness: row.hardness, wheelId: w.id, note: row.note })),
   );
   if (selection.length > 0) {
     await db('selection_rows').insert(
@@ -112,7 +128,14 @@ export async function insertStock(db: Knex, at: number, actor: TrailActor, plan:
   const selectionRows = ((await db('selection_rows').orderBy('id').select('*')) as SelectionRowRow[]).map(toSelectionRow);
   selectionRows.forEach((row, i) => {
     const { id: _id, ...rest } = row;
-    plan.add(selectionAt + i * MINUTE_MS, actor, () => ({ type: TRAIL_EVENTS.selectionRowCreated, entityType: 'selection_row', entityId: row.id, recipeId: null, before: null, after: rest }));
+    plan.add(selectionAt + i * MINUTE_MS, actor, () => ({
+      type: TRAIL_EVENTS.selectionRowCreated,
+      entityType: 'selection_row',
+      entityId: row.id,
+      recipeId: null,
+      before: null,
+      after: rest,
+    }));
   });
 
   const limits = await getLabLimits(db);

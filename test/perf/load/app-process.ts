@@ -20,7 +20,13 @@ if (!databaseUrl) {
 }
 
 // Production settings (no development outbox); no SMTP, so mail only waits in the outbox.
-const config = readConfig({ DATABASE_URL: databaseUrl, SESSION_SECRET: randomBytes(32).toString('base64url'), NODE_ENV: 'production', HOST: '127.0.0.1', PORT: '0' });
+const config = readConfig({
+  DATABASE_URL: databaseUrl,
+  SESSION_SECRET: randomBytes(32).toString('base64url'),
+  NODE_ENV: 'production',
+  HOST: '127.0.0.1',
+  PORT: '0',
+});
 const db = createDb(config.databaseUrl);
 const recorder = queryRecorder(db);
 let stopping = false;

@@ -63,7 +63,12 @@ export async function ensureBigRecipe(db: Knex, users: Record<BenchRole, BenchUs
   }
 
   // Any approved version the checks still pass (its stock not archived since) serves as the model.
-  const candidates = (await db('recipe_versions').where({ status: 'approved' }).whereNot('worst_check', 'blocker').orderBy('id').limit(20).select('content_json')) as {
+  const candidates = (await db('recipe_versions')
+    .where({ status: 'approved' })
+    .whereNot('worst_check', 'blocker')
+    .orderBy('id')
+    .limit(20)
+    .select('content_json')) as {
     content_json: string;
   }[];
   let lastError: unknown = new Error('The database has no approved recipe version to model the bench recipe on.');
@@ -87,7 +92,9 @@ export async function ensureBigRecipe(db: Knex, users: Record<BenchRole, BenchUs
     } catch (err) {
       lastError = err;
       // A half-made recipe (e.g. submit refused) is renamed so the next candidate starts clean.
-      await db('recipes').where({ title: BIG_RECIPE_TITLE }).update({ title: `${BIG_RECIPE_TITLE} (discarded)` });
+      await db('recipes')
+        .where({ title: BIG_RECIPE_TITLE })
+        .update({ title: `${BIG_RECIPE_TITLE} (discarded)` });
     }
   }
   throw new Error(`Could not create the 30 kB bench recipe: ${lastError instanceof Error ? lastError.message : String(lastError)}`);

@@ -10,7 +10,12 @@ import type { HttpSession } from './http-session';
 import { listRouteCalls } from './list-routes';
 import type { Samples } from './samples';
 
-export async function runExplainCheck(db: Knex, sessions: Record<BenchRole, HttpSession>, samples: Samples, big: { recipeId: number }): Promise<ExplainedQuery[]> {
+export async function runExplainCheck(
+  db: Knex,
+  sessions: Record<BenchRole, HttpSession>,
+  samples: Samples,
+  big: { recipeId: number },
+): Promise<ExplainedQuery[]> {
   const out: ExplainedQuery[] = [];
   const seen = new Set<string>();
   const sizes = await largeTableSizes(db);

@@ -70,14 +70,16 @@ export function benchRouter(db: Knex, recorder: ReturnType<typeof queryRecorder>
 
   router.get('/bench/baseline', gate('signedIn'), async (req, res) => {
     const row = (await db('users').where({ id: req.user!.id }).first('id', 'username', 'display_name')) as
-      | { id: number; username: string; display_name: string }
-      | undefined;
+      { id: number; username: string; display_name: string } | undefined;
     res.json({ id: row?.id ?? null, username: row?.username ?? null, displayName: row?.display_name ?? null });
   });
 
   router.get('/bench/bare-pdf', gate('signedIn'), async (_req, res) => {
     const pdf = await barePdf();
-    res.status(200).set({ 'Content-Type': 'application/pdf', 'Cache-Control': 'no-store', 'Content-Length': String(pdf.length) }).end(pdf);
+    res
+      .status(200)
+      .set({ 'Content-Type': 'application/pdf', 'Cache-Control': 'no-store', 'Content-Length': String(pdf.length) })
+      .end(pdf);
   });
 
   router.post('/bench/capture', gate(['admin']), (_req, res) => {

@@ -112,7 +112,14 @@ export async function loadFigures(ctx: FigureContext): Promise<Figure[]> {
   // 3. The bench sheet against a bare pdfkit page with the same fonts, both at 4 connections.
   const bare = await load(ctx, author, 'bare pdfkit page', 4, () => '/api/bench/bare-pdf');
   const barePageMs = 1000 / bare.rps;
-  figures.push({ name: 'bare pdfkit page, sheet fonts', absolute: `${abs(bare)}; ${ms(barePageMs)}/page`, ratio: '1.00×', target: '—', pass: null, values: values(bare, { msPerPage: round(barePageMs) }) });
+  figures.push({
+    name: 'bare pdfkit page, sheet fonts',
+    absolute: `${abs(bare)}; ${ms(barePageMs)}/page`,
+    ratio: '1.00×',
+    target: '—',
+    pass: null,
+    values: values(bare, { msPerPage: round(barePageMs) }),
+  });
   if (s.currentVersions.length > 0) {
     const sheet = await load(ctx, author, 'bench sheet PDF', 4, () => {
       const v = pick(s.currentVersions);
@@ -140,7 +147,7 @@ export async function chainFigures(db: Knex, log: (line: string) => void, readSa
   log('  reading the trail without verifying (baseline)…');
   let t = performance.now();
   let read = 0;
-  for (let after = 0; read < readSample; ) {
+  for (let after = 0; read < readSample;) {
     const rows = await chainBatch(db, after, VERIFY_BATCH);
     if (rows.length === 0) break;
     read += rows.length;
@@ -168,7 +175,13 @@ export async function chainFigures(db: Knex, log: (line: string) => void, readSa
       ratio: `${(rate / readRate).toFixed(2)}× plain read`,
       target: '≥ 100,000 events/s',
       pass: rate >= 100_000,
-      values: { eventsPerSecond: Math.round(rate), events: result.checked, seconds: round(seconds), ratioToPlainRead: round(rate / readRate, 3), target: 100_000 },
+      values: {
+        eventsPerSecond: Math.round(rate),
+        events: result.checked,
+        seconds: round(seconds),
+        ratioToPlainRead: round(rate / readRate, 3),
+        target: 100_000,
+      },
     },
   ];
 }

@@ -106,7 +106,11 @@ async function main(): Promise<number> {
   const big = await ensureBigRecipe(db, users);
   const samples = await readSamples(db);
   const dataset = await datasetCounts(db);
-  log(`[bench] data: ${Object.entries(dataset).map(([k, v]) => `${k} ${v.toLocaleString('en')}`).join(', ')}`);
+  log(
+    `[bench] data: ${Object.entries(dataset)
+      .map(([k, v]) => `${k} ${v.toLocaleString('en')}`)
+      .join(', ')}`,
+  );
 
   server = await startBenchServer(database.url);
   log(`[bench] app under test at ${server.url}`);
@@ -122,7 +126,14 @@ async function main(): Promise<number> {
   }
 
   log('[bench] load figures…');
-  const figures: Figure[] = await loadFigures({ baseUrl: server.url, sessions: { author: sessions.author, auditor: sessions.auditor }, samples, bigRecipeId: big.recipeId, durationS, log });
+  const figures: Figure[] = await loadFigures({
+    baseUrl: server.url,
+    sessions: { author: sessions.author, auditor: sessions.auditor },
+    samples,
+    bigRecipeId: big.recipeId,
+    durationS,
+    log,
+  });
   await server.stop();
   server = null;
   log('[bench] chain verification (in-process)…');

@@ -47,13 +47,13 @@ export async function readSamples(db: Knex): Promise<Samples> {
       .select('r.id as recipeId', 'v.version')) as { recipeId: number; version: number }[]
   ).map((r) => ({ recipeId: Number(r.recipeId), version: Number(r.version) }));
 
-  const cut = (await db('cut_records as c').join('recipe_versions as v', 'v.id', 'c.version_id').orderBy('c.id', 'desc').first('v.recipe_id', 'v.version', 'c.specimen_id')) as
-    | { recipe_id: number; version: number; specimen_id: string }
-    | undefined;
+  const cut = (await db('cut_records as c')
+    .join('recipe_versions as v', 'v.id', 'c.version_id')
+    .orderBy('c.id', 'desc')
+    .first('v.recipe_id', 'v.version', 'c.specimen_id')) as { recipe_id: number; version: number; specimen_id: string } | undefined;
   const multi = (await db('recipe_versions').where('version', 2).orderBy('id').first('recipe_id')) as { recipe_id: number } | undefined;
   const actor = (await db('trail_events').whereNotNull('actor_user_id').orderBy('id', 'desc').first('actor_user_id', 'event_type')) as
-    | { actor_user_id: number; event_type: string }
-    | undefined;
+    { actor_user_id: number; event_type: string } | undefined;
   const range = (await db('trail_events').min({ minId: 'id' }).max({ maxId: 'id' }).first()) as { minId: number | null; maxId: number | null };
   const count = (await db('trail_chain_head').where({ id: 1 }).first('last_event_id')) as { last_event_id: number } | undefined;
 

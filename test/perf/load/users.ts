@@ -35,7 +35,13 @@ export async function ensureBenchUsers(db: Knex): Promise<Record<BenchRole, Benc
     } else {
       id = await insertUser(
         db,
-        { username, display_name: `Bench ${role[0]!.toUpperCase()}${role.slice(1)}`, email: `${username}@bench.invalid`, password_hash: hash, must_change_password: false },
+        {
+          username,
+          display_name: `Bench ${role[0]!.toUpperCase()}${role.slice(1)}`,
+          email: `${username}@bench.invalid`,
+          password_hash: hash,
+          must_change_password: false,
+        },
         [role],
         now,
       );

@@ -75,12 +75,22 @@ export async function runLighthouse(url: string, port: number, formFactor: FormF
 
 function failedAudits(lhr: Result, category: string): Finding[] {
   const refs = lhr.categories[category]?.auditRefs ?? [];
-  return refs
-    // The metrics themselves are in the table; name what makes them slow.
-    .filter((ref) => ref.group !== 'metrics')
-    .map((ref) => lhr.audits[ref.id])
-    .filter((a): a is Result['audits'][string] => !!a && a.score !== null && a.score < 0.9 && a.scoreDisplayMode !== 'informative' && a.scoreDisplayMode !== 'manual' && a.scoreDisplayMode !== 'notApplicable')
-    .map((a) => ({ id: a.id, title: a.title, elements: elementsOf(a.details) }));
+  return (
+    refs
+      // The metrics themselves are in the table; name what makes them slow.
+      .filter((ref) => ref.group !== 'metrics')
+      .map((ref) => lhr.audits[ref.id])
+      .filter(
+        (a): a is Result['audits'][string] =>
+          !!a &&
+          a.score !== null &&
+          a.score < 0.9 &&
+          a.scoreDisplayMode !== 'informative' &&
+          a.scoreDisplayMode !== 'manual' &&
+          a.scoreDisplayMode !== 'notApplicable',
+      )
+      .map((a) => ({ id: a.id, title: a.title, elements: elementsOf(a.details) }))
+  );
 }
 
 function elementsOf(details: unknown): string[] {

@@ -44,11 +44,17 @@ const mark = (ok: boolean) => (ok ? 'PASS' : 'MISS');
 
 export function printTable(results: WebResults): void {
   const js = results.initialJs;
-  console.log(`\nInitial JavaScript (files index.html loads eagerly: ${js.files.length}): ${kb(js.rawBytes)} kB raw, ${kb(js.gzipBytes)} kB gzipped — target ≤ ${TARGETS.initialJsGzipKb} kB gzipped: ${mark(js.pass)}`);
+  console.log(
+    `\nInitial JavaScript (files index.html loads eagerly: ${js.files.length}): ${kb(js.rawBytes)} kB raw, ${kb(js.gzipBytes)} kB gzipped — target ≤ ${TARGETS.initialJsGzipKb} kB gzipped: ${mark(js.pass)}`,
+  );
   if (js.budget) {
-    console.log(`angular.json's initial budget: ${js.budget.maximumErrorRawKb} kB raw ≈ ${js.budget.asGzipKb} kB gzipped at this build's ${js.rawPerGzip}:1 ratio.`);
+    console.log(
+      `angular.json's initial budget: ${js.budget.maximumErrorRawKb} kB raw ≈ ${js.budget.asGzipKb} kB gzipped at this build's ${js.rawPerGzip}:1 ratio.`,
+    );
   }
-  console.log(`\nLighthouse ${results.lighthouse}, ${results.configuration}. Targets: performance ≥ ${TARGETS.performance}, accessibility ≥ ${TARGETS.accessibility}.`);
+  console.log(
+    `\nLighthouse ${results.lighthouse}, ${results.configuration}. Targets: performance ≥ ${TARGETS.performance}, accessibility ≥ ${TARGETS.accessibility}.`,
+  );
   const head = ['screen', 'as', 'performance', 'accessibility', 'LCP ms', 'TBT ms', 'CLS', 'mobile perf*', 'result'];
   const rows = results.screens.map((s) => [
     s.screen,

@@ -31,7 +31,11 @@ import { DATA_DIR, ROOT } from '../../../server/tools/project-files';
 
 const args = process.argv.slice(2);
 const withMobile = !args.includes('--no-mobile');
-const only = args.find((a) => a.startsWith('--only='))?.split('=')[1]?.toLowerCase().split(',');
+const only = args
+  .find((a) => a.startsWith('--only='))
+  ?.split('=')[1]
+  ?.toLowerCase()
+  .split(',');
 // Three desktop runs by default: the scores move with whatever else the machine is doing.
 const runs = Math.max(1, Number(args.find((a) => a.startsWith('--runs='))?.split('=')[1] ?? 3) || 3);
 const RESULTS_FILE = path.join(ROOT, 'test/perf/web/results.json');

@@ -13,7 +13,10 @@ describe('shared/cautions', () => {
     for (const s of ['ANSI B7.1', 'EN 12413', '1910.215', 'NIOSH 98-102', '2003/10/EC', '1910.147', 'ISO 14118', '0.2 µg/m³']) expect(sources).to.contain(s);
   });
   it('defers to local regulations, the manual and licensed practice, and claims no safety', () => {
-    expect(PRECEDENCE_LINE).to.match(/local regulations/i).and.match(/manual/).and.match(/licensed safety practice/);
+    expect(PRECEDENCE_LINE)
+      .to.match(/local regulations/i)
+      .and.match(/manual/)
+      .and.match(/licensed safety practice/);
     expect(NO_SAFETY_CLAIM).to.match(/does not certify/);
   });
 });

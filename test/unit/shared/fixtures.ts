@@ -22,7 +22,17 @@ export function wheel(over: Partial<WheelRecord> = {}): WheelRecord {
 }
 
 export function rimWheel(over: Partial<WheelRecord> = {}): WheelRecord {
-  return wheel({ id: 2, name: 'Diamond rim 150', kind: 'rim', specification: 'D126M', diameterMm: 150, thicknessMm: 0.5, boreMm: 12.7, maxSpeedMs: 40, ...over });
+  return wheel({
+    id: 2,
+    name: 'Diamond rim 150',
+    kind: 'rim',
+    specification: 'D126M',
+    diameterMm: 150,
+    thicknessMm: 0.5,
+    boreMm: 12.7,
+    maxSpeedMs: 40,
+    ...over,
+  });
 }
 
 export function machine(over: Partial<MachineRecord> = {}): MachineRecord {
@@ -82,11 +92,48 @@ export function material(over: Partial<MaterialRecord> = {}): MaterialRecord {
 }
 
 /** A recipe with every check passing on the bench saw with the alumina wheel. */
-export function content(over: { scope?: Partial<RecipeContent['scope']>; cutting?: Partial<RecipeContent['cutting']>; clamping?: Partial<RecipeContent['clamping']>; coolant?: Partial<RecipeContent['coolant']> } = {}): RecipeContent {
+export function content(
+  over: {
+    scope?: Partial<RecipeContent['scope']>;
+    cutting?: Partial<RecipeContent['cutting']>;
+    clamping?: Partial<RecipeContent['clamping']>;
+    coolant?: Partial<RecipeContent['coolant']>;
+  } = {},
+): RecipeContent {
   return {
-    scope: { materialId: 1, group: 'plain-low-alloy-steel', hardness: null, shape: 'round-bar', sizeMinMm: 10, sizeMaxMm: 40, widthMm: null, wallMm: null, orientation: 'transverse', orientationNote: '', ...over.scope },
-    cutting: { machineId: 1, wheelId: 1, wheelRpm: 3000, feedMmS: 0.5, entryFeedMmS: null, entryLengthMm: null, cutMotion: 'straight-plunge', passes: null, ...over.cutting },
-    clamping: { method: 'vise-backstop', placement: 'both sides of the cut', bothSides: true, softInserts: false, supportBlocks: false, orientationRule: '', ...over.clamping },
+    scope: {
+      materialId: 1,
+      group: 'plain-low-alloy-steel',
+      hardness: null,
+      shape: 'round-bar',
+      sizeMinMm: 10,
+      sizeMaxMm: 40,
+      widthMm: null,
+      wallMm: null,
+      orientation: 'transverse',
+      orientationNote: '',
+      ...over.scope,
+    },
+    cutting: {
+      machineId: 1,
+      wheelId: 1,
+      wheelRpm: 3000,
+      feedMmS: 0.5,
+      entryFeedMmS: null,
+      entryLengthMm: null,
+      cutMotion: 'straight-plunge',
+      passes: null,
+      ...over.cutting,
+    },
+    clamping: {
+      method: 'vise-backstop',
+      placement: 'both sides of the cut',
+      bothSides: true,
+      softInserts: false,
+      supportBlocks: false,
+      orientationRule: '',
+      ...over.clamping,
+    },
     coolant: { type: 'water-soluble', concentrationPct: 4, flowLMin: 10, ...over.coolant },
     instructionsMd: '',
     acceptanceMd: '',

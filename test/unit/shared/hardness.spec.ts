@@ -72,7 +72,11 @@ describe('shared/hardness', () => {
 
   describe('ASTM E140, Table 2 (HRB range) — rows from memory', () => {
     // ASTM E140, Table 2 rows as recalled (from memory: not confirmed against a public reproduction)
-    for (const [hrb, hv] of [[100, 240], [90, 185], [80, 150]] as const) {
+    for (const [hrb, hv] of [
+      [100, 240],
+      [90, 185],
+      [80, 150],
+    ] as const) {
       it(`${hrb} HRB ↔ ${hv} HV ↔ ${hv} HB (from memory)`, () => {
         expect(value(convertHardness(hrb, 'HRB', 'HV'))).to.equal(hv);
         expect(value(convertHardness(hrb, 'HRB', 'HBW'))).to.equal(hv);
@@ -116,7 +120,12 @@ describe('shared/hardness', () => {
       expect(conversionApplies('plain-low-alloy-steel').applies).to.equal(true);
       const r = convertHardness(40, 'HRC', 'HV', 'hardened-tool-steel');
       expect(r.ok && r.caveats).to.equal(HARDNESS_CAVEATS);
-      expect(HARDNESS_CAVEATS.join(' ')).to.match(/approximate/).and.match(/austenitic/).and.match(/ISO 18265/).and.match(/parentheses/).and.match(/extrapolated/);
+      expect(HARDNESS_CAVEATS.join(' '))
+        .to.match(/approximate/)
+        .and.match(/austenitic/)
+        .and.match(/ISO 18265/)
+        .and.match(/parentheses/)
+        .and.match(/extrapolated/);
     });
     for (const group of ['stainless-steel', 'aluminium-magnesium', 'copper', 'titanium', 'nickel-cobalt', 'cast-iron', 'ceramic-glass'] as const) {
       it(`${group} keeps its measured scale`, () => {
@@ -138,7 +147,7 @@ describe('shared/hardness', () => {
       expect(toHv(80, 'HRB')).to.equal(150); // ASTM E140, Table 2 (from memory)
       expect(toHv(70, 'HRC')).to.equal(null);
     });
-    it('shows the measured value with the converted one in parentheses, Rockwell rounded (353 HBW = 38 HRC: ASTM E140, Table 1; the order is Kerfbook\'s display)', () => {
+    it("shows the measured value with the converted one in parentheses, Rockwell rounded (353 HBW = 38 HRC: ASTM E140, Table 1; the order is Kerfbook's display)", () => {
       expect(formatMeasuredWithConverted({ value: 353, scale: 'HBW' }, 'HRC')).to.equal('353 HBW (38 HRC)');
       expect(formatMeasuredWithConverted({ value: 355, scale: 'HBW' }, 'HRC')).to.equal('355 HBW (38 HRC)'); // 38.2 HRC between 353 (38) and 362 (39) HBW, Table 1; rounded
       expect(formatMeasuredWithConverted({ value: 90, scale: 'HBW' }, 'HRC', 'aluminium-magnesium')).to.equal('90 HBW');

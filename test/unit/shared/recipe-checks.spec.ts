@@ -63,15 +63,22 @@ describe('shared/recipe-checks', () => {
 
   it('rpm-outside-machine (blocker)', () => {
     expect(find(content({ cutting: { wheelRpm: 4500 } }), ctx(), 'rpm-outside-machine')!.message).to.contain('1000–4000 rpm');
-    expect(find(content({ cutting: { wheelRpm: 2000 } }), ctx({ machine: machine({ rpmMin: 2950, rpmMax: 2950 }) }), 'rpm-outside-machine')!.message).to.contain('fixed 2950 rpm');
+    expect(
+      find(content({ cutting: { wheelRpm: 2000 } }), ctx({ machine: machine({ rpmMin: 2950, rpmMax: 2950 }) }), 'rpm-outside-machine')!.message,
+    ).to.contain('fixed 2950 rpm');
     expect(ids(content({ cutting: { wheelRpm: 4000 } }), ctx())).to.not.include('rpm-outside-machine');
   });
 
   it('feed-outside-machine and entry-feed-outside-machine (blockers)', () => {
     expect(find(content({ cutting: { feedMmS: 3 } }), ctx(), 'feed-outside-machine')).to.deep.include({ severity: 'blocker', path: 'cutting.feedMmS' });
     expect(find(content({ cutting: { feedMmS: 0.01 } }), ctx(), 'feed-outside-machine')).to.not.equal(undefined);
-    expect(find(content({ cutting: { entryFeedMmS: 0.01, entryLengthMm: 2 } }), ctx(), 'entry-feed-outside-machine')).to.deep.include({ path: 'cutting.entryFeedMmS' });
-    expect(ids(content({ cutting: { feedMmS: 2, entryFeedMmS: 0.02, entryLengthMm: 2 } }), ctx())).to.not.include.members(['feed-outside-machine', 'entry-feed-outside-machine']);
+    expect(find(content({ cutting: { entryFeedMmS: 0.01, entryLengthMm: 2 } }), ctx(), 'entry-feed-outside-machine')).to.deep.include({
+      path: 'cutting.entryFeedMmS',
+    });
+    expect(ids(content({ cutting: { feedMmS: 2, entryFeedMmS: 0.02, entryLengthMm: 2 } }), ctx())).to.not.include.members([
+      'feed-outside-machine',
+      'entry-feed-outside-machine',
+    ]);
   });
 
   it('wheel-diameter-outside-machine (blocker)', () => {
@@ -89,8 +96,14 @@ describe('shared/recipe-checks', () => {
   it('clamping-missing, clamping-unsupported, cut-motion-unsupported (blockers)', () => {
     expect(find(content({ clamping: { method: null } }), ctx(), 'clamping-missing')).to.deep.include({ severity: 'blocker', path: 'clamping.method' });
     expect(find(content({ clamping: { method: 'top-clamp' } }), ctx(), 'clamping-unsupported')!.message).to.contain('top clamp');
-    expect(find(content({ cutting: { cutMotion: 'traverse-pass', passes: 4 } }), ctx(), 'cut-motion-unsupported')).to.deep.include({ path: 'cutting.cutMotion' });
-    expect(ids(content({ clamping: { method: 'v-block' }, cutting: { cutMotion: 'rocking' } }), ctx())).to.not.include.members(['clamping-missing', 'clamping-unsupported', 'cut-motion-unsupported']);
+    expect(find(content({ cutting: { cutMotion: 'traverse-pass', passes: 4 } }), ctx(), 'cut-motion-unsupported')).to.deep.include({
+      path: 'cutting.cutMotion',
+    });
+    expect(ids(content({ clamping: { method: 'v-block' }, cutting: { cutMotion: 'rocking' } }), ctx())).to.not.include.members([
+      'clamping-missing',
+      'clamping-unsupported',
+      'cut-motion-unsupported',
+    ]);
   });
 
   describe('rim wheels on metal (warning) and the dressing note (electronics)', () => {
@@ -118,7 +131,9 @@ describe('shared/recipe-checks', () => {
     const r = find(content({ scope: { group: 'cemented-carbide' } }), ctx(), 'bonded-wheel-on-hard-brittle')!;
     expect(r.severity).to.equal('warning');
     expect(r.message).to.contain('aluminium oxide');
-    expect(find(content({ scope: { group: 'ceramic-glass' } }), ctx({ wheel: wheel({ specification: 'C120M5R' }) }), 'bonded-wheel-on-hard-brittle')!.message).to.contain('silicon carbide');
+    expect(
+      find(content({ scope: { group: 'ceramic-glass' } }), ctx({ wheel: wheel({ specification: 'C120M5R' }) }), 'bonded-wheel-on-hard-brittle')!.message,
+    ).to.contain('silicon carbide');
     expect(ids(content({ scope: { group: 'plain-low-alloy-steel' } }), ctx())).to.not.include('bonded-wheel-on-hard-brittle');
   });
 
@@ -139,9 +154,16 @@ describe('shared/recipe-checks', () => {
   });
 
   it('orientation-rule-missing (warning): coated or case-hardened without an orientation rule', () => {
-    expect(find(content(), ctx({ material: material({ coated: true }) }), 'orientation-rule-missing')).to.deep.include({ severity: 'warning', path: 'clamping.orientationRule' });
-    expect(find(content(), ctx({ material: material({ caseHardened: true, caseDepthMm: 0.8 }) }), 'orientation-rule-missing')!.message).to.contain('case 0.8 mm');
-    expect(ids(content({ clamping: { orientationRule: 'Wheel enters through the coating.' } }), ctx({ material: material({ coated: true }) }))).to.not.include('orientation-rule-missing');
+    expect(find(content(), ctx({ material: material({ coated: true }) }), 'orientation-rule-missing')).to.deep.include({
+      severity: 'warning',
+      path: 'clamping.orientationRule',
+    });
+    expect(find(content(), ctx({ material: material({ caseHardened: true, caseDepthMm: 0.8 }) }), 'orientation-rule-missing')!.message).to.contain(
+      'case 0.8 mm',
+    );
+    expect(ids(content({ clamping: { orientationRule: 'Wheel enters through the coating.' } }), ctx({ material: material({ coated: true }) }))).to.not.include(
+      'orientation-rule-missing',
+    );
     expect(ids(content(), ctx())).to.not.include('orientation-rule-missing');
   });
 
@@ -154,7 +176,7 @@ describe('shared/recipe-checks', () => {
     expect(ids(content({ cutting: { wheelRpm: 1000 } }), ctx())).to.not.include('rim-wheel-low-rpm'); // bonded wheel: lowering rpm is the remedy
   });
 
-  it('heat-sensitive-high-feed (warning; 0.25 mm/s on abrasive saws, the low end of the usual feed range: Kerfbook\'s threshold, common practice)', () => {
+  it("heat-sensitive-high-feed (warning; 0.25 mm/s on abrasive saws, the low end of the usual feed range: Kerfbook's threshold, common practice)", () => {
     const hot = ctx({ material: material({ heatSensitive: true }) });
     expect(find(content({ cutting: { feedMmS: 0.5 } }), hot, 'heat-sensitive-high-feed')!.message).to.contain('0.25 mm/s');
     expect(ids(content({ cutting: { feedMmS: 0.2 } }), hot)).to.not.include('heat-sensitive-high-feed');
@@ -170,7 +192,10 @@ describe('shared/recipe-checks', () => {
   });
 
   it('coolant-concentration (note): outside 2–5 % (common practice)', () => {
-    expect(find(content({ coolant: { concentrationPct: 8 } }), ctx(), 'coolant-concentration')).to.deep.include({ severity: 'note', path: 'coolant.concentrationPct' });
+    expect(find(content({ coolant: { concentrationPct: 8 } }), ctx(), 'coolant-concentration')).to.deep.include({
+      severity: 'note',
+      path: 'coolant.concentrationPct',
+    });
     expect(find(content({ coolant: { concentrationPct: 1.5 } }), ctx(), 'coolant-concentration')).to.not.equal(undefined);
     expect(ids(content({ coolant: { concentrationPct: 2 } }), ctx())).to.not.include('coolant-concentration');
     expect(ids(content({ coolant: { concentrationPct: 5 } }), ctx())).to.not.include('coolant-concentration');
@@ -178,7 +203,10 @@ describe('shared/recipe-checks', () => {
   });
 
   it('stock-archived (warning) for each archived record, with its path', () => {
-    const r = runChecks(content(), ctx({ material: material({ archived: true }), wheel: wheel({ archived: true }), machine: machine({ archived: true }) })).filter((x) => x.id === 'stock-archived');
+    const r = runChecks(
+      content(),
+      ctx({ material: material({ archived: true }), wheel: wheel({ archived: true }), machine: machine({ archived: true }) }),
+    ).filter((x) => x.id === 'stock-archived');
     expect(r.map((x) => x.path)).to.deep.equal(['scope.materialId', 'cutting.wheelId', 'cutting.machineId']);
     expect(r.every((x) => x.severity === 'warning')).to.equal(true);
   });

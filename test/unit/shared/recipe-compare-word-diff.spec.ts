@@ -2,7 +2,10 @@ import { expect } from 'chai';
 import { wordDiff } from '../../../shared/recipe-compare';
 
 const side = (parts: ReturnType<typeof wordDiff>, which: 'before' | 'after') =>
-  parts.filter((p) => (which === 'before' ? !p.added : !p.removed)).map((p) => p.value).join('');
+  parts
+    .filter((p) => (which === 'before' ? !p.added : !p.removed))
+    .map((p) => p.value)
+    .join('');
 
 describe('wordDiff (line blocks first, then words)', () => {
   it('rebuilds both texts and marks only the changed words of long multi-line text', () => {
@@ -19,6 +22,11 @@ describe('wordDiff (line blocks first, then words)', () => {
 
   it('answers one unchanged part for equal texts and words for a one-line change', () => {
     expect(wordDiff('same text', 'same text')).to.deep.equal([{ value: 'same text' }]);
-    expect(wordDiff('cut at 3000 rpm', 'cut at 2800 rpm')).to.deep.equal([{ value: 'cut at ' }, { value: '3000', removed: true }, { value: '2800', added: true }, { value: ' rpm' }]);
+    expect(wordDiff('cut at 3000 rpm', 'cut at 2800 rpm')).to.deep.equal([
+      { value: 'cut at ' },
+      { value: '3000', removed: true },
+      { value: '2800', added: true },
+      { value: ' rpm' },
+    ]);
   });
 });

@@ -33,7 +33,12 @@ describe('shared/recipe-compare', () => {
   });
 
   it('shows a feed change as one parameter with both values and the unit', () => {
-    const result = compareVersions(v(1, content({ cutting: { feedMmS: 0.3 } })), v(2, content({ cutting: { feedMmS: 0.25 } }), undefined, 'draft'), names, 'metric');
+    const result = compareVersions(
+      v(1, content({ cutting: { feedMmS: 0.3 } })),
+      v(2, content({ cutting: { feedMmS: 0.25 } }), undefined, 'draft'),
+      names,
+      'metric',
+    );
     expect(result.parameters).to.deep.equal([{ path: 'cutting.feedMmS', label: 'Feed', before: '0.30 mm/s', after: '0.25 mm/s' }]);
     expect(result.texts).to.deep.equal([]);
     expect(result.to).to.deep.equal({ version: 2, status: 'draft', title: 'Alloy bar, transverse' });
@@ -65,8 +70,22 @@ describe('shared/recipe-compare', () => {
 
   it('labels vocabulary values in plain words, in the editor order', () => {
     const result = compareVersions(
-      v(1, content({ cutting: { cutMotion: 'straight-plunge', wheelRpm: 3000 }, clamping: { method: 'vise-backstop', softInserts: false }, coolant: { type: 'water-soluble', concentrationPct: 4 } })),
-      v(2, content({ cutting: { cutMotion: 'pulsed-plunge', wheelRpm: 2500 }, clamping: { method: null, softInserts: true }, coolant: { type: 'oil', concentrationPct: null } })),
+      v(
+        1,
+        content({
+          cutting: { cutMotion: 'straight-plunge', wheelRpm: 3000 },
+          clamping: { method: 'vise-backstop', softInserts: false },
+          coolant: { type: 'water-soluble', concentrationPct: 4 },
+        }),
+      ),
+      v(
+        2,
+        content({
+          cutting: { cutMotion: 'pulsed-plunge', wheelRpm: 2500 },
+          clamping: { method: null, softInserts: true },
+          coolant: { type: 'oil', concentrationPct: null },
+        }),
+      ),
       names,
       'metric',
     );
@@ -101,8 +120,18 @@ describe('shared/recipe-compare', () => {
     expect(change.parts.filter((p) => p.added)).to.deep.equal([{ value: ' firmly', added: true }]);
     expect(change.parts.filter((p) => p.removed)).to.deep.equal([]);
     // The parts rebuild both sides exactly.
-    expect(change.parts.filter((p) => !p.added).map((p) => p.value).join('')).to.equal(a.instructionsMd);
-    expect(change.parts.filter((p) => !p.removed).map((p) => p.value).join('')).to.equal(b.instructionsMd);
+    expect(
+      change.parts
+        .filter((p) => !p.added)
+        .map((p) => p.value)
+        .join(''),
+    ).to.equal(a.instructionsMd);
+    expect(
+      change.parts
+        .filter((p) => !p.removed)
+        .map((p) => p.value)
+        .join(''),
+    ).to.equal(b.instructionsMd);
   });
 
   it('diffs the title, clamp placement, orientation rule, acceptance, cautions and change reason as text', () => {
@@ -114,7 +143,14 @@ describe('shared/recipe-compare', () => {
     });
     const result = compareVersions(v(1, a, 'Bar'), v(2, b, 'Bar, transverse'), names, 'metric');
     expect(result.parameters).to.deep.equal([]);
-    expect(result.texts.map((t) => t.label)).to.deep.equal(['Title', 'Clamp placement', 'Orientation rule', 'Acceptance criteria', 'Cautions', 'Change reason']);
+    expect(result.texts.map((t) => t.label)).to.deep.equal([
+      'Title',
+      'Clamp placement',
+      'Orientation rule',
+      'Acceptance criteria',
+      'Cautions',
+      'Change reason',
+    ]);
     const rule = result.texts.find((t) => t.path === 'clamping.orientationRule')!;
     expect(rule.parts).to.deep.equal([{ value: 'Enter through the coating.', added: true }]);
   });

@@ -36,7 +36,11 @@ describe('shared/recipe-computations', () => {
 
   it('an entry feed and a turning specimen change time and capacity', () => {
     const c = computeRecipe(
-      content({ scope: { sizeMaxMm: 150 }, cutting: { machineId: 2, wheelId: 2, wheelRpm: 4000, feedMmS: 0.1, cutMotion: 'turning-specimen', entryFeedMmS: 0.05, entryLengthMm: 5 }, clamping: { method: 'adhesive-wax-mount' } }),
+      content({
+        scope: { sizeMaxMm: 150 },
+        cutting: { machineId: 2, wheelId: 2, wheelRpm: 4000, feedMmS: 0.1, cutMotion: 'turning-specimen', entryFeedMmS: 0.05, entryLengthMm: 5 },
+        clamping: { method: 'adhesive-wax-mount' },
+      }),
       ctx({ wheel: rimWheel(), machine: precisionMachine() }),
     );
     expect(c.cuttingDepthMm).to.equal(50); // (150 − 40)/2 − 5, computed by hand

@@ -1,17 +1,6 @@
 import { expect } from 'chai';
 import { unit } from 'mathjs';
-import {
-  formatQuantity,
-  ftMinToMs,
-  inMinToMmS,
-  inToMm,
-  mm3SToIn3Min,
-  mmMinToMmS,
-  mmSToInMin,
-  mmSToMmMin,
-  mmToIn,
-  msToFtMin,
-} from '../../../shared/units';
+import { formatQuantity, ftMinToMs, inMinToMmS, inToMm, mm3SToIn3Min, mmMinToMmS, mmSToInMin, mmSToMmMin, mmToIn, msToFtMin } from '../../../shared/units';
 
 describe('shared/units', () => {
   describe('conversions agree with mathjs (general reference library, a devDependency)', () => {

@@ -43,8 +43,14 @@ describe('shared/wheel-spec', () => {
 
   describe('diamond and CBN wheels (the usual superabrasive marking, common practice)', () => {
     it('reads abrasive, grit, optional grade and concentration, bond', () => {
-      expect(parseWheelSpec('D126M')).to.deep.equal({ ok: true, spec: { type: 'superabrasive', abrasive: 'D', grit: 126, grade: null, concentration: null, bond: 'M', text: 'D126M' } });
-      expect(parseWheelSpec('B151N100B')).to.deep.equal({ ok: true, spec: { type: 'superabrasive', abrasive: 'B', grit: 151, grade: 'N', concentration: 100, bond: 'B', text: 'B151N100B' } });
+      expect(parseWheelSpec('D126M')).to.deep.equal({
+        ok: true,
+        spec: { type: 'superabrasive', abrasive: 'D', grit: 126, grade: null, concentration: null, bond: 'M', text: 'D126M' },
+      });
+      expect(parseWheelSpec('B151N100B')).to.deep.equal({
+        ok: true,
+        spec: { type: 'superabrasive', abrasive: 'B', grit: 151, grade: 'N', concentration: 100, bond: 'B', text: 'B151N100B' },
+      });
       const cb = parseWheelSpec('CB91R75M');
       expect(cb.ok && cb.spec.type === 'superabrasive' && [cb.spec.abrasive, cb.spec.concentration]).to.deep.equal(['B', 75]);
     });

@@ -49,11 +49,16 @@ describe('shared/wheel-suggestion', () => {
 
   describe('STARTER_SELECTION (common practice: alumina for ferrous, silicon carbide for non-ferrous metals, diamond for hard brittle materials; harder material, softer bond)', () => {
     it('covers every group', () => {
-      for (const g of MATERIAL_GROUPS) expect(STARTER_SELECTION.some((r) => r.group === g), g).to.equal(true);
+      for (const g of MATERIAL_GROUPS)
+        expect(
+          STARTER_SELECTION.some((r) => r.group === g),
+          g,
+        ).to.equal(true);
     });
     it('aluminium oxide for ferrous, silicon carbide for non-ferrous metals, diamond rim wheels for hard brittle materials', () => {
       const first = (g: string) => STARTER_SELECTION.find((r) => r.group === g)!.wheel;
-      for (const g of ['plain-low-alloy-steel', 'hardened-tool-steel', 'stainless-steel', 'cast-iron']) expect(first(g).abrasives[0], g).to.equal('aluminium-oxide');
+      for (const g of ['plain-low-alloy-steel', 'hardened-tool-steel', 'stainless-steel', 'cast-iron'])
+        expect(first(g).abrasives[0], g).to.equal('aluminium-oxide');
       for (const g of ['aluminium-magnesium', 'copper', 'titanium', 'nickel-cobalt']) expect(first(g).abrasives[0], g).to.equal('silicon-carbide');
       for (const g of ['cemented-carbide', 'ceramic-glass']) expect(first(g)).to.deep.include({ kind: 'rim', abrasives: ['diamond'] });
       for (const r of STARTER_SELECTION) if (METALLIC_GROUPS.includes(r.group) && r.wheel.kind === 'rim') expect(r.wheel.abrasives).to.not.include('diamond');

@@ -2,14 +2,7 @@ import { HttpClient, type HttpContext } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import type { Observable } from 'rxjs';
 import type { RecipeComparison, RecipeVersionDto, ReviewCommentDto, TodayDto } from '@shared/recipe-types';
-import type {
-  ApproveBody,
-  CommentBody,
-  NewVersionBody,
-  ReturnBody,
-  SubmitBody,
-  WithdrawBody,
-} from '@shared/schemas/workflow';
+import type { ApproveBody, CommentBody, NewVersionBody, ReturnBody, SubmitBody, WithdrawBody } from '@shared/schemas/workflow';
 
 /** Thin typed wrapper around the review routes (DEVELOPERS.md, Review routes). Every transition answers the updated version. */
 @Injectable({ providedIn: 'root' })

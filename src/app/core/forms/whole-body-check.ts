@@ -9,12 +9,7 @@ import { applyServerErrors } from './server-errors';
  * server is asked. Returns the parsed body, or null after marking the fields; `unmatched`
  * receives the messages that belong to no control.
  */
-export function checkWholeBody<S extends z.ZodType>(
-  form: FormGroup,
-  schema: S,
-  body: unknown,
-  unmatched: (messages: string[]) => void,
-): z.infer<S> | null {
+export function checkWholeBody<S extends z.ZodType>(form: FormGroup, schema: S, body: unknown, unmatched: (messages: string[]) => void): z.infer<S> | null {
   const result = schema.safeParse(body);
   if (result.success) return result.data;
   unmatched(applyServerErrors(form, toFieldErrors(result.error)));

@@ -46,10 +46,7 @@ export class Session {
    */
   async signIn(username: string, password: string): Promise<UserDto> {
     if (!this.token()) await this.refreshAnonymousToken();
-    const post = () =>
-      firstValueFrom(
-        this.http.post<SessionDto>('/api/session', { username, password }, { context: callerHandles(400, 401, 403, 429) }),
-      );
+    const post = () => firstValueFrom(this.http.post<SessionDto>('/api/session', { username, password }, { context: callerHandles(400, 401, 403, 429) }));
     let session: SessionDto;
     try {
       session = await post();
@@ -73,9 +70,7 @@ export class Session {
 
   /** Changes the signed-in user's password; the caller shows 400/401/403 answers in its form. */
   async changePassword(body: ChangePasswordBody): Promise<UserDto> {
-    const session = await firstValueFrom(
-      this.http.post<SessionDto>('/api/session/password', body, { context: callerHandles(400, 401, 403) }),
-    );
+    const session = await firstValueFrom(this.http.post<SessionDto>('/api/session/password', body, { context: callerHandles(400, 401, 403) }));
     this.apply(session);
     return session.user;
   }

@@ -19,17 +19,7 @@ const NARROW = '(max-width: 1099.98px)';
 /** Frame of every signed-in page: toolbar with the user menu, and the side navigation. */
 @Component({
   selector: 'kb-shell',
-  imports: [
-    MatButtonModule,
-    MatIconModule,
-    MatListModule,
-    MatMenuModule,
-    MatSidenavModule,
-    MatToolbarModule,
-    RouterLink,
-    RouterLinkActive,
-    RouterOutlet,
-  ],
+  imports: [MatButtonModule, MatIconModule, MatListModule, MatMenuModule, MatSidenavModule, MatToolbarModule, RouterLink, RouterLinkActive, RouterOutlet],
   templateUrl: './shell.html',
   styleUrl: './shell.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -40,9 +30,7 @@ export class Shell {
 
   protected readonly user = this.session.user;
   protected readonly navItems = computed(() =>
-    NAV_ITEMS.filter(
-      (item) => hasAccess(this.session.roles(), item.access) && (!item.devOnly || this.session.devOutbox()),
-    ),
+    NAV_ITEMS.filter((item) => hasAccess(this.session.roles(), item.access) && (!item.devOnly || this.session.devOutbox())),
   );
   protected readonly isNarrow = toSignal(
     inject(BreakpointObserver)

@@ -112,7 +112,9 @@ describe('Finder for operators', () => {
     it('goes back to the own machine on Clear', async () => {
       await open('/finder?sizeMm=30');
       await answerFinder([hit]);
-      Array.from(root().querySelectorAll<HTMLButtonElement>('button')).find((b) => b.textContent?.trim() === 'Clear')!.click();
+      Array.from(root().querySelectorAll<HTMLButtonElement>('button'))
+        .find((b) => b.textContent?.trim() === 'Clear')!
+        .click();
       await harness.fixture.whenStable();
       expect(shownMachine()).toBe('Precision saw P1');
       backend.expectNone((r) => r.url === '/api/finder');
@@ -167,7 +169,9 @@ describe('Finder for operators', () => {
       expect(el.querySelector('[data-testid="ack-statement"]')!.textContent).toBe('I have read and understood version 2 of KB-0003.');
       expect(openTab).not.toHaveBeenCalled();
 
-      Array.from(el.querySelectorAll<HTMLButtonElement>('button')).find((b) => /Acknowledge and print/.test(b.textContent ?? ''))!.click();
+      Array.from(el.querySelectorAll<HTMLButtonElement>('button'))
+        .find((b) => /Acknowledge and print/.test(b.textContent ?? ''))!
+        .click();
       (await vi.waitFor(() => backend.expectOne({ method: 'POST', url: '/api/recipes/3/versions/2/acknowledge' }))).flush(
         myAcknowledgement({ acknowledgedAt: '2026-12-01T09:15:00.000Z' }),
       );
@@ -178,7 +182,9 @@ describe('Finder for operators', () => {
       await clickPrint();
       (await vi.waitFor(() => backend.expectOne({ method: 'GET', url: '/api/recipes/3/versions/2' }))).flush(aVersionToAcknowledge());
       const el = await dialog();
-      Array.from(el.querySelectorAll<HTMLButtonElement>('button')).find((b) => b.textContent?.trim() === 'Cancel')!.click();
+      Array.from(el.querySelectorAll<HTMLButtonElement>('button'))
+        .find((b) => b.textContent?.trim() === 'Cancel')!
+        .click();
       await vi.waitFor(() => expect(document.querySelector('kb-acknowledge-dialog')).toBeNull());
       backend.expectNone({ method: 'POST' });
       expect(openTab).not.toHaveBeenCalled();

@@ -164,7 +164,10 @@ export class Finder {
             map((hits): Results => ({ state: 'ready', hits: [...hits].sort((a, b) => b.score - a.score) })),
             catchError((e: unknown) => {
               if (isApiError(e) && e.status === 400) {
-                const unmatched = applyServerErrors(this.form, e.errors.map((x) => (x.path === 'materialId' ? { ...x, path: 'material' } : x)));
+                const unmatched = applyServerErrors(
+                  this.form,
+                  e.errors.map((x) => (x.path === 'materialId' ? { ...x, path: 'material' } : x)),
+                );
                 return of<Results>({ state: 'failed', message: unmatched.join(' ') || 'Correct the fields marked in red.' });
               }
               return of<Results>({ state: 'failed', message: 'The search could not be run. Try again in a moment.' });

@@ -24,7 +24,19 @@ type Load = { state: 'idle' } | { state: 'loading' } | { state: 'failed' } | { s
 /** Specimen trace: from a specimen id to the cut, the exact version used, its key parameters and signatures. */
 @Component({
   selector: 'kb-specimen-trace',
-  imports: [CutOutcomeLabel, DatePipe, MatButtonModule, MatFormFieldModule, MatIconModule, MatInputModule, MatProgressBarModule, QuantityPipe, ReactiveFormsModule, RouterLink, SignatureList],
+  imports: [
+    CutOutcomeLabel,
+    DatePipe,
+    MatButtonModule,
+    MatFormFieldModule,
+    MatIconModule,
+    MatInputModule,
+    MatProgressBarModule,
+    QuantityPipe,
+    ReactiveFormsModule,
+    RouterLink,
+    SignatureList,
+  ],
   templateUrl: './specimen-trace.html',
   styleUrl: './specimen-trace.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,

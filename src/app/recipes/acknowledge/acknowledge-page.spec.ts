@@ -158,6 +158,8 @@ describe('AcknowledgePage', () => {
 
   it('explains when the version is not approved', async () => {
     await open('/recipes/3/acknowledge?v=2', aVersionToAcknowledge({ status: 'superseded', myAcknowledgement: null }));
-    expect(words(root().querySelector('[data-testid="not-required"]'))).toContain('Version 2 of KB-0003 is superseded: only approved versions are acknowledged.');
+    expect(words(root().querySelector('[data-testid="not-required"]'))).toContain(
+      'Version 2 of KB-0003 is superseded: only approved versions are acknowledged.',
+    );
   });
 });

@@ -39,7 +39,12 @@ import { QuantityPipe } from '../../ui/quantity';
         }
       </dd>
       <dt>Cut motion</dt>
-      <dd>{{ motionLabel[c.cutting.cutMotion] }}@if (c.cutting.passes !== null) {, {{ c.cutting.passes }} passes}</dd>
+      <dd>
+        {{ motionLabel[c.cutting.cutMotion] }}
+        @if (c.cutting.passes !== null) {
+          , {{ c.cutting.passes }} passes
+        }
+      </dd>
       <dt>Clamping</dt>
       <dd>
         {{ c.clamping.method ? clampingLabel[c.clamping.method] : '—' }}

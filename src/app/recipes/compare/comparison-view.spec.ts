@@ -47,9 +47,7 @@ describe('ComparisonView', () => {
     const root = await render(comparison);
     const headers = Array.from(root.querySelectorAll('table.kb-params thead th')).map((th) => th.textContent?.trim());
     expect(headers).toEqual(['Parameter', 'Version 1 (Approved)', 'becomes', 'Version 2 (Draft)']);
-    const rows = Array.from(root.querySelectorAll('table.kb-params tbody tr')).map((tr) =>
-      Array.from(tr.children).map((cell) => cell.textContent?.trim()),
-    );
+    const rows = Array.from(root.querySelectorAll('table.kb-params tbody tr')).map((tr) => Array.from(tr.children).map((cell) => cell.textContent?.trim()));
     expect(rows).toEqual([
       ['Feed rate', '0.30 mm/s', '→', '0.20 mm/s'],
       ['Wheel', 'Alumina 250 general steel', '→', 'Alumina 250 hard steel'],
@@ -92,13 +90,21 @@ describe('ComparisonView', () => {
   });
 
   it('says a side is empty instead of showing a blank box', async () => {
-    const root = await render({ ...comparison, parameters: [], texts: [{ path: 'changeReason', label: 'Change reason', parts: [{ value: 'Feed lowered', added: true }] }] });
+    const root = await render({
+      ...comparison,
+      parameters: [],
+      texts: [{ path: 'changeReason', label: 'Change reason', parts: [{ value: 'Feed lowered', added: true }] }],
+    });
     expect(root.querySelector('[data-testid="old-text"]')?.textContent).toBe('empty');
     expect(visibleText(root.querySelector('[data-testid="new-text"] ins')!)).toBe('Feed lowered');
   });
 
   it('shows an emptied value as "none" rather than a blank cell', async () => {
-    const root = await render({ ...comparison, parameters: [{ path: 'cutting.coolantNote', label: 'Coolant note', before: 'Check the mix daily', after: '' }], texts: [] });
+    const root = await render({
+      ...comparison,
+      parameters: [{ path: 'cutting.coolantNote', label: 'Coolant note', before: 'Check the mix daily', after: '' }],
+      texts: [],
+    });
     const cells = Array.from(root.querySelectorAll('tbody td')).map((td) => td.textContent?.trim());
     expect(cells).toEqual(['Check the mix daily', '→', 'none']);
   });

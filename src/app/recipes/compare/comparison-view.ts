@@ -35,8 +35,7 @@ function toView(change: TextChange): TextDiffView {
     kind: part.added ? 'added' : part.removed ? 'removed' : 'same',
     value: part.value,
   }));
-  const words = (kind: Run['kind']) =>
-    all.filter((run) => run.kind === kind).reduce((n, run) => n + (run.value.match(/\S+/g)?.length ?? 0), 0);
+  const words = (kind: Run['kind']) => all.filter((run) => run.kind === kind).reduce((n, run) => n + (run.value.match(/\S+/g)?.length ?? 0), 0);
   const before = all.filter((run) => run.kind !== 'added');
   const after = all.filter((run) => run.kind !== 'removed');
   const blank = (runs: Run[]) => runs.every((run) => run.value.trim() === '');

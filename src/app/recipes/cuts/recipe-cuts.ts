@@ -60,9 +60,7 @@ export class RecipeCuts {
     this.clearing.set(cut.id);
     try {
       const updated = await firstValueFrom(this.api.clearFlag(cut.id));
-      this.load.update((load) =>
-        load.state === 'ready' ? { state: 'ready', cuts: load.cuts.map((c) => (c.id === updated.id ? updated : c)) } : load,
-      );
+      this.load.update((load) => (load.state === 'ready' ? { state: 'ready', cuts: load.cuts.map((c) => (c.id === updated.id ? updated : c)) } : load));
       void this.notifier.show(`Cut of specimen ${updated.specimenId} marked as seen.`);
     } catch {
       // The error interceptor has said why; the flag stays.

@@ -122,7 +122,12 @@ export class DraftAutosave {
       if (this.canAutosave()) this.saves.next('auto');
     });
     // One save at a time, each reading the revision the previous one left.
-    this.saves.pipe(concatMap((kind) => from(this.persist(kind))), takeUntilDestroyed()).subscribe();
+    this.saves
+      .pipe(
+        concatMap((kind) => from(this.persist(kind))),
+        takeUntilDestroyed(),
+      )
+      .subscribe();
   }
 
   /** Takes a version from the server as the new base: its revision, and (optionally) its content into the form. */
@@ -195,9 +200,7 @@ export class DraftAutosave {
         void this.router.navigate(['/recipes', created.recipeId, 'edit'], { replaceUrl: true });
         return;
       }
-      const saved = await firstValueFrom(
-        this.api.save(version.recipeId, version.version, { revision: this.baseRevision(), ...body }, callerHandles(400, 409)),
-      );
+      const saved = await firstValueFrom(this.api.save(version.recipeId, version.version, { revision: this.baseRevision(), ...body }, callerHandles(400, 409)));
       this.loadedVersion.set(saved);
       this.baseRevision.set(saved.revision);
       // Only what was sent is saved; anything typed meanwhile stays "unsaved" and goes next time.

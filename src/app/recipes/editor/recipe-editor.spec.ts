@@ -324,7 +324,12 @@ describe('RecipeEditor', () => {
     // The server's canonical JSON may order keys differently from the form: still not a change.
     const sortKeys = (v: unknown): unknown =>
       v && typeof v === 'object' && !Array.isArray(v)
-        ? Object.fromEntries(Object.keys(v).sort().reverse().map((k) => [k, sortKeys((v as Record<string, unknown>)[k])]))
+        ? Object.fromEntries(
+            Object.keys(v)
+              .sort()
+              .reverse()
+              .map((k) => [k, sortKeys((v as Record<string, unknown>)[k])]),
+          )
         : v;
     await open('3', [sortKeys(aDraft()) as RecipeVersionDto]);
     expect(text('[data-testid="save-status"]')).toMatch(/^Saved/);

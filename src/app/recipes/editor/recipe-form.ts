@@ -1,15 +1,7 @@
 import { type AbstractControl, FormGroup, type NonNullableFormBuilder, type ValidationErrors, type ValidatorFn, Validators } from '@angular/forms';
 import type { QuantityKind } from '@shared/units';
 import { type RecipeContent, recipeContent } from '@shared/schemas/recipe';
-import type {
-  ClampingMethod,
-  CoolantType,
-  CutMotion,
-  CutOrientation,
-  HardnessScale,
-  MaterialGroup,
-  Shape,
-} from '@shared/vocabulary';
+import type { ClampingMethod, CoolantType, CutMotion, CutOrientation, HardnessScale, MaterialGroup, Shape } from '@shared/vocabulary';
 import { requiredText } from '@shared/schemas/numbers';
 import { toFieldErrors } from '@shared/validation';
 import { zodValidator } from '../../core/forms/zod-validator';

@@ -65,10 +65,7 @@ export class RecipeLivePanel {
     const measured = h.measured.min === h.measured.max ? `${h.measured.min} ${h.measured.scale}` : `${h.measured.min}–${h.measured.max} ${h.measured.scale}`;
     let converted: string | null = null;
     if (h.measured.scale !== 'HV' && h.minHv !== null && h.maxHv !== null) {
-      converted =
-        Math.round(h.minHv) === Math.round(h.maxHv)
-          ? formatHardness(h.minHv, 'HV')
-          : `${Math.round(h.minHv)}–${formatHardness(h.maxHv, 'HV')}`;
+      converted = Math.round(h.minHv) === Math.round(h.maxHv) ? formatHardness(h.minHv, 'HV') : `${Math.round(h.minHv)}–${formatHardness(h.maxHv, 'HV')}`;
     }
     return { measured, converted, reason: h.reason, caveats: h.caveats };
   });

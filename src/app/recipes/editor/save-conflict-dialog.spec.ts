@@ -6,8 +6,28 @@ import { type DraftBody, SaveConflictDialog, differences, merge } from './save-c
 
 const content = (over: { rpm?: number; hardness?: RecipeContent['scope']['hardness']; instructions?: string } = {}) =>
   ({
-    scope: { materialId: null, group: 'cast-iron', hardness: over.hardness ?? null, shape: 'round-bar', sizeMinMm: 10, sizeMaxMm: 40, widthMm: null, wallMm: null, orientation: 'transverse', orientationNote: '' },
-    cutting: { machineId: 1, wheelId: 2, wheelRpm: over.rpm ?? 3000, feedMmS: 0.5, entryFeedMmS: null, entryLengthMm: null, cutMotion: 'straight-plunge', passes: null },
+    scope: {
+      materialId: null,
+      group: 'cast-iron',
+      hardness: over.hardness ?? null,
+      shape: 'round-bar',
+      sizeMinMm: 10,
+      sizeMaxMm: 40,
+      widthMm: null,
+      wallMm: null,
+      orientation: 'transverse',
+      orientationNote: '',
+    },
+    cutting: {
+      machineId: 1,
+      wheelId: 2,
+      wheelRpm: over.rpm ?? 3000,
+      feedMmS: 0.5,
+      entryFeedMmS: null,
+      entryLengthMm: null,
+      cutMotion: 'straight-plunge',
+      passes: null,
+    },
     clamping: { method: 'v-block', placement: '', bothSides: true, softInserts: false, supportBlocks: false, orientationRule: '' },
     coolant: { type: 'water-soluble', concentrationPct: 4, flowLMin: null },
     instructionsMd: over.instructions ?? 'Clamp.',
@@ -20,12 +40,7 @@ describe('save conflict', () => {
   it('lists changed leaves, and a hardness window added on one side as one field', () => {
     const mine: DraftBody = { title: 'A', content: content({ rpm: 2800, hardness: { min: 180, max: 220, scale: 'HBW' } }) };
     const theirs: DraftBody = { title: 'B', content: content({ instructions: 'Clamp firmly.' }) };
-    expect(differences(mine, theirs).map((d) => d.path)).toEqual([
-      'title',
-      'content.scope.hardness',
-      'content.cutting.wheelRpm',
-      'content.instructionsMd',
-    ]);
+    expect(differences(mine, theirs).map((d) => d.path)).toEqual(['title', 'content.scope.hardness', 'content.cutting.wheelRpm', 'content.instructionsMd']);
     expect(differences(mine, structuredClone(mine))).toEqual([]);
   });
 
@@ -46,14 +61,25 @@ describe('save conflict', () => {
 
     beforeEach(async () => {
       close = vi.fn();
-      const theirs = { title: 'B', content: content({ instructions: 'Clamp firmly.' }), revision: 9, updatedBy: { id: 2, name: 'Ines' }, updatedAt: '2026-11-03T11:04:00.000Z' } as RecipeVersionDto;
+      const theirs = {
+        title: 'B',
+        content: content({ instructions: 'Clamp firmly.' }),
+        revision: 9,
+        updatedBy: { id: 2, name: 'Ines' },
+        updatedAt: '2026-11-03T11:04:00.000Z',
+      } as RecipeVersionDto;
       TestBed.configureTestingModule({
         imports: [SaveConflictDialog],
         providers: [
           { provide: MatDialogRef, useValue: { close } },
           {
             provide: MAT_DIALOG_DATA,
-            useValue: { base: { title: 'A', content: content() }, mine: { title: 'A', content: content({ rpm: 2800 }) }, theirs, describe: (_p: string, v: unknown) => String(v) },
+            useValue: {
+              base: { title: 'A', content: content() },
+              mine: { title: 'A', content: content({ rpm: 2800 }) },
+              theirs,
+              describe: (_p: string, v: unknown) => String(v),
+            },
           },
         ],
       });

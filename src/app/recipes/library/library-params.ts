@@ -1,7 +1,16 @@
 import type { ParamMap, Params } from '@angular/router';
 import { toHv } from '@shared/hardness';
 import { RECIPE_SORT_FIELDS, type RecipeListQuery } from '@shared/schemas/recipe';
-import { HARDNESS_SCALES, type HardnessScale, MATERIAL_GROUPS, type MaterialGroup, RECIPE_STATUSES, type RecipeStatus, SHAPES, type Shape } from '@shared/vocabulary';
+import {
+  HARDNESS_SCALES,
+  type HardnessScale,
+  MATERIAL_GROUPS,
+  type MaterialGroup,
+  RECIPE_STATUSES,
+  type RecipeStatus,
+  SHAPES,
+  type Shape,
+} from '@shared/vocabulary';
 
 export type LibrarySortField = (typeof RECIPE_SORT_FIELDS)[number];
 

@@ -27,7 +27,19 @@ describe('Library', () => {
 
   const recipes: RecipeSummary[] = [
     aRecipeSummary({ worstCheck: 'warning' }),
-    aRecipeSummary({ id: 8, number: 'KB-0008', title: 'Carbide insert blank', status: 'draft', group: 'cemented-carbide', materialName: null, shape: 'rectangular', sizeMinMm: 3, sizeMaxMm: 12, worstCheck: 'blocker', version: 1 }),
+    aRecipeSummary({
+      id: 8,
+      number: 'KB-0008',
+      title: 'Carbide insert blank',
+      status: 'draft',
+      group: 'cemented-carbide',
+      materialName: null,
+      shape: 'rectangular',
+      sizeMinMm: 3,
+      sizeMaxMm: 12,
+      worstCheck: 'blocker',
+      version: 1,
+    }),
   ];
 
   function page(total: number, index = 0, items = recipes): Page<RecipeSummary> {
@@ -120,13 +132,7 @@ describe('Library', () => {
     await harness.fixture.whenStable();
     expect(root().querySelector('[data-testid="hardness-note"]')?.textContent).toContain('372 HV');
     const filters = await TestbedHarnessEnvironment.loader(harness.fixture).getAllHarnesses(MatSelectHarness.with({ ancestor: '.kb-filters' }));
-    expect(await Promise.all(filters.map((s) => s.getValueText()))).toEqual([
-      'Stainless steels',
-      'HRC',
-      'Tube',
-      'Precision saw P1',
-      'Approved',
-    ]);
+    expect(await Promise.all(filters.map((s) => s.getValueText()))).toEqual(['Stainless steels', 'HRC', 'Tube', 'Precision saw P1', 'Approved']);
   });
 
   it('puts a chosen filter in the URL and asks again from the first page', async () => {

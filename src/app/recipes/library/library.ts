@@ -139,7 +139,6 @@ export class Library {
   protected readonly result = latestValue<Page<RecipeSummary>>(this.list, { items: [], total: 0, page: 0, pageSize: 25 });
 
   constructor() {
-
     // Typing waits for a pause; choosing from a list applies at once.
     const c = this.filters.controls;
     merge(

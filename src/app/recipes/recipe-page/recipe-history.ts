@@ -15,9 +15,7 @@ import { RecipeStatusChip } from '../../ui/recipe-status-chip';
         @let wf = item.workflow;
         <li class="kb-history-item" [class.kb-current]="item.version === shown()" [attr.data-version]="item.version">
           <div class="kb-history-head">
-            <a class="kb-history-version" [routerLink]="['/recipes', item.recipeId]" [queryParams]="{ v: item.version }"
-              >Version {{ item.version }}</a
-            >
+            <a class="kb-history-version" [routerLink]="['/recipes', item.recipeId]" [queryParams]="{ v: item.version }">Version {{ item.version }}</a>
             <kb-recipe-status-chip [status]="item.status" />
             @if (item.version === shown()) {
               <span class="kb-shown">shown above</span>
@@ -33,10 +31,14 @@ import { RecipeStatusChip } from '../../ui/recipe-status-chip';
             <dt>Author</dt>
             <dd>{{ item.createdBy.name }}</dd>
             <dt>Created</dt>
-            <dd><time [attr.datetime]="item.createdAt">{{ item.createdAt | date: 'd MMM y' : 'UTC' }}</time></dd>
+            <dd>
+              <time [attr.datetime]="item.createdAt">{{ item.createdAt | date: 'd MMM y' : 'UTC' }}</time>
+            </dd>
             @if (wf?.submittedAt; as at) {
               <dt>Submitted</dt>
-              <dd><time [attr.datetime]="at">{{ at | date: 'd MMM y' : 'UTC' }}</time></dd>
+              <dd>
+                <time [attr.datetime]="at">{{ at | date: 'd MMM y' : 'UTC' }}</time>
+              </dd>
             }
             @if (wf?.effectiveFrom; as on) {
               <dt>Effective from</dt>
@@ -44,7 +46,9 @@ import { RecipeStatusChip } from '../../ui/recipe-status-chip';
             }
             @if (wf?.supersededAt; as at) {
               <dt>Superseded</dt>
-              <dd><time [attr.datetime]="at">{{ at | date: 'd MMM y' : 'UTC' }}</time></dd>
+              <dd>
+                <time [attr.datetime]="at">{{ at | date: 'd MMM y' : 'UTC' }}</time>
+              </dd>
             }
             @if (wf?.withdrawnAt; as at) {
               <dt>Withdrawn</dt>

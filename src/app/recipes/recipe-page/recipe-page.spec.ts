@@ -28,9 +28,21 @@ describe('RecipePage', () => {
     status: 'draft',
     contentHash: null,
     checks: [
-      { id: 'feed-ceiling', severity: 'warning', message: 'Feed 0.5 mm/s is above the lab ceiling of 0.3 mm/s.', reason: 'Start low and raise with experience (common practice).', path: 'cutting.feedMmS' },
+      {
+        id: 'feed-ceiling',
+        severity: 'warning',
+        message: 'Feed 0.5 mm/s is above the lab ceiling of 0.3 mm/s.',
+        reason: 'Start low and raise with experience (common practice).',
+        path: 'cutting.feedMmS',
+      },
       { id: 'rim-note', severity: 'note', message: 'Lowering rpm only helps consumable wheels.', reason: 'Common practice.', path: null },
-      { id: 'wheel-overspeed', severity: 'blocker', message: 'The wheel would run at 94 m/s; it is marked for 80 m/s.', reason: 'EN 12413: never exceed the marked speed.', path: 'cutting.wheelRpm' },
+      {
+        id: 'wheel-overspeed',
+        severity: 'blocker',
+        message: 'The wheel would run at 94 m/s; it is marked for 80 m/s.',
+        reason: 'EN 12413: never exceed the marked speed.',
+        path: 'cutting.wheelRpm',
+      },
     ],
     attachments: [
       {
@@ -89,7 +101,10 @@ describe('RecipePage', () => {
 
   /** An operator's page asks the shown approved version whether they must still acknowledge it (the list does not say). */
   async function answerMine(version: RecipeVersionDto): Promise<void> {
-    (await vi.waitFor(() => backend.expectOne({ method: 'GET', url: `/api/recipes/3/versions/${version.version}` }))).flush({ ...version, myAcknowledgement: null });
+    (await vi.waitFor(() => backend.expectOne({ method: 'GET', url: `/api/recipes/3/versions/${version.version}` }))).flush({
+      ...version,
+      myAcknowledgement: null,
+    });
     await harness.fixture.whenStable();
   }
 
@@ -110,7 +125,16 @@ describe('RecipePage', () => {
     expect(header).toContain('Version 2 ');
     const tabs = await TestbedHarnessEnvironment.loader(harness.fixture).getHarness(MatTabGroupHarness);
     const labels = await Promise.all((await tabs.getTabs()).map((t) => t.getLabel()));
-    expect(labels.map((l) => l.replace(/\d+/g, '').trim())).toEqual(['Parameters', 'Computed', 'Checks', 'Instructions', 'Attachments ()', 'Comments', 'History', 'Cuts']);
+    expect(labels.map((l) => l.replace(/\d+/g, '').trim())).toEqual([
+      'Parameters',
+      'Computed',
+      'Checks',
+      'Instructions',
+      'Attachments ()',
+      'Comments',
+      'History',
+      'Cuts',
+    ]);
 
     const parameters = root().querySelector('.kb-cards')!.textContent!;
     expect(parameters).toContain('Tempered chromium-molybdenum steel');
@@ -216,8 +240,7 @@ describe('RecipePage', () => {
 
     function button(name: RegExp): HTMLButtonElement | undefined {
       return Array.from(root().querySelectorAll<HTMLButtonElement>('header button, header a')).find((b) => name.test(b.textContent ?? '')) as
-        | HTMLButtonElement
-        | undefined;
+        HTMLButtonElement | undefined;
     }
 
     it('shows every signature in the header: printed name, UTC date and time, meaning, comment and short content hash', async () => {
@@ -342,7 +365,11 @@ describe('RecipePage', () => {
     });
 
     it('lists every version in the History tab with its signatures and a link to compare with the one before', async () => {
-      const superseded = aRecipeVersion({ version: 1, status: 'superseded', workflow: workflow({ signatures: [signature], supersededAt: '2026-12-01T00:00:00.000Z' }) });
+      const superseded = aRecipeVersion({
+        version: 1,
+        status: 'superseded',
+        workflow: workflow({ signatures: [signature], supersededAt: '2026-12-01T00:00:00.000Z' }),
+      });
       const current = aRecipeVersion({
         version: 2,
         status: 'approved',

@@ -94,7 +94,9 @@ export class ReasonDialog {
       const rest = e.errors.filter((err) => err !== onField);
       if (rest.length || !onField) {
         this.formError.set(
-          e.status === 409 ? `${e.generalMessage} Close this dialog and reload the page to see the current state.` : rest.map((r) => r.message).join(' ') || e.generalMessage,
+          e.status === 409
+            ? `${e.generalMessage} Close this dialog and reload the page to see the current state.`
+            : rest.map((r) => r.message).join(' ') || e.generalMessage,
         );
       }
     } finally {

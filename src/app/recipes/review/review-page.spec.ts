@@ -41,9 +41,21 @@ describe('ReviewPage', () => {
     contentHash: 'f'.repeat(64),
     content: { ...aRecipeVersion().content, instructionsMd: '1. Clamp **both** sides.', changeReason: 'Harder batch from the new supplier.' },
     checks: [
-      { id: 'feed-heat-sensitive', severity: 'warning', message: 'Feed 0.5 mm/s is fast for a heat-sensitive material.', reason: 'Common practice.', path: 'cutting.feedMmS' },
+      {
+        id: 'feed-heat-sensitive',
+        severity: 'warning',
+        message: 'Feed 0.5 mm/s is fast for a heat-sensitive material.',
+        reason: 'Common practice.',
+        path: 'cutting.feedMmS',
+      },
       { id: 'rim-low-rpm', severity: 'note', message: 'Lower rpm only helps consumable wheels.', reason: 'Common practice.', path: null },
-      { id: 'coolant-concentration', severity: 'warning', message: 'Coolant at 8 % is above the usual 2–5 %.', reason: 'Common practice.', path: 'coolant.concentrationPct' },
+      {
+        id: 'coolant-concentration',
+        severity: 'warning',
+        message: 'Coolant at 8 % is above the usual 2–5 %.',
+        reason: 'Common practice.',
+        path: 'coolant.concentrationPct',
+      },
     ],
     workflow: workflow([7]),
   });
@@ -69,7 +81,10 @@ describe('ReviewPage', () => {
         ),
         provideHttpClient(withInterceptors([errorInterceptor])),
         provideHttpClientTesting(),
-        { provide: Session, useValue: { user: signal(aUser({ id: userId, displayName: 'Tomas Berg', roles: ['approver'] })), roles: signal(['approver']), clear: vi.fn() } },
+        {
+          provide: Session,
+          useValue: { user: signal(aUser({ id: userId, displayName: 'Tomas Berg', roles: ['approver'] })), roles: signal(['approver']), clear: vi.fn() },
+        },
         { provide: Notifier, useValue: { show: vi.fn() } },
       ],
     });

@@ -11,14 +11,7 @@ import { firstValueFrom } from 'rxjs';
 import { NO_SAFETY_CLAIM } from '@shared/cautions';
 import type { CheckResult, CheckSeverity } from '@shared/recipe-checks';
 import type { RecipeComparison, RecipeVersionDto } from '@shared/recipe-types';
-import {
-  CLAMPING_METHOD_LABELS,
-  COOLANT_TYPE_LABELS,
-  CUT_MOTION_LABELS,
-  MACHINE_CLASS_LABELS,
-  MATERIAL_GROUP_LABELS,
-  SHAPE_LABELS,
-} from '@shared/vocabulary';
+import { CLAMPING_METHOD_LABELS, COOLANT_TYPE_LABELS, CUT_MOTION_LABELS, MACHINE_CLASS_LABELS, MATERIAL_GROUP_LABELS, SHAPE_LABELS } from '@shared/vocabulary';
 import { callerHandles } from '../../core/http/caller-handles';
 import { Notifier } from '../../core/notifier/notifier';
 import { Session } from '../../core/session/session';
@@ -207,19 +200,28 @@ export class ReviewPage {
             ? `${stock.material.hardness.value} ${stock.material.hardness.scale} (the material's)`
             : 'not given',
       },
-      { label: 'Shape and size', value: `${SHAPE_LABELS[c.scope.shape]}, ${formatMetric(c.scope.sizeMinMm, 'mm', units)} – ${formatMetric(c.scope.sizeMaxMm, 'mm', units)}` },
+      {
+        label: 'Shape and size',
+        value: `${SHAPE_LABELS[c.scope.shape]}, ${formatMetric(c.scope.sizeMinMm, 'mm', units)} – ${formatMetric(c.scope.sizeMaxMm, 'mm', units)}`,
+      },
       {
         label: 'Machine',
         value: (stock.machine?.name ?? `Machine ${c.cutting.machineId}`) + (stock.machine ? ` (${MACHINE_CLASS_LABELS[stock.machine.machineClass]})` : ''),
       },
-      { label: 'Wheel', value: (stock.wheel?.name ?? `Wheel ${c.cutting.wheelId}`) + (stock.wheel ? ` · ${stock.wheel.specification} · max ${formatMetric(stock.wheel.maxSpeedMs, 'm/s', units)}` : '') },
+      {
+        label: 'Wheel',
+        value:
+          (stock.wheel?.name ?? `Wheel ${c.cutting.wheelId}`) +
+          (stock.wheel ? ` · ${stock.wheel.specification} · max ${formatMetric(stock.wheel.maxSpeedMs, 'm/s', units)}` : ''),
+      },
       { label: 'Wheel speed', value: formatMetric(c.cutting.wheelRpm, 'rpm', units) },
       { label: 'Feed', value: formatMetric(c.cutting.feedMmS, 'mm/s', units) },
       { label: 'Cut motion', value: CUT_MOTION_LABELS[c.cutting.cutMotion] },
       { label: 'Clamping', value: c.clamping.method ? CLAMPING_METHOD_LABELS[c.clamping.method] : 'none chosen' },
       {
         label: 'Coolant',
-        value: COOLANT_TYPE_LABELS[c.coolant.type] + (c.coolant.concentrationPct !== null ? `, ${formatMetric(c.coolant.concentrationPct, '% v/v', units)}` : ''),
+        value:
+          COOLANT_TYPE_LABELS[c.coolant.type] + (c.coolant.concentrationPct !== null ? `, ${formatMetric(c.coolant.concentrationPct, '% v/v', units)}` : ''),
       },
     ];
     if (c.cutting.entryFeedMmS !== null) rows.splice(8, 0, { label: 'Entry feed', value: formatMetric(c.cutting.entryFeedMmS, 'mm/s', units) });

@@ -108,7 +108,10 @@ describe('SignatureDialog', () => {
 
     backend
       .expectOne({ method: 'POST', url: '/api/recipes/3/versions/2/approve' })
-      .flush({ code: 'VALIDATION_FAILED', errors: [{ path: 'password', message: 'The password is not correct.' }] }, { status: 400, statusText: 'Bad Request' });
+      .flush(
+        { code: 'VALIDATION_FAILED', errors: [{ path: 'password', message: 'The password is not correct.' }] },
+        { status: 400, statusText: 'Bad Request' },
+      );
     expect(await text('password-error')).toBe('The password is not correct.');
     expect(await text('form-error')).toBe('');
     expect(dialogRef.close).not.toHaveBeenCalled();
@@ -124,7 +127,10 @@ describe('SignatureDialog', () => {
     await sign();
     const first = backend.expectOne({ method: 'POST', url: '/api/recipes/3/versions/2/approve' });
     type('password', 'demo-approver-2026');
-    first.flush({ code: 'VALIDATION_FAILED', errors: [{ path: 'password', message: 'The password is not correct.' }] }, { status: 400, statusText: 'Bad Request' });
+    first.flush(
+      { code: 'VALIDATION_FAILED', errors: [{ path: 'password', message: 'The password is not correct.' }] },
+      { status: 400, statusText: 'Bad Request' },
+    );
     await fixture.whenStable();
     expect(await text('password-error')).not.toBe('The password is not correct.');
 
@@ -184,7 +190,12 @@ describe('SignatureDialog', () => {
     type('comment', 'Wheel type discontinued by the supplier.');
     await sign();
     const req = backend.expectOne({ method: 'POST', url: '/api/recipes/3/versions/1/withdraw' });
-    expect(req.request.body).toEqual({ revision: 12, password: 'demo-approver-2026', meaning: 'withdrawn', reason: 'Wheel type discontinued by the supplier.' });
+    expect(req.request.body).toEqual({
+      revision: 12,
+      password: 'demo-approver-2026',
+      meaning: 'withdrawn',
+      reason: 'Wheel type discontinued by the supplier.',
+    });
     req.flush({ ...current, status: 'withdrawn' });
     await fixture.whenStable();
     expect(dialogRef.close).toHaveBeenCalled();

@@ -42,7 +42,9 @@ describe('CutProfilePlot', () => {
       expect(d.match(/[ML]/g)).toHaveLength(5);
     }
     // The contact line starts at the bottom (0 mm at the entry) and rises to the top at the centre.
-    const [start, , middle] = series('contact').split(' ').map((s) => s.slice(1).split(',').map(Number));
+    const [start, , middle] = series('contact')
+      .split(' ')
+      .map((s) => s.slice(1).split(',').map(Number));
     expect(middle[1]).toBeLessThan(start[1]);
     expect(middle[0]).toBeGreaterThan(start[0]);
   });

@@ -58,9 +58,7 @@ export class CutProfilePlot {
   protected readonly view = VIEW;
   protected readonly plot = PLOT;
 
-  private readonly usable = computed(() =>
-    this.points().filter((p) => [p.depthMm, p.contactMm, p.removalMm3S].every(Number.isFinite)),
-  );
+  private readonly usable = computed(() => this.points().filter((p) => [p.depthMm, p.contactMm, p.removalMm3S].every(Number.isFinite)));
   protected readonly hasData = computed(() => this.usable().length >= 2 && this.usable().some((p) => p.depthMm > 0));
 
   private readonly peaks = computed(() => {

@@ -121,7 +121,13 @@ describe('LogCutDialog', () => {
     await choose('good');
     await save();
     backend.expectOne('/api/recipes/3/versions/2/cuts').flush(
-      { code: 'VALIDATION_FAILED', errors: [{ path: 'specimenId', message: 'Specimen id is already used today.' }, { path: 'quantity', message: 'At most 1000.' }] },
+      {
+        code: 'VALIDATION_FAILED',
+        errors: [
+          { path: 'specimenId', message: 'Specimen id is already used today.' },
+          { path: 'quantity', message: 'At most 1000.' },
+        ],
+      },
       { status: 400, statusText: 'Bad Request' },
     );
     await settled();
@@ -135,10 +141,9 @@ describe('LogCutDialog', () => {
     type('specimenId', 'SP-1');
     await choose('good');
     await save();
-    backend.expectOne('/api/recipes/3/versions/2/cuts').flush(
-      { code: 'CONFLICT', errors: [{ path: '', message: 'Only the current version takes cuts.' }] },
-      { status: 409, statusText: 'Conflict' },
-    );
+    backend
+      .expectOne('/api/recipes/3/versions/2/cuts')
+      .flush({ code: 'CONFLICT', errors: [{ path: '', message: 'Only the current version takes cuts.' }] }, { status: 409, statusText: 'Conflict' });
     await settled();
     expect(text('form-error')).toBe('Only the current version takes cuts. Open the recipe again to see which version is current now.');
     expect(dialogRef.close).not.toHaveBeenCalled();

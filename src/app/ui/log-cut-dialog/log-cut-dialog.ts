@@ -113,7 +113,10 @@ export class LogCutDialog {
       }
       const outcomeErrors = e.errors.filter((x) => x.path === 'outcome');
       if (outcomeErrors.length) this.outcomeError.set(outcomeErrors[0].message);
-      const unmatched = applyServerErrors(this.form, e.errors.filter((x) => x.path !== 'outcome'));
+      const unmatched = applyServerErrors(
+        this.form,
+        e.errors.filter((x) => x.path !== 'outcome'),
+      );
       if (unmatched.length) this.formError.set(unmatched.join(' '));
     } finally {
       this.busy.set(false);

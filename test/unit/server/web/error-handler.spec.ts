@@ -17,7 +17,15 @@ describe('isDatabaseUnavailable', () => {
   });
 
   it('does not mistake query errors and ordinary faults for an outage', () => {
-    for (const err of [withCode('ER_NO_SUCH_TABLE'), withCode('ER_DUP_ENTRY'), withCode('ER_PARSE_ERROR', { fatal: false }), new TypeError('x'), null, undefined, 'ECONNREFUSED']) {
+    for (const err of [
+      withCode('ER_NO_SUCH_TABLE'),
+      withCode('ER_DUP_ENTRY'),
+      withCode('ER_PARSE_ERROR', { fatal: false }),
+      new TypeError('x'),
+      null,
+      undefined,
+      'ECONNREFUSED',
+    ]) {
       expect(isDatabaseUnavailable(err), String(err)).to.equal(false);
     }
   });

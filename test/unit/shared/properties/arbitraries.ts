@@ -27,7 +27,20 @@ export const RUNS = 300;
 export const RUNS_HEAVY = 150;
 
 /** Numbers that break naive arithmetic: NaN, ±∞, −0, the extremes and the smallest subnormal. */
-export const oddNumber = fc.constantFrom(NaN, Infinity, -Infinity, -0, 0, Number.MAX_VALUE, -Number.MAX_VALUE, Number.MIN_VALUE, Number.MAX_SAFE_INTEGER, -1, 1e21, -1e21);
+export const oddNumber = fc.constantFrom(
+  NaN,
+  Infinity,
+  -Infinity,
+  -0,
+  0,
+  Number.MAX_VALUE,
+  -Number.MAX_VALUE,
+  Number.MIN_VALUE,
+  Number.MAX_SAFE_INTEGER,
+  -1,
+  1e21,
+  -1e21,
+);
 
 /** Any double, including NaN, ±∞, −0, huge and negative. */
 export const anyNumber = fc.oneof(fc.double(), oddNumber);
@@ -96,11 +109,24 @@ export const shape = fc.constantFrom(...SHAPES);
 
 /** Wheel markings that parse: conventional (A60K5V, C46KBF) and superabrasive (D126M, CB151N100B). */
 export const validMarking = fc.oneof(
-  fc.tuple(fc.constantFrom('A', 'C'), fc.integer({ min: 1, max: 9999 }), fc.constantFrom(...'ABCDEFGHIJKLMNOPQRSTUVWXYZ'), fc.option(fc.integer({ min: 0, max: 99 }), { nil: null }), fc.constantFrom('V', 'B', 'BF', 'R', 'E', 'M', 'S')).map(
-    ([a, grit, grade, structure, bond]) => `${a}${grit}${grade}${structure ?? ''}${bond}`,
-  ),
   fc
-    .tuple(fc.constantFrom('D', 'B', 'CB'), fc.integer({ min: 1, max: 9999 }), fc.option(fc.constantFrom(...'ABCDEFGHIJKLMNOPQRSTUVWXYZ'), { nil: null }), fc.integer({ min: 10, max: 999 }), fc.boolean(), fc.constantFrom('B', 'M', 'V', 'G'))
+    .tuple(
+      fc.constantFrom('A', 'C'),
+      fc.integer({ min: 1, max: 9999 }),
+      fc.constantFrom(...'ABCDEFGHIJKLMNOPQRSTUVWXYZ'),
+      fc.option(fc.integer({ min: 0, max: 99 }), { nil: null }),
+      fc.constantFrom('V', 'B', 'BF', 'R', 'E', 'M', 'S'),
+    )
+    .map(([a, grit, grade, structure, bond]) => `${a}${grit}${grade}${structure ?? ''}${bond}`),
+  fc
+    .tuple(
+      fc.constantFrom('D', 'B', 'CB'),
+      fc.integer({ min: 1, max: 9999 }),
+      fc.option(fc.constantFrom(...'ABCDEFGHIJKLMNOPQRSTUVWXYZ'), { nil: null }),
+      fc.integer({ min: 10, max: 999 }),
+      fc.boolean(),
+      fc.constantFrom('B', 'M', 'V', 'G'),
+    )
     .map(([a, grit, grade, conc, withConc, bond]) => `${a}${grit}${grade ?? ''}${grade && withConc ? conc : ''}${bond}`),
 );
 
@@ -111,7 +137,15 @@ export const hardnessWindow: fc.Arbitrary<HardnessWindow> = fc
 
 /** A stored wheel as wheelBody allows it (diameter over 10 to 1000 mm, over 0.05 to 20 mm thick, over 1 to 200 m/s). */
 export const validWheel: fc.Arbitrary<WheelRecord> = fc
-  .record({ kind: fc.constantFrom(...WHEEL_KINDS), specification: validMarking, diameterMm: above(10, 1000), thicknessMm: above(0.05, 20), maxSpeedMs: above(1, 200), dryAllowed: fc.boolean(), archived: fc.boolean() })
+  .record({
+    kind: fc.constantFrom(...WHEEL_KINDS),
+    specification: validMarking,
+    diameterMm: above(10, 1000),
+    thicknessMm: above(0.05, 20),
+    maxSpeedMs: above(1, 200),
+    dryAllowed: fc.boolean(),
+    archived: fc.boolean(),
+  })
   .map((over) => wheel(over));
 
 /** A stored machine as machineBody allows it (ordered ranges, flange below the largest wheel). */
@@ -190,7 +224,14 @@ export const validContent: fc.Arbitrary<RecipeContent> = fc
         wallMm: r.shape === 'tube' ? wall : null,
         orientation: r.orientation,
       },
-      cutting: { wheelRpm: r.wheelRpm, feedMmS: r.feedMmS, entryFeedMmS: r.entryFeedMmS, entryLengthMm: r.entryLengthMm, cutMotion: r.cutMotion, passes: r.passes },
+      cutting: {
+        wheelRpm: r.wheelRpm,
+        feedMmS: r.feedMmS,
+        entryFeedMmS: r.entryFeedMmS,
+        entryLengthMm: r.entryLengthMm,
+        cutMotion: r.cutMotion,
+        passes: r.passes,
+      },
       clamping: { method: r.method, orientationRule: r.orientationRule.trim() },
       coolant: { type: r.coolant, concentrationPct: r.coolant === 'water-soluble' ? r.concentrationPct : null },
     });
@@ -238,26 +279,27 @@ const CHOICE_LEAVES = ['scope.group', 'scope.hardness', 'scope.shape', 'scope.or
  * of recipeContent with every number or text leaf replaced, at random, by an outside value
  * (null, NaN, ∞, a string, an object) and every choice possibly not made yet (null).
  */
-export const halfTyped = (leaf: fc.Arbitrary<unknown>): fc.Arbitrary<RecipeContent> => fc
-  .tuple(
-    validContent,
-    fc.dictionary(fc.constantFrom(...NUMBER_AND_TEXT_LEAVES), leaf, { maxKeys: 8 }),
-    fc.subarray([...CHOICE_LEAVES]),
-    // The window's inputs while its checkbox is ticked but the numbers are not typed yet.
-    fc.option(fc.record({ min: leaf, max: leaf, scale: orNull(scale) }), { nil: undefined }),
-  )
-  .map(([c, replaced, unchosen, halfWindow]) => {
-    const out = structuredClone(c) as unknown as Record<string, Record<string, unknown>>;
-    const set = (path: string, v: unknown) => {
-      const [section, key] = path.split('.') as [string, string | undefined];
-      if (key === undefined) (out as Record<string, unknown>)[section] = v;
-      else out[section]![key] = v;
-    };
-    for (const [path, v] of Object.entries(replaced)) set(path, v);
-    for (const path of unchosen) set(path, null);
-    if (halfWindow) set('scope.hardness', halfWindow);
-    return out as unknown as RecipeContent;
-  });
+export const halfTyped = (leaf: fc.Arbitrary<unknown>): fc.Arbitrary<RecipeContent> =>
+  fc
+    .tuple(
+      validContent,
+      fc.dictionary(fc.constantFrom(...NUMBER_AND_TEXT_LEAVES), leaf, { maxKeys: 8 }),
+      fc.subarray([...CHOICE_LEAVES]),
+      // The window's inputs while its checkbox is ticked but the numbers are not typed yet.
+      fc.option(fc.record({ min: leaf, max: leaf, scale: orNull(scale) }), { nil: undefined }),
+    )
+    .map(([c, replaced, unchosen, halfWindow]) => {
+      const out = structuredClone(c) as unknown as Record<string, Record<string, unknown>>;
+      const set = (path: string, v: unknown) => {
+        const [section, key] = path.split('.') as [string, string | undefined];
+        if (key === undefined) (out as Record<string, unknown>)[section] = v;
+        else out[section]![key] = v;
+      };
+      for (const [path, v] of Object.entries(replaced)) set(path, v);
+      for (const path of unchosen) set(path, null);
+      if (halfWindow) set('scope.hardness', halfWindow);
+      return out as unknown as RecipeContent;
+    });
 /**
  * Valid content whose choices hold ids the vocabulary does not know (content stored under an
  * older vocabulary, or a hand-edited row): "x", "", "__proto__", "constructor", odd unicode.

@@ -59,7 +59,9 @@ describe('shared/contact-length (properties)', () => {
       fc.property(above(0, 2000), finite(-10, 1.1), (d, share) => {
         const x = share * d;
         const c = circleChordMm(d, x);
-        expect(c).to.be.at.least(0).and.at.most(d + slack(d));
+        expect(c)
+          .to.be.at.least(0)
+          .and.at.most(d + slack(d));
         if (x <= 0 || x >= d) expect(c).to.equal(0);
         else expect(c).to.be.closeTo(circleChordMm(d, d - x), slack(d) * 1e3);
       }),
@@ -71,7 +73,9 @@ describe('shared/contact-length (properties)', () => {
     fc.assert(
       fc.property(section, finite(-0.1, 1.1), (s, share) => {
         const c = sectionChordMm(s, share * s.sizeMm);
-        expect(c).to.be.at.least(-slack(s.sizeMm)).and.at.most(widest(s) + slack(widest(s)));
+        expect(c)
+          .to.be.at.least(-slack(s.sizeMm))
+          .and.at.most(widest(s) + slack(widest(s)));
       }),
       { numRuns: RUNS },
     );
@@ -160,7 +164,15 @@ describe('shared/contact-length (properties)', () => {
     fc.assert(
       fc.property(realistic(1, 200), finite(0.05, 5), realistic(1e-4, 5), (d, kerf, feed) => {
         const bar: CutSection = { shape: 'round-bar', sizeMm: d, widthMm: null, wallMm: null };
-        const u: CutSetup = { motion: 'turning-specimen', feedMmS: feed, entryFeedMmS: null, entryLengthMm: null, passes: null, wheelThicknessMm: kerf, wheelDiameterMm: 250 };
+        const u: CutSetup = {
+          motion: 'turning-specimen',
+          feedMmS: feed,
+          entryFeedMmS: null,
+          entryLengthMm: null,
+          passes: null,
+          wheelThicknessMm: kerf,
+          wheelDiameterMm: 250,
+        };
         const pts = contactProfile(bar, u, 401);
         let volume = 0;
         for (let i = 1; i < pts.length; i++) volume += ((pts[i]!.depthMm - pts[i - 1]!.depthMm) * (pts[i]!.removalMm3S + pts[i - 1]!.removalMm3S)) / 2;
@@ -182,7 +194,10 @@ describe('shared/contact-length (properties)', () => {
       feedMmS: anyField,
       entryFeedMmS: anyField,
       entryLengthMm: anyField,
-      passes: fc.oneof(anyNumber.filter((n) => !(n > 500)), outsidePrimitive.filter((v) => !(typeof v === 'number' && v > 500))),
+      passes: fc.oneof(
+        anyNumber.filter((n) => !(n > 500)),
+        outsidePrimitive.filter((v) => !(typeof v === 'number' && v > 500)),
+      ),
       wheelThicknessMm: anyField,
       wheelDiameterMm: anyField,
     });
@@ -206,7 +221,15 @@ describe('shared/contact-length (properties)', () => {
 
   it('the number of profile samples is bounded: any requested count gives a profile of finite length', () => {
     const bar: CutSection = { shape: 'round-bar', sizeMm: 40, widthMm: null, wallMm: null };
-    const u: CutSetup = { motion: 'straight-plunge', feedMmS: 0.5, entryFeedMmS: null, entryLengthMm: null, passes: null, wheelThicknessMm: 1.5, wheelDiameterMm: 250 };
+    const u: CutSetup = {
+      motion: 'straight-plunge',
+      feedMmS: 0.5,
+      entryFeedMmS: null,
+      entryLengthMm: null,
+      passes: null,
+      wheelThicknessMm: 1.5,
+      wheelDiameterMm: 250,
+    };
     fc.assert(
       fc.property(fc.oneof(anyNumber, fc.constantFrom(1e9, 1e15, 2 ** 40)), (n) => {
         const points = contactProfile(bar, u, n);

@@ -34,15 +34,19 @@ const scalePair = fc.tuple(scale, scale);
 describe('shared/hardness (properties)', () => {
   it('a value in range converts to a finite value within the target column; outside every row it is refused, never extrapolated', () => {
     fc.assert(
-      fc.property(scalePair.chain(([from, to]) => fc.tuple(fc.constant(from), fc.constant(to), around(from))), steel, ([from, to, v], g) => {
-        const r = convertHardness(v, from, to, g);
-        if (v < RANGE[from][0] || v > RANGE[from][1]) return void expect(r.ok, `${v} ${from} → ${to}`).to.equal(from === to);
-        if (!r.ok) return void expect(r.applies).to.equal(true);
-        expect(Number.isFinite(r.value)).to.equal(true);
-        expect(r.value).to.be.within(RANGE[to][0] - 1e-9, RANGE[to][1] + 1e-9);
-        expect(r.scale).to.equal(to);
-        expect(r.caveats.length).to.be.above(0);
-      }),
+      fc.property(
+        scalePair.chain(([from, to]) => fc.tuple(fc.constant(from), fc.constant(to), around(from))),
+        steel,
+        ([from, to, v], g) => {
+          const r = convertHardness(v, from, to, g);
+          if (v < RANGE[from][0] || v > RANGE[from][1]) return void expect(r.ok, `${v} ${from} → ${to}`).to.equal(from === to);
+          if (!r.ok) return void expect(r.applies).to.equal(true);
+          expect(Number.isFinite(r.value)).to.equal(true);
+          expect(r.value).to.be.within(RANGE[to][0] - 1e-9, RANGE[to][1] + 1e-9);
+          expect(r.scale).to.equal(to);
+          expect(r.caveats.length).to.be.above(0);
+        },
+      ),
       { numRuns: RUNS },
     );
   });
@@ -50,27 +54,34 @@ describe('shared/hardness (properties)', () => {
   // Within one table only: where Tables 1 and 2 meet (HV 238–240, HBW 226–240) the two
   // embedded tables disagree by up to 14 HBW for the same HV (Table 2 from memory), so HV ↔ HBW
   // jumps there (README.md, "What it does", Computations).
-  it('is monotone over each table\'s range: a harder reading never converts to a softer one', () => {
+  it("is monotone over each table's range: a harder reading never converts to a softer one", () => {
     fc.assert(
-      fc.property(scalePair.chain(([from, to]) => fc.tuple(fc.constant(from), fc.constant(to), finite(...RANGE[from]), finite(...RANGE[from]))), ([from, to, a, b]) => {
-        const [lo, hi] = a <= b ? [a, b] : [b, a];
-        const rl = convertHardness(lo, from, to);
-        const rh = convertHardness(hi, from, to);
-        if (rl.ok && rh.ok && rl.source === rh.source) expect(rl.value, `${lo}→${rl.value}, ${hi}→${rh.value} (${from} → ${to})`).to.be.at.most(rh.value + 1e-9);
-      }),
+      fc.property(
+        scalePair.chain(([from, to]) => fc.tuple(fc.constant(from), fc.constant(to), finite(...RANGE[from]), finite(...RANGE[from]))),
+        ([from, to, a, b]) => {
+          const [lo, hi] = a <= b ? [a, b] : [b, a];
+          const rl = convertHardness(lo, from, to);
+          const rh = convertHardness(hi, from, to);
+          if (rl.ok && rh.ok && rl.source === rh.source)
+            expect(rl.value, `${lo}→${rl.value}, ${hi}→${rh.value} (${from} → ${to})`).to.be.at.most(rh.value + 1e-9);
+        },
+      ),
       { numRuns: RUNS },
     );
   });
 
   it('converting there and back through the same table gives the reading again', () => {
     fc.assert(
-      fc.property(scalePair.chain(([from, to]) => fc.tuple(fc.constant(from), fc.constant(to), finite(...RANGE[from]))), ([from, to, v]) => {
-        const there = convertHardness(v, from, to);
-        if (!there.ok) return;
-        const back = convertHardness(there.value, to, from);
-        expect(back.ok, `${v} ${from} → ${there.value} ${to} → back`).to.equal(true);
-        if (back.ok && back.source === there.source) expect(back.value).to.be.closeTo(v, 1e-6 * Math.max(1, v));
-      }),
+      fc.property(
+        scalePair.chain(([from, to]) => fc.tuple(fc.constant(from), fc.constant(to), finite(...RANGE[from]))),
+        ([from, to, v]) => {
+          const there = convertHardness(v, from, to);
+          if (!there.ok) return;
+          const back = convertHardness(there.value, to, from);
+          expect(back.ok, `${v} ${from} → ${there.value} ${to} → back`).to.equal(true);
+          if (back.ok && back.source === there.source) expect(back.value).to.be.closeTo(v, 1e-6 * Math.max(1, v));
+        },
+      ),
       { numRuns: RUNS },
     );
   });
@@ -104,15 +115,20 @@ describe('shared/hardness (properties)', () => {
     );
   });
 
-  it('toHv: null or a finite HV between the tables\' ends, and monotone where it converts', () => {
+  it("toHv: null or a finite HV between the tables' ends, and monotone where it converts", () => {
     fc.assert(
-      fc.property(fc.constantFrom<HardnessScale>('HRC', 'HRB', 'HBW'), fc.double({ min: -10, max: 1000, noNaN: true }), fc.double({ min: -10, max: 1000, noNaN: true }), (s, a, b) => {
-        const [lo, hi] = [Math.min(a, b), Math.max(a, b)];
-        const hvLo = toHv(lo, s);
-        const hvHi = toHv(hi, s);
-        for (const hv of [hvLo, hvHi]) if (hv !== null) expect(hv).to.be.within(RANGE.HV[0], RANGE.HV[1]);
-        if (hvLo !== null && hvHi !== null) expect(hvLo).to.be.at.most(hvHi + 1e-9);
-      }),
+      fc.property(
+        fc.constantFrom<HardnessScale>('HRC', 'HRB', 'HBW'),
+        fc.double({ min: -10, max: 1000, noNaN: true }),
+        fc.double({ min: -10, max: 1000, noNaN: true }),
+        (s, a, b) => {
+          const [lo, hi] = [Math.min(a, b), Math.max(a, b)];
+          const hvLo = toHv(lo, s);
+          const hvHi = toHv(hi, s);
+          for (const hv of [hvLo, hvHi]) if (hv !== null) expect(hv).to.be.within(RANGE.HV[0], RANGE.HV[1]);
+          if (hvLo !== null && hvHi !== null) expect(hvLo).to.be.at.most(hvHi + 1e-9);
+        },
+      ),
       { numRuns: RUNS },
     );
   });

@@ -1,7 +1,15 @@
 import { expect } from 'chai';
 import fc from 'fast-check';
 import type { UnitPreference } from '../../../../shared/api-types';
-import { compareVersions, contentLeafPaths, PARAMETER_FIELDS, TEXT_FIELDS, wordDiff, type ComparedVersion, type StockNames } from '../../../../shared/recipe-compare';
+import {
+  compareVersions,
+  contentLeafPaths,
+  PARAMETER_FIELDS,
+  TEXT_FIELDS,
+  wordDiff,
+  type ComparedVersion,
+  type StockNames,
+} from '../../../../shared/recipe-compare';
 import type { RecipeContent } from '../../../../shared/schemas/recipe';
 import { halfTypedContent, halfTypedPrimitiveContent, oddText, outsidePrimitive, RUNS, RUNS_HEAVY, validContent } from './arbitraries';
 
@@ -10,11 +18,40 @@ const pref = fc.constantFrom<UnitPreference>('metric', 'metric+imperial');
 
 /** The two sides of a word diff: unchanged + removed parts, unchanged + added parts. */
 const side = (parts: ReturnType<typeof wordDiff>, which: 'before' | 'after') =>
-  parts.filter((p) => (which === 'before' ? !p.added : !p.removed)).map((p) => p.value).join('');
+  parts
+    .filter((p) => (which === 'before' ? !p.added : !p.removed))
+    .map((p) => p.value)
+    .join('');
 
 /** Recipe-like text: words, numbers, punctuation, spaces and line breaks from a small vocabulary, so edits overlap. */
 const recipeText = fc
-  .array(fc.constantFrom('Clamp', 'the', 'part', 'cut', 'slowly', 'at', '3000', 'rpm', '0.30', 'mm/s', '.', ',', ' ', ' ', '  ', '\n', '\n\n', '- ', 'µm', 'Ø40', '°C', '→'), { maxLength: 60 })
+  .array(
+    fc.constantFrom(
+      'Clamp',
+      'the',
+      'part',
+      'cut',
+      'slowly',
+      'at',
+      '3000',
+      'rpm',
+      '0.30',
+      'mm/s',
+      '.',
+      ',',
+      ' ',
+      ' ',
+      '  ',
+      '\n',
+      '\n\n',
+      '- ',
+      'µm',
+      'Ø40',
+      '°C',
+      '→',
+    ),
+    { maxLength: 60 },
+  )
   .map((ws) => ws.join(''));
 /** A text and an edit of it: words inserted, deleted or replaced at a few places. */
 const textPair = fc.oneof(
@@ -36,7 +73,9 @@ function at(source: unknown, path: string): unknown {
   return path.split('.').reduce<unknown>((v, k) => (v !== null && typeof v === 'object' ? (v as Record<string, unknown>)[k] : undefined), source);
 }
 const canonical = (v: unknown): string =>
-  JSON.stringify(v ?? null, (_k, x: unknown) => (x && typeof x === 'object' && !Array.isArray(x) ? Object.fromEntries(Object.entries(x).sort(([a], [b]) => (a < b ? -1 : 1))) : x));
+  JSON.stringify(v ?? null, (_k, x: unknown) =>
+    x && typeof x === 'object' && !Array.isArray(x) ? Object.fromEntries(Object.entries(x).sort(([a], [b]) => (a < b ? -1 : 1))) : x,
+  );
 
 describe('shared/recipe-compare (properties)', () => {
   it('a word diff rebuilds both texts: unchanged + removed = before, unchanged + added = after', () => {
@@ -50,7 +89,8 @@ describe('shared/recipe-compare (properties)', () => {
           expect(p.added && p.removed).to.not.equal(true);
         }
         // Neighbours of the same kind are merged into one part.
-        for (let i = 1; i < parts.length; i++) expect([!!parts[i]!.added, !!parts[i]!.removed]).to.not.deep.equal([!!parts[i - 1]!.added, !!parts[i - 1]!.removed]);
+        for (let i = 1; i < parts.length; i++)
+          expect([!!parts[i]!.added, !!parts[i]!.removed]).to.not.deep.equal([!!parts[i - 1]!.added, !!parts[i - 1]!.removed]);
       }),
       { numRuns: RUNS },
     );
@@ -116,7 +156,11 @@ describe('shared/recipe-compare (properties)', () => {
       halfTypedPrimitiveContent as fc.Arbitrary<unknown>,
       outsidePrimitive,
       fc.jsonValue({ maxDepth: 3 }),
-      fc.dictionary(fc.constantFrom('scope', 'cutting', 'clamping', 'coolant', 'instructionsMd', 'extra'), fc.oneof(outsidePrimitive, fc.jsonValue({ maxDepth: 2 })), { noNullPrototype: true }),
+      fc.dictionary(
+        fc.constantFrom('scope', 'cutting', 'clamping', 'coolant', 'instructionsMd', 'extra'),
+        fc.oneof(outsidePrimitive, fc.jsonValue({ maxDepth: 2 })),
+        { noNullPrototype: true },
+      ),
     );
     fc.assert(
       fc.property(anyContent, anyContent, fc.oneof(fc.string(), oddText), pref, (a, b, title, p) => {

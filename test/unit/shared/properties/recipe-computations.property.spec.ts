@@ -22,7 +22,8 @@ describe('shared/recipe-computations (properties)', () => {
         expect(r.peripheralSpeedMs === null).to.equal(ctx.wheel === null);
         expect(r.capacityFits === null).to.equal(ctx.wheel === null || ctx.machine === null);
         // No time also where a feed near 5e-324 mm/s (valid: more than 0) would overflow it.
-        if (ctx.wheel === null || (c.cutting.feedMmS >= 1e-290 && (c.cutting.entryFeedMmS ?? 1) >= 1e-290)) expect(r.cutTimeS === null).to.equal(ctx.wheel === null);
+        if (ctx.wheel === null || (c.cutting.feedMmS >= 1e-290 && (c.cutting.entryFeedMmS ?? 1) >= 1e-290))
+          expect(r.cutTimeS === null).to.equal(ctx.wheel === null);
         expect(r.profile === null).to.equal(ctx.wheel === null);
         expect(r.hardness === null).to.equal(c.scope.hardness === null && !ctx.material?.hardness);
       }),
@@ -107,11 +108,17 @@ describe('shared/recipe-computations (properties)', () => {
   it('stock records holding odd numbers (0, NaN, ∞, negative) give null or finite values, never a throw', () => {
     const odd = fc.constantFrom(0, -1, NaN, Infinity, -Infinity, Number.MIN_VALUE);
     fc.assert(
-      fc.property(validContent, validContext, fc.record({ diameterMm: odd, thicknessMm: odd, maxSpeedMs: odd }, { requiredKeys: [] }), fc.record({ flangeDiameterMm: odd }, { requiredKeys: [] }), (c, ctx, w, m) => {
-        const odd: RecipeContext = { ...ctx, wheel: ctx.wheel && { ...ctx.wheel, ...w }, machine: ctx.machine && { ...ctx.machine, ...m } };
-        const r = computeRecipe(c, odd);
-        for (const [path, n] of numbersIn(r)) expect(Number.isNaN(n), `${path} = ${n}`).to.equal(false);
-      }),
+      fc.property(
+        validContent,
+        validContext,
+        fc.record({ diameterMm: odd, thicknessMm: odd, maxSpeedMs: odd }, { requiredKeys: [] }),
+        fc.record({ flangeDiameterMm: odd }, { requiredKeys: [] }),
+        (c, ctx, w, m) => {
+          const odd: RecipeContext = { ...ctx, wheel: ctx.wheel && { ...ctx.wheel, ...w }, machine: ctx.machine && { ...ctx.machine, ...m } };
+          const r = computeRecipe(c, odd);
+          for (const [path, n] of numbersIn(r)) expect(Number.isNaN(n), `${path} = ${n}`).to.equal(false);
+        },
+      ),
       { numRuns: RUNS },
     );
   });

@@ -28,7 +28,15 @@ describe('shared/ regressions found by the property specs', () => {
 
   it('contactProfile bounds its sample count (1e15 exhausted the heap) and uses the default for a non-finite one', () => {
     const bar = { shape: 'round-bar' as const, sizeMm: 40, widthMm: null, wallMm: null };
-    const setup = { motion: 'straight-plunge' as const, feedMmS: 0.5, entryFeedMmS: null, entryLengthMm: null, passes: null, wheelThicknessMm: 1.5, wheelDiameterMm: 250 };
+    const setup = {
+      motion: 'straight-plunge' as const,
+      feedMmS: 0.5,
+      entryFeedMmS: null,
+      entryLengthMm: null,
+      passes: null,
+      wheelThicknessMm: 1.5,
+      wheelDiameterMm: 250,
+    };
     expect(contactProfile(bar, setup, 1e15)).to.have.length(PROFILE_SAMPLES_MAX);
     expect(contactProfile(bar, setup, NaN)).to.have.length(PROFILE_SAMPLES);
     expect(contactProfile(bar, setup, 20001)).to.have.length(20001);

@@ -69,7 +69,14 @@ describe('shared/units (properties)', () => {
   });
 
   it('formatQuantity: a finite value gives its unit text, never "NaN" or "Infinity"', () => {
-    const unit: Record<QuantityKind, RegExp> = { length: / mm\b/, feed: / mm\/s\b/, speed: / m\/s\b/, rpm: / rpm$/, removal: / mm³\/s\b/, time: / (s|min|h)\b/ };
+    const unit: Record<QuantityKind, RegExp> = {
+      length: / mm\b/,
+      feed: / mm\/s\b/,
+      speed: / m\/s\b/,
+      rpm: / rpm$/,
+      removal: / mm³\/s\b/,
+      time: / (s|min|h)\b/,
+    };
     fc.assert(
       fc.property(finite(-1e15, 1e15), kind, pref, (v, k, p) => {
         const text = formatQuantity(v, k, p);

@@ -9,10 +9,12 @@ const nearMarking = fc.string({ unit: fc.constantFrom(...'ABCDGMNRSVabcd01234567
 
 /** The marking as a person might type it: lower case, spaces and hyphens between the parts. */
 const typed = (marking: string) =>
-  fc.tuple(fc.array(fc.constantFrom('', ' ', '-', ' - ', '\t'), { minLength: marking.length + 1, maxLength: marking.length + 1 }), fc.boolean()).map(([seps, lower]) => {
-    const s = seps.map((sep, i) => sep + (marking[i] ?? '')).join('');
-    return lower ? s.toLowerCase() : s;
-  });
+  fc
+    .tuple(fc.array(fc.constantFrom('', ' ', '-', ' - ', '\t'), { minLength: marking.length + 1, maxLength: marking.length + 1 }), fc.boolean())
+    .map(([seps, lower]) => {
+      const s = seps.map((sep, i) => sep + (marking[i] ?? '')).join('');
+      return lower ? s.toLowerCase() : s;
+    });
 
 describe('shared/wheel-spec (properties)', () => {
   it('every marking of the grammar parses, and its normalised text parses to the same specification', () => {
@@ -31,9 +33,12 @@ describe('shared/wheel-spec (properties)', () => {
 
   it('spaces, hyphens and lower case do not change what a marking means', () => {
     fc.assert(
-      fc.property(validMarking.chain((m) => fc.tuple(fc.constant(m), typed(m))), ([m, t]) => {
-        expect(parseWheelSpec(t)).to.deep.equal(parseWheelSpec(m));
-      }),
+      fc.property(
+        validMarking.chain((m) => fc.tuple(fc.constant(m), typed(m))),
+        ([m, t]) => {
+          expect(parseWheelSpec(t)).to.deep.equal(parseWheelSpec(m));
+        },
+      ),
       { numRuns: RUNS },
     );
   });
@@ -56,11 +61,14 @@ describe('shared/wheel-spec (properties)', () => {
 
   it('refuses a value that is not text with a message, rather than throwing', () => {
     fc.assert(
-      fc.property(outsideValue.filter((v) => typeof v !== 'string'), (v) => {
-        const r = parseWheelSpec(v as string);
-        expect(r.ok).to.equal(false);
-        if (!r.ok) expect(r.error).to.be.a('string').and.not.equal('');
-      }),
+      fc.property(
+        outsideValue.filter((v) => typeof v !== 'string'),
+        (v) => {
+          const r = parseWheelSpec(v as string);
+          expect(r.ok).to.equal(false);
+          if (!r.ok) expect(r.error).to.be.a('string').and.not.equal('');
+        },
+      ),
       { numRuns: RUNS },
     );
   });

@@ -10,7 +10,9 @@ import { above, anyNumber, group, hardnessWindow, oddText, orNull, outsidePrimit
 /** A lab's stock (ids 1–8) and selection table pointing at those ids and a few unknown ones. */
 const stock: fc.Arbitrary<WheelRecord[]> = fc.array(validWheel, { maxLength: 8 }).map((ws) => ws.map((w, i) => ({ ...w, id: i + 1 })));
 const rows: fc.Arbitrary<SelectionRow[]> = fc
-  .array(fc.record({ group, hardness: orNull(hardnessWindow), wheelId: fc.integer({ min: 1, max: 10 }), note: fc.string({ maxLength: 20 }) }), { maxLength: 12 })
+  .array(fc.record({ group, hardness: orNull(hardnessWindow), wheelId: fc.integer({ min: 1, max: 10 }), note: fc.string({ maxLength: 20 }) }), {
+    maxLength: 12,
+  })
   .map((rs) => rs.map((r, i) => ({ ...r, id: i + 1 })));
 const hardness: fc.Arbitrary<HardnessValue | null> = orNull(fc.record({ value: above(0, 3000), scale }));
 
@@ -26,14 +28,16 @@ describe('shared/wheel-suggestion (properties)', () => {
           expect(s.wheel.archived).to.equal(false);
           expect(s.row.group).to.equal(g);
           expect(s.row.wheelId).to.equal(s.wheel.id);
-          expect(s.reason).to.be.a('string').and.not.match(/NaN|undefined|Infinity/);
+          expect(s.reason)
+            .to.be.a('string')
+            .and.not.match(/NaN|undefined|Infinity/);
         }
       }),
       { numRuns: RUNS },
     );
   });
 
-  it('a band on the hardness\'s own scale is offered only when it contains the hardness; banded matches come before group-wide rows', () => {
+  it("a band on the hardness's own scale is offered only when it contains the hardness; banded matches come before group-wide rows", () => {
     fc.assert(
       fc.property(group, fc.record({ value: above(0, 3000), scale }), rows, stock, (g, h, rs, ws) => {
         const out = suggestWheels(g, h, rs, ws);
@@ -61,7 +65,16 @@ describe('shared/wheel-suggestion (properties)', () => {
 
   it('never throws on an odd hardness (NaN, ∞, negative, a string) or odd band bounds', () => {
     const oddHardness = fc.record({ value: fc.oneof(anyNumber, outsidePrimitive), scale: fc.oneof(scale, outsidePrimitive) });
-    const oddRows = fc.array(fc.record({ id: fc.nat(), group, hardness: orNull(fc.record({ min: anyNumber, max: anyNumber, scale })), wheelId: fc.integer({ min: 1, max: 10 }), note: oddText }), { maxLength: 6 });
+    const oddRows = fc.array(
+      fc.record({
+        id: fc.nat(),
+        group,
+        hardness: orNull(fc.record({ min: anyNumber, max: anyNumber, scale })),
+        wheelId: fc.integer({ min: 1, max: 10 }),
+        note: oddText,
+      }),
+      { maxLength: 6 },
+    );
     fc.assert(
       fc.property(group, oddHardness, oddRows, stock, (g, h, rs, ws) => {
         suggestWheels(g, h as HardnessValue, rs, ws);
@@ -70,7 +83,7 @@ describe('shared/wheel-suggestion (properties)', () => {
     );
   });
 
-  it('the starter table\'s bands are valid windows, and a stocked wheel matches a starter row only with its kind and abrasive', () => {
+  it("the starter table's bands are valid windows, and a stocked wheel matches a starter row only with its kind and abrasive", () => {
     for (const row of STARTER_SELECTION) if (row.hardness) expect(hardnessWindowSchema.safeParse(row.hardness).success).to.equal(true);
     fc.assert(
       fc.property(fc.constantFrom(...STARTER_SELECTION), fc.constantFrom(...WHEEL_KINDS), fc.oneof(validMarking, oddText), (row, kind, specification) => {

@@ -15,7 +15,9 @@ describe('shared/schemas/users', () => {
       'roles.0',
       'temporaryPassword',
     ]);
-    expect(paths(createUserBody.safeParse({ username: 'new.person', displayName: 'N', roles: ['admin', 'admin'], temporaryPassword: 'long-enough-1' }))).to.deep.equal(['roles']);
+    expect(
+      paths(createUserBody.safeParse({ username: 'new.person', displayName: 'N', roles: ['admin', 'admin'], temporaryPassword: 'long-enough-1' })),
+    ).to.deep.equal(['roles']);
   });
 
   it('updateUserBody: something must change; the username cannot', () => {

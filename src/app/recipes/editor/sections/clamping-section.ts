@@ -26,7 +26,12 @@ import { offeredOptions } from './offered-options';
         <mat-select id="f-clamping-method" [formControl]="c.method">
           <mat-option [value]="null">Not chosen yet</mat-option>
           @for (o of options(); track o.value) {
-            <mat-option [value]="o.value">{{ o.label }}@if (!o.offered) { — not on this machine }</mat-option>
+            <mat-option [value]="o.value"
+              >{{ o.label }}
+              @if (!o.offered) {
+                — not on this machine
+              }
+            </mat-option>
           }
         </mat-select>
         @if (machine()) {
@@ -70,7 +75,5 @@ export class ClampingSection {
 
   protected readonly controlMessage = controlMessage;
 
-  protected readonly options = computed(() =>
-    offeredOptions(CLAMPING_METHODS, this.machine()?.clampingMethods, this.value().method, CLAMPING_METHOD_LABELS),
-  );
+  protected readonly options = computed(() => offeredOptions(CLAMPING_METHODS, this.machine()?.clampingMethods, this.value().method, CLAMPING_METHOD_LABELS));
 }

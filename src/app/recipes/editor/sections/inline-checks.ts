@@ -10,7 +10,9 @@ import type { CheckResult } from '@shared/recipe-checks';
     @for (check of checks() ?? []; track check.id + check.path) {
       <p class="kb-inline-check" [class.kb-inline-blocker]="check.severity === 'blocker'" [attr.data-inline-check]="check.id">
         <mat-icon aria-hidden="true">{{ check.severity === 'blocker' ? 'block' : 'warning' }}</mat-icon>
-        <span><strong>{{ check.severity === 'blocker' ? 'Blocker' : 'Warning' }}:</strong> {{ check.message }}</span>
+        <span
+          ><strong>{{ check.severity === 'blocker' ? 'Blocker' : 'Warning' }}:</strong> {{ check.message }}</span
+        >
       </p>
     }
   `,

@@ -7,15 +7,7 @@ import { MatRadioModule } from '@angular/material/radio';
 import { MatSelectModule } from '@angular/material/select';
 import type { CheckResult } from '@shared/recipe-checks';
 import type { MaterialRecord } from '@shared/stock-types';
-import {
-  CUT_ORIENTATIONS,
-  CUT_ORIENTATION_LABELS,
-  HARDNESS_SCALES,
-  MATERIAL_GROUPS,
-  MATERIAL_GROUP_LABELS,
-  SHAPES,
-  SHAPE_LABELS,
-} from '@shared/vocabulary';
+import { CUT_ORIENTATIONS, CUT_ORIENTATION_LABELS, HARDNESS_SCALES, MATERIAL_GROUPS, MATERIAL_GROUP_LABELS, SHAPES, SHAPE_LABELS } from '@shared/vocabulary';
 import { controlMessage } from '../../../core/forms/control-message';
 import type { FormContent, ScopeGroup } from '../recipe-form';
 import { imperialHint } from './imperial-hint';

@@ -4,7 +4,9 @@ import { keptWordDiff } from '../../../../../server/services/recipes/text-diff-m
 
 /** Numbered steps; `variant` rewords every third (as a reviewer's edit would). */
 const steps = (variant: number, n = 60) =>
-  Array.from({ length: n }, (_, i) => (variant && i % 3 === 0 ? `${i + 1}. Stop the feed after ${i * 2} mm (v${variant}).` : `${i + 1}. Keep the feed steady through section ${i + 1}.`)).join('\n');
+  Array.from({ length: n }, (_, i) =>
+    variant && i % 3 === 0 ? `${i + 1}. Stop the feed after ${i * 2} mm (v${variant}).` : `${i + 1}. Keep the feed steady through section ${i + 1}.`,
+  ).join('\n');
 
 describe('Kept word diffs', () => {
   it('gives exactly what wordDiff gives, the first time and later', () => {
@@ -15,8 +17,18 @@ describe('Kept word diffs', () => {
     expect(keptWordDiff(before, after)).to.deep.equal(fresh);
     // And both sides rebuild from the parts: unchanged + removed = before, unchanged + added = after.
     const parts = keptWordDiff(before, after);
-    expect(parts.filter((p) => !p.added).map((p) => p.value).join('')).to.equal(before);
-    expect(parts.filter((p) => !p.removed).map((p) => p.value).join('')).to.equal(after);
+    expect(
+      parts
+        .filter((p) => !p.added)
+        .map((p) => p.value)
+        .join(''),
+    ).to.equal(before);
+    expect(
+      parts
+        .filter((p) => !p.removed)
+        .map((p) => p.value)
+        .join(''),
+    ).to.equal(after);
   });
 
   it('answers a repeated pair from the kept result, which no caller can change', () => {
