@@ -45,3 +45,14 @@ export function speedMargin(speedMs: number, maxSpeedMs: number): SpeedMargin {
   const marginMs = maxSpeedMs - speedMs;
   return { marginMs, marginPct: (marginMs / maxSpeedMs) * 100 };
 }
+
+/**
+ * A wheel's maximum operating speed in both units, from the one marked on it: a marking in
+ * m/s gives the rpm at the new diameter, a marking in rpm gives the m/s (exact, unrounded:
+ * the figure a check compares against is the marked one, converted without loss).
+ */
+export function markedSpeedPair(diameterMm: number, markedIn: 'm/s' | 'rpm', marked: number): { maxSpeedMs: number; maxSpeedRpm: number } {
+  return markedIn === 'm/s'
+    ? { maxSpeedMs: marked, maxSpeedRpm: rpmForSpeed(diameterMm, marked) }
+    : { maxSpeedMs: peripheralSpeedMs(diameterMm, marked), maxSpeedRpm: marked };
+}

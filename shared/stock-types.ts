@@ -11,7 +11,13 @@ interface Stored {
 }
 
 export type MaterialRecord = MaterialBody & Stored;
-export type WheelRecord = WheelBody & Stored;
+/** A wheel as stored: both speed figures are known (one as marked, the other computed from the diameter). */
+export type WheelRecord = Omit<WheelBody, 'maxSpeedMs' | 'maxSpeedRpm'> & {
+  /** Maximum operating speed, m/s. */
+  maxSpeedMs: number;
+  /** Maximum operating speed at the new diameter, rpm. */
+  maxSpeedRpm: number;
+} & Stored;
 export type MachineRecord = MachineBody & Stored;
 export type SelectionRow = SelectionRowBody & { id: number };
 

@@ -163,3 +163,33 @@ export const CUT_OUTCOME_LABELS: Record<CutOutcome, string> = {
   'wheel-failure': 'Wheel broke or glazed',
   other: 'Other',
 };
+
+/**
+ * How the wheel and the part meet: the wheel comes down into a clamped part (chop), or the
+ * part is fed horizontally into the wheel on a moving table. The capacity depends on it.
+ */
+export const FEED_DIRECTIONS = ['wheel-down', 'part-horizontal'] as const;
+export type FeedDirection = (typeof FEED_DIRECTIONS)[number];
+
+export const FEED_DIRECTION_LABELS: Record<FeedDirection, string> = {
+  'wheel-down': 'Wheel moves down into the part',
+  'part-horizontal': 'Part is fed horizontally into the wheel',
+};
+
+/** The unit a wheel's maximum operating speed is marked in (some markets mark rpm). */
+export const SPEED_MARKINGS = ['m/s', 'rpm'] as const;
+export type SpeedMarking = (typeof SPEED_MARKINGS)[number];
+
+/**
+ * Restrictions of use marked on a wheel or its label (restriction marks of EN 12413 and
+ * similar markings, in our own words). Like the marked speed, they bind the recipe.
+ */
+export const WHEEL_RESTRICTIONS = ['wet-use-only', 'no-side-grinding', 'enclosed-machine-only', 'no-hand-held-use'] as const;
+export type WheelRestriction = (typeof WHEEL_RESTRICTIONS)[number];
+
+export const WHEEL_RESTRICTION_LABELS: Record<WheelRestriction, string> = {
+  'wet-use-only': 'For wet use only',
+  'no-side-grinding': 'Not for side grinding',
+  'enclosed-machine-only': 'Only on a fully enclosed machine',
+  'no-hand-held-use': 'Not for hand-held use',
+};

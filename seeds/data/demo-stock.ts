@@ -2,7 +2,8 @@
  * The invented lab's stock: three saws, thirteen wheels, fifteen materials. Names are made
  * up; wheels are described by their ISO 525-style marking, materials by EN or UNS numbers.
  * Values are realistic for the demo (typical lab sizes, speeds and feeds; common practice)
- * — invented, not measured. Recipes refer to these records by name.
+ * — invented, not measured (motor powers are typical of each machine class). Recipes refer
+ * to these records by name.
  */
 import type { z } from 'zod';
 import type { MachineBody, materialBody, WheelBody } from '../../shared/schemas/stock';
@@ -23,6 +24,10 @@ export const DEMO_MACHINES: MachineBody[] = [
     feedMinMmS: 0.02,
     feedMaxMmS: 2.0,
     feedControl: 'automatic',
+    feedDirection: 'wheel-down',
+    spindleLimitRpm: null,
+    spindleLimitSetBy: '',
+    motorPowerKw: 5.5,
     cutMotions: ['straight-plunge', 'pulsed-plunge', 'rocking', 'traverse-pass', 'stepped-depth', 'turning-specimen'],
     clampingMethods: ['vise-backstop', 'top-clamp', 'v-block', 'fixture-plate'],
     notes: 'Large parts and long bars. Table with T-slots; clamp both sides of the cut.',
@@ -39,6 +44,10 @@ export const DEMO_MACHINES: MachineBody[] = [
     feedMinMmS: 0.02,
     feedMaxMmS: 1.5,
     feedControl: 'automatic',
+    feedDirection: 'wheel-down',
+    spindleLimitRpm: null,
+    spindleLimitSetBy: '',
+    motorPowerKw: 2.2,
     cutMotions: ['straight-plunge', 'pulsed-plunge', 'rocking'],
     clampingMethods: ['vise-backstop', 'top-clamp', 'v-block', 'small-part-gripper'],
     notes: 'Everyday sectioning of bars, tubes and small castings.',
@@ -55,6 +64,10 @@ export const DEMO_MACHINES: MachineBody[] = [
     feedMinMmS: 0.005,
     feedMaxMmS: 0.2,
     feedControl: 'automatic',
+    feedDirection: 'wheel-down',
+    spindleLimitRpm: null,
+    spindleLimitSetBy: '',
+    motorPowerKw: 0.75,
     cutMotions: ['straight-plunge', 'pulsed-plunge', 'turning-specimen', 'stepped-depth'],
     clampingMethods: ['vise-backstop', 'adhesive-wax-mount', 'small-part-gripper', 'fixture-plate', 'v-block'],
     notes: 'Small, brittle and delicate specimens: carbides, ceramics, composites, electronics.',
@@ -68,8 +81,12 @@ const bonded = (name: string, specification: string, diameterMm: number, thickne
   diameterMm,
   thicknessMm,
   boreMm: 32,
+  maxSpeedMarkedIn: 'm/s',
   maxSpeedMs,
+  maxSpeedRpm: null,
   dryAllowed: false,
+  restrictions: [],
+  minUsableDiameterMm: null,
   notes,
 });
 
@@ -80,8 +97,12 @@ const rimWheel = (name: string, specification: string, thicknessMm: number, dryA
   diameterMm: 150,
   thicknessMm,
   boreMm: 12.7,
+  maxSpeedMarkedIn: 'm/s',
   maxSpeedMs: 50,
+  maxSpeedRpm: null,
   dryAllowed,
+  restrictions: [],
+  minUsableDiameterMm: null,
   notes,
 });
 

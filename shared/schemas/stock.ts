@@ -3,7 +3,17 @@
  * Authors and admins edit; everyone signed in reads. Stored values are metric.
  */
 import { z } from 'zod';
-import { CLAMPING_METHODS, CUT_MOTIONS, HARDNESS_SCALES, MACHINE_CLASSES, MATERIAL_GROUPS, WHEEL_KINDS } from '../vocabulary';
+import {
+  CLAMPING_METHODS,
+  CUT_MOTIONS,
+  FEED_DIRECTIONS,
+  HARDNESS_SCALES,
+  MACHINE_CLASSES,
+  MATERIAL_GROUPS,
+  SPEED_MARKINGS,
+  WHEEL_KINDS,
+  WHEEL_RESTRICTIONS,
+} from '../vocabulary';
 import { quantity, refId, requiredText, text } from './numbers';
 
 export const materialGroup = z.enum(MATERIAL_GROUPS, { error: 'Choose a material group.' });
@@ -46,20 +56,41 @@ export const materialBody = z
   .refine((m) => !m.caseHardened || m.caseDepthMm !== null, { path: ['caseDepthMm'], message: 'Give the case depth of a case-hardened material.' });
 export type MaterialBody = z.infer<typeof materialBody>;
 
-export const wheelBody = z.strictObject({
-  name: requiredText('Name', 120),
-  kind: z.enum(WHEEL_KINDS, { error: 'Choose bonded or rim wheel.' }),
-  /** ISO 525-style marking, e.g. "A60K5B" (abrasive, grit, grade, structure, bond); parsed by wheel-spec.ts. */
-  specification: requiredText('Specification', 40),
-  diameterMm: quantity('Diameter', 'mm', 10, 1000),
-  thicknessMm: quantity('Thickness', 'mm', 0.05, 20),
-  boreMm: quantity('Bore', 'mm', 1, 100),
-  /** Maximum operating speed marked on the wheel (m/s). */
-  maxSpeedMs: quantity('Marked maximum speed', 'm/s', 1, 200),
-  /** Whether the wheel's maker allows dry cutting. */
-  dryAllowed: z.boolean().default(false),
-  notes: text('Notes', 2000).default(''),
-});
+export const wheelBody = z
+  .strictObject({
+    name: requiredText('Name', 120),
+    kind: z.enum(WHEEL_KINDS, { error: 'Choose bonded or rim wheel.' }),
+    /** ISO 525-style marking, e.g. "A60K5B" (abrasive, grit, grade, structure, bond); parsed by wheel-spec.ts. */
+    specification: requiredText('Specification', 40),
+    diameterMm: quantity('Diameter', 'mm', 10, 1000),
+    thicknessMm: quantity('Thickness', 'mm', 0.05, 20),
+    boreMm: quantity('Bore', 'mm', 1, 100),
+    /** The unit the maximum operating speed is marked in on the wheel; the other value is computed from the diameter. */
+    maxSpeedMarkedIn: z.enum(SPEED_MARKINGS, { error: 'Say whether the wheel is marked in m/s or rpm.' }).default('m/s'),
+    /** Maximum operating speed (m/s): as marked, or computed from a marking in rpm. */
+    maxSpeedMs: quantity('Marked maximum speed', 'm/s', 1, 200).nullable().default(null),
+    /** Maximum operating speed (rpm): as marked, or computed from a marking in m/s. */
+    maxSpeedRpm: quantity('Marked maximum speed', 'rpm', 1, 1_000_000).nullable().default(null),
+    /** Whether the wheel's maker allows dry cutting. */
+    dryAllowed: z.boolean().default(false),
+    /** Restrictions of use marked on the wheel or its label. */
+    restrictions: z
+      .array(z.enum(WHEEL_RESTRICTIONS, { error: 'Unknown restriction mark.' }))
+      .max(WHEEL_RESTRICTIONS.length)
+      .refine((r) => new Set(r).size === r.length, 'Give each restriction once.')
+      .default([]),
+    /** Smallest diameter the wheel is used down to (mm); null = the lab's default share of the new diameter. */
+    minUsableDiameterMm: quantity('Smallest usable diameter', 'mm', 10, 1000).nullable().default(null),
+    notes: text('Notes', 2000).default(''),
+  })
+  .refine((w) => (w.maxSpeedMarkedIn === 'm/s' ? w.maxSpeedMs !== null : w.maxSpeedRpm !== null), {
+    path: ['maxSpeedMs'],
+    message: 'Give the maximum operating speed marked on the wheel.',
+  })
+  .refine((w) => w.minUsableDiameterMm === null || w.minUsableDiameterMm < w.diameterMm, {
+    path: ['minUsableDiameterMm'],
+    message: 'The smallest usable diameter must be below the new diameter.',
+  });
 export type WheelBody = z.infer<typeof wheelBody>;
 
 export const machineBody = z
@@ -76,6 +107,14 @@ export const machineBody = z
     feedMinMmS: quantity('Lowest feed', 'mm/s', 0, 50),
     feedMaxMmS: quantity('Highest feed', 'mm/s', 0, 50),
     feedControl: z.enum(['manual', 'automatic'], { error: 'Feed control must be manual or automatic.' }),
+    /** Whether the wheel comes down into the part or the part is fed horizontally into the wheel. */
+    feedDirection: z.enum(FEED_DIRECTIONS, { error: 'Choose how the wheel and the part meet.' }).default('wheel-down'),
+    /** A speed limit set on the spindle (rpm) below its top speed, e.g. by a limiter or a locked setting; null = none. */
+    spindleLimitRpm: quantity('Spindle speed limit', 'rpm', 1, 30000).nullable().default(null),
+    /** Who set that limit, and on what record (e.g. "Maintenance, work order 2291"). */
+    spindleLimitSetBy: text('Set by', 200).default(''),
+    /** Rated power of the spindle motor, kW; null when not known. */
+    motorPowerKw: quantity('Motor power', 'kW', 0.01, 500).nullable().default(null),
     cutMotions: z.array(z.enum(CUT_MOTIONS)).min(1, 'Choose at least one cut motion.'),
     clampingMethods: z.array(z.enum(CLAMPING_METHODS)).min(1, 'Choose at least one clamping method.'),
     notes: text('Notes', 2000).default(''),
@@ -86,7 +125,15 @@ export const machineBody = z
   })
   .refine((m) => m.rpmMin <= m.rpmMax, { path: ['rpmMax'], message: 'Highest speed must not be below the lowest.' })
   .refine((m) => m.feedMinMmS <= m.feedMaxMmS, { path: ['feedMaxMmS'], message: 'Highest feed must not be below the lowest.' })
-  .refine((m) => m.flangeDiameterMm < m.wheelDiameterMaxMm, { path: ['flangeDiameterMm'], message: 'Flange must be smaller than the largest wheel.' });
+  .refine((m) => m.flangeDiameterMm < m.wheelDiameterMaxMm, { path: ['flangeDiameterMm'], message: 'Flange must be smaller than the largest wheel.' })
+  .refine((m) => m.spindleLimitRpm === null || m.spindleLimitSetBy.trim() !== '', {
+    path: ['spindleLimitSetBy'],
+    message: 'Say who set the spindle speed limit.',
+  })
+  .refine((m) => m.spindleLimitRpm === null || m.spindleLimitRpm <= m.rpmMax, {
+    path: ['spindleLimitRpm'],
+    message: 'A speed limit must not be above the highest speed.',
+  });
 export type MachineBody = z.infer<typeof machineBody>;
 
 /** One row of the lab's wheel-selection table: material group × hardness band → wheel. */

@@ -5,6 +5,7 @@
  */
 import type { HardnessScale, MaterialGroup } from '../../../shared/vocabulary';
 import type { MachineBody, MaterialBody, WheelBody } from '../../../shared/schemas/stock';
+import { markedSpeedPair } from '../../../shared/peripheral-speed';
 import type { MachineRecord, MaterialRecord, WheelRecord } from '../../../shared/stock-types';
 import { fromJsonColumn } from '../../data/json-column';
 import type { StockRowBase, StockTable } from '../../data/stock';
@@ -33,7 +34,11 @@ export interface WheelRow extends StockRowBase {
   thickness_mm: number;
   bore_mm: number;
   max_speed_ms: number;
+  max_speed_rpm: number;
+  max_speed_marked_in: WheelBody['maxSpeedMarkedIn'];
   dry_allowed: number | boolean;
+  restrictions: unknown;
+  min_usable_diameter_mm: number | null;
   notes: string;
 }
 
@@ -48,6 +53,10 @@ export interface MachineRow extends StockRowBase {
   feed_min_mm_s: number;
   feed_max_mm_s: number;
   feed_control: MachineBody['feedControl'];
+  feed_direction: MachineBody['feedDirection'];
+  spindle_limit_rpm: number | null;
+  spindle_limit_set_by: string;
+  motor_power_kw: number | null;
   cut_motions: unknown;
   clamping_methods: unknown;
   notes: string;
@@ -99,14 +108,21 @@ export function toWheelRecord(row: WheelRow): WheelRecord {
     diameterMm: row.diameter_mm,
     thicknessMm: row.thickness_mm,
     boreMm: row.bore_mm,
+    maxSpeedMarkedIn: row.max_speed_marked_in,
     maxSpeedMs: row.max_speed_ms,
+    maxSpeedRpm: row.max_speed_rpm,
     dryAllowed: Boolean(row.dry_allowed),
+    restrictions: fromJsonColumn<WheelRecord['restrictions']>(row.restrictions),
+    minUsableDiameterMm: row.min_usable_diameter_mm,
     notes: row.notes,
     ...stored(row),
   };
 }
 
 export function wheelValues(body: WheelBody): Record<string, unknown> {
+  // The schema guarantees the marked figure; the other one follows from the diameter.
+  const marked = body.maxSpeedMarkedIn === 'm/s' ? body.maxSpeedMs! : body.maxSpeedRpm!;
+  const speed = markedSpeedPair(body.diameterMm, body.maxSpeedMarkedIn, marked);
   return {
     name: body.name,
     kind: body.kind,
@@ -114,8 +130,12 @@ export function wheelValues(body: WheelBody): Record<string, unknown> {
     diameter_mm: body.diameterMm,
     thickness_mm: body.thicknessMm,
     bore_mm: body.boreMm,
-    max_speed_ms: body.maxSpeedMs,
+    max_speed_marked_in: body.maxSpeedMarkedIn,
+    max_speed_ms: speed.maxSpeedMs,
+    max_speed_rpm: speed.maxSpeedRpm,
     dry_allowed: body.dryAllowed,
+    restrictions: JSON.stringify(body.restrictions),
+    min_usable_diameter_mm: body.minUsableDiameterMm,
     notes: body.notes,
   };
 }
@@ -132,6 +152,10 @@ export function toMachineRecord(row: MachineRow): MachineRecord {
     feedMinMmS: row.feed_min_mm_s,
     feedMaxMmS: row.feed_max_mm_s,
     feedControl: row.feed_control,
+    feedDirection: row.feed_direction,
+    spindleLimitRpm: row.spindle_limit_rpm,
+    spindleLimitSetBy: row.spindle_limit_set_by,
+    motorPowerKw: row.motor_power_kw,
     cutMotions: fromJsonColumn<MachineRecord['cutMotions']>(row.cut_motions),
     clampingMethods: fromJsonColumn<MachineRecord['clampingMethods']>(row.clamping_methods),
     notes: row.notes,
@@ -151,6 +175,10 @@ export function machineValues(body: MachineBody): Record<string, unknown> {
     feed_min_mm_s: body.feedMinMmS,
     feed_max_mm_s: body.feedMaxMmS,
     feed_control: body.feedControl,
+    feed_direction: body.feedDirection,
+    spindle_limit_rpm: body.spindleLimitRpm,
+    spindle_limit_set_by: body.spindleLimitSetBy,
+    motor_power_kw: body.motorPowerKw,
     cut_motions: JSON.stringify(body.cutMotions),
     clamping_methods: JSON.stringify(body.clampingMethods),
     notes: body.notes,

@@ -14,6 +14,9 @@ import {
   CUT_MOTION_LABELS,
   type ClampingMethod,
   type CutMotion,
+  FEED_DIRECTIONS,
+  FEED_DIRECTION_LABELS,
+  type FeedDirection,
   MACHINE_CLASSES,
   MACHINE_CLASS_LABELS,
   type MachineClass,
@@ -44,8 +47,9 @@ export class MachineFormDialog extends StockFormDialog<MachineRecord> {
   protected readonly classes = MACHINE_CLASSES.map((id) => ({ id, label: MACHINE_CLASS_LABELS[id] }));
   protected readonly motions = CUT_MOTIONS.map((id) => ({ id, label: CUT_MOTION_LABELS[id] }));
   protected readonly clampings = CLAMPING_METHODS.map((id) => ({ id, label: CLAMPING_METHOD_LABELS[id] }));
+  protected readonly directions = FEED_DIRECTIONS.map((id) => ({ id, label: FEED_DIRECTION_LABELS[id] }));
 
-  private number(value: number | undefined, schema: (typeof fields)[keyof typeof fields]) {
+  private number(value: number | null | undefined, schema: (typeof fields)[keyof typeof fields]) {
     return this.fb.control<number | null>(value ?? null, zodValidator(schema));
   }
 
@@ -60,6 +64,10 @@ export class MachineFormDialog extends StockFormDialog<MachineRecord> {
     feedMinMmS: this.number(this.machine?.feedMinMmS, fields.feedMinMmS),
     feedMaxMmS: this.number(this.machine?.feedMaxMmS, fields.feedMaxMmS),
     feedControl: this.fb.control<'manual' | 'automatic'>(this.machine?.feedControl ?? 'automatic'),
+    feedDirection: this.fb.control<FeedDirection>(this.machine?.feedDirection ?? 'wheel-down'),
+    spindleLimitRpm: this.number(this.machine?.spindleLimitRpm, fields.spindleLimitRpm),
+    spindleLimitSetBy: [this.machine?.spindleLimitSetBy ?? '', zodValidator(fields.spindleLimitSetBy)],
+    motorPowerKw: this.number(this.machine?.motorPowerKw, fields.motorPowerKw),
     cutMotions: this.fb.control<CutMotion[]>(this.machine?.cutMotions ?? [], zodValidator(fields.cutMotions)),
     clampingMethods: this.fb.control<ClampingMethod[]>(this.machine?.clampingMethods ?? [], zodValidator(fields.clampingMethods)),
     notes: [this.machine?.notes ?? '', zodValidator(fields.notes)],

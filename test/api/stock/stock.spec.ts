@@ -81,8 +81,14 @@ describe('Stock: materials, wheels, machines', () => {
         .db('trail_events')
         .where({ event_type: 'wheel.updated', entity_id: String(created.body.id) })
         .first();
-      expect(asJson(event.before_json)).to.deep.equal({ maxSpeedMs: 63, notes: '' });
-      expect(asJson(event.after_json)).to.deep.equal({ maxSpeedMs: 80, notes: 'Re-marked' });
+      // The speed in rpm at the new diameter follows the marked m/s: 60 000·v / (π·250 mm), computed by hand.
+      const before = asJson(event.before_json) as Record<string, number | string>;
+      const after = asJson(event.after_json) as Record<string, number | string>;
+      expect(Object.keys(before).sort()).to.deep.equal(['maxSpeedMs', 'maxSpeedRpm', 'notes']);
+      expect(before).to.include({ maxSpeedMs: 63, notes: '' });
+      expect(before['maxSpeedRpm']).to.be.closeTo(4812.845, 1e-3);
+      expect(after).to.include({ maxSpeedMs: 80, notes: 'Re-marked' });
+      expect(after['maxSpeedRpm']).to.be.closeTo(6111.55, 1e-3);
     });
 
     it('answers 404 for an unknown id and 400 for a non-number id', async () => {
@@ -95,6 +101,58 @@ describe('Stock: materials, wheels, machines', () => {
     it('lets only authors and admins edit', async () => {
       const res = await operator.agent.post('/api/materials').set(CSRF_HEADER, operator.csrf).send(materialInput());
       expect(res.status).to.equal(403);
+    });
+  });
+
+  describe('markings and machine limits', () => {
+    it('stores a wheel marked in rpm with its speed in m/s computed from the diameter', async () => {
+      // v = π·D·n / 60 000, computed by hand: 230 mm at 6600 rpm → 79.482 m/s.
+      const res = await post(
+        '/api/wheels',
+        wheelInput({ name: 'Marked in rpm', diameterMm: 230, maxSpeedMarkedIn: 'rpm', maxSpeedMs: null, maxSpeedRpm: 6600 }),
+      );
+      expect(res.status, JSON.stringify(res.body)).to.equal(201);
+      expect(res.body).to.include({ maxSpeedMarkedIn: 'rpm', maxSpeedRpm: 6600 });
+      expect(res.body.maxSpeedMs).to.be.closeTo(79.482, 1e-3);
+    });
+
+    it('keeps restriction marks and the smallest usable diameter, and refuses a repeated mark', async () => {
+      const res = await post('/api/wheels', wheelInput({ name: 'Wet only', restrictions: ['wet-use-only'], minUsableDiameterMm: 180 }));
+      expect(res.status, JSON.stringify(res.body)).to.equal(201);
+      expect(res.body).to.deep.include({ restrictions: ['wet-use-only'], minUsableDiameterMm: 180 });
+      const twice = await post('/api/wheels', wheelInput({ name: 'Twice', restrictions: ['wet-use-only', 'wet-use-only'] }));
+      expect(twice.status).to.equal(400);
+      expect(twice.body.errors.map((e: { path: string }) => e.path)).to.include('restrictions');
+      const worn = await post('/api/wheels', wheelInput({ name: 'Worn above new', minUsableDiameterMm: 260 }));
+      expect(worn.status).to.equal(400);
+      expect(worn.body.errors.map((e: { path: string }) => e.path)).to.include('minUsableDiameterMm');
+    });
+
+    it('refuses a wheel without its marked speed in the unit it says', async () => {
+      const res = await post('/api/wheels', wheelInput({ name: 'No rpm', maxSpeedMarkedIn: 'rpm', maxSpeedMs: 63, maxSpeedRpm: null }));
+      expect(res.status).to.equal(400);
+      expect(res.body.errors.map((e: { path: string }) => e.path)).to.include('maxSpeedMs');
+    });
+
+    it('asks who set a spindle speed limit, and keeps the limit, the feed direction and the motor power', async () => {
+      const missing = await post('/api/machines', machineInput({ name: 'Limited', spindleLimitRpm: 2500 }));
+      expect(missing.status).to.equal(400);
+      expect(missing.body.errors.map((e: { path: string }) => e.path)).to.include('spindleLimitSetBy');
+      const above = await post('/api/machines', machineInput({ name: 'Limited', spindleLimitRpm: 3500, spindleLimitSetBy: 'Maintenance' }));
+      expect(above.status).to.equal(400);
+      expect(above.body.errors.map((e: { path: string }) => e.path)).to.include('spindleLimitRpm');
+      const ok = await post(
+        '/api/machines',
+        machineInput({
+          name: 'Limited',
+          spindleLimitRpm: 2500,
+          spindleLimitSetBy: 'Maintenance, work order 17',
+          feedDirection: 'part-horizontal',
+          motorPowerKw: 4,
+        }),
+      );
+      expect(ok.status, JSON.stringify(ok.body)).to.equal(201);
+      expect(ok.body).to.include({ spindleLimitRpm: 2500, spindleLimitSetBy: 'Maintenance, work order 17', feedDirection: 'part-horizontal', motorPowerKw: 4 });
     });
   });
 

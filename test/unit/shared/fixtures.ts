@@ -1,12 +1,14 @@
 /** Small, invented stock and recipe fixtures for the shared computation and check specs. */
+import { markedSpeedPair } from '../../../shared/peripheral-speed';
 import type { RecipeContext } from '../../../shared/recipe-context';
 import type { RecipeContent } from '../../../shared/schemas/recipe';
 import type { MachineRecord, MaterialRecord, WheelRecord } from '../../../shared/stock-types';
 
 const stored = { archived: false, updatedAt: '2025-01-01T00:00:00Z', notes: '' };
 
+/** A wheel record; its speed in rpm follows from the (possibly overridden) m/s and diameter, as the server stores it. */
 export function wheel(over: Partial<WheelRecord> = {}): WheelRecord {
-  return {
+  const w: Omit<WheelRecord, 'maxSpeedRpm'> & Partial<WheelRecord> = {
     id: 1,
     name: 'Alumina 250',
     kind: 'bonded',
@@ -14,11 +16,15 @@ export function wheel(over: Partial<WheelRecord> = {}): WheelRecord {
     diameterMm: 250,
     thicknessMm: 1.5,
     boreMm: 32,
+    maxSpeedMarkedIn: 'm/s',
     maxSpeedMs: 80,
     dryAllowed: false,
+    restrictions: [],
+    minUsableDiameterMm: null,
     ...stored,
     ...over,
   };
+  return { maxSpeedRpm: markedSpeedPair(w.diameterMm, 'm/s', w.maxSpeedMs).maxSpeedRpm, ...w };
 }
 
 export function rimWheel(over: Partial<WheelRecord> = {}): WheelRecord {
@@ -48,6 +54,10 @@ export function machine(over: Partial<MachineRecord> = {}): MachineRecord {
     feedMinMmS: 0.02,
     feedMaxMmS: 2,
     feedControl: 'automatic',
+    feedDirection: 'wheel-down',
+    spindleLimitRpm: null,
+    spindleLimitSetBy: '',
+    motorPowerKw: null,
     cutMotions: ['straight-plunge', 'pulsed-plunge', 'rocking'],
     clampingMethods: ['vise-backstop', 'v-block'],
     ...stored,

@@ -1,5 +1,5 @@
 import { expect } from 'chai';
-import { maxRpmForWheel, peripheralSpeedMs, rpmForSpeed, speedMargin, toFtPerMin } from '../../../shared/peripheral-speed';
+import { markedSpeedPair, maxRpmForWheel, peripheralSpeedMs, rpmForSpeed, speedMargin, toFtPerMin } from '../../../shared/peripheral-speed';
 
 describe('shared/peripheral-speed', () => {
   // Worked examples computed by hand: v = π·D·n / 60 000 m/s, then × 60 / 0.3048 for ft/min.
@@ -31,5 +31,24 @@ describe('shared/peripheral-speed', () => {
     expect(m.marginMs).to.be.closeTo(40.730092, 1e-6);
     expect(m.marginPct).to.be.closeTo(50.9126, 1e-4);
     expect(speedMargin(90, 80).marginMs).to.be.below(0);
+  });
+});
+
+describe('markedSpeedPair', () => {
+  // n = 60 000·v / (π·D) and its inverse, computed by hand: 300 mm at 50 m/s → 3183.099 rpm.
+  it('gives the rpm of a wheel marked in m/s at its new diameter', () => {
+    const pair = markedSpeedPair(300, 'm/s', 50);
+    expect(pair.maxSpeedMs).to.equal(50);
+    expect(pair.maxSpeedRpm).to.be.closeTo(3183.0989, 1e-4);
+  });
+  // v = π·D·n / 60 000, computed by hand: 250 mm at 3000 rpm → 39.2699 m/s.
+  it('gives the m/s of a wheel marked in rpm', () => {
+    const pair = markedSpeedPair(250, 'rpm', 3000);
+    expect(pair.maxSpeedRpm).to.equal(3000);
+    expect(pair.maxSpeedMs).to.be.closeTo(39.26991, 1e-5);
+  });
+  it('round-trips: the computed figure gives back the marked one', () => {
+    const { maxSpeedRpm } = markedSpeedPair(230, 'm/s', 63);
+    expect(markedSpeedPair(230, 'rpm', maxSpeedRpm).maxSpeedMs).to.be.closeTo(63, 1e-9);
   });
 });
