@@ -98,3 +98,14 @@ export function readConfig(env: NodeJS.ProcessEnv = process.env): Config {
     ...(e.REVIEW_REMINDER_INTERVAL_MS !== undefined ? { reviewReminderIntervalMs: e.REVIEW_REMINDER_INTERVAL_MS } : {}),
   };
 }
+
+/**
+ * Only where the app is reached (APP_BASE_URL, else HOST and PORT), through the same
+ * schema: for code that writes links without a running server's settings (the demo seeds
+ * that `npm start` loads in its own process, tests). A wrong value here is ignored for the default.
+ */
+export function readLinkAddress(env: NodeJS.ProcessEnv = process.env): Pick<Config, 'appBaseUrl' | 'host' | 'port'> {
+  const parsed = environment.pick({ HOST: true, PORT: true, APP_BASE_URL: true }).safeParse(env);
+  const e = parsed.success ? parsed.data : { HOST: '127.0.0.1', PORT: 4300, APP_BASE_URL: undefined };
+  return { host: e.HOST, port: e.PORT, ...(e.APP_BASE_URL !== undefined ? { appBaseUrl: e.APP_BASE_URL } : {}) };
+}

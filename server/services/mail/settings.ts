@@ -1,4 +1,4 @@
-import type { Config } from '../../config';
+import { readLinkAddress, type Config } from '../../config';
 
 /** What mail-writing services need to know: where links in mails point. Handed in, never global. */
 export interface MailSettings {
@@ -16,8 +16,4 @@ export function mailSettingsOf(config: Pick<Config, 'appBaseUrl' | 'host' | 'por
  * Used where a caller passes nothing — tests, and the demo seeds that `npm start` loads in
  * its own process — from the same variables the server reads, so demo mails link to it.
  */
-export const DEFAULT_MAIL_SETTINGS: MailSettings = mailSettingsOf({
-  ...(process.env['APP_BASE_URL'] ? { appBaseUrl: process.env['APP_BASE_URL'] } : {}),
-  host: process.env['HOST'] ?? '127.0.0.1',
-  port: Number(process.env['PORT'] ?? 4300),
-});
+export const DEFAULT_MAIL_SETTINGS: MailSettings = mailSettingsOf(readLinkAddress());
