@@ -192,7 +192,7 @@ const RULES: readonly Rule[] = [
       'warning',
       limit === 'turned-through-wall' ? 'scope.wallMm' : 'scope.sizeMaxMm',
       `The scope fits only a wheel that is not yet worn: at its smallest usable diameter of ${n1(worn.diameterMm)} mm (${from}) this wheel cuts ${n1(worn.cuttableSizeMm!)} mm, less than ${what}.${replace}`,
-      `A consumable wheel shrinks as it cuts; once worn, a cut that fits only a newer wheel stops short or brings the flange against the part (common practice). Kerfbook warns rather than blocks: a new wheel cuts the scope, and a lab that changes wheels in time never meets the limit. ${CAPACITY_LIMIT_RULES[limit]}`,
+      'A consumable wheel shrinks as it cuts; once worn, a cut that fits only a newer wheel stops short or brings the flange against the part (common practice). Kerfbook warns rather than blocks: a new wheel cuts the scope, and a lab that changes wheels in time never meets the limit.',
     );
   },
 
