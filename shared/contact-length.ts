@@ -17,15 +17,17 @@
  *   as ROCKING_CONTACT_FACTOR × the section chord.
  * - turning specimen: the part rotates, so the wheel works from the outside in to the
  *   centre (round bar) or through the wall (tube). Per unit of radial feed it removes the
- *   whole ring at the current radius r = D/2 − x, so its effective contact length is the
- *   circumference 2π·r (the instantaneous arc is shorter; the removal rate follows from
- *   conservation of volume). A rectangular section is treated as a plunge.
+ *   whole ring at the current radius r = D/2 − x, so the length figure is an effective
+ *   removal length per turn, the circumference 2π·r — not a contact arc: the arc the
+ *   wheel touches at any moment is far shorter and depends on how fast the part turns.
+ *   The removal rate follows from conservation of volume. A rectangular section is
+ *   treated as a plunge.
  * - traverse pass: the wheel crosses the part in shallow passes of depth a = H / passes;
  *   the geometric contact length of a shallow pass is l = √(a·D_wheel) (the grinding
  *   textbook formula, e.g. Malkin & Guo, Grinding Technology, 2nd ed. — from memory)
  *   and the removal rate is feed × wheel thickness × a.
  */
-import type { CutMotion, Shape } from './vocabulary';
+import type { ContactMeasure, CutMotion, Shape } from './vocabulary';
 
 /** Share of the section chord a rocking cut works at once (Kerfbook's model, common practice). */
 export const ROCKING_CONTACT_FACTOR = 0.5;
@@ -67,7 +69,7 @@ export interface CutSetup {
 export interface ContactPoint {
   /** Depth from the entry point, mm. */
   depthMm: number;
-  /** Contact length at that depth, mm (for a turning specimen: the effective length 2π·r). */
+  /** Contact length at that depth, mm (for a turning specimen: the effective removal length per turn 2π·r, see contactMeasureOf). */
   contactMm: number;
   /** Removal rate at that depth, mm³/s. */
   removalMm3S: number;
@@ -105,6 +107,15 @@ function passCount(setup: Pick<CutSetup, 'passes'>): number {
 /** Whether the turning-specimen model applies (a round part). */
 function turns(section: CutSection, motion: CutMotion): boolean {
   return motion === 'turning-specimen' && section.shape !== 'rectangular';
+}
+
+/** Said beside a turning part's profile: what its length figure is and is not. */
+export const REMOVAL_LENGTH_PER_TURN_NOTE =
+  'The part turns: at radius r the wheel clears a ring 2π·r long per turn, so the curve shows that effective removal length, not a contact arc — the arc the wheel touches at any moment is far shorter.';
+
+/** What a profile's length figure is for this section and motion: a contact length, or a turning part's removal length per turn. */
+export function contactMeasureOf(shape: Shape, motion: CutMotion): ContactMeasure {
+  return motion === 'turning-specimen' && shape !== 'rectangular' ? 'removal-length-per-turn' : 'contact-length';
 }
 
 /** Depth the feed travels through material (mm): the size; to the centre or through the wall when the part turns. */

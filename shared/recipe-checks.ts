@@ -9,6 +9,7 @@ import type { RecipeContext } from './recipe-context';
 import { computeRecipe, type RecipeComputed } from './recipe-computations';
 import type { RecipeContent } from './schemas/recipe';
 import { CLAMPING_METHOD_LABELS, CUT_MOTION_LABELS, MATERIAL_GROUP_LABELS, METALLIC_GROUPS, type MaterialGroup, type MachineClass } from './vocabulary';
+import { CAPACITY_LIMIT_RULES } from './capacity';
 import { maxRpmForWheel } from './peripheral-speed';
 import { ABRASIVE_FAMILY_LABELS, abrasiveFamily, parseWheelSpec, type AbrasiveFamily } from './wheel-spec';
 
@@ -51,6 +52,8 @@ const SOURCE = {
 } as const;
 
 const n1 = (v: number) => v.toFixed(1);
+/** A length rounded up to whole mm: a wheel at least this big (rounding down would be too small). */
+const wholeMmUp = (v: number) => String(Math.ceil(v - 1e-9));
 /** A vocabulary label in lower case; an id the vocabulary does not know (older stored content) reads as itself. */
 const lowerLabel = (labels: Readonly<Record<string, string>>, id: unknown): string =>
   (Object.hasOwn(labels, String(id)) ? labels[String(id)]! : String(id)).toLowerCase();
@@ -152,13 +155,44 @@ const RULES: readonly Rule[] = [
   },
 
   ({ content, computed }) => {
-    if (computed.capacityFits !== false) return null;
+    if (computed.capacityFits !== false || computed.capacityLimit === null) return null;
+    const limit = computed.capacityLimit;
+    const { sizeMaxMm: size, widthMm: width, wallMm: wall } = content.scope;
+    const cuttable = n1(computed.cuttableSizeMm!);
+    const depth = n1(computed.cuttingDepthMm!);
+    const message = {
+      radius: `The largest part (${size} mm) is more than the wheel can cut on this machine with ${lowerLabel(CUT_MOTION_LABELS, content.cutting.cutMotion)} (${cuttable} mm: cutting depth ${depth} mm).`,
+      chord: `The largest section (${size} mm high, ${width} mm wide) is more than the wheel can cut through coming down into it: at ${width} mm wide its edge reaches the bottom corners only through sections up to ${cuttable} mm high.`,
+      'turned-to-centre': `The largest bar (${size} mm) is more than the wheel can cut turning it: it reaches the centre of bars up to ${cuttable} mm (cutting depth ${depth} mm).`,
+      'turned-through-wall': `The tube's wall (${wall} mm) is more than the wheel can cut turning it: it reaches through walls up to ${cuttable} mm.`,
+    }[limit];
+    const smallest = computed.smallestWheelForScopeMm;
     return result(
       'scope-exceeds-capacity',
       'blocker',
-      'scope.sizeMaxMm',
-      `The largest part (${content.scope.sizeMaxMm} mm) is more than the wheel can cut on this machine with ${lowerLabel(CUT_MOTION_LABELS, content.cutting.cutMotion)} (${n1(computed.cuttableSizeMm!)} mm: cutting depth ${n1(computed.cuttingDepthMm!)} mm).`,
-      'Capacity = (wheel diameter − flange diameter)/2 less a 5 mm clearance (common practice); the flanges cannot enter the cut.',
+      limit === 'turned-through-wall' ? 'scope.wallMm' : 'scope.sizeMaxMm',
+      smallest !== null && Number.isFinite(smallest) ? `${message} A wheel of at least ${wholeMmUp(smallest)} mm would cut it on this machine.` : message,
+      CAPACITY_LIMIT_RULES[limit],
+    );
+  },
+
+  ({ content, computed }) => {
+    const worn = computed.wornWheel;
+    if (computed.capacityFits !== true || computed.capacityLimit === null || worn?.capacityFits !== false || worn.diameterMm === null) return null;
+    const limit = computed.capacityLimit;
+    const what = limit === 'turned-through-wall' ? `the tube's wall (${content.scope.wallMm} mm)` : `the largest part (${content.scope.sizeMaxMm} mm)`;
+    const from =
+      worn.source === 'lab-default' && worn.labShare !== null
+        ? `${Math.round(worn.labShare * 100)} % of the new diameter, the lab's default`
+        : "the wheel's record";
+    const smallest = computed.smallestWheelForScopeMm;
+    const replace = smallest !== null && Number.isFinite(smallest) ? ` Replace the wheel before it wears below ${wholeMmUp(smallest)} mm.` : '';
+    return result(
+      'scope-exceeds-worn-capacity',
+      'warning',
+      limit === 'turned-through-wall' ? 'scope.wallMm' : 'scope.sizeMaxMm',
+      `The scope fits only a wheel that is not yet worn: at its smallest usable diameter of ${n1(worn.diameterMm)} mm (${from}) this wheel cuts ${n1(worn.cuttableSizeMm!)} mm, less than ${what}.${replace}`,
+      'A consumable wheel shrinks as it cuts; once worn, a cut that fits only a newer wheel stops short or brings the flange against the part (common practice). Kerfbook warns rather than blocks: a new wheel cuts the scope, and a lab that changes wheels in time never meets the limit.',
     );
   },
 
@@ -356,6 +390,7 @@ export const CHECK_IDS = [
   'entry-feed-outside-machine',
   'wheel-diameter-outside-machine',
   'scope-exceeds-capacity',
+  'scope-exceeds-worn-capacity',
   'clamping-missing',
   'clamping-unsupported',
   'cut-motion-unsupported',

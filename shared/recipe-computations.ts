@@ -1,17 +1,27 @@
 /**
  * Everything the recipe editor, the recipe page and the bench sheet show as computed:
- * peripheral speed, capacity, contact and removal, cutting time, hardness. Called on every
- * (debounced) keystroke, so it must stay cheap and must not throw on half-typed content:
- * every field is null while an input it needs is missing.
+ * peripheral speed, capacity, contact and removal, cutting time, hardness, the worn wheel and
+ * the kerf. Called on every (debounced) keystroke, so it must stay cheap and must not throw
+ * on half-typed content: every field is null while an input it needs is missing.
  */
-import { capacityFit } from './capacity';
-import { contactProfile, estimateCutTimeS, peakRemovalMm3S, type ContactPoint, type CutSection, type CutSetup } from './contact-length';
+import { capacityFit, smallestWheelDiameterMm, type CapacityFit, type CapacityPart } from './capacity';
+import { contactMeasureOf, contactProfile, estimateCutTimeS, peakRemovalMm3S, type ContactPoint, type CutSection, type CutSetup } from './contact-length';
 import { conversionApplies, convertHardness, HARDNESS_CAVEATS } from './hardness';
 import { maxRpmForWheel, peripheralSpeedMs, speedMargin, toFtPerMin } from './peripheral-speed';
 import type { RecipeContext } from './recipe-context';
 import type { HardnessWindow } from './schemas/stock';
 import { recipeCutting, type RecipeContent } from './schemas/recipe';
-import { CUT_MOTIONS, SHAPES } from './vocabulary';
+import { CUT_MOTIONS, FEED_DIRECTIONS, SHAPES, type CapacityLimit, type ContactMeasure, type RpmCap, type WornDiameterSource } from './vocabulary';
+import {
+  capRpm,
+  KERFBOOK_KERF_ALLOWANCE_MM,
+  KERFBOOK_WORN_DIAMETER_SHARE,
+  kerfLossMm,
+  markedMaxRpmAt,
+  RIM_WHEEL_WEAR_NOTE,
+  rpmToHoldSpeed,
+  wornDiameterOf,
+} from './worn-wheel';
 
 /** Scope hardness converted to HV for the steel groups. */
 export interface ComputedHardness {
@@ -57,6 +67,46 @@ export interface RecipeComputed {
   cutTimeS: number | null;
   /** Scope hardness in HV where conversion applies. */
   hardness: ComputedHardness | null;
+
+  // Cutting geometry: which capacity limit applies, the worn wheel and the kerf.
+  /** The limit that sets the capacity (shared/capacity.ts); cuttableSizeMm is a turned tube's wall for 'turned-through-wall'. */
+  capacityLimit: CapacityLimit | null;
+  /** Smallest wheel diameter that still cuts the scope through on this machine, mm. */
+  smallestWheelForScopeMm: number | null;
+  /** What the profile's length figure is: a contact length, or a turning part's removal length per turn. */
+  profileMeasure: ContactMeasure | null;
+  /** The wheel worn to its smallest usable diameter; null while no wheel is chosen. */
+  wornWheel: WornWheelFigures | null;
+  /** Width the cut removes (wheel thickness + the lab's allowance), mm. */
+  kerfLossMm: number | null;
+  /** The allowance in it, mm. */
+  kerfAllowanceMm: number | null;
+}
+
+/** The chosen wheel at its smallest usable diameter. */
+export interface WornWheelFigures {
+  /** Smallest usable diameter, mm; null for a rim wheel whose record gives none (see `reason`). */
+  diameterMm: number | null;
+  source: WornDiameterSource | null;
+  /** The lab's share of the new diameter, when that is the source. */
+  labShare: number | null;
+  /** Why there is no worn diameter, or null. */
+  reason: string | null;
+  /** Capacity at the worn diameter (same limit as the new wheel), mm; null while machine or scope are missing. */
+  cuttingDepthMm: number | null;
+  cuttableSizeMm: number | null;
+  capacityFits: boolean | null;
+  capacityMarginMm: number | null;
+  /** Peripheral speed at the worn diameter and the recipe's rpm, m/s. */
+  peripheralSpeedMs: number | null;
+  /** Rpm that would hold the new wheel's speed at the worn diameter, n·D_new/D_worn (unrounded, before any cap). */
+  rpmToHoldSpeed: number | null;
+  /** That rpm floored and capped at the marked maximum at the worn diameter and the machine's top speed or spindle limit. */
+  heldRpm: number | null;
+  /** The cap that held it back, or null. */
+  heldRpmCappedBy: RpmCap | null;
+  /** Peripheral speed at the worn diameter at heldRpm, m/s. */
+  heldSpeedMs: number | null;
 }
 
 /** A positive finite number, or null (half-typed input). */
@@ -97,7 +147,13 @@ export function computeRecipe(content: RecipeContent, ctx: RecipeContext): Recip
   const margin = speed !== null && maxSpeed !== null ? speedMargin(speed, maxSpeed) : null;
 
   const flange = positive(machine?.flangeDiameterMm);
-  const fit = diameter !== null && flange !== null && motion && shape && sizeMax !== null ? capacityFit(sizeMax, diameter, flange, motion, shape) : null;
+  // An unknown stored feed direction counts as the wheel coming down: it is the stricter limit.
+  const feedDirection = machine && FEED_DIRECTIONS.includes(machine.feedDirection) ? machine.feedDirection : 'wheel-down';
+  const part: CapacityPart | null =
+    shape && sizeMax !== null ? { shape, sizeMaxMm: sizeMax, widthMm: nonNegative(scope.widthMm), wallMm: positive(scope.wallMm) } : null;
+  const fitAt = (wheelDiameterMm: number): CapacityFit | null =>
+    part && flange !== null && motion ? capacityFit(part, { wheelDiameterMm, flangeDiameterMm: flange, feedDirection, motion }) : null;
+  const fit = diameter !== null ? fitAt(diameter) : null;
 
   // The section needs its shape's extra dimension; without it there is no profile yet.
   const section: CutSection | null =
@@ -138,5 +194,72 @@ export function computeRecipe(content: RecipeContent, ctx: RecipeContext): Recip
     peakRemovalMm3S: profile ? peakRemovalMm3S(profile) : null,
     cutTimeS: cutTime !== null && Number.isFinite(cutTime) ? cutTime : null,
     hardness: computeHardness(content, ctx),
+
+    capacityLimit: fit?.limit ?? null,
+    smallestWheelForScopeMm: part && flange !== null && motion ? smallestWheelDiameterMm(part, { flangeDiameterMm: flange, feedDirection, motion }) : null,
+    profileMeasure: profile && motion && shape ? contactMeasureOf(shape, motion) : null,
+    wornWheel: wheel && diameter !== null ? computeWornWheel(ctx, diameter, rpm, fitAt) : null,
+    kerfLossMm: thickness !== null ? kerfLossMm(thickness, kerfAllowance(ctx)) : null,
+    kerfAllowanceMm: thickness !== null ? kerfAllowance(ctx) : null,
+  };
+}
+
+/** A finite number of at least 0, or null. */
+function nonNegative(n: unknown): number | null {
+  return typeof n === 'number' && Number.isFinite(n) && n >= 0 ? n : null;
+}
+
+/** The lab's kerf allowance, or Kerfbook's default where the limits carry none. */
+function kerfAllowance(ctx: RecipeContext): number {
+  return nonNegative(ctx.limits?.kerfAllowanceMm) ?? KERFBOOK_KERF_ALLOWANCE_MM;
+}
+
+function computeWornWheel(ctx: RecipeContext, newDiameter: number, rpm: number | null, fitAt: (d: number) => CapacityFit | null): WornWheelFigures {
+  const wheel = ctx.wheel!;
+  const labShare = positive(ctx.limits?.wornDiameterShare) ?? KERFBOOK_WORN_DIAMETER_SHARE;
+  const worn = wornDiameterOf(wheel, labShare);
+  if (!worn)
+    return {
+      diameterMm: null,
+      source: null,
+      labShare: null,
+      reason: RIM_WHEEL_WEAR_NOTE,
+      cuttingDepthMm: null,
+      cuttableSizeMm: null,
+      capacityFits: null,
+      capacityMarginMm: null,
+      peripheralSpeedMs: null,
+      rpmToHoldSpeed: null,
+      heldRpm: null,
+      heldRpmCappedBy: null,
+      heldSpeedMs: null,
+    };
+  const d = worn.diameterMm;
+  const fit = fitAt(d);
+  const m = ctx.machine;
+  // A diameter that underflows to 0 (half-typed 5e-324 mm) holds no speed: no rpm rather than ∞ or NaN.
+  const hold = rpm !== null ? positive(rpmToHoldSpeed(rpm, newDiameter, d)) : null;
+  const held =
+    hold !== null
+      ? capRpm(hold, {
+          'marked-maximum': markedMaxRpmAt(wheel, d),
+          'machine-top-speed': m ? m.rpmMax : null,
+          'spindle-limit': m ? m.spindleLimitRpm : null,
+        })
+      : null;
+  return {
+    diameterMm: d,
+    source: worn.source,
+    labShare: worn.source === 'lab-default' ? labShare : null,
+    reason: null,
+    cuttingDepthMm: fit?.depthMm ?? null,
+    cuttableSizeMm: fit?.cuttableSizeMm ?? null,
+    capacityFits: fit?.fits ?? null,
+    capacityMarginMm: fit?.marginMm ?? null,
+    peripheralSpeedMs: rpm !== null ? peripheralSpeedMs(d, rpm) : null,
+    rpmToHoldSpeed: hold,
+    heldRpm: held?.rpm ?? null,
+    heldRpmCappedBy: held?.cappedBy ?? null,
+    heldSpeedMs: held ? peripheralSpeedMs(d, held.rpm) : null,
   };
 }

@@ -25,4 +25,8 @@ export type SelectionRow = SelectionRowBody & { id: number };
 export interface LabLimits {
   /** Feed ceilings per material group, mm/s: above it the feed check warns. */
   feedCeilingsMmS: Partial<Record<MaterialGroup, number>>;
+  /** Smallest usable diameter of a consumable wheel whose record gives none, as a share of its new diameter (0–1). */
+  wornDiameterShare: number;
+  /** Added to the wheel's thickness for the kerf loss, mm. */
+  kerfAllowanceMm: number;
 }

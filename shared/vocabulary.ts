@@ -176,6 +176,53 @@ export const FEED_DIRECTION_LABELS: Record<FeedDirection, string> = {
   'part-horizontal': 'Part is fed horizontally into the wheel',
 };
 
+/**
+ * Which geometric limit sets a wheel's cutting capacity on a machine (shared/capacity.ts
+ * explains each): the wheel's radius beyond the flange, its edge at the corners of a wide
+ * section it comes down into, or, for a turned part, its reach to the centre or through the wall.
+ */
+export const CAPACITY_LIMITS = ['radius', 'chord', 'turned-to-centre', 'turned-through-wall'] as const;
+export type CapacityLimit = (typeof CAPACITY_LIMITS)[number];
+
+export const CAPACITY_LIMIT_LABELS: Record<CapacityLimit, string> = {
+  radius: 'Wheel radius beyond the flange',
+  chord: "Wheel's edge at the corners of the section",
+  'turned-to-centre': 'Turned part: reach to the centre',
+  'turned-through-wall': 'Turned tube: reach through the wall',
+};
+
+/**
+ * What the cut profile's length figure is: the wheel–part contact length, or, when the part
+ * turns, the effective removal length per turn (the ring's circumference 2π·r, not an arc
+ * the wheel touches at once).
+ */
+export const CONTACT_MEASURES = ['contact-length', 'removal-length-per-turn'] as const;
+export type ContactMeasure = (typeof CONTACT_MEASURES)[number];
+
+export const CONTACT_MEASURE_LABELS: Record<ContactMeasure, string> = {
+  'contact-length': 'Contact length',
+  'removal-length-per-turn': 'Effective removal length per turn',
+};
+
+/** Where a wheel's smallest usable diameter comes from. */
+export const WORN_DIAMETER_SOURCES = ['wheel', 'lab-default'] as const;
+export type WornDiameterSource = (typeof WORN_DIAMETER_SOURCES)[number];
+
+export const WORN_DIAMETER_SOURCE_LABELS: Record<WornDiameterSource, string> = {
+  wheel: "the wheel's record",
+  'lab-default': "the lab's default share of the new diameter",
+};
+
+/** What holds back the rpm that would keep a worn wheel at its new speed. */
+export const RPM_CAPS = ['marked-maximum', 'machine-top-speed', 'spindle-limit'] as const;
+export type RpmCap = (typeof RPM_CAPS)[number];
+
+export const RPM_CAP_LABELS: Record<RpmCap, string> = {
+  'marked-maximum': "the wheel's marked maximum at the worn diameter",
+  'machine-top-speed': "the machine's top speed",
+  'spindle-limit': "the spindle's speed limit",
+};
+
 /** The unit a wheel's maximum operating speed is marked in (some markets mark rpm). */
 export const SPEED_MARKINGS = ['m/s', 'rpm'] as const;
 export type SpeedMarking = (typeof SPEED_MARKINGS)[number];

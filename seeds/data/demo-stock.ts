@@ -74,6 +74,12 @@ export const DEMO_MACHINES: MachineBody[] = [
   },
 ];
 
+/**
+ * The lab replaces its 250 mm bench-saw wheels at 200 mm (a rule of its own, kept on each
+ * wheel record); the 350 mm floor-saw wheels run down to the lab's default share (70 %).
+ */
+const BENCH_WHEEL_SMALLEST_MM = 200;
+
 const bonded = (name: string, specification: string, diameterMm: number, thicknessMm: number, maxSpeedMs: number, notes: string): WheelBody => ({
   name,
   kind: 'bonded',
@@ -86,7 +92,7 @@ const bonded = (name: string, specification: string, diameterMm: number, thickne
   maxSpeedRpm: null,
   dryAllowed: false,
   restrictions: [],
-  minUsableDiameterMm: null,
+  minUsableDiameterMm: diameterMm === 250 ? BENCH_WHEEL_SMALLEST_MM : null,
   notes,
 });
 

@@ -9,6 +9,8 @@ export interface LabSettingsRow {
   sheet_paper: 'A4' | 'Letter';
   default_units: string;
   feed_ceilings_json: unknown;
+  worn_diameter_share: number | null;
+  kerf_allowance_mm: number | null;
   updated_at: Date;
 }
 

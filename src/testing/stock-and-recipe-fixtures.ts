@@ -1,5 +1,5 @@
 import type { RecipeSummary, RecipeVersionDto } from '@shared/recipe-types';
-import type { MachineRecord, MaterialRecord, WheelRecord } from '@shared/stock-types';
+import type { LabLimits, MachineRecord, MaterialRecord, WheelRecord } from '@shared/stock-types';
 
 /** Invented stock and recipes for the Stock, Library and Recipe specs; override what the test is about. */
 
@@ -70,6 +70,11 @@ export function aMachine(overrides: Partial<MachineRecord> = {}): MachineRecord 
     updatedAt: '2026-10-02T09:00:00.000Z',
     ...overrides,
   };
+}
+
+/** The lab's limits as a fresh install has them (no feed ceilings here): wheels used down to 70 %, a 0.2 mm kerf allowance. */
+export function aLabLimits(overrides: Partial<LabLimits> = {}): LabLimits {
+  return { feedCeilingsMmS: {}, wornDiameterShare: 0.7, kerfAllowanceMm: 0.2, ...overrides };
 }
 
 export function aRecipeSummary(overrides: Partial<RecipeSummary> = {}): RecipeSummary {

@@ -384,5 +384,19 @@ describe('Stock: materials, wheels, machines', () => {
       expect(res.body.feedCeilingsMmS['cemented-carbide']).to.equal(0.15);
       expect(Object.keys(res.body.feedCeilingsMmS)).to.have.length(12);
     });
+
+    it("gives the worn wheel's default share and the kerf allowance: Kerfbook's defaults (common practice) until the lab sets its own", async () => {
+      const res = await operator.agent.get('/api/settings/limits').expect(200);
+      expect(res.body).to.deep.include({ wornDiameterShare: 0.7, kerfAllowanceMm: 0.2 });
+      try {
+        await ctx.db('lab_settings').where({ id: 1 }).update({ worn_diameter_share: 0.75, kerf_allowance_mm: 0.3 });
+        expect((await operator.agent.get('/api/settings/limits').expect(200)).body).to.deep.include({ wornDiameterShare: 0.75, kerfAllowanceMm: 0.3 });
+        // A value that is no share (or no allowance) is not passed on: the checks get Kerfbook's default.
+        await ctx.db('lab_settings').where({ id: 1 }).update({ worn_diameter_share: 1.5, kerf_allowance_mm: null });
+        expect((await operator.agent.get('/api/settings/limits').expect(200)).body).to.deep.include({ wornDiameterShare: 0.7, kerfAllowanceMm: 0.2 });
+      } finally {
+        await ctx.db('lab_settings').where({ id: 1 }).update({ worn_diameter_share: 0.7, kerf_allowance_mm: 0.2 });
+      }
+    });
   });
 });

@@ -22,6 +22,11 @@ export const materialInput = (over: Partial<MaterialBody> = {}): MaterialBody =>
   ...over,
 });
 
+/**
+ * The lab uses its 250 mm wheels down to 200 mm, so the set's recipe (Ø60 bar) is still cut
+ * through by a worn wheel: (200 − 70)/2 − 5 = 60 mm. A wheel of another size gets none (the
+ * lab's default share).
+ */
 export const wheelInput = (over: Partial<WheelBody> = {}): WheelBody => ({
   name: 'Alumina 250 hard',
   kind: 'bonded',
@@ -34,7 +39,7 @@ export const wheelInput = (over: Partial<WheelBody> = {}): WheelBody => ({
   maxSpeedRpm: null,
   dryAllowed: false,
   restrictions: [],
-  minUsableDiameterMm: null,
+  minUsableDiameterMm: over.diameterMm === undefined || over.diameterMm === 250 ? 200 : null,
   notes: '',
   ...over,
 });

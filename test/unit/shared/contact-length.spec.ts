@@ -2,6 +2,7 @@ import { expect } from 'chai';
 import {
   circleChordMm,
   contactLengthMm,
+  contactMeasureOf,
   contactProfile,
   cutTravelMm,
   estimateCutTimeS,
@@ -81,6 +82,15 @@ describe('shared/contact-length', () => {
       expect(volume).to.be.closeTo(1.5 * Math.PI * 20 ** 2, 0.5);
       const tubeVolume = integrate(contactProfile(tube40, s, 20001), (p: { removalMm3S: number }) => p.removalMm3S) / s.feedMmS;
       expect(tubeVolume).to.be.closeTo(1.5 * Math.PI * (20 ** 2 - 15 ** 2), 0.5);
+    });
+    it("a turning part's length figure is an effective removal length per turn, not a contact arc; every other motion's is a contact length", () => {
+      expect(contactMeasureOf('round-bar', 'turning-specimen')).to.equal('removal-length-per-turn');
+      expect(contactMeasureOf('tube', 'turning-specimen')).to.equal('removal-length-per-turn');
+      expect(contactMeasureOf('rectangular', 'turning-specimen')).to.equal('contact-length'); // a turned rectangle is a plunge
+      for (const motion of ['straight-plunge', 'pulsed-plunge', 'rocking', 'traverse-pass', 'stepped-depth'] as const)
+        expect(contactMeasureOf('round-bar', motion), motion).to.equal('contact-length');
+      // Per turn the wheel clears the ring at radius r: at the tube's surface (r = 20 mm) 2π·20 = 125.66 mm, far longer than the Ø40 part.
+      expect(contactLengthMm(tube40, setup({ motion: 'turning-specimen' }), 0)).to.be.closeTo(125.663706, 1e-6);
     });
     it('plunge removal also conserves volume (kerf × πD²/4)', () => {
       const s = setup();

@@ -2,7 +2,7 @@
 import { markedSpeedPair } from '../../../shared/peripheral-speed';
 import type { RecipeContext } from '../../../shared/recipe-context';
 import type { RecipeContent } from '../../../shared/schemas/recipe';
-import type { MachineRecord, MaterialRecord, WheelRecord } from '../../../shared/stock-types';
+import type { LabLimits, MachineRecord, MaterialRecord, WheelRecord } from '../../../shared/stock-types';
 
 const stored = { archived: false, updatedAt: '2025-01-01T00:00:00Z', notes: '' };
 
@@ -152,6 +152,11 @@ export function content(
   };
 }
 
+/** The lab's limits as the migrations leave them, but no feed ceilings. */
+export function limits(over: Partial<LabLimits> = {}): LabLimits {
+  return { feedCeilingsMmS: {}, wornDiameterShare: 0.7, kerfAllowanceMm: 0.2, ...over };
+}
+
 export function ctx(over: Partial<RecipeContext> = {}): RecipeContext {
-  return { material: material(), wheel: wheel(), machine: machine(), limits: { feedCeilingsMmS: {} }, ...over };
+  return { material: material(), wheel: wheel(), machine: machine(), limits: limits(), ...over };
 }

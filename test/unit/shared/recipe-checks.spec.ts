@@ -2,7 +2,7 @@ import { expect } from 'chai';
 import type { RecipeContext } from '../../../shared/recipe-context';
 import { CHECK_IDS, changeReasonMissing, runChecks, worstSeverity, type CheckResult } from '../../../shared/recipe-checks';
 import type { RecipeContent } from '../../../shared/schemas/recipe';
-import { content, ctx, machine, material, precisionMachine, rimWheel, wheel } from './fixtures';
+import { content, ctx, limits as labLimits, machine, material, precisionMachine, rimWheel, wheel } from './fixtures';
 
 const ids = (c: RecipeContent, x: RecipeContext) => runChecks(c, x).map((r) => r.id);
 const find = (c: RecipeContent, x: RecipeContext, id: string): CheckResult | undefined => runChecks(c, x).find((r) => r.id === id);
@@ -93,6 +93,69 @@ describe('shared/recipe-checks', () => {
     expect(ids(content({ scope: { sizeMaxMm: 80 } }), ctx())).to.not.include('scope-exceeds-capacity');
   });
 
+  describe('scope-exceeds-capacity by the true cutting geometry (geometry, computed by hand; clearance common practice)', () => {
+    /** The floor saw of the worked example: a 350 mm wheel between 100 mm flanges. */
+    const floor = (over: Parameters<typeof machine>[0] = {}) =>
+      ctx({
+        wheel: wheel({ diameterMm: 350, thicknessMm: 2.5 }),
+        machine: machine({ wheelDiameterMinMm: 300, wheelDiameterMaxMm: 350, flangeDiameterMm: 100, rpmMax: 3000, ...over }),
+      });
+    const blockScope = (height: number, width: number) => ({ shape: 'rectangular' as const, sizeMinMm: 10, sizeMaxMm: height, widthMm: width });
+
+    it('a 120 mm high, 200 mm wide block under a 350 mm wheel coming down: √(175² − 100²) − 50 − 5 = 88.6 mm, blocked (it used to pass as 120 mm)', () => {
+      const r = find(content({ scope: blockScope(120, 200), cutting: { wheelRpm: 2800 } }), floor(), 'scope-exceeds-capacity')!;
+      expect(r).to.deep.include({ severity: 'blocker', path: 'scope.sizeMaxMm' });
+      expect(r.message).to.contain('120 mm high, 200 mm wide');
+      expect(r.message).to.contain('88.6 mm');
+      expect(r.message).to.contain('at least 404 mm'); // 2·√((120 + 50 + 5)² + 100²) = 403.1, rounded up
+      expect(r.reason).to.contain('√(R² − (W/2)²)');
+      expect(ids(content({ scope: blockScope(88, 200), cutting: { wheelRpm: 2800 } }), floor())).to.not.include('scope-exceeds-capacity');
+    });
+
+    it('the same block fed horizontally into the wheel fits: its width lies along the feed (H ≤ 175 − 50 − 5 = 120 mm)', () => {
+      const horizontal = floor({ feedDirection: 'part-horizontal' });
+      expect(ids(content({ scope: blockScope(120, 200), cutting: { wheelRpm: 2800 } }), horizontal)).to.not.include('scope-exceeds-capacity');
+      const r = find(content({ scope: blockScope(121, 200), cutting: { wheelRpm: 2800 } }), horizontal, 'scope-exceeds-capacity')!;
+      expect(r.message).to.contain('120.0 mm');
+      expect(r.reason).to.contain('fed horizontally');
+    });
+
+    it('a 200 mm tube with a 5 mm wall turned on a 250 mm wheel passes: only the wall must be within the 80 mm depth', () => {
+      const turning = ctx({ machine: machine({ cutMotions: ['straight-plunge', 'turning-specimen'] }) });
+      const tube = content({ scope: { shape: 'tube', sizeMinMm: 150, sizeMaxMm: 200, wallMm: 5 }, cutting: { cutMotion: 'turning-specimen' } });
+      expect(runChecks(tube, turning).filter((r) => r.id.startsWith('scope-exceeds'))).to.deep.equal([]);
+      // A 200 mm bar turned on the same wheel needs its radius within the depth: 100 > 80, blocked.
+      const bar = find(content({ scope: { sizeMaxMm: 200 }, cutting: { cutMotion: 'turning-specimen' } }), turning, 'scope-exceeds-capacity')!;
+      expect(bar.message).to.contain('160.0 mm'); // 2 × 80
+      // A wall deeper than the depth points at the wall.
+      const thick = content({ scope: { shape: 'tube', sizeMinMm: 190, sizeMaxMm: 200, wallMm: 85 }, cutting: { cutMotion: 'turning-specimen' } });
+      expect(find(thick, turning, 'scope-exceeds-capacity')).to.deep.include({ path: 'scope.wallMm' });
+    });
+  });
+
+  describe('scope-exceeds-worn-capacity (warning): the scope must still be cut with the wheel worn to its smallest usable diameter', () => {
+    it('a 45 mm bar fits the new 250 mm wheel (80 mm) but not the wheel worn to 175 mm (70 %): (175 − 80)/2 − 5 = 42.5 mm', () => {
+      const r = find(content({ scope: { sizeMaxMm: 45 } }), ctx(), 'scope-exceeds-worn-capacity')!;
+      expect(r).to.deep.include({ severity: 'warning', path: 'scope.sizeMaxMm' });
+      expect(r.message).to.contain('175.0 mm (70 % of the new diameter');
+      expect(r.message).to.contain('42.5 mm');
+      expect(r.message).to.contain('wears below 180 mm'); // 2·(45 + 5) + 80
+      expect(r.reason).to.contain('warns rather than blocks');
+      expect(ids(content({ scope: { sizeMaxMm: 42.5 } }), ctx())).to.not.include('scope-exceeds-worn-capacity');
+    });
+
+    it("uses the wheel's own smallest usable diameter, and never doubles up with the blocker", () => {
+      expect(ids(content({ scope: { sizeMaxMm: 45 } }), ctx({ wheel: wheel({ minUsableDiameterMm: 200 }) }))).to.not.include('scope-exceeds-worn-capacity'); // (200 − 80)/2 − 5 = 55
+      const own = find(content({ scope: { sizeMaxMm: 45 } }), ctx({ wheel: wheel({ minUsableDiameterMm: 160 }) }), 'scope-exceeds-worn-capacity')!;
+      expect(own.message).to.contain("160.0 mm (the wheel's record)");
+      expect(ids(content({ scope: { sizeMaxMm: 81 } }), ctx())).to.deep.equal(['scope-exceeds-capacity']);
+    });
+
+    it('a rim wheel keeps its diameter: no worn-capacity warning', () => {
+      expect(ids(precision({ scope: { sizeMaxMm: 50 } }), precisionCtx())).to.not.include('scope-exceeds-worn-capacity'); // (150 − 40)/2 − 5 = 50
+    });
+  });
+
   it('clamping-missing, clamping-unsupported, cut-motion-unsupported (blockers)', () => {
     expect(find(content({ clamping: { method: null } }), ctx(), 'clamping-missing')).to.deep.include({ severity: 'blocker', path: 'clamping.method' });
     expect(find(content({ clamping: { method: 'top-clamp' } }), ctx(), 'clamping-unsupported')!.message).to.contain('top clamp');
@@ -147,10 +210,10 @@ describe('shared/recipe-checks', () => {
   });
 
   it("feed-above-ceiling (warning): the lab's ceiling for the group", () => {
-    const limits = { feedCeilingsMmS: { 'plain-low-alloy-steel': 0.4 } };
+    const limits = labLimits({ feedCeilingsMmS: { 'plain-low-alloy-steel': 0.4 } });
     expect(find(content(), ctx({ limits }), 'feed-above-ceiling')!.message).to.contain('0.4 mm/s');
     expect(ids(content({ cutting: { feedMmS: 0.4 } }), ctx({ limits }))).to.not.include('feed-above-ceiling');
-    expect(ids(content(), ctx({ limits: { feedCeilingsMmS: { copper: 0.1 } } }))).to.not.include('feed-above-ceiling');
+    expect(ids(content(), ctx({ limits: labLimits({ feedCeilingsMmS: { copper: 0.1 } }) }))).to.not.include('feed-above-ceiling');
   });
 
   it('orientation-rule-missing (warning): coated or case-hardened without an orientation rule', () => {

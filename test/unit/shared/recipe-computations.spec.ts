@@ -1,7 +1,7 @@
 import { expect } from 'chai';
 import { computeRecipe } from '../../../shared/recipe-computations';
 import type { RecipeContent } from '../../../shared/schemas/recipe';
-import { content, ctx, material, precisionMachine, rimWheel } from './fixtures';
+import { content, ctx, limits, machine, material, precisionMachine, rimWheel, wheel } from './fixtures';
 
 describe('shared/recipe-computations', () => {
   it('combines speed, margin, capacity, profile, time and hardness', () => {
@@ -47,6 +47,76 @@ describe('shared/recipe-computations', () => {
     expect(c.cuttableSizeMm).to.equal(100); // doubled by the turning specimen (Kerfbook model)
     expect(c.capacityFits).to.equal(false);
     expect(c.cutTimeS).to.be.closeTo(5 / 0.05 + 70 / 0.1, 1e-9); // to the centre of Ø150: 75 mm travel, 5 mm of it at the entry feed; computed by hand
+  });
+
+  describe('cutting geometry: the capacity limit, the worn wheel, the kerf (geometry and v = π·D·n/60 000, computed by hand)', () => {
+    it('the fixture: Ø40 bar on the 250 mm bonded wheel at 3000 rpm, bench saw with 80 mm flanges, top speed 4000 rpm', () => {
+      const c = computeRecipe(content(), ctx());
+      expect(c.capacityLimit).to.equal('radius');
+      expect(c.smallestWheelForScopeMm).to.equal(170); // 2·(40 + 5) + 80
+      expect(c.profileMeasure).to.equal('contact-length');
+      expect(c.kerfLossMm).to.be.closeTo(1.7, 1e-12); // 1.5 mm wheel + 0.2 mm allowance (Kerfbook's default, common practice)
+      expect(c.kerfAllowanceMm).to.equal(0.2);
+      const w = c.wornWheel!;
+      expect(w).to.deep.include({
+        source: 'lab-default',
+        labShare: 0.7,
+        reason: null,
+        capacityFits: true,
+        heldRpmCappedBy: 'machine-top-speed',
+        heldRpm: 4000,
+      });
+      expect(w.diameterMm).to.be.closeTo(175, 1e-9); // 70 % of 250
+      expect(w.cuttingDepthMm).to.be.closeTo(42.5, 1e-9); // (175 − 80)/2 − 5
+      expect(w.cuttableSizeMm).to.be.closeTo(42.5, 1e-9);
+      expect(w.capacityMarginMm).to.be.closeTo(2.5, 1e-9); // 42.5 − 40
+      expect(w.peripheralSpeedMs).to.be.closeTo(27.488936, 1e-6); // π·175·3000/60 000
+      expect(w.rpmToHoldSpeed).to.be.closeTo(4285.714286, 1e-6); // 3000 × 250/175; the marking allows 60 000·80/(π·175) = 8730 rpm, the machine 4000
+      expect(w.heldSpeedMs).to.be.closeTo(36.651914, 1e-6); // π·175·4000/60 000
+    });
+
+    it('the floor saw example: 350 mm wheel at 2800 rpm worn to 245 mm turns 4000 rpm to hold 51.3 m/s, but the saw stops at 3000 rpm', () => {
+      const floor = ctx({
+        wheel: wheel({ diameterMm: 350, thicknessMm: 2.5 }),
+        machine: machine({ wheelDiameterMaxMm: 350, flangeDiameterMm: 100, rpmMax: 3000 }),
+        limits: limits({ kerfAllowanceMm: 0.3 }),
+      });
+      const c = computeRecipe(content({ cutting: { wheelRpm: 2800 } }), floor);
+      expect(c.wornWheel!.rpmToHoldSpeed).to.be.closeTo(4000, 1e-9); // 2800 × 350/245
+      expect(c.wornWheel).to.deep.include({ heldRpm: 3000, heldRpmCappedBy: 'machine-top-speed' });
+      expect(c.wornWheel!.heldSpeedMs).to.be.closeTo(38.48451, 1e-6); // π·245·3000/60 000
+      expect(c.kerfLossMm).to.be.closeTo(2.8, 1e-12); // 2.5 + the lab's 0.3
+      // A spindle limit below the top speed holds it lower still.
+      const limited = computeRecipe(content({ cutting: { wheelRpm: 2800 } }), {
+        ...floor,
+        machine: { ...floor.machine!, spindleLimitRpm: 2900, spindleLimitSetBy: 'Maintenance' },
+      });
+      expect(limited.wornWheel).to.deep.include({ heldRpm: 2900, heldRpmCappedBy: 'spindle-limit' });
+    });
+
+    it('a rim wheel has no worn diameter and says why; a turning part plots its removal length per turn', () => {
+      const c = computeRecipe(
+        content({
+          scope: { sizeMaxMm: 60 },
+          cutting: { machineId: 2, wheelId: 2, wheelRpm: 4000, feedMmS: 0.1, cutMotion: 'turning-specimen' },
+          clamping: { method: 'adhesive-wax-mount' },
+        }),
+        ctx({ wheel: rimWheel(), machine: precisionMachine() }),
+      );
+      expect(c.wornWheel).to.deep.include({ diameterMm: null, capacityFits: null, heldRpm: null });
+      expect(c.wornWheel!.reason).to.contain('keeps its diameter');
+      expect(c.capacityLimit).to.equal('turned-to-centre');
+      expect(c.profileMeasure).to.equal('removal-length-per-turn');
+    });
+
+    it('a rectangular section on a wheel coming down uses the scope width; without the width the capacity is not known yet', () => {
+      const c = computeRecipe(content({ scope: { shape: 'rectangular', sizeMaxMm: 40, widthMm: 100 } }), ctx());
+      // √(125² − 50²) − 40 − 5 = √13 125 − 45 = 114.564 392 − 45 = 69.564 392
+      expect(c.capacityLimit).to.equal('chord');
+      expect(c.cuttableSizeMm).to.be.closeTo(69.564392, 1e-6);
+      const noWidth = computeRecipe(content({ scope: { shape: 'rectangular', sizeMaxMm: 40, widthMm: null } }), ctx());
+      expect(noWidth).to.deep.include({ capacityFits: null, capacityLimit: null, smallestWheelForScopeMm: null });
+    });
   });
 
   it('every field is null while its inputs are missing, and nothing throws on half-typed content', () => {

@@ -4,7 +4,7 @@ import type { Observable } from 'rxjs';
 import type { Page } from '@shared/api-types';
 import type { Access } from '@shared/roles';
 import type { MachineBody, MaterialBody, SelectionRowBody, StockListQuery, WheelBody } from '@shared/schemas/stock';
-import type { MachineRecord, MaterialRecord, SelectionRow, WheelRecord } from '@shared/stock-types';
+import type { LabLimits, MachineRecord, MaterialRecord, SelectionRow, WheelRecord } from '@shared/stock-types';
 
 /** Who may change stock records (DEVELOPERS.md, Authoring routes); everyone signed in reads them. */
 export const STOCK_EDITORS: Access = ['author', 'admin'];
@@ -78,5 +78,10 @@ export class StockApi {
 
   deleteSelectionRow(id: number): Observable<void> {
     return this.http.delete<void>(`/api/selection-rows/${id}`);
+  }
+
+  /** The lab's limits the computations and checks use. */
+  limits(): Observable<LabLimits> {
+    return this.http.get<LabLimits>('/api/settings/limits');
   }
 }

@@ -9,6 +9,8 @@ import type { RecipeComputed } from '@shared/recipe-computations';
 import { NO_VALUE, type QuantityKind, formatQuantity } from '@shared/units';
 import { FIELD_INFO } from './recipe-form';
 import { CutProfilePlot } from '../../ui/cut-profile-plot/cut-profile-plot';
+import { capacityWords } from '../../ui/cutting-geometry/capacity-words';
+import { WornWheelValues } from '../../ui/cutting-geometry/worn-wheel-values';
 
 const SEVERITY: Record<CheckSeverity, { icon: string; label: string; plural: string }> = {
   blocker: { icon: 'block', label: 'Blocker', plural: 'blockers' },
@@ -23,7 +25,7 @@ const SEVERITY: Record<CheckSeverity, { icon: string; label: string; plural: str
  */
 @Component({
   selector: 'kb-recipe-live-panel',
-  imports: [CutProfilePlot, MatButtonModule, MatIconModule],
+  imports: [CutProfilePlot, MatButtonModule, MatIconModule, WornWheelValues],
   templateUrl: './recipe-live-panel.html',
   styleUrl: './recipe-live-panel.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -58,6 +60,9 @@ export class RecipeLivePanel {
     const margin = this.computed()?.speedMarginMs;
     return margin !== null && margin !== undefined && margin < 0;
   });
+
+  /** The capacity in words, with the geometric limit that applies. */
+  protected readonly capacity = computed(() => capacityWords(this.computed(), this.units()));
 
   protected readonly hardness = computed(() => {
     const h = this.computed()?.hardness;

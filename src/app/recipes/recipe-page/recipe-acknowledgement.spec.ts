@@ -9,7 +9,7 @@ import { RouterTestingHarness } from '@angular/router/testing';
 import type { RecipeVersionDto } from '@shared/recipe-types';
 import type { Role } from '@shared/roles';
 import { aVersionToAcknowledge, anAcknowledgements, anOperator, myAcknowledgement } from '../../../testing/acknowledgement-fixtures';
-import { aMachine, aMaterial, aRecipeVersion, aWheel } from '../../../testing/stock-and-recipe-fixtures';
+import { aLabLimits, aMachine, aMaterial, aRecipeVersion, aWheel } from '../../../testing/stock-and-recipe-fixtures';
 import { errorInterceptor } from '../../core/http/error-interceptor';
 import { Notifier } from '../../core/notifier/notifier';
 import { Session } from '../../core/session/session';
@@ -49,6 +49,7 @@ describe('RecipePage acknowledgements', () => {
     (await vi.waitFor(() => backend.expectOne('/api/materials/5'))).flush(aMaterial());
     backend.expectOne('/api/wheels/2').flush(aWheel());
     backend.expectOne('/api/machines/1').flush(aMachine());
+    backend.expectOne('/api/settings/limits').flush(aLabLimits());
     await harness.fixture.whenStable();
   }
 

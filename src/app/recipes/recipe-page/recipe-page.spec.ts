@@ -8,7 +8,7 @@ import { Router, provideRouter, withComponentInputBinding } from '@angular/route
 import { RouterTestingHarness } from '@angular/router/testing';
 import type { CutRecordDto, RecipeVersionDto, SignatureDto, VersionWorkflowDto } from '@shared/recipe-types';
 import type { Role } from '@shared/roles';
-import { aMachine, aMaterial, aRecipeVersion, aWheel } from '../../../testing/stock-and-recipe-fixtures';
+import { aLabLimits, aMachine, aMaterial, aRecipeVersion, aWheel } from '../../../testing/stock-and-recipe-fixtures';
 import { aUser } from '../../../testing/user-fixture';
 import { errorInterceptor } from '../../core/http/error-interceptor';
 import { Notifier } from '../../core/notifier/notifier';
@@ -92,6 +92,7 @@ describe('RecipePage', () => {
     (await vi.waitFor(() => backend.expectOne('/api/materials/5'))).flush(aMaterial());
     backend.expectOne('/api/wheels/2').flush(aWheel());
     backend.expectOne('/api/machines/1').flush(aMachine());
+    backend.expectOne('/api/settings/limits').flush(aLabLimits());
     await harness.fixture.whenStable();
   }
 
@@ -176,6 +177,13 @@ describe('RecipePage', () => {
     const values = root().querySelector('.kb-values')!.textContent!;
     expect(values).toMatch(/Peripheral speed\s*39\.3 m\/s/);
     expect(values).toMatch(/Margin to the marked maximum\s*40\.7 m\/s/);
+    // (250 − 80)/2 − 5 = 80 mm for the Ø40 bar, by the wheel's radius beyond the flange.
+    expect(root().querySelector('[data-testid="capacity"]')!.textContent).toContain('Limit: Wheel radius beyond the flange');
+    // Worn to the lab's 70 %: 175 mm, (175 − 80)/2 − 5 = 42.5 mm; kerf 1.5 + 0.2 mm. Computed by hand.
+    const worn = root().querySelector('[data-testid="worn-wheel"]')!.textContent!.replace(/\s+/g, ' ');
+    expect(worn).toContain('175 mm');
+    expect(worn).toContain('Up to 42.5 mm');
+    expect(worn).toContain('1.70 mm');
   });
 
   it('offers "Edit draft" to an author on a draft, not on an older approved version', async () => {

@@ -34,9 +34,12 @@ import { callerHandles } from '../../core/http/caller-handles';
 import { Notifier } from '../../core/notifier/notifier';
 import { Session } from '../../core/session/session';
 import { CutProfilePlot } from '../../ui/cut-profile-plot/cut-profile-plot';
+import { capacityWords } from '../../ui/cutting-geometry/capacity-words';
+import { WornWheelValues } from '../../ui/cutting-geometry/worn-wheel-values';
 import { QuantityPipe } from '../../ui/quantity';
 import { recipeVersions } from '../../core/api/recipe-versions';
 import { stockNamesOf } from '../../core/api/stock-names';
+import { labLimitsWhen } from '../../core/api/lab-limits';
 import { CommentsPanel } from '../review/comments-panel';
 import { ReasonDialog, type ReasonDialogData } from '../review/reason-dialog';
 import { ReviewComments } from '../review/review-comments';
@@ -84,6 +87,7 @@ const ATTACHMENT_ROLE_LABELS = { setup: 'Setup', 'good-face': 'Good cut face', '
     RouterLink,
     SignatureList,
     StandardCautions,
+    WornWheelValues,
   ],
   templateUrl: './recipe-page.html',
   styleUrl: './recipe-page.scss',
@@ -188,13 +192,18 @@ export class RecipePage {
 
   protected readonly stockNames = stockNamesOf(() => this.version()?.content);
 
+  /** The worn wheel's default share and the kerf allowance come from the lab's limits (the checks come from the server). */
+  private readonly labLimits = labLimitsWhen(() => this.version() !== null);
+
   protected readonly computed = computed(() => {
     const version = this.version();
-    if (!version) return null;
+    const limits = this.labLimits();
+    if (!version || !limits) return null;
     const { material, wheel, machine } = this.stockNames();
-    // Lab limits only matter to the checks, which the server has already run on this content.
-    return computeRecipe(version.content, { material, wheel, machine, limits: { feedCeilingsMmS: {} } });
+    return computeRecipe(version.content, { material, wheel, machine, limits });
   });
+  /** The capacity in words, with the geometric limit that applies. */
+  protected readonly capacity = computed(() => capacityWords(this.computed(), this.units()));
   protected readonly checks = computed<CheckResult[]>(() =>
     [...(this.version()?.checks ?? [])].sort((a, b) => SEVERITY_ORDER[a.severity] - SEVERITY_ORDER[b.severity]),
   );

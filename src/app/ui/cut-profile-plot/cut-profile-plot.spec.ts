@@ -1,14 +1,16 @@
 import { Component, signal } from '@angular/core';
 import { type ComponentFixture, TestBed } from '@angular/core/testing';
 import type { ContactPoint } from '@shared/contact-length';
+import type { ContactMeasure } from '@shared/vocabulary';
 import { CutProfilePlot, niceTicks } from './cut-profile-plot';
 
 @Component({
   imports: [CutProfilePlot],
-  template: `<kb-cut-profile-plot [points]="points()" />`,
+  template: `<kb-cut-profile-plot [points]="points()" [measure]="measure()" />`,
 })
 class Host {
   readonly points = signal<readonly ContactPoint[]>([]);
+  readonly measure = signal<ContactMeasure>('contact-length');
 }
 
 /** A 40 mm round bar, 1.5 mm wheel at 0.2 mm/s: chord 2·√(x·(40 − x)), peak 40 mm at 20 mm deep. */
@@ -55,6 +57,7 @@ describe('CutProfilePlot', () => {
     expect(text).toContain('Depth into the cut (mm)');
     expect(text).toContain('mm³/s');
     expect(text).toContain('Contact length (mm, left)');
+    expect(root.querySelector('[data-testid="length-note"]')).toBeNull();
     expect(text).toContain('Removal rate (mm³/s, right)');
     // Depth ticks run to the end of the cut.
     expect(text).toContain('40');
@@ -66,6 +69,19 @@ describe('CutProfilePlot', () => {
     const label = svg.getAttribute('aria-label')!;
     expect(label).toContain('contact length peaks at 40 mm at 20 mm deep');
     expect(label).toContain('removal rate peaks at 12 mm³/s at 20 mm deep');
+  });
+
+  it("labels a turning part's length as an effective removal length per turn, not a contact length", async () => {
+    fixture = TestBed.createComponent(Host);
+    fixture.componentInstance.points.set(roundBar());
+    fixture.componentInstance.measure.set('removal-length-per-turn');
+    await fixture.whenStable();
+    root = fixture.nativeElement;
+    const text = root.textContent ?? '';
+    expect(text).toContain('Effective removal length per turn (mm, left)');
+    expect(text).not.toContain('Contact length');
+    expect(root.querySelector('[data-testid="length-note"]')!.textContent).toContain('2π·r');
+    expect(root.querySelector('svg[role="img"]')!.getAttribute('aria-label')).toContain('effective removal length per turn peaks at 40 mm');
   });
 
   it('says what is missing instead of drawing an empty plot', async () => {

@@ -1,5 +1,6 @@
 import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
-import type { ContactPoint } from '@shared/contact-length';
+import { REMOVAL_LENGTH_PER_TURN_NOTE, type ContactPoint } from '@shared/contact-length';
+import { CONTACT_MEASURE_LABELS, type ContactMeasure } from '@shared/vocabulary';
 
 /** Plot area inside the SVG's viewBox (user units). */
 const VIEW = { width: 420, height: 230 };
@@ -43,7 +44,9 @@ function path(points: readonly ContactPoint[], x: Axis, y: Axis, pick: (p: Conta
 /**
  * Contact length (mm, left axis) and removal rate (mm³/s, right axis) against depth into
  * the cut (mm): a small inline SVG, no chart library. The two series differ by line style as
- * well as colour, and the aria-label gives the peak values in words.
+ * well as colour, and the aria-label gives the peak values in words. When the part turns,
+ * the left series is the effective removal length per turn (2π·r), labelled as such: it is
+ * not an arc the wheel touches.
  */
 @Component({
   selector: 'kb-cut-profile-plot',
@@ -54,6 +57,12 @@ function path(points: readonly ContactPoint[], x: Axis, y: Axis, pick: (p: Conta
 export class CutProfilePlot {
   /** Samples from entry to the end of the cut (RecipeComputed's profile). */
   readonly points = input.required<readonly ContactPoint[]>();
+  /** What the left series is (RecipeComputed's profileMeasure). */
+  readonly measure = input<ContactMeasure>('contact-length');
+
+  protected readonly lengthLabel = computed(() => CONTACT_MEASURE_LABELS[this.measure()]);
+  /** Said under the plot when the length is not a contact arc. */
+  protected readonly lengthNote = computed(() => (this.measure() === 'removal-length-per-turn' ? REMOVAL_LENGTH_PER_TURN_NOTE : null));
 
   protected readonly view = VIEW;
   protected readonly plot = PLOT;
@@ -84,10 +93,11 @@ export class CutProfilePlot {
   });
 
   protected readonly summary = computed(() => {
-    if (!this.hasData()) return 'Cut profile: not enough values yet to plot contact length and removal rate.';
+    const length = this.lengthLabel().toLowerCase();
+    if (!this.hasData()) return `Cut profile: not enough values yet to plot ${length} and removal rate.`;
     const { byContact, byRemoval, depth } = this.peaks();
     return (
-      `Cut profile over ${label(depth)} mm of depth: contact length peaks at ${label(byContact.contactMm)} mm ` +
+      `Cut profile over ${label(depth)} mm of depth: ${length} peaks at ${label(byContact.contactMm)} mm ` +
       `at ${label(byContact.depthMm)} mm deep; removal rate peaks at ${label(byRemoval.removalMm3S)} mm³/s ` +
       `at ${label(byRemoval.depthMm)} mm deep.`
     );

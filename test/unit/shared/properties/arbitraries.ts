@@ -13,6 +13,7 @@ import {
   COOLANT_TYPES,
   CUT_MOTIONS,
   CUT_ORIENTATIONS,
+  FEED_DIRECTIONS,
   HARDNESS_SCALES,
   MACHINE_CLASSES,
   MATERIAL_GROUPS,
@@ -106,6 +107,7 @@ export const group = fc.constantFrom(...MATERIAL_GROUPS);
 export const scale = fc.constantFrom(...HARDNESS_SCALES);
 export const motion = fc.constantFrom(...CUT_MOTIONS);
 export const shape = fc.constantFrom(...SHAPES);
+export const feedDirection = fc.constantFrom(...FEED_DIRECTIONS);
 
 /** Wheel markings that parse: conventional (A60K5V, C46KBF) and superabrasive (D126M, CB151N100B). */
 export const validMarking = fc.oneof(
@@ -135,7 +137,11 @@ export const hardnessWindow: fc.Arbitrary<HardnessWindow> = fc
   .tuple(above(0, 3000), above(0, 3000), scale)
   .map(([a, b, s]) => ({ min: Math.min(a, b), max: Math.max(a, b), scale: s }));
 
-/** A stored wheel as wheelBody allows it (diameter over 10 to 1000 mm, over 0.05 to 20 mm thick, over 1 to 200 m/s). */
+/**
+ * A stored wheel as wheelBody allows it (diameter over 10 to 1000 mm, over 0.05 to 20 mm
+ * thick, over 1 to 200 m/s), with or without its own smallest usable diameter (over 10 mm,
+ * below the new diameter).
+ */
 export const validWheel: fc.Arbitrary<WheelRecord> = fc
   .record({
     kind: fc.constantFrom(...WHEEL_KINDS),
@@ -145,8 +151,12 @@ export const validWheel: fc.Arbitrary<WheelRecord> = fc
     maxSpeedMs: above(1, 200),
     dryAllowed: fc.boolean(),
     archived: fc.boolean(),
+    minUsableShare: orNull(finite(0, 0.999)),
   })
-  .map((over) => wheel(over));
+  .map(({ minUsableShare, ...over }) => {
+    const own = minUsableShare === null ? null : 10 + minUsableShare * (over.diameterMm - 10);
+    return wheel({ ...over, minUsableDiameterMm: own !== null && own > 10 && own < over.diameterMm ? own : null });
+  });
 
 /** A stored machine as machineBody allows it (ordered ranges, flange below the largest wheel). */
 export const validMachine: fc.Arbitrary<MachineRecord> = fc
@@ -158,17 +168,25 @@ export const validMachine: fc.Arbitrary<MachineRecord> = fc
     feed: fc.tuple(above(0, 50), above(0, 50)),
     cutMotions: fc.subarray([...CUT_MOTIONS], { minLength: 1 }),
     clampingMethods: fc.subarray([...CLAMPING_METHODS], { minLength: 1 }),
+    feedDirection,
+    spindleLimitShare: orNull(finite(0, 1)),
     archived: fc.boolean(),
   })
-  .map(({ wheels: [w1, w2], flangeShare, rpm: [r1, r2], feed: [f1, f2], ...rest }) => {
+  .map(({ wheels: [w1, w2], flangeShare, rpm: [r1, r2], feed: [f1, f2], spindleLimitShare, ...rest }) => {
     const wheelDiameterMaxMm = Math.max(w1, w2);
+    const rpmMax = Math.max(r1, r2);
+    // A limit over 1 rpm, at most the top speed (the schema's window).
+    const limit = spindleLimitShare === null ? null : spindleLimitShare * rpmMax;
+    const spindleLimitRpm = limit !== null && limit > 1 ? limit : null;
     return machine({
       ...rest,
+      spindleLimitRpm,
+      spindleLimitSetBy: spindleLimitRpm === null ? '' : 'Maintenance',
       wheelDiameterMinMm: Math.min(w1, w2),
       wheelDiameterMaxMm,
       flangeDiameterMm: Math.max(5, Math.min(500, flangeShare * wheelDiameterMaxMm)),
       rpmMin: Math.min(r1, r2),
-      rpmMax: Math.max(r1, r2),
+      rpmMax,
       feedMinMmS: Math.min(f1, f2),
       feedMaxMmS: Math.max(f1, f2),
     });
@@ -243,7 +261,12 @@ export const validContext: fc.Arbitrary<RecipeContext> = fc.record({
   material: orNull(validMaterial),
   wheel: orNull(validWheel),
   machine: orNull(validMachine),
-  limits: fc.record({ feedCeilingsMmS: fc.dictionary(group, above(0, 50), { maxKeys: 4 }) }),
+  limits: fc.record({
+    feedCeilingsMmS: fc.dictionary(group, above(0, 50), { maxKeys: 4 }),
+    // A share a lab would set (a wheel worn to a tenth or to almost nothing is not one), any allowance from 0 to 2 mm.
+    wornDiameterShare: finite(0.1, 0.99),
+    kerfAllowanceMm: finite(0, 2),
+  }),
 });
 
 /** Dotted paths of the content's number and text leaves. */

@@ -1,12 +1,32 @@
 import { expect } from 'chai';
 import fc from 'fast-check';
-import { capacityFit, CUT_CLEARANCE_MM, cuttableSizeMm, cuttingDepthMm } from '../../../../shared/capacity';
-import type { CutMotion, Shape } from '../../../../shared/vocabulary';
-import { anyNumber, finite, motion, outsidePrimitive, RUNS, shape } from './arbitraries';
+import {
+  capacityFit,
+  capacityLimitOf,
+  chordDepthMm,
+  CUT_CLEARANCE_MM,
+  cuttingDepthMm,
+  smallestWheelDiameterMm,
+  type CapacityPart,
+  type CapacitySetup,
+} from '../../../../shared/capacity';
+import type { CutMotion, FeedDirection, Shape } from '../../../../shared/vocabulary';
+import { anyNumber, feedDirection, finite, motion, outsidePrimitive, realistic, RUNS, shape } from './arbitraries';
 
 const diameter = finite(10, 1000);
 const flange = finite(5, 500);
 const size = finite(0, 2000);
+
+/** A part of any shape with the dimensions its shape needs (a tube's wall below its radius). */
+const part: fc.Arbitrary<CapacityPart> = fc
+  .record({ shape, sizeMaxMm: realistic(0.001, 2000), widthMm: realistic(0, 2000), wallShare: finite(0.001, 0.499) })
+  .map(({ shape: s, sizeMaxMm, widthMm, wallShare }) => ({
+    shape: s,
+    sizeMaxMm,
+    widthMm: s === 'rectangular' ? widthMm : null,
+    wallMm: s === 'tube' ? wallShare * sizeMaxMm : null,
+  }));
+const setup: fc.Arbitrary<CapacitySetup> = fc.record({ wheelDiameterMm: diameter, flangeDiameterMm: flange, feedDirection, motion });
 
 describe('shared/capacity (properties)', () => {
   it('the depth is never negative, never more than the wheel radius beyond the flange, and finite', () => {
@@ -32,37 +52,77 @@ describe('shared/capacity (properties)', () => {
     );
   });
 
-  it('the cuttable size is the depth, or twice it only when a round part turns', () => {
+  it('a wider section never cuts deeper, and the corners never reach deeper than a thin section (chord ≤ radius)', () => {
     fc.assert(
-      fc.property(finite(0, 1000), motion, shape, (depth, m, s) => {
-        const cuttable = cuttableSizeMm(depth, m, s);
-        expect(cuttable).to.equal(m === 'turning-specimen' && s !== 'rectangular' ? 2 * depth : depth);
+      fc.property(diameter, flange, size, size, (d, f, w1, w2) => {
+        const narrow = chordDepthMm(d, f, Math.min(w1, w2));
+        expect(narrow).to.be.at.least(chordDepthMm(d, f, Math.max(w1, w2)));
+        expect(narrow).to.be.at.most(cuttingDepthMm(d, f) + 1e-9);
+        expect(chordDepthMm(d, f, 0)).to.be.closeTo(cuttingDepthMm(d, f), 1e-9);
       }),
       { numRuns: RUNS },
     );
   });
 
-  it('fits exactly when the margin is not negative, and the margin is cuttable size − largest size', () => {
+  it('which limit applies: turned round parts by their centre or wall, a rectangle coming down by its corners, the rest by the radius', () => {
     fc.assert(
-      fc.property(size, diameter, flange, motion, shape, (sizeMax, d, f, m, s) => {
-        const fit = capacityFit(sizeMax, d, f, m, s);
+      fc.property(motion, shape, feedDirection, (m, s, fd) => {
+        const limit = capacityLimitOf(m, s, fd);
+        if (m === 'turning-specimen' && s !== 'rectangular') expect(limit).to.equal(s === 'tube' ? 'turned-through-wall' : 'turned-to-centre');
+        else expect(limit).to.equal(s === 'rectangular' && fd === 'wheel-down' && m !== 'traverse-pass' ? 'chord' : 'radius');
+      }),
+      { numRuns: RUNS },
+    );
+  });
+
+  it('fits exactly when the margin is not negative; the margin is cuttable − the part; a smaller part fits wherever a larger one does', () => {
+    fc.assert(
+      fc.property(part, setup, (p, s) => {
+        const fit = capacityFit(p, s)!;
         expect(fit.fits).to.equal(fit.marginMm >= 0);
-        expect(fit.marginMm).to.equal(fit.cuttableSizeMm - sizeMax);
-        expect(fit.depthMm).to.equal(cuttingDepthMm(d, f));
+        expect(fit.marginMm).to.equal(fit.cuttableSizeMm - fit.partMm);
+        expect(fit.partMm).to.equal(fit.limit === 'turned-through-wall' ? p.wallMm : p.sizeMaxMm);
+        expect(fit.depthMm).to.equal(cuttingDepthMm(s.wheelDiameterMm, s.flangeDiameterMm));
         for (const n of [fit.depthMm, fit.cuttableSizeMm, fit.marginMm]) expect(Number.isFinite(n)).to.equal(true);
-        // A smaller part fits wherever a larger one does.
-        if (fit.fits) expect(capacityFit(sizeMax / 2, d, f, m, s).fits).to.equal(true);
+        const half = { ...p, sizeMaxMm: p.sizeMaxMm / 2, wallMm: p.wallMm === null ? null : p.wallMm / 2 };
+        if (fit.fits) expect(capacityFit(half, s)!.fits).to.equal(true);
+        // The part horizontal never cuts less than the wheel coming down.
+        if (fit.fits && s.feedDirection === 'wheel-down') expect(capacityFit(p, { ...s, feedDirection: 'part-horizontal' })!.fits).to.equal(true);
       }),
       { numRuns: RUNS },
     );
   });
 
-  it('never throws, whatever numbers, motions or shapes it is given', () => {
+  it('the smallest wheel for a part cuts it exactly, and any larger wheel cuts it too', () => {
     fc.assert(
-      fc.property(fc.array(fc.oneof(anyNumber, outsidePrimitive), { minLength: 6, maxLength: 6 }), ([a, b, c, d, e, f]) => {
+      fc.property(part, setup, finite(0, 500), (p, s, extra) => {
+        const { wheelDiameterMm: _unused, ...rest } = s;
+        const d = smallestWheelDiameterMm(p, rest)!;
+        expect(Number.isFinite(d)).to.equal(true);
+        const at = capacityFit(p, { ...s, wheelDiameterMm: d })!;
+        expect(at.marginMm).to.be.closeTo(0, 1e-9 * Math.max(1, d));
+        expect(capacityFit(p, { ...s, wheelDiameterMm: d * (1 + 1e-9) + extra })!.fits).to.equal(true);
+      }),
+      { numRuns: RUNS },
+    );
+  });
+
+  it('never throws, whatever numbers, motions, shapes or directions it is given', () => {
+    fc.assert(
+      fc.property(fc.array(fc.oneof(anyNumber, outsidePrimitive), { minLength: 8, maxLength: 8 }), ([a, b, c, d, e, f, g, h]) => {
         cuttingDepthMm(a as number, b as number, c as number);
-        cuttableSizeMm(a as number, d as CutMotion, e as Shape);
-        capacityFit(a as number, b as number, c as number, d as CutMotion, e as Shape, f as number);
+        chordDepthMm(a as number, b as number, c as number, d as number);
+        capacityLimitOf(d as CutMotion, e as Shape, f as FeedDirection);
+        const p = { shape: e as Shape, sizeMaxMm: a as number, widthMm: g as number, wallMm: h as number };
+        const s = {
+          wheelDiameterMm: b as number,
+          flangeDiameterMm: c as number,
+          feedDirection: f as FeedDirection,
+          motion: d as CutMotion,
+          clearanceMm: h as number,
+        };
+        capacityFit(p, s);
+        smallestWheelDiameterMm(p, s);
       }),
       { numRuns: RUNS },
     );

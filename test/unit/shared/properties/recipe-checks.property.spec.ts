@@ -36,7 +36,7 @@ describe('shared/recipe-checks (properties)', () => {
     );
   });
 
-  it('flags what its rule says, exactly: missing stock, overspeed, capacity, hazardous dust dry', () => {
+  it('flags what its rule says, exactly: missing stock, overspeed, capacity new and worn, hazardous dust dry', () => {
     fc.assert(
       fc.property(validContent, validContext, (c, ctx) => {
         const ids = new Set(runChecks(c, ctx).map((r) => r.id));
@@ -45,6 +45,7 @@ describe('shared/recipe-checks (properties)', () => {
         expect(ids.has('wheel-missing')).to.equal(ctx.wheel === null);
         expect(ids.has('wheel-overspeed')).to.equal(computed.peripheralSpeedMs !== null && computed.peripheralSpeedMs > computed.markedMaxSpeedMs!);
         expect(ids.has('scope-exceeds-capacity')).to.equal(computed.capacityFits === false);
+        expect(ids.has('scope-exceeds-worn-capacity')).to.equal(computed.capacityFits === true && computed.wornWheel?.capacityFits === false);
         expect(ids.has('hazardous-dust-dry')).to.equal(ctx.material?.hazardousDust === true && c.coolant.type === 'dry');
         expect(ids.has('clamping-missing')).to.equal(c.clamping.method === null);
       }),

@@ -43,11 +43,48 @@ describe('shared/recipe-computations (properties)', () => {
           expect(r.peakRemovalMm3S).to.equal(Math.max(0, ...r.profile!.map((p) => p.removalMm3S)));
         }
         if (ctx.wheel && ctx.machine) {
-          const fit = capacityFit(c.scope.sizeMaxMm, ctx.wheel.diameterMm, ctx.machine.flangeDiameterMm, c.cutting.cutMotion, c.scope.shape);
+          const fit = capacityFit(c.scope, {
+            wheelDiameterMm: ctx.wheel.diameterMm,
+            flangeDiameterMm: ctx.machine.flangeDiameterMm,
+            feedDirection: ctx.machine.feedDirection,
+            motion: c.cutting.cutMotion,
+          })!;
           expect(r.capacityFits).to.equal(fit.fits);
           expect(r.capacityMarginMm).to.equal(fit.marginMm);
+          expect(r.capacityLimit).to.equal(fit.limit);
         }
         if (r.hardness && r.hardness.minHv !== null && r.hardness.maxHv !== null) expect(r.hardness.minHv).to.be.at.most(r.hardness.maxHv + 1e-9);
+      }),
+      { numRuns: RUNS },
+    );
+  });
+
+  it('the worn wheel: smaller than new, never cuts more, runs slower at the same rpm; the held rpm keeps within every cap', () => {
+    fc.assert(
+      fc.property(validContent, validContext, (c, ctx) => {
+        const r = computeRecipe(c, ctx);
+        const w = r.wornWheel;
+        expect(w === null).to.equal(ctx.wheel === null);
+        if (!ctx.wheel || !w) return;
+        expect(r.kerfLossMm).to.equal(ctx.wheel.thicknessMm + ctx.limits.kerfAllowanceMm);
+        // Only a rim wheel without its own smallest diameter has none.
+        expect(w.diameterMm === null).to.equal(ctx.wheel.kind === 'rim' && ctx.wheel.minUsableDiameterMm === null);
+        if (w.diameterMm === null) return;
+        expect(w.diameterMm).to.be.below(ctx.wheel.diameterMm);
+        expect(w.source).to.equal(ctx.wheel.minUsableDiameterMm === null ? 'lab-default' : 'wheel');
+        expect(w.peripheralSpeedMs!).to.be.at.most(r.peripheralSpeedMs!); // below, where the rpm is not so small both are 0
+        expect(w.rpmToHoldSpeed!).to.be.closeTo((c.cutting.wheelRpm * ctx.wheel.diameterMm) / w.diameterMm, 1e-9 * w.rpmToHoldSpeed!);
+        expect(w.heldRpm!).to.be.at.most(w.rpmToHoldSpeed! * (1 + 1e-12));
+        // Never above the marked maximum at the worn diameter, nor the machine's top speed or limit.
+        if (w.heldRpm! >= 1) expect(w.heldSpeedMs!).to.be.at.most(ctx.wheel.maxSpeedMs * (1 + 1e-9));
+        if (ctx.machine && w.heldRpm! >= 1) {
+          expect(w.heldRpm!).to.be.at.most(ctx.machine.rpmMax);
+          if (ctx.machine.spindleLimitRpm !== null) expect(w.heldRpm!).to.be.at.most(ctx.machine.spindleLimitRpm);
+        }
+        if (r.capacityFits !== null) {
+          expect(w.cuttableSizeMm!).to.be.at.most(r.cuttableSizeMm! + 1e-9);
+          if (w.capacityFits) expect(r.capacityFits).to.equal(true);
+        }
       }),
       { numRuns: RUNS },
     );
