@@ -76,6 +76,37 @@ const result = (id: string, severity: CheckSeverity, path: string | null, messag
 
 const isPositive = (v: unknown): v is number => typeof v === 'number' && Number.isFinite(v) && v > 0;
 
+/** Watts as kW to three significant figures (1.2, 0.75, 12.3). */
+const kw = (w: number) => String(Number((w / 1000).toPrecision(3)));
+
+/**
+ * Estimated peak cutting power against the machine's motor: a warning above the lab's share
+ * of it, a note when the machine record has no motor power (the check cannot be made).
+ */
+function cuttingPowerCheck({ ctx, computed }: Facts): CheckResult | null {
+  const p = computed.cutPower;
+  const m = ctx.machine;
+  if (!m || !p || p.peakPowerW === null) return null;
+  const estimate = `${kw(p.peakPowerW)} kW at ${p.specificEnergyJMm3} J/mm³`;
+  if (p.motorPowerW === null || p.motorSharePct === null)
+    return result(
+      'motor-power-unknown',
+      'note',
+      'cutting.machineId',
+      `The motor power of ${m.name} is not recorded, so the estimated peak cutting power (${estimate}) is not checked against it.`,
+      "Record the motor's rated power on the machine to have the cutting power checked against it.",
+    );
+  if (p.motorSharePct <= p.warningSharePct) return null;
+  const share = p.motorSharePct > 100 ? `more than the ${kw(p.motorPowerW)} kW motor` : `${p.motorSharePct.toFixed(0)} % of the ${kw(p.motorPowerW)} kW motor`;
+  return result(
+    'cutting-power-high',
+    'warning',
+    'cutting.feedMmS',
+    `The estimated peak cutting power (${estimate}) is ${share} of ${m.name}; the lab warns above ${p.warningSharePct} %. Lower the feed, or shorten the contact with a rocking, pulsed or stepped cut.`,
+    "Cutting power ≈ removal rate × specific cutting energy (Malkin & Guo, Grinding Technology, 2nd ed.); the energy per material group is an order-of-magnitude lab setting. Near the motor's limit the wheel slows, the cut heats up and the wheel can stall or jam (common practice).",
+  );
+}
+
 /** The rules, in the order they are reported within a severity. */
 const RULES: readonly Rule[] = [
   ({ ctx }) =>
@@ -344,6 +375,8 @@ const RULES: readonly Rule[] = [
     if (ctx.machine?.archived) out.push(result('stock-archived', 'warning', 'cutting.machineId', `The machine "${ctx.machine.name}" is archived.`, reason));
     return out;
   },
+
+  cuttingPowerCheck,
 ];
 
 /** Every rule id runChecks can report. */
@@ -370,6 +403,8 @@ export const CHECK_IDS = [
   'hazardous-dust-dry',
   'coolant-concentration',
   'stock-archived',
+  'cutting-power-high',
+  'motor-power-unknown',
 ] as const;
 export type CheckId = (typeof CHECK_IDS)[number];
 

@@ -1,11 +1,12 @@
 /**
  * Everything the recipe editor, the recipe page and the bench sheet show as computed:
- * peripheral speed, capacity, contact and removal, cutting time, hardness. Called on every
+ * peripheral speed, capacity, contact and removal, cutting time, hardness, cutting power. Called on every
  * (debounced) keystroke, so it must stay cheap and must not throw on half-typed content:
  * every field is null while an input it needs is missing.
  */
 import { capacityFit } from './capacity';
 import { contactProfile, estimateCutTimeS, peakRemovalMm3S, type ContactPoint, type CutSection, type CutSetup } from './contact-length';
+import { cutPower, DEFAULT_POWER_WARNING_PCT, type CutPower } from './cutting-power';
 import { conversionApplies, convertHardness, HARDNESS_CAVEATS } from './hardness';
 import { maxRpmForWheel, peripheralSpeedMs, speedMargin, toFtPerMin } from './peripheral-speed';
 import type { RecipeContext } from './recipe-context';
@@ -57,6 +58,12 @@ export interface RecipeComputed {
   cutTimeS: number | null;
   /** Scope hardness in HV where conversion applies. */
   hardness: ComputedHardness | null;
+  /**
+   * Cutting power, tangential force and equivalent chip thickness along the cut at the
+   * scope's largest size (the same depths as `profile`), with the peaks and the motor's
+   * share; null while there is no profile.
+   */
+  cutPower: CutPower | null;
 }
 
 /** A positive finite number, or null (half-typed input). */
@@ -138,5 +145,21 @@ export function computeRecipe(content: RecipeContent, ctx: RecipeContext): Recip
     peakRemovalMm3S: profile ? peakRemovalMm3S(profile) : null,
     cutTimeS: cutTime !== null && Number.isFinite(cutTime) ? cutTime : null,
     hardness: computeHardness(content, ctx),
+    cutPower: profile && setup ? computeCutPower(profile, setup.wheelThicknessMm, speed, content, ctx) : null,
   };
+}
+
+/** Power and heat along the cut: the scope's group gives the specific energy (lab setting). */
+function computeCutPower(profile: ContactPoint[], wheelThicknessMm: number, speedMs: number | null, content: RecipeContent, ctx: RecipeContext): CutPower {
+  const group = content.scope?.group ?? ctx.material?.group ?? null;
+  const energies = ctx.limits?.specificEnergyJMm3;
+  const u = group && energies && Object.hasOwn(energies, group) ? (energies[group] ?? null) : null;
+  const share = ctx.limits?.powerWarningPct;
+  return cutPower(profile, {
+    specificEnergyJMm3: u,
+    peripheralSpeedMs: speedMs,
+    wheelThicknessMm,
+    motorPowerKw: ctx.machine?.motorPowerKw ?? null,
+    warningSharePct: typeof share === 'number' && Number.isFinite(share) && share > 0 ? share : DEFAULT_POWER_WARNING_PCT,
+  });
 }

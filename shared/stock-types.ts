@@ -25,4 +25,8 @@ export type SelectionRow = SelectionRowBody & { id: number };
 export interface LabLimits {
   /** Feed ceilings per material group, mm/s: above it the feed check warns. */
   feedCeilingsMmS: Partial<Record<MaterialGroup, number>>;
+  /** Specific cutting energy per material group, J/mm³ (order of magnitude): cutting power = removal rate × this. */
+  specificEnergyJMm3: Partial<Record<MaterialGroup, number>>;
+  /** Share of the machine's motor power above which the peak cutting power gets a warning, %. */
+  powerWarningPct: number;
 }

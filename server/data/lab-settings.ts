@@ -9,6 +9,8 @@ export interface LabSettingsRow {
   sheet_paper: 'A4' | 'Letter';
   default_units: string;
   feed_ceilings_json: unknown;
+  specific_energy_json: unknown;
+  power_warning_pct: number | null;
   updated_at: Date;
 }
 
@@ -18,4 +20,8 @@ export async function findLabSettings(db: Knex): Promise<LabSettingsRow | undefi
 
 export function feedCeilingsOf(row: LabSettingsRow | undefined): Record<string, number> {
   return row?.feed_ceilings_json == null ? {} : fromJsonColumn<Record<string, number>>(row.feed_ceilings_json);
+}
+
+export function specificEnergiesOf(row: LabSettingsRow | undefined): Record<string, number> {
+  return row?.specific_energy_json == null ? {} : fromJsonColumn<Record<string, number>>(row.specific_energy_json);
 }

@@ -1,16 +1,32 @@
-/** The lab settings the computations and checks need (feed ceilings per material group). */
+/** The lab settings the computations and checks need (feed ceilings per material group; cutting energy and power share). */
 import type { Knex } from 'knex';
+import { DEFAULT_POWER_WARNING_PCT } from '../../../shared/cutting-power';
 import type { LabLimits } from '../../../shared/stock-types';
 import { MATERIAL_GROUPS, type MaterialGroup } from '../../../shared/vocabulary';
-import { feedCeilingsOf, findLabSettings } from '../../data/lab-settings';
+import { feedCeilingsOf, findLabSettings, specificEnergiesOf, type LabSettingsRow } from '../../data/lab-settings';
 
 export async function getLabLimits(db: Knex): Promise<LabLimits> {
-  const stored = feedCeilingsOf(await findLabSettings(db));
+  const row = await findLabSettings(db);
+  const stored = feedCeilingsOf(row);
   const feedCeilingsMmS: LabLimits['feedCeilingsMmS'] = {};
   // Only known groups with a usable number reach the checks.
   for (const group of MATERIAL_GROUPS) {
     const value = stored[group];
     if (typeof value === 'number' && Number.isFinite(value) && value > 0) feedCeilingsMmS[group as MaterialGroup] = value;
   }
-  return { feedCeilingsMmS };
+  return { feedCeilingsMmS, ...cuttingPowerLimits(row) };
+}
+
+/** Specific cutting energy per known group (usable numbers only) and the power warning share. */
+function cuttingPowerLimits(row: LabSettingsRow | undefined): Pick<LabLimits, 'specificEnergyJMm3' | 'powerWarningPct'> {
+  const stored = specificEnergiesOf(row);
+  const specificEnergyJMm3: LabLimits['specificEnergyJMm3'] = {};
+  for (const group of MATERIAL_GROUPS) {
+    const value = stored[group];
+    if (typeof value === 'number' && Number.isFinite(value) && value > 0) specificEnergyJMm3[group] = value;
+  }
+  const share = row?.power_warning_pct;
+  // A row the data migration has not filled yet still gets the usual share.
+  const powerWarningPct = typeof share === 'number' && Number.isFinite(share) && share > 0 ? share : DEFAULT_POWER_WARNING_PCT;
+  return { specificEnergyJMm3, powerWarningPct };
 }

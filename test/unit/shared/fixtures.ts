@@ -153,5 +153,5 @@ export function content(
 }
 
 export function ctx(over: Partial<RecipeContext> = {}): RecipeContext {
-  return { material: material(), wheel: wheel(), machine: machine(), limits: { feedCeilingsMmS: {} }, ...over };
+  return { material: material(), wheel: wheel(), machine: machine(), limits: { feedCeilingsMmS: {}, specificEnergyJMm3: {}, powerWarningPct: 80 }, ...over };
 }

@@ -147,10 +147,10 @@ describe('shared/recipe-checks', () => {
   });
 
   it("feed-above-ceiling (warning): the lab's ceiling for the group", () => {
-    const limits = { feedCeilingsMmS: { 'plain-low-alloy-steel': 0.4 } };
+    const limits = { ...ctx().limits, feedCeilingsMmS: { 'plain-low-alloy-steel': 0.4 } };
     expect(find(content(), ctx({ limits }), 'feed-above-ceiling')!.message).to.contain('0.4 mm/s');
     expect(ids(content({ cutting: { feedMmS: 0.4 } }), ctx({ limits }))).to.not.include('feed-above-ceiling');
-    expect(ids(content(), ctx({ limits: { feedCeilingsMmS: { copper: 0.1 } } }))).to.not.include('feed-above-ceiling');
+    expect(ids(content(), ctx({ limits: { ...ctx().limits, feedCeilingsMmS: { copper: 0.1 } } }))).to.not.include('feed-above-ceiling');
   });
 
   it('orientation-rule-missing (warning): coated or case-hardened without an orientation rule', () => {
@@ -209,6 +209,42 @@ describe('shared/recipe-checks', () => {
     ).filter((x) => x.id === 'stock-archived');
     expect(r.map((x) => x.path)).to.deep.equal(['scope.materialId', 'cutting.wheelId', 'cutting.machineId']);
     expect(r.every((x) => x.severity === 'warning')).to.equal(true);
+  });
+
+  describe("cutting power against the motor (P = Q · u, Malkin & Guo, Grinding Technology, 2nd ed.; the lab's share, common practice)", () => {
+    // The fixture cuts a Ø40 bar with a 1.5 mm wheel at 0.5 mm/s: Q = 0.5 × 1.5 × 40 = 30 mm³/s at the centre;
+    // at 40 J/mm³, P = 30 × 40 = 1200 W — computed by hand.
+    const limits = (powerWarningPct: number) => ({ ...ctx().limits, specificEnergyJMm3: { 'plain-low-alloy-steel': 40 }, powerWarningPct });
+    const on = (motorPowerKw: number | null, pct = 80) => ctx({ machine: machine({ motorPowerKw }), limits: limits(pct) });
+
+    it('cutting-power-high (warning): present just above the share, absent at it (1200 W of a 1.5 kW motor = 80 %)', () => {
+      expect(ids(content(), on(1.5))).to.not.include('cutting-power-high');
+      expect(ids(content(), on(1.5, 79.9))).to.include('cutting-power-high');
+      const high = find(content(), on(1.49), 'cutting-power-high')!; // 1200 / 1490 = 80.5 %
+      expect(high).to.deep.include({ severity: 'warning', path: 'cutting.feedMmS' });
+      expect(high.message).to.contain('1.2 kW at 40 J/mm³').and.contain('81 % of the 1.49 kW motor').and.contain('above 80 %');
+      expect(high.reason).to.contain('Malkin & Guo').and.contain('order-of-magnitude');
+      // A lower feed brings it under the share: 0.4 × 1.5 × 40 × 40 = 960 W = 64 %.
+      expect(ids(content({ cutting: { feedMmS: 0.4 } }), on(1.49))).to.not.include('cutting-power-high');
+    });
+
+    it('says when the estimate is above the motor itself (1200 W on a 1 kW motor)', () => {
+      expect(find(content(), on(1), 'cutting-power-high')!.message).to.contain('more than the 1 kW motor');
+    });
+
+    it('motor-power-unknown (note) instead of silence when the machine does not give its motor power', () => {
+      const note = find(content(), on(null), 'motor-power-unknown')!;
+      expect(note).to.deep.include({ severity: 'note', path: 'cutting.machineId' });
+      expect(note.message).to.contain('Bench saw').and.contain('1.2 kW');
+      expect(ids(content(), on(null))).to.not.include('cutting-power-high');
+      expect(ids(content(), on(5.5))).to.not.include('motor-power-unknown');
+    });
+
+    it('neither when no specific energy is set for the group (nothing to check)', () => {
+      const none = ctx({ machine: machine({ motorPowerKw: null }) });
+      expect(ids(content(), none)).to.not.include('motor-power-unknown');
+      expect(ids(content(), ctx({ machine: machine({ motorPowerKw: 0.5 }) }))).to.not.include('cutting-power-high');
+    });
   });
 
   it('never throws on half-typed content', () => {

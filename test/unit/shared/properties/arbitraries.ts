@@ -158,6 +158,7 @@ export const validMachine: fc.Arbitrary<MachineRecord> = fc
     feed: fc.tuple(above(0, 50), above(0, 50)),
     cutMotions: fc.subarray([...CUT_MOTIONS], { minLength: 1 }),
     clampingMethods: fc.subarray([...CLAMPING_METHODS], { minLength: 1 }),
+    motorPowerKw: orNull(above(0.01, 500)),
     archived: fc.boolean(),
   })
   .map(({ wheels: [w1, w2], flangeShare, rpm: [r1, r2], feed: [f1, f2], ...rest }) => {
@@ -243,7 +244,11 @@ export const validContext: fc.Arbitrary<RecipeContext> = fc.record({
   material: orNull(validMaterial),
   wheel: orNull(validWheel),
   machine: orNull(validMachine),
-  limits: fc.record({ feedCeilingsMmS: fc.dictionary(group, above(0, 50), { maxKeys: 4 }) }),
+  limits: fc.record({
+    feedCeilingsMmS: fc.dictionary(group, above(0, 50), { maxKeys: 4 }),
+    specificEnergyJMm3: fc.dictionary(group, above(0, 1000), { maxKeys: 6 }),
+    powerWarningPct: above(0, 200),
+  }),
 });
 
 /** Dotted paths of the content's number and text leaves. */
