@@ -73,7 +73,7 @@ const WHEEL: WheelRecord = {
   updatedAt: '2026-10-02T09:00:00.000Z',
 };
 const ROWS: SelectionRow[] = [{ id: 1, group: 'plain-low-alloy-steel', hardness: null, wheelId: 2, note: '' }];
-const LIMITS: LabLimits = { feedCeilingsMmS: { 'plain-low-alloy-steel': 1 } };
+const LIMITS: LabLimits = { feedCeilingsMmS: { 'plain-low-alloy-steel': 1 }, specificEnergyJMm3: { 'plain-low-alloy-steel': 30 }, powerWarningPct: 80 };
 
 function aDraft(overrides: Partial<RecipeVersionDto> = {}): RecipeVersionDto {
   return {

@@ -35,6 +35,7 @@ import { Notifier } from '../../core/notifier/notifier';
 import { Session } from '../../core/session/session';
 import { CutProfilePlot } from '../../ui/cut-profile-plot/cut-profile-plot';
 import { QuantityPipe } from '../../ui/quantity';
+import { NO_LAB_LIMITS } from '../../core/api/lab-limits';
 import { recipeVersions } from '../../core/api/recipe-versions';
 import { stockNamesOf } from '../../core/api/stock-names';
 import { CommentsPanel } from '../review/comments-panel';
@@ -50,6 +51,7 @@ import { RecipeCuts } from '../cuts/recipe-cuts';
 import { benchSheetUrl } from '../../core/api/bench-sheet';
 import { CheckSeverityLabel } from '../../ui/check-severity-label';
 import { RecipeApi } from '../../core/api/recipe-api';
+import { RecipeCutPower } from './recipe-cut-power';
 import { RecipeHistory } from './recipe-history';
 import { RecipeStatusChip } from '../../ui/recipe-status-chip';
 import { StandardCautions } from './standard-cautions';
@@ -77,6 +79,7 @@ const ATTACHMENT_ROLE_LABELS = { setup: 'Setup', 'good-face': 'Good cut face', '
     MatSelectModule,
     MatTabsModule,
     QuantityPipe,
+    RecipeCutPower,
     RecipeCuts,
     RecipeHistory,
     RecipeStatusChip,
@@ -192,8 +195,9 @@ export class RecipePage {
     const version = this.version();
     if (!version) return null;
     const { material, wheel, machine } = this.stockNames();
-    // Lab limits only matter to the checks, which the server has already run on this content.
-    return computeRecipe(version.content, { material, wheel, machine, limits: { feedCeilingsMmS: {} } });
+    // Lab limits matter to the checks, which the server has already run on this content, and to
+    // the cutting power figures, which RecipeCutPower computes with them in the Computed tab.
+    return computeRecipe(version.content, { material, wheel, machine, limits: NO_LAB_LIMITS });
   });
   protected readonly checks = computed<CheckResult[]>(() =>
     [...(this.version()?.checks ?? [])].sort((a, b) => SEVERITY_ORDER[a.severity] - SEVERITY_ORDER[b.severity]),
