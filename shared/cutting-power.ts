@@ -19,6 +19,7 @@
  * order-of-magnitude estimate, not a measurement.
  */
 import type { ContactPoint } from './contact-length';
+import { formatQuantity } from './units';
 
 /**
  * Share of the motor's power above which the peak cutting power gets a warning, % (the
@@ -117,4 +118,17 @@ export function cutPower(profile: readonly ContactPoint[], inputs: CutPowerInput
     motorSharePct: peakPowerW === null || motorW === null ? null : finiteOrNull((peakPowerW / motorW) * 100),
     warningSharePct: inputs.warningSharePct,
   };
+}
+
+/**
+ * The peak's share of the motor in words — "41 % of the 5.50 kW motor", "more than the
+ * 2.20 kW motor" — or null when either is unknown. One decimal where a whole number would
+ * hide that the share is above the lab's (80.4 % against 80 %).
+ */
+export function motorShareText(p: Pick<CutPower, 'motorSharePct' | 'motorPowerW' | 'warningSharePct'>): string | null {
+  if (p.motorSharePct === null || p.motorPowerW === null) return null;
+  const motor = formatQuantity(p.motorPowerW, 'power', 'metric');
+  if (p.motorSharePct > 100) return `more than the ${motor} motor`;
+  const digits = p.motorSharePct > p.warningSharePct && Math.round(p.motorSharePct) <= p.warningSharePct ? 1 : 0;
+  return `${p.motorSharePct.toFixed(digits)} % of the ${motor} motor`;
 }

@@ -10,6 +10,8 @@ import { computeRecipe, type RecipeComputed } from './recipe-computations';
 import type { RecipeContent } from './schemas/recipe';
 import { CLAMPING_METHOD_LABELS, CUT_MOTION_LABELS, MATERIAL_GROUP_LABELS, METALLIC_GROUPS, type MaterialGroup, type MachineClass } from './vocabulary';
 import { maxRpmForWheel } from './peripheral-speed';
+import { formatQuantity } from './units';
+import { motorShareText } from './cutting-power';
 import { ABRASIVE_FAMILY_LABELS, abrasiveFamily, parseWheelSpec, type AbrasiveFamily } from './wheel-spec';
 
 /** blocker: cannot be submitted; warning: the approver must acknowledge it; note: for information. */
@@ -76,9 +78,6 @@ const result = (id: string, severity: CheckSeverity, path: string | null, messag
 
 const isPositive = (v: unknown): v is number => typeof v === 'number' && Number.isFinite(v) && v > 0;
 
-/** Watts as kW to three significant figures (1.2, 0.75, 12.3). */
-const kw = (w: number) => String(Number((w / 1000).toPrecision(3)));
-
 /**
  * Estimated peak cutting power against the machine's motor: a warning above the lab's share
  * of it, a note when the machine record has no motor power (the check cannot be made).
@@ -87,7 +86,8 @@ function cuttingPowerCheck({ ctx, computed }: Facts): CheckResult | null {
   const p = computed.cutPower;
   const m = ctx.machine;
   if (!m || !p || p.peakPowerW === null) return null;
-  const estimate = `${kw(p.peakPowerW)} kW at ${p.specificEnergyJMm3} J/mm³`;
+  const power = (w: number) => formatQuantity(w, 'power', 'metric');
+  const estimate = `${power(p.peakPowerW)} at ${p.specificEnergyJMm3} J/mm³`;
   if (p.motorPowerW === null || p.motorSharePct === null)
     return result(
       'motor-power-unknown',
@@ -97,12 +97,11 @@ function cuttingPowerCheck({ ctx, computed }: Facts): CheckResult | null {
       "Record the motor's rated power on the machine to have the cutting power checked against it.",
     );
   if (p.motorSharePct <= p.warningSharePct) return null;
-  const share = p.motorSharePct > 100 ? `more than the ${kw(p.motorPowerW)} kW motor` : `${p.motorSharePct.toFixed(0)} % of the ${kw(p.motorPowerW)} kW motor`;
   return result(
     'cutting-power-high',
     'warning',
     'cutting.feedMmS',
-    `The estimated peak cutting power (${estimate}) is ${share} of ${m.name}; the lab warns above ${p.warningSharePct} %. Lower the feed, or shorten the contact with a rocking, pulsed or stepped cut.`,
+    `The estimated peak cutting power (${estimate}) is ${motorShareText(p)} of ${m.name}; the lab warns above ${p.warningSharePct} %. Lower the feed, or shorten the contact with a rocking, pulsed or stepped cut.`,
     "Cutting power ≈ removal rate × specific cutting energy (Malkin & Guo, Grinding Technology, 2nd ed.); the energy per material group is an order-of-magnitude lab setting. Near the motor's limit the wheel slows, the cut heats up and the wheel can stall or jam (common practice).",
   );
 }

@@ -1,6 +1,6 @@
 import { expect } from 'chai';
 import type { ContactPoint } from '../../../shared/contact-length';
-import { cuttingPowerW, cutPower, equivalentChipThicknessUm, removalPerWidthMm2S, tangentialForceN } from '../../../shared/cutting-power';
+import { cuttingPowerW, cutPower, equivalentChipThicknessUm, motorShareText, removalPerWidthMm2S, tangentialForceN } from '../../../shared/cutting-power';
 
 /**
  * Worked example, computed by hand: a Ø60 mm steel bar cut straight through with a 350 × 2.5 mm
@@ -81,5 +81,13 @@ describe('shared/cutting-power', () => {
       expect(p.peakChipThicknessUm).to.equal(null);
       expect(p.peakTangentialForceN).to.equal(null);
     });
+  });
+
+  it('says the share of the motor in words, with a decimal where a whole number would hide the excess', () => {
+    expect(motorShareText({ motorSharePct: 40.9, motorPowerW: 5500, warningSharePct: 80 })).to.equal('41 % of the 5.50 kW motor');
+    expect(motorShareText({ motorSharePct: 80.4, motorPowerW: 2200, warningSharePct: 80 })).to.equal('80.4 % of the 2.20 kW motor');
+    expect(motorShareText({ motorSharePct: 80, motorPowerW: 2200, warningSharePct: 80 })).to.equal('80 % of the 2.20 kW motor');
+    expect(motorShareText({ motorSharePct: 136, motorPowerW: 2200, warningSharePct: 80 })).to.equal('more than the 2.20 kW motor');
+    expect(motorShareText({ motorSharePct: null, motorPowerW: null, warningSharePct: 80 })).to.equal(null);
   });
 });

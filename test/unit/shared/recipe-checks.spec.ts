@@ -222,20 +222,20 @@ describe('shared/recipe-checks', () => {
       expect(ids(content(), on(1.5, 79.9))).to.include('cutting-power-high');
       const high = find(content(), on(1.49), 'cutting-power-high')!; // 1200 / 1490 = 80.5 %
       expect(high).to.deep.include({ severity: 'warning', path: 'cutting.feedMmS' });
-      expect(high.message).to.contain('1.2 kW at 40 J/mm³').and.contain('81 % of the 1.49 kW motor').and.contain('above 80 %');
+      expect(high.message).to.contain('1.20 kW at 40 J/mm³').and.contain('81 % of the 1.49 kW motor').and.contain('above 80 %');
       expect(high.reason).to.contain('Malkin & Guo').and.contain('order-of-magnitude');
       // A lower feed brings it under the share: 0.4 × 1.5 × 40 × 40 = 960 W = 64 %.
       expect(ids(content({ cutting: { feedMmS: 0.4 } }), on(1.49))).to.not.include('cutting-power-high');
     });
 
     it('says when the estimate is above the motor itself (1200 W on a 1 kW motor)', () => {
-      expect(find(content(), on(1), 'cutting-power-high')!.message).to.contain('more than the 1 kW motor');
+      expect(find(content(), on(1), 'cutting-power-high')!.message).to.contain('more than the 1.00 kW motor');
     });
 
     it('motor-power-unknown (note) instead of silence when the machine does not give its motor power', () => {
       const note = find(content(), on(null), 'motor-power-unknown')!;
       expect(note).to.deep.include({ severity: 'note', path: 'cutting.machineId' });
-      expect(note.message).to.contain('Bench saw').and.contain('1.2 kW');
+      expect(note.message).to.contain('Bench saw').and.contain('1.20 kW');
       expect(ids(content(), on(null))).to.not.include('cutting-power-high');
       expect(ids(content(), on(5.5))).to.not.include('motor-power-unknown');
     });

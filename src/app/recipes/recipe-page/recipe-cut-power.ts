@@ -30,16 +30,25 @@ import { CutPowerFigures } from '../../ui/cut-power-figures/cut-power-figures';
       }
     }
   `,
+  // Laid out like the computed values and the cut profile above it.
   styles: `
     :host {
-      display: grid;
-      grid-template-columns: repeat(auto-fit, minmax(280px, 1fr));
-      gap: 16px 32px;
-      margin-top: 16px;
+      display: flex;
+      flex-wrap: wrap;
+      gap: 24px;
+      padding: 16px 0 0;
+    }
+    .kb-power-figures {
+      flex: 1 1 380px;
+    }
+    .kb-power-plot {
+      flex: 1 1 420px;
+      max-width: 560px;
     }
     h2 {
       font: var(--mat-sys-title-small);
       margin: 0 0 8px;
+      color: var(--mat-sys-primary);
     }
   `,
   changeDetection: ChangeDetectionStrategy.OnPush,

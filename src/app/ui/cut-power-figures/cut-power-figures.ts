@@ -1,7 +1,7 @@
 import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
 import { MatIconModule } from '@angular/material/icon';
 import type { UnitPreference } from '@shared/api-types';
-import type { CutPower } from '@shared/cutting-power';
+import { motorShareText, type CutPower } from '@shared/cutting-power';
 import { formatQuantity, type QuantityKind } from '@shared/units';
 import { CUT_POWER_LABELS } from '@shared/vocabulary';
 
@@ -34,12 +34,10 @@ export class CutPowerFigures {
     return p.motorSharePct > p.warningSharePct ? 'above' : 'within';
   });
 
-  /** "41 % of the 5.50 kW motor", or "more than the 2.20 kW motor". */
+  /** "41 % of the 5.50 kW motor", or "More than the 2.20 kW motor". */
   protected readonly share = computed(() => {
-    const p = this.power();
-    if (p.motorSharePct === null || p.motorPowerW === null) return '';
-    const motor = formatQuantity(p.motorPowerW, 'power', 'metric');
-    return p.motorSharePct > 100 ? `More than the ${motor} motor` : `${p.motorSharePct.toFixed(0)} % of the ${motor} motor`;
+    const text = motorShareText(this.power()) ?? '';
+    return text.charAt(0).toUpperCase() + text.slice(1);
   });
 
   protected q(value: number | null | undefined, kind: QuantityKind): string {
