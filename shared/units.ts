@@ -166,9 +166,9 @@ export function formatQuantity(value: number | null | undefined, kind: QuantityK
         value,
         [
           [0.1, 4],
-          [10, 3],
+          [1, 3],
         ],
-        1,
+        2,
       )} µm`;
   }
 }

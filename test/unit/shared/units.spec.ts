@@ -81,6 +81,7 @@ describe('shared/units', () => {
       expect(formatQuantity(43.85, 'force', 'metric+imperial')).to.equal('43.9 N (9.86 lbf)'); // 43.85 / 4.448 = 9.858, computed by hand
       expect(formatQuantity(0.5847, 'chip-thickness', 'metric+imperial')).to.equal('0.585 µm');
       expect(formatQuantity(0.0095, 'chip-thickness', 'metric')).to.equal('0.0095 µm');
+      expect(formatQuantity(1.0698, 'chip-thickness', 'metric')).to.equal('1.07 µm');
     });
     it('shows a dash for missing values', () => {
       expect(formatQuantity(null, 'feed', 'metric')).to.equal('—');
