@@ -11,6 +11,8 @@ import type { RecipeContent } from './schemas/recipe';
 import { CLAMPING_METHOD_LABELS, CUT_MOTION_LABELS, MATERIAL_GROUP_LABELS, METALLIC_GROUPS, type MaterialGroup, type MachineClass } from './vocabulary';
 import { CAPACITY_LIMIT_RULES } from './capacity';
 import { maxRpmForWheel } from './peripheral-speed';
+import { formatQuantity } from './units';
+import { motorShareText } from './cutting-power';
 import { ABRASIVE_FAMILY_LABELS, abrasiveFamily, parseWheelSpec, type AbrasiveFamily } from './wheel-spec';
 
 /** blocker: cannot be submitted; warning: the approver must acknowledge it; note: for information. */
@@ -78,6 +80,34 @@ const result = (id: string, severity: CheckSeverity, path: string | null, messag
 });
 
 const isPositive = (v: unknown): v is number => typeof v === 'number' && Number.isFinite(v) && v > 0;
+
+/**
+ * Estimated peak cutting power against the machine's motor: a warning above the lab's share
+ * of it, a note when the machine record has no motor power (the check cannot be made).
+ */
+function cuttingPowerCheck({ ctx, computed }: Facts): CheckResult | null {
+  const p = computed.cutPower;
+  const m = ctx.machine;
+  if (!m || !p || p.peakPowerW === null) return null;
+  const power = (w: number) => formatQuantity(w, 'power', 'metric');
+  const estimate = `${power(p.peakPowerW)} at ${p.specificEnergyJMm3} J/mm³`;
+  if (p.motorPowerW === null || p.motorSharePct === null)
+    return result(
+      'motor-power-unknown',
+      'note',
+      'cutting.machineId',
+      `The motor power of ${m.name} is not recorded, so the estimated peak cutting power (${estimate}) is not checked against it.`,
+      "Record the motor's rated power on the machine to have the cutting power checked against it.",
+    );
+  if (p.motorSharePct <= p.warningSharePct) return null;
+  return result(
+    'cutting-power-high',
+    'warning',
+    'cutting.feedMmS',
+    `The estimated peak cutting power (${estimate}) is ${motorShareText(p)} of ${m.name}; the lab warns above ${p.warningSharePct} %. Lower the feed, or shorten the contact with a rocking, pulsed or stepped cut.`,
+    "Cutting power ≈ removal rate × specific cutting energy (Malkin & Guo, Grinding Technology, 2nd ed.); the energy per material group is an order-of-magnitude lab setting. Near the motor's limit the wheel slows, the cut heats up and the wheel can stall or jam (common practice).",
+  );
+}
 
 /** The rules, in the order they are reported within a severity. */
 const RULES: readonly Rule[] = [
@@ -378,6 +408,8 @@ const RULES: readonly Rule[] = [
     if (ctx.machine?.archived) out.push(result('stock-archived', 'warning', 'cutting.machineId', `The machine "${ctx.machine.name}" is archived.`, reason));
     return out;
   },
+
+  cuttingPowerCheck,
 ];
 
 /** Every rule id runChecks can report. */
@@ -405,6 +437,8 @@ export const CHECK_IDS = [
   'hazardous-dust-dry',
   'coolant-concentration',
   'stock-archived',
+  'cutting-power-high',
+  'motor-power-unknown',
 ] as const;
 export type CheckId = (typeof CHECK_IDS)[number];
 

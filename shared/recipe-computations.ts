@@ -1,11 +1,12 @@
 /**
  * Everything the recipe editor, the recipe page and the bench sheet show as computed:
  * peripheral speed, capacity, contact and removal, cutting time, hardness, the worn wheel and
- * the kerf. Called on every (debounced) keystroke, so it must stay cheap and must not throw
+ * the kerf, cutting power and heat. Called on every (debounced) keystroke, so it must stay cheap and must not throw
  * on half-typed content: every field is null while an input it needs is missing.
  */
 import { capacityFit, smallestWheelDiameterMm, type CapacityFit, type CapacityPart } from './capacity';
 import { contactMeasureOf, contactProfile, estimateCutTimeS, peakRemovalMm3S, type ContactPoint, type CutSection, type CutSetup } from './contact-length';
+import { cutPower, DEFAULT_POWER_WARNING_PCT, type CutPower } from './cutting-power';
 import { conversionApplies, convertHardness, HARDNESS_CAVEATS } from './hardness';
 import { maxRpmForWheel, peripheralSpeedMs, speedMargin, toFtPerMin } from './peripheral-speed';
 import type { RecipeContext } from './recipe-context';
@@ -81,6 +82,12 @@ export interface RecipeComputed {
   kerfLossMm: number | null;
   /** The allowance in it, mm. */
   kerfAllowanceMm: number | null;
+  /**
+   * Cutting power, tangential force and equivalent chip thickness along the cut at the
+   * scope's largest size (the same depths as `profile`), with the peaks and the motor's
+   * share; null while there is no profile.
+   */
+  cutPower: CutPower | null;
 }
 
 /** The chosen wheel at its smallest usable diameter. */
@@ -201,6 +208,7 @@ export function computeRecipe(content: RecipeContent, ctx: RecipeContext): Recip
     wornWheel: wheel && diameter !== null ? computeWornWheel(ctx, diameter, rpm, fitAt) : null,
     kerfLossMm: thickness !== null ? kerfLossMm(thickness, kerfAllowance(ctx)) : null,
     kerfAllowanceMm: thickness !== null ? kerfAllowance(ctx) : null,
+    cutPower: profile && setup ? computeCutPower(profile, setup.wheelThicknessMm, speed, content, ctx) : null,
   };
 }
 
@@ -262,4 +270,19 @@ function computeWornWheel(ctx: RecipeContext, newDiameter: number, rpm: number |
     heldRpmCappedBy: held?.cappedBy ?? null,
     heldSpeedMs: held ? peripheralSpeedMs(d, held.rpm) : null,
   };
+}
+
+/** Power and heat along the cut: the scope's group gives the specific energy (lab setting). */
+function computeCutPower(profile: ContactPoint[], wheelThicknessMm: number, speedMs: number | null, content: RecipeContent, ctx: RecipeContext): CutPower {
+  const group = content.scope?.group ?? ctx.material?.group ?? null;
+  const energies = ctx.limits?.specificEnergyJMm3;
+  const u = group && energies && Object.hasOwn(energies, group) ? (energies[group] ?? null) : null;
+  const share = ctx.limits?.powerWarningPct;
+  return cutPower(profile, {
+    specificEnergyJMm3: u,
+    peripheralSpeedMs: speedMs,
+    wheelThicknessMm,
+    motorPowerKw: ctx.machine?.motorPowerKw ?? null,
+    warningSharePct: typeof share === 'number' && Number.isFinite(share) && share > 0 ? share : DEFAULT_POWER_WARNING_PCT,
+  });
 }

@@ -29,4 +29,8 @@ export interface LabLimits {
   wornDiameterShare: number;
   /** Added to the wheel's thickness for the kerf loss, mm. */
   kerfAllowanceMm: number;
+  /** Specific cutting energy per material group, J/mm³ (order of magnitude): cutting power = removal rate × this. */
+  specificEnergyJMm3: Partial<Record<MaterialGroup, number>>;
+  /** Share of the machine's motor power above which the peak cutting power gets a warning, %. */
+  powerWarningPct: number;
 }

@@ -27,8 +27,15 @@ export const mmMinToMmS = (mmMin: number): number => mmMin / 60;
 /** mm³/s → in³/min. */
 export const mm3SToIn3Min = (mm3S: number): number => (mm3S * 60) / MM3_PER_IN3;
 
+/** Newtons in one pound-force: 0.45359237 kg × 9.80665 m/s² (exact, by the definitions of the pound and of standard gravity). */
+export const N_PER_LBF = 0.45359237 * 9.80665;
+/** Watts in one mechanical horsepower: 550 ft·lbf/s (exact from the foot and the pound-force). */
+export const W_PER_HP = 550 * M_PER_FOOT * N_PER_LBF;
+export const wToHp = (w: number): number => w / W_PER_HP;
+export const nToLbf = (n: number): number => n / N_PER_LBF;
+
 /** What a number measures: decides the metric unit, the imperial companion and the rounding. */
-export type QuantityKind = 'length' | 'feed' | 'speed' | 'rpm' | 'removal' | 'time';
+export type QuantityKind = 'length' | 'feed' | 'speed' | 'rpm' | 'removal' | 'time' | 'power' | 'force' | 'chip-thickness';
 
 /** Shown for a missing or non-finite value. */
 export const NO_VALUE = '—';
@@ -55,7 +62,8 @@ function formatTime(seconds: number): string {
  * A stored metric value as display text, with the imperial value in parentheses when the
  * person prefers both, e.g. `formatQuantity(0.3, 'feed', 'metric+imperial')` →
  * "0.30 mm/s (0.71 in/min)". Units by kind: length mm (in), feed mm/s (in/min), speed m/s
- * (ft/min), rpm, removal mm³/s (in³/min), time s (no imperial companion).
+ * (ft/min), rpm, removal mm³/s (in³/min), time s (no imperial companion), power W or kW (hp),
+ * force N (lbf), chip thickness µm (no imperial companion).
  */
 export function formatQuantity(value: number | null | undefined, kind: QuantityKind, pref: UnitPreference): string {
   if (value === null || value === undefined || !Number.isFinite(value)) return NO_VALUE;
@@ -120,5 +128,47 @@ export function formatQuantity(value: number | null | undefined, kind: QuantityK
     }
     case 'time':
       return formatTime(value);
+    case 'power': {
+      const metric = Math.abs(value) >= 1000 ? `${(value / 1000).toFixed(2)} kW` : `${decimals(value, [[10, 1]], 0)} W`;
+      return both
+        ? `${metric} (${decimals(
+            wToHp(value),
+            [
+              [1, 3],
+              [10, 2],
+            ],
+            1,
+          )} hp)`
+        : metric;
+    }
+    case 'force': {
+      const metric = `${decimals(
+        value,
+        [
+          [10, 2],
+          [100, 1],
+        ],
+        0,
+      )} N`;
+      return both
+        ? `${metric} (${decimals(
+            nToLbf(value),
+            [
+              [10, 2],
+              [100, 1],
+            ],
+            0,
+          )} lbf)`
+        : metric;
+    }
+    case 'chip-thickness':
+      return `${decimals(
+        value,
+        [
+          [0.1, 4],
+          [1, 3],
+        ],
+        2,
+      )} µm`;
   }
 }

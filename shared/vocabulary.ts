@@ -240,3 +240,13 @@ export const WHEEL_RESTRICTION_LABELS: Record<WheelRestriction, string> = {
   'enclosed-machine-only': 'Only on a fully enclosed machine',
   'no-hand-held-use': 'Not for hand-held use',
 };
+
+/** Labels of the cutting power figures, shown in the editor's panel and on the recipe page. */
+export const CUT_POWER_LABELS = {
+  heading: 'Cutting power and heat',
+  peakPower: 'Peak cutting power',
+  tangentialForce: 'Tangential force at the peak',
+  chipThickness: 'Equivalent chip thickness at the peak',
+  specificEnergy: 'Specific cutting energy',
+  plotTitle: 'Cutting power along the cut',
+} as const;

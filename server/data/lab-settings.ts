@@ -11,6 +11,8 @@ export interface LabSettingsRow {
   feed_ceilings_json: unknown;
   worn_diameter_share: number | null;
   kerf_allowance_mm: number | null;
+  specific_energy_json: unknown;
+  power_warning_pct: number | null;
   updated_at: Date;
 }
 
@@ -20,4 +22,8 @@ export async function findLabSettings(db: Knex): Promise<LabSettingsRow | undefi
 
 export function feedCeilingsOf(row: LabSettingsRow | undefined): Record<string, number> {
   return row?.feed_ceilings_json == null ? {} : fromJsonColumn<Record<string, number>>(row.feed_ceilings_json);
+}
+
+export function specificEnergiesOf(row: LabSettingsRow | undefined): Record<string, number> {
+  return row?.specific_energy_json == null ? {} : fromJsonColumn<Record<string, number>>(row.specific_energy_json);
 }

@@ -6,6 +6,7 @@
 import { expect } from 'chai';
 import { peripheralSpeedMs } from '../../../shared/peripheral-speed';
 import { runChecks } from '../../../shared/recipe-checks';
+import { computeRecipe } from '../../../shared/recipe-computations';
 import type { RecipeContent } from '../../../shared/schemas/recipe';
 import { seedDemoIfEmpty } from '../../../server/tools/db-setup';
 import { loadRecipeContext } from '../../../server/services/recipes/context-loader';
@@ -78,6 +79,20 @@ describe('Demo seeds', () => {
         expect(content.cutting.feedMmS).to.be.within(0.05, 1.0);
       }
       if (content.coolant.type === 'water-soluble') expect(content.coolant.concentrationPct).to.be.within(2, 5);
+    }
+  });
+
+  it("keeps every demo recipe's estimated peak cutting power within the lab's share of its saw's motor, with the power known", async () => {
+    const versions = await ctx.db('recipe_versions').select('content_json', 'title');
+    for (const { content_json, title } of versions) {
+      const content = JSON.parse(content_json) as RecipeContent;
+      const context = await loadRecipeContext(ctx.db, content);
+      const power = computeRecipe(content, context).cutPower!;
+      // Every demo saw records its motor and every group has a specific energy, so the check is made.
+      expect(power.peakPowerW, title).to.be.a('number').and.to.be.above(0);
+      expect(power.motorSharePct, `${title}: ${power.peakPowerW} W of ${power.motorPowerW} W`).to.be.at.most(context.limits.powerWarningPct);
+      const ids = runChecks(content, context).map((c) => c.id);
+      expect(ids, title).to.not.include.members(['cutting-power-high', 'motor-power-unknown']);
     }
   });
 

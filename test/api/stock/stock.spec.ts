@@ -6,6 +6,8 @@ import { createStockSet, machineInput, materialInput, recipeInput, wheelInput } 
 import { signedInAgent, type Agent } from '../support/test-app';
 import { asJson, countRows } from '../support/test-database';
 import { createRecipe } from '../../../server/services/recipes/recipes';
+import { restoreLabSettings } from '../../../server/data/empty-tables';
+import { DEFAULT_SPECIFIC_ENERGY_J_MM3 } from '../../../migrations/20261205183430_insert_default_cutting_energy';
 
 describe('Stock: materials, wheels, machines', () => {
   const ctx = apiTestContext();
@@ -396,6 +398,30 @@ describe('Stock: materials, wheels, machines', () => {
         expect((await operator.agent.get('/api/settings/limits').expect(200)).body).to.deep.include({ wornDiameterShare: 0.7, kerfAllowanceMm: 0.2 });
       } finally {
         await ctx.db('lab_settings').where({ id: 1 }).update({ worn_diameter_share: 0.7, kerf_allowance_mm: 0.2 });
+      }
+    });
+
+    it('gives the specific cutting energy per material group and the motor power share that warns, as the data migration sets them', async () => {
+      const res = await operator.agent.get('/api/settings/limits').expect(200);
+      // Order-of-magnitude defaults (Malkin & Guo; Kalpakjian & Schmid — from memory), J/mm³.
+      expect(res.body.specificEnergyJMm3).to.deep.equal(DEFAULT_SPECIFIC_ENERGY_J_MM3);
+      expect(res.body.specificEnergyJMm3['plain-low-alloy-steel']).to.equal(30);
+      expect(res.body.specificEnergyJMm3['aluminium-magnesium']).to.equal(10);
+      expect(Object.keys(res.body.specificEnergyJMm3)).to.have.length(12);
+      expect(res.body.powerWarningPct).to.equal(80);
+    });
+
+    it('reads a lab that changed them, and leaves out a group whose value is not a usable number', async () => {
+      try {
+        await ctx
+          .db('lab_settings')
+          .where({ id: 1 })
+          .update({ specific_energy_json: JSON.stringify({ 'cast-iron': 18, titanium: 'x', copper: -1, unknown: 5 }), power_warning_pct: 70 });
+        const res = await operator.agent.get('/api/settings/limits').expect(200);
+        expect(res.body.specificEnergyJMm3).to.deep.equal({ 'cast-iron': 18 });
+        expect(res.body.powerWarningPct).to.equal(70);
+      } finally {
+        await restoreLabSettings(ctx.db);
       }
     });
   });

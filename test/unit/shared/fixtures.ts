@@ -154,7 +154,7 @@ export function content(
 
 /** The lab's limits as the migrations leave them, but no feed ceilings. */
 export function limits(over: Partial<LabLimits> = {}): LabLimits {
-  return { feedCeilingsMmS: {}, wornDiameterShare: 0.7, kerfAllowanceMm: 0.2, ...over };
+  return { feedCeilingsMmS: {}, wornDiameterShare: 0.7, kerfAllowanceMm: 0.2, specificEnergyJMm3: {}, powerWarningPct: 80, ...over };
 }
 
 export function ctx(over: Partial<RecipeContext> = {}): RecipeContext {

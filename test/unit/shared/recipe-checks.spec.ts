@@ -274,6 +274,42 @@ describe('shared/recipe-checks', () => {
     expect(r.every((x) => x.severity === 'warning')).to.equal(true);
   });
 
+  describe("cutting power against the motor (P = Q · u, Malkin & Guo, Grinding Technology, 2nd ed.; the lab's share, common practice)", () => {
+    // The fixture cuts a Ø40 bar with a 1.5 mm wheel at 0.5 mm/s: Q = 0.5 × 1.5 × 40 = 30 mm³/s at the centre;
+    // at 40 J/mm³, P = 30 × 40 = 1200 W — computed by hand.
+    const limits = (powerWarningPct: number) => ({ ...ctx().limits, specificEnergyJMm3: { 'plain-low-alloy-steel': 40 }, powerWarningPct });
+    const on = (motorPowerKw: number | null, pct = 80) => ctx({ machine: machine({ motorPowerKw }), limits: limits(pct) });
+
+    it('cutting-power-high (warning): present just above the share, absent at it (1200 W of a 1.5 kW motor = 80 %)', () => {
+      expect(ids(content(), on(1.5))).to.not.include('cutting-power-high');
+      expect(ids(content(), on(1.5, 79.9))).to.include('cutting-power-high');
+      const high = find(content(), on(1.49), 'cutting-power-high')!; // 1200 / 1490 = 80.5 %
+      expect(high).to.deep.include({ severity: 'warning', path: 'cutting.feedMmS' });
+      expect(high.message).to.contain('1.20 kW at 40 J/mm³').and.contain('81 % of the 1.49 kW motor').and.contain('above 80 %');
+      expect(high.reason).to.contain('Malkin & Guo').and.contain('order-of-magnitude');
+      // A lower feed brings it under the share: 0.4 × 1.5 × 40 × 40 = 960 W = 64 %.
+      expect(ids(content({ cutting: { feedMmS: 0.4 } }), on(1.49))).to.not.include('cutting-power-high');
+    });
+
+    it('says when the estimate is above the motor itself (1200 W on a 1 kW motor)', () => {
+      expect(find(content(), on(1), 'cutting-power-high')!.message).to.contain('more than the 1.00 kW motor');
+    });
+
+    it('motor-power-unknown (note) instead of silence when the machine does not give its motor power', () => {
+      const note = find(content(), on(null), 'motor-power-unknown')!;
+      expect(note).to.deep.include({ severity: 'note', path: 'cutting.machineId' });
+      expect(note.message).to.contain('Bench saw').and.contain('1.20 kW');
+      expect(ids(content(), on(null))).to.not.include('cutting-power-high');
+      expect(ids(content(), on(5.5))).to.not.include('motor-power-unknown');
+    });
+
+    it('neither when no specific energy is set for the group (nothing to check)', () => {
+      const none = ctx({ machine: machine({ motorPowerKw: null }) });
+      expect(ids(content(), none)).to.not.include('motor-power-unknown');
+      expect(ids(content(), ctx({ machine: machine({ motorPowerKw: 0.5 }) }))).to.not.include('cutting-power-high');
+    });
+  });
+
   it('never throws on half-typed content', () => {
     const empty = { scope: undefined, cutting: undefined, clamping: undefined, coolant: undefined } as unknown as RecipeContent;
     expect(() => runChecks(empty, ctx())).to.not.throw();

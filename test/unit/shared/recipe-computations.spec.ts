@@ -119,6 +119,34 @@ describe('shared/recipe-computations', () => {
     });
   });
 
+  it("cutting power, tangential force and equivalent chip thickness along the cut (P = Q·u, F_t = P/v_s, h_eq = Q'_w/v_s: Malkin & Guo, Grinding Technology, 2nd ed.)", () => {
+    // A Ø60 bar, 350 × 2.5 mm wheel at 2800 rpm, 0.5 mm/s, 40 J/mm³, on a 5.5 kW motor; computed by hand:
+    // v_s = π·350·2800/60 000 = 51.313 m/s; Q = 0.5 × 2.5 × 60 = 75 mm³/s at the centre; P = 75 × 40 = 3000 W;
+    // F_t = 3000 / 51.313 = 58.47 N; Q'_w = 75 / 2.5 = 30 mm²/s; h_eq = 30 / 51.313 = 0.5847 µm; 3000 / 5500 = 54.5 %.
+    const c = computeRecipe(
+      content({ scope: { sizeMaxMm: 60 }, cutting: { wheelRpm: 2800 } }),
+      ctx({
+        wheel: wheel({ diameterMm: 350, thicknessMm: 2.5 }),
+        machine: machine({ wheelDiameterMaxMm: 350, motorPowerKw: 5.5 }),
+        limits: { ...ctx().limits, specificEnergyJMm3: { 'plain-low-alloy-steel': 40 } },
+      }),
+    );
+    const p = c.cutPower!;
+    expect(c.peakRemovalMm3S).to.equal(75);
+    expect(p.specificEnergyJMm3).to.equal(40);
+    expect(p.peakPowerW).to.equal(3000);
+    expect(p.peakTangentialForceN).to.be.closeTo(58.47, 0.005);
+    expect(p.peakRemovalPerWidthMm2S).to.equal(30);
+    expect(p.peakChipThicknessUm).to.be.closeTo(0.5847, 0.00005);
+    expect(p.motorSharePct).to.be.closeTo(54.55, 0.005);
+    expect(p.warningSharePct).to.equal(80);
+    // Along the cut at the largest size: the same depths as the removal profile, each Q × u.
+    expect(p.powerProfile!.map((x) => x.depthMm)).to.deep.equal(c.profile!.map((x) => x.depthMm));
+    p.powerProfile!.forEach((x, i) => expect(x.powerW).to.be.closeTo(c.profile![i]!.removalMm3S * 40, 1e-9));
+    // Without a specific energy for the group there is no power (the chip thickness needs none).
+    expect(computeRecipe(content(), ctx()).cutPower).to.deep.include({ specificEnergyJMm3: null, peakPowerW: null });
+  });
+
   it('every field is null while its inputs are missing, and nothing throws on half-typed content', () => {
     const none = computeRecipe(content(), ctx({ wheel: null, machine: null, material: null }));
     expect(none.peripheralSpeedMs).to.equal(null);
@@ -127,6 +155,7 @@ describe('shared/recipe-computations', () => {
     expect(none.profile).to.equal(null);
     expect(none.cutTimeS).to.equal(null);
     expect(none.hardness).to.equal(null);
+    expect(none.cutPower).to.equal(null);
 
     const typing = computeRecipe(content({ cutting: { wheelRpm: Number.NaN, feedMmS: 0 } }), ctx());
     expect(typing.peripheralSpeedMs).to.equal(null);

@@ -1,6 +1,19 @@
 import { expect } from 'chai';
 import { unit } from 'mathjs';
-import { formatQuantity, ftMinToMs, inMinToMmS, inToMm, mm3SToIn3Min, mmMinToMmS, mmSToInMin, mmSToMmMin, mmToIn, msToFtMin } from '../../../shared/units';
+import {
+  formatQuantity,
+  ftMinToMs,
+  inMinToMmS,
+  inToMm,
+  mm3SToIn3Min,
+  mmMinToMmS,
+  mmSToInMin,
+  mmSToMmMin,
+  mmToIn,
+  msToFtMin,
+  nToLbf,
+  wToHp,
+} from '../../../shared/units';
 
 describe('shared/units', () => {
   describe('conversions agree with mathjs (general reference library, a devDependency)', () => {
@@ -14,6 +27,8 @@ describe('shared/units', () => {
       ['mm/s → mm/min', mmSToMmMin, 'mm/s', 'mm/min'],
       ['mm/min → mm/s', mmMinToMmS, 'mm/min', 'mm/s'],
       ['mm³/s → in³/min', mm3SToIn3Min, 'mm^3/s', 'inch^3/min'],
+      ['W → hp', wToHp, 'W', 'hp'],
+      ['N → lbf', nToLbf, 'N', 'lbf'],
     ];
     for (const [name, fn, from, to] of cases) {
       it(name, () => {
@@ -33,6 +48,8 @@ describe('shared/units', () => {
       expect(inMinToMmS(1)).to.be.closeTo(0.4233333, 1e-7); // 25.4/60, computed by hand from the exact inch
       expect(msToFtMin(1)).to.be.closeTo(196.8503937, 1e-7); // 60/0.3048, computed by hand from the exact foot
       expect(ftMinToMs(1)).to.be.closeTo(0.00508, 1e-15); // 0.3048/60 = 0.00508 exactly, computed by hand from the exact foot
+      expect(nToLbf(4.4482216152605)).to.be.closeTo(1, 1e-15); // lbf = 0.45359237 kg × 9.80665 m/s² = 4.4482216152605 N exactly (NIST SP 811, Appendix B)
+      expect(wToHp(745.6998715822702)).to.be.closeTo(1, 1e-15); // hp = 550 ft·lbf/s = 550 × 0.3048 × 4.4482216152605 W = 745.69987 W (NIST SP 811, Appendix B)
     });
     it('round-trip without drift', () => {
       expect(inToMm(mmToIn(37.3))).to.be.closeTo(37.3, 1e-12);
@@ -55,6 +72,16 @@ describe('shared/units', () => {
       expect(formatQuantity(96, 'time', 'metric')).to.equal('1 min 36 s');
       expect(formatQuantity(42, 'time', 'metric')).to.equal('42 s');
       expect(formatQuantity(3725, 'time', 'metric')).to.equal('1 h 02 min');
+    });
+    it('power, force and chip thickness (the cutting power figures)', () => {
+      expect(formatQuantity(2250, 'power', 'metric')).to.equal('2.25 kW');
+      expect(formatQuantity(2250, 'power', 'metric+imperial')).to.equal('2.25 kW (3.02 hp)'); // 2250 / 745.7 = 3.017, computed by hand
+      expect(formatQuantity(360, 'power', 'metric')).to.equal('360 W');
+      expect(formatQuantity(9, 'power', 'metric')).to.equal('9.0 W');
+      expect(formatQuantity(43.85, 'force', 'metric+imperial')).to.equal('43.9 N (9.86 lbf)'); // 43.85 / 4.448 = 9.858, computed by hand
+      expect(formatQuantity(0.5847, 'chip-thickness', 'metric+imperial')).to.equal('0.585 µm');
+      expect(formatQuantity(0.0095, 'chip-thickness', 'metric')).to.equal('0.0095 µm');
+      expect(formatQuantity(1.0698, 'chip-thickness', 'metric')).to.equal('1.07 µm');
     });
     it('shows a dash for missing values', () => {
       expect(formatQuantity(null, 'feed', 'metric')).to.equal('—');

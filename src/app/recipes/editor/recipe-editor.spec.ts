@@ -73,7 +73,13 @@ const WHEEL: WheelRecord = {
   updatedAt: '2026-10-02T09:00:00.000Z',
 };
 const ROWS: SelectionRow[] = [{ id: 1, group: 'plain-low-alloy-steel', hardness: null, wheelId: 2, note: '' }];
-const LIMITS: LabLimits = { feedCeilingsMmS: { 'plain-low-alloy-steel': 1 }, wornDiameterShare: 0.7, kerfAllowanceMm: 0.2 };
+const LIMITS: LabLimits = {
+  feedCeilingsMmS: { 'plain-low-alloy-steel': 1 },
+  wornDiameterShare: 0.7,
+  kerfAllowanceMm: 0.2,
+  specificEnergyJMm3: { 'plain-low-alloy-steel': 30 },
+  powerWarningPct: 80,
+};
 
 function aDraft(overrides: Partial<RecipeVersionDto> = {}): RecipeVersionDto {
   return {

@@ -7,10 +7,13 @@ import { formatHardness } from '@shared/hardness';
 import type { CheckResult, CheckSeverity } from '@shared/recipe-checks';
 import type { RecipeComputed } from '@shared/recipe-computations';
 import { NO_VALUE, type QuantityKind, formatQuantity } from '@shared/units';
+import { CUT_POWER_LABELS } from '@shared/vocabulary';
 import { FIELD_INFO } from './recipe-form';
 import { CutProfilePlot } from '../../ui/cut-profile-plot/cut-profile-plot';
 import { capacityWords } from '../../ui/cutting-geometry/capacity-words';
 import { WornWheelValues } from '../../ui/cutting-geometry/worn-wheel-values';
+import { CutPowerPlot } from '../../ui/cut-profile-plot/cut-power-plot';
+import { CutPowerFigures } from '../../ui/cut-power-figures/cut-power-figures';
 
 const SEVERITY: Record<CheckSeverity, { icon: string; label: string; plural: string }> = {
   blocker: { icon: 'block', label: 'Blocker', plural: 'blockers' },
@@ -25,7 +28,7 @@ const SEVERITY: Record<CheckSeverity, { icon: string; label: string; plural: str
  */
 @Component({
   selector: 'kb-recipe-live-panel',
-  imports: [CutProfilePlot, MatButtonModule, MatIconModule, WornWheelValues],
+  imports: [CutPowerFigures, CutPowerPlot, CutProfilePlot, MatButtonModule, MatIconModule, WornWheelValues],
   templateUrl: './recipe-live-panel.html',
   styleUrl: './recipe-live-panel.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -44,6 +47,7 @@ export class RecipeLivePanel {
   protected readonly severity = SEVERITY;
   protected readonly noSafetyClaim = NO_SAFETY_CLAIM;
   protected readonly noValue = NO_VALUE;
+  protected readonly powerLabels = CUT_POWER_LABELS;
 
   protected readonly counts = computed(() => {
     const checks = this.checks();

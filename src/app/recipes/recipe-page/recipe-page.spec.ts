@@ -170,7 +170,10 @@ describe('RecipePage', () => {
     await answerVersions([draft, approved]);
     await answerStock();
     const tabs = await TestbedHarnessEnvironment.loader(harness.fixture).getHarness(MatTabGroupHarness);
-    await tabs.selectTab({ label: 'Computed' });
+    const selecting = tabs.selectTab({ label: 'Computed' });
+    // The cutting power block asks for the lab's limits once the tab is open.
+    (await vi.waitFor(() => backend.expectOne('/api/settings/limits'))).flush({ feedCeilingsMmS: {}, specificEnergyJMm3: {}, powerWarningPct: 80 });
+    await selecting;
     await harness.fixture.whenStable();
 
     // π × 250 mm × 3000 rpm / 60 000 = 39.27 m/s; 80 − 39.27 = 40.73 m/s to spare.
@@ -184,6 +187,36 @@ describe('RecipePage', () => {
     expect(worn).toContain('175 mm');
     expect(worn).toContain('Up to 42.5 mm');
     expect(worn).toContain('1.70 mm');
+  });
+
+  it("shows the cutting power figures and plot with the lab's specific energy, as the editor does", async () => {
+    await open('/recipes/3');
+    await answerVersions([draft, approved]);
+    (await vi.waitFor(() => backend.expectOne('/api/materials/5'))).flush(aMaterial());
+    backend.expectOne('/api/wheels/2').flush(aWheel());
+    backend.expectOne('/api/machines/1').flush(aMachine({ motorPowerKw: 2.2 }));
+    await harness.fixture.whenStable();
+    const tabs = await TestbedHarnessEnvironment.loader(harness.fixture).getHarness(MatTabGroupHarness);
+    const selecting = tabs.selectTab({ label: 'Computed' });
+    (await vi.waitFor(() => backend.expectOne('/api/settings/limits'))).flush({
+      feedCeilingsMmS: {},
+      specificEnergyJMm3: { 'plain-low-alloy-steel': 30 },
+      powerWarningPct: 80,
+    });
+    await selecting;
+    await harness.fixture.whenStable();
+
+    // Ø40 bar, 1.5 mm wheel, 0.5 mm/s: Q = 30 mm³/s; × 30 J/mm³ = 900 W (P = Q·u, Malkin & Guo), 41 % of 2.2 kW;
+    // F_t = 900 / 39.27 = 22.9 N; h_eq = (30 / 1.5) / 39.27 = 0.509 µm — computed by hand.
+    const block = root().querySelector('kb-recipe-cut-power')!;
+    const text = block.textContent!.replace(/\s+/g, ' ');
+    expect(text).toContain('Cutting power and heat');
+    expect(text).toContain('Peak cutting power 900 W');
+    expect(text).toContain('41 % of the 2.20 kW motor');
+    expect(text).toContain('22.9 N');
+    expect(text).toContain('0.509 µm');
+    expect(text).toContain('30 J/mm³');
+    expect(block.querySelector('kb-cut-power-plot path[data-series="power"]')).not.toBeNull();
   });
 
   it('offers "Edit draft" to an author on a draft, not on an older approved version', async () => {

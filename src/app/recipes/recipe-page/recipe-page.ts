@@ -53,6 +53,7 @@ import { RecipeCuts } from '../cuts/recipe-cuts';
 import { benchSheetUrl } from '../../core/api/bench-sheet';
 import { CheckSeverityLabel } from '../../ui/check-severity-label';
 import { RecipeApi } from '../../core/api/recipe-api';
+import { RecipeCutPower } from './recipe-cut-power';
 import { RecipeHistory } from './recipe-history';
 import { RecipeStatusChip } from '../../ui/recipe-status-chip';
 import { StandardCautions } from './standard-cautions';
@@ -80,6 +81,7 @@ const ATTACHMENT_ROLE_LABELS = { setup: 'Setup', 'good-face': 'Good cut face', '
     MatSelectModule,
     MatTabsModule,
     QuantityPipe,
+    RecipeCutPower,
     RecipeCuts,
     RecipeHistory,
     RecipeStatusChip,

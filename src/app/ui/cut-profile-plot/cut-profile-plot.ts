@@ -18,19 +18,19 @@ export function niceTicks(max: number, count = 4): number[] {
   return ticks;
 }
 
-function label(value: number): string {
+export function label(value: number): string {
   if (value === 0) return '0';
   const abs = Math.abs(value);
   return abs >= 100 ? value.toFixed(0) : abs >= 10 ? String(Number(value.toFixed(1))) : String(Number(value.toFixed(2)));
 }
 
-interface Axis {
+export interface Axis {
   ticks: { value: number; pos: number; text: string }[];
   scale: (v: number) => number;
 }
 
 /** A value axis; `headroom` keeps a flat line (a rectangular section) off the plot's top edge. */
-function axis(max: number, from: number, to: number, headroom = 1): Axis {
+export function axis(max: number, from: number, to: number, headroom = 1): Axis {
   const ticks = niceTicks(max * headroom);
   const top = ticks[ticks.length - 1] || 1;
   const scale = (v: number) => from + ((to - from) * v) / top;

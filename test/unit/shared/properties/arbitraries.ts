@@ -170,6 +170,7 @@ export const validMachine: fc.Arbitrary<MachineRecord> = fc
     clampingMethods: fc.subarray([...CLAMPING_METHODS], { minLength: 1 }),
     feedDirection,
     spindleLimitShare: orNull(finite(0, 1)),
+    motorPowerKw: orNull(above(0.01, 500)),
     archived: fc.boolean(),
   })
   .map(({ wheels: [w1, w2], flangeShare, rpm: [r1, r2], feed: [f1, f2], spindleLimitShare, ...rest }) => {
@@ -266,6 +267,8 @@ export const validContext: fc.Arbitrary<RecipeContext> = fc.record({
     // A share a lab would set (a wheel worn to a tenth or to almost nothing is not one), any allowance from 0 to 2 mm.
     wornDiameterShare: finite(0.1, 0.99),
     kerfAllowanceMm: finite(0, 2),
+    specificEnergyJMm3: fc.dictionary(group, above(0, 1000), { maxKeys: 6 }),
+    powerWarningPct: above(0, 200),
   }),
 });
 

@@ -36,7 +36,7 @@ describe('shared/recipe-checks (properties)', () => {
     );
   });
 
-  it('flags what its rule says, exactly: missing stock, overspeed, capacity new and worn, hazardous dust dry', () => {
+  it('flags what its rule says, exactly: missing stock, overspeed, capacity new and worn, hazardous dust dry, cutting power', () => {
     fc.assert(
       fc.property(validContent, validContext, (c, ctx) => {
         const ids = new Set(runChecks(c, ctx).map((r) => r.id));
@@ -48,6 +48,10 @@ describe('shared/recipe-checks (properties)', () => {
         expect(ids.has('scope-exceeds-worn-capacity')).to.equal(computed.capacityFits === true && computed.wornWheel?.capacityFits === false);
         expect(ids.has('hazardous-dust-dry')).to.equal(ctx.material?.hazardousDust === true && c.coolant.type === 'dry');
         expect(ids.has('clamping-missing')).to.equal(c.clamping.method === null);
+        const p = computed.cutPower;
+        const powerKnown = ctx.machine !== null && p !== null && p.peakPowerW !== null;
+        expect(ids.has('cutting-power-high')).to.equal(powerKnown && p.motorSharePct !== null && p.motorSharePct > p.warningSharePct);
+        expect(ids.has('motor-power-unknown')).to.equal(powerKnown && p.motorSharePct === null);
       }),
       { numRuns: RUNS_HEAVY },
     );

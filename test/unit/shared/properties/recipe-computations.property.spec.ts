@@ -5,7 +5,7 @@ import { peripheralSpeedMs } from '../../../../shared/peripheral-speed';
 import type { RecipeContext } from '../../../../shared/recipe-context';
 import { computeRecipe } from '../../../../shared/recipe-computations';
 import { msToFtMin } from '../../../../shared/units';
-import { content as fixtureContent, ctx as fixtureCtx } from '../fixtures';
+import { content as fixtureContent, ctx as fixtureCtx, machine as fixtureMachine } from '../fixtures';
 import { halfTypedContent, numbersIn, RUNS, staleChoiceContent, validContent, validContext } from './arbitraries';
 
 /** Every computed number of a result is finite; says which one is not. `hardness.measured` echoes the input window as typed. */
@@ -26,6 +26,9 @@ describe('shared/recipe-computations (properties)', () => {
           expect(r.cutTimeS === null).to.equal(ctx.wheel === null);
         expect(r.profile === null).to.equal(ctx.wheel === null);
         expect(r.hardness === null).to.equal(c.scope.hardness === null && !ctx.material?.hardness);
+        expect(r.cutPower === null).to.equal(r.profile === null);
+        // Power, force, chip thickness and the motor share are never negative.
+        for (const [path, n] of numbersIn(r.cutPower)) expect(n, `cutPower.${path}`).to.be.at.least(0);
       }),
       { numRuns: RUNS },
     );
@@ -54,6 +57,14 @@ describe('shared/recipe-computations (properties)', () => {
           expect(r.capacityLimit).to.equal(fit.limit);
         }
         if (r.hardness && r.hardness.minHv !== null && r.hardness.maxHv !== null) expect(r.hardness.minHv).to.be.at.most(r.hardness.maxHv + 1e-9);
+        const p = r.cutPower;
+        if (p && p.peakPowerW !== null) {
+          // P = Q · u at the peak and at every depth (Malkin & Guo, Grinding Technology, 2nd ed.).
+          expect(p.peakPowerW).to.equal(r.peakRemovalMm3S! * p.specificEnergyJMm3!);
+          expect(p.powerProfile!.map((x) => x.depthMm)).to.deep.equal(r.profile!.map((x) => x.depthMm));
+          if (p.peakTangentialForceN !== null) expect(p.peakTangentialForceN).to.equal(p.peakPowerW / r.peripheralSpeedMs!);
+        }
+        if (p && p.peakChipThicknessUm !== null) expect(p.peakChipThicknessUm).to.equal(p.peakRemovalPerWidthMm2S! / r.peripheralSpeedMs!);
       }),
       { numRuns: RUNS },
     );
@@ -98,6 +109,31 @@ describe('shared/recipe-computations (properties)', () => {
         const fast = computeRecipe({ ...c, cutting: { ...c.cutting, wheelRpm: c.cutting.wheelRpm * factor } }, ctx);
         expect(fast.peripheralSpeedMs!).to.be.at.least(slow.peripheralSpeedMs!);
         expect(fast.speedMarginMs!).to.be.at.most(slow.speedMarginMs!);
+      }),
+      { numRuns: RUNS },
+    );
+  });
+
+  it('a larger specific energy never lowers the power, the force or the motor share, and leaves the chip thickness as it is', () => {
+    fc.assert(
+      fc.property(validContent, fc.double({ min: 0.1, max: 1000, noNaN: true }), fc.double({ min: 1, max: 3, noNaN: true }), (c, u, factor) => {
+        const at = (energy: number) =>
+          computeRecipe(
+            c,
+            fixtureCtx({
+              machine: fixtureMachine({ motorPowerKw: 5.5 }),
+              limits: { ...fixtureCtx().limits, specificEnergyJMm3: { [c.scope.group]: energy } },
+            }),
+          ).cutPower!;
+        const low = at(u);
+        const high = at(u * factor);
+        expect(high.peakPowerW!).to.be.at.least(low.peakPowerW!);
+        // A peripheral speed too small to divide by (5e-324 rpm) gives no force at either energy.
+        expect(high.peakTangentialForceN === null).to.equal(low.peakTangentialForceN === null);
+        if (low.peakTangentialForceN !== null) expect(high.peakTangentialForceN!).to.be.at.least(low.peakTangentialForceN);
+        expect(high.motorSharePct!).to.be.at.least(low.motorSharePct!);
+        expect(high.peakChipThicknessUm).to.equal(low.peakChipThicknessUm);
+        high.powerProfile!.forEach((x, i) => expect(x.powerW).to.be.at.least(low.powerProfile![i]!.powerW));
       }),
       { numRuns: RUNS },
     );

@@ -13,11 +13,13 @@ import {
   mmToIn,
   msToFtMin,
   NO_VALUE,
+  nToLbf,
+  wToHp,
   type QuantityKind,
 } from '../../../../shared/units';
 import { anyNumber, finite, outsidePrimitive, RUNS } from './arbitraries';
 
-const KINDS: QuantityKind[] = ['length', 'feed', 'speed', 'rpm', 'removal', 'time'];
+const KINDS: QuantityKind[] = ['length', 'feed', 'speed', 'rpm', 'removal', 'time', 'power', 'force', 'chip-thickness'];
 const kind = fc.constantFrom(...KINDS);
 const pref = fc.constantFrom<UnitPreference>('metric', 'metric+imperial');
 
@@ -28,7 +30,7 @@ const PAIRS: [string, (v: number) => number, (v: number) => number][] = [
   ['m/s ↔ ft/min', msToFtMin, ftMinToMs],
   ['mm/s ↔ mm/min', mmSToMmMin, mmMinToMmS],
 ];
-const ALL = [mmToIn, inToMm, mmSToInMin, inMinToMmS, msToFtMin, ftMinToMs, mmSToMmMin, mmMinToMmS, mm3SToIn3Min];
+const ALL = [mmToIn, inToMm, mmSToInMin, inMinToMmS, msToFtMin, ftMinToMs, mmSToMmMin, mmMinToMmS, mm3SToIn3Min, wToHp, nToLbf];
 
 /** Values a lab stores: from a micrometre to far beyond any saw. */
 const magnitude = finite(-1e12, 1e12);
@@ -76,14 +78,17 @@ describe('shared/units (properties)', () => {
       rpm: / rpm$/,
       removal: / mm³\/s\b/,
       time: / (s|min|h)\b/,
+      power: / k?W\b/,
+      force: / N\b/,
+      'chip-thickness': / µm$/,
     };
     fc.assert(
       fc.property(finite(-1e15, 1e15), kind, pref, (v, k, p) => {
         const text = formatQuantity(v, k, p);
         expect(text).to.be.a('string').and.match(unit[k]);
         expect(text).not.to.match(/NaN|Infinity|undefined/);
-        // The imperial companion only when asked for, and never for rpm or time.
-        expect(text.includes('(')).to.equal(p === 'metric+imperial' && k !== 'rpm' && k !== 'time');
+        // The imperial companion only when asked for, and never for rpm, time or chip thickness.
+        expect(text.includes('(')).to.equal(p === 'metric+imperial' && k !== 'rpm' && k !== 'time' && k !== 'chip-thickness');
       }),
       { numRuns: RUNS },
     );
