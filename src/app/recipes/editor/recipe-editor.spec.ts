@@ -27,6 +27,7 @@ const MATERIAL: MaterialRecord = {
   caseDepthMm: null,
   heatSensitive: false,
   hazardousDust: false,
+  combustibleFines: false,
   notes: '',
   archived: false,
   updatedAt: '2026-10-02T09:00:00.000Z',
