@@ -8,9 +8,20 @@
 import type { RecipeContext } from './recipe-context';
 import { computeRecipe, type RecipeComputed } from './recipe-computations';
 import type { RecipeContent } from './schemas/recipe';
-import { CLAMPING_METHOD_LABELS, CUT_MOTION_LABELS, MATERIAL_GROUP_LABELS, METALLIC_GROUPS, type MaterialGroup, type MachineClass } from './vocabulary';
+import {
+  CLAMPING_METHOD_LABELS,
+  CUT_MOTION_LABELS,
+  MATERIAL_GROUP_LABELS,
+  METALLIC_GROUPS,
+  type MaterialGroup,
+  type MachineClass,
+  type WheelKind,
+} from './vocabulary';
 import { CAPACITY_LIMIT_RULES } from './capacity';
+import { flangeTooSmall, minFlangeDiameterMm } from './flange';
 import { maxRpmForWheel } from './peripheral-speed';
+import { spindleOverspeed } from './spindle-speed';
+import { wheelSafetyStandard, wheelStandards } from './wheel-standards';
 import { formatQuantity } from './units';
 import { motorShareText } from './cutting-power';
 import { ABRASIVE_FAMILY_LABELS, abrasiveFamily, parseWheelSpec, type AbrasiveFamily } from './wheel-spec';
@@ -49,7 +60,9 @@ export const HEAT_SENSITIVE_FEED_MMS: Record<MachineClass, number> = {
 export const RIM_LOW_RPM_SHARE = 0.75;
 
 const SOURCE = {
-  mos: 'Never run a wheel above the maximum operating speed marked on it (ANSI B7.1; EN 12413; OSHA 29 CFR 1910.215(d)(1)).',
+  /** The marked speed binds bonded wheels under EN 12413 and diamond or CBN rim wheels under EN 13236 (see wheel-standards.ts). */
+  mos: (kind: WheelKind | undefined) =>
+    `Never run a wheel above the maximum operating speed marked on it (${wheelStandards(kind)}; OSHA 29 CFR 1910.215(d)(1)).`,
   machine: "The machine's manual sets its speed, feed and wheel ranges; outside them its guards, drives and controls are not made for the job.",
 } as const;
 
@@ -109,6 +122,76 @@ function cuttingPowerCheck({ ctx, computed }: Facts): CheckResult | null {
   );
 }
 
+/** A number as typed: whole numbers without decimals, others to at most two. */
+const num = (v: number) => String(Number(v.toFixed(2)));
+
+/**
+ * The machine can turn the wheel above its marked maximum: its top speed, or the speed limit
+ * set on its spindle, is above the marking at the wheel's new diameter. Whatever rpm the
+ * recipe names, the spindle can reach that speed (a knob turned, a setting lost).
+ */
+function machineCanOverspeedWheel({ ctx }: Facts): CheckResult | null {
+  const { machine: m, wheel: w } = ctx;
+  if (!m || !w || !isPositive(w.diameterMm) || !isPositive(m.rpmMax)) return null;
+  const over = spindleOverspeed(m, w);
+  if (!over) return null;
+  const reaches = over.limited
+    ? `${m.name} is limited to ${num(over.topRpm)} rpm (set by ${m.spindleLimitSetBy || 'an unnamed person'})`
+    : `${m.name} reaches ${num(over.topRpm)} rpm`;
+  const against =
+    w.maxSpeedMarkedIn === 'rpm'
+      ? `, above the ${num(w.maxSpeedRpm)} rpm marked on the ${w.diameterMm} mm wheel "${w.name}"`
+      : `: ${n1(over.speedAtTopMs)} m/s at the new diameter of the ${w.diameterMm} mm wheel "${w.name}", above the ${num(w.maxSpeedMs)} m/s marked on it (${over.wheelMaxRpm} rpm)`;
+  return result(
+    'machine-can-overspeed-wheel',
+    'blocker',
+    'cutting.wheelId',
+    `${reaches}${against}. Have a spindle speed limit at or below ${over.wheelMaxRpm} rpm set and recorded on the machine, or choose a wheel marked for the machine's top speed.`,
+    `The machine's spindle speed is checked before a wheel is mounted: it must not be able to exceed the maximum operating speed marked on the wheel (OSHA 29 CFR 1910.215(d)(1); ${wheelStandards(w.kind)}). The recipe's rpm does not stop the spindle from reaching its top speed.`,
+  );
+}
+
+/** A recipe rpm above the speed limit set on the machine's spindle cannot be run there. */
+function rpmAboveSpindleLimit({ content, ctx }: Facts): CheckResult | null {
+  const m = ctx.machine;
+  const rpm = content.cutting?.wheelRpm;
+  if (!m || typeof m.spindleLimitRpm !== 'number' || !isPositive(rpm) || rpm <= m.spindleLimitRpm) return null;
+  return result(
+    'rpm-above-spindle-limit',
+    'blocker',
+    'cutting.wheelRpm',
+    `${rpm} rpm is above the spindle speed limit of ${num(m.spindleLimitRpm)} rpm set on ${m.name}${m.spindleLimitSetBy ? ` (${m.spindleLimitSetBy})` : ''}.`,
+    "The limit keeps the spindle within the marked speed of the wheels the machine takes; a recipe stays within it (the machine record; the machine's manual).",
+  );
+}
+
+/** The machine's flange is too small for the wheel: cut-off wheels need at least a quarter of the wheel diameter (see flange.ts). */
+function flangeTooSmallForWheel({ ctx }: Facts): CheckResult | null {
+  const { machine: m, wheel: w } = ctx;
+  if (!m || !w || !isPositive(w.diameterMm) || !isPositive(m.flangeDiameterMm) || !flangeTooSmall(m.flangeDiameterMm, w.diameterMm)) return null;
+  const rim = w.kind === 'rim';
+  return result(
+    'flange-too-small',
+    'blocker',
+    'cutting.wheelId',
+    `The flanges of ${m.name} are ${num(m.flangeDiameterMm)} mm; a ${w.diameterMm} mm cut-off wheel needs flanges of at least ${n1(minFlangeDiameterMm(w.diameterMm))} mm (a quarter of its diameter).`,
+    `Flanges keep the clamping and driving forces away from the bore, where a turning wheel's stresses are highest. Cut-off wheels are mounted between flanges of at least one-fourth of the wheel diameter (ANSI B7.1; OSHA 29 CFR 1910.215(c)(1) asks one-third of most other wheels)${rim ? `; for diamond and CBN rim wheels the wheel maker states the flange (${wheelSafetyStandard(w.kind)}) and Kerfbook keeps the same floor` : ''}.`,
+  );
+}
+
+/** Dry cutting with a wheel marked for wet use only: a restriction marked on the wheel binds like its marked speed. */
+function wetUseOnlyCutDry({ content, ctx }: Facts): CheckResult | null {
+  const w = ctx.wheel;
+  if (!w || content.coolant?.type !== 'dry' || !Array.isArray(w.restrictions) || !w.restrictions.includes('wet-use-only')) return null;
+  return result(
+    'wet-use-only-dry',
+    'blocker',
+    'coolant.type',
+    `"${w.name}" is marked for wet use only, and the recipe cuts dry.`,
+    `A restriction of use marked on the wheel binds like its marked speed: the maker rated the wheel for wet cutting only (restriction marks of ${wheelSafetyStandard(w.kind)}, from memory; ANSI B7.1: use wheels only as their maker allows).`,
+  );
+}
+
 /** The rules, in the order they are reported within a severity. */
 const RULES: readonly Rule[] = [
   ({ ctx }) =>
@@ -126,17 +209,35 @@ const RULES: readonly Rule[] = [
           'The wheel sets the speed limit, the capacity and the suitability for the material.',
         ),
 
-  ({ ctx, computed }) => {
-    const { peripheralSpeedMs: v, markedMaxSpeedMs: max, rpmAtMarkedMax } = computed;
-    if (v === null || max === null || v <= max) return null;
+  ({ content, ctx, computed }) => {
+    const { peripheralSpeedMs: v, markedMaxSpeedMs: max, markedMaximum: marked, rpmAtMarkedMax } = computed;
+    if (v === null || max === null || marked === null) return null;
+    // Compared against the figure marked on the wheel, in its own unit.
+    if (marked.maxSpeedMarkedIn === 'rpm') {
+      const rpm = content.cutting.wheelRpm;
+      if (rpm <= marked.maxSpeedRpm) return null;
+      return result(
+        'wheel-overspeed',
+        'blocker',
+        'cutting.wheelRpm',
+        `${rpm} rpm is above its marked maximum of ${num(marked.maxSpeedRpm)} rpm (at ${ctx.wheel!.diameterMm} mm the wheel would run at ${n1(v)} m/s). Use at most ${rpmAtMarkedMax} rpm.`,
+        SOURCE.mos(ctx.wheel?.kind),
+      );
+    }
+    if (v <= max) return null;
     return result(
       'wheel-overspeed',
       'blocker',
       'cutting.wheelRpm',
       `At ${ctx.wheel!.diameterMm} mm the wheel would run at ${n1(v)} m/s, above its marked maximum of ${n1(max)} m/s. Use at most ${rpmAtMarkedMax} rpm.`,
-      SOURCE.mos,
+      SOURCE.mos(ctx.wheel?.kind),
     );
   },
+
+  machineCanOverspeedWheel,
+  rpmAboveSpindleLimit,
+  flangeTooSmallForWheel,
+  wetUseOnlyCutDry,
 
   ({ content, ctx }) => {
     const m = ctx.machine;
@@ -180,7 +281,7 @@ const RULES: readonly Rule[] = [
       'blocker',
       'cutting.wheelId',
       `The wheel is ${w.diameterMm} mm; ${m.name} takes ${m.wheelDiameterMinMm}–${m.wheelDiameterMaxMm} mm wheels.`,
-      "A wheel the machine is not made for may not fit its guard or flanges (the machine's manual; ANSI B7.1, EN 12413).",
+      `A wheel the machine is not made for may not fit its guard or flanges (the machine's manual; ${wheelStandards(w.kind)}).`,
     );
   },
 
@@ -417,6 +518,10 @@ export const CHECK_IDS = [
   'machine-missing',
   'wheel-missing',
   'wheel-overspeed',
+  'machine-can-overspeed-wheel',
+  'rpm-above-spindle-limit',
+  'flange-too-small',
+  'wet-use-only-dry',
   'rpm-outside-machine',
   'feed-outside-machine',
   'entry-feed-outside-machine',

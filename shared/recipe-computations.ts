@@ -10,6 +10,8 @@ import { cutPower, DEFAULT_POWER_WARNING_PCT, type CutPower } from './cutting-po
 import { conversionApplies, convertHardness, HARDNESS_CAVEATS } from './hardness';
 import { maxRpmForWheel, peripheralSpeedMs, speedMargin, toFtPerMin } from './peripheral-speed';
 import type { RecipeContext } from './recipe-context';
+import { neverAboveRpm, spindleOverspeed, wheelMaxRpm, type SpindleOverspeed } from './spindle-speed';
+import type { WheelRecord } from './stock-types';
 import type { HardnessWindow } from './schemas/stock';
 import { recipeCutting, type RecipeContent } from './schemas/recipe';
 import { CUT_MOTIONS, FEED_DIRECTIONS, SHAPES, type CapacityLimit, type ContactMeasure, type RpmCap, type WornDiameterSource } from './vocabulary';
@@ -52,6 +54,12 @@ export interface RecipeComputed {
   speedMarginPct: number | null;
   /** Highest whole rpm that keeps the wheel at or below its marked maximum, rpm. */
   rpmAtMarkedMax: number | null;
+  /** The wheel's marked maximum as marked (m/s or rpm) with both figures, for display; null without a wheel. */
+  markedMaximum: MarkedMaximum | null;
+  /** Whether the machine can turn the wheel above its marked maximum (its top speed or spindle limit), or null when it cannot. */
+  spindleOverspeed: SpindleOverspeed | null;
+  /** "Never above N rpm on this machine": the wheel's marked maximum in whole rpm, or the spindle limit where lower. */
+  neverAboveRpm: number | null;
   /** Largest depth the wheel can cut on the machine (flange and clearance deducted), mm. */
   cuttingDepthMm: number | null;
   /** Largest part size that depth allows with the cut motion, mm. */
@@ -116,6 +124,9 @@ export interface WornWheelFigures {
   heldSpeedMs: number | null;
 }
 
+/** How a wheel's maximum operating speed is marked, with both figures at its new diameter. */
+export type MarkedMaximum = Pick<WheelRecord, 'diameterMm' | 'maxSpeedMarkedIn' | 'maxSpeedMs' | 'maxSpeedRpm'>;
+
 /** A positive finite number, or null (half-typed input). */
 function positive(n: unknown): number | null {
   return typeof n === 'number' && Number.isFinite(n) && n > 0 ? n : null;
@@ -152,6 +163,18 @@ export function computeRecipe(content: RecipeContent, ctx: RecipeContext): Recip
 
   const speed = diameter !== null && rpm !== null ? peripheralSpeedMs(diameter, rpm) : null;
   const margin = speed !== null && maxSpeed !== null ? speedMargin(speed, maxSpeed) : null;
+
+  // A wheel marked in rpm keeps its marked figure: the rpm limit is that figure, floored.
+  const marked: MarkedMaximum | null =
+    wheel && diameter !== null && maxSpeed !== null
+      ? {
+          diameterMm: diameter,
+          maxSpeedMarkedIn: wheel.maxSpeedMarkedIn === 'rpm' && positive(wheel.maxSpeedRpm) !== null ? 'rpm' : 'm/s',
+          maxSpeedMs: maxSpeed,
+          maxSpeedRpm: positive(wheel.maxSpeedRpm) ?? maxRpmForWheel(diameter, maxSpeed),
+        }
+      : null;
+  const spindle = machine && marked && positive(machine.rpmMax) !== null ? spindleOverspeed(machine, marked) : null;
 
   const flange = positive(machine?.flangeDiameterMm);
   // An unknown stored feed direction counts as the wheel coming down: it is the stricter limit.
@@ -192,7 +215,10 @@ export function computeRecipe(content: RecipeContent, ctx: RecipeContext): Recip
     markedMaxSpeedMs: maxSpeed,
     speedMarginMs: margin?.marginMs ?? null,
     speedMarginPct: margin?.marginPct ?? null,
-    rpmAtMarkedMax: diameter !== null && maxSpeed !== null ? maxRpmForWheel(diameter, maxSpeed) : null,
+    rpmAtMarkedMax: marked === null ? null : marked.maxSpeedMarkedIn === 'rpm' ? wheelMaxRpm(marked) : maxRpmForWheel(marked.diameterMm, marked.maxSpeedMs),
+    markedMaximum: marked,
+    spindleOverspeed: spindle,
+    neverAboveRpm: machine && marked ? neverAboveRpm({ spindleLimitRpm: positive(machine.spindleLimitRpm) }, marked) : null,
     cuttingDepthMm: fit?.depthMm ?? null,
     cuttableSizeMm: fit?.cuttableSizeMm ?? null,
     capacityFits: fit?.fits ?? null,

@@ -57,7 +57,8 @@ export const DEMO_MACHINES: MachineBody[] = [
     machineClass: 'precision',
     wheelDiameterMinMm: 100,
     wheelDiameterMaxMm: 200,
-    // Cutting depth with a 150 mm rim wheel: (150 − 50)/2 − 5 = 45 mm.
+    // Cutting depth with a 150 mm rim wheel: (150 − 50)/2 − 5 = 45 mm. The flange is a quarter
+    // of the 200 mm blade, the least a cut-off wheel takes (ANSI B7.1; see shared/flange.ts).
     flangeDiameterMm: 50,
     rpmMin: 50,
     rpmMax: 5000,
@@ -65,8 +66,14 @@ export const DEMO_MACHINES: MachineBody[] = [
     feedMaxMmS: 0.2,
     feedControl: 'automatic',
     feedDirection: 'wheel-down',
-    spindleLimitRpm: null,
-    spindleLimitSetBy: '',
+    // The saw reaches 5000 rpm, but the lab's 200 mm blade is marked 50 m/s: 60 000·50/(π·200)
+    // = 4774.6 rpm. The lab needs that blade size and its maker marks it no higher, and the
+    // precision work never runs above 4000 rpm; so, as a lab would, maintenance locked the
+    // control's top speed at 4500 rpm (below every blade the saw takes, with a margin for the
+    // speed control) and recorded it. Locked in the machine, the limit does not depend on the
+    // operator picking the right speed for the blade mounted (OSHA 29 CFR 1910.215(d)(1)).
+    spindleLimitRpm: 4500,
+    spindleLimitSetBy: 'Maintenance, work order 2291: top speed locked at 4500 rpm in the service settings',
     motorPowerKw: 0.75,
     cutMotions: ['straight-plunge', 'pulsed-plunge', 'turning-specimen', 'stepped-depth'],
     clampingMethods: ['vise-backstop', 'adhesive-wax-mount', 'small-part-gripper', 'fixture-plate', 'v-block'],
@@ -80,6 +87,8 @@ export const DEMO_MACHINES: MachineBody[] = [
  */
 const BENCH_WHEEL_SMALLEST_MM = 200;
 
+// Thin reinforced cut-off wheels are not for side grinding; the metal-bond rim wheels are for
+// wet cutting only (the restriction marks their makers print; invented for the demo).
 const bonded = (name: string, specification: string, diameterMm: number, thicknessMm: number, maxSpeedMs: number, notes: string): WheelBody => ({
   name,
   kind: 'bonded',
@@ -91,7 +100,7 @@ const bonded = (name: string, specification: string, diameterMm: number, thickne
   maxSpeedMs,
   maxSpeedRpm: null,
   dryAllowed: false,
-  restrictions: [],
+  restrictions: ['no-side-grinding'],
   minUsableDiameterMm: diameterMm === 250 ? BENCH_WHEEL_SMALLEST_MM : null,
   notes,
 });
@@ -107,7 +116,7 @@ const rimWheel = (name: string, specification: string, thicknessMm: number, dryA
   maxSpeedMs: 50,
   maxSpeedRpm: null,
   dryAllowed,
-  restrictions: [],
+  restrictions: dryAllowed ? [] : ['wet-use-only'],
   minUsableDiameterMm: null,
   notes,
 });
@@ -124,9 +133,16 @@ export const DEMO_WHEELS: WheelBody[] = [
   bonded('Silicon carbide 250 medium', 'C80N5B', 250, 1.5, 63, 'Titanium and nickel alloys.'),
   rimWheel('Diamond rim 150 metal bond', 'D126N100M', 0.5, false, 'Ceramics and cemented carbides.'),
   rimWheel('Diamond rim 150 resin bond', 'D91N75B', 0.4, true, 'Composites and electronics; dress with an alumina stick after metal.'),
-  rimWheel('CBN rim 150', 'B126N100M', 0.5, false, 'Fully hardened tool steels on the precision saw.'),
-  // The larger blade is marked below what the precision saw can spin it at (50 m/s ≈ 4774 rpm
-  // at 200 mm): the over-speed check matters on this machine.
+  // Superabrasive blades are often marked in rpm (EN 13236 marks diamond saws so): 6000 rpm
+  // at 150 mm is 47.1 m/s.
+  {
+    ...rimWheel('CBN rim 150', 'B126N100M', 0.5, false, 'Fully hardened tool steels on the precision saw.'),
+    maxSpeedMarkedIn: 'rpm',
+    maxSpeedMs: null,
+    maxSpeedRpm: 6000,
+  },
+  // Marked 50 m/s: 4774 rpm at 200 mm, below the saw's 5000 rpm; the saw's locked limit
+  // (4500 rpm) keeps it within the marking.
   {
     ...rimWheel('Diamond rim 200 metal bond', 'D151N100M', 0.8, false, 'Larger ceramic and carbide sections; mind the marked speed at 200 mm.'),
     diameterMm: 200,
@@ -171,7 +187,14 @@ export const DEMO_MATERIALS: MaterialInput[] = [
   { name: 'Ductile iron', designation: 'EN-GJS-500-7', group: 'cast-iron', condition: 'as cast', hardness: { value: 200, scale: 'HBW' } },
   { name: 'AlSi1MgMn wrought aluminium', designation: 'EN AW-6082', group: 'aluminium-magnesium', condition: 'T6', hardness: { value: 95, scale: 'HBW' } },
   { name: 'CuZn39Pb3 free-cutting brass', designation: 'CW614N', group: 'copper', condition: 'drawn', hardness: { value: 130, scale: 'HV' } },
-  { name: 'Ti-6Al-4V', designation: 'UNS R56400', group: 'titanium', condition: 'mill annealed', hardness: { value: 340, scale: 'HV' } },
+  {
+    name: 'Ti-6Al-4V',
+    designation: 'UNS R56400',
+    group: 'titanium',
+    condition: 'mill annealed',
+    hardness: { value: 340, scale: 'HV' },
+    combustibleFines: true,
+  },
   {
     name: 'Nickel alloy 718',
     designation: 'UNS N07718',

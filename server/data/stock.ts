@@ -61,6 +61,11 @@ export async function findStockRows<R extends StockRowBase>(db: Knex, table: Sto
   return (await db(table).whereIn('id', ids)) as R[];
 }
 
+/** Every record of a table that is in use (not archived), by id. */
+export async function listInUseStockRows<R extends StockRowBase>(db: Knex, table: StockTable): Promise<R[]> {
+  return (await db(table).where({ archived: false }).orderBy('id')) as R[];
+}
+
 export async function insertStockRow(db: Knex, table: StockTable, row: Record<string, unknown>): Promise<number> {
   const [id] = await db(table).insert(row);
   return id!;

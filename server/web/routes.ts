@@ -30,6 +30,7 @@ import * as recipes from './handlers/recipes';
 import * as selectionRows from './handlers/selection-rows';
 import * as session from './handlers/session';
 import * as settings from './handlers/settings';
+import * as speedMismatches from './handlers/speed-mismatches';
 import { machines, materials, wheels } from './handlers/stock';
 import * as today from './handlers/today';
 import * as trail from './handlers/trail';
@@ -89,6 +90,7 @@ const table = [
   { method: 'post', path: '/api/wheels/:id/unarchive', summary: 'Offer an archived wheel again.', access: STOCK_EDITORS, params: idParams, answers: '200 json: WheelRecord', handler: wheels.unarchive },
   { method: 'delete', path: '/api/wheels/:id', summary: 'Delete a wheel, or archive it when a recipe refers to it.', access: STOCK_EDITORS, params: idParams, answers: '200 json: { archived } — true when it was archived instead', handler: wheels.remove },
 
+  { method: 'get', path: '/api/stock/speed-mismatches', summary: 'Machines that can turn a wheel of the lab above its marked maximum speed: their top speed, or the limit set on their spindle, against the marking at the wheel\'s new diameter (in-use records; wheels the machine takes).', access: 'signedIn', answers: '200 json: SpeedMismatch[]', handler: speedMismatches.list },
   { method: 'get', path: '/api/machines', summary: 'Machines, a page at a time.', access: 'signedIn', query: stockListQuery, answers: '200 json: Page<MachineRecord>', handler: machines.list },
   { method: 'post', path: '/api/machines', summary: 'Add a machine.', access: STOCK_EDITORS, body: machineBody, answers: '201 json: MachineRecord', handler: machines.create },
   { method: 'get', path: '/api/machines/:id', summary: 'One machine.', access: 'signedIn', params: idParams, answers: '200 json: MachineRecord', handler: machines.getOne },

@@ -51,6 +51,8 @@ export const materialBody = z
     caseDepthMm: quantity('Case depth', 'mm', 0, 20).nullable().default(null),
     heatSensitive: z.boolean().default(false),
     hazardousDust: z.boolean().default(false),
+    /** Fines and sludge can burn (magnesium, titanium, zirconium and their alloys): the recipe gets the fire caution. */
+    combustibleFines: z.boolean().default(false),
     notes: text('Notes', 2000).default(''),
   })
   .refine((m) => !m.caseHardened || m.caseDepthMm !== null, { path: ['caseDepthMm'], message: 'Give the case depth of a case-hardened material.' });

@@ -16,6 +16,7 @@ export function aMaterial(overrides: Partial<MaterialRecord> = {}): MaterialReco
     caseDepthMm: null,
     heatSensitive: false,
     hazardousDust: false,
+    combustibleFines: false,
     notes: '',
     archived: false,
     updatedAt: '2026-10-02T09:00:00.000Z',

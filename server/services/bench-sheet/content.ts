@@ -4,10 +4,12 @@
  * wording can be read and tested on its own.
  */
 import type { UnitPreference } from '../../../shared/api-types';
+import { recipeCautions, standardCautionsFor, type Caution } from '../../../shared/cautions';
 import { computeRecipe } from '../../../shared/recipe-computations';
 import type { RecipeContext } from '../../../shared/recipe-context';
 import type { RecipeVersionDto, SignatureDto } from '../../../shared/recipe-types';
 import type { HardnessWindow } from '../../../shared/schemas/stock';
+import { markedMaximumText } from '../../../shared/spindle-speed';
 import { formatQuantity } from '../../../shared/units';
 import {
   CLAMPING_METHOD_LABELS,
@@ -17,6 +19,7 @@ import {
   MACHINE_CLASS_LABELS,
   MATERIAL_GROUP_LABELS,
   SHAPE_LABELS,
+  WHEEL_RESTRICTION_LABELS,
 } from '../../../shared/vocabulary';
 import type { Row } from './layout';
 
@@ -53,6 +56,10 @@ export interface SheetModel {
   instructionsMd: string;
   acceptanceMd: string;
   cautionsMd: string;
+  /** The cautions the recipe's material, coolant or flags call for, with their basis (printed first). */
+  recipeCautions: Caution[];
+  /** The standard cautions, citing the wheel standard of the recipe's wheel kind. */
+  standardCautions: readonly Caution[];
   changeReason: string;
   signatures: SheetSignature[];
   contentHash: string;
@@ -135,8 +142,32 @@ export function buildSheetModel(input: SheetInput): SheetModel {
       label: 'Wheel size',
       value: wheel ? `Ø ${len(wheel.diameterMm)} × ${len(wheel.thicknessMm)}, bore ${len(wheel.boreMm)}` : '—',
     },
-    { label: 'Marked maximum speed', value: formatQuantity(wheel?.maxSpeedMs, 'speed', units), note: 'As marked on the wheel — never exceed it.' },
-    { label: 'Wheel speed', value: formatQuantity(c.cutting.wheelRpm, 'rpm', units), strong: true },
+    {
+      label: 'Restrictions marked on the wheel',
+      value: wheel ? (wheel.restrictions.length ? wheel.restrictions.map((r) => WHEEL_RESTRICTION_LABELS[r]).join('; ') : 'None marked') : '—',
+      strong: !!wheel?.restrictions.length,
+    },
+    {
+      label: 'Marked maximum speed',
+      value: computed.markedMaximum ? markedMaximumText(computed.markedMaximum, units) : '—',
+      note: 'As marked on the wheel — never exceed it.',
+    },
+    {
+      label: 'Wheel speed',
+      value: formatQuantity(c.cutting.wheelRpm, 'rpm', units),
+      strong: true,
+      // Beside the rpm in large type: the wheel's marked maximum in whole rpm, or the machine's spindle limit where lower.
+      ...(computed.neverAboveRpm !== null ? { callout: `never above ${computed.neverAboveRpm} rpm on this machine` } : {}),
+    },
+    ...(computed.spindleOverspeed
+      ? [
+          {
+            label: 'Machine top speed',
+            value: `${formatQuantity(computed.spindleOverspeed.topRpm, 'rpm', units)} — ABOVE the wheel's marked maximum: check the speed setting before every start`,
+            strong: true,
+          } satisfies Row,
+        ]
+      : []),
     { label: 'Peripheral speed', value: speed, note: 'Computed at the new wheel diameter.' },
     {
       label: 'Margin to marked maximum',
@@ -188,6 +219,8 @@ export function buildSheetModel(input: SheetInput): SheetModel {
     instructionsMd: c.instructionsMd,
     acceptanceMd: c.acceptanceMd,
     cautionsMd: c.cautionsMd,
+    recipeCautions: recipeCautions(c, ctx),
+    standardCautions: standardCautionsFor(wheel?.kind),
     changeReason: c.changeReason,
     signatures,
     contentHash: v.contentHash ?? '',

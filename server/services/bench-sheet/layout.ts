@@ -30,6 +30,13 @@ export const TINT = '#efefef';
 /** Cell padding of the ruled tables, points. */
 const CELL = { padX: 5, padY: 2.6 } as const;
 
+/**
+ * A row with a callout prints its value and the callout in this large bold type, the callout
+ * boxed at the right of the value cell: the limit reads as large as the setting beside it,
+ * never larger, so the eye does not take the limit for the setting.
+ */
+const CALLOUT = { size: 12, padX: 6, padY: 2.5, gap: 10 } as const;
+
 export interface Row {
   label: string;
   value: string;
@@ -37,6 +44,8 @@ export interface Row {
   note?: string;
   /** Printed bold: the values the operator sets on the machine. */
   strong?: boolean;
+  /** Printed in large bold type in a box beside the value (e.g. the speed never to exceed). */
+  callout?: string;
 }
 
 export class SheetWriter {
@@ -150,9 +159,28 @@ export class SheetWriter {
 
   private rowHeight(row: Row, labelWidth: number, valueWidth: number): number {
     const labelH = this.heightOf(row.label, 'regular', TYPE.label, labelWidth - 2 * CELL.padX);
-    const valueH = this.heightOf(row.value, row.strong ? 'bold' : 'regular', TYPE.body, valueWidth - 2 * CELL.padX);
-    const noteH = row.note ? this.heightOf(row.note, 'regular', TYPE.small, valueWidth - 2 * CELL.padX) : 0;
-    return Math.max(labelH, valueH + noteH) + 2 * CELL.padY;
+    const cell = this.valueCell(row, valueWidth);
+    return Math.max(labelH, cell.height) + 2 * CELL.padY;
+  }
+
+  /** How a value cell is laid out: the width its text gets, its font size, the callout box and the height of it all. */
+  private valueCell(
+    row: Row,
+    valueWidth: number,
+  ): { textWidth: number; size: number; valueH: number; noteH: number; callout: { width: number; height: number } | null; height: number } {
+    let callout: { width: number; height: number } | null = null;
+    let textWidth = valueWidth - 2 * CELL.padX;
+    if (row.callout) {
+      this.use('bold', CALLOUT.size);
+      // On one line where it fits, leaving room for the value (e.g. "3000 rpm") beside it.
+      const width = Math.min(this.doc.widthOfString(row.callout) + 2 * CALLOUT.padX + 1, textWidth - 72);
+      callout = { width, height: this.heightOf(row.callout, 'bold', CALLOUT.size, width - 2 * CALLOUT.padX) + 2 * CALLOUT.padY };
+      textWidth -= width + CALLOUT.gap;
+    }
+    const size = row.callout ? CALLOUT.size : TYPE.body;
+    const valueH = this.heightOf(row.value, row.strong ? 'bold' : 'regular', size, textWidth);
+    const noteH = row.note ? this.heightOf(row.note, 'regular', TYPE.small, textWidth) : 0;
+    return { textWidth, size, valueH, noteH, callout, height: Math.max(valueH + noteH, callout?.height ?? 0) };
   }
 
   /**
@@ -192,9 +220,8 @@ export class SheetWriter {
     this.hrule(top, 0.5, RULE, this.left, tableRight);
     for (const row of rows) {
       const labelH = this.heightOf(row.label, 'regular', TYPE.label, labelWidth - 2 * padX);
-      const valueH = this.heightOf(row.value, row.strong ? 'bold' : 'regular', TYPE.body, valueWidth - 2 * padX);
-      const noteH = row.note ? this.heightOf(row.note, 'regular', TYPE.small, valueWidth - 2 * padX) : 0;
-      const height = Math.max(labelH, valueH + noteH) + 2 * padY;
+      const cell = this.valueCell(row, valueWidth);
+      const height = Math.max(labelH, cell.height) + 2 * padY;
       if (top + height > this.bottom) {
         this.doc.addPage();
         top = MARGIN.top;
@@ -202,8 +229,13 @@ export class SheetWriter {
       }
       this.fillRect(this.left, top + 0.25, labelWidth, height - 0.5);
       this.place(row.label, this.left + padX, top + padY + 0.6, 'regular', TYPE.label, { width: labelWidth - 2 * padX }, MUTED);
-      this.place(row.value, valueX + padX, top + padY, row.strong ? 'bold' : 'regular', TYPE.body, { width: valueWidth - 2 * padX });
-      if (row.note) this.place(row.note, valueX + padX, top + padY + valueH, 'regular', TYPE.small, { width: valueWidth - 2 * padX }, MUTED);
+      this.place(row.value, valueX + padX, top + padY, row.strong ? 'bold' : 'regular', cell.size, { width: cell.textWidth });
+      if (row.note) this.place(row.note, valueX + padX, top + padY + cell.valueH, 'regular', TYPE.small, { width: cell.textWidth }, MUTED);
+      if (row.callout && cell.callout) {
+        const boxX = valueX + valueWidth - padX - cell.callout.width;
+        this.strokeRect(boxX, top + padY, cell.callout.width, cell.callout.height, 1.5, INK);
+        this.place(row.callout, boxX + CALLOUT.padX, top + padY + CALLOUT.padY, 'bold', CALLOUT.size, { width: cell.callout.width - 2 * CALLOUT.padX });
+      }
       this.vrule(valueX, top, top + height);
       this.hrule(top + height, 0.5, RULE, this.left, tableRight);
       top += height;

@@ -4,7 +4,7 @@
  * numbered instructions, acceptance criteria, cautions, the standard cautions box,
  * signatures, and a footer on every page. One or two pages.
  */
-import { NO_SAFETY_CLAIM, PRECEDENCE_LINE, STANDARD_CAUTIONS } from '../../../shared/cautions';
+import { NO_SAFETY_CLAIM, PRECEDENCE_LINE, type Caution } from '../../../shared/cautions';
 import type { SheetModel } from './content';
 import { INK, MUTED, RULE, SheetWriter, TINT, TYPE, type PaperSize } from './layout';
 import { markdownHeight, writeMarkdown } from './markdown';
@@ -119,30 +119,35 @@ function photoBlock(w: SheetWriter, photo: SheetPhoto, x: number, y: number, wid
   return ph + 3 + ch;
 }
 
-function cautionsBox(w: SheetWriter): void {
+/** A caution the recipe calls for, full width: bold title, text, and its basis. */
+const recipeCautionText = (c: Caution) => `${c.text}${c.sources.length ? ` (Basis: ${c.sources.join('; ')}.)` : ''}`;
+
+function cautionsBox(w: SheetWriter, m: SheetModel): void {
   const pad = 9;
   const gutter = 14;
   const colWidth = (w.width - 2 * pad - gutter) / 2;
+  const fullWidth = w.width - 2 * pad;
   // Measured all in bold: the bold title makes the real line a little wider than regular text.
-  const items = STANDARD_CAUTIONS.map((c) => ({ ...c, height: w.heightOf(`${c.title}. ${c.text}`, 'bold', TYPE.small + 0.5, colWidth) + 4 }));
-  // Fill the left column to about half the total height, the rest on the right.
-  const total = items.reduce((sum, i) => sum + i.height, 0);
-  const left: typeof items = [];
-  let acc = 0;
-  for (const item of items) {
-    if (acc < total / 2 && left.length < items.length - 1) {
-      left.push(item);
-      acc += item.height;
-    }
+  const items = m.standardCautions.map((c) => ({ ...c, height: w.heightOf(`${c.title}. ${c.text}`, 'bold', TYPE.small + 0.5, colWidth) + 4 }));
+  const forRecipe = m.recipeCautions.map((c) => ({ ...c, height: w.heightOf(`${c.title}. ${recipeCautionText(c)}`, 'bold', TYPE.small + 0.5, fullWidth) + 4 }));
+  const forRecipeHeight = forRecipe.length ? 12 + forRecipe.reduce((sum, i) => sum + i.height, 0) + 17 : 0;
+  // Split in order where the taller column is the shortest, so the box wastes no height.
+  const heightOf = (list: typeof items) => list.reduce((sum, i) => sum + i.height, 0);
+  let split = 1;
+  for (let k = 1; k < items.length; k += 1) {
+    const taller = Math.max(heightOf(items.slice(0, k)), heightOf(items.slice(k)));
+    if (taller < Math.max(heightOf(items.slice(0, split)), heightOf(items.slice(split)))) split = k;
   }
-  const right = items.slice(left.length);
+  const left = items.slice(0, split);
+  const acc = heightOf(left);
+  const right = items.slice(split);
   const colHeight = Math.max(
     acc,
     right.reduce((s, i) => s + i.height, 0),
   );
   const precedenceHeight = w.heightOf(PRECEDENCE_LINE, 'bold', TYPE.small + 0.5, w.width - 2 * pad);
   const claimHeight = w.heightOf(NO_SAFETY_CLAIM, 'regular', TYPE.small, w.width - 2 * pad);
-  const boxHeight = pad + 16 + colHeight + 4 + precedenceHeight + 2 + claimHeight + pad;
+  const boxHeight = pad + 16 + forRecipeHeight + colHeight + 4 + precedenceHeight + 2 + claimHeight + pad;
   w.ensureSpace(boxHeight + 10);
   w.gap(6);
   const top = w.y;
@@ -162,11 +167,30 @@ function cautionsBox(w: SheetWriter): void {
     .stroke()
     .restore();
   w.place('!', tx + 4.4, ty + 2.2, 'bold', 7, { lineBreak: false });
-  w.place('STANDARD CAUTIONS', tx + 18, top + 5, 'bold', TYPE.heading, { characterSpacing: 0.6, lineBreak: false });
+  w.place(forRecipe.length ? 'CAUTIONS' : 'STANDARD CAUTIONS', tx + 18, top + 5, 'bold', TYPE.heading, { characterSpacing: 0.6, lineBreak: false });
   w.place('Read before every cut', w.right - pad - 110, top + 6.5, 'regular', TYPE.small, { width: 110, align: 'right', lineBreak: false }, MUTED);
 
+  // What this recipe's material, coolant or flags call for, first and full width, with the basis of each.
+  let columnsTop = top + 20 + 6;
+  if (forRecipe.length) {
+    let y = columnsTop;
+    w.place('FOR THIS MATERIAL AND SETUP', w.left + pad, y, 'bold', TYPE.small, { characterSpacing: 0.6, lineBreak: false });
+    y += 12;
+    for (const c of forRecipe) {
+      w.use('bold', TYPE.small + 0.5);
+      w.doc.text(`${c.title}. `, w.left + pad, y, { width: fullWidth, lineGap: TYPE.lineGap, continued: true });
+      w.use('regular', TYPE.small + 0.5);
+      w.doc.text(recipeCautionText(c), { width: fullWidth, lineGap: TYPE.lineGap });
+      y = w.doc.y + 4;
+    }
+    y += 1;
+    w.hrule(y, 0.5, RULE, w.left + pad, w.right - pad);
+    w.place('STANDARD', w.left + pad, y + 4, 'bold', TYPE.small, { characterSpacing: 0.6, lineBreak: false });
+    columnsTop = y + 16;
+  }
+
   const writeColumn = (list: typeof items, x: number): number => {
-    let y = top + 20 + 6;
+    let y = columnsTop;
     for (const c of list) {
       w.use('bold', TYPE.small + 0.5);
       w.doc.text(`${c.title}. `, x, y, { width: colWidth, lineGap: TYPE.lineGap, continued: true });
@@ -178,7 +202,7 @@ function cautionsBox(w: SheetWriter): void {
   };
   // Written first; the box is drawn last to the height the columns really took.
   const columnsEnd = Math.max(writeColumn(left, w.left + pad), writeColumn(right, w.left + pad + colWidth + gutter));
-  w.vrule(w.left + pad + colWidth + gutter / 2, top + 26, columnsEnd - 4, 0.5, RULE);
+  w.vrule(w.left + pad + colWidth + gutter / 2, columnsTop, columnsEnd - 4, 0.5, RULE);
 
   let y = columnsEnd + 2;
   w.hrule(y, 0.5, RULE, w.left + pad, w.right - pad);
@@ -284,9 +308,11 @@ export async function renderSheet(input: SheetRenderInput): Promise<Buffer> {
   writeMarkdown(w, m.acceptanceMd, { emptyText: 'None given.' });
 
   w.section(++n, 'Cautions for this recipe', 24);
-  writeMarkdown(w, m.cautionsMd, { emptyText: 'None beyond the standard cautions below.' });
+  writeMarkdown(w, m.cautionsMd, {
+    emptyText: m.recipeCautions.length ? 'None written beyond the cautions below.' : 'None beyond the standard cautions below.',
+  });
 
-  cautionsBox(w);
+  cautionsBox(w, m);
 
   w.section(++n, 'Signatures', 60);
   signatures(w, m);

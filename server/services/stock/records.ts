@@ -23,6 +23,7 @@ export interface MaterialRow extends StockRowBase {
   case_depth_mm: number | null;
   heat_sensitive: number | boolean;
   hazardous_dust: number | boolean;
+  combustible_fines: number | boolean;
   notes: string;
 }
 
@@ -78,6 +79,7 @@ export function toMaterialRecord(row: MaterialRow): MaterialRecord {
     caseDepthMm: row.case_depth_mm,
     heatSensitive: Boolean(row.heat_sensitive),
     hazardousDust: Boolean(row.hazardous_dust),
+    combustibleFines: Boolean(row.combustible_fines),
     notes: row.notes,
     ...stored(row),
   };
@@ -96,6 +98,7 @@ export function materialValues(body: MaterialBody): Record<string, unknown> {
     case_depth_mm: body.caseDepthMm,
     heat_sensitive: body.heatSensitive,
     hazardous_dust: body.hazardousDust,
+    combustible_fines: body.combustibleFines,
     notes: body.notes,
   };
 }

@@ -98,11 +98,23 @@ describe('MaterialFormDialog', () => {
       caseDepthMm: null,
       heatSensitive: true,
       hazardousDust: false,
+      combustibleFines: false,
       notes: '',
     });
     const saved = aMaterial({ id: 21, name: 'Tool steel block' });
     req.flush(saved, { status: 201, statusText: 'Created' });
     await vi.waitFor(() => expect(dialogRef.close).toHaveBeenCalledWith(saved));
+  });
+
+  it('sends the fire flag for fines that can burn when it is ticked', async () => {
+    await open({});
+    await fillNewMaterial();
+    await tick('Fines can burn (magnesium, titanium, zirconium)');
+    submit();
+    const req = await vi.waitFor(() => backend.expectOne({ method: 'POST', url: '/api/materials' }));
+    expect(req.request.body).toMatchObject({ combustibleFines: true, hazardousDust: false });
+    req.flush(aMaterial({ id: 22, combustibleFines: true }), { status: 201, statusText: 'Created' });
+    await vi.waitFor(() => expect(dialogRef.close).toHaveBeenCalled());
   });
 
   it("checks the fields with the shared schema's words before sending", async () => {

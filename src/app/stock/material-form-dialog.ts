@@ -49,6 +49,7 @@ export class MaterialFormDialog extends StockFormDialog<MaterialRecord> {
     caseDepthMm: this.fb.control<number | null>(this.material?.caseDepthMm ?? null, zodValidator(fields.caseDepthMm)),
     heatSensitive: [this.material?.heatSensitive ?? false],
     hazardousDust: [this.material?.hazardousDust ?? false],
+    combustibleFines: [this.material?.combustibleFines ?? false],
     notes: [this.material?.notes ?? '', zodValidator(fields.notes)],
   });
 

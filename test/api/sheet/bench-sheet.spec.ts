@@ -96,7 +96,8 @@ describe('Bench sheet', () => {
       'Bench saw',
       'A60P5B',
       'Ø 250 mm × 1.50 mm, bore 32.0 mm',
-      '63.0 m/s',
+      // Marked in m/s, shown as marked; 60 000·63/(π·250) = 4812.8 rpm, floored.
+      '63 m/s (marked) · 4812 rpm at 250 mm',
       '3000 rpm',
       '39.3 m/s', // π × 250 mm × 3000 rpm
       '23.7 m/s below the marked maximum (38 %)',

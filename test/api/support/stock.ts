@@ -18,6 +18,7 @@ export const materialInput = (over: Partial<MaterialBody> = {}): MaterialBody =>
   caseDepthMm: null,
   heatSensitive: false,
   hazardousDust: false,
+  combustibleFines: false,
   notes: '',
   ...over,
 });

@@ -96,6 +96,7 @@ export function material(over: Partial<MaterialRecord> = {}): MaterialRecord {
     caseDepthMm: null,
     heatSensitive: false,
     hazardousDust: false,
+    combustibleFines: false,
     ...stored,
     ...over,
   };

@@ -4,6 +4,7 @@ import type { Observable } from 'rxjs';
 import type { Page } from '@shared/api-types';
 import type { Access } from '@shared/roles';
 import type { MachineBody, MaterialBody, SelectionRowBody, StockListQuery, WheelBody } from '@shared/schemas/stock';
+import type { SpeedMismatch } from '@shared/spindle-speed';
 import type { LabLimits, MachineRecord, MaterialRecord, SelectionRow, WheelRecord } from '@shared/stock-types';
 
 /** Who may change stock records (DEVELOPERS.md, Authoring routes); everyone signed in reads them. */
@@ -63,6 +64,11 @@ export class StockApi {
   readonly materials = new StockResource<MaterialBody, MaterialRecord>(this.http, '/api/materials');
   readonly wheels = new StockResource<WheelBody, WheelRecord>(this.http, '/api/wheels');
   readonly machines = new StockResource<MachineBody, MachineRecord>(this.http, '/api/machines');
+
+  /** Every in-use machine and wheel where the machine can turn the wheel above its marked maximum. */
+  speedMismatches(): Observable<SpeedMismatch[]> {
+    return this.http.get<SpeedMismatch[]>('/api/stock/speed-mismatches');
+  }
 
   selectionRows(): Observable<SelectionRow[]> {
     return this.http.get<SelectionRow[]>('/api/selection-rows');

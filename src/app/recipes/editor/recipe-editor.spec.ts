@@ -14,7 +14,8 @@ import { Session } from '../../core/session/session';
 import { RecipeEditor } from './recipe-editor';
 
 // Invented stock: a bench saw that could spin well past the wheel's marked speed, so only the
-// wheel's own limit is at stake in the over-speed test.
+// wheel's own limit is at stake in the over-speed test. Its spindle is limited to 6000 rpm, within
+// the wheel's 6111 rpm, so the machine itself cannot over-speed the wheel.
 const MATERIAL: MaterialRecord = {
   id: 5,
   name: 'Quenched Cr-Mo bar',
@@ -27,6 +28,7 @@ const MATERIAL: MaterialRecord = {
   caseDepthMm: null,
   heatSensitive: false,
   hazardousDust: false,
+  combustibleFines: false,
   notes: '',
   archived: false,
   updatedAt: '2026-10-02T09:00:00.000Z',
@@ -44,8 +46,8 @@ const MACHINE: MachineRecord = {
   feedMaxMmS: 2,
   feedControl: 'automatic',
   feedDirection: 'wheel-down',
-  spindleLimitRpm: null,
-  spindleLimitSetBy: '',
+  spindleLimitRpm: 6000,
+  spindleLimitSetBy: 'Maintenance, work order 12',
   motorPowerKw: null,
   cutMotions: ['straight-plunge', 'pulsed-plunge'],
   clampingMethods: ['vise-backstop', 'top-clamp'],
@@ -217,6 +219,9 @@ describe('RecipeEditor', () => {
     // 250 mm at 3000 rpm: v = π · D · n / 60 000 = π · 250 · 3000 / 60 000 = 39.27 m/s (peripheral speed, worked by hand).
     await until(() => expect(text('[data-testid="peripheral-speed"] dd')).toBe('39.3 m/s (7730 ft/min)'));
     expect(text('[data-testid="rpm-at-max"] dd')).toBe('6111 rpm');
+    // Marked in m/s, shown as marked with the rpm at the new diameter; the spindle limit is lower.
+    expect(text('[data-testid="marked-maximum"]')).toBe('80 m/s (marked) · 6111 rpm at 250 mm');
+    expect(text('[data-testid="never-above"] dd')).toBe('Never above 6000 rpm');
     expect(root.querySelector('[data-check="wheel-overspeed"]')).toBeNull();
     expect(text('[data-testid="no-blockers"]')).toContain('No blockers');
 

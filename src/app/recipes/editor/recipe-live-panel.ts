@@ -5,7 +5,8 @@ import type { UnitPreference } from '@shared/api-types';
 import { NO_SAFETY_CLAIM } from '@shared/cautions';
 import { formatHardness } from '@shared/hardness';
 import type { CheckResult, CheckSeverity } from '@shared/recipe-checks';
-import type { RecipeComputed } from '@shared/recipe-computations';
+import type { MarkedMaximum, RecipeComputed } from '@shared/recipe-computations';
+import { markedMaximumText } from '@shared/spindle-speed';
 import { NO_VALUE, type QuantityKind, formatQuantity } from '@shared/units';
 import { CUT_POWER_LABELS } from '@shared/vocabulary';
 import { FIELD_INFO } from './recipe-form';
@@ -87,6 +88,11 @@ export class RecipeLivePanel {
   /** Peripheral speed always shows both units: wheels are marked in m/s, many machines in ft/min. */
   protected speed(value: number | null | undefined): string {
     return formatQuantity(value, 'speed', 'metric+imperial');
+  }
+
+  /** The wheel's maximum as marked, with the other unit computed from the new diameter. */
+  protected marked(value: MarkedMaximum | null | undefined): string {
+    return value ? markedMaximumText(value, this.units()) : this.noValue;
   }
 
   protected abs(value: number): number {

@@ -114,6 +114,28 @@ describe('RecipePage', () => {
     document.querySelectorAll('.cdk-overlay-container').forEach((el) => (el.innerHTML = ''));
   });
 
+  it('shows the marking as marked, the restriction marks, and the cautions a titanium recipe calls for with their basis', async () => {
+    await open('/recipes/3');
+    const ti = aRecipeVersion({ version: 1, status: 'approved' });
+    ti.content = { ...ti.content, scope: { ...ti.content.scope, group: 'titanium' } };
+    await answerVersions([ti]);
+    (await vi.waitFor(() => backend.expectOne('/api/materials/5'))).flush(aMaterial({ name: 'Ti-6Al-4V', group: 'titanium', combustibleFines: true }));
+    backend.expectOne('/api/wheels/2').flush(aWheel({ restrictions: ['no-side-grinding'] }));
+    backend.expectOne('/api/machines/1').flush(aMachine());
+    await harness.fixture.whenStable();
+
+    // 60 000·80/(π·250) = 6111.5 rpm, floored.
+    expect(root().querySelector('[data-testid="marked-maximum"]')!.textContent!.trim()).toBe('80 m/s (marked) · 6111 rpm at 250 mm');
+    expect(root().querySelector('[data-testid="restrictions"]')!.textContent!.trim()).toBe('Not for side grinding');
+    const cautions = root().querySelector('kb-standard-cautions')!;
+    const fire = cautions.querySelector('[data-caution="combustible-fines"]')!.textContent!;
+    expect(fire).toContain('Metal fines that can burn');
+    expect(fire).toContain('Basis: NFPA 484');
+    // A bonded wheel: its standard is EN 12413, not the superabrasive EN 13236.
+    expect(cautions.textContent).toContain('EN 12413');
+    expect(cautions.textContent).not.toContain('EN 13236');
+  });
+
   it('shows the newest version with its header, stock names and tabs', async () => {
     await open('/recipes/3');
     await answerVersions([draft, approved]);

@@ -10,7 +10,7 @@ import { MatSelectModule } from '@angular/material/select';
 import { MatTabsModule } from '@angular/material/tabs';
 import { Router, RouterLink } from '@angular/router';
 import { EMPTY, catchError, distinctUntilChanged, firstValueFrom, switchMap } from 'rxjs';
-import { NO_SAFETY_CLAIM } from '@shared/cautions';
+import { NO_SAFETY_CLAIM, recipeCautions } from '@shared/cautions';
 import type { CheckResult, CheckSeverity } from '@shared/recipe-checks';
 import { computeRecipe } from '@shared/recipe-computations';
 import type { CutRecordDto, MyAcknowledgementDto, RecipeVersionDto } from '@shared/recipe-types';
@@ -25,6 +25,8 @@ import {
   RECIPE_STATUS_LABELS,
   SHAPE_LABELS,
   WHEEL_KIND_LABELS,
+  WHEEL_RESTRICTION_LABELS,
+  type WheelRestriction,
 } from '@shared/vocabulary';
 import { askToAcknowledge } from '../../ui/acknowledge-dialog';
 import { mustAcknowledge } from '../../ui/acknowledgement-state';
@@ -36,6 +38,7 @@ import { Session } from '../../core/session/session';
 import { CutProfilePlot } from '../../ui/cut-profile-plot/cut-profile-plot';
 import { capacityWords } from '../../ui/cutting-geometry/capacity-words';
 import { WornWheelValues } from '../../ui/cutting-geometry/worn-wheel-values';
+import { MarkedMaximumPipe } from '../../ui/marked-maximum';
 import { QuantityPipe } from '../../ui/quantity';
 import { recipeVersions } from '../../core/api/recipe-versions';
 import { stockNamesOf } from '../../core/api/stock-names';
@@ -74,6 +77,7 @@ const ATTACHMENT_ROLE_LABELS = { setup: 'Setup', 'good-face': 'Good cut face', '
     DatePipe,
     DecimalPipe,
     MarkdownView,
+    MarkedMaximumPipe,
     MatButtonModule,
     MatFormFieldModule,
     MatIconModule,
@@ -206,6 +210,12 @@ export class RecipePage {
   });
   /** The capacity in words, with the geometric limit that applies. */
   protected readonly capacity = computed(() => capacityWords(this.computed(), this.units()));
+
+  /** The cautions this version's material, coolant or flags call for, beside the standard ones. */
+  protected readonly recipeCautions = computed(() => {
+    const version = this.version();
+    return version ? recipeCautions(version.content, { material: this.stockNames().material }) : [];
+  });
   protected readonly checks = computed<CheckResult[]>(() =>
     [...(this.version()?.checks ?? [])].sort((a, b) => SEVERITY_ORDER[a.severity] - SEVERITY_ORDER[b.severity]),
   );
@@ -225,6 +235,8 @@ export class RecipePage {
   protected readonly coolantLabel = COOLANT_TYPE_LABELS;
   protected readonly orientationLabel = CUT_ORIENTATION_LABELS;
   protected readonly attachmentRoleLabel = ATTACHMENT_ROLE_LABELS;
+  protected readonly restrictionsText = (marks: readonly WheelRestriction[]) =>
+    marks.length ? marks.map((r) => WHEEL_RESTRICTION_LABELS[r]).join('; ') : 'None marked';
   protected readonly noSafetyClaim = NO_SAFETY_CLAIM;
   /** YYYY-MM-DD (UTC), to tell an approved version that is not yet current. */
   protected readonly today = utcToday();

@@ -1,17 +1,36 @@
-import { ChangeDetectionStrategy, Component } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
 import { MatIconModule } from '@angular/material/icon';
-import { NO_SAFETY_CLAIM, PRECEDENCE_LINE, STANDARD_CAUTIONS } from '@shared/cautions';
+import { type Caution, NO_SAFETY_CLAIM, PRECEDENCE_LINE, standardCautionsFor } from '@shared/cautions';
+import type { WheelKind } from '@shared/vocabulary';
 
-/** The standard cautions box every recipe page carries: wheels can burst and saws cut fingers, whatever the recipe. */
+/**
+ * The cautions box every recipe page carries: wheels can burst and saws cut fingers, whatever
+ * the recipe. The cautions this recipe's material, coolant or flags call for come first, each
+ * with its basis; the standard ones cite the wheel standard of the recipe's wheel kind.
+ */
 @Component({
   selector: 'kb-standard-cautions',
   imports: [MatIconModule],
   template: `
     <section class="kb-cautions" aria-labelledby="kb-cautions-title">
-      <h2 id="kb-cautions-title"><mat-icon aria-hidden="true">health_and_safety</mat-icon>Standard cautions</h2>
+      <h2 id="kb-cautions-title"><mat-icon aria-hidden="true">health_and_safety</mat-icon>{{ forRecipe().length ? 'Cautions' : 'Standard cautions' }}</h2>
       <p class="kb-precedence">{{ precedence }}</p>
+      @if (forRecipe().length) {
+        <h3>For this material and setup</h3>
+        <ul class="kb-for-recipe" data-testid="recipe-cautions">
+          @for (caution of forRecipe(); track caution.id) {
+            <li [attr.data-caution]="caution.id">
+              <strong>{{ caution.title }}.</strong> {{ caution.text }}
+              @if (caution.sources.length) {
+                <span class="kb-sources">(Basis: {{ caution.sources.join('; ') }})</span>
+              }
+            </li>
+          }
+        </ul>
+        <h3>Standard</h3>
+      }
       <ul>
-        @for (caution of cautions; track caution.id) {
+        @for (caution of cautions(); track caution.id) {
           <li>
             <strong>{{ caution.title }}.</strong> {{ caution.text }}
             @if (caution.sources.length) {
@@ -38,11 +57,18 @@ import { NO_SAFETY_CLAIM, PRECEDENCE_LINE, STANDARD_CAUTIONS } from '@shared/cau
       margin: 0 0 4px;
       font: var(--mat-sys-title-medium);
     }
+    h3 {
+      margin: 12px 0 0;
+      font: var(--mat-sys-title-small);
+    }
     ul {
       margin: 8px 0;
       padding-left: 1.2em;
       columns: 2 360px;
       column-gap: 32px;
+    }
+    ul.kb-for-recipe {
+      columns: auto;
     }
     li {
       break-inside: avoid;
@@ -64,7 +90,12 @@ import { NO_SAFETY_CLAIM, PRECEDENCE_LINE, STANDARD_CAUTIONS } from '@shared/cau
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class StandardCautions {
-  protected readonly cautions = STANDARD_CAUTIONS;
+  /** The recipe's wheel kind: the wheel cautions then cite only its standard (EN 12413 or EN 13236). */
+  readonly wheelKind = input<WheelKind | null>(null);
+  /** The cautions the recipe's material, coolant or flags call for. */
+  readonly forRecipe = input<readonly Caution[]>([]);
+
+  protected readonly cautions = computed(() => standardCautionsFor(this.wheelKind()));
   protected readonly precedence = PRECEDENCE_LINE;
   protected readonly noClaim = NO_SAFETY_CLAIM;
 }
