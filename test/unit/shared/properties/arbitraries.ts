@@ -19,6 +19,7 @@ import {
   SHAPES,
   WHEEL_KINDS,
 } from '../../../../shared/vocabulary';
+import { CONVENTIONAL_BONDS } from '../../../../shared/wheel-spec';
 import { content, machine, material, wheel } from '../fixtures';
 
 /** Runs per property: enough to find edge cases, small enough for the whole folder to stay well under 30 s on 2 shared cores. */
@@ -115,7 +116,7 @@ export const validMarking = fc.oneof(
       fc.integer({ min: 1, max: 9999 }),
       fc.constantFrom(...'ABCDEFGHIJKLMNOPQRSTUVWXYZ'),
       fc.option(fc.integer({ min: 0, max: 99 }), { nil: null }),
-      fc.constantFrom('V', 'B', 'BF', 'R', 'E', 'M', 'S'),
+      fc.constantFrom(...CONVENTIONAL_BONDS),
     )
     .map(([a, grit, grade, structure, bond]) => `${a}${grit}${grade}${structure ?? ''}${bond}`),
   fc
