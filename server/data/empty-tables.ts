@@ -5,7 +5,7 @@
  * which is per connection: a transaction keeps the statements on one.
  */
 import type { Knex } from 'knex';
-import { DEFAULT_FEED_CEILINGS_MM_S } from '../../migrations/20261201222730_insert_default_feed_ceilings';
+import { feedLimitsFrom, STARTER_LONG_CONTACT_MM } from '../../migrations/20261205183803_insert_feed_limits';
 
 /** Children first. lab_settings keeps its row; the counters go back to their start. */
 const TABLES = [
@@ -58,7 +58,8 @@ export async function restoreLabSettings(db: Knex): Promise<void> {
       review_interval_months: 24,
       sheet_paper: 'A4',
       default_units: 'metric',
-      feed_ceilings_json: JSON.stringify(DEFAULT_FEED_CEILINGS_MM_S),
+      feed_limits_json: JSON.stringify(feedLimitsFrom({})),
+      long_contact_mm: STARTER_LONG_CONTACT_MM,
       updated_at: new Date(),
     });
 }
