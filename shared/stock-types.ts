@@ -1,4 +1,5 @@
 /** Stock records as the API returns them: the body that was saved plus id and archive state. */
+import type { FeedCeiling } from './schemas/lab-settings';
 import type { MachineBody, MaterialBody, SelectionRowBody, WheelBody } from './schemas/stock';
 import type { MaterialGroup } from './vocabulary';
 
@@ -20,9 +21,18 @@ export type WheelRecord = Omit<WheelBody, 'maxSpeedMs' | 'maxSpeedRpm'> & {
 } & Stored;
 export type MachineRecord = MachineBody & Stored;
 export type SelectionRow = SelectionRowBody & { id: number };
+/** A selection-table row with the kind and marking of its wheel (a wheel in use), as the recipe checks read the table. */
+export type SelectionRowWheel = SelectionRow & { wheel: Pick<WheelRecord, 'kind' | 'specification'> };
 
 /** Lab settings the computations and checks need. */
 export interface LabLimits {
-  /** Feed ceilings per material group, mm/s: above it the feed check warns. */
-  feedCeilingsMmS: Partial<Record<MaterialGroup, number>>;
+  /** Plunge-feed ceilings per material group × hardness band × machine class, mm/s: above the one that applies the feed check warns. */
+  feedCeilings: FeedCeiling[];
+  /** Traverse passes: the highest removal per mm of wheel width (Q'w), mm³/s per mm, per material group. */
+  traverseRemovalCeilings: Partial<Record<MaterialGroup, number>>;
+  /** Contact length above which a straight plunge gets the long-contact note, mm; null = no note. */
+  longContactMm: number | null;
 }
+
+/** No limits at all: no feed ceilings, no removal ceilings, no long-contact note. */
+export const NO_LAB_LIMITS: LabLimits = { feedCeilings: [], traverseRemovalCeilings: {}, longContactMm: null };

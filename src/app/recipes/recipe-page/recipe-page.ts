@@ -15,6 +15,7 @@ import type { CheckResult, CheckSeverity } from '@shared/recipe-checks';
 import { computeRecipe } from '@shared/recipe-computations';
 import type { CutRecordDto, MyAcknowledgementDto, RecipeVersionDto } from '@shared/recipe-types';
 import { hasAccess } from '@shared/roles';
+import { NO_LAB_LIMITS } from '@shared/stock-types';
 import {
   CLAMPING_METHOD_LABELS,
   COOLANT_TYPE_LABELS,
@@ -25,6 +26,7 @@ import {
   RECIPE_STATUS_LABELS,
   SHAPE_LABELS,
   WHEEL_KIND_LABELS,
+  WHEEL_PATH_LABELS,
 } from '@shared/vocabulary';
 import { askToAcknowledge } from '../../ui/acknowledge-dialog';
 import { mustAcknowledge } from '../../ui/acknowledgement-state';
@@ -192,8 +194,8 @@ export class RecipePage {
     const version = this.version();
     if (!version) return null;
     const { material, wheel, machine } = this.stockNames();
-    // Lab limits only matter to the checks, which the server has already run on this content.
-    return computeRecipe(version.content, { material, wheel, machine, limits: { feedCeilingsMmS: {} } });
+    // Lab limits and the selection table only matter to the checks, which the server has already run on this content.
+    return computeRecipe(version.content, { material, wheel, machine, limits: NO_LAB_LIMITS, selectionRows: [] });
   });
   protected readonly checks = computed<CheckResult[]>(() =>
     [...(this.version()?.checks ?? [])].sort((a, b) => SEVERITY_ORDER[a.severity] - SEVERITY_ORDER[b.severity]),
@@ -212,6 +214,7 @@ export class RecipePage {
   protected readonly machineClassLabel = MACHINE_CLASS_LABELS;
   protected readonly wheelKindLabel = WHEEL_KIND_LABELS;
   protected readonly coolantLabel = COOLANT_TYPE_LABELS;
+  protected readonly wheelPathLabel = WHEEL_PATH_LABELS;
   protected readonly orientationLabel = CUT_ORIENTATION_LABELS;
   protected readonly attachmentRoleLabel = ATTACHMENT_ROLE_LABELS;
   protected readonly noSafetyClaim = NO_SAFETY_CLAIM;
