@@ -2,7 +2,7 @@
 import { markedSpeedPair } from '../../../shared/peripheral-speed';
 import type { RecipeContext } from '../../../shared/recipe-context';
 import type { RecipeContent } from '../../../shared/schemas/recipe';
-import type { MachineRecord, MaterialRecord, WheelRecord } from '../../../shared/stock-types';
+import { NO_LAB_LIMITS, type MachineRecord, type MaterialRecord, type WheelRecord } from '../../../shared/stock-types';
 
 const stored = { archived: false, updatedAt: '2025-01-01T00:00:00Z', notes: '' };
 
@@ -92,6 +92,7 @@ export function material(over: Partial<MaterialRecord> = {}): MaterialRecord {
     condition: 'quenched and tempered',
     hardness: { value: 30, scale: 'HRC' },
     coated: false,
+    coatingHardness: null,
     caseHardened: false,
     caseDepthMm: null,
     heatSensitive: false,
@@ -142,6 +143,7 @@ export function content(
       softInserts: false,
       supportBlocks: false,
       orientationRule: '',
+      wheelPath: null,
       ...over.clamping,
     },
     coolant: { type: 'water-soluble', concentrationPct: 4, flowLMin: 10, ...over.coolant },
@@ -153,5 +155,5 @@ export function content(
 }
 
 export function ctx(over: Partial<RecipeContext> = {}): RecipeContext {
-  return { material: material(), wheel: wheel(), machine: machine(), limits: { feedCeilingsMmS: {} }, ...over };
+  return { material: material(), wheel: wheel(), machine: machine(), limits: NO_LAB_LIMITS, selectionRows: [], ...over };
 }
