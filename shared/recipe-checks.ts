@@ -130,7 +130,7 @@ function wheelAbrasiveUnsuited({ ctx, abrasive, group }: Facts): CheckResult | n
     'warning',
     'cutting.wheelId',
     `A ${ABRASIVE_FAMILY_LABELS[abrasive].toLowerCase()} wheel is chosen for ${lowerLabel(MATERIAL_GROUP_LABELS, group)}; the lab's selection table gives ${names} for this group.`,
-    "Aluminium oxide cuts steels, cast irons and nickel and cobalt alloys; silicon carbide cuts aluminium, copper and titanium, on which alumina loads, and reacts with iron (common practice; ASTM E3 from memory). The lab's selection table says which abrasive it uses for each group.",
+    "Aluminium oxide cuts steels, cast irons and nickel and cobalt alloys, which wear silicon carbide chemically at cutting heat; silicon carbide cuts aluminium, copper and titanium, which load alumina (common practice; ASTM E3 from memory). The lab's selection table says which abrasive it uses for each group.",
   );
 }
 
@@ -246,7 +246,7 @@ function wheelExitsCoating({ content, ctx }: Facts): CheckResult | null {
     'wheel-exits-coating',
     'warning',
     'clamping.wheelPath',
-    `The wheel leaves ${mat.name} through its coating, which peels the coating off the substrate. ${how}`,
+    `The wheel leaves the part through its coating (${mat.name}): that peels the coating off the substrate. ${how}`,
     'Cut so the wheel presses the coating onto the substrate (enters through the coating); where it leaves through the coating it lifts it and the interface is no longer the one to examine (common practice).',
   );
 }

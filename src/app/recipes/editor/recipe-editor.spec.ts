@@ -389,25 +389,32 @@ describe('RecipeEditor', () => {
       await until(() => expect(root.querySelector('#f-clamping-wheelPath')).not.toBeNull());
     });
 
-    it('loads content stored without it as "not given", warns live, and saves the chosen path', async () => {
+    /** A draft of the coated material, stored as an older Kerfbook stored it: no wheelPath key. */
+    function olderCoatedDraft(): RecipeVersionDto {
       const draft = aDraft();
       draft.content.scope.materialId = 6;
-      // As an older Kerfbook stored it: no wheelPath key.
       delete (draft.content.clamping as Partial<typeof draft.content.clamping>).wheelPath;
-      await open('3', [draft]);
+      return draft;
+    }
+
+    it('loads content stored without it as "not given", unchanged, with the live warning that it is missing', async () => {
+      await open('3', [olderCoatedDraft()]);
       await until(() => expect(root.querySelector('#f-clamping-wheelPath')).not.toBeNull());
       expect(fixture.componentInstance['form'].controls.content.controls.clamping.controls.wheelPath.value).toBeNull();
       // Loading older content is not a change.
       expect(text('[data-testid="save-status"]')).not.toContain('Unsaved');
       await until(() => expect(root.querySelector('[data-check="orientation-rule-missing"]')).not.toBeNull());
       expect(text('.kb-check-message', root.querySelector('[data-check="orientation-rule-missing"]')!)).toContain('where the wheel enters and leaves');
+    });
 
+    it('warns live when the chosen path leaves through the coating, and saves the path chosen', async () => {
+      await open('3', [olderCoatedDraft()]);
       await chooseWheelPath('Enters through the substrate, leaves through the coating');
       await until(() => expect(root.querySelector('[data-check="wheel-exits-coating"]')).not.toBeNull());
       expect(root.querySelector('[data-check="orientation-rule-missing"]')).toBeNull();
       expect(text('.kb-check-message', root.querySelector('[data-check="wheel-exits-coating"]')!)).toContain('peels the coating');
 
-      await chooseWheelPath('Enters through the coating, leaves through the substrate');
+      fixture.componentInstance['form'].controls.content.controls.clamping.controls.wheelPath.setValue('enters-coating');
       await until(() => expect(root.querySelector('[data-check="wheel-exits-coating"]')).toBeNull());
       clickSave();
       const req = await vi.waitFor(() => backend.expectOne({ method: 'PUT', url: '/api/recipes/3/versions/1' }));
