@@ -10,7 +10,7 @@ import type { HardnessScale, MaterialGroup } from './vocabulary';
 /** The standard's caveats, shown wherever a converted value appears (ASTM E140 and ISO 18265, in our own words). */
 export const HARDNESS_CAVEATS: readonly string[] = [
   'Converted hardness is approximate and depends on the material. Convert specification limits rather than test results where you can, and report the measured value with the converted one in parentheses, e.g. 353 HBW (38 HRC).',
-  'ASTM E140 Tables 1 and 2 apply only to homogeneous non-austenitic carbon, alloy and tool steels (as-forged, annealed, normalized, quenched and tempered). Austenitic stainless steels have their own tables; aluminium, copper, titanium, nickel and other alloys keep their measured scale.',
+  'ASTM E140 Tables 1 and 2 apply only to homogeneous non-austenitic carbon, alloy and tool steels (as-forged, annealed, normalized, quenched and tempered). The standard has tables for other materials too (austenitic stainless steels, nickel alloys, brass, copper and aluminium among them, from memory), but Kerfbook includes only the two steel tables: other materials keep their measured scale.',
   'ISO 18265: a converted value is exact only for the material the table was made for; for any other material it is an indication.',
   'Values in parentheses lie outside the normal range of that scale. HBW is Brinell with a 10 mm carbide ball at 3000 kgf.',
   'Outside the range of the table no conversion is given; values are never extrapolated.',
@@ -22,7 +22,7 @@ export const CONVERTIBLE_GROUPS: readonly MaterialGroup[] = ['plain-low-alloy-st
 /** Why a group keeps its measured scale. */
 const NOT_CONVERTIBLE: Partial<Record<MaterialGroup, string>> = {
   'stainless-steel':
-    'Stainless steels include austenitic grades, which the non-austenitic steel tables do not cover (ASTM E140 has separate tables for them); keep the measured scale.',
+    'Stainless steels include austenitic grades, which the non-austenitic steel tables do not cover. ASTM E140 has separate tables for them, but Kerfbook includes only the steel tables it uses (Tables 1 and 2); keep the measured scale.',
   'cast-iron': 'Cast irons are not covered by the steel conversion tables (ASTM E140 Tables 1 and 2); keep the measured scale.',
 };
 
@@ -241,7 +241,7 @@ export function conversionApplies(group: MaterialGroup): { applies: true } | { a
     // Own keys only: an inherited name ("__proto__", "constructor") is not a reason.
     reason:
       (Object.hasOwn(NOT_CONVERTIBLE, group) ? NOT_CONVERTIBLE[group] : undefined) ??
-      'The hardness conversion tables are for non-austenitic steels only; this material keeps its measured scale.',
+      'Kerfbook includes only the conversion tables for non-austenitic steels (ASTM E140, Tables 1 and 2); the standard has tables for some other materials, which Kerfbook does not include, so this material keeps its measured scale.',
   };
 }
 

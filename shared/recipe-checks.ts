@@ -8,23 +8,30 @@
 import type { RecipeContext } from './recipe-context';
 import { computeRecipe, type RecipeComputed } from './recipe-computations';
 import type { RecipeContent } from './schemas/recipe';
+import type { HardnessWindow } from './schemas/stock';
 import {
   CLAMPING_METHOD_LABELS,
+  COOLANT_TYPE_LABELS,
+  COOLANT_TYPES,
   CUT_MOTION_LABELS,
+  MACHINE_CLASS_LABELS,
   MATERIAL_GROUP_LABELS,
   METALLIC_GROUPS,
   type MaterialGroup,
   type MachineClass,
   type WheelKind,
 } from './vocabulary';
+import { maxRpmForWheel } from './peripheral-speed';
+import { describeCeilingBand, plungeFeedCeiling } from './feed-ceilings';
+import { describeWindow, pointWindow, usableWindow } from './hardness-bands';
+import { GRADE_ORDER, tableAbrasives, tableGrades } from './selection-table';
+import { ABRASIVE_FAMILY_LABELS, abrasiveFamily, gradeBand, parseWheelSpec, type AbrasiveFamily, type WheelSpecResult } from './wheel-spec';
 import { CAPACITY_LIMIT_RULES } from './capacity';
 import { flangeTooSmall, minFlangeDiameterMm } from './flange';
-import { maxRpmForWheel } from './peripheral-speed';
 import { spindleOverspeed } from './spindle-speed';
 import { wheelSafetyStandard, wheelStandards } from './wheel-standards';
 import { formatQuantity } from './units';
 import { motorShareText } from './cutting-power';
-import { ABRASIVE_FAMILY_LABELS, abrasiveFamily, parseWheelSpec, type AbrasiveFamily } from './wheel-spec';
 
 /** blocker: cannot be submitted; warning: the approver must acknowledge it; note: for information. */
 export type CheckSeverity = 'blocker' | 'warning' | 'note';
@@ -79,7 +86,13 @@ interface Facts {
   computed: RecipeComputed;
   /** Abrasive family from the wheel's marking, or null when it does not parse. */
   abrasive: AbrasiveFamily | null;
+  /** The wheel's marking as parsed, or null without a wheel. */
+  marking: WheelSpecResult | null;
   group: MaterialGroup | null;
+  /** The scope's hardness window, else the material's reading; null when neither is usable. */
+  hardness: HardnessWindow | null;
+  /** The coating's hardness of a coated material, or null. */
+  coating: HardnessWindow | null;
 }
 
 type Rule = (f: Facts) => CheckResult | CheckResult[] | null;
@@ -189,6 +202,161 @@ function wetUseOnlyCutDry({ content, ctx }: Facts): CheckResult | null {
     'coolant.type',
     `"${w.name}" is marked for wet use only, and the recipe cuts dry.`,
     `A restriction of use marked on the wheel binds like its marked speed: the maker rated the wheel for wet cutting only (restriction marks of ${wheelSafetyStandard(w.kind)}, from memory; ANSI B7.1: use wheels only as their maker allows).`,
+  );
+}
+
+// Wheel against material, contact, clamping and coolant. Each rule is its own function; the
+// selection-table rules read the lab's table (ctx.selectionRows), so the editor and the
+// server agree as long as both build it with selectionRowsWithWheels.
+
+/** A marking the parser cannot read is said, not skipped in silence: the abrasive and bond checks need it. */
+function wheelMarkingUnparsed({ ctx, marking }: Facts): CheckResult | null {
+  const w = ctx.wheel;
+  if (!w || !marking || marking.ok) return null;
+  return result(
+    'wheel-marking-unparsed',
+    'note',
+    'cutting.wheelId',
+    `The marking "${String(w.specification)}" of the wheel "${w.name}" could not be read (${marking.error}) The abrasive and bond checks skip this wheel: compare it with the lab's selection table by hand.`,
+    'Kerfbook reads wheel markings in the ISO 525 field order (abrasive, grit, grade, structure, bond) and the usual diamond and CBN marking; correct the marking in Stock if it was mistyped.',
+  );
+}
+
+/**
+ * The abrasive against the lab's table: the families the table gives the group on wheels
+ * of the same kind. Rim wheels on metal and bonded wheels on ceramics or carbides have
+ * their own rules above, so they are left to those.
+ */
+function wheelAbrasiveUnsuited({ ctx, abrasive, group }: Facts): CheckResult | null {
+  const w = ctx.wheel;
+  if (!w || !abrasive || !group || (w.kind !== 'bonded' && w.kind !== 'rim')) return null;
+  if (w.kind === 'rim' && METALLIC_GROUPS.includes(group)) return null;
+  const offered = tableAbrasives(ctx.selectionRows ?? [], group, w.kind);
+  if (offered.length === 0 || offered.includes(abrasive)) return null;
+  const names = offered.map((a) => ABRASIVE_FAMILY_LABELS[a].toLowerCase()).join(' or ');
+  return result(
+    'wheel-abrasive-unsuited',
+    'warning',
+    'cutting.wheelId',
+    `A ${ABRASIVE_FAMILY_LABELS[abrasive].toLowerCase()} wheel is chosen for ${lowerLabel(MATERIAL_GROUP_LABELS, group)}; the lab's selection table gives ${names} for this group.`,
+    "Aluminium oxide cuts steels, cast irons and nickel and cobalt alloys, which wear silicon carbide chemically at cutting heat; silicon carbide cuts aluminium, copper and titanium, which load alumina (common practice; ASTM E3 from memory). The lab's selection table says which abrasive it uses for each group.",
+  );
+}
+
+/**
+ * The bond's grade against the lab's table: the grade bands (ISO 525 letters A soft … Z
+ * hard; up to K soft, L–O medium, P and up hard) of the table's bonded wheels for the
+ * group at this hardness, and at the coating's for a coated part. Harder material, softer
+ * bond (common practice; ASTM E3 from memory).
+ */
+function wheelBondUnsuited({ ctx, marking, group, hardness, coating }: Facts): CheckResult | null {
+  const w = ctx.wheel;
+  if (!w || w.kind !== 'bonded' || !group || !marking?.ok || marking.spec.type !== 'conventional') return null;
+  const grades = tableGrades(ctx.selectionRows ?? [], group, hardness, coating);
+  if (!grades) return null;
+  const band = gradeBand(marking.spec.grade);
+  const tooHard = GRADE_ORDER[band] > GRADE_ORDER[grades.hardest];
+  const tooSoft = GRADE_ORDER[band] < GRADE_ORDER[grades.softest];
+  if (!tooHard && !tooSoft) return null;
+  const at = [hardness ? `at ${describeWindow(hardness)}` : '', coating ? `coating ${describeWindow(coating)}` : ''].filter(Boolean).join(', ');
+  const given = grades.softest === grades.hardest ? `a ${grades.softest} bond` : `${grades.softest} to ${grades.hardest} bonds`;
+  const what = `${lowerLabel(MATERIAL_GROUP_LABELS, group)}${at ? ` ${at}` : ''}`;
+  if (tooHard)
+    return result(
+      'wheel-bond-too-hard',
+      'warning',
+      'cutting.wheelId',
+      `The wheel's grade ${marking.spec.grade} is a ${band} bond; the lab's selection table gives ${given} for ${what}. Too hard a bond holds its worn grains: the wheel glazes, rubs and burns the part.`,
+      "Harder material, softer bond: a soft bond releases worn grains so fresh ones keep cutting (common practice; ASTM E3 from memory; grades after ISO 525, A soft … Z hard). The bands come from the lab's selection table.",
+    );
+  return result(
+    'wheel-bond-too-soft',
+    'warning',
+    'cutting.wheelId',
+    `The wheel's grade ${marking.spec.grade} is a ${band} bond; the lab's selection table gives ${given} for ${what}. Too soft a bond sheds grains that are still sharp: the wheel wears fast and the cut wanders.`,
+    "Softer material, harder bond: a hard bond holds its grains while they still cut (common practice; ASTM E3 from memory; grades after ISO 525, A soft … Z hard). The bands come from the lab's selection table.",
+  );
+}
+
+/** A traverse pass: its removal per mm of wheel width (Q'w = removal rate / wheel thickness) against the lab's ceiling for the group. */
+function traverseRemovalAboveCeiling({ content, ctx, computed, group }: Facts): CheckResult | null {
+  if (content.cutting?.cutMotion !== 'traverse-pass' || !group) return null;
+  const ceilings = ctx.limits?.traverseRemovalCeilings ?? {};
+  const ceiling = Object.hasOwn(ceilings, group) ? ceilings[group] : undefined;
+  const thickness = ctx.wheel?.thicknessMm;
+  const peak = computed.peakRemovalMm3S;
+  if (!isPositive(ceiling) || !isPositive(thickness) || !isPositive(peak)) return null;
+  const perMm = peak / thickness;
+  if (perMm <= ceiling) return null;
+  return result(
+    'traverse-removal-above-ceiling',
+    'warning',
+    'cutting.feedMmS',
+    `The traverse pass removes ${n1(perMm)} mm³/s per mm of wheel width (${n1(peak)} mm³/s over a ${thickness} mm wheel), above the lab's ceiling of ${ceiling} mm³/s per mm for ${lowerLabel(MATERIAL_GROUP_LABELS, group)}. Lower the crossing feed or take more, shallower passes.`,
+    "A traverse pass crosses fast over a short contact, so it is judged by its specific removal rate Q'w = removal rate / wheel width (the grinding measure, e.g. Malkin & Guo, Grinding Technology — from memory), not by the plunge-feed ceilings. The ceiling is a lab setting.",
+  );
+}
+
+/** A straight plunge through a long contact: the lab's length, against the longest contact along the cut. */
+function longPlungeContact({ content, ctx, computed }: Facts): CheckResult | null {
+  const limit = ctx.limits?.longContactMm;
+  if (content.cutting?.cutMotion !== 'straight-plunge' || !isPositive(limit) || !computed.profile) return null;
+  const longest = computed.profile.reduce((m, p) => Math.max(m, p.contactMm), 0);
+  if (!(longest > limit)) return null;
+  return result(
+    'long-plunge-contact',
+    'note',
+    'cutting.cutMotion',
+    `A straight plunge meets up to ${n1(longest)} mm of material at once, more than the lab's ${limit} mm. A pulsed plunge, rocking, stepped depth or traverse passes keep the contact short.`,
+    'Along a long contact the coolant cannot reach the middle of the cut: the wheel heats, glazes and burns the part. Motions that shorten the contact cut cooler (common practice; the length is a lab setting).',
+  );
+}
+
+/**
+ * Clamped on one side of the cut only. No warning where one side is the usual way: a part
+ * mounted in wax or adhesive (the mount holds both pieces), or a rim wheel on a precision saw.
+ */
+function clampingOneSide({ content, ctx }: Facts): CheckResult | null {
+  const c = content.clamping;
+  if (!c || c.bothSides !== false || c.method === 'adhesive-wax-mount') return null;
+  if (ctx.wheel?.kind === 'rim' && ctx.machine?.machineClass === 'precision') return null;
+  return result(
+    'clamping-one-side',
+    'warning',
+    'clamping.bothSides',
+    'The part is clamped on one side of the cut only: the offcut can drop or swing into the wheel and pinch it.',
+    'Clamp both sides of the cut so the offcut cannot drop or close on the wheel; a pinched abrasive wheel can break (common practice).',
+  );
+}
+
+/** A coolant chosen with no flow runs the cut dry. */
+function coolantFlowZero({ content }: Facts): CheckResult | null {
+  const c = content.coolant;
+  if (!c || c.type === 'dry' || !COOLANT_TYPES.includes(c.type) || c.flowLMin !== 0) return null;
+  return result(
+    'coolant-flow-zero',
+    'warning',
+    'coolant.flowLMin',
+    `${COOLANT_TYPE_LABELS[c.type]} is chosen, but its flow is 0 L/min: the cut runs dry.`,
+    'Without flow the coolant neither cools nor clears the swarf: the part burns and the wheel loads, as in a dry cut (common practice). Give the flow the machine delivers, or choose dry cutting and its checks.',
+  );
+}
+
+/** A coated part whose wheel leaves through the coating. */
+function wheelExitsCoating({ content, ctx }: Facts): CheckResult | null {
+  const mat = ctx.material;
+  const path = content.clamping?.wheelPath;
+  if (!mat?.coated || (path !== 'exits-coating' && path !== 'enters-and-exits-coating')) return null;
+  const how =
+    path === 'exits-coating'
+      ? 'Turn the part so the wheel enters through the coating.'
+      : 'Cut from both sides towards the middle, or turn the part as it is cut, so the wheel enters through the coating each time.';
+  return result(
+    'wheel-exits-coating',
+    'warning',
+    'clamping.wheelPath',
+    `The wheel leaves the part through its coating (${mat.name}): that peels the coating off the substrate. ${how}`,
+    'Cut so the wheel presses the coating onto the substrate (enters through the coating); where it leaves through the coating it lifts it and the interface is no longer the one to examine (common practice).',
   );
 }
 
@@ -378,13 +546,23 @@ const RULES: readonly Rule[] = [
     if (!METALLIC_GROUPS.includes(group)) return null;
     // CBN is the superabrasive for hardened steels: they dull diamond (common practice; ASTM E3 from memory).
     if (abrasive === 'cbn' && group === 'hardened-tool-steel') return null;
-    const what = abrasive === 'cbn' ? 'A CBN rim wheel' : abrasive === 'diamond' ? 'A diamond rim wheel' : 'A diamond or CBN rim wheel';
+    const groupText = MATERIAL_GROUP_LABELS[group].toLowerCase();
+    // CBN does not wear out on these metals the way diamond does: softer, ductile metal loads it.
+    if (abrasive === 'cbn')
+      return result(
+        'rim-wheel-on-metal',
+        'warning',
+        'cutting.wheelId',
+        `A CBN rim wheel is chosen for ${groupText}. Softer, ductile metal smears into the rim and loads (clogs) it: the wheel stops cutting, rubs and heats the part. Use a consumable bonded wheel; keep the CBN rim wheel for hardened steels.`,
+        'A loaded superabrasive rim rubs instead of cutting; CBN is meant for hardened steels, which it cuts without loading (common practice; ASTM E3 from memory).',
+      );
+    const what = abrasive === 'diamond' ? 'A diamond rim wheel' : 'A diamond or CBN rim wheel';
     return result(
       'rim-wheel-on-metal',
       'warning',
       'cutting.wheelId',
-      `${what} is chosen for ${MATERIAL_GROUP_LABELS[group].toLowerCase()}, which is mostly metal. Use a consumable bonded wheel; where only a small part of the specimen is metal, dress the rim wheel with an alumina or silicon carbide stick.`,
-      'Rim wheels wear out quickly on metals: aluminium oxide suits ferrous, silicon carbide non-ferrous metals (common practice).',
+      `${what} is chosen for ${groupText}, which is mostly metal. Use a consumable bonded wheel; where only a small part of the specimen is metal, dress the rim wheel with an alumina or silicon carbide stick.`,
+      'Rim wheels wear out quickly on metals: aluminium oxide suits ferrous metals and nickel and cobalt alloys, silicon carbide the other non-ferrous metals (common practice).',
     );
   },
 
@@ -415,30 +593,48 @@ const RULES: readonly Rule[] = [
     );
   },
 
-  ({ content, ctx, group }) => {
+  ({ content, ctx, group, hardness }) => {
     const feed = content.cutting?.feedMmS;
-    const ceilings = ctx.limits?.feedCeilingsMmS;
-    const ceiling = group && ceilings && Object.hasOwn(ceilings, group) ? ceilings[group] : undefined;
-    if (!isPositive(feed) || ceiling === undefined || feed <= ceiling) return null;
+    const m = ctx.machine;
+    // A traverse pass is judged by its removal per mm of wheel width (traverseRemovalAboveCeiling).
+    if (!group || !m || !isPositive(feed) || content.cutting.cutMotion === 'traverse-pass') return null;
+    const applied = plungeFeedCeiling(ctx.limits?.feedCeilings ?? [], group, m.machineClass, hardness);
+    if (!applied || feed <= applied.maxFeedMmS) return null;
+    const band =
+      applied.basis === 'band'
+        ? describeCeilingBand(applied.row)
+        : applied.basis === 'no-hardness'
+          ? 'no hardness given, so the lowest of the group applies'
+          : `${describeWindow(hardness!)} is in none of the lab's bands, so the lowest of the group applies`;
     return result(
       'feed-above-ceiling',
       'warning',
       'cutting.feedMmS',
-      `A feed of ${feed} mm/s is above the lab's ceiling of ${ceiling} mm/s for ${lowerLabel(MATERIAL_GROUP_LABELS, group)}.`,
-      'Too high a feed burns the part; start low and raise it with experience (common practice; the ceiling is a lab setting).',
+      `A feed of ${feed} mm/s is above the lab's ceiling of ${applied.maxFeedMmS} mm/s for ${lowerLabel(MATERIAL_GROUP_LABELS, group)} (${band}) on a ${lowerLabel(MACHINE_CLASS_LABELS, m.machineClass)} saw.`,
+      'Too high a feed burns the part; harder material and precision saws need lower feeds. Start low and raise it with experience (common practice; the ceilings are lab settings per material group, hardness band and machine class).',
     );
   },
 
   ({ content, ctx }) => {
     const mat = ctx.material;
+    if (!mat) return null;
+    // A coated part needs the structured choice of where the wheel enters and leaves; content
+    // stored before that field existed has no key, which reads as "not given".
+    if (mat.coated && !content.clamping?.wheelPath)
+      return result(
+        'orientation-rule-missing',
+        'warning',
+        'clamping.wheelPath',
+        `${mat.name} is coated, but the recipe does not say where the wheel enters and leaves it.`,
+        'Cut so the wheel enters through the coating and leaves through the substrate: it presses the coating on rather than peeling it off (common practice).',
+      );
     const rule = content.clamping?.orientationRule;
-    if (!mat || (!mat.coated && !mat.caseHardened) || (typeof rule === 'string' && rule.trim())) return null;
-    const what = mat.coated ? 'coated' : `case-hardened${mat.caseDepthMm ? ` (case ${mat.caseDepthMm} mm)` : ''}`;
+    if (!mat.caseHardened || (typeof rule === 'string' && rule.trim())) return null;
     return result(
       'orientation-rule-missing',
       'warning',
       'clamping.orientationRule',
-      `${mat.name} is ${what}, but no orientation rule says which way the wheel enters.`,
+      `${mat.name} is case-hardened${mat.caseDepthMm ? ` (case ${mat.caseDepthMm} mm)` : ''}, but no orientation rule says which way the wheel enters.`,
       'Cut towards the substrate so the wheel presses the layer on rather than peeling it off (common practice).',
     );
   },
@@ -446,7 +642,10 @@ const RULES: readonly Rule[] = [
   ({ content, ctx }) => {
     const { wheel: w, machine: m } = ctx;
     const rpm = content.cutting?.wheelRpm;
-    if (!w || !m || w.kind !== 'rim' || !isPositive(rpm)) return null;
+    // Precision saws turn rim wheels slowly by design (a gentle cut for brittle and delicate
+    // specimens), so a low speed there is a choice, not a habit: the note is for abrasive
+    // cut-off machines, where slowing down is what one does with a consumable wheel.
+    if (!w || !m || w.kind !== 'rim' || m.machineClass === 'precision' || !isPositive(rpm)) return null;
     const ceiling = Math.min(m.rpmMax, maxRpmForWheel(w.diameterMm, w.maxSpeedMs));
     if (rpm >= RIM_LOW_RPM_SHARE * ceiling) return null;
     return result(
@@ -454,7 +653,7 @@ const RULES: readonly Rule[] = [
       'note',
       'cutting.wheelRpm',
       `${rpm} rpm is well below the ${ceiling} rpm this rim wheel could run at here. Lowering the speed to cut harder material helps only consumable wheels.`,
-      'A slower consumable wheel acts softer and sheds worn grains; a diamond or CBN rim wheel does not (common practice).',
+      'A slower consumable wheel acts softer and sheds worn grains; a diamond or CBN rim wheel does not (common practice). Not raised on precision saws, which run rim wheels slowly on purpose.',
     );
   },
 
@@ -500,6 +699,15 @@ const RULES: readonly Rule[] = [
     );
   },
 
+  wheelMarkingUnparsed,
+  wheelAbrasiveUnsuited,
+  wheelBondUnsuited,
+  traverseRemovalAboveCeiling,
+  longPlungeContact,
+  clampingOneSide,
+  coolantFlowZero,
+  wheelExitsCoating,
+
   ({ ctx }) => {
     const out: CheckResult[] = [];
     const reason = 'Archived stock stays readable for old recipes but is no longer offered; check that it is still available at the saw.';
@@ -541,6 +749,15 @@ export const CHECK_IDS = [
   'heat-sensitive-high-feed',
   'hazardous-dust-dry',
   'coolant-concentration',
+  'wheel-marking-unparsed',
+  'wheel-abrasive-unsuited',
+  'wheel-bond-too-hard',
+  'wheel-bond-too-soft',
+  'traverse-removal-above-ceiling',
+  'long-plunge-contact',
+  'clamping-one-side',
+  'coolant-flow-zero',
+  'wheel-exits-coating',
   'stock-archived',
   'cutting-power-high',
   'motor-power-unknown',
@@ -555,12 +772,17 @@ const RANK: Record<CheckSeverity, number> = { blocker: 0, warning: 1, note: 2 };
  */
 export function runChecks(content: RecipeContent, ctx: RecipeContext, computed: RecipeComputed = computeRecipe(content, ctx)): CheckResult[] {
   const parsed = ctx.wheel ? parseWheelSpec(ctx.wheel.specification) : null;
+  const mat = ctx.material;
+  const scopeHardness = content.scope?.hardness;
   const facts: Facts = {
     content,
     ctx,
     computed,
     abrasive: parsed?.ok ? abrasiveFamily(parsed.spec) : null,
+    marking: parsed,
     group: content.scope?.group ?? ctx.material?.group ?? null,
+    hardness: usableWindow(scopeHardness) ? scopeHardness : mat?.hardness && usableWindow(pointWindow(mat.hardness)) ? pointWindow(mat.hardness) : null,
+    coating: mat?.coated && mat.coatingHardness && usableWindow(pointWindow(mat.coatingHardness)) ? pointWindow(mat.coatingHardness) : null,
   };
   const results = RULES.flatMap((rule) => {
     const r = rule(facts);

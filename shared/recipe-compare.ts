@@ -8,7 +8,15 @@ import type { UnitPreference } from './api-types';
 import type { ParameterChange, RecipeComparison, TextChange } from './recipe-types';
 import type { RecipeContent } from './schemas/recipe';
 import { formatQuantity, NO_VALUE, type QuantityKind } from './units';
-import { CLAMPING_METHOD_LABELS, COOLANT_TYPE_LABELS, CUT_MOTION_LABELS, CUT_ORIENTATION_LABELS, MATERIAL_GROUP_LABELS, SHAPE_LABELS } from './vocabulary';
+import {
+  CLAMPING_METHOD_LABELS,
+  COOLANT_TYPE_LABELS,
+  CUT_MOTION_LABELS,
+  CUT_ORIENTATION_LABELS,
+  MATERIAL_GROUP_LABELS,
+  SHAPE_LABELS,
+  WHEEL_PATH_LABELS,
+} from './vocabulary';
 
 /** One side of the comparison. */
 export interface ComparedVersion {
@@ -106,6 +114,8 @@ export const PARAMETER_FIELDS: readonly ParameterField[] = [
   { path: 'clamping.bothSides', label: 'Clamped on both sides of the cut', format: yesNo },
   { path: 'clamping.softInserts', label: 'Soft inserts', format: yesNo },
   { path: 'clamping.supportBlocks', label: 'Support blocks', format: yesNo },
+  // Content stored before the field existed has no key: compared as null, "not given".
+  { path: 'clamping.wheelPath', label: 'Wheel path through a coating', format: label(WHEEL_PATH_LABELS, 'Not given') },
   { path: 'coolant.type', label: 'Coolant', format: label(COOLANT_TYPE_LABELS) },
   { path: 'coolant.concentrationPct', label: 'Coolant concentration', format: withUnit('% v/v') },
   { path: 'coolant.flowLMin', label: 'Coolant flow', format: withUnit('L/min') },

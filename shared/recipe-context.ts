@@ -1,5 +1,5 @@
 /** What the computations and checks need besides the recipe content itself. */
-import type { LabLimits, MachineRecord, MaterialRecord, WheelRecord } from './stock-types';
+import type { LabLimits, MachineRecord, MaterialRecord, SelectionRowWheel, WheelRecord } from './stock-types';
 
 export interface RecipeContext {
   /** The scope's material, or null for a group-wide recipe. */
@@ -8,4 +8,6 @@ export interface RecipeContext {
   wheel: WheelRecord | null;
   machine: MachineRecord | null;
   limits: LabLimits;
+  /** The lab's selection table with each row's wheel (selectionRowsWithWheels): the abrasive and bond checks read it. */
+  selectionRows: readonly SelectionRowWheel[];
 }

@@ -250,3 +250,19 @@ export const CUT_POWER_LABELS = {
   specificEnergy: 'Specific cutting energy',
   plotTitle: 'Cutting power along the cut',
 } as const;
+
+/**
+ * Where the wheel enters and leaves a coated part. Cut so the wheel presses the coating onto
+ * the substrate (enters through the coating); leaving through it peels the coating off
+ * (common practice). A part coated all round and cut straight through leaves through the
+ * coating on the far side.
+ */
+export const WHEEL_PATHS = ['enters-coating', 'exits-coating', 'enters-and-exits-coating', 'not-applicable'] as const;
+export type WheelPath = (typeof WHEEL_PATHS)[number];
+
+export const WHEEL_PATH_LABELS: Record<WheelPath, string> = {
+  'enters-coating': 'Enters through the coating, leaves through the substrate',
+  'exits-coating': 'Enters through the substrate, leaves through the coating',
+  'enters-and-exits-coating': 'Enters and leaves through the coating (coated all round, cut straight through)',
+  'not-applicable': 'Not applicable: the cut does not cross the coating',
+};

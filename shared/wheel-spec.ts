@@ -3,9 +3,12 @@
  * superabrasive marking for diamond and cBN wheels (common practice).
  *
  * Conventional: abrasive (A aluminium oxide, C silicon carbide) · grit · grade (A soft … Z
- * hard) · structure (optional) · bond (V vitrified, B resinoid, BF fibre-reinforced
- * resinoid (from memory), R rubber, E shellac, M metal, S silicate). `A60K5V` and `A60KV`
- * are both valid.
+ * hard) · structure (optional) · bond. Bond designations of ISO 525 (all from memory, to
+ * check against a licensed copy): V vitrified, B resinoid, BF fibre-reinforced resinoid,
+ * R rubber, RF reinforced rubber, E shellac, MG magnesite, PL plastic; also S silicate
+ * (ANSI B74.13, from memory) and M metal (from memory). Cut-off wheels are mostly B, BF,
+ * R or RF (common practice).
+ * `A60K5V` and `A60KV` are both valid.
  *
  * Superabrasive: abrasive (D diamond; B or CB cubic boron nitride) · grit · grade
  * (optional) · concentration (optional, only after a grade) · bond (B resin, M metal,
@@ -13,7 +16,7 @@
  * letters are read as capitals.
  */
 
-export const CONVENTIONAL_BONDS = ['V', 'B', 'BF', 'R', 'E', 'M', 'S'] as const;
+export const CONVENTIONAL_BONDS = ['V', 'B', 'BF', 'R', 'RF', 'E', 'MG', 'PL', 'M', 'S'] as const;
 export type ConventionalBond = (typeof CONVENTIONAL_BONDS)[number];
 export const SUPERABRASIVE_BONDS = ['B', 'M', 'V', 'G'] as const;
 export type SuperabrasiveBond = (typeof SUPERABRASIVE_BONDS)[number];
@@ -23,7 +26,10 @@ export const BOND_LABELS: Record<ConventionalBond | SuperabrasiveBond, string> =
   B: 'resinoid',
   BF: 'fibre-reinforced resinoid',
   R: 'rubber',
+  RF: 'reinforced rubber',
   E: 'shellac',
+  MG: 'magnesite',
+  PL: 'plastic',
   M: 'metal',
   S: 'silicate',
   G: 'electroplated',
@@ -84,7 +90,7 @@ function parseConventional(s: string): WheelSpecResult {
   const tail = /^(\d{1,2})?([A-Z]+)$/.exec(rest.slice(1));
   if (!tail) return { ok: false, error: 'After the grade comes an optional structure number and then the bond, e.g. A60K5V or A60KV.' };
   const bond = tail[2]!;
-  if (!(CONVENTIONAL_BONDS as readonly string[]).includes(bond)) return { ok: false, error: `Unknown bond "${bond}": use V, B, BF, R, E, M or S.` };
+  if (!(CONVENTIONAL_BONDS as readonly string[]).includes(bond)) return { ok: false, error: `Unknown bond "${bond}": use ${CONVENTIONAL_BONDS.join(', ')}.` };
   const structure = tail[1] === undefined ? null : Number(tail[1]);
   const text = `${abrasive}${grit}${grade}${structure ?? ''}${bond}`;
   return { ok: true, spec: { type: 'conventional', abrasive, grit, grade, structure, bond: bond as ConventionalBond, text } };

@@ -4,6 +4,7 @@
  * table built from common practice (STARTER_SELECTION).
  */
 import { convertHardness } from './hardness';
+import { hardestBandRows, isAbove, pointWindow } from './hardness-bands';
 import type { HardnessValue, HardnessWindow } from './schemas/stock';
 import type { SelectionRow, WheelRecord } from './stock-types';
 import type { MaterialGroup, WheelKind } from './vocabulary';
@@ -40,34 +41,76 @@ const describe = (w: HardnessWindow): string => `${w.min}–${w.max} ${w.scale}`
  * contains the hardness first (narrowest band first), then the group-wide rows. Without a
  * hardness, group-wide rows come first and banded rows follow, marked as unconfirmed.
  * Each wheel appears once, with the most specific row that offered it.
+ *
+ * A coated part (`coatingHardness`) has two layers to cut: the rows for the harder layer
+ * come first, since the harder material sets the bond (harder material, softer bond; common
+ * practice), then those for the other layer. A coating harder than every band of the
+ * group takes the hardest band's rows, the closest the table comes.
  */
-export function suggestWheels(group: MaterialGroup, hardness: HardnessValue | null, rows: SelectionRow[], wheels: WheelRecord[]): WheelSuggestion[] {
+export function suggestWheels(
+  group: MaterialGroup,
+  hardness: HardnessValue | null,
+  rows: SelectionRow[],
+  wheels: WheelRecord[],
+  coatingHardness: HardnessValue | null = null,
+): WheelSuggestion[] {
   const byId = new Map(wheels.filter((w) => !w.archived).map((w) => [w.id, w]));
   const groupLabel = MATERIAL_GROUP_LABELS[group];
+  const coatingFirst = coatingHardness !== null && (hardness === null || isAbove(pointWindow(coatingHardness), pointWindow(hardness), group) === true);
+  const layers: { h: HardnessValue; coating: boolean }[] = [];
+  if (hardness) layers.push({ h: hardness, coating: false });
+  if (coatingHardness) layers[coatingFirst ? 'unshift' : 'push']({ h: coatingHardness, coating: true });
+  const groupRows = rows.filter((row) => row.group === group && byId.has(row.wheelId));
+  const hardest = new Set(coatingHardness === null ? [] : hardestBandRows(groupRows, group, pointWindow(coatingHardness)));
+  const coatingText = (h: HardnessValue) => ` For the coating's ${h.value} ${h.scale}${coatingFirst ? ', the harder layer, which sets the bond' : ''}.`;
+
   type Ranked = { rank: number; width: number; order: number; row: SelectionRow; reason: string };
   const ranked: Ranked[] = [];
   rows.forEach((row, order) => {
     if (row.group !== group || !byId.has(row.wheelId)) return;
     if (row.hardness === null) {
-      ranked.push({ rank: 1, width: 0, order, row, reason: `Lab table: ${groupLabel}, any hardness.` });
+      ranked.push({ rank: 2, width: 0, order, row, reason: `Lab table: ${groupLabel}, any hardness.` });
       return;
     }
     const width = bandWidth(row.hardness, group);
+    const layer = layers.findIndex(({ h }) => {
+      const v = onScale(h, row.hardness!, group);
+      return v !== null && v >= row.hardness!.min && v <= row.hardness!.max;
+    });
+    if (layer >= 0) {
+      const { h, coating } = layers[layer]!;
+      const v = onScale(h, row.hardness, group)!;
+      const converted = h.scale === row.hardness.scale ? '' : ` (${h.value} ${h.scale} ≈ ${Math.round(v)} ${row.hardness.scale}, approximate)`;
+      ranked.push({
+        rank: layer,
+        width,
+        order,
+        row,
+        reason: coating
+          ? `Lab table: ${groupLabel}, ${describe(row.hardness)}${converted}.${coatingText(h)}`
+          : `Lab table: ${groupLabel}, ${describe(row.hardness)}${converted}.`,
+      });
+      return;
+    }
+    if (hardest.has(row)) {
+      ranked.push({
+        rank: layers.findIndex((l) => l.coating),
+        width,
+        order,
+        row,
+        reason: `Lab table: ${groupLabel}, ${describe(row.hardness)}, its hardest band: the coating's ${coatingHardness!.value} ${coatingHardness!.scale} is harder than every band of the table.`,
+      });
+      return;
+    }
     if (hardness === null) {
       ranked.push({
-        rank: 2,
+        rank: 3,
         width,
         order,
         row,
         reason: `Lab table: ${groupLabel}, ${describe(row.hardness)} (hardness not given, so the band is not confirmed).`,
       });
-      return;
     }
-    const v = onScale(hardness, row.hardness, group);
-    if (v === null || v < row.hardness.min || v > row.hardness.max) return;
-    const converted =
-      hardness.scale === row.hardness.scale ? '' : ` (${hardness.value} ${hardness.scale} ≈ ${Math.round(v)} ${row.hardness.scale}, approximate)`;
-    ranked.push({ rank: 0, width, order, row, reason: `Lab table: ${groupLabel}, ${describe(row.hardness)}${converted}.` });
   });
   ranked.sort((a, b) => a.rank - b.rank || a.width - b.width || a.order - b.order);
   const seen = new Set<number>();
@@ -107,9 +150,33 @@ const rim = (...abrasives: AbrasiveFamily[]): StarterWheel => ({ kind: 'rim', ab
  * carbide for non-ferrous metals, diamond (or CBN) rim wheels for ceramics, cemented
  * carbides and hard brittle materials; the harder the material, the softer the bond, so
  * worn grains are released. A starting point for the lab to adjust from its own trials.
+ *
+ * Plain and low-alloy steels are banded by hardness, like the hardened steels: a quenched
+ * low-alloy steel at 45 HRC needs a softer bond than a normalised one at 200 HBW (the band
+ * limits at about 35 and 50 HRC from memory). Nickel and cobalt alloys take aluminium
+ * oxide, as most wheel charts give them (from memory): like iron, nickel and cobalt wear
+ * silicon carbide chemically at cutting temperature (from memory), and the tough, often
+ * age-hardened alloys want a medium bond; confirm by trial cuts.
  */
 export const STARTER_SELECTION: readonly StarterSelectionRow[] = [
-  { group: 'plain-low-alloy-steel', hardness: null, wheel: bonded('aluminium-oxide', 'hard'), note: 'Soft ferrous metal: aluminium oxide, harder bond.' },
+  {
+    group: 'plain-low-alloy-steel',
+    hardness: { min: 80, max: 345, scale: 'HV' },
+    wheel: bonded('aluminium-oxide', 'hard'),
+    note: 'Soft ferrous metal (up to about 35 HRC): aluminium oxide, harder bond.',
+  },
+  {
+    group: 'plain-low-alloy-steel',
+    hardness: { min: 35, max: 50, scale: 'HRC' },
+    wheel: bonded('aluminium-oxide', 'medium'),
+    note: 'Hardened low-alloy steel: aluminium oxide, medium bond.',
+  },
+  {
+    group: 'plain-low-alloy-steel',
+    hardness: { min: 50, max: 68, scale: 'HRC' },
+    wheel: bonded('aluminium-oxide', 'soft'),
+    note: 'Fully hardened low-alloy steel: aluminium oxide, softer bond so worn grains are released.',
+  },
   {
     group: 'hardened-tool-steel',
     hardness: { min: 20, max: 45, scale: 'HRC' },
@@ -146,8 +213,8 @@ export const STARTER_SELECTION: readonly StarterSelectionRow[] = [
   {
     group: 'nickel-cobalt',
     hardness: null,
-    wheel: bonded('silicon-carbide', 'medium'),
-    note: 'Non-ferrous metal: silicon carbide, medium bond; a starting point to confirm by trial cuts.',
+    wheel: bonded('aluminium-oxide', 'medium'),
+    note: 'Nickel and cobalt alloys: aluminium oxide, medium bond, low feed; a starting point to confirm by trial cuts.',
   },
   { group: 'cemented-carbide', hardness: null, wheel: rim('diamond'), note: 'Hard brittle material: diamond rim wheel.' },
   { group: 'ceramic-glass', hardness: null, wheel: rim('diamond'), note: 'Hard brittle material: diamond rim wheel.' },

@@ -34,6 +34,7 @@ const clamp = (method: RecipeClamping['method'], placement: string, extra: Parti
   softInserts: false,
   supportBlocks: false,
   orientationRule: '',
+  wheelPath: null,
   ...extra,
 });
 
@@ -218,7 +219,7 @@ export const DEMO_RECIPES: DemoRecipe[] = [
     title: 'Alloy 718 bar',
     material: 'Nickel alloy 718',
     machine: BENCH,
-    wheel: 'Silicon carbide 250 medium',
+    wheel: 'Alumina 250 medium',
     scope: round('nickel-cobalt', 10, 40),
     cutting: cut(2800, 0.15, 'pulsed-plunge'),
     clamping: clamp('vise-backstop', 'Vise jaws 10 mm from the cut.'),
@@ -284,15 +285,17 @@ export const DEMO_RECIPES: DemoRecipe[] = [
     title: 'Thermally sprayed shaft, section through the coating',
     material: 'HVOF WC-CoCr coating on 42CrMo4 shaft',
     machine: BENCH,
-    wheel: 'Alumina 250 hard',
+    // The hard carbide coating sets the bond: a soft one, so the wheel keeps cutting through it.
+    wheel: 'Alumina 250 soft',
     scope: round('plain-low-alloy-steel', 20, 60, { min: 25, max: 35, scale: 'HRC' }),
     cutting: cut(3000, 0.2, 'straight-plunge'),
     clamping: clamp('top-clamp', 'Top clamp with soft inserts on the shaft, away from the coated band.', {
       softInserts: true,
       orientationRule: 'The wheel enters through the coating, so the coating is pressed onto the substrate, not peeled off.',
+      wheelPath: 'enters-coating',
     }),
     coolant: wet(4, 8),
-    instructionsMd: STEPS_ABRASIVE,
+    instructionsMd: `${STEPS_ABRASIVE}\n\nThe shaft is coated all round: cut to just past the middle, turn it half a turn and finish from the other side, so the wheel enters through the coating both times and never leaves through it.`,
     acceptanceMd: '- Coating attached along the whole interface; no gaps from the cut.',
     cautionsMd: '',
   },

@@ -127,10 +127,10 @@ export const DEMO_WHEELS: WheelBody[] = [
   bonded('Alumina 350 soft', 'A36K5B', 350, 2.5, 80, 'Hardened steels on the floor saw.'),
   bonded('Silicon carbide 350 hard', 'C60P5B', 350, 2.5, 80, 'Large aluminium and copper parts.'),
   bonded('Alumina 250 hard', 'A60P5B', 250, 1.5, 63, 'Plain and low-alloy steels.'),
-  bonded('Alumina 250 medium', 'A60M5B', 250, 1.5, 63, 'Stainless steels and cast irons.'),
+  bonded('Alumina 250 medium', 'A60M5B', 250, 1.5, 63, 'Stainless steels, cast irons and nickel alloys.'),
   bonded('Alumina 250 soft', 'A60J5B', 250, 1.5, 63, 'Hardened and case-hardened steels.'),
   bonded('Silicon carbide 250 hard', 'C80P5B', 250, 1.5, 63, 'Aluminium, magnesium and copper alloys.'),
-  bonded('Silicon carbide 250 medium', 'C80N5B', 250, 1.5, 63, 'Titanium and nickel alloys.'),
+  bonded('Silicon carbide 250 medium', 'C80N5B', 250, 1.5, 63, 'Titanium alloys.'),
   rimWheel('Diamond rim 150 metal bond', 'D126N100M', 0.5, false, 'Ceramics and cemented carbides.'),
   rimWheel('Diamond rim 150 resin bond', 'D91N75B', 0.4, true, 'Composites and electronics; dress with an alumina stick after metal.'),
   // Superabrasive blades are often marked in rpm (EN 13236 marks diamond saws so): 6000 rpm
@@ -234,6 +234,8 @@ export const DEMO_MATERIALS: MaterialInput[] = [
     condition: 'coating 0.3 mm, substrate quenched and tempered',
     hardness: { value: 30, scale: 'HRC' },
     coated: true,
-    notes: 'Thermally sprayed layer; hardness is the substrate\u2019s.',
+    // Typical of sprayed carbide layers (from memory); invented for the demo, not measured.
+    coatingHardness: { value: 1150, scale: 'HV' },
+    notes: 'Thermally sprayed layer; the typical hardness is the substrate\u2019s, the coating\u2019s is given apart.',
   },
 ];

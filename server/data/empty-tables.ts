@@ -5,9 +5,9 @@
  * which is per connection: a transaction keeps the statements on one.
  */
 import type { Knex } from 'knex';
-import { DEFAULT_FEED_CEILINGS_MM_S } from '../../migrations/20261201222730_insert_default_feed_ceilings';
 import { DEFAULT_KERF_ALLOWANCE_MM, DEFAULT_WORN_DIAMETER_SHARE } from '../../migrations/20261205183547_insert_default_wheel_wear_and_kerf';
 import { DEFAULT_POWER_WARNING_PCT, DEFAULT_SPECIFIC_ENERGY_J_MM3 } from '../../migrations/20261205183430_insert_default_cutting_energy';
+import { feedLimitsFrom, STARTER_LONG_CONTACT_MM } from '../../migrations/20261205183803_insert_feed_limits';
 
 /** Children first. lab_settings keeps its row; the counters go back to their start. */
 const TABLES = [
@@ -60,7 +60,8 @@ export async function restoreLabSettings(db: Knex): Promise<void> {
       review_interval_months: 24,
       sheet_paper: 'A4',
       default_units: 'metric',
-      feed_ceilings_json: JSON.stringify(DEFAULT_FEED_CEILINGS_MM_S),
+      feed_limits_json: JSON.stringify(feedLimitsFrom({})),
+      long_contact_mm: STARTER_LONG_CONTACT_MM,
       worn_diameter_share: DEFAULT_WORN_DIAMETER_SHARE,
       kerf_allowance_mm: DEFAULT_KERF_ALLOWANCE_MM,
       specific_energy_json: JSON.stringify(DEFAULT_SPECIFIC_ENERGY_J_MM3),

@@ -8,7 +8,9 @@ export interface LabSettingsRow {
   review_interval_months: number;
   sheet_paper: 'A4' | 'Letter';
   default_units: string;
-  feed_ceilings_json: unknown;
+  /** `{ plunge: FeedCeiling[], traverseRemoval: { [group]: mm³/s per mm } }`, validated where it is read. */
+  feed_limits_json: unknown;
+  long_contact_mm: number | null;
   worn_diameter_share: number | null;
   kerf_allowance_mm: number | null;
   specific_energy_json: unknown;
@@ -20,8 +22,9 @@ export async function findLabSettings(db: Knex): Promise<LabSettingsRow | undefi
   return db<LabSettingsRow>('lab_settings').where({ id: 1 }).first();
 }
 
-export function feedCeilingsOf(row: LabSettingsRow | undefined): Record<string, number> {
-  return row?.feed_ceilings_json == null ? {} : fromJsonColumn<Record<string, number>>(row.feed_ceilings_json);
+/** The stored feed limits as parsed JSON (not yet validated), or null when there are none. */
+export function feedLimitsOf(row: LabSettingsRow | undefined): unknown {
+  return row?.feed_limits_json == null ? null : fromJsonColumn<unknown>(row.feed_limits_json);
 }
 
 export function specificEnergiesOf(row: LabSettingsRow | undefined): Record<string, number> {

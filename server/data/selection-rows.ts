@@ -20,6 +20,17 @@ export async function listSelectionRowRows(db: Knex): Promise<SelectionRowRow[]>
   return db<SelectionRowRow>('selection_rows').select('*').orderBy('material_group').orderBy('hardness_min').orderBy('id');
 }
 
+/** The rows whose wheel is in use, each with its wheel's kind and marking, in the order of listSelectionRowRows. */
+export async function listSelectionRowRowsWithWheels(db: Knex): Promise<(SelectionRowRow & { wheel_kind: string; wheel_specification: string })[]> {
+  return db('selection_rows as s')
+    .join('wheels as w', 'w.id', 's.wheel_id')
+    .where('w.archived', false)
+    .select('s.*', 'w.kind as wheel_kind', 'w.specification as wheel_specification')
+    .orderBy('s.material_group')
+    .orderBy('s.hardness_min')
+    .orderBy('s.id');
+}
+
 export async function findSelectionRowRow(db: Knex, id: number, forUpdate = false): Promise<SelectionRowRow | undefined> {
   const q = db<SelectionRowRow>('selection_rows').where({ id }).first();
   return forUpdate ? q.forUpdate() : q;

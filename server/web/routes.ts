@@ -104,7 +104,7 @@ const table = [
   { method: 'put', path: '/api/selection-rows/:id', summary: 'Change a row of the wheel-selection table.', access: STOCK_EDITORS, params: idParams, body: selectionRowBody, answers: '200 json: SelectionRow', handler: selectionRows.update },
   { method: 'delete', path: '/api/selection-rows/:id', summary: 'Remove a row of the wheel-selection table.', access: STOCK_EDITORS, params: idParams, answers: '204', handler: selectionRows.remove },
 
-  { method: 'get', path: '/api/settings/limits', summary: 'The lab\'s limits the checks and computations use (feed ceilings per material group, the worn wheel\'s default share of the new diameter, the kerf allowance, specific cutting energy per material group and the motor power share that warns).', access: 'signedIn', answers: '200 json: LabLimits', handler: settings.limits },
+  { method: 'get', path: '/api/settings/limits', summary: 'The lab\'s limits the checks use: plunge-feed ceilings by material group, hardness band and machine class; traverse removal ceilings per mm of wheel width; the long-contact length; the worn wheel\'s default share of the new diameter and the kerf allowance; specific cutting energy per material group and the motor power share that warns.', access: 'signedIn', answers: '200 json: LabLimits', handler: settings.limits },
 
   // Recipes and drafts. Only authors write; the server hands out numbers and runs the checks.
   { method: 'get', path: '/api/recipes', summary: 'The library: recipes a page at a time, sorted and filtered (operators see approved versions only).', access: 'signedIn', query: recipeListQuery, answers: '200 json: Page<RecipeSummary>', handler: recipes.list },

@@ -4,7 +4,7 @@
  * Every length is mm, speed rpm, feed mm/s, concentration % v/v, flow L/min.
  */
 import { z } from 'zod';
-import { CLAMPING_METHODS, COOLANT_TYPES, CUT_MOTIONS, CUT_ORIENTATIONS, RECIPE_STATUSES, SHAPES } from '../vocabulary';
+import { CLAMPING_METHODS, COOLANT_TYPES, CUT_MOTIONS, CUT_ORIENTATIONS, RECIPE_STATUSES, SHAPES, WHEEL_PATHS } from '../vocabulary';
 import { quantity, refId, requiredText, text } from './numbers';
 import { hardnessWindow, materialGroup } from './stock';
 
@@ -64,6 +64,11 @@ export const recipeClamping = z.strictObject({
   supportBlocks: z.boolean(),
   /** E.g. "the wheel enters through the coating so it is pressed onto the substrate". */
   orientationRule: text('Orientation rule', 500),
+  /**
+   * For a coated part: where the wheel enters and leaves. Content stored before this field
+   * existed has no such key and reads as null, "not given"; the checks treat both alike.
+   */
+  wheelPath: z.enum(WHEEL_PATHS, { error: 'Choose where the wheel enters and leaves.' }).nullable().default(null),
 });
 export type RecipeClamping = z.infer<typeof recipeClamping>;
 
@@ -71,7 +76,8 @@ export const recipeCoolant = z
   .strictObject({
     type: z.enum(COOLANT_TYPES, { error: 'Choose a coolant.' }),
     concentrationPct: quantity('Concentration', '% v/v', 0, 100).nullable(),
-    flowLMin: quantity('Flow', 'L/min', 0, 200).nullable(),
+    /** 0 is accepted so the checks can say what it means (no flow: the cut runs dry). */
+    flowLMin: quantity('Flow', 'L/min', 0, 200, { inclusiveMin: true }).nullable(),
   })
   .refine((c) => c.type !== 'water-soluble' || c.concentrationPct !== null, {
     path: ['concentrationPct'],

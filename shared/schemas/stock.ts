@@ -46,6 +46,8 @@ export const materialBody = z
     condition: text('Condition', 120).default(''),
     hardness: hardnessValue.nullable().default(null),
     coated: z.boolean().default(false),
+    /** Hardness of the coating of a coated material (e.g. 1150 HV for a sprayed carbide layer); null when not known or not coated. */
+    coatingHardness: hardnessValue.nullable().default(null),
     caseHardened: z.boolean().default(false),
     /** Case depth in mm, when case-hardened. */
     caseDepthMm: quantity('Case depth', 'mm', 0, 20).nullable().default(null),
@@ -55,7 +57,8 @@ export const materialBody = z
     combustibleFines: z.boolean().default(false),
     notes: text('Notes', 2000).default(''),
   })
-  .refine((m) => !m.caseHardened || m.caseDepthMm !== null, { path: ['caseDepthMm'], message: 'Give the case depth of a case-hardened material.' });
+  .refine((m) => !m.caseHardened || m.caseDepthMm !== null, { path: ['caseDepthMm'], message: 'Give the case depth of a case-hardened material.' })
+  .refine((m) => m.coated || m.coatingHardness === null, { path: ['coatingHardness'], message: 'Only a coated material has a coating hardness.' });
 export type MaterialBody = z.infer<typeof materialBody>;
 
 export const wheelBody = z

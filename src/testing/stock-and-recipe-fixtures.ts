@@ -1,5 +1,5 @@
 import type { RecipeSummary, RecipeVersionDto } from '@shared/recipe-types';
-import type { LabLimits, MachineRecord, MaterialRecord, WheelRecord } from '@shared/stock-types';
+import { type LabLimits, type MachineRecord, type MaterialRecord, NO_LAB_LIMITS, type WheelRecord } from '@shared/stock-types';
 
 /** Invented stock and recipes for the Stock, Library and Recipe specs; override what the test is about. */
 
@@ -12,6 +12,7 @@ export function aMaterial(overrides: Partial<MaterialRecord> = {}): MaterialReco
     condition: 'quenched and tempered',
     hardness: { value: 32, scale: 'HRC' },
     coated: false,
+    coatingHardness: null,
     caseHardened: false,
     caseDepthMm: null,
     heatSensitive: false,
@@ -73,9 +74,9 @@ export function aMachine(overrides: Partial<MachineRecord> = {}): MachineRecord 
   };
 }
 
-/** The lab's limits as a fresh install has them (no feed ceilings here): wheels used down to 70 %, a 0.2 mm kerf allowance. */
+/** The lab's limits with no ceilings or cutting energies: wheels used down to 70 %, a 0.2 mm kerf allowance, power warned above 80 %. */
 export function aLabLimits(overrides: Partial<LabLimits> = {}): LabLimits {
-  return { feedCeilingsMmS: {}, wornDiameterShare: 0.7, kerfAllowanceMm: 0.2, ...overrides };
+  return { ...NO_LAB_LIMITS, ...overrides };
 }
 
 export function aRecipeSummary(overrides: Partial<RecipeSummary> = {}): RecipeSummary {
@@ -136,6 +137,7 @@ export function aRecipeVersion(overrides: Partial<RecipeVersionDto> = {}): Recip
         softInserts: false,
         supportBlocks: false,
         orientationRule: '',
+        wheelPath: null,
       },
       coolant: { type: 'water-soluble', concentrationPct: 5, flowLMin: 8 },
       instructionsMd: '1. Clamp the bar.\n2. Start the coolant.',

@@ -20,6 +20,7 @@ import {
   MATERIAL_GROUP_LABELS,
   SHAPE_LABELS,
   WHEEL_RESTRICTION_LABELS,
+  WHEEL_PATH_LABELS,
 } from '../../../shared/vocabulary';
 import type { Row } from './layout';
 
@@ -186,6 +187,10 @@ export function buildSheetModel(input: SheetInput): SheetModel {
     { label: 'Both sides of the cut', value: yesNo(c.clamping.bothSides) },
     { label: 'Protective inserts', value: yesNo(c.clamping.softInserts) },
     { label: 'Support blocks', value: yesNo(c.clamping.supportBlocks) },
+    // Older content has no wheel path (no key): nothing is printed for it.
+    ...(c.clamping.wheelPath
+      ? [{ label: 'Wheel path through the coating', value: WHEEL_PATH_LABELS[c.clamping.wheelPath] ?? c.clamping.wheelPath, strong: true }]
+      : []),
     ...(c.clamping.orientationRule ? [{ label: 'Orientation rule', value: c.clamping.orientationRule }] : []),
   ];
 

@@ -11,17 +11,19 @@ import { MATERIAL_GROUP_LABELS } from '../../../shared/vocabulary';
 import { AppError } from '../../app-error';
 import { findStockRow } from '../../data/stock';
 import { getLabLimits } from '../stock/lab-limits';
+import { listSelectionRowsWithWheels } from '../stock/selection-rows';
 import { toMachineRecord, toMaterialRecord, toWheelRecord, type MachineRow, type MaterialRow, type WheelRow } from '../stock/records';
 
 /** `prefix` is where the content sits in the request body ("content"). */
 export async function loadRecipeContext(db: Knex, content: RecipeContent, prefix = 'content'): Promise<RecipeContext> {
   const { materialId } = content.scope;
   const { machineId, wheelId } = content.cutting;
-  const [materialRow, machineRow, wheelRow, limits] = await Promise.all([
+  const [materialRow, machineRow, wheelRow, limits, selectionRows] = await Promise.all([
     materialId === null ? Promise.resolve(undefined) : findStockRow<MaterialRow>(db, 'materials', materialId),
     findStockRow<MachineRow>(db, 'machines', machineId),
     findStockRow<WheelRow>(db, 'wheels', wheelId),
     getLabLimits(db),
+    listSelectionRowsWithWheels(db),
   ]);
   const errors: FieldError[] = [];
   if (materialId !== null && !materialRow) errors.push({ path: `${prefix}.scope.materialId`, message: `There is no material with id ${materialId}.` });
@@ -39,5 +41,6 @@ export async function loadRecipeContext(db: Knex, content: RecipeContent, prefix
     machine: toMachineRecord(machineRow!),
     wheel: toWheelRecord(wheelRow!),
     limits,
+    selectionRows,
   };
 }

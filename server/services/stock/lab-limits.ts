@@ -1,21 +1,46 @@
-/** The lab settings the computations and checks need: feed ceilings per material group, the worn wheel's default and the kerf allowance, cutting energy and the power share. */
+/**
+ * The lab settings the computations and checks need: plunge-feed ceilings per material
+ * group × hardness band × machine class, the traverse removal ceilings per group and the
+ * long-contact length; the worn wheel's default share and the kerf allowance; the cutting
+ * energy per group and the motor power share that warns. Stored values are validated here: a row that does not pass its
+ * schema, an unknown group or a number that is not positive and finite never reaches the
+ * checks.
+ */
 import type { Knex } from 'knex';
-import { DEFAULT_POWER_WARNING_PCT } from '../../../shared/cutting-power';
+import { feedCeiling, longContactLength, traverseRemovalCeiling } from '../../../shared/schemas/lab-settings';
 import type { LabLimits } from '../../../shared/stock-types';
-import { MATERIAL_GROUPS, type MaterialGroup } from '../../../shared/vocabulary';
+import { MATERIAL_GROUPS } from '../../../shared/vocabulary';
+import { DEFAULT_POWER_WARNING_PCT } from '../../../shared/cutting-power';
 import { KERFBOOK_KERF_ALLOWANCE_MM, KERFBOOK_WORN_DIAMETER_SHARE } from '../../../shared/worn-wheel';
-import { feedCeilingsOf, findLabSettings, specificEnergiesOf, type LabSettingsRow } from '../../data/lab-settings';
+import { feedLimitsOf, findLabSettings, specificEnergiesOf, type LabSettingsRow } from '../../data/lab-settings';
 
 export async function getLabLimits(db: Knex): Promise<LabLimits> {
   const row = await findLabSettings(db);
-  const stored = feedCeilingsOf(row);
-  const feedCeilingsMmS: LabLimits['feedCeilingsMmS'] = {};
-  // Only known groups with a usable number reach the checks.
-  for (const group of MATERIAL_GROUPS) {
-    const value = stored[group];
-    if (typeof value === 'number' && Number.isFinite(value) && value > 0) feedCeilingsMmS[group as MaterialGroup] = value;
+  const stored = feedLimitsOf(row);
+  const { plunge, traverseRemoval } = (stored !== null && typeof stored === 'object' ? stored : {}) as { plunge?: unknown; traverseRemoval?: unknown };
+
+  const feedCeilings: LabLimits['feedCeilings'] = [];
+  for (const raw of Array.isArray(plunge) ? plunge : []) {
+    const parsed = feedCeiling.safeParse(raw);
+    if (parsed.success) feedCeilings.push(parsed.data);
   }
-  return { feedCeilingsMmS, ...wheelWearLimits(row), ...cuttingPowerLimits(row) };
+
+  const traverseRemovalCeilings: LabLimits['traverseRemovalCeilings'] = {};
+  const removal = (traverseRemoval !== null && typeof traverseRemoval === 'object' ? traverseRemoval : {}) as Record<string, unknown>;
+  for (const group of MATERIAL_GROUPS) {
+    // Own keys only: an inherited name is not a setting.
+    const parsed = Object.hasOwn(removal, group) ? traverseRemovalCeiling.safeParse(removal[group]) : null;
+    if (parsed?.success) traverseRemovalCeilings[group] = parsed.data;
+  }
+
+  const longContact = longContactLength.safeParse(row?.long_contact_mm);
+  return {
+    feedCeilings,
+    traverseRemovalCeilings,
+    longContactMm: longContact.success ? longContact.data : null,
+    ...wheelWearLimits(row),
+    ...cuttingPowerLimits(row),
+  };
 }
 
 /** The worn wheel's default share (0–1, exclusive) and the kerf allowance (mm, ≥ 0); Kerfbook's defaults where a value is missing or unusable. */

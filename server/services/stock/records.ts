@@ -19,6 +19,8 @@ export interface MaterialRow extends StockRowBase {
   hardness_value: number | null;
   hardness_scale: HardnessScale | null;
   coated: number | boolean;
+  coating_hardness_value: number | null;
+  coating_hardness_scale: HardnessScale | null;
   case_hardened: number | boolean;
   case_depth_mm: number | null;
   heat_sensitive: number | boolean;
@@ -75,6 +77,10 @@ export function toMaterialRecord(row: MaterialRow): MaterialRecord {
     condition: row.condition,
     hardness: row.hardness_value === null || row.hardness_scale === null ? null : { value: row.hardness_value, scale: row.hardness_scale },
     coated: Boolean(row.coated),
+    coatingHardness:
+      row.coating_hardness_value === null || row.coating_hardness_scale === null
+        ? null
+        : { value: row.coating_hardness_value, scale: row.coating_hardness_scale },
     caseHardened: Boolean(row.case_hardened),
     caseDepthMm: row.case_depth_mm,
     heatSensitive: Boolean(row.heat_sensitive),
@@ -94,6 +100,8 @@ export function materialValues(body: MaterialBody): Record<string, unknown> {
     hardness_value: body.hardness?.value ?? null,
     hardness_scale: body.hardness?.scale ?? null,
     coated: body.coated,
+    coating_hardness_value: body.coatingHardness?.value ?? null,
+    coating_hardness_scale: body.coatingHardness?.scale ?? null,
     case_hardened: body.caseHardened,
     case_depth_mm: body.caseDepthMm,
     heat_sensitive: body.heatSensitive,

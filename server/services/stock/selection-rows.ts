@@ -1,14 +1,15 @@
 /** The lab's wheel-selection table: material group × hardness band → a wheel of its stock. */
 import type { Knex } from 'knex';
 import type { SelectionRowBody } from '../../../shared/schemas/stock';
-import type { SelectionRow } from '../../../shared/stock-types';
-import type { HardnessScale, MaterialGroup } from '../../../shared/vocabulary';
+import type { SelectionRow, SelectionRowWheel } from '../../../shared/stock-types';
+import type { HardnessScale, MaterialGroup, WheelKind } from '../../../shared/vocabulary';
 import { AppError } from '../../app-error';
 import {
   deleteSelectionRowRow,
   findSelectionRowRow,
   insertSelectionRowRow,
   listSelectionRowRows,
+  listSelectionRowRowsWithWheels,
   updateSelectionRowRow,
   type SelectionRowRow,
   type SelectionRowValues,
@@ -59,6 +60,17 @@ function snapshot(row: SelectionRow): Record<string, unknown> {
 
 export async function listSelectionRows(db: Knex): Promise<SelectionRow[]> {
   return (await listSelectionRowRows(db)).map(toSelectionRow);
+}
+
+/**
+ * The table as the recipe checks read it: rows whose wheel is in use, with its kind and
+ * marking (what selectionRowsWithWheels gives the editor from the same rows and wheels).
+ */
+export async function listSelectionRowsWithWheels(db: Knex): Promise<SelectionRowWheel[]> {
+  return (await listSelectionRowRowsWithWheels(db)).map((row) => ({
+    ...toSelectionRow(row),
+    wheel: { kind: row.wheel_kind as WheelKind, specification: row.wheel_specification },
+  }));
 }
 
 async function mustFind(db: Knex, id: number, forUpdate = false): Promise<SelectionRow> {

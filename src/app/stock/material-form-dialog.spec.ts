@@ -94,6 +94,7 @@ describe('MaterialFormDialog', () => {
       condition: 'hardened and tempered',
       hardness: { value: 60, scale: 'HRC' },
       coated: false,
+      coatingHardness: null,
       caseHardened: false,
       caseDepthMm: null,
       heatSensitive: true,
@@ -114,6 +115,34 @@ describe('MaterialFormDialog', () => {
     const req = await vi.waitFor(() => backend.expectOne({ method: 'POST', url: '/api/materials' }));
     expect(req.request.body).toMatchObject({ combustibleFines: true, hazardousDust: false });
     req.flush(aMaterial({ id: 22, combustibleFines: true }), { status: 201, statusText: 'Created' });
+    await vi.waitFor(() => expect(dialogRef.close).toHaveBeenCalled());
+  });
+
+  it("asks a coated material for its coating's hardness, and drops it when the material is not coated", async () => {
+    await open({});
+    await fillNewMaterial();
+    expect(root.querySelector('[data-testid="coating-hardness"]')).toBeNull();
+    await tick('Coated or surface-treated');
+    await fixture.whenStable();
+    const coating = root.querySelector<HTMLInputElement>('[data-testid="coating-hardness"]')!;
+    coating.value = '1150';
+    coating.dispatchEvent(new Event('input'));
+    submit();
+    const req = await vi.waitFor(() => backend.expectOne({ method: 'POST', url: '/api/materials' }));
+    expect(req.request.body).toMatchObject({ coated: true, coatingHardness: { value: 1150, scale: 'HV' }, hardness: { value: 60, scale: 'HRC' } });
+    req.flush(aMaterial({ id: 22, coated: true, coatingHardness: { value: 1150, scale: 'HV' } }), { status: 201, statusText: 'Created' });
+    await vi.waitFor(() => expect(dialogRef.close).toHaveBeenCalled());
+  });
+
+  it('sends no coating hardness once "coated" is unticked', async () => {
+    await open({ material: aMaterial({ coated: true, coatingHardness: { value: 900, scale: 'HV' } }) });
+    expect(root.querySelector<HTMLInputElement>('[data-testid="coating-hardness"]')!.value).toBe('900');
+    const loader = TestbedHarnessEnvironment.loader(fixture);
+    await (await loader.getHarness(MatCheckboxHarness.with({ label: 'Coated or surface-treated' }))).uncheck();
+    submit();
+    const req = await vi.waitFor(() => backend.expectOne({ method: 'PUT', url: '/api/materials/5' }));
+    expect(req.request.body).toMatchObject({ coated: false, coatingHardness: null });
+    req.flush(aMaterial());
     await vi.waitFor(() => expect(dialogRef.close).toHaveBeenCalled());
   });
 

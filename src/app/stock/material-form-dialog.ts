@@ -45,6 +45,10 @@ export class MaterialFormDialog extends StockFormDialog<MaterialRecord> {
       scale: this.fb.control<HardnessScale>(this.material?.hardness?.scale ?? 'HV'),
     }),
     coated: [this.material?.coated ?? false],
+    coatingHardness: this.fb.group({
+      value: this.fb.control<number | null>(this.material?.coatingHardness?.value ?? null, zodValidator(hardnessValue.shape.value.nullable())),
+      scale: this.fb.control<HardnessScale>(this.material?.coatingHardness?.scale ?? 'HV'),
+    }),
     caseHardened: [this.material?.caseHardened ?? false],
     caseDepthMm: this.fb.control<number | null>(this.material?.caseDepthMm ?? null, zodValidator(fields.caseDepthMm)),
     heatSensitive: [this.material?.heatSensitive ?? false],
@@ -71,6 +75,8 @@ export class MaterialFormDialog extends StockFormDialog<MaterialRecord> {
       ...value,
       hardness: value.hardness.value === null ? null : { value: value.hardness.value, scale: value.hardness.scale },
       caseDepthMm: value.caseHardened ? value.caseDepthMm : null,
+      // Only a coated material keeps a coating hardness; unticking "coated" drops it.
+      coatingHardness: value.coated && value.coatingHardness.value !== null ? { value: value.coatingHardness.value, scale: value.coatingHardness.scale } : null,
     };
     return this.saveWith(materialBody, candidate, this.api.materials, this.material?.id);
   }

@@ -346,4 +346,44 @@ describe('Recipes and drafts', () => {
       }
     });
   });
+
+  describe('content stored before the wheel path through a coating existed', () => {
+    it('loads without the field, reads as "not given" in the checks, and saves and submits like any other', async () => {
+      const coated = await createStockSet(ctx.db, { material: { name: 'Sprayed bar', coated: true, coatingHardness: { value: 1150, scale: 'HV' } } });
+      const body = recipeInput(coated, { title: 'Stored before the wheel path' });
+      const created = (await create(body).expect(201)).body as RecipeVersionDto;
+      // As an older version of Kerfbook stored it: no wheelPath key at all.
+      const old = JSON.parse((await ctx.db('recipe_versions').where({ recipe_id: created.recipeId, version: 1 }).first()).content_json);
+      delete old.clamping.wheelPath;
+      await ctx
+        .db('recipe_versions')
+        .where({ recipe_id: created.recipeId, version: 1 })
+        .update({ content_json: JSON.stringify(old) });
+
+      const loaded = (await reader.agent.get(`/api/recipes/${created.recipeId}/versions/1`).expect(200)).body as RecipeVersionDto;
+      expect('wheelPath' in loaded.content.clamping).to.equal(false);
+      // A body without the field (an older client) is accepted and the field reads as null.
+      const { wheelPath: _none, ...clampingWithout } = loaded.content.clamping;
+      const saved = await save(created.recipeId, 1, { ...draftOf(loaded), content: { ...loaded.content, clamping: clampingWithout } });
+      expect(saved.status, JSON.stringify(saved.body)).to.equal(200);
+      expect(saved.body.content.clamping.wheelPath).to.equal(null);
+      const warning = (saved.body as RecipeVersionDto).checks.find((c) => c.id === 'orientation-rule-missing');
+      expect(warning).to.deep.include({ severity: 'warning', path: 'clamping.wheelPath' });
+
+      // Stored without the key again, then submitted: the server's checks run on it and pass it with the warning.
+      const again = JSON.parse((await ctx.db('recipe_versions').where({ recipe_id: created.recipeId, version: 1 }).first()).content_json);
+      delete again.clamping.wheelPath;
+      await ctx
+        .db('recipe_versions')
+        .where({ recipe_id: created.recipeId, version: 1 })
+        .update({ content_json: JSON.stringify(again) });
+      const submitted = await author.agent
+        .post(`/api/recipes/${created.recipeId}/versions/1/submit`)
+        .set(CSRF_HEADER, author.csrf)
+        .send({ revision: saved.body.revision });
+      expect(submitted.status, JSON.stringify(submitted.body)).to.equal(200);
+      expect(submitted.body.status).to.equal('in-review');
+      expect((submitted.body as RecipeVersionDto).checks.map((c) => c.id)).to.include('orientation-rule-missing');
+    });
+  });
 });

@@ -8,6 +8,7 @@ import { asJson, countRows } from '../support/test-database';
 import { createRecipe } from '../../../server/services/recipes/recipes';
 import { restoreLabSettings } from '../../../server/data/empty-tables';
 import { DEFAULT_SPECIFIC_ENERGY_J_MM3 } from '../../../migrations/20261205183430_insert_default_cutting_energy';
+import type { FeedCeiling } from '../../../shared/schemas/lab-settings';
 
 describe('Stock: materials, wheels, machines', () => {
   const ctx = apiTestContext();
@@ -379,12 +380,63 @@ describe('Stock: materials, wheels, machines', () => {
   });
 
   describe('lab limits', () => {
-    it('gives the feed ceilings per material group from the settings', async () => {
+    it('gives the feed limits from the settings: ceilings by group × hardness band × machine class, traverse removal ceilings, the long-contact length', async () => {
       const res = await operator.agent.get('/api/settings/limits').expect(200);
-      expect(res.body.feedCeilingsMmS['plain-low-alloy-steel']).to.equal(0.6);
-      expect(res.body.feedCeilingsMmS['hardened-tool-steel']).to.equal(0.3);
-      expect(res.body.feedCeilingsMmS['cemented-carbide']).to.equal(0.15);
-      expect(Object.keys(res.body.feedCeilingsMmS)).to.have.length(12);
+      expect(Object.keys(res.body).sort()).to.deep.equal(['feedCeilings', 'longContactMm', 'traverseRemovalCeilings']);
+      const rows = res.body.feedCeilings as FeedCeiling[];
+      const of = (group: string, machineClass: string) => rows.filter((c) => c.group === group && c.machineClass === machineClass);
+      // The starting values the data migration carried over from the per-group ceilings (common practice; band limits from memory).
+      expect(of('plain-low-alloy-steel', 'floor-abrasive')).to.deep.equal([
+        { group: 'plain-low-alloy-steel', hardness: { min: 80, max: 345, scale: 'HV' }, machineClass: 'floor-abrasive', maxFeedMmS: 0.6 },
+        { group: 'plain-low-alloy-steel', hardness: { min: 35, max: 50, scale: 'HRC' }, machineClass: 'floor-abrasive', maxFeedMmS: 0.4 },
+        { group: 'plain-low-alloy-steel', hardness: { min: 50, max: 68, scale: 'HRC' }, machineClass: 'floor-abrasive', maxFeedMmS: 0.25 },
+      ]);
+      expect(of('cemented-carbide', 'precision')).to.deep.equal([{ group: 'cemented-carbide', hardness: null, machineClass: 'precision', maxFeedMmS: 0.05 }]);
+      expect(of('hardened-tool-steel', 'bench-abrasive').map((c) => c.maxFeedMmS)).to.deep.equal([0.3, 0.2]);
+      expect(Object.keys(res.body.traverseRemovalCeilings)).to.have.length(12);
+      // 0.6 mm/s through the 40 mm reference section: 24 mm³/s per mm of wheel width
+      expect(res.body.traverseRemovalCeilings['plain-low-alloy-steel']).to.equal(24);
+      expect(res.body.longContactMm).to.equal(60);
+    });
+
+    it('leaves out what does not pass its schema in the stored settings (a bad row, an unknown group, a length that is not positive)', async () => {
+      const stored = {
+        plunge: [
+          { group: 'copper', hardness: null, machineClass: 'precision', maxFeedMmS: 0.1 },
+          { group: 'copper', hardness: null, machineClass: 'precision', maxFeedMmS: -1 },
+          { group: 'unobtainium', hardness: null, machineClass: 'precision', maxFeedMmS: 0.1 },
+          'nonsense',
+        ],
+        traverseRemoval: { copper: 30, unobtainium: 5, titanium: 'x', __proto__: 3 },
+      };
+      try {
+        await ctx
+          .db('lab_settings')
+          .where({ id: 1 })
+          .update({ feed_limits_json: JSON.stringify(stored), long_contact_mm: 0 });
+        const res = await operator.agent.get('/api/settings/limits').expect(200);
+        expect(res.body).to.deep.equal({
+          feedCeilings: [{ group: 'copper', hardness: null, machineClass: 'precision', maxFeedMmS: 0.1 }],
+          traverseRemovalCeilings: { copper: 30 },
+          longContactMm: null,
+        });
+      } finally {
+        await restoreLabSettings(ctx.db);
+      }
+    });
+  });
+
+  describe("a coated material's coating hardness", () => {
+    it('round-trips on a coated material and is refused on one that is not coated', async () => {
+      const coated = await post('/api/materials', materialInput({ name: 'Sprayed coupon', coated: true, coatingHardness: { value: 1150, scale: 'HV' } }));
+      expect(coated.status, JSON.stringify(coated.body)).to.equal(201);
+      expect(coated.body.coatingHardness).to.deep.equal({ value: 1150, scale: 'HV' });
+      expect((await operator.agent.get(`/api/materials/${coated.body.id}`).expect(200)).body.coatingHardness).to.deep.equal({ value: 1150, scale: 'HV' });
+      const plain = await post('/api/materials', materialInput({ name: 'Bare coupon', coated: false, coatingHardness: { value: 1150, scale: 'HV' } }));
+      expect(plain.status).to.equal(400);
+      expect(plain.body.errors.map((e: { path: string }) => e.path)).to.include('coatingHardness');
+      const { coatingHardness: _left, ...older } = materialInput({ name: 'Coupon without the field' });
+      expect((await post('/api/materials', older).expect(201)).body.coatingHardness).to.equal(null);
     });
 
     it("gives the worn wheel's default share and the kerf allowance: Kerfbook's defaults (common practice) until the lab sets its own", async () => {

@@ -9,6 +9,7 @@ import type { RecipeContext } from '../../../shared/recipe-context';
 import type { RecipeContent } from '../../../shared/schemas/recipe';
 import { machineBody, materialBody, selectionRowBody, wheelBody } from '../../../shared/schemas/stock';
 import type { MachineRecord, MaterialRecord, WheelRecord } from '../../../shared/stock-types';
+import { selectionRowsWithWheels } from '../../../shared/selection-table';
 import { matchesStarterWheel, STARTER_SELECTION } from '../../../shared/wheel-suggestion';
 import { DEMO_MACHINES, DEMO_MATERIALS, DEMO_WHEELS } from '../../../seeds/data/demo-stock';
 import { getLabLimits } from '../../../server/services/stock/lab-limits';
@@ -139,6 +140,7 @@ export async function insertStock(db: Knex, at: number, actor: TrailActor, plan:
   });
 
   const limits = await getLabLimits(db);
+  const tableWithWheels = selectionRowsWithWheels(selectionRows, wheels);
   const materialById = byId(materials, 'material');
   const machineById = byId(machines, 'machine');
   const wheelById = byId(wheels, 'wheel');
@@ -153,6 +155,7 @@ export async function insertStock(db: Knex, at: number, actor: TrailActor, plan:
       machine: machineById(content.cutting.machineId),
       wheel: wheelById(content.cutting.wheelId),
       limits,
+      selectionRows: tableWithWheels,
     }),
     counts: { materials: materials.length, wheels: wheels.length, machines: machines.length, selectionRows: selectionRows.length },
   };

@@ -2,7 +2,7 @@
 import { markedSpeedPair } from '../../../shared/peripheral-speed';
 import type { RecipeContext } from '../../../shared/recipe-context';
 import type { RecipeContent } from '../../../shared/schemas/recipe';
-import type { LabLimits, MachineRecord, MaterialRecord, WheelRecord } from '../../../shared/stock-types';
+import { NO_LAB_LIMITS, type LabLimits, type MachineRecord, type MaterialRecord, type WheelRecord } from '../../../shared/stock-types';
 
 const stored = { archived: false, updatedAt: '2025-01-01T00:00:00Z', notes: '' };
 
@@ -92,6 +92,7 @@ export function material(over: Partial<MaterialRecord> = {}): MaterialRecord {
     condition: 'quenched and tempered',
     hardness: { value: 30, scale: 'HRC' },
     coated: false,
+    coatingHardness: null,
     caseHardened: false,
     caseDepthMm: null,
     heatSensitive: false,
@@ -143,6 +144,7 @@ export function content(
       softInserts: false,
       supportBlocks: false,
       orientationRule: '',
+      wheelPath: null,
       ...over.clamping,
     },
     coolant: { type: 'water-soluble', concentrationPct: 4, flowLMin: 10, ...over.coolant },
@@ -153,11 +155,11 @@ export function content(
   };
 }
 
-/** The lab's limits as the migrations leave them, but no feed ceilings. */
+/** The lab's limits: Kerfbook's defaults (as the migrations leave them for the worn wheel, kerf and power share), no ceilings, no cutting energies. */
 export function limits(over: Partial<LabLimits> = {}): LabLimits {
-  return { feedCeilingsMmS: {}, wornDiameterShare: 0.7, kerfAllowanceMm: 0.2, specificEnergyJMm3: {}, powerWarningPct: 80, ...over };
+  return { ...NO_LAB_LIMITS, ...over };
 }
 
 export function ctx(over: Partial<RecipeContext> = {}): RecipeContext {
-  return { material: material(), wheel: wheel(), machine: machine(), limits: limits(), ...over };
+  return { material: material(), wheel: wheel(), machine: machine(), limits: limits(), selectionRows: [], ...over };
 }

@@ -127,6 +127,16 @@ describe('shared/hardness', () => {
         .and.match(/parentheses/)
         .and.match(/extrapolated/);
     });
+    it('says that Kerfbook includes only the steel tables, not that the standard has no others (ASTM E140 has tables for other materials too, e.g. nickel alloys, brass, austenitic stainless steels — from memory)', () => {
+      for (const group of ['aluminium-magnesium', 'copper', 'titanium', 'nickel-cobalt', 'stainless-steel'] as const) {
+        const a = conversionApplies(group);
+        expect(!a.applies && a.reason, group).to.match(/Kerfbook includes only/);
+        expect(!a.applies && a.reason, group).to.not.match(/for non-austenitic steels only/);
+      }
+      expect(HARDNESS_CAVEATS.join(' '))
+        .to.match(/Kerfbook includes only the two steel tables/)
+        .and.match(/tables for other materials/);
+    });
     for (const group of ['stainless-steel', 'aluminium-magnesium', 'copper', 'titanium', 'nickel-cobalt', 'cast-iron', 'ceramic-glass'] as const) {
       it(`${group} keeps its measured scale`, () => {
         const r = convertHardness(40, 'HRC', 'HV', group);

@@ -2,7 +2,12 @@ import { expect } from 'chai';
 import type { RecipeContext } from '../../../shared/recipe-context';
 import { CHECK_IDS, changeReasonMissing, runChecks, worstSeverity, type CheckResult } from '../../../shared/recipe-checks';
 import type { RecipeContent } from '../../../shared/schemas/recipe';
-import { content, ctx, limits as labLimits, machine, material, precisionMachine, rimWheel, wheel } from './fixtures';
+import type { FeedCeiling } from '../../../shared/schemas/lab-settings';
+import { selectionRowsWithWheels } from '../../../shared/selection-table';
+import { NO_LAB_LIMITS, type LabLimits, type SelectionRowWheel } from '../../../shared/stock-types';
+import { matchesStarterWheel, STARTER_SELECTION } from '../../../shared/wheel-suggestion';
+import { DEMO_WHEELS } from '../../../seeds/data/demo-stock';
+import { content, ctx, machine, material, precisionMachine, rimWheel, wheel } from './fixtures';
 
 const ids = (c: RecipeContent, x: RecipeContext) => runChecks(c, x).map((r) => r.id);
 const find = (c: RecipeContent, x: RecipeContext, id: string): CheckResult | undefined => runChecks(c, x).find((r) => r.id === id);
@@ -180,6 +185,14 @@ describe('shared/recipe-checks', () => {
       expect(ids(precision({ scope: { group: 'hardened-tool-steel' } }), cbn)).to.not.include('rim-wheel-on-metal');
       expect(ids(precision({ scope: { group: 'copper' } }), cbn)).to.include('rim-wheel-on-metal');
     });
+    it('a CBN rim wheel on soft steel: the message describes loading, not wear (soft ductile metal loads CBN; common practice)', () => {
+      const cbn = precisionCtx({ wheel: rimWheel({ specification: 'B126M' }) });
+      const r = find(precision({ scope: { group: 'plain-low-alloy-steel' } }), cbn, 'rim-wheel-on-metal')!;
+      expect(r.message)
+        .to.contain('CBN')
+        .and.match(/loads \(clogs\)/);
+      expect(`${r.message} ${r.reason}`).to.not.match(/wear/);
+    });
     it('electronics and mixed assemblies get a note with dressing advice, not a warning', () => {
       const r = runChecks(precision({ scope: { group: 'electronics-mixed' } }), precisionCtx());
       expect(r.map((x) => [x.id, x.severity])).to.deep.equal([['rim-wheel-dressing', 'note']]);
@@ -209,34 +222,122 @@ describe('shared/recipe-checks', () => {
     expect(ids(content(), ctx())).to.not.include('dry-cut-burn-risk');
   });
 
-  it("feed-above-ceiling (warning): the lab's ceiling for the group", () => {
-    const limits = labLimits({ feedCeilingsMmS: { 'plain-low-alloy-steel': 0.4 } });
-    expect(find(content(), ctx({ limits }), 'feed-above-ceiling')!.message).to.contain('0.4 mm/s');
-    expect(ids(content({ cutting: { feedMmS: 0.4 } }), ctx({ limits }))).to.not.include('feed-above-ceiling');
-    expect(ids(content(), ctx({ limits: labLimits({ feedCeilingsMmS: { copper: 0.1 } }) }))).to.not.include('feed-above-ceiling');
-  });
-
-  it('orientation-rule-missing (warning): coated or case-hardened without an orientation rule', () => {
-    expect(find(content(), ctx({ material: material({ coated: true }) }), 'orientation-rule-missing')).to.deep.include({
-      severity: 'warning',
-      path: 'clamping.orientationRule',
+  describe("feed-above-ceiling (warning): the lab's ceiling for group × hardness band × machine class (common practice: abrasive cut-off 0.05–1.0 mm/s, precision 0.005–0.2 mm/s, harder material lower)", () => {
+    const plain = (machineClass: FeedCeiling['machineClass'], band: FeedCeiling['hardness'], maxFeedMmS: number): FeedCeiling => ({
+      group: 'plain-low-alloy-steel',
+      hardness: band,
+      machineClass,
+      maxFeedMmS,
     });
-    expect(find(content(), ctx({ material: material({ caseHardened: true, caseDepthMm: 0.8 }) }), 'orientation-rule-missing')!.message).to.contain(
-      'case 0.8 mm',
-    );
-    expect(ids(content({ clamping: { orientationRule: 'Wheel enters through the coating.' } }), ctx({ material: material({ coated: true }) }))).to.not.include(
-      'orientation-rule-missing',
-    );
-    expect(ids(content(), ctx())).to.not.include('orientation-rule-missing');
+    const soft = { min: 80, max: 345, scale: 'HV' } as const;
+    const mid = { min: 35, max: 50, scale: 'HRC' } as const;
+    const hard = { min: 50, max: 68, scale: 'HRC' } as const;
+    const limits: LabLimits = {
+      ...NO_LAB_LIMITS,
+      feedCeilings: [
+        plain('bench-abrasive', soft, 0.6),
+        plain('bench-abrasive', mid, 0.4),
+        plain('bench-abrasive', hard, 0.25),
+        plain('precision', soft, 0.1),
+        plain('precision', hard, 0.05),
+        { group: 'copper', hardness: null, machineClass: 'bench-abrasive', maxFeedMmS: 0.1 },
+      ],
+    };
+    const at = (value: number, scale: 'HRC' | 'HV' = 'HRC') => ctx({ limits, material: material({ hardness: { value, scale } }) });
+
+    it('takes the band the hardness lies in (30 HRC = 302 HV, ASTM E140 Table 1: the soft band, 0.6 mm/s)', () => {
+      expect(ids(content({ cutting: { feedMmS: 0.5 } }), at(30))).to.not.include('feed-above-ceiling');
+      const r = find(content({ cutting: { feedMmS: 0.5 } }), at(45), 'feed-above-ceiling')!;
+      expect(r).to.deep.include({ severity: 'warning', path: 'cutting.feedMmS' });
+      expect(r.message).to.contain('0.4 mm/s').and.contain('35–50 HRC').and.contain('bench abrasive');
+      expect(ids(content({ cutting: { feedMmS: 0.4 } }), at(45))).to.not.include('feed-above-ceiling'); // at the ceiling: no warning
+    });
+    it('a hardness on a band edge or a window across bands takes the lowest ceiling that applies', () => {
+      // 35 HRC = 345 HV (ASTM E140, Table 1): in the soft band and the 35–50 HRC band, so 0.4 mm/s
+      expect(find(content({ cutting: { feedMmS: 0.5 } }), at(35), 'feed-above-ceiling')!.message).to.contain('0.4 mm/s');
+      const window = content({ scope: { hardness: { min: 45, max: 55, scale: 'HRC' } }, cutting: { feedMmS: 0.3 } });
+      expect(find(window, at(30), 'feed-above-ceiling')!.message)
+        .to.contain('0.25 mm/s')
+        .and.contain('50–68 HRC');
+    });
+    it('without a hardness, or outside every band, the lowest ceiling of the group on that machine class applies (the cautious reading)', () => {
+      const none = ctx({ limits, material: material({ hardness: null }) });
+      expect(find(content({ cutting: { feedMmS: 0.3 } }), none, 'feed-above-ceiling')!.message)
+        .to.contain('0.25 mm/s')
+        .and.contain('no hardness given');
+      expect(find(content({ cutting: { feedMmS: 0.3 } }), at(70), 'feed-above-ceiling')!.message)
+        .to.contain('0.25 mm/s')
+        .and.contain('none of the lab');
+    });
+    it('precision saws have their own, far lower ceilings', () => {
+      const x = precisionCtx({ limits, material: material({ hardness: { value: 60, scale: 'HRC' } }) });
+      const c = precision({ scope: { materialId: 1, group: 'plain-low-alloy-steel' }, cutting: { feedMmS: 0.1 } });
+      expect(find(c, x, 'feed-above-ceiling')!.message)
+        .to.contain('0.05 mm/s')
+        .and.contain('precision');
+      expect(ids({ ...c, cutting: { ...c.cutting, feedMmS: 0.05 } }, x)).to.not.include('feed-above-ceiling');
+    });
+    it('no row for the group and class, or a traverse pass (judged by its removal per mm of wheel width instead): no warning', () => {
+      expect(
+        ids(content({ cutting: { feedMmS: 0.5 } }), ctx({ limits: { ...NO_LAB_LIMITS, feedCeilings: [plain('floor-abrasive', null, 0.1)] } })),
+      ).to.not.include('feed-above-ceiling');
+      const traverse = content({ cutting: { feedMmS: 2, cutMotion: 'traverse-pass', passes: 4 } });
+      expect(ids(traverse, at(45))).to.not.include('feed-above-ceiling');
+    });
   });
 
-  it('rim-wheel-low-rpm (note): well below what the rim wheel could run at', () => {
-    // Ceiling: min(machine 5000, floor(60 000·40/(π·150)) = 5092) = 5000; 75 % = 3750; computed by hand
-    const r = find(precision({ cutting: { wheelRpm: 3000 } }), precisionCtx(), 'rim-wheel-low-rpm')!;
-    expect(r.severity).to.equal('note');
-    expect(r.message).to.contain('5000 rpm').and.contain('consumable');
-    expect(ids(precision({ cutting: { wheelRpm: 3750 } }), precisionCtx())).to.not.include('rim-wheel-low-rpm');
-    expect(ids(content({ cutting: { wheelRpm: 1000 } }), ctx())).to.not.include('rim-wheel-low-rpm'); // bonded wheel: lowering rpm is the remedy
+  describe('orientation-rule-missing (warning): a coated part must say where the wheel enters and leaves; a case-hardened one needs its orientation rule', () => {
+    it('coated: the structured wheel path is needed, the free text alone is not enough', () => {
+      const coated = ctx({ material: material({ coated: true }) });
+      const r = find(content({ clamping: { orientationRule: 'Wheel enters through the coating.' } }), coated, 'orientation-rule-missing')!;
+      expect(r).to.deep.include({ severity: 'warning', path: 'clamping.wheelPath' });
+      expect(r.message).to.contain('enters and leaves');
+      for (const wheelPath of ['enters-coating', 'not-applicable'] as const)
+        expect(ids(content({ clamping: { wheelPath } }), coated), wheelPath).to.not.include('orientation-rule-missing');
+    });
+    it('content stored before the wheel path existed (no key) reads as not given, and every other check still runs', () => {
+      const coated = ctx({ material: material({ coated: true }) });
+      const stored = content();
+      delete (stored.clamping as Partial<RecipeContent['clamping']>).wheelPath;
+      expect('wheelPath' in stored.clamping).to.equal(false);
+      expect(runChecks(stored, coated)).to.deep.equal(runChecks(content({ clamping: { wheelPath: null } }), coated));
+      expect(find(stored, coated, 'orientation-rule-missing')!.path).to.equal('clamping.wheelPath');
+      expect(ids(stored, ctx())).to.deep.equal([]);
+    });
+    it('case-hardened: the orientation rule, as before', () => {
+      expect(find(content(), ctx({ material: material({ caseHardened: true, caseDepthMm: 0.8 }) }), 'orientation-rule-missing')).to.deep.include({
+        path: 'clamping.orientationRule',
+      });
+      expect(find(content(), ctx({ material: material({ caseHardened: true, caseDepthMm: 0.8 }) }), 'orientation-rule-missing')!.message).to.contain(
+        'case 0.8 mm',
+      );
+      expect(
+        ids(
+          content({ clamping: { orientationRule: 'Wheel enters at the tooth tip.' } }),
+          ctx({ material: material({ caseHardened: true, caseDepthMm: 0.8 }) }),
+        ),
+      ).to.not.include('orientation-rule-missing');
+      expect(ids(content(), ctx())).to.not.include('orientation-rule-missing');
+    });
+  });
+
+  describe('rim-wheel-low-rpm (note): well below what the rim wheel could run at, on abrasive cut-off machines only', () => {
+    // A rim wheel Ø150, 40 m/s on the bench saw (rpm 1000–4000): ceiling min(4000, floor(60 000·40/(π·150)) = 5092) = 4000; 75 % = 3000; computed by hand
+    const bench = ctx({ material: null, wheel: rimWheel() });
+    const c = (wheelRpm: number) => precision({ cutting: { machineId: 1, wheelRpm } });
+    it('fires on an abrasive saw, with the numbers', () => {
+      const r = find(c(2000), bench, 'rim-wheel-low-rpm')!;
+      expect(r.severity).to.equal('note');
+      expect(r.message).to.contain('4000 rpm').and.contain('consumable');
+      expect(ids(c(3000), bench)).to.not.include('rim-wheel-low-rpm');
+    });
+    it('never on a precision saw, which turns rim wheels slowly by design (common practice: a gentle cut for brittle and delicate specimens)', () => {
+      expect(ids(precision({ cutting: { wheelRpm: 300 } }), precisionCtx())).to.not.include('rim-wheel-low-rpm');
+      expect(find(c(2000), bench, 'rim-wheel-low-rpm')!.reason).to.contain('precision saws');
+    });
+    it('never for a bonded wheel: lowering the rpm is the remedy there', () => {
+      expect(ids(content({ cutting: { wheelRpm: 1000 } }), ctx())).to.not.include('rim-wheel-low-rpm');
+    });
   });
 
   it("heat-sensitive-high-feed (warning; 0.25 mm/s on abrasive saws, the low end of the usual feed range: Kerfbook's threshold, common practice)", () => {
@@ -307,6 +408,230 @@ describe('shared/recipe-checks', () => {
       const none = ctx({ machine: machine({ motorPowerKw: null }) });
       expect(ids(content(), none)).to.not.include('motor-power-unknown');
       expect(ids(content(), ctx({ machine: machine({ motorPowerKw: 0.5 }) }))).to.not.include('cutting-power-high');
+    });
+  });
+
+  describe('the wheel against the lab selection table (abrasive: common practice, ASTM E3 from memory; bond: harder material → softer bond, common practice; grades A soft … Z hard after ISO 525)', () => {
+    const row = (
+      id: number,
+      group: SelectionRowWheel['group'],
+      hardness: SelectionRowWheel['hardness'],
+      kind: 'bonded' | 'rim',
+      specification: string,
+    ): SelectionRowWheel => ({
+      id,
+      group,
+      hardness,
+      wheelId: id,
+      note: '',
+      wheel: { kind, specification },
+    });
+    // The starting table's shape: steel banded at about 35 and 50 HRC (from memory), SiC for aluminium and titanium, diamond for ceramics.
+    const TABLE = [
+      row(1, 'plain-low-alloy-steel', { min: 80, max: 345, scale: 'HV' }, 'bonded', 'A60P5B'),
+      row(2, 'plain-low-alloy-steel', { min: 35, max: 50, scale: 'HRC' }, 'bonded', 'A46M5B'),
+      row(3, 'plain-low-alloy-steel', { min: 50, max: 68, scale: 'HRC' }, 'bonded', 'A36K5B'),
+      row(4, 'aluminium-magnesium', null, 'bonded', 'C80P5B'),
+      row(5, 'titanium', null, 'bonded', 'C80N5B'),
+      row(6, 'ceramic-glass', null, 'rim', 'D126N100M'),
+    ];
+    const withTable = (over: Parameters<typeof ctx>[0] = {}) => ctx({ selectionRows: TABLE, wheel: wheel({ specification: 'A60P5B' }), ...over });
+    const hrc = (value: number) => material({ hardness: { value, scale: 'HRC' } });
+
+    it('the clean setup against the table raises nothing', () => {
+      expect(runChecks(content(), withTable())).to.deep.equal([]);
+    });
+
+    describe('wheel-abrasive-unsuited (warning)', () => {
+      it('silicon carbide on steel, where the table gives aluminium oxide', () => {
+        const r = find(content(), withTable({ wheel: wheel({ specification: 'C60P5B' }) }), 'wheel-abrasive-unsuited')!;
+        expect(r).to.deep.include({ severity: 'warning', path: 'cutting.wheelId' });
+        expect(r.message).to.contain('silicon carbide wheel').and.contain('gives aluminium oxide');
+      });
+      it('alumina on aluminium or titanium, where the table gives silicon carbide', () => {
+        for (const group of ['aluminium-magnesium', 'titanium'] as const) {
+          const r = find(content({ scope: { materialId: null, group } }), withTable({ material: null }), 'wheel-abrasive-unsuited')!;
+          expect(r.message, group).to.contain('aluminium oxide wheel').and.contain('gives silicon carbide');
+        }
+        expect(
+          ids(content({ scope: { materialId: null, group: 'titanium' } }), withTable({ material: null, wheel: wheel({ specification: 'C80N5B' }) })),
+        ).to.not.include('wheel-abrasive-unsuited');
+      });
+      it('a rim wheel against the rim rows: CBN on ceramics, where the table gives diamond; rim wheels on metal are left to rim-wheel-on-metal', () => {
+        const cbn = precisionCtx({ selectionRows: TABLE, wheel: rimWheel({ specification: 'B126M' }) });
+        expect(find(precision(), cbn, 'wheel-abrasive-unsuited')!.message).to.contain('cubic boron nitride');
+        expect(ids(precision(), precisionCtx({ selectionRows: TABLE }))).to.not.include('wheel-abrasive-unsuited');
+        expect(ids(precision({ scope: { group: 'plain-low-alloy-steel' } }), precisionCtx({ selectionRows: TABLE }))).to.not.include('wheel-abrasive-unsuited');
+      });
+      it('no verdict where the table has no row for the group and kind', () => {
+        expect(ids(content({ scope: { materialId: null, group: 'copper' } }), withTable({ material: null }))).to.not.include('wheel-abrasive-unsuited');
+        expect(ids(content({ scope: { materialId: null, group: 'ceramic-glass' } }), withTable({ material: null }))).to.not.include('wheel-abrasive-unsuited');
+        expect(ids(content(), ctx({ wheel: wheel({ specification: 'C60P5B' }) }))).to.not.include('wheel-abrasive-unsuited');
+      });
+    });
+
+    describe('wheel-bond-too-hard / wheel-bond-too-soft (warnings), from the bands of the table', () => {
+      it('a hard bond (grade P) on hardened low-alloy steel at 45 HRC, where the table gives a medium bond', () => {
+        const r = find(content(), withTable({ material: hrc(45) }), 'wheel-bond-too-hard')!;
+        expect(r).to.deep.include({ severity: 'warning', path: 'cutting.wheelId' });
+        expect(r.message).to.contain('grade P').and.contain('a medium bond').and.contain('at 45 HRC').and.contain('glazes');
+        expect(ids(content(), withTable({ material: hrc(45), wheel: wheel({ specification: 'A46M5B' }) }))).to.not.include.members([
+          'wheel-bond-too-hard',
+          'wheel-bond-too-soft',
+        ]);
+      });
+      it('a soft bond (grade K) on soft steel at 30 HRC (= 302 HV, ASTM E140 Table 1: the 80–345 HV band, hard bond)', () => {
+        const r = find(content(), withTable({ wheel: wheel({ specification: 'A60K5B' }) }), 'wheel-bond-too-soft')!;
+        expect(r.message).to.contain('grade K').and.contain('a hard bond').and.contain('wears fast');
+      });
+      it('on a band edge both bands count: 35 HRC = 345 HV takes hard and medium, 50 HRC takes medium and soft', () => {
+        const at35 = withTable({ material: hrc(35) });
+        for (const spec of ['A60P5B', 'A60M5B'])
+          expect(ids(content(), { ...at35, wheel: wheel({ specification: spec }) }), spec).to.not.include('wheel-bond-too-hard');
+        expect(ids(content(), { ...at35, wheel: wheel({ specification: 'A60K5B' }) })).to.include('wheel-bond-too-soft');
+        const at50 = withTable({ material: hrc(50) });
+        expect(ids(content(), at50)).to.include('wheel-bond-too-hard');
+        expect(ids(content(), { ...at50, wheel: wheel({ specification: 'A60K5B' }) })).to.not.include('wheel-bond-too-soft');
+      });
+      it("the scope's window wins over the material's reading; without any hardness every band of the group counts (no verdict)", () => {
+        expect(ids(content({ scope: { hardness: { min: 52, max: 60, scale: 'HRC' } } }), withTable())).to.include('wheel-bond-too-hard');
+        const unknown = withTable({ material: hrc(45) });
+        unknown.material = material({ hardness: null });
+        for (const spec of ['A60P5B', 'A60K5B'])
+          expect(ids(content(), { ...unknown, wheel: wheel({ specification: spec }) }), spec).to.not.include.members([
+            'wheel-bond-too-hard',
+            'wheel-bond-too-soft',
+          ]);
+      });
+      it('a coated part: a bond the table gives either layer is accepted; a coating above every band takes the hardest band (1150 HV > 940 HV = 68 HRC, ASTM E140 Table 1)', () => {
+        const coated = material({ coated: true, coatingHardness: { value: 1150, scale: 'HV' } });
+        const soft = wheel({ specification: 'A60J5B' });
+        expect(ids(content({ clamping: { wheelPath: 'enters-coating' } }), withTable({ material: coated, wheel: soft }))).to.not.include('wheel-bond-too-soft');
+        expect(ids(content({ clamping: { wheelPath: 'enters-coating' } }), withTable({ material: coated }))).to.not.include('wheel-bond-too-hard');
+        // The same reading on a part that is not coated does not count.
+        expect(ids(content(), withTable({ material: material({ coatingHardness: { value: 1150, scale: 'HV' } }), wheel: soft }))).to.include(
+          'wheel-bond-too-soft',
+        );
+      });
+      it('rim wheels and superabrasive markings have no ISO 525 grade band to compare', () => {
+        expect(ids(content(), withTable({ material: hrc(45), wheel: wheel({ specification: 'B151N100B' }) }))).to.not.include('wheel-bond-too-hard');
+        expect(ids(precision({ scope: { group: 'plain-low-alloy-steel' } }), precisionCtx({ selectionRows: TABLE }))).to.not.include.members([
+          'wheel-bond-too-hard',
+          'wheel-bond-too-soft',
+        ]);
+      });
+    });
+
+    it('wheel-marking-unparsed (note): a marking the parser cannot read is named, and the table checks skip that wheel', () => {
+      const odd = withTable({ wheel: wheel({ name: 'Mystery wheel', specification: 'XZ-99' }) });
+      const r = find(content(), odd, 'wheel-marking-unparsed')!;
+      expect(r).to.deep.include({ severity: 'note', path: 'cutting.wheelId' });
+      expect(r.message).to.contain('"XZ-99"').and.contain('"Mystery wheel"').and.contain('skip');
+      expect(ids(content(), odd)).to.not.include.members(['wheel-abrasive-unsuited', 'wheel-bond-too-hard', 'wheel-bond-too-soft']);
+      expect(ids(content(), withTable({ wheel: wheel({ specification: 'A60P5RF' }) }))).to.not.include('wheel-marking-unparsed'); // reinforced rubber now parses
+    });
+
+    it("the starting table is consistent with these rules: each banded row's wheel, at its band's middle, raises no abrasive or bond warning (the demo wheels)", () => {
+      const demoWheels = DEMO_WHEELS.map((w, i) => wheel({ id: i + 1, name: w.name, kind: w.kind, specification: w.specification }));
+      const rows = STARTER_SELECTION.flatMap((r, i) =>
+        demoWheels.filter((w) => matchesStarterWheel(r.wheel, w)).map((w) => ({ id: i + 1, group: r.group, hardness: r.hardness, wheelId: w.id, note: '' })),
+      );
+      const table = selectionRowsWithWheels(rows, demoWheels);
+      for (const r of rows) {
+        const w = demoWheels.find((x) => x.id === r.wheelId)!;
+        const hardness = r.hardness
+          ? { min: (r.hardness.min + r.hardness.max) / 2, max: (r.hardness.min + r.hardness.max) / 2, scale: r.hardness.scale }
+          : null;
+        const c = content({ scope: { materialId: null, group: r.group, hardness } });
+        const found = ids(c, ctx({ material: null, wheel: w, selectionRows: table }));
+        expect(found, `${r.group} ${JSON.stringify(r.hardness)} ${w.specification}`).to.not.include.members([
+          'wheel-abrasive-unsuited',
+          'wheel-bond-too-hard',
+          'wheel-bond-too-soft',
+        ]);
+      }
+    });
+  });
+
+  describe("traverse-removal-above-ceiling (warning): removal per mm of wheel width, Q'w = removal rate / wheel thickness (Malkin & Guo, Grinding Technology — from memory)", () => {
+    // A 40 mm high block in 4 passes: a = 10 mm; at 2 mm/s over a 1.5 mm wheel Q = 2 · 1.5 · 10 = 30 mm³/s, Q'w = 30 / 1.5 = 20 mm³/s per mm; computed by hand
+    const traverse = content({
+      scope: { shape: 'rectangular', sizeMinMm: 10, sizeMaxMm: 40, widthMm: 30 },
+      cutting: { feedMmS: 2, cutMotion: 'traverse-pass', passes: 4 },
+    });
+    const limit = (q: number) => ctx({ limits: { ...NO_LAB_LIMITS, traverseRemovalCeilings: { 'plain-low-alloy-steel': q } } });
+    it('fires above the ceiling, with the numbers', () => {
+      const r = find(traverse, limit(16), 'traverse-removal-above-ceiling')!;
+      expect(r).to.deep.include({ severity: 'warning', path: 'cutting.feedMmS' });
+      expect(r.message).to.contain('20.0 mm³/s per mm').and.contain('30.0 mm³/s').and.contain('16 mm³/s per mm');
+    });
+    it('not at the ceiling, not without one, not for a plunge', () => {
+      expect(ids(traverse, limit(20))).to.not.include('traverse-removal-above-ceiling');
+      expect(ids(traverse, ctx())).to.not.include('traverse-removal-above-ceiling');
+      expect(ids({ ...traverse, cutting: { ...traverse.cutting, cutMotion: 'straight-plunge', passes: null } }, limit(1))).to.not.include(
+        'traverse-removal-above-ceiling',
+      );
+    });
+  });
+
+  describe("long-plunge-contact (note): a straight plunge through more than the lab's length (common practice: pulse, rock, step or traverse large sections)", () => {
+    const long = (limitMm: number | null) => ctx({ limits: { ...NO_LAB_LIMITS, longContactMm: limitMm } });
+    it('a 60 mm bar meets 60 mm of material at its middle (chord 2·√(30·30)), above 50 mm', () => {
+      const r = find(content({ scope: { sizeMaxMm: 60 } }), long(50), 'long-plunge-contact')!;
+      expect(r).to.deep.include({ severity: 'note', path: 'cutting.cutMotion' });
+      expect(r.message).to.contain('60.0 mm').and.contain('50 mm').and.contain('rocking');
+    });
+    it('a rectangular section meets its width all the way down', () => {
+      expect(find(content({ scope: { shape: 'rectangular', sizeMaxMm: 30, widthMm: 80 } }), long(50), 'long-plunge-contact')!.message).to.contain('80.0 mm');
+    });
+    it('not at the length itself, not for other motions, not without a lab length', () => {
+      expect(ids(content({ scope: { sizeMaxMm: 50 } }), long(50))).to.not.include('long-plunge-contact');
+      expect(ids(content({ scope: { sizeMaxMm: 60 }, cutting: { cutMotion: 'pulsed-plunge' } }), long(50))).to.not.include('long-plunge-contact');
+      expect(ids(content({ scope: { sizeMaxMm: 60 } }), long(null))).to.not.include('long-plunge-contact');
+    });
+  });
+
+  describe('clamping-one-side (warning): the offcut can pinch the wheel (common practice: clamp both sides of the cut)', () => {
+    it('fires when the part is clamped on one side only', () => {
+      expect(find(content({ clamping: { bothSides: false } }), ctx(), 'clamping-one-side')).to.deep.include({
+        severity: 'warning',
+        path: 'clamping.bothSides',
+      });
+      expect(
+        find(
+          precision({ clamping: { method: 'small-part-gripper', bothSides: false }, cutting: { machineId: 1 } }),
+          ctx({ material: null, wheel: rimWheel() }),
+          'clamping-one-side',
+        ),
+      ).to.not.equal(undefined); // a rim wheel on an abrasive saw
+    });
+    it('not where one side is the usual way: a wax or adhesive mount, a rim wheel on a precision saw; not when both sides are clamped', () => {
+      expect(ids(precision({ clamping: { bothSides: false } }), precisionCtx())).to.not.include('clamping-one-side');
+      expect(ids(precision({ clamping: { method: 'small-part-gripper', bothSides: false } }), precisionCtx())).to.not.include('clamping-one-side');
+      expect(ids(content({ clamping: { method: 'adhesive-wax-mount', bothSides: false } }), ctx())).to.not.include('clamping-one-side');
+      expect(ids(content(), ctx())).to.not.include('clamping-one-side');
+    });
+  });
+
+  it('coolant-flow-zero (warning): a coolant chosen with no flow runs the cut dry (common practice)', () => {
+    expect(find(content({ coolant: { flowLMin: 0 } }), ctx(), 'coolant-flow-zero')).to.deep.include({ severity: 'warning', path: 'coolant.flowLMin' });
+    expect(find(content({ coolant: { type: 'oil', concentrationPct: null, flowLMin: 0 } }), ctx(), 'coolant-flow-zero')!.message).to.contain('Cutting oil');
+    for (const flowLMin of [null, 0.1, 10]) expect(ids(content({ coolant: { flowLMin } }), ctx()), String(flowLMin)).to.not.include('coolant-flow-zero');
+    expect(ids(content({ coolant: { type: 'dry', concentrationPct: null, flowLMin: null } }), ctx())).to.not.include('coolant-flow-zero');
+  });
+
+  describe('wheel-exits-coating (warning): the wheel must press the coating on, not peel it off (common practice)', () => {
+    const coated = ctx({ material: material({ name: 'Sprayed shaft', coated: true }) });
+    it('fires when the wheel leaves through the coating', () => {
+      const r = find(content({ clamping: { wheelPath: 'exits-coating' } }), coated, 'wheel-exits-coating')!;
+      expect(r).to.deep.include({ severity: 'warning', path: 'clamping.wheelPath' });
+      expect(r.message).to.contain('Sprayed shaft').and.contain('peels').and.contain('enters through the coating');
+      expect(find(content({ clamping: { wheelPath: 'enters-and-exits-coating' } }), coated, 'wheel-exits-coating')!.message).to.contain('both sides');
+    });
+    it('not when it enters through the coating, not when the cut does not cross it, not on an uncoated material', () => {
+      for (const wheelPath of ['enters-coating', 'not-applicable', null] as const)
+        expect(ids(content({ clamping: { wheelPath } }), coated)).to.not.include('wheel-exits-coating');
+      expect(ids(content({ clamping: { wheelPath: 'exits-coating' } }), ctx())).to.not.include('wheel-exits-coating');
     });
   });
 

@@ -1,5 +1,5 @@
 import { expect } from 'chai';
-import { abrasiveFamily, gradeBand, parseWheelSpec } from '../../../shared/wheel-spec';
+import { abrasiveFamily, BOND_LABELS, CONVENTIONAL_BONDS, gradeBand, parseWheelSpec } from '../../../shared/wheel-spec';
 
 describe('shared/wheel-spec', () => {
   describe('conventional wheels (ISO 525 field order: abrasive, grit, grade, structure, bond)', () => {
@@ -18,6 +18,32 @@ describe('shared/wheel-spec', () => {
       }
       const bf = parseWheelSpec('A36R6BF');
       expect(bf.ok && bf.spec.type === 'conventional' && [bf.spec.grade, bf.spec.structure, bf.spec.bond]).to.deep.equal(['R', 6, 'BF']);
+    });
+    it('reads the cut-off bonds it used to miss (ISO 525 bond designations, from memory: RF reinforced rubber, MG magnesite, PL plastic)', () => {
+      // Each with and without a structure number, so the two-letter bond is not read as a grade or a structure.
+      const cases: [string, string, number | null, string][] = [
+        ['A36P6RF', 'P', 6, 'RF'],
+        ['A36PRF', 'P', null, 'RF'],
+        ['C60K5MG', 'K', 5, 'MG'],
+        ['C60KMG', 'K', null, 'MG'],
+        ['A80M8PL', 'M', 8, 'PL'],
+        ['A80MPL', 'M', null, 'PL'],
+      ];
+      for (const [marking, grade, structure, bond] of cases) {
+        const r = parseWheelSpec(marking);
+        expect(r.ok && r.spec.type === 'conventional' && [r.spec.grade, r.spec.structure, r.spec.bond], marking).to.deep.equal([grade, structure, bond]);
+        expect(r.ok && r.spec.text, marking).to.equal(marking);
+      }
+      expect(BOND_LABELS.RF).to.equal('reinforced rubber');
+      expect(BOND_LABELS.MG).to.equal('magnesite');
+    });
+    it('every bond letter of the list parses after a grade, and the message for an unknown one lists them all', () => {
+      for (const bond of CONVENTIONAL_BONDS) {
+        const r = parseWheelSpec(`A46N${bond}`);
+        expect(r.ok && r.spec.type === 'conventional' && r.spec.bond, bond).to.equal(bond);
+      }
+      const r = parseWheelSpec('A46NX');
+      expect(!r.ok && r.error).to.equal('Unknown bond "X": use V, B, BF, R, RF, E, MG, PL, M, S.');
     });
     it('ignores spaces and hyphens and reads lower case as capitals', () => {
       const r = parseWheelSpec(' a 60 k 5 v ');

@@ -47,6 +47,39 @@ describe('shared/wheel-suggestion', () => {
     expect(suggestWheels('copper', null, rows, stock).map((x) => x.wheel.id)).to.deep.equal([10]);
   });
 
+  describe("a coated part: the coating's hardness as well as the substrate's (the harder layer sets the bond: harder material, softer bond, common practice)", () => {
+    const banded: SelectionRow[] = [
+      { id: 1, group: 'plain-low-alloy-steel', hardness: { min: 80, max: 345, scale: 'HV' }, wheelId: 10, note: '' },
+      { id: 2, group: 'plain-low-alloy-steel', hardness: { min: 35, max: 50, scale: 'HRC' }, wheelId: 11, note: '' },
+      { id: 3, group: 'plain-low-alloy-steel', hardness: { min: 50, max: 68, scale: 'HRC' }, wheelId: 12, note: '' },
+    ];
+    const substrate30 = { value: 30, scale: 'HRC' } as const;
+    it("a harder coating (45 HRC) on a 30 HRC substrate: the coating's band first, then the substrate's", () => {
+      const s = suggestWheels('plain-low-alloy-steel', substrate30, banded, stock, { value: 45, scale: 'HRC' });
+      expect(s.map((x) => x.wheel.id)).to.deep.equal([11, 10]);
+      expect(s[0]!.reason).to.contain("coating's 45 HRC").and.contain('harder layer');
+      expect(s[1]!.reason).to.not.contain('coating');
+    });
+    it('a coating above every band (1150 HV > 940 HV = 68 HRC, ASTM E140 Table 1) takes the hardest band', () => {
+      const s = suggestWheels('plain-low-alloy-steel', substrate30, banded, stock, { value: 1150, scale: 'HV' });
+      expect(s.map((x) => x.wheel.id)).to.deep.equal([12, 10]);
+      expect(s[0]!.reason).to.contain('hardest band').and.contain('1150 HV');
+    });
+    it("a softer coating on a harder substrate: the substrate's band first (200 HV < 446 HV = 45 HRC, ASTM E140 Table 1)", () => {
+      const s = suggestWheels('plain-low-alloy-steel', { value: 45, scale: 'HRC' }, banded, stock, { value: 200, scale: 'HV' });
+      expect(s.map((x) => x.wheel.id)).to.deep.equal([11, 10]);
+      expect(s[1]!.reason).to.contain("coating's 200 HV").and.not.contain('harder layer');
+    });
+    it('without a substrate hardness the coating leads and the other bands follow, unconfirmed; without a coating nothing changes', () => {
+      const s = suggestWheels('plain-low-alloy-steel', null, banded, stock, { value: 55, scale: 'HRC' });
+      expect(s.map((x) => x.wheel.id)).to.deep.equal([12, 11, 10]);
+      expect(s[1]!.reason).to.contain('not confirmed');
+      expect(suggestWheels('hardened-tool-steel', { value: 60, scale: 'HRC' }, rows, stock, null)).to.deep.equal(
+        suggestWheels('hardened-tool-steel', { value: 60, scale: 'HRC' }, rows, stock),
+      );
+    });
+  });
+
   describe('STARTER_SELECTION (common practice: alumina for ferrous, silicon carbide for non-ferrous metals, diamond for hard brittle materials; harder material, softer bond)', () => {
     it('covers every group', () => {
       for (const g of MATERIAL_GROUPS)
@@ -55,11 +88,12 @@ describe('shared/wheel-suggestion', () => {
           g,
         ).to.equal(true);
     });
-    it('aluminium oxide for ferrous, silicon carbide for non-ferrous metals, diamond rim wheels for hard brittle materials', () => {
+    it('aluminium oxide for ferrous metals and nickel and cobalt alloys, silicon carbide for the other non-ferrous metals, diamond rim wheels for hard brittle materials', () => {
       const first = (g: string) => STARTER_SELECTION.find((r) => r.group === g)!.wheel;
-      for (const g of ['plain-low-alloy-steel', 'hardened-tool-steel', 'stainless-steel', 'cast-iron'])
+      // Nickel and cobalt alloys: aluminium oxide, as wheel charts give them (from memory); SiC wears chemically on nickel and cobalt as on iron (from memory).
+      for (const g of ['plain-low-alloy-steel', 'hardened-tool-steel', 'stainless-steel', 'cast-iron', 'nickel-cobalt'])
         expect(first(g).abrasives[0], g).to.equal('aluminium-oxide');
-      for (const g of ['aluminium-magnesium', 'copper', 'titanium', 'nickel-cobalt']) expect(first(g).abrasives[0], g).to.equal('silicon-carbide');
+      for (const g of ['aluminium-magnesium', 'copper', 'titanium']) expect(first(g).abrasives[0], g).to.equal('silicon-carbide');
       for (const g of ['cemented-carbide', 'ceramic-glass']) expect(first(g)).to.deep.include({ kind: 'rim', abrasives: ['diamond'] });
       for (const r of STARTER_SELECTION) if (METALLIC_GROUPS.includes(r.group) && r.wheel.kind === 'rim') expect(r.wheel.abrasives).to.not.include('diamond');
     });
@@ -69,8 +103,17 @@ describe('shared/wheel-suggestion', () => {
       const highBand = bands.find((r) => r.hardness!.min === 45)!;
       expect([lowBand.wheel.grade, highBand.wheel.grade]).to.deep.equal(['medium', 'soft']);
     });
+    it('plain and low-alloy steels are banded too: no hard bond for hardened low-alloy steel (bands at 35 and 50 HRC, from memory; 35 HRC = 345 HV, ASTM E140 Table 1)', () => {
+      const bands = STARTER_SELECTION.filter((r) => r.group === 'plain-low-alloy-steel');
+      expect(bands.map((r) => [r.hardness, r.wheel.grade])).to.deep.equal([
+        [{ min: 80, max: 345, scale: 'HV' }, 'hard'],
+        [{ min: 35, max: 50, scale: 'HRC' }, 'medium'],
+        [{ min: 50, max: 68, scale: 'HRC' }, 'soft'],
+      ]);
+      expect(bands.every((r) => r.hardness !== null && r.wheel.kind === 'bonded' && r.wheel.abrasives[0] === 'aluminium-oxide')).to.equal(true);
+    });
     it('matchesStarterWheel checks kind, abrasive and grade band', () => {
-      const plain = STARTER_SELECTION.find((r) => r.group === 'plain-low-alloy-steel')!.wheel;
+      const plain = STARTER_SELECTION.find((r) => r.group === 'plain-low-alloy-steel' && r.wheel.grade === 'hard')!.wheel;
       expect(matchesStarterWheel(plain, any)).to.equal(true); // A46P… is a hard grade (P and up: Kerfbook's grade bands, from memory)
       expect(matchesStarterWheel(plain, soft)).to.equal(false);
       const ceramic = STARTER_SELECTION.find((r) => r.group === 'ceramic-glass')!.wheel;

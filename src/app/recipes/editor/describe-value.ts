@@ -7,6 +7,7 @@ import {
   CUT_ORIENTATION_LABELS,
   MATERIAL_GROUP_LABELS,
   SHAPE_LABELS,
+  WHEEL_PATH_LABELS,
 } from '@shared/vocabulary';
 import type { EditorStock } from './editor-stock';
 import { FIELD_INFO } from './recipe-form';
@@ -17,6 +18,7 @@ const CHOICE_LABELS: Record<string, Record<string, string>> = {
   'scope.orientation': CUT_ORIENTATION_LABELS,
   'cutting.cutMotion': CUT_MOTION_LABELS,
   'clamping.method': CLAMPING_METHOD_LABELS,
+  'clamping.wheelPath': WHEEL_PATH_LABELS,
   'coolant.type': COOLANT_TYPE_LABELS,
 };
 

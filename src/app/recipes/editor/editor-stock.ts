@@ -1,7 +1,6 @@
 import { catchError, firstValueFrom, forkJoin, of } from 'rxjs';
 import type { RecipeVersionDto } from '@shared/recipe-types';
-import type { LabLimits, MachineRecord, MaterialRecord, SelectionRow, WheelRecord } from '@shared/stock-types';
-import { KERFBOOK_LAB_LIMITS } from '../../core/api/lab-limits';
+import { type LabLimits, type MachineRecord, type MaterialRecord, NO_LAB_LIMITS, type SelectionRow, type WheelRecord } from '@shared/stock-types';
 import type { RecipeEditorApi } from './recipe-editor-api';
 
 /** The stock the editor offers and checks against, with the lab's limits. */
@@ -13,13 +12,13 @@ export interface EditorStock {
   limits: LabLimits;
 }
 
-export const EMPTY_STOCK: EditorStock = { materials: [], machines: [], wheels: [], rows: [], limits: KERFBOOK_LAB_LIMITS };
+export const EMPTY_STOCK: EditorStock = { materials: [], machines: [], wheels: [], rows: [], limits: NO_LAB_LIMITS };
 
 /**
  * Everything the editor needs before it shows the form: the stock in use and, for an existing
  * recipe, its newest version. Archived stock that version still names is fetched by id, so it
  * shows by name and is checked. The selection table and the limits are optional: without them
- * there are no suggestions and no feed ceilings, and the worn wheel and kerf use Kerfbook's
+ * there are no suggestions, no table checks and no feed limits, and the worn wheel and kerf use Kerfbook's
  * defaults.
  */
 export async function loadEditorStart(api: RecipeEditorApi, recipeId: number | null): Promise<{ stock: EditorStock; latest: RecipeVersionDto | null }> {
@@ -30,7 +29,7 @@ export async function loadEditorStart(api: RecipeEditorApi, recipeId: number | n
         machines: api.machines(),
         wheels: api.wheels(),
         rows: api.selectionRows().pipe(catchError(() => of<SelectionRow[]>([]))),
-        limits: api.limits().pipe(catchError(() => of<LabLimits>(KERFBOOK_LAB_LIMITS))),
+        limits: api.limits().pipe(catchError(() => of<LabLimits>(NO_LAB_LIMITS))),
       }),
       recipeId === null ? of(null) : api.versions(recipeId),
     ]),

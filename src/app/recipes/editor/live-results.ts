@@ -3,6 +3,7 @@ import { toObservable, toSignal } from '@angular/core/rxjs-interop';
 import { combineLatest, debounceTime, map, startWith } from 'rxjs';
 import { type CheckResult, runChecks } from '@shared/recipe-checks';
 import type { RecipeContext } from '@shared/recipe-context';
+import { selectionRowsWithWheels } from '@shared/selection-table';
 import { type RecipeComputed, computeRecipe } from '@shared/recipe-computations';
 import type { EditorStock } from './editor-stock';
 import { type RecipeForm, type RecipeFormValue, toContent } from './recipe-form';
@@ -37,6 +38,8 @@ export function liveResults(form: RecipeForm, stock: Signal<EditorStock>, value:
           machine: s.machines.find((m) => m.id === content.cutting.machineId) ?? null,
           wheel: s.wheels.find((w) => w.id === content.cutting.wheelId) ?? null,
           limits: s.limits,
+          // Built as the server builds it, so the live checks say what the server will.
+          selectionRows: selectionRowsWithWheels(s.rows, s.wheels),
         };
         const computed = computeRecipe(content, ctx);
         return { computed, checks: runChecks(content, ctx, computed), at: value() };

@@ -3,10 +3,12 @@ import { HttpTestingController, type TestRequest, provideHttpClientTesting } fro
 import { signal } from '@angular/core';
 import { type ComponentFixture, TestBed } from '@angular/core/testing';
 import { Router, provideRouter } from '@angular/router';
+import { TestbedHarnessEnvironment } from '@angular/cdk/testing/testbed';
+import { MatSelectHarness } from '@angular/material/select/testing';
 import type { UserDto } from '@shared/api-types';
 import type { RecipeVersionDto } from '@shared/recipe-types';
 import type { SaveDraftBody } from '@shared/schemas/recipe';
-import type { LabLimits, MachineRecord, MaterialRecord, SelectionRow, WheelRecord } from '@shared/stock-types';
+import { type LabLimits, type MachineRecord, type MaterialRecord, NO_LAB_LIMITS, type SelectionRow, type WheelRecord } from '@shared/stock-types';
 import { aUser } from '../../../testing/user-fixture';
 import { errorInterceptor } from '../../core/http/error-interceptor';
 import { Notifier } from '../../core/notifier/notifier';
@@ -24,6 +26,7 @@ const MATERIAL: MaterialRecord = {
   condition: 'quenched and tempered',
   hardness: { value: 32, scale: 'HRC' },
   coated: false,
+  coatingHardness: null,
   caseHardened: false,
   caseDepthMm: null,
   heatSensitive: false,
@@ -32,6 +35,14 @@ const MATERIAL: MaterialRecord = {
   notes: '',
   archived: false,
   updatedAt: '2026-10-02T09:00:00.000Z',
+};
+/** A sprayed shaft: the editor asks where the wheel enters and leaves it. */
+const COATED: MaterialRecord = {
+  ...MATERIAL,
+  id: 6,
+  name: 'Sprayed Cr-Mo shaft',
+  coated: true,
+  coatingHardness: { value: 1150, scale: 'HV' },
 };
 const MACHINE: MachineRecord = {
   id: 1,
@@ -76,11 +87,9 @@ const WHEEL: WheelRecord = {
 };
 const ROWS: SelectionRow[] = [{ id: 1, group: 'plain-low-alloy-steel', hardness: null, wheelId: 2, note: '' }];
 const LIMITS: LabLimits = {
-  feedCeilingsMmS: { 'plain-low-alloy-steel': 1 },
-  wornDiameterShare: 0.7,
-  kerfAllowanceMm: 0.2,
+  ...NO_LAB_LIMITS,
+  feedCeilings: [{ group: 'plain-low-alloy-steel', hardness: null, machineClass: 'bench-abrasive', maxFeedMmS: 1 }],
   specificEnergyJMm3: { 'plain-low-alloy-steel': 30 },
-  powerWarningPct: 80,
 };
 
 function aDraft(overrides: Partial<RecipeVersionDto> = {}): RecipeVersionDto {
@@ -121,6 +130,7 @@ function aDraft(overrides: Partial<RecipeVersionDto> = {}): RecipeVersionDto {
         softInserts: false,
         supportBlocks: false,
         orientationRule: '',
+        wheelPath: null,
       },
       coolant: { type: 'water-soluble', concentrationPct: 4, flowLMin: 8 },
       instructionsMd: '1. Clamp the bar.\n2. Start the coolant.',
@@ -167,7 +177,7 @@ describe('RecipeEditor', () => {
     root = fixture.nativeElement;
     await fixture.whenStable();
     const page = (items: unknown[]) => ({ items, total: items.length, page: 0, pageSize: 200 });
-    backend.expectOne((r) => r.url === '/api/materials').flush(page([MATERIAL]));
+    backend.expectOne((r) => r.url === '/api/materials').flush(page([MATERIAL, COATED]));
     backend.expectOne((r) => r.url === '/api/machines').flush(page([MACHINE]));
     backend.expectOne((r) => r.url === '/api/wheels').flush(page([WHEEL]));
     backend.expectOne('/api/selection-rows').flush(ROWS);
@@ -369,6 +379,54 @@ describe('RecipeEditor', () => {
     await open('3', [aDraft()], aUser({ units: 'metric+imperial' }));
     expect(text('mat-hint', field('f-scope-sizeMaxMm').closest('mat-form-field')!)).toBe('= 40.0 mm (1.575 in)');
     expect(text('mat-hint', field('f-cutting-feedMmS').closest('mat-form-field')!)).toBe('= 0.50 mm/s (1.18 in/min)');
+  });
+
+  describe('wheel path through a coating', () => {
+    async function chooseWheelPath(option: string): Promise<void> {
+      const loader = TestbedHarnessEnvironment.loader(fixture);
+      const select = await loader.getHarness(MatSelectHarness.with({ selector: '#f-clamping-wheelPath' }));
+      await select.clickOptions({ text: option });
+    }
+
+    it('is asked for a coated material only', async () => {
+      await open('3', [aDraft()]);
+      expect(root.querySelector('#f-clamping-wheelPath')).toBeNull();
+      fixture.componentInstance['form'].controls.content.controls.scope.controls.materialId.setValue(6);
+      await until(() => expect(root.querySelector('#f-clamping-wheelPath')).not.toBeNull());
+    });
+
+    /** A draft of the coated material, stored as an older Kerfbook stored it: no wheelPath key. */
+    function olderCoatedDraft(): RecipeVersionDto {
+      const draft = aDraft();
+      draft.content.scope.materialId = 6;
+      delete (draft.content.clamping as Partial<typeof draft.content.clamping>).wheelPath;
+      return draft;
+    }
+
+    it('loads content stored without it as "not given", unchanged, with the live warning that it is missing', async () => {
+      await open('3', [olderCoatedDraft()]);
+      await until(() => expect(root.querySelector('#f-clamping-wheelPath')).not.toBeNull());
+      expect(fixture.componentInstance['form'].controls.content.controls.clamping.controls.wheelPath.value).toBeNull();
+      // Loading older content is not a change.
+      expect(text('[data-testid="save-status"]')).not.toContain('Unsaved');
+      await until(() => expect(root.querySelector('[data-check="orientation-rule-missing"]')).not.toBeNull());
+      expect(text('.kb-check-message', root.querySelector('[data-check="orientation-rule-missing"]')!)).toContain('where the wheel enters and leaves');
+    });
+
+    it('warns live when the chosen path leaves through the coating, and saves the path chosen', async () => {
+      await open('3', [olderCoatedDraft()]);
+      await chooseWheelPath('Enters through the substrate, leaves through the coating');
+      await until(() => expect(root.querySelector('[data-check="wheel-exits-coating"]')).not.toBeNull());
+      expect(root.querySelector('[data-check="orientation-rule-missing"]')).toBeNull();
+      expect(text('.kb-check-message', root.querySelector('[data-check="wheel-exits-coating"]')!)).toContain('peels the coating');
+
+      fixture.componentInstance['form'].controls.content.controls.clamping.controls.wheelPath.setValue('enters-coating');
+      await until(() => expect(root.querySelector('[data-check="wheel-exits-coating"]')).toBeNull());
+      clickSave();
+      const req = await vi.waitFor(() => backend.expectOne({ method: 'PUT', url: '/api/recipes/3/versions/1' }));
+      expect((req.request.body as SaveDraftBody).content.clamping.wheelPath).toBe('enters-coating');
+      req.flush(aDraft({ revision: 5 }));
+    });
   });
 
   it('creates a new recipe with POST and moves on to its edit page', async () => {

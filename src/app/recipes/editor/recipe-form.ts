@@ -1,7 +1,7 @@
 import { type AbstractControl, FormGroup, type NonNullableFormBuilder, type ValidationErrors, type ValidatorFn, Validators } from '@angular/forms';
 import type { QuantityKind } from '@shared/units';
 import { type RecipeContent, recipeContent } from '@shared/schemas/recipe';
-import type { ClampingMethod, CoolantType, CutMotion, CutOrientation, HardnessScale, MaterialGroup, Shape } from '@shared/vocabulary';
+import type { ClampingMethod, CoolantType, CutMotion, CutOrientation, HardnessScale, MaterialGroup, Shape, WheelPath } from '@shared/vocabulary';
 import { requiredText } from '@shared/schemas/numbers';
 import { toFieldErrors } from '@shared/validation';
 import { zodValidator } from '../../core/forms/zod-validator';
@@ -52,6 +52,7 @@ export function buildRecipeForm(fb: NonNullableFormBuilder) {
         softInserts: fb.control(false),
         supportBlocks: fb.control(false),
         orientationRule: fb.control(''),
+        wheelPath: fb.control<WheelPath | null>(null),
       }),
       coolant: fb.group({
         type: fb.control<CoolantType>('water-soluble'),
@@ -133,7 +134,8 @@ export function fromContent(content: RecipeContent): FormContent {
       orientationNote: scope.orientationNote,
     },
     cutting: { ...content.cutting },
-    clamping: { ...content.clamping },
+    // Content stored before the wheel path existed has no key: "not given".
+    clamping: { ...content.clamping, wheelPath: content.clamping.wheelPath ?? null },
     coolant: { ...content.coolant },
     instructionsMd: content.instructionsMd,
     acceptanceMd: content.acceptanceMd,
@@ -253,6 +255,7 @@ export const FIELD_INFO: Record<string, FieldInfo> = {
   'clamping.softInserts': { label: 'Soft inserts' },
   'clamping.supportBlocks': { label: 'Support blocks' },
   'clamping.orientationRule': { label: 'Orientation rule' },
+  'clamping.wheelPath': { label: 'Wheel path through the coating' },
   'coolant.type': { label: 'Coolant' },
   'coolant.concentrationPct': { label: 'Concentration', unit: '% v/v' },
   'coolant.flowLMin': { label: 'Flow', unit: 'L/min' },

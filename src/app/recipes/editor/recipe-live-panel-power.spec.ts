@@ -1,7 +1,7 @@
 import { Component, signal } from '@angular/core';
 import { type ComponentFixture, TestBed } from '@angular/core/testing';
 import { computeRecipe, type RecipeComputed } from '@shared/recipe-computations';
-import { aMachine, aMaterial, aRecipeVersion, aWheel } from '../../../testing/stock-and-recipe-fixtures';
+import { aLabLimits, aMachine, aMaterial, aRecipeVersion, aWheel } from '../../../testing/stock-and-recipe-fixtures';
 import { RecipeLivePanel } from './recipe-live-panel';
 
 @Component({
@@ -23,7 +23,8 @@ function computedFor(motorPowerKw: number | null, powerWarningPct = 80, specific
     material: aMaterial(),
     wheel: aWheel(),
     machine: aMachine({ motorPowerKw }),
-    limits: { feedCeilingsMmS: {}, specificEnergyJMm3: specificEnergy === null ? {} : { 'plain-low-alloy-steel': specificEnergy }, powerWarningPct },
+    limits: aLabLimits({ specificEnergyJMm3: specificEnergy === null ? {} : { 'plain-low-alloy-steel': specificEnergy }, powerWarningPct }),
+    selectionRows: [],
   });
 }
 

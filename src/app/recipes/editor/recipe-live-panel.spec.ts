@@ -24,7 +24,7 @@ function content(over: { scope?: Partial<RecipeContent['scope']>; cutting?: Part
 }
 
 function context(over: Partial<RecipeContext> = {}): RecipeContext {
-  return { material: aMaterial(), wheel: aWheel(), machine: aMachine(), limits: aLabLimits(), ...over };
+  return { material: aMaterial(), wheel: aWheel(), machine: aMachine(), limits: aLabLimits(), selectionRows: [], ...over };
 }
 
 describe('RecipeLivePanel: capacity, worn wheel and kerf', () => {

@@ -28,7 +28,7 @@ const content = (over: { rpm?: number; hardness?: RecipeContent['scope']['hardne
       cutMotion: 'straight-plunge',
       passes: null,
     },
-    clamping: { method: 'v-block', placement: '', bothSides: true, softInserts: false, supportBlocks: false, orientationRule: '' },
+    clamping: { method: 'v-block', placement: '', bothSides: true, softInserts: false, supportBlocks: false, orientationRule: '', wheelPath: null },
     coolant: { type: 'water-soluble', concentrationPct: 4, flowLMin: null },
     instructionsMd: over.instructions ?? 'Clamp.',
     acceptanceMd: '',

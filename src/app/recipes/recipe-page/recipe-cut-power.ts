@@ -61,5 +61,5 @@ export class RecipeCutPower {
   protected readonly labels = CUT_POWER_LABELS;
   private readonly limits = labLimits();
 
-  protected readonly power = computed(() => computeRecipe(this.content(), { ...this.stock(), limits: this.limits() }).cutPower);
+  protected readonly power = computed(() => computeRecipe(this.content(), { ...this.stock(), limits: this.limits(), selectionRows: [] }).cutPower);
 }

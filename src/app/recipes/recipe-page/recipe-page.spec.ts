@@ -194,7 +194,7 @@ describe('RecipePage', () => {
     const tabs = await TestbedHarnessEnvironment.loader(harness.fixture).getHarness(MatTabGroupHarness);
     const selecting = tabs.selectTab({ label: 'Computed' });
     // The cutting power block asks for the lab's limits once the tab is open.
-    (await vi.waitFor(() => backend.expectOne('/api/settings/limits'))).flush({ feedCeilingsMmS: {}, specificEnergyJMm3: {}, powerWarningPct: 80 });
+    (await vi.waitFor(() => backend.expectOne('/api/settings/limits'))).flush(aLabLimits());
     await selecting;
     await harness.fixture.whenStable();
 
@@ -220,11 +220,7 @@ describe('RecipePage', () => {
     await harness.fixture.whenStable();
     const tabs = await TestbedHarnessEnvironment.loader(harness.fixture).getHarness(MatTabGroupHarness);
     const selecting = tabs.selectTab({ label: 'Computed' });
-    (await vi.waitFor(() => backend.expectOne('/api/settings/limits'))).flush({
-      feedCeilingsMmS: {},
-      specificEnergyJMm3: { 'plain-low-alloy-steel': 30 },
-      powerWarningPct: 80,
-    });
+    (await vi.waitFor(() => backend.expectOne('/api/settings/limits'))).flush(aLabLimits({ specificEnergyJMm3: { 'plain-low-alloy-steel': 30 } }));
     await selecting;
     await harness.fixture.whenStable();
 

@@ -27,6 +27,7 @@ import {
   WHEEL_KIND_LABELS,
   WHEEL_RESTRICTION_LABELS,
   type WheelRestriction,
+  WHEEL_PATH_LABELS,
 } from '@shared/vocabulary';
 import { askToAcknowledge } from '../../ui/acknowledge-dialog';
 import { mustAcknowledge } from '../../ui/acknowledgement-state';
@@ -206,7 +207,8 @@ export class RecipePage {
     const limits = this.labLimits();
     if (!version || !limits) return null;
     const { material, wheel, machine } = this.stockNames();
-    return computeRecipe(version.content, { material, wheel, machine, limits });
+    // The selection table only matters to the checks, which the server has already run on this content.
+    return computeRecipe(version.content, { material, wheel, machine, limits, selectionRows: [] });
   });
   /** The capacity in words, with the geometric limit that applies. */
   protected readonly capacity = computed(() => capacityWords(this.computed(), this.units()));
@@ -233,6 +235,7 @@ export class RecipePage {
   protected readonly machineClassLabel = MACHINE_CLASS_LABELS;
   protected readonly wheelKindLabel = WHEEL_KIND_LABELS;
   protected readonly coolantLabel = COOLANT_TYPE_LABELS;
+  protected readonly wheelPathLabel = WHEEL_PATH_LABELS;
   protected readonly orientationLabel = CUT_ORIENTATION_LABELS;
   protected readonly attachmentRoleLabel = ATTACHMENT_ROLE_LABELS;
   protected readonly restrictionsText = (marks: readonly WheelRestriction[]) =>

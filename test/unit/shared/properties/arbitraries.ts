@@ -7,7 +7,8 @@ import fc from 'fast-check';
 import type { RecipeContext } from '../../../../shared/recipe-context';
 import type { RecipeContent } from '../../../../shared/schemas/recipe';
 import type { HardnessWindow } from '../../../../shared/schemas/stock';
-import type { MachineRecord, MaterialRecord, WheelRecord } from '../../../../shared/stock-types';
+import type { FeedCeiling } from '../../../../shared/schemas/lab-settings';
+import type { LabLimits, MachineRecord, MaterialRecord, SelectionRowWheel, WheelRecord } from '../../../../shared/stock-types';
 import {
   CLAMPING_METHODS,
   COOLANT_TYPES,
@@ -19,7 +20,9 @@ import {
   MATERIAL_GROUPS,
   SHAPES,
   WHEEL_KINDS,
+  WHEEL_PATHS,
 } from '../../../../shared/vocabulary';
+import { CONVENTIONAL_BONDS } from '../../../../shared/wheel-spec';
 import { content, machine, material, wheel } from '../fixtures';
 
 /** Runs per property: enough to find edge cases, small enough for the whole folder to stay well under 30 s on 2 shared cores. */
@@ -117,7 +120,7 @@ export const validMarking = fc.oneof(
       fc.integer({ min: 1, max: 9999 }),
       fc.constantFrom(...'ABCDEFGHIJKLMNOPQRSTUVWXYZ'),
       fc.option(fc.integer({ min: 0, max: 99 }), { nil: null }),
-      fc.constantFrom('V', 'B', 'BF', 'R', 'E', 'M', 'S'),
+      fc.constantFrom(...CONVENTIONAL_BONDS),
     )
     .map(([a, grit, grade, structure, bond]) => `${a}${grit}${grade}${structure ?? ''}${bond}`),
   fc
@@ -200,13 +203,16 @@ export const validMaterial: fc.Arbitrary<MaterialRecord> = fc
     group,
     hardness: orNull(fc.record({ value: above(0, 3000), scale })),
     coated: fc.boolean(),
+    coatingHardness: orNull(fc.record({ value: above(0, 3000), scale })),
     caseHardened: fc.boolean(),
     caseDepthMm: above(0, 20),
     heatSensitive: fc.boolean(),
     hazardousDust: fc.boolean(),
     archived: fc.boolean(),
   })
-  .map(({ caseDepthMm, ...over }) => material({ ...over, caseDepthMm: over.caseHardened ? caseDepthMm : null }));
+  .map(({ caseDepthMm, coatingHardness, ...over }) =>
+    material({ ...over, caseDepthMm: over.caseHardened ? caseDepthMm : null, coatingHardness: over.coated ? coatingHardness : null }),
+  );
 
 /** Content that recipeContent accepts: every combination of shape, motion, coolant and the number ranges. */
 export const validContent: fc.Arbitrary<RecipeContent> = fc
@@ -225,9 +231,13 @@ export const validContent: fc.Arbitrary<RecipeContent> = fc
     cutMotion: motion,
     passes: orNull(fc.integer({ min: 1, max: 500 })),
     method: orNull(fc.constantFrom(...CLAMPING_METHODS)),
+    bothSides: fc.boolean(),
     orientationRule: fc.string({ maxLength: 30 }),
+    wheelPath: orNull(fc.constantFrom(...WHEEL_PATHS)),
     coolant: fc.constantFrom(...COOLANT_TYPES),
     concentrationPct: above(0, 100),
+    // 0 L/min is valid content (the checks say what it means).
+    flowLMin: orNull(fc.oneof(fc.constant(0), finite(0, 200))),
   })
   .map((r) => {
     const sizeMinMm = Math.min(...r.sizes);
@@ -251,25 +261,59 @@ export const validContent: fc.Arbitrary<RecipeContent> = fc
         cutMotion: r.cutMotion,
         passes: r.passes,
       },
-      clamping: { method: r.method, orientationRule: r.orientationRule.trim() },
-      coolant: { type: r.coolant, concentrationPct: r.coolant === 'water-soluble' ? r.concentrationPct : null },
+      clamping: { method: r.method, bothSides: r.bothSides, orientationRule: r.orientationRule.trim(), wheelPath: r.wheelPath },
+      coolant: {
+        type: r.coolant,
+        concentrationPct: r.coolant === 'water-soluble' ? r.concentrationPct : null,
+        flowLMin: r.coolant === 'dry' ? null : r.flowLMin,
+      },
     });
   })
   .filter((c) => c.scope.shape !== 'tube' || (c.scope.wallMm! > 0 && 2 * c.scope.wallMm! < c.scope.sizeMinMm));
+
+/** A plunge-feed ceiling as the settings schema allows it. */
+export const validFeedCeiling: fc.Arbitrary<FeedCeiling> = fc.record({
+  group,
+  hardness: orNull(hardnessWindow),
+  machineClass: fc.constantFrom(...MACHINE_CLASSES),
+  maxFeedMmS: above(0, 50),
+});
+
+/** The lab's limits as getLabLimits hands them over (validated), possibly empty. */
+export const validLimits: fc.Arbitrary<LabLimits> = fc.record({
+  feedCeilings: fc.array(validFeedCeiling, { maxLength: 8 }),
+  traverseRemovalCeilings: fc.dictionary(group, above(0, 10000), { maxKeys: 4 }),
+  longContactMm: orNull(above(0, 2000)),
+  // A share a lab would set (a wheel worn to a tenth or to almost nothing is not one), any allowance from 0 to 2 mm.
+  wornDiameterShare: finite(0.1, 0.99),
+  kerfAllowanceMm: finite(0, 2),
+  specificEnergyJMm3: fc.dictionary(group, above(0, 1000), { maxKeys: 6 }),
+  powerWarningPct: above(0, 200),
+});
+
+/** Selection-table rows with their wheel (markings that parse, and now and then one that does not). */
+export const validSelectionRows: fc.Arbitrary<SelectionRowWheel[]> = fc.array(
+  fc.record({
+    id: fc.integer({ min: 1, max: 1000 }),
+    group,
+    hardness: orNull(hardnessWindow),
+    wheelId: fc.integer({ min: 1, max: 1000 }),
+    note: fc.constant(''),
+    wheel: fc.record({
+      kind: fc.constantFrom(...WHEEL_KINDS),
+      specification: fc.oneof({ weight: 5, arbitrary: validMarking }, { weight: 1, arbitrary: oddText }),
+    }),
+  }),
+  { maxLength: 8 },
+);
 
 /** A context with valid stock, any of which may be missing (a draft not finished yet). */
 export const validContext: fc.Arbitrary<RecipeContext> = fc.record({
   material: orNull(validMaterial),
   wheel: orNull(validWheel),
   machine: orNull(validMachine),
-  limits: fc.record({
-    feedCeilingsMmS: fc.dictionary(group, above(0, 50), { maxKeys: 4 }),
-    // A share a lab would set (a wheel worn to a tenth or to almost nothing is not one), any allowance from 0 to 2 mm.
-    wornDiameterShare: finite(0.1, 0.99),
-    kerfAllowanceMm: finite(0, 2),
-    specificEnergyJMm3: fc.dictionary(group, above(0, 1000), { maxKeys: 6 }),
-    powerWarningPct: above(0, 200),
-  }),
+  limits: validLimits,
+  selectionRows: validSelectionRows,
 });
 
 /** Dotted paths of the content's number and text leaves. */
@@ -298,7 +342,16 @@ const NUMBER_AND_TEXT_LEAVES = [
 ] as const;
 
 /** Dotted paths of the content's choices (selects and the hardness window). */
-const CHOICE_LEAVES = ['scope.group', 'scope.hardness', 'scope.shape', 'scope.orientation', 'cutting.cutMotion', 'clamping.method', 'coolant.type'] as const;
+const CHOICE_LEAVES = [
+  'scope.group',
+  'scope.hardness',
+  'scope.shape',
+  'scope.orientation',
+  'cutting.cutMotion',
+  'clamping.method',
+  'clamping.wheelPath',
+  'coolant.type',
+] as const;
 
 /**
  * Half-typed content, as the editor's form hands it over on every keystroke: the structure

@@ -4,7 +4,8 @@ import { CHECK_IDS, runChecks, worstSeverity, type CheckResult, type CheckSeveri
 import { computeRecipe } from '../../../../shared/recipe-computations';
 import { contentLeafPaths } from '../../../../shared/recipe-compare';
 import { content as fixtureContent } from '../fixtures';
-import { halfTypedContent, RUNS_HEAVY, staleChoiceContent, validContent, validContext } from './arbitraries';
+import { parseWheelSpec } from '../../../../shared/wheel-spec';
+import { halfTypedContent, oddText, RUNS_HEAVY, staleChoiceContent, validContent, validContext } from './arbitraries';
 
 const RANK: Record<CheckSeverity, number> = { blocker: 0, warning: 1, note: 2 };
 /** The content's field paths (and the hardness window whole), where a check may point. */
@@ -52,7 +53,45 @@ describe('shared/recipe-checks (properties)', () => {
         const powerKnown = ctx.machine !== null && p !== null && p.peakPowerW !== null;
         expect(ids.has('cutting-power-high')).to.equal(powerKnown && p.motorSharePct !== null && p.motorSharePct > p.warningSharePct);
         expect(ids.has('motor-power-unknown')).to.equal(powerKnown && p.motorSharePct === null);
+        expect(ids.has('coolant-flow-zero')).to.equal(c.coolant.type !== 'dry' && c.coolant.flowLMin === 0);
+        expect(ids.has('clamping-one-side')).to.equal(
+          !c.clamping.bothSides && c.clamping.method !== 'adhesive-wax-mount' && !(ctx.wheel?.kind === 'rim' && ctx.machine?.machineClass === 'precision'),
+        );
+        expect(ids.has('wheel-exits-coating')).to.equal(
+          ctx.material?.coated === true && (c.clamping.wheelPath === 'exits-coating' || c.clamping.wheelPath === 'enters-and-exits-coating'),
+        );
+        expect(ids.has('wheel-marking-unparsed')).to.equal(false); // valid stock: every marking parses
+        // A traverse pass is judged by its removal per mm of wheel width, a plunge by the feed ceilings: never both.
+        if (c.cutting.cutMotion === 'traverse-pass') expect(ids.has('feed-above-ceiling')).to.equal(false);
+        else expect(ids.has('traverse-removal-above-ceiling')).to.equal(false);
+        if (c.cutting.cutMotion !== 'straight-plunge') expect(ids.has('long-plunge-contact')).to.equal(false);
+        expect(ids.has('wheel-bond-too-hard') && ids.has('wheel-bond-too-soft')).to.equal(false);
       }),
+      { numRuns: RUNS_HEAVY },
+    );
+  });
+
+  it('a wheel marking that does not parse is said in a note naming the wheel, and the table checks skip it', () => {
+    fc.assert(
+      // A marking typed as "NaN" would be quoted as typed: left out, so the well-formedness check stays about computed numbers.
+      fc.property(
+        validContent,
+        validContext,
+        oddText.filter((m) => !/NaN|undefined|Infinity|\[object/.test(m)),
+        (c, ctx, marking) => {
+          fc.pre(ctx.wheel !== null);
+          const odd = { ...ctx, wheel: { ...ctx.wheel!, specification: marking } };
+          const results = runChecks(c, odd);
+          expectWellFormed(results);
+          const ids = results.map((r) => r.id);
+          const parses = parseWheelSpec(marking).ok;
+          expect(ids.includes('wheel-marking-unparsed')).to.equal(!parses);
+          if (!parses) {
+            expect(results.find((r) => r.id === 'wheel-marking-unparsed')!.message).to.contain(`"${odd.wheel.name}"`);
+            expect(ids).to.not.include.members(['wheel-abrasive-unsuited', 'wheel-bond-too-hard', 'wheel-bond-too-soft']);
+          }
+        },
+      ),
       { numRuns: RUNS_HEAVY },
     );
   });

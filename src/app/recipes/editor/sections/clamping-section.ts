@@ -6,13 +6,16 @@ import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
 import type { CheckResult } from '@shared/recipe-checks';
 import type { MachineRecord, MaterialRecord } from '@shared/stock-types';
-import { CLAMPING_METHODS, CLAMPING_METHOD_LABELS } from '@shared/vocabulary';
+import { CLAMPING_METHODS, CLAMPING_METHOD_LABELS, WHEEL_PATHS, WHEEL_PATH_LABELS } from '@shared/vocabulary';
 import { controlMessage } from '../../../core/forms/control-message';
 import type { ClampingGroup, FormContent } from '../recipe-form';
 import { InlineChecks } from './inline-checks';
 import { offeredOptions } from './offered-options';
 
-/** Clamping: the method (of those the machine has), where the clamps go, and how the part is oriented in them. */
+/**
+ * Clamping: the method (of those the machine has), where the clamps go, and how the part is
+ * oriented in them; for a coated material, where the wheel enters and leaves it.
+ */
 @Component({
   selector: 'kb-clamping-section',
   imports: [InlineChecks, MatCheckboxModule, MatFormFieldModule, MatInputModule, MatSelectModule, ReactiveFormsModule],
@@ -49,12 +52,26 @@ import { offeredOptions } from './offered-options';
         <mat-checkbox id="f-clamping-softInserts" [formControl]="c.softInserts">Soft inserts</mat-checkbox>
         <mat-checkbox id="f-clamping-supportBlocks" [formControl]="c.supportBlocks">Support blocks</mat-checkbox>
       </div>
+      @if (showWheelPath()) {
+        <mat-form-field class="kb-wide">
+          <mat-label>Wheel path through the coating</mat-label>
+          <mat-select id="f-clamping-wheelPath" [formControl]="c.wheelPath" data-testid="wheel-path">
+            <mat-option [value]="null">Not given</mat-option>
+            @for (o of wheelPaths; track o.value) {
+              <mat-option [value]="o.value">{{ o.label }}</mat-option>
+            }
+          </mat-select>
+          <mat-hint>Cut so the wheel enters through the coating and presses it onto the substrate; leaving through it peels it off.</mat-hint>
+        </mat-form-field>
+      }
       <mat-form-field class="kb-wide">
         <mat-label>Orientation rule</mat-label>
         <input matInput id="f-clamping-orientationRule" [formControl]="c.orientationRule" maxlength="500" />
         <mat-hint>
-          @if (material()?.coated || material()?.caseHardened) {
-            This material has a surface layer: say which way the wheel enters, e.g. "through the coating, so it is pressed onto the substrate".
+          @if (material()?.coated) {
+            Optional beside the wheel path, e.g. "coated band up, wheel enters at the top".
+          } @else if (material()?.caseHardened) {
+            This material has a surface layer: say which way the wheel enters, e.g. "at the tooth tip, towards the core".
           } @else {
             Optional, e.g. "wheel enters through the coating so it is pressed onto the substrate".
           }
@@ -74,6 +91,10 @@ export class ClampingSection {
   readonly checks = input<readonly CheckResult[]>();
 
   protected readonly controlMessage = controlMessage;
+
+  protected readonly wheelPaths = WHEEL_PATHS.map((value) => ({ value, label: WHEEL_PATH_LABELS[value] }));
+  /** The wheel path is asked for a coated material, and shown wherever one was given (a material changed since). */
+  protected readonly showWheelPath = computed(() => this.material()?.coated === true || (this.value().wheelPath ?? null) !== null);
 
   protected readonly options = computed(() => offeredOptions(CLAMPING_METHODS, this.machine()?.clampingMethods, this.value().method, CLAMPING_METHOD_LABELS));
 }

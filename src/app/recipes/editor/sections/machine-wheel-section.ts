@@ -56,7 +56,9 @@ export class MachineWheelSection {
     }
     // Wheels the chosen machine takes come first; the others stay visible, marked.
     const fits = (w: WheelRecord) => this.fits(w);
-    const all = suggestWheels(scope.group, hardness, this.selectionRows(), this.wheels());
+    // A coated material's coating is cut too: the suggestion weighs its hardness as well.
+    const coating = material?.coated ? (material.coatingHardness ?? null) : null;
+    const all = suggestWheels(scope.group, hardness, this.selectionRows(), this.wheels(), coating);
     return [...all.filter((s) => fits(s.wheel)), ...all.filter((s) => !fits(s.wheel))].slice(0, 3).map((s) => ({ ...s, fits: fits(s.wheel) }));
   });
 
