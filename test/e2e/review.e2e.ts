@@ -102,6 +102,8 @@ describe('review workflow in chromium', () => {
     await openRecipe(page);
     await page.getByRole('link', { name: 'Review' }).click();
     await page.waitForURL(/\/review/);
+    // The checks and the buttons render together: wait for them before ticking the warnings.
+    await page.getByRole('button', { name: 'Approve…' }).waitFor();
     for (const box of await page.getByRole('checkbox', { name: 'I have considered this warning' }).all()) await box.check();
     await page.getByRole('button', { name: 'Approve…' }).click();
     const dialog = page.getByRole('dialog');

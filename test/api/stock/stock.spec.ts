@@ -382,7 +382,15 @@ describe('Stock: materials, wheels, machines', () => {
   describe('lab limits', () => {
     it('gives the feed limits from the settings: ceilings by group × hardness band × machine class, traverse removal ceilings, the long-contact length', async () => {
       const res = await operator.agent.get('/api/settings/limits').expect(200);
-      expect(Object.keys(res.body).sort()).to.deep.equal(['feedCeilings', 'longContactMm', 'traverseRemovalCeilings']);
+      expect(Object.keys(res.body).sort()).to.deep.equal([
+        'feedCeilings',
+        'kerfAllowanceMm',
+        'longContactMm',
+        'powerWarningPct',
+        'specificEnergyJMm3',
+        'traverseRemovalCeilings',
+        'wornDiameterShare',
+      ]);
       const rows = res.body.feedCeilings as FeedCeiling[];
       const of = (group: string, machineClass: string) => rows.filter((c) => c.group === group && c.machineClass === machineClass);
       // The starting values the data migration carried over from the per-group ceilings (common practice; band limits from memory).
@@ -415,7 +423,8 @@ describe('Stock: materials, wheels, machines', () => {
           .where({ id: 1 })
           .update({ feed_limits_json: JSON.stringify(stored), long_contact_mm: 0 });
         const res = await operator.agent.get('/api/settings/limits').expect(200);
-        expect(res.body).to.deep.equal({
+        const { feedCeilings, traverseRemovalCeilings, longContactMm } = res.body;
+        expect({ feedCeilings, traverseRemovalCeilings, longContactMm }).to.deep.equal({
           feedCeilings: [{ group: 'copper', hardness: null, machineClass: 'precision', maxFeedMmS: 0.1 }],
           traverseRemovalCeilings: { copper: 30 },
           longContactMm: null,
