@@ -122,6 +122,7 @@ describe('RecipePage', () => {
     (await vi.waitFor(() => backend.expectOne('/api/materials/5'))).flush(aMaterial({ name: 'Ti-6Al-4V', group: 'titanium', combustibleFines: true }));
     backend.expectOne('/api/wheels/2').flush(aWheel({ restrictions: ['no-side-grinding'] }));
     backend.expectOne('/api/machines/1').flush(aMachine());
+    backend.expectOne('/api/settings/limits').flush(aLabLimits());
     await harness.fixture.whenStable();
 
     // 60 000·80/(π·250) = 6111.5 rpm, floored.
@@ -192,10 +193,8 @@ describe('RecipePage', () => {
     await answerVersions([draft, approved]);
     await answerStock();
     const tabs = await TestbedHarnessEnvironment.loader(harness.fixture).getHarness(MatTabGroupHarness);
-    const selecting = tabs.selectTab({ label: 'Computed' });
-    // The cutting power block asks for the lab's limits once the tab is open.
-    (await vi.waitFor(() => backend.expectOne('/api/settings/limits'))).flush(aLabLimits());
-    await selecting;
+    // The page asked for the lab's limits once (answerStock); the tab's blocks share that answer.
+    await tabs.selectTab({ label: 'Computed' });
     await harness.fixture.whenStable();
 
     // π × 250 mm × 3000 rpm / 60 000 = 39.27 m/s; 80 − 39.27 = 40.73 m/s to spare.
@@ -217,11 +216,10 @@ describe('RecipePage', () => {
     (await vi.waitFor(() => backend.expectOne('/api/materials/5'))).flush(aMaterial());
     backend.expectOne('/api/wheels/2').flush(aWheel());
     backend.expectOne('/api/machines/1').flush(aMachine({ motorPowerKw: 2.2 }));
+    backend.expectOne('/api/settings/limits').flush(aLabLimits({ specificEnergyJMm3: { 'plain-low-alloy-steel': 30 } }));
     await harness.fixture.whenStable();
     const tabs = await TestbedHarnessEnvironment.loader(harness.fixture).getHarness(MatTabGroupHarness);
-    const selecting = tabs.selectTab({ label: 'Computed' });
-    (await vi.waitFor(() => backend.expectOne('/api/settings/limits'))).flush(aLabLimits({ specificEnergyJMm3: { 'plain-low-alloy-steel': 30 } }));
-    await selecting;
+    await tabs.selectTab({ label: 'Computed' });
     await harness.fixture.whenStable();
 
     // Ø40 bar, 1.5 mm wheel, 0.5 mm/s: Q = 30 mm³/s; × 30 J/mm³ = 900 W (P = Q·u, Malkin & Guo), 41 % of 2.2 kW;
