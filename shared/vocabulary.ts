@@ -266,3 +266,34 @@ export const WHEEL_PATH_LABELS: Record<WheelPath, string> = {
   'enters-and-exits-coating': 'Enters and leaves through the coating (coated all round, cut straight through)',
   'not-applicable': 'Not applicable: the cut does not cross the coating',
 };
+
+/** How dates read on every screen, chosen by the lab; the stored value is the id. */
+export const DATE_FORMATS = ['iso', 'dmy-dot', 'dmy-slash', 'mdy-slash'] as const;
+export type DateFormat = (typeof DATE_FORMATS)[number];
+
+export const DATE_FORMAT_LABELS: Record<DateFormat, string> = {
+  iso: 'Year-month-day, 2026-12-05 (ISO 8601)',
+  'dmy-dot': 'Day.month.year, 05.12.2026',
+  'dmy-slash': 'Day/month/year, 05/12/2026',
+  'mdy-slash': 'Month/day/year, 12/05/2026',
+};
+
+/** Paper the bench sheet is laid out for. */
+export const SHEET_PAPERS = ['A4', 'Letter'] as const;
+export type SheetPaper = (typeof SHEET_PAPERS)[number];
+
+export const SHEET_PAPER_LABELS: Record<SheetPaper, string> = {
+  A4: 'A4 (210 × 297 mm, ISO 216)',
+  Letter: 'US Letter (8.5 × 11 in)',
+};
+
+/** The lab's default units for people who have not chosen their own. */
+export const UNIT_PREFERENCES = ['metric', 'metric+imperial'] as const;
+
+export const UNIT_PREFERENCE_LABELS: Record<(typeof UNIT_PREFERENCES)[number], string> = {
+  metric: 'Metric',
+  'metric+imperial': 'Metric, with imperial beside it',
+};
+
+/** The trail's word for a change of the lab's settings. */
+export const LAB_SETTINGS_EVENT_LABEL = 'Lab settings changed';

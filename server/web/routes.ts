@@ -6,6 +6,7 @@
  * parameterised ones.
  */
 import { attachmentFields } from '../../shared/schemas/attachment';
+import { labSettingsBody } from '../../shared/schemas/lab-settings';
 import { forgotPasswordBody, linkTokenBody, notificationPreferencesBody, setPasswordBody } from '../../shared/schemas/mail';
 import { cutRecordBody, cutSearchQuery, finderQuery } from '../../shared/schemas/operator';
 import { checkCodeParams, cutParams, idParams, versionAttachmentParams, versionParams } from '../../shared/schemas/params';
@@ -105,6 +106,8 @@ const table = [
   { method: 'delete', path: '/api/selection-rows/:id', summary: 'Remove a row of the wheel-selection table.', access: STOCK_EDITORS, params: idParams, answers: '204', handler: selectionRows.remove },
 
   { method: 'get', path: '/api/settings/limits', summary: 'The lab\'s limits the checks use: plunge-feed ceilings by material group, hardness band and machine class; traverse removal ceilings per mm of wheel width; the long-contact length; the worn wheel\'s default share of the new diameter and the kerf allowance; specific cutting energy per material group and the motor power share that warns.', access: 'signedIn', answers: '200 json: LabLimits', handler: settings.limits },
+  { method: 'get', path: '/api/settings/lab', summary: 'The lab\'s settings: name, bench sheet paper, review interval, default units, date format and every limit the checks use, with the revision to send back when saving.', access: 'signedIn', answers: '200 json: LabSettingsDto', handler: settings.lab },
+  { method: 'put', path: '/api/settings/lab', summary: 'Change the lab\'s settings (all values at once); a save based on an older revision gets 409 with the current settings. Each change is written to the trail with its values before and after.', access: ['admin'], body: labSettingsBody, answers: '200 json: LabSettingsDto', handler: settings.updateLab },
 
   // Recipes and drafts. Only authors write; the server hands out numbers and runs the checks.
   { method: 'get', path: '/api/recipes', summary: 'The library: recipes a page at a time, sorted and filtered (operators see approved versions only).', access: 'signedIn', query: recipeListQuery, answers: '200 json: Page<RecipeSummary>', handler: recipes.list },

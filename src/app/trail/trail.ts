@@ -57,6 +57,7 @@ const SUGGESTED_TYPES = [
   'user.password_reset_requested',
   'session.signed_in',
   'session.sign_in_failed',
+  'lab_settings.changed',
 ];
 
 const ENTITY_LABELS: Record<string, string> = {
@@ -68,6 +69,7 @@ const ENTITY_LABELS: Record<string, string> = {
   machine: 'Machine',
   selection_row: 'Selection row',
   user: 'User',
+  lab_settings: 'Lab settings',
 };
 
 /** A trail row with what the table shows already worked out. */
