@@ -83,6 +83,13 @@ export const routes: Routes = [
         loadChildren: () => import('./people/people.routes').then((m) => m.peopleRoutes),
       },
       {
+        path: 'lab-settings',
+        title: 'Lab settings · Kerfbook',
+        canActivate: [accessGuard],
+        data: { access: ['admin'] } satisfies AccessData,
+        loadComponent: () => import('./lab-settings/lab-settings').then((m) => m.LabSettings),
+      },
+      {
         // Development only: the mails the local catcher received (the server answers 404 in production).
         path: 'outbox',
         title: 'Outbox · Kerfbook',
