@@ -178,6 +178,8 @@ export class LabSettings {
       powerWarningPct: settings.powerWarningPct,
       specificEnergyJMm3: perGroup(settings.specificEnergyJMm3),
       traverseRemovalCeilings: perGroup(settings.traverseRemovalCeilings),
+      // Named here too: a reset without them would empty the rows just added.
+      feedCeilings: settings.feedCeilings,
     });
   }
 
@@ -235,7 +237,7 @@ export class LabSettings {
     if (!parsed.success) {
       const rest = applyServerErrors(this.form, toFieldErrors(parsed.error));
       this.form.markAllAsTouched();
-      this.formError.set(['Nothing was saved: correct the values marked below.', ...rest].join(' '));
+      this.formError.set(['Nothing was saved: correct the values marked in red.', ...rest].join(' '));
       return;
     }
     this.busy.set(true);
