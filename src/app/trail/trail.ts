@@ -22,6 +22,8 @@ import { RecipeApi } from '../core/api/recipe-api';
 import { type ChangeSummary, fullJson, summariseChange } from './event-change';
 import { TrailApi } from './trail-api';
 import { TRAIL_PAGE_SIZE, type TrailParams, readTrailParams, recipeIdOf, toTrailFilters, toTrailQueryParams } from './trail-params';
+import { controlMessage } from '../core/forms/control-message';
+import { DecimalInput } from '../ui/decimal-input';
 
 /** How long the typed filters wait for a pause before the list changes. */
 export const TRAIL_TYPING_DEBOUNCE_MS = 400;
@@ -98,6 +100,7 @@ interface TrailLoad {
 @Component({
   selector: 'kb-trail',
   imports: [
+    DecimalInput,
     DatePipe,
     MatAutocompleteModule,
     MatButtonModule,
@@ -133,6 +136,7 @@ export class Trail {
   /** Admins may list people; an auditor types a user id instead. */
   protected readonly canListUsers = computed(() => hasAccess(this.session.roles(), ['admin']));
 
+  protected readonly controlMessage = controlMessage;
   protected readonly filters = this.fb.group({
     recipe: [this.params().recipe],
     userId: this.fb.control<number | null>(this.params().userId),

@@ -40,6 +40,7 @@ import { RecipeApi } from '../../core/api/recipe-api';
 import { StockApi } from '../../core/api/stock-api';
 import { FinderApi } from './finder-api';
 import { finderParams, isEmptyQuery, readFinderParams } from './finder-params';
+import { DecimalInput } from '../../ui/decimal-input';
 
 type Results = { state: 'idle' } | { state: 'loading' } | { state: 'failed'; message: string } | { state: 'ready'; hits: FinderHit[] };
 
@@ -57,6 +58,7 @@ function optionalNumber(schema: (typeof finderQuery.shape)['sizeMm' | 'hardnessV
 @Component({
   selector: 'kb-finder',
   imports: [
+    DecimalInput,
     MatAutocompleteModule,
     MatButtonModule,
     MatFormFieldModule,

@@ -375,6 +375,44 @@ describe('RecipeEditor', () => {
     expect(await answer).toBe(false);
   });
 
+  it('uploads a chosen photo at once; while it is not on the server the version cannot be submitted and leaving asks', async () => {
+    await open('3', [aDraft()]);
+    const submit = () => [...root.querySelectorAll<HTMLButtonElement>('button')].find((b) => b.textContent?.includes('Submit for review'))!;
+    await until(() => expect(submit().disabled).toBe(false));
+    const input = root.querySelector<HTMLInputElement>('#kb-photo-file')!;
+    Object.defineProperty(input, 'files', { value: [new File([new Uint8Array(512)], 'setup.png', { type: 'image/png' })], configurable: true });
+    input.dispatchEvent(new Event('change'));
+    // On its way without a second click; meanwhile the editor says so and holds the submit.
+    const upload = await vi.waitFor(() => backend.expectOne({ method: 'POST', url: '/api/recipes/3/versions/1/attachments' }));
+    await until(() => expect(text('[data-testid="photo-pending"]')).toMatch(/setup\.png is still uploading/));
+    expect(submit().disabled).toBe(true);
+    const answer = fixture.componentInstance.canLeave();
+    const dialog = await vi.waitFor(() => {
+      const el = document.querySelector<HTMLElement>('kb-confirm-dialog');
+      expect(el?.textContent).toContain('Leave without the photo?');
+      return el!;
+    });
+    [...dialog.querySelectorAll('button')].find((b) => b.textContent?.includes('Cancel'))!.click();
+    expect(await answer).toBe(false);
+
+    upload.flush({
+      id: 9,
+      role: 'setup',
+      caption: '',
+      fileName: 'setup.png',
+      mimeType: 'image/png',
+      sizeBytes: 512,
+      sha256: 'b'.repeat(64),
+      width: 64,
+      height: 48,
+      url: '/a/9',
+      thumbnailUrl: '/a/9/t',
+    });
+    await until(() => expect(root.querySelector('[data-testid="photo-pending"]')).toBeNull());
+    expect(submit().disabled).toBe(false);
+    expect(await fixture.componentInstance.canLeave()).toBe(true);
+  });
+
   it('shows imperial beside metric for people who asked for both', async () => {
     await open('3', [aDraft()], aUser({ units: 'metric+imperial' }));
     expect(text('mat-hint', field('f-scope-sizeMaxMm').closest('mat-form-field')!)).toBe('= 40.0 mm (1.575 in)');

@@ -47,6 +47,8 @@ import {
   toLibraryQueryParams,
   toRecipeListQuery,
 } from './library-params';
+import { controlMessage } from '../../core/forms/control-message';
+import { DecimalInput } from '../../ui/decimal-input';
 
 /** How long the text filters wait for typing to pause before the view changes. */
 export const LIBRARY_TYPING_DEBOUNCE_MS = 300;
@@ -55,6 +57,7 @@ export const LIBRARY_TYPING_DEBOUNCE_MS = 300;
 @Component({
   selector: 'kb-library',
   imports: [
+    DecimalInput,
     CheckSeverityLabel,
     DatePipe,
     MatButtonModule,
@@ -98,6 +101,7 @@ export class Library {
   protected readonly canCreate = computed(() => hasAccess(this.session.roles(), ['author']));
   protected readonly units = computed(() => this.session.user()?.units ?? 'metric');
 
+  protected readonly controlMessage = controlMessage;
   protected readonly filters = this.fb.group({
     q: [this.params().q],
     group: this.fb.control<MaterialGroup | ''>(this.params().group),

@@ -18,6 +18,7 @@ import { isApiError } from '../../core/http/api-error';
 import { callerHandles } from '../../core/http/caller-handles';
 import { CUT_OUTCOME_ICONS } from '../cut-outcome-label';
 import { CutsApi } from '../../core/api/cuts-api';
+import { DecimalInput } from '../decimal-input';
 
 /** The version the cut was made with. */
 export interface LogCutDialogData {
@@ -46,7 +47,7 @@ function notesWhenNotGood(group: AbstractControl): ValidationErrors | null {
  */
 @Component({
   selector: 'kb-log-cut-dialog',
-  imports: [MatButtonModule, MatDialogModule, MatFormFieldModule, MatIconModule, MatInputModule, MatRadioModule, ReactiveFormsModule],
+  imports: [DecimalInput, MatButtonModule, MatDialogModule, MatFormFieldModule, MatIconModule, MatInputModule, MatRadioModule, ReactiveFormsModule],
   templateUrl: './log-cut-dialog.html',
   styleUrl: './log-cut-dialog.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,

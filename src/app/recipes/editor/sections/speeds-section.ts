@@ -11,11 +11,12 @@ import { type CuttingGroup, type FormContent, MOTIONS_WITH_PASSES } from '../rec
 import { imperialHint } from './imperial-hint';
 import { InlineChecks } from './inline-checks';
 import { offeredOptions } from './offered-options';
+import { DecimalInput } from '../../../ui/decimal-input';
 
 /** Speeds and motion: wheel speed, feed, entry feed and the cut motion the machine offers. */
 @Component({
   selector: 'kb-speeds-section',
-  imports: [InlineChecks, MatFormFieldModule, MatInputModule, MatSelectModule, ReactiveFormsModule],
+  imports: [DecimalInput, InlineChecks, MatFormFieldModule, MatInputModule, MatSelectModule, ReactiveFormsModule],
   templateUrl: './speeds-section.html',
   styleUrl: './editor-section.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
