@@ -170,9 +170,18 @@ export interface TrailEventDto {
   before: unknown;
   after: unknown;
   clientAddress: string | null;
+  /** The record as people know it ("KB-0017 v1", a person's or a material's name); read, never chained. */
+  what: string;
   /** SHA-256 of the previous row and of this row (hex). */
   prevHash: string;
   hash: string;
+}
+
+/** A person as the trail's person filter lists them. */
+export interface PersonNameDto {
+  id: number;
+  displayName: string;
+  active: boolean;
 }
 
 export interface TrailPage {
