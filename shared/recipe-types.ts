@@ -22,6 +22,10 @@ export interface RecipeSummary {
   /** Worst check severity of the latest version, for a badge. */
   worstCheck: 'blocker' | 'warning' | 'note' | null;
   updatedAt: string;
+  /** The current version's periodic review date (YYYY-MM-DD, UTC), where the list reads it; null otherwise. */
+  reviewDueOn: string | null;
+  /** That date has passed (server's UTC day). */
+  reviewOverdue: boolean;
 }
 
 export interface RecipeVersionDto {

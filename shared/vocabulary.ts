@@ -355,3 +355,6 @@ export const TRAIL_ENTITY_LABELS: Record<string, string> = {
   selection_row: 'Selection row',
   user: 'Person',
 };
+
+/** The marker a recipe carries while its current version's periodic review date has passed. */
+export const REVIEW_OVERDUE_LABEL = 'Review overdue';
