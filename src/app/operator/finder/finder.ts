@@ -40,6 +40,7 @@ import { RecipeApi } from '../../core/api/recipe-api';
 import { StockApi } from '../../core/api/stock-api';
 import { FinderApi } from './finder-api';
 import { finderParams, isEmptyQuery, readFinderParams } from './finder-params';
+import { ReviewOverdueChip } from '../../ui/review-overdue-chip';
 
 type Results = { state: 'idle' } | { state: 'loading' } | { state: 'failed'; message: string } | { state: 'ready'; hits: FinderHit[] };
 
@@ -65,6 +66,7 @@ function optionalNumber(schema: (typeof finderQuery.shape)['sizeMm' | 'hardnessV
     MatProgressBarModule,
     MatSelectModule,
     ReactiveFormsModule,
+    ReviewOverdueChip,
     RouterLink,
   ],
   templateUrl: './finder.html',
