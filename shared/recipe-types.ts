@@ -22,6 +22,10 @@ export interface RecipeSummary {
   /** Worst check severity of the latest version, for a badge. */
   worstCheck: 'blocker' | 'warning' | 'note' | null;
   updatedAt: string;
+  /** The current version's periodic review date (YYYY-MM-DD, UTC), where the list reads it; null otherwise. */
+  reviewDueOn: string | null;
+  /** That date has passed (server's UTC day). */
+  reviewOverdue: boolean;
 }
 
 export interface RecipeVersionDto {
@@ -170,9 +174,18 @@ export interface TrailEventDto {
   before: unknown;
   after: unknown;
   clientAddress: string | null;
+  /** The record as people know it ("KB-0017 v1", a person's or a material's name); read, never chained. */
+  what: string;
   /** SHA-256 of the previous row and of this row (hex). */
   prevHash: string;
   hash: string;
+}
+
+/** A person as the trail's person filter lists them. */
+export interface PersonNameDto {
+  id: number;
+  displayName: string;
+  active: boolean;
 }
 
 export interface TrailPage {

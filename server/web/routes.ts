@@ -146,9 +146,10 @@ const table = [
   { method: 'get', path: '/api/attachments/:id/thumbnail', summary: 'The thumbnail of a stored photo (ETag; answers 304 to If-None-Match).', access: 'signedIn', params: idParams, answers: ['200 image: the thumbnail', '304'], handler: attachments.thumbnail },
 
   // The trail (auditors and admins read it; nobody writes it through the API).
-  { method: 'get', path: '/api/trail', summary: 'The trail, newest first, filtered by recipe, person, type and days; a page at a time by event id.', access: ['auditor', 'admin'], query: trailQuery, answers: '200 json: TrailPage', handler: trail.list },
+  { method: 'get', path: '/api/trail', summary: 'The trail, newest first, filtered by recipe, person, type, family of events and days (sign-ins can be left out), each event naming its record; a page at a time by event id.', access: ['auditor', 'admin'], query: trailQuery, answers: '200 json: TrailPage', handler: trail.list },
   { method: 'get', path: '/api/trail.csv', summary: 'The filtered trail as a CSV file.', access: ['auditor', 'admin'], query: trailQuery, answers: '200 csv: one line per event', handler: trail.csv },
   { method: 'get', path: '/api/trail/verify', summary: 'Recompute the trail\'s hash chain and name the first broken link, if any.', access: ['auditor', 'admin'], answers: '200 json: ChainVerification', handler: trail.verify },
+  { method: 'get', path: '/api/trail/people', summary: 'Everyone the trail can name (id, name, active), for filtering it by person.', access: ['auditor', 'admin'], answers: '200 json: { items: PersonNameDto[] }', handler: trail.people },
   { method: 'get', path: '/api/dev/outbox', summary: 'The mail outbox, newest first (development only: 404 in production).', access: ['admin'], answers: '200 json: { items: OutboxEntryDto[] }', handler: devOutbox.list },
 
   // What waits for people: periodic reviews coming due, and the signed-in person's Today lists.

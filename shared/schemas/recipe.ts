@@ -133,5 +133,7 @@ export const recipeListQuery = z.strictObject({
   size: z.coerce.number().positive().max(2000).optional(),
   /** A hardness the recipe must cover, in HV (converted client-side from other scales). */
   hardnessHv: z.coerce.number().positive().max(3000).optional(),
+  /** "overdue": only recipes whose current version's periodic review date has passed. */
+  review: z.enum(['overdue'], { error: 'Use review=overdue, or leave it out.' }).optional(),
 });
 export type RecipeListQuery = z.infer<typeof recipeListQuery>;

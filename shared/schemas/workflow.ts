@@ -6,6 +6,7 @@
 import { z } from 'zod';
 import { enteredPassword } from './fields';
 import { requiredText, text } from './numbers';
+import { TRAIL_FAMILIES } from '../vocabulary';
 
 const revision = z.number({ error: 'Revision is required.' }).int().min(0);
 
@@ -76,6 +77,10 @@ export const trailQuery = z.strictObject({
   recipeId: z.coerce.number().int().positive().optional(),
   userId: z.coerce.number().int().positive().optional(),
   type: z.string().trim().max(60).optional(),
+  /** A family of event types (recipes, signatures, stock, people, sign-ins, …). */
+  family: z.enum(TRAIL_FAMILIES, { error: `Choose one of: ${TRAIL_FAMILIES.join(', ')}.` }).optional(),
+  /** "true" leaves sign-ins, sign-outs and refused sign-ins out. */
+  hideSignIns: z.enum(['true', 'false'], { error: 'Use true or false.' }).optional(),
   /** Inclusive UTC dates. */
   from: isoDate.optional(),
   to: isoDate.optional(),

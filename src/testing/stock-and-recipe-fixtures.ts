@@ -95,6 +95,8 @@ export function aRecipeSummary(overrides: Partial<RecipeSummary> = {}): RecipeSu
     wheelName: 'Alumina 250 general steel',
     worstCheck: null,
     updatedAt: '2026-11-20T10:00:00.000Z',
+    reviewDueOn: null,
+    reviewOverdue: false,
     ...overrides,
   };
 }

@@ -7,6 +7,7 @@ import type { AttachmentMetaRow } from '../../data/attachments';
 import type { RecipeSummaryRow, VersionWithNames } from '../../data/recipes';
 import type { EditorRow, SignatureRow } from '../../data/workflow';
 import { dayOf } from '../../../shared/calendar-dates';
+import { reviewDue } from '../../../shared/review-due';
 import { toSignatureDto } from './signatures';
 
 /** The rows of other tables a version's workflow facts come from (for one or many versions). */
@@ -84,5 +85,6 @@ export function toRecipeSummary(row: RecipeSummaryRow): RecipeSummary {
     wheelName: row.wheel_name,
     worstCheck: row.worst_check,
     updatedAt: new Date(row.updated_at).toISOString(),
+    ...reviewDue(dayOf(row.review_due_on ?? null)),
   };
 }

@@ -34,6 +34,7 @@ import { changedKeys } from '../trail/changes';
 import { canSeeStatus, recipeNotFound, visibleVersion, type VersionScope } from '../operator/visibility';
 import { loadRecipeContext } from './context-loader';
 import { toRecipeSummary, toVersionDto } from './recipe-dto';
+import { utcDay } from '../../../shared/calendar-dates';
 import { RECIPE_STATUS_PHRASES, type HardnessScale, type MaterialGroup } from '../../../shared/vocabulary';
 
 export function formatRecipeNumber(n: number): string {
@@ -170,6 +171,7 @@ export async function listRecipes(db: Knex, query: RecipeListQuery, scope: Versi
     size: query.size,
     hardnessHv: query.hardnessHv,
     currentOnly: scope === 'released',
+    reviewDueBefore: query.review === 'overdue' ? utcDay(new Date()) : undefined,
   });
   return { items: rows.map(toRecipeSummary), total, page: query.page, pageSize: query.pageSize };
 }

@@ -20,7 +20,10 @@ describe('Today', () => {
   const lists: TodayDto = {
     myDrafts: [aRecipeSummary({ id: 4, number: 'KB-0004', title: 'Brass fittings, longitudinal', version: 1, status: 'draft' })],
     waitingForMyReview: [aRecipeSummary({ id: 5, number: 'KB-0005', title: 'Cast iron brake discs', version: 3, status: 'in-review' })],
-    reviewsDue: [{ ...aRecipeSummary({ id: 3, version: 2, status: 'approved' }), reviewDueOn: '2027-01-20' }],
+    reviewsDue: [
+      { ...aRecipeSummary({ id: 3, version: 2, status: 'approved' }), reviewDueOn: '2027-01-20' },
+      { ...aRecipeSummary({ id: 5, number: 'KB-0005', version: 1, status: 'approved' }), reviewDueOn: '2026-10-01', reviewOverdue: true },
+    ],
     flaggedCuts: [],
     toAcknowledge: [],
   };
@@ -67,6 +70,10 @@ describe('Today', () => {
     expect(draft.textContent).toContain('Brass fittings, longitudinal');
     expect(draft.getAttribute('href')).toBe('/recipes/4?v=1');
     expect(list('reviewsDue').textContent).toContain('review due 2027-01-20');
+    // Past its date: marked, once, on that recipe only.
+    const [due, overdue] = Array.from(list('reviewsDue').querySelectorAll('li'));
+    expect(due!.querySelector('kb-review-overdue-chip')).toBeNull();
+    expect(overdue!.querySelector('kb-review-overdue-chip')?.textContent).toContain('Review overdue');
   });
 
   it('shows an approver what waits for their review, linking to the review screen', async () => {

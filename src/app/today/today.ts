@@ -8,6 +8,7 @@ import type { RecipeSummary, TodayDto } from '@shared/recipe-types';
 import { ROLE_INFO, type Role, hasAccess } from '@shared/roles';
 import { shortDate } from '../core/dates/calendar';
 import { Session } from '../core/session/session';
+import { ReviewOverdueChip } from '../ui/review-overdue-chip';
 import { RecipeStatusChip } from '../ui/recipe-status-chip';
 import { WorkflowApi } from '../core/api/workflow-api';
 
@@ -22,6 +23,8 @@ interface TodayItem {
   status: RecipeSummary['status'] | null;
   /** A short fact beside the title (due date, count of flagged cuts, machine). */
   detail: string;
+  /** The periodic review date has passed: marked "Review overdue". */
+  overdue?: boolean;
 }
 
 interface TodayList {
@@ -48,7 +51,7 @@ const recipeItem = (r: RecipeSummary, detail: string): TodayItem => ({
 /** Home page: who you are here, and the work waiting for each of your roles. */
 @Component({
   selector: 'kb-today',
-  imports: [MatButtonModule, MatIconModule, MatProgressBarModule, RecipeStatusChip, RouterLink],
+  imports: [MatButtonModule, MatIconModule, MatProgressBarModule, RecipeStatusChip, ReviewOverdueChip, RouterLink],
   templateUrl: './today.html',
   styleUrl: './today.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -99,7 +102,7 @@ export class Today {
         title: 'Reviews due',
         icon: 'event_repeat',
         empty: 'No periodic review falls due in the next 60 days.',
-        items: t.reviewsDue.map((r) => recipeItem(r, `review due ${r.reviewDueOn}`)),
+        items: t.reviewsDue.map((r) => ({ ...recipeItem(r, `review due ${r.reviewDueOn}`), overdue: r.reviewOverdue })),
       });
     }
     const operator = has('operator');

@@ -41,6 +41,7 @@ import { StockApi } from '../../core/api/stock-api';
 import { FinderApi } from './finder-api';
 import { finderParams, isEmptyQuery, readFinderParams } from './finder-params';
 import { DecimalInput } from '../../ui/decimal-input';
+import { ReviewOverdueChip } from '../../ui/review-overdue-chip';
 
 type Results = { state: 'idle' } | { state: 'loading' } | { state: 'failed'; message: string } | { state: 'ready'; hits: FinderHit[] };
 
@@ -67,6 +68,7 @@ function optionalNumber(schema: (typeof finderQuery.shape)['sizeMm' | 'hardnessV
     MatProgressBarModule,
     MatSelectModule,
     ReactiveFormsModule,
+    ReviewOverdueChip,
     RouterLink,
   ],
   templateUrl: './finder.html',

@@ -50,6 +50,8 @@ import { ReviewComments } from '../review/review-comments';
 import { SignatureDialog, type SignatureDialogData, type SignatureDialogResult } from '../review/signature-dialog';
 import { SignatureList } from '../../ui/signature-list';
 import { utcToday } from '../../core/dates/calendar';
+import { isReviewOverdue } from '@shared/review-due';
+import { ReviewOverdueChip } from '../../ui/review-overdue-chip';
 import { WorkflowApi } from '../../core/api/workflow-api';
 import { MarkdownView } from '../../ui/markdown-view';
 import { LogCutDialog, type LogCutDialogData } from '../../ui/log-cut-dialog/log-cut-dialog';
@@ -71,6 +73,7 @@ const ATTACHMENT_ROLE_LABELS = { setup: 'Setup', 'good-face': 'Good cut face', '
 @Component({
   selector: 'kb-recipe-page',
   imports: [
+    ReviewOverdueChip,
     AcknowledgementsPanel,
     CheckSeverityLabel,
     CommentsPanel,
@@ -184,6 +187,8 @@ export class RecipePage {
     const from = v.workflow?.effectiveFrom;
     return !from || from <= this.today;
   });
+  /** The version in force is past its periodic review date: marked, never blocked. */
+  protected readonly reviewOverdue = computed(() => this.isCurrent() && isReviewOverdue(this.version()?.workflow?.reviewDueOn, this.today));
   protected readonly canLogCut = computed(() => this.isCurrent() && hasAccess(this.session.roles(), ['operator']));
   /** A new version of the operator's machine's recipe: read and understood before its sheet opens. */
   protected readonly mustAcknowledge = computed(() => hasAccess(this.session.roles(), ['operator']) && mustAcknowledge(this.version()));
