@@ -7,7 +7,7 @@ import { TestbedHarnessEnvironment } from '@angular/cdk/testing/testbed';
 import { MatSelectHarness } from '@angular/material/select/testing';
 import type { UserDto } from '@shared/api-types';
 import type { RecipeVersionDto } from '@shared/recipe-types';
-import type { SaveDraftBody } from '@shared/schemas/recipe';
+import { NO_MOTION_SETTINGS, type SaveDraftBody } from '@shared/schemas/recipe';
 import { type LabLimits, type MachineRecord, type MaterialRecord, NO_LAB_LIMITS, type SelectionRow, type WheelRecord } from '@shared/stock-types';
 import { aUser } from '../../../testing/user-fixture';
 import { errorInterceptor } from '../../core/http/error-interceptor';
@@ -122,6 +122,7 @@ function aDraft(overrides: Partial<RecipeVersionDto> = {}): RecipeVersionDto {
         entryLengthMm: null,
         cutMotion: 'straight-plunge',
         passes: null,
+        ...NO_MOTION_SETTINGS,
       },
       clamping: {
         method: 'vise-backstop',
