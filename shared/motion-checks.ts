@@ -67,11 +67,14 @@ function passesShortOfPart(content: RecipeContent): CheckResult | null {
   const depth = motionSetting(c, key);
   // Rounding of typed decimals (3 × 0.1) is not a shortfall.
   if (depth === null || depth * passes >= size - 1e-6) return null;
+  const needed = Math.ceil(size / depth - 1e-6);
+  // Beyond the 500 passes a recipe may hold (or a depth so small the count overflows): just "more".
+  const more = Number.isFinite(needed) && needed <= 500 ? `at least ${needed} passes` : 'more passes';
   return {
     id: 'passes-short-of-size',
     severity: 'warning',
     path: 'cutting.passes',
-    message: `${passes} passes of ${mm(depth)} reach ${mm(depth * passes)}, short of the largest part (${mm(size)}): the cut stops before it is through. Give at least ${Math.ceil(size / depth - 1e-6)} passes, or a deeper ${key === 'stepDepthMm' ? 'step' : 'pass'}.`,
+    message: `${passes} ${passes === 1 ? 'pass' : 'passes'} of ${mm(depth)} ${passes === 1 ? 'reaches' : 'reach'} ${mm(depth * passes)}, short of the largest part (${mm(size)}): the cut stops before it is through. Give ${more}, or a deeper ${key === 'stepDepthMm' ? 'step' : 'pass'}.`,
     reason: 'The depth cut is the number of passes times the depth of each (arithmetic); a section must be cut through.',
   };
 }
