@@ -183,7 +183,8 @@ describe('RecipePage', () => {
     await answerVersions([pulsed, older]);
     await answerStock();
     const speeds = root().querySelector('[aria-labelledby="kb-speeds"]')!;
-    expect(speeds.textContent!.replace(/\s+/g, ' ')).toContain('Pulsed plunge Advance per pulse 0.50 mm Retract per pulse 0.20 mm');
+    const rows = Array.from(speeds.querySelectorAll('dt')).map((dt) => `${dt.textContent!.trim()}: ${dt.nextElementSibling!.textContent!.trim()}`);
+    expect(rows.slice(-3)).toEqual(['Cut motion: Pulsed plunge', 'Advance per pulse: 0.50 mm', 'Retract per pulse: 0.20 mm']);
     expect(speeds.querySelector('[data-testid="motion-settings-missing"]')).toBeNull();
 
     await harness.navigateByUrl('/recipes/3?v=1');
