@@ -179,10 +179,10 @@ export function buildSheetModel(input: SheetInput): SheetModel {
     { label: 'Feed', value: formatQuantity(c.cutting.feedMmS, 'feed', units), strong: true },
     ...(entry ? [{ label: 'Entry feed', value: entry, strong: true } satisfies Row] : []),
     { label: 'Cut motion', value: CUT_MOTION_LABELS[c.cutting.cutMotion], strong: true },
-    { label: 'Passes', value: c.cutting.passes === null ? 'Single cut' : String(c.cutting.passes) },
     // The motion's own settings, what the operator sets for it; older content has none: "not given".
     ...motionSettingRows(c, units).map((r): Row => ({ label: r.label, value: r.value, strong: true })),
     ...(motionSettingsMissing(c) ? [{ label: 'Motion settings', value: MOTION_SETTINGS_NOT_GIVEN } satisfies Row] : []),
+    { label: 'Passes', value: c.cutting.passes === null ? 'Single cut' : String(c.cutting.passes) },
   ];
 
   const clamping: Row[] = [

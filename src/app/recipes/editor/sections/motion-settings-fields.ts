@@ -29,18 +29,22 @@ const STEPS: Record<string, string> = { mm: '0.1', s: '0.5', '°': '1', rpm: '5'
   selector: 'kb-motion-settings-fields',
   imports: [MatFormFieldModule, MatInputModule, ReactiveFormsModule],
   template: `
-    @if (fields().length) {
-      <div class="kb-row" role="group" aria-label="Settings of the cut motion" data-testid="motion-settings">
-        @for (f of fields(); track f.key) {
-          <mat-form-field>
-            <mat-label>{{ f.label }}</mat-label>
-            <input matInput [id]="'f-cutting-' + f.key" type="number" [formControl]="group().controls[f.key]" min="0" [step]="f.step" />
-            <span matTextSuffix>{{ f.unit }}</span>
-            @if (f.unit === 'mm' && imperialHint(value()[f.key], 'length', imperial()); as hint) {
-              <mat-hint>{{ hint }}</mat-hint>
+    @if (rows().length) {
+      <div role="group" aria-label="Settings of the cut motion" data-testid="motion-settings">
+        @for (row of rows(); track $index) {
+          <div class="kb-row">
+            @for (f of row; track f.key) {
+              <mat-form-field>
+                <mat-label>{{ f.label }}</mat-label>
+                <input matInput [id]="'f-cutting-' + f.key" type="number" [formControl]="group().controls[f.key]" min="0" [step]="f.step" />
+                <span matTextSuffix>{{ f.unit }}</span>
+                @if (f.unit === 'mm' && imperialHint(value()[f.key], 'length', imperial()); as hint) {
+                  <mat-hint>{{ hint }}</mat-hint>
+                }
+                <mat-error>{{ controlMessage(group().controls[f.key].errors) }}</mat-error>
+              </mat-form-field>
             }
-            <mat-error>{{ controlMessage(group().controls[f.key].errors) }}</mat-error>
-          </mat-form-field>
+          </div>
         }
       </div>
       @if (hint(); as h) {
@@ -59,14 +63,16 @@ export class MotionSettingsFields {
   protected readonly controlMessage = controlMessage;
   protected readonly imperialHint = imperialHint;
 
-  protected readonly fields = computed(() =>
-    settingsOfMotion(this.value().cutMotion).map((key: MotionSetting) => ({
+  /** The fields two to a row, so a pulse's distances and its times each stay together. */
+  protected readonly rows = computed(() => {
+    const fields = settingsOfMotion(this.value().cutMotion).map((key: MotionSetting) => ({
       key,
       label: MOTION_SETTING_LABELS[key],
       unit: MOTION_SETTING_UNITS[key],
       step: STEPS[MOTION_SETTING_UNITS[key]] ?? 'any',
-    })),
-  );
+    }));
+    return Array.from({ length: Math.ceil(fields.length / 2) }, (_, i) => fields.slice(2 * i, 2 * i + 2));
+  });
   protected readonly hint = computed(() => {
     const motion = this.value().cutMotion;
     return motion ? (MOTION_HINTS[motion] ?? '') : '';
