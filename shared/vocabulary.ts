@@ -391,3 +391,44 @@ export const TRAIL_ENTITY_LABELS: Record<string, string> = {
 
 /** The marker a recipe carries while its current version's periodic review date has passed. */
 export const REVIEW_OVERDUE_LABEL = 'Review overdue';
+
+/**
+ * The settings a cut motion carries, stored in the recipe's cutting section (each null when
+ * not given). A pulsed plunge is set by distance (advance and retract per pulse) or by time
+ * (feeding time and pause per pulse); rocking by its swing angle or its stroke. The number of
+ * passes of a traverse or stepped cut is the cutting section's `passes`.
+ */
+export const MOTION_SETTINGS = [
+  'pulseAdvanceMm',
+  'pulseRetractMm',
+  'pulseFeedS',
+  'pulsePauseS',
+  'rockingAngleDeg',
+  'rockingStrokeMm',
+  'specimenRpm',
+  'depthPerPassMm',
+  'stepDepthMm',
+] as const;
+export type MotionSetting = (typeof MOTION_SETTINGS)[number];
+
+export const MOTION_SETTING_LABELS: Record<MotionSetting, string> = {
+  pulseAdvanceMm: 'Advance per pulse',
+  pulseRetractMm: 'Retract per pulse',
+  pulseFeedS: 'Feeding time per pulse',
+  pulsePauseS: 'Pause between pulses',
+  rockingAngleDeg: 'Rocking angle (total swing)',
+  rockingStrokeMm: 'Rocking stroke',
+  specimenRpm: 'Specimen speed',
+  depthPerPassMm: 'Depth per pass',
+  stepDepthMm: 'Step depth',
+};
+
+/** Which settings belong to which motion (a straight plunge has none). */
+export const CUT_MOTION_SETTINGS: Record<CutMotion, readonly MotionSetting[]> = {
+  'straight-plunge': [],
+  'pulsed-plunge': ['pulseAdvanceMm', 'pulseRetractMm', 'pulseFeedS', 'pulsePauseS'],
+  rocking: ['rockingAngleDeg', 'rockingStrokeMm'],
+  'turning-specimen': ['specimenRpm'],
+  'traverse-pass': ['depthPerPassMm'],
+  'stepped-depth': ['stepDepthMm'],
+};

@@ -10,6 +10,7 @@ import type { RecipeContext } from '../../../shared/recipe-context';
 import type { RecipeVersionDto, SignatureDto } from '../../../shared/recipe-types';
 import type { HardnessWindow } from '../../../shared/schemas/stock';
 import { markedMaximumText } from '../../../shared/spindle-speed';
+import { MOTION_SETTINGS_NOT_GIVEN, motionSettingRows, motionSettingsMissing } from '../../../shared/motion-settings';
 import { formatQuantity } from '../../../shared/units';
 import {
   CLAMPING_METHOD_LABELS,
@@ -178,6 +179,9 @@ export function buildSheetModel(input: SheetInput): SheetModel {
     { label: 'Feed', value: formatQuantity(c.cutting.feedMmS, 'feed', units), strong: true },
     ...(entry ? [{ label: 'Entry feed', value: entry, strong: true } satisfies Row] : []),
     { label: 'Cut motion', value: CUT_MOTION_LABELS[c.cutting.cutMotion], strong: true },
+    // The motion's own settings, what the operator sets for it; older content has none: "not given".
+    ...motionSettingRows(c, units).map((r): Row => ({ label: r.label, value: r.value, strong: true })),
+    ...(motionSettingsMissing(c) ? [{ label: 'Motion settings', value: MOTION_SETTINGS_NOT_GIVEN } satisfies Row] : []),
     { label: 'Passes', value: c.cutting.passes === null ? 'Single cut' : String(c.cutting.passes) },
   ];
 

@@ -7,7 +7,7 @@ import { TestbedHarnessEnvironment } from '@angular/cdk/testing/testbed';
 import { MatSelectHarness } from '@angular/material/select/testing';
 import type { UserDto } from '@shared/api-types';
 import type { RecipeVersionDto } from '@shared/recipe-types';
-import type { SaveDraftBody } from '@shared/schemas/recipe';
+import { NO_MOTION_SETTINGS, type SaveDraftBody } from '@shared/schemas/recipe';
 import { type LabLimits, type MachineRecord, type MaterialRecord, NO_LAB_LIMITS, type SelectionRow, type WheelRecord } from '@shared/stock-types';
 import { aUser } from '../../../testing/user-fixture';
 import { errorInterceptor } from '../../core/http/error-interceptor';
@@ -122,6 +122,7 @@ function aDraft(overrides: Partial<RecipeVersionDto> = {}): RecipeVersionDto {
         entryLengthMm: null,
         cutMotion: 'straight-plunge',
         passes: null,
+        ...NO_MOTION_SETTINGS,
       },
       clamping: {
         method: 'vise-backstop',
@@ -417,6 +418,83 @@ describe('RecipeEditor', () => {
     await open('3', [aDraft()], aUser({ units: 'metric+imperial' }));
     expect(text('mat-hint', field('f-scope-sizeMaxMm').closest('mat-form-field')!)).toBe('= 40.0 mm (1.575 in)');
     expect(text('mat-hint', field('f-cutting-feedMmS').closest('mat-form-field')!)).toBe('= 0.50 mm/s (1.18 in/min)');
+  });
+
+  describe('cut motion settings', () => {
+    const cutting = () => fixture.componentInstance['form'].controls.content.controls.cutting.controls;
+    /** The label and unit of each motion-setting field shown, in order. */
+    const shownSettings = () =>
+      [...root.querySelectorAll('[data-testid="motion-settings"] mat-form-field')].map(
+        (f) => `${text('mat-label', f)} [${text('.mat-mdc-form-field-text-suffix', f)}]`,
+      );
+
+    it('shows the settings of the chosen motion only, each with its unit', async () => {
+      await open('3', [aDraft()]);
+      expect(root.querySelector('[data-testid="motion-settings"]')).toBeNull();
+
+      const loader = TestbedHarnessEnvironment.loader(fixture);
+      const motion = await loader.getHarness(MatSelectHarness.with({ selector: '#f-cutting-cutMotion' }));
+      await motion.clickOptions({ text: 'Pulsed plunge' });
+      await until(() =>
+        expect(shownSettings()).toEqual(['Advance per pulse [mm]', 'Retract per pulse [mm]', 'Feeding time per pulse [s]', 'Pause between pulses [s]']),
+      );
+      expect(text('[data-testid="motion-settings-hint"]')).toContain('or the pulse times');
+
+      cutting().cutMotion.setValue('rocking');
+      await until(() => expect(shownSettings()).toEqual(['Rocking angle (total swing) [°]', 'Rocking stroke [mm]']));
+      expect(root.querySelector('#f-cutting-pulseAdvanceMm')).toBeNull();
+      cutting().cutMotion.setValue('turning-specimen');
+      await until(() => expect(shownSettings()).toEqual(['Specimen speed [rpm]']));
+      cutting().cutMotion.setValue('traverse-pass');
+      await until(() => expect(shownSettings()).toEqual(['Depth per pass [mm]']));
+      expect(root.querySelector('#f-cutting-passes')).not.toBeNull();
+      cutting().cutMotion.setValue('stepped-depth');
+      await until(() => expect(shownSettings()).toEqual(['Step depth [mm]']));
+      cutting().cutMotion.setValue('straight-plunge');
+      await until(() => expect(root.querySelector('[data-testid="motion-settings"]')).toBeNull());
+    });
+
+    it('loads content stored without settings as "not given", flags a pulse that gains nothing, and saves the chosen motion’s settings only', async () => {
+      const draft = aDraft();
+      draft.content.cutting.cutMotion = 'pulsed-plunge';
+      // As an older Kerfbook stored it: no motion-setting keys at all.
+      for (const key of Object.keys(NO_MOTION_SETTINGS)) delete (draft.content.cutting as Record<string, unknown>)[key];
+      await open('3', [draft]);
+      await until(() => expect(root.querySelector('#f-cutting-pulseAdvanceMm')).not.toBeNull());
+      expect(field('f-cutting-pulseAdvanceMm').value).toBe('');
+      expect(cutting().pulseAdvanceMm.value).toBeNull();
+      expect(text('[data-testid="save-status"]')).not.toContain('Unsaved');
+
+      // A value left from another motion stays in the form but is not saved.
+      cutting().rockingStrokeMm.setValue(8);
+      type('f-cutting-pulseAdvanceMm', '0.3');
+      type('f-cutting-pulseRetractMm', '0.3');
+      await until(() => expect(root.querySelector('[data-check="pulse-retract-not-below-advance"]')).not.toBeNull());
+      expect(text('.kb-check-message', root.querySelector('[data-check="pulse-retract-not-below-advance"]')!)).toContain('gains 0 mm per pulse');
+      type('f-cutting-pulseRetractMm', '0.1');
+      await until(() => expect(root.querySelector('[data-check="pulse-retract-not-below-advance"]')).toBeNull());
+
+      // Out of range: the schema's message on the field.
+      type('f-cutting-pulsePauseS', '0');
+      field('f-cutting-pulsePauseS').dispatchEvent(new Event('blur'));
+      await until(() =>
+        expect(text('mat-error', field('f-cutting-pulsePauseS').closest('mat-form-field')!)).toBe('Pause between pulses must be more than 0 s.'),
+      );
+      type('f-cutting-pulsePauseS', '1');
+
+      clickSave();
+      const req = await vi.waitFor(() => backend.expectOne({ method: 'PUT', url: '/api/recipes/3/versions/1' }));
+      const sent = (req.request.body as SaveDraftBody).content.cutting;
+      expect(sent).toMatchObject({
+        cutMotion: 'pulsed-plunge',
+        pulseAdvanceMm: 0.3,
+        pulseRetractMm: 0.1,
+        pulseFeedS: null,
+        pulsePauseS: 1,
+        rockingStrokeMm: null,
+      });
+      req.flush(aDraft({ revision: 5 }));
+    });
   });
 
   describe('wheel path through a coating', () => {

@@ -172,6 +172,27 @@ describe('RecipePage', () => {
     expect(root().querySelector('kb-standard-cautions')!.textContent).toContain("the machine's manual and the lab's licensed safety practice take precedence");
   });
 
+  it('shows the cut motion’s settings under Speeds and motion, and "not given" for content stored without them', async () => {
+    await open('/recipes/3');
+    const pulsed = aRecipeVersion({ version: 2, status: 'draft' });
+    pulsed.content = { ...pulsed.content, cutting: { ...pulsed.content.cutting, cutMotion: 'pulsed-plunge', pulseAdvanceMm: 0.5, pulseRetractMm: 0.2 } };
+    // Version 1 as an older Kerfbook stored it: a rocking cut, no setting keys at all.
+    const older = aRecipeVersion({ version: 1, status: 'approved' });
+    const { rockingAngleDeg: _a, rockingStrokeMm: _s, ...cuttingWithout } = { ...older.content.cutting, cutMotion: 'rocking' as const };
+    older.content = { ...older.content, cutting: cuttingWithout as typeof older.content.cutting };
+    await answerVersions([pulsed, older]);
+    await answerStock();
+    const speeds = root().querySelector('[aria-labelledby="kb-speeds"]')!;
+    const rows = Array.from(speeds.querySelectorAll('dt')).map((dt) => `${dt.textContent!.trim()}: ${dt.nextElementSibling!.textContent!.trim()}`);
+    expect(rows.slice(-3)).toEqual(['Cut motion: Pulsed plunge', 'Advance per pulse: 0.50 mm', 'Retract per pulse: 0.20 mm']);
+    expect(speeds.querySelector('[data-testid="motion-settings-missing"]')).toBeNull();
+
+    await harness.navigateByUrl('/recipes/3?v=1');
+    await harness.fixture.whenStable();
+    await vi.waitFor(() => expect(root().querySelector('[data-testid="motion-settings-missing"]')?.textContent).toBe('Not given'));
+    expect(root().querySelector('[data-testid="motion-pulseAdvanceMm"]')).toBeNull();
+  });
+
   it('lists the checks worst first, each with an icon and a word for its severity', async () => {
     await open('/recipes/3');
     await answerVersions([draft, approved]);

@@ -10,6 +10,7 @@ import { MatSelectModule } from '@angular/material/select';
 import { MatTabsModule } from '@angular/material/tabs';
 import { Router, RouterLink } from '@angular/router';
 import { EMPTY, catchError, distinctUntilChanged, firstValueFrom, switchMap } from 'rxjs';
+import { motionSettingRows, motionSettingsMissing } from '@shared/motion-settings';
 import { NO_SAFETY_CLAIM, recipeCautions } from '@shared/cautions';
 import type { CheckResult, CheckSeverity } from '@shared/recipe-checks';
 import { computeRecipe } from '@shared/recipe-computations';
@@ -217,6 +218,15 @@ export class RecipePage {
   });
   /** The capacity in words, with the geometric limit that applies. */
   protected readonly capacity = computed(() => capacityWords(this.computed(), this.units()));
+  /** The cut motion's settings, one row each; older content has none. */
+  protected readonly motionRows = computed(() => {
+    const c = this.version()?.content;
+    return c ? motionSettingRows(c, this.units()) : [];
+  });
+  protected readonly motionNotGiven = computed(() => {
+    const c = this.version()?.content;
+    return c ? motionSettingsMissing(c) : false;
+  });
 
   /** The cautions this version's material, coolant or flags call for, beside the standard ones. */
   protected readonly recipeCautions = computed(() => {

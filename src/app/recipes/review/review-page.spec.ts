@@ -147,6 +147,17 @@ describe('ReviewPage', () => {
     expect(root().querySelector('kb-comparison-view ins, kb-comparison-view .kb-added, kb-comparison-view [class*="added"]')).not.toBeNull();
   });
 
+  it('names the cut motion with its settings in the summary', async () => {
+    await open('/recipes/3/review?v=2');
+    const traverse = {
+      ...inReview,
+      content: { ...inReview.content, cutting: { ...inReview.content.cutting, cutMotion: 'traverse-pass' as const, depthPerPassMm: 0.5, passes: 40 } },
+    };
+    await answer([traverse, approvedV1]);
+    const rows = Array.from(root().querySelectorAll('.kb-summary dt')).map((dt) => `${dt.textContent!.trim()}: ${dt.nextElementSibling!.textContent!.trim()}`);
+    expect(rows).toContain('Cut motion: Traverse pass: depth per pass 0.50 mm, 40 passes');
+  });
+
   it('keeps "Approve…" disabled until every warning is acknowledged, then signs with their ids', async () => {
     await open('/recipes/3/review?v=2');
     await answer([inReview, approvedV1]);

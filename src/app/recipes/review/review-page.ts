@@ -8,10 +8,11 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { Router, RouterLink } from '@angular/router';
 import { firstValueFrom } from 'rxjs';
+import { cutMotionText } from '@shared/motion-settings';
 import { NO_SAFETY_CLAIM } from '@shared/cautions';
 import type { CheckResult, CheckSeverity } from '@shared/recipe-checks';
 import type { RecipeComparison, RecipeVersionDto } from '@shared/recipe-types';
-import { CLAMPING_METHOD_LABELS, COOLANT_TYPE_LABELS, CUT_MOTION_LABELS, MACHINE_CLASS_LABELS, MATERIAL_GROUP_LABELS, SHAPE_LABELS } from '@shared/vocabulary';
+import { CLAMPING_METHOD_LABELS, COOLANT_TYPE_LABELS, MACHINE_CLASS_LABELS, MATERIAL_GROUP_LABELS, SHAPE_LABELS } from '@shared/vocabulary';
 import { callerHandles } from '../../core/http/caller-handles';
 import { Notifier } from '../../core/notifier/notifier';
 import { Session } from '../../core/session/session';
@@ -216,7 +217,8 @@ export class ReviewPage {
       },
       { label: 'Wheel speed', value: formatMetric(c.cutting.wheelRpm, 'rpm', units) },
       { label: 'Feed', value: formatMetric(c.cutting.feedMmS, 'mm/s', units) },
-      { label: 'Cut motion', value: CUT_MOTION_LABELS[c.cutting.cutMotion] },
+      // With its settings, e.g. "Pulsed plunge: advance per pulse 0.50 mm, retract per pulse 0.20 mm".
+      { label: 'Cut motion', value: cutMotionText(c, units) },
       { label: 'Clamping', value: c.clamping.method ? CLAMPING_METHOD_LABELS[c.clamping.method] : 'none chosen' },
       {
         label: 'Coolant',
