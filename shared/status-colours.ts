@@ -66,7 +66,7 @@ export const RECIPE_STATUS_MARKS: Record<RecipeStatus, StatusMark> = {
 };
 
 export const CHECK_SEVERITY_MARKS: Record<CheckSeverity, StatusMark> = {
-  blocker: mark('stop', 'report', CHECK_SEVERITY_LABELS.blocker),
+  blocker: mark('stop', 'block', CHECK_SEVERITY_LABELS.blocker),
   warning: mark('caution', 'warning', CHECK_SEVERITY_LABELS.warning),
   note: mark('info', 'info', CHECK_SEVERITY_LABELS.note),
 };

@@ -24,6 +24,9 @@ export const SEVERITY_INFO: Record<CheckSeverity | 'none', StatusMark> = { ...CH
       font-weight: 500;
       line-height: 22px;
       white-space: nowrap;
+      // In a results grid the chip keeps its own size, at the top of its row.
+      justify-self: start;
+      align-self: start;
     }
     mat-icon {
       font-size: 16px;
