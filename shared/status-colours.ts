@@ -71,6 +71,13 @@ export const CHECK_SEVERITY_MARKS: Record<CheckSeverity, StatusMark> = {
   note: mark('info', 'info', CHECK_SEVERITY_LABELS.note),
 };
 
+/**
+ * The check page's verdict on a printed sheet is about use at the saw, so it takes the tone
+ * of what the operator must do: use it (go), wait (caution), do not use it (stop). The
+ * icon and headline still name the version's status.
+ */
+export const SHEET_VERDICT_TONES = { current: 'go', pending: 'caution', superseded: 'stop', withdrawn: 'stop' } as const satisfies Record<string, StatusTone>;
+
 /** "No findings": the checks ran and found nothing. */
 export const NO_FINDINGS_MARK: StatusMark = mark('go', 'check_circle', 'No findings');
 

@@ -9,7 +9,7 @@ import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { Router, RouterLink } from '@angular/router';
 import type { CheckCodeResult } from '@shared/recipe-types';
 import { checkCodeParam } from '@shared/schemas/operator';
-import { RECIPE_STATUS_MARKS } from '@shared/status-colours';
+import { RECIPE_STATUS_MARKS, SHEET_VERDICT_TONES } from '@shared/status-colours';
 import { controlMessage } from '../../core/forms/control-message';
 import { zodValidator } from '../../core/forms/zod-validator';
 import { isApiError } from '../../core/http/api-error';
@@ -51,6 +51,7 @@ export function printedCode(code: string): string {
 export class CheckPage {
   private readonly api = inject(CheckApi);
   private readonly router = inject(Router);
+  protected readonly verdictTones = SHEET_VERDICT_TONES;
 
   /** Route parameter `:code`; absent on /check. */
   readonly code = input<string>();
