@@ -5,7 +5,7 @@
  * grey photocopy reads the same.
  */
 import PDFDocument from 'pdfkit';
-import { TONE_COLOURS } from '../../../shared/status-colours';
+import { SHEET_VERDICT_TONES, TONE_COLOURS } from '../../../shared/status-colours';
 import { registerSheetFonts, type SheetFont } from './fonts';
 
 export type PaperSize = 'A4' | 'Letter';
@@ -29,11 +29,14 @@ export const MUTED = '#3c3c3c';
 /** The faint fill behind label columns and headings: decoration only, never meaning. */
 export const TINT = '#efefef';
 /**
- * The status mark prints in the shared status language's ink (shared/status-colours.ts), the
- * same as the status chips on screen: green for a current version, blue for one approved but
- * not yet in force. Both are dark enough to copy as black; the words carry the meaning.
+ * The status mark prints in the shared status language's ink (shared/status-colours.ts), as
+ * the check page shows the same version: green for current, amber for approved but not yet in
+ * force. Both are dark enough to copy as black; the words carry the meaning.
  */
-export const STATUS_INK = { current: TONE_COLOURS.go.ink, pending: TONE_COLOURS.info.ink } as const;
+export const STATUS_INK = {
+  current: TONE_COLOURS[SHEET_VERDICT_TONES.current].ink,
+  pending: TONE_COLOURS[SHEET_VERDICT_TONES.pending].ink,
+} as const;
 
 /** Cell padding of the ruled tables, points. */
 const CELL = { padX: 5, padY: 2.6 } as const;
