@@ -152,6 +152,9 @@ export const RECIPE_STATUS_PHRASES: Record<RecipeStatus, string> = {
   withdrawn: 'withdrawn',
 };
 
+/** A check finding's severity as a word (always beside its icon and colour). */
+export const CHECK_SEVERITY_LABELS = { blocker: 'Blocker', warning: 'Warning', note: 'Note' } as const;
+
 /** What an operator reports about a cut; anything but `good` flags the recipe for its author. */
 export const CUT_OUTCOMES = ['good', 'burnt', 'deformed', 'wheel-failure', 'other'] as const;
 export type CutOutcome = (typeof CUT_OUTCOMES)[number];

@@ -1,9 +1,11 @@
 /**
  * Drawing primitives of the bench sheet: a page writer that keeps the cursor, section
  * headings, ruled label/value tables, boxed blocks and the footer. Black on white with
- * grey hairlines only: nothing depends on colour, so a grey photocopy reads the same.
+ * grey hairlines, the status mark in its dark status ink: nothing depends on colour, so a
+ * grey photocopy reads the same.
  */
 import PDFDocument from 'pdfkit';
+import { SHEET_VERDICT_TONES, TONE_COLOURS } from '../../../shared/status-colours';
 import { registerSheetFonts, type SheetFont } from './fonts';
 
 export type PaperSize = 'A4' | 'Letter';
@@ -26,6 +28,15 @@ export const RULE = '#8a8a8a';
 export const MUTED = '#3c3c3c';
 /** The faint fill behind label columns and headings: decoration only, never meaning. */
 export const TINT = '#efefef';
+/**
+ * The status mark prints in the shared status language's ink (shared/status-colours.ts), as
+ * the check page shows the same version: green for current, amber for approved but not yet in
+ * force. Both are dark enough to copy as black; the words carry the meaning.
+ */
+export const STATUS_INK = {
+  current: TONE_COLOURS[SHEET_VERDICT_TONES.current].ink,
+  pending: TONE_COLOURS[SHEET_VERDICT_TONES.pending].ink,
+} as const;
 
 /** Cell padding of the ruled tables, points. */
 const CELL = { padX: 5, padY: 2.6 } as const;

@@ -6,7 +6,7 @@
  */
 import { NO_SAFETY_CLAIM, PRECEDENCE_LINE, type Caution } from '../../../shared/cautions';
 import type { SheetModel } from './content';
-import { INK, MUTED, RULE, SheetWriter, TINT, TYPE, type PaperSize } from './layout';
+import { INK, MUTED, RULE, SheetWriter, STATUS_INK, TINT, TYPE, type PaperSize } from './layout';
 import { markdownHeight, writeMarkdown } from './markdown';
 
 export interface SheetPhoto {
@@ -71,7 +71,8 @@ function header(w: SheetWriter, m: SheetModel, qr: Buffer): void {
   fields.forEach(([label, value], i) => {
     const fieldWidth = shares[i]! * (mainWidth - 2 * pad);
     w.place(label.toUpperCase(), fx, y, 'regular', 6.5, { characterSpacing: 0.6, lineBreak: false }, MUTED);
-    w.place(value, fx, y + 9, 'bold', 9.5, { width: fieldWidth - 6, lineBreak: false, ellipsis: true });
+    const ink = i === 0 ? (m.current ? STATUS_INK.current : STATUS_INK.pending) : INK;
+    w.place(value, fx, y + 9, 'bold', 9.5, { width: fieldWidth - 6, lineBreak: false, ellipsis: true }, ink);
     fx += fieldWidth;
   });
   y += 26;
