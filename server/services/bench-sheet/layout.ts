@@ -252,21 +252,27 @@ export class SheetWriter {
     this.doc.text(text, this.left + indent, this.y, { width, lineGap: TYPE.lineGap });
   }
 
-  /** "Printed … — check the code before use · Page x of y" on every page, written last. */
-  footers(text: string): void {
+  /**
+   * The foot of every page, written last: which recipe, version and check code the page
+   * belongs to and "Page x of y" in bold, so a loose page can be matched to its sheet; under
+   * it who printed it and when.
+   */
+  footers(identity: string, printed: string): void {
     const range = this.doc.bufferedPageRange();
     for (let i = range.start; i < range.start + range.count; i += 1) {
       this.doc.switchToPage(i);
       // Writing below the bottom margin would make pdfkit start a new page: lift it first.
       const bottomMargin = this.doc.page.margins.bottom;
       this.doc.page.margins.bottom = 0;
-      const y = this.doc.page.height - MARGIN.bottom + FOOTER_GAP - 8;
+      const y = this.doc.page.height - MARGIN.bottom + FOOTER_GAP - 14;
       this.hrule(y - 5, 0.5, RULE);
       const pageText = `Page ${i - range.start + 1} of ${range.count}`;
-      this.use('regular', TYPE.small, MUTED);
+      this.use('bold', TYPE.label);
       const pageWidth = this.doc.widthOfString(pageText);
-      this.doc.text(text, this.left, y, { width: this.width - pageWidth - 12, lineBreak: false, ellipsis: true });
+      this.doc.text(identity, this.left, y, { width: this.width - pageWidth - 12, lineBreak: false, ellipsis: true });
       this.doc.text(pageText, this.right - pageWidth, y, { lineBreak: false });
+      this.use('regular', TYPE.small, MUTED);
+      this.doc.text(printed, this.left, y + 11, { width: this.width, lineBreak: false, ellipsis: true });
       this.doc.page.margins.bottom = bottomMargin;
     }
   }

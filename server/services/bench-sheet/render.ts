@@ -321,6 +321,6 @@ export async function renderSheet(input: SheetRenderInput): Promise<Buffer> {
     w.paragraph(`Why this version: ${m.changeReason.trim()}`, 'regular', TYPE.small, INK);
   }
 
-  w.footers(input.footer);
+  w.footers(`${m.number} · Version ${m.version} · Check code ${m.checkCode}`, input.footer);
   return w.toBuffer();
 }
