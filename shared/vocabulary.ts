@@ -266,3 +266,9 @@ export const WHEEL_PATH_LABELS: Record<WheelPath, string> = {
   'enters-and-exits-coating': 'Enters and leaves through the coating (coated all round, cut straight through)',
   'not-applicable': 'Not applicable: the cut does not cross the coating',
 };
+
+/**
+ * Where the check code is printed on a bench sheet (the sheet's header and every page's
+ * foot): the check page's hints say it in these words.
+ */
+export const CHECK_CODE_PLACE = 'under the QR code at the top right of the bench sheet, and at the foot of every page';
