@@ -63,12 +63,26 @@ export class SheetWriter {
     this.doc.lineGap(TYPE.lineGap);
   }
 
+  /** A column of the page the flow is narrowed to (side-by-side blocks); null for the full width. */
+  private column: { left: number; width: number } | null = null;
+
   get left(): number {
-    return MARGIN.left;
+    return this.column?.left ?? MARGIN.left;
   }
 
   get width(): number {
-    return this.doc.page.width - MARGIN.left - MARGIN.right;
+    return this.column?.width ?? this.doc.page.width - MARGIN.left - MARGIN.right;
+  }
+
+  /** Runs `draw` with the flow narrowed to a column; headings, paragraphs and lists keep to it. */
+  inColumn<T>(left: number, width: number, draw: () => T): T {
+    const outer = this.column;
+    this.column = { left, width };
+    try {
+      return draw();
+    } finally {
+      this.column = outer;
+    }
   }
 
   get right(): number {
@@ -139,13 +153,13 @@ export class SheetWriter {
    * `keepWith` is the height of what must follow on the same page.
    */
   section(number: number, title: string, keepWith = 40): void {
-    this.ensureSpace(22 + keepWith);
-    this.gap(7);
+    this.ensureSpace(19 + keepWith);
+    this.gap(5);
     const y = this.y;
     this.place(String(number), this.left, y, 'bold', TYPE.heading, { lineBreak: false });
     this.place(title.toUpperCase(), this.left + 16, y, 'bold', TYPE.heading, { characterSpacing: 0.6, lineBreak: false });
-    this.hrule(y + 13.5, 1, INK);
-    this.y = y + 18;
+    this.hrule(y + 12.5, 1, INK);
+    this.y = y + 15;
   }
 
   /**
@@ -198,9 +212,9 @@ export class SheetWriter {
         const x = this.left + j * half;
         this.fillRect(x, top + 0.25, labelWidth, height - 0.5);
         this.place(row.label, x + CELL.padX, top + CELL.padY + 0.6, 'regular', TYPE.label, { width: labelWidth - 2 * CELL.padX }, MUTED);
-        this.place(row.value, x + labelWidth + CELL.padX, top + CELL.padY, row.strong ? 'bold' : 'regular', TYPE.body, {
-          width: half - labelWidth - 2 * CELL.padX,
-        });
+        const valueWidth = half - labelWidth - 2 * CELL.padX;
+        const valueH = this.place(row.value, x + labelWidth + CELL.padX, top + CELL.padY, row.strong ? 'bold' : 'regular', TYPE.body, { width: valueWidth });
+        if (row.note) this.place(row.note, x + labelWidth + CELL.padX, top + CELL.padY + valueH, 'regular', TYPE.small, { width: valueWidth }, MUTED);
         this.vrule(x + labelWidth, top, top + height);
         if (j === 1) this.vrule(x, top, top + height);
       });

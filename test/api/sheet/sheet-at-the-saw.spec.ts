@@ -27,7 +27,8 @@ describe('Bench sheet at the saw', () => {
   });
 
   async function sheetOf(recipeId: number): Promise<ReadSheet> {
-    return readSheet((await getSheet(operator.agent, recipeId, 1).expect(200)).body as Buffer);
+    const body = (await getSheet(operator.agent, recipeId, 1).expect(200)).body as Buffer;
+    return readSheet(body);
   }
 
   async function printedCode(recipeId: number): Promise<string> {
