@@ -131,7 +131,19 @@ function keySettingsOf(c: RecipeVersionDto['content'], wheel: RecipeContext['whe
       // The wheel's marked maximum in whole rpm, or the machine's spindle limit where lower.
       ...(neverAboveRpm !== null ? { limit: `never above ${neverAboveRpm} rpm on this machine` } : {}),
     },
-    { label: 'Feed', value: formatQuantity(c.cutting.feedMmS, 'feed', units), detail: entry },
+    // The metric feed large; where the lab wants imperial too, it goes first on the smaller line.
+    {
+      label: 'Feed',
+      value: formatQuantity(c.cutting.feedMmS, 'feed', 'metric'),
+      detail: [
+        formatQuantity(c.cutting.feedMmS, 'feed', units)
+          .slice(formatQuantity(c.cutting.feedMmS, 'feed', 'metric').length)
+          .trim(),
+        entry,
+      ]
+        .filter(Boolean)
+        .join(' · '),
+    },
     {
       label: 'Cut motion',
       value: CUT_MOTION_LABELS[c.cutting.cutMotion],
@@ -200,12 +212,9 @@ export function buildSheetModel(input: SheetInput): SheetModel {
       value: wheel ? (wheel.restrictions.length ? wheel.restrictions.map((r) => WHEEL_RESTRICTION_LABELS[r]).join('; ') : 'None marked') : '—',
       strong: !!wheel?.restrictions.length,
     },
-    {
-      label: 'Marked maximum speed',
-      value: computed.markedMaximum ? markedMaximumText(computed.markedMaximum, units) : '—',
-      note: 'As marked on the wheel — never exceed it.',
-    },
-    { label: 'Peripheral speed', value: speed, note: 'Computed at the new wheel diameter.' },
+    // "Never exceed it" is said by the strip's limit and the standard cautions.
+    { label: 'Marked maximum speed', value: computed.markedMaximum ? markedMaximumText(computed.markedMaximum, units) : '—' },
+    { label: 'Peripheral speed (new wheel)', value: speed },
     {
       label: 'Margin to marked maximum',
       value: overMax ? `${formatQuantity(-computed.speedMarginMs!, 'speed', units)} ABOVE the marked maximum — do not run` : margin,

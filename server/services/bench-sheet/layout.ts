@@ -153,13 +153,13 @@ export class SheetWriter {
    * `keepWith` is the height of what must follow on the same page.
    */
   section(number: number, title: string, keepWith = 40): void {
-    this.ensureSpace(19 + keepWith);
-    this.gap(5);
+    this.ensureSpace(17 + keepWith);
+    this.gap(4);
     const y = this.y;
     this.place(String(number), this.left, y, 'bold', TYPE.heading, { lineBreak: false });
     this.place(title.toUpperCase(), this.left + 16, y, 'bold', TYPE.heading, { characterSpacing: 0.6, lineBreak: false });
-    this.hrule(y + 12.5, 1, INK);
-    this.y = y + 15;
+    this.hrule(y + 11.5, 1, INK);
+    this.y = y + 13.5;
   }
 
   /**
@@ -217,6 +217,43 @@ export class SheetWriter {
         if (row.note) this.place(row.note, x + labelWidth + CELL.padX, top + CELL.padY + valueH, 'regular', TYPE.small, { width: valueWidth }, MUTED);
         this.vrule(x + labelWidth, top, top + height);
         if (j === 1) this.vrule(x, top, top + height);
+      });
+      this.hrule(top + height);
+      top += height;
+    }
+    this.y = top + 2;
+  }
+
+  /**
+   * Facts in a grid of `columns` cells a line, each a small label over its value (and note):
+   * about half the height of a label/value table for short values. Lines never split
+   * across pages. A row marked `strong` is printed bold.
+   */
+  grid(rows: readonly Row[], columns = 4): void {
+    const cellWidth = this.width / columns;
+    const inner = cellWidth - 2 * CELL.padX;
+    const labelH = 9.5;
+    const measure = (row: Row) => {
+      const valueH = this.heightOf(row.value, row.strong ? 'bold' : 'regular', TYPE.body, inner);
+      const noteH = row.note ? this.heightOf(row.note, 'regular', TYPE.small, inner) : 0;
+      return { valueH, height: labelH + valueH + noteH };
+    };
+    let top = this.y;
+    this.hrule(top);
+    for (let i = 0; i < rows.length; i += columns) {
+      const line = rows.slice(i, i + columns).map((row) => ({ row, ...measure(row) }));
+      const height = Math.max(...line.map((c) => c.height)) + 2 * CELL.padY - 1;
+      if (top + height > this.bottom) {
+        this.doc.addPage();
+        top = MARGIN.top;
+        this.hrule(top);
+      }
+      line.forEach(({ row, valueH }, j) => {
+        const x = this.left + j * cellWidth + CELL.padX;
+        this.place(row.label, x, top + CELL.padY, 'regular', TYPE.small - 0.5, { width: inner, lineBreak: false, ellipsis: true }, MUTED);
+        this.place(row.value, x, top + CELL.padY + labelH, row.strong ? 'bold' : 'regular', TYPE.body, { width: inner });
+        if (row.note) this.place(row.note, x, top + CELL.padY + labelH + valueH, 'regular', TYPE.small, { width: inner }, MUTED);
+        if (j > 0) this.vrule(this.left + j * cellWidth, top, top + height);
       });
       this.hrule(top + height);
       top += height;

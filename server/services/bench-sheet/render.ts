@@ -25,7 +25,7 @@ export interface SheetRenderInput {
   footer: string;
 }
 
-const QR_SIZE = 68;
+const QR_SIZE = 62;
 
 function header(w: SheetWriter, m: SheetModel, qr: Buffer): void {
   const top = w.y;
@@ -50,12 +50,12 @@ function header(w: SheetWriter, m: SheetModel, qr: Buffer): void {
 
   // Recipe number and version, then the title.
   let y = boxTop + pad - 1;
-  w.place(m.number, w.left + pad, y, 'bold', 22, { lineBreak: false });
-  w.use('bold', 22);
+  w.place(m.number, w.left + pad, y, 'bold', 20, { lineBreak: false });
+  w.use('bold', 20);
   const numberWidth = w.doc.widthOfString(m.number);
-  w.place(`Version ${m.version}`, w.left + pad + numberWidth + 12, y + 8, 'bold', 13, { lineBreak: false });
-  y += 30;
-  y += w.place(m.title, w.left + pad, y, 'bold', 12, { width: mainWidth - 2 * pad }) + 6;
+  w.place(`Version ${m.version}`, w.left + pad + numberWidth + 12, y + 6.5, 'bold', 13, { lineBreak: false });
+  y += 26;
+  y += w.place(m.title, w.left + pad, y, 'bold', 12, { width: mainWidth - 2 * pad }) + 3;
 
   // Status, effective date, review due: small labels over values.
   // The status gets the widest field: "Approved — not yet current" must fit on one line.
@@ -81,12 +81,12 @@ function header(w: SheetWriter, m: SheetModel, qr: Buffer): void {
       w.place(field.value, fx, y + 8.5, 'bold', 9.5, { width: fieldWidth - 6, lineBreak: false, ellipsis: true });
       fx += fieldWidth;
     }
-    y += 24;
+    y += 22;
   }
 
   // The check code column: QR code, then the code itself, large.
   const sideX = w.left + mainWidth;
-  const sideHeight = pad + QR_SIZE + 40;
+  const sideHeight = pad + QR_SIZE + 34;
   const boxHeight = Math.max(y - boxTop + pad - 4, sideHeight);
   w.doc.image(qr, sideX + (sideWidth - QR_SIZE) / 2, boxTop + 6, { width: QR_SIZE, height: QR_SIZE });
   w.place('CHECK CODE', sideX, boxTop + QR_SIZE + 8, 'regular', 6.5, { width: sideWidth, align: 'center', characterSpacing: 0.8, lineBreak: false }, MUTED);
@@ -112,7 +112,7 @@ function uncontrolledNotice(w: SheetWriter, m: SheetModel): void {
   const top = w.y;
   w.fillRect(w.left, top, 3, height + 4, INK);
   w.place(text, w.left + 10, top + 2, 'regular', TYPE.small + 0.5, { width: w.width - 14 }, INK);
-  w.y = top + height + 6;
+  w.y = top + height + 5;
 }
 
 /** Type of the key-settings strip: the values read at arm's length (about 5 mm capitals). */
@@ -125,7 +125,7 @@ const KEY = { value: 14, detail: 8.5, limit: 9, label: 6.5, pad: 7 } as const;
  * never takes the limit for the setting.
  */
 function keySettingsStrip(w: SheetWriter, m: SheetModel): void {
-  const shares = [0.2, 0.24, 0.18, 0.16, 0.22];
+  const shares = [0.19, 0.27, 0.17, 0.15, 0.22];
   // Each value on one line where it can be at 11 pt or more, else as large as lets its longest
   // word fit: a setting is never broken inside a word or a unit ("mm/ s").
   const cells = m.keySettings.map((k, i) => {
@@ -196,34 +196,49 @@ function photoBlock(w: SheetWriter, photo: SheetPhoto, x: number, y: number, wid
 /** A caution the recipe calls for, full width: bold title, text, and its basis. */
 const recipeCautionText = (c: Caution) => `${c.text}${c.sources.length ? ` (Basis: ${c.sources.join('; ')}.)` : ''}`;
 
+/**
+ * Splits items, in order, into `columns` runs whose tallest is as short as it can be (every
+ * split tried: a handful of cautions), so a box of columns wastes no height.
+ */
+export function balancedColumns<T>(items: readonly T[], columns: number, height: (item: T) => number): T[][] {
+  const sum = (list: readonly T[]) => list.reduce((total, item) => total + height(item), 0);
+  if (columns <= 1 || items.length <= 1) return [items.slice()];
+  let best: T[][] = [items.slice()];
+  let bestTallest = sum(items);
+  for (let k = 1; k < items.length; k += 1) {
+    const rest = balancedColumns(items.slice(k), columns - 1, height);
+    const tallest = Math.max(sum(items.slice(0, k)), ...rest.map(sum));
+    if (tallest < bestTallest) [best, bestTallest] = [[items.slice(0, k), ...rest], tallest];
+  }
+  return best;
+}
+
 function cautionsBox(w: SheetWriter, m: SheetModel): void {
-  const pad = 9;
+  const pad = 8;
   const gutter = 12;
-  // Three columns in slightly smaller type: the whole box takes about a third less height.
-  const columns = 3;
-  const standardSize = TYPE.small;
+  // Four narrow columns in 7 pt: the box takes about half the height of two in 8 pt.
+  const columns = 4;
+  const standardSize = 7;
   const colWidth = (w.width - 2 * pad - (columns - 1) * gutter) / columns;
   const fullWidth = w.width - 2 * pad;
-  // Measured all in bold: the bold title makes the real line a little wider than regular text.
-  const items = m.standardCautions.map((c) => ({ ...c, height: w.heightOf(`${c.title}. ${c.text}`, 'bold', standardSize, colWidth) + 3.5 }));
+  // Measured in regular type, the column narrowed by what the bold title takes beyond regular type.
+  const boldExtra = (title: string) =>
+    w.use('bold', standardSize).doc.widthOfString(`${title}. `) - w.use('regular', standardSize).doc.widthOfString(`${title}. `);
+  const items = m.standardCautions.map((c) => ({
+    ...c,
+    height: w.heightOf(`${c.title}. ${c.text}`, 'regular', standardSize, colWidth - boldExtra(c.title)) + 3.5,
+  }));
   const forRecipe = m.recipeCautions.map((c) => ({ ...c, height: w.heightOf(`${c.title}. ${recipeCautionText(c)}`, 'bold', TYPE.small + 0.5, fullWidth) + 4 }));
   const forRecipeHeight = forRecipe.length ? 12 + forRecipe.reduce((sum, i) => sum + i.height, 0) + 17 : 0;
   // Split in order where the tallest column is the shortest, so the box wastes no height.
   const heightOf = (list: typeof items) => list.reduce((sum, i) => sum + i.height, 0);
-  let cuts = [1, 2];
-  let best = Infinity;
-  for (let a = 1; a < items.length - 1; a += 1) {
-    for (let b = a + 1; b < items.length; b += 1) {
-      const tallest = Math.max(heightOf(items.slice(0, a)), heightOf(items.slice(a, b)), heightOf(items.slice(b)));
-      if (tallest < best) [best, cuts] = [tallest, [a, b]];
-    }
-  }
-  const parts = [items.slice(0, cuts[0]), items.slice(cuts[0], cuts[1]), items.slice(cuts[1])];
+  const parts = balancedColumns(items, columns, (i) => i.height);
   const colHeight = Math.max(...parts.map(heightOf));
-  const precedenceHeight = w.heightOf(PRECEDENCE_LINE, 'bold', TYPE.small + 0.5, w.width - 2 * pad);
+  const precedenceHeight = w.heightOf(PRECEDENCE_LINE, 'bold', TYPE.small, w.width - 2 * pad);
   const claimHeight = w.heightOf(NO_SAFETY_CLAIM, 'regular', TYPE.small, w.width - 2 * pad);
-  const boxHeight = pad + 16 + forRecipeHeight + colHeight + 4 + precedenceHeight + 2 + claimHeight + pad;
-  w.ensureSpace(boxHeight + 10);
+  // As drawn below: heading band, recipe cautions, columns, rule, precedence line, claim.
+  const boxHeight = 24 + forRecipeHeight + colHeight + 6 + precedenceHeight + 2 + claimHeight + pad - 2;
+  w.ensureSpace(boxHeight + 6);
   w.gap(6);
   const top = w.y;
 
@@ -246,7 +261,7 @@ function cautionsBox(w: SheetWriter, m: SheetModel): void {
   w.place('Read before every cut', w.right - pad - 110, top + 6.5, 'regular', TYPE.small, { width: 110, align: 'right', lineBreak: false }, MUTED);
 
   // What this recipe's material, coolant or flags call for, first and full width, with the basis of each.
-  let columnsTop = top + 20 + 6;
+  let columnsTop = top + 20 + 4;
   if (forRecipe.length) {
     let y = columnsTop;
     w.place('FOR THIS MATERIAL AND SETUP', w.left + pad, y, 'bold', TYPE.small, { characterSpacing: 0.6, lineBreak: false });
@@ -278,12 +293,12 @@ function cautionsBox(w: SheetWriter, m: SheetModel): void {
   // Written first; the box is drawn last to the height the columns really took.
   const columnX = (i: number) => w.left + pad + i * (colWidth + gutter);
   const columnsEnd = Math.max(...parts.map((list, i) => writeColumn(list, columnX(i))));
-  for (let i = 1; i < columns; i += 1) w.vrule(columnX(i) - gutter / 2, columnsTop, columnsEnd - 4, 0.5, RULE);
+  for (let i = 1; i < parts.length; i += 1) w.vrule(columnX(i) - gutter / 2, columnsTop, columnsEnd - 4, 0.5, RULE);
 
   let y = columnsEnd + 2;
   w.hrule(y, 0.5, RULE, w.left + pad, w.right - pad);
   y += 4;
-  y += w.place(PRECEDENCE_LINE, w.left + pad, y, 'bold', TYPE.small + 0.5, { width: w.width - 2 * pad });
+  y += w.place(PRECEDENCE_LINE, w.left + pad, y, 'bold', TYPE.small, { width: w.width - 2 * pad });
   y += 2;
   y += w.place(NO_SAFETY_CLAIM, w.left + pad, y, 'regular', TYPE.small, { width: w.width - 2 * pad }, MUTED);
 
@@ -395,10 +410,10 @@ export async function renderSheet(input: SheetRenderInput): Promise<Buffer> {
 
   let n = 0;
   w.section(++n, 'Scope');
-  w.pairTable(m.scope);
+  w.grid(m.scope, 5);
 
   w.section(++n, 'Machine and wheel');
-  w.pairTable(m.parameters);
+  w.grid(m.parameters);
 
   // Clamping beside the setup photo, kept together on one page.
   const photoWidth = 150;
@@ -413,18 +428,19 @@ export async function renderSheet(input: SheetRenderInput): Promise<Buffer> {
     w.y = Math.max(tableEnd, top + photoHeight + 2);
   } else {
     w.section(++n, 'Clamping', 40);
-    w.pairTable(m.clamping);
+    w.grid(m.clamping, 5);
   }
 
   // The steps follow straight on; a long list goes on over the page, step by step.
   w.section(++n, 'Instructions', Math.min(markdownHeight(w, m.instructionsMd), 40));
   writeMarkdown(w, m.instructionsMd, { emptyText: 'No instructions beyond the parameters above.' });
 
-  n = acceptanceAndCautions(w, m, n);
+  acceptanceAndCautions(w, m, n);
 
   cautionsBox(w, m);
 
-  w.section(++n, 'Signatures', 60);
+  w.ensureSpace(60);
+  w.gap(6);
   signatures(w, m);
   if (m.version > 1 && m.changeReason.trim()) {
     w.gap(2);
