@@ -208,6 +208,8 @@ export interface TodayDto {
   reviewsDue: (RecipeSummary & { reviewDueOn: string })[];
   flaggedCuts: { recipeId: number; number: string; title: string; count: number }[];
   toAcknowledge: RecipeSummary[];
+  /** Start-up warnings for admins (e.g. APP_BASE_URL unset while listening beyond loopback); empty for everyone else. */
+  notices: string[];
 }
 
 /** One finder hit: the current approved version of a recipe and why it matches. */

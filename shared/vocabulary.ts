@@ -435,3 +435,9 @@ export const CUT_MOTION_SETTINGS: Record<CutMotion, readonly MotionSetting[]> = 
   'traverse-pass': ['depthPerPassMm'],
   'stepped-depth': ['stepDepthMm'],
 };
+
+/**
+ * Where the check code is printed on a bench sheet (the sheet's header and every page's
+ * foot): the check page's hints say it in these words.
+ */
+export const CHECK_CODE_PLACE = 'under the QR code at the top right of the bench sheet, and at the foot of every page';

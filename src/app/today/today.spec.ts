@@ -26,6 +26,7 @@ describe('Today', () => {
     ],
     flaggedCuts: [],
     toAcknowledge: [],
+    notices: [],
   };
 
   async function open(roles: Role[], answer: TodayDto = lists): Promise<void> {
@@ -55,6 +56,19 @@ describe('Today', () => {
   function list(id: string): HTMLElement {
     return root.querySelector<HTMLElement>(`[data-list="${id}"]`)!;
   }
+
+  it('shows an admin the start-up warnings, as an alert above the lists', async () => {
+    const warning = 'APP_BASE_URL is not set, but Kerfbook listens on 0.0.0.0:4300, beyond this computer.';
+    await open(['admin'], { ...lists, notices: [warning] });
+    const notice = root.querySelector<HTMLElement>('[data-testid="admin-notice"]')!;
+    expect(notice.getAttribute('role')).toBe('alert');
+    expect(notice.textContent).toContain(warning);
+  });
+
+  it('shows no notice block when there is nothing to warn about', async () => {
+    await open(['admin']);
+    expect(root.querySelector('[data-testid="admin-notice"]')).toBeNull();
+  });
 
   it('keeps the greeting and the roles', async () => {
     await open(['author']);

@@ -72,6 +72,12 @@ export class Today {
     return this.today.hasValue() ? { state: 'ready', today: this.today.value() } : { state: 'loading' };
   });
 
+  /** Start-up warnings the server has for admins (e.g. APP_BASE_URL unset). */
+  protected readonly notices = computed(() => {
+    const load = this.load();
+    return load.state === 'ready' ? (load.today.notices ?? []) : [];
+  });
+
   protected readonly lists = computed<TodayList[]>(() => {
     const load = this.load();
     if (load.state !== 'ready') return [];

@@ -10,6 +10,7 @@ import { Router, RouterLink } from '@angular/router';
 import type { CheckCodeResult } from '@shared/recipe-types';
 import { checkCodeParam } from '@shared/schemas/operator';
 import { RECIPE_STATUS_MARKS, SHEET_VERDICT_TONES } from '@shared/status-colours';
+import { CHECK_CODE_PLACE } from '@shared/vocabulary';
 import { controlMessage } from '../../core/forms/control-message';
 import { zodValidator } from '../../core/forms/zod-validator';
 import { isApiError } from '../../core/http/api-error';
@@ -85,6 +86,9 @@ export class CheckPage {
     const v = this.verdict();
     return v.state === 'ready' ? CHECK_STATE_INFO[v.result.state] : null;
   });
+  /** Where the code is printed on the sheet, for the hints. */
+  protected readonly codePlace = CHECK_CODE_PLACE;
+
   protected readonly form = inject(NonNullableFormBuilder).group({ code: ['', [zodValidator(checkCodeParam)]] });
   protected readonly codeField = this.form.controls.code;
   protected readonly controlMessage = controlMessage;
