@@ -1,6 +1,6 @@
 /**
  * "Read and understood": when a version comes into use, every operator assigned
- * to its machine acknowledges it before printing its bench sheet. Only an approved version
+ * to its machine acknowledges it before printing its bench sheet or logging a cut with it. Only an approved version
  * (current, or approved for a later day) of a machine the operator runs can be
  * acknowledged; a second acknowledgement answers the first one and records nothing.
  */
@@ -59,6 +59,23 @@ export async function requireAcknowledgedForSheet(db: Knex, viewer: Viewer, v: P
   const mine = await myAcknowledgement(db, viewer, v);
   if (mine?.required) {
     throw new AppError(409, 'ACKNOWLEDGE_FIRST', [{ path: '', message: 'Acknowledge this version (read and understood) before printing its sheet.' }]);
+  }
+}
+
+/**
+ * The same gate for logging a cut: a cut made with a version the operator has not read and
+ * understood would be traced to instructions they never confirmed.
+ */
+export async function requireAcknowledgedForCut(
+  db: Knex,
+  viewer: Viewer,
+  v: Pick<VersionRow, 'id' | 'status' | 'machine_id' | 'version'> & { number: string },
+): Promise<void> {
+  const mine = await myAcknowledgement(db, viewer, v);
+  if (mine?.required) {
+    throw new AppError(409, 'ACKNOWLEDGE_FIRST', [
+      { path: '', message: `Acknowledge version ${v.version} of ${v.number} (read and understood) before you log a cut with it.` },
+    ]);
   }
 }
 

@@ -355,7 +355,7 @@ export class RecipePage {
     const saved = await firstValueFrom(
       this.dialog
         .open<LogCutDialog, LogCutDialogData, CutRecordDto>(LogCutDialog, {
-          data: { recipeId: v.recipeId, number: v.number, title: v.title, version: v.version },
+          data: { recipeId: v.recipeId, number: v.number, title: v.title, version: v.version, mustAcknowledge: this.mustAcknowledge() },
           width: '600px',
           maxWidth: '95vw',
           autoFocus: 'first-tabbable',
