@@ -31,6 +31,7 @@ import {
 } from '@shared/vocabulary';
 import { askToAcknowledge } from '../../ui/acknowledge-dialog';
 import { mustAcknowledge } from '../../ui/acknowledgement-state';
+import { NotForUseBanner } from './not-for-use-banner';
 import { AcknowledgementsPanel } from '../acknowledge/acknowledgements-panel';
 import { isApiError } from '../../core/http/api-error';
 import { callerHandles } from '../../core/http/caller-handles';
@@ -85,6 +86,7 @@ const ATTACHMENT_ROLE_LABELS = { setup: 'Setup', 'good-face': 'Good cut face', '
     MatProgressBarModule,
     MatSelectModule,
     MatTabsModule,
+    NotForUseBanner,
     QuantityPipe,
     RecipeCutPower,
     RecipeCuts,
