@@ -6,7 +6,9 @@
  */
 import type { Knex } from 'knex';
 import type { Role } from '../../../shared/roles';
-import type { AcknowledgementsDto, MyAcknowledgementDto } from '../../../shared/recipe-types';
+import type { AcknowledgementsDto, ChangesSinceAcknowledgedDto, MyAcknowledgementDto } from '../../../shared/recipe-types';
+import type { UnitPreference } from '../../../shared/api-types';
+import { compareRecipeVersions } from './compare';
 import { AppError } from '../../app-error';
 import {
   activeOperatorsOfMachine,
@@ -14,6 +16,7 @@ import {
   findMachineName,
   insertAcknowledgement,
   isOperatorOfMachine,
+  lastAcknowledgementBefore,
   listAcknowledgementRows,
   type AcknowledgementRow,
 } from '../../data/acknowledgements';
@@ -149,5 +152,27 @@ export async function listAcknowledgements(db: Knex, scope: VersionScope, recipe
     machine: { id: v.machine_id, name: machineName ?? `machine ${v.machine_id}` },
     acknowledged: rows.map((r) => ({ userId: r.user_id, displayName: r.user_name, acknowledgedAt: new Date(r.acknowledged_at).toISOString() })),
     pending: pending.map((o) => ({ userId: o.id, displayName: o.display_name })),
+  };
+}
+
+/**
+ * GET /api/recipes/:id/versions/:n/changes-since-acknowledged: the comparison from the
+ * version of this recipe the person last acknowledged to this one, so "read and understood"
+ * is about what changed. Null when they never acknowledged an earlier version.
+ */
+export async function changesSinceAcknowledged(
+  db: Knex,
+  viewer: Viewer,
+  scope: VersionScope,
+  recipeId: number,
+  version: number,
+  pref: UnitPreference,
+): Promise<ChangesSinceAcknowledgedDto> {
+  await visibleVersion(db, scope, recipeId, version);
+  const last = await lastAcknowledgementBefore(db, recipeId, viewer.id, version);
+  if (!last) return { since: null, comparison: null };
+  return {
+    since: { version: last.version, acknowledgedAt: new Date(last.acknowledged_at).toISOString() },
+    comparison: await compareRecipeVersions(db, recipeId, last.version, version, pref, scope),
   };
 }

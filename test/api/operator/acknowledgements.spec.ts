@@ -5,7 +5,7 @@
  * yet; Today lists the versions in use an operator still has to acknowledge.
  */
 import { expect } from 'chai';
-import type { AcknowledgementsDto, RecipeVersionDto, TodayDto } from '../../../shared/recipe-types';
+import type { AcknowledgementsDto, ChangesSinceAcknowledgedDto, RecipeVersionDto, TodayDto } from '../../../shared/recipe-types';
 import { apiTestContext } from '../support/hooks';
 import { createPerson } from '../support/people';
 import { createStockSet, type StockSet } from '../support/stock';
@@ -206,5 +206,28 @@ describe('Acknowledgements', () => {
     expect((await operator.agent.get(`${path(coming)}/sheet.pdf`)).status).to.equal(409);
     expect((await acknowledge(colleague, coming)).status).to.equal(200);
     expect((await getSheet(colleague.agent, coming.recipeId, 2)).status).to.equal(200);
+  });
+
+  it('shows an operator what changed since the version of the recipe they last acknowledged, or says they never acknowledged one', async () => {
+    const v1 = await approved(author, approver, stock, { title: 'Changes since acknowledged' });
+    expect((await acknowledge(colleague, v1)).status).to.equal(200);
+    const draft = ok(await act.newVersion(author, v1.recipeId, 1, 'Feed lowered after burn marks.'), 201);
+    const saved = ok(await act.save(author, draft, { instructionsMd: 'Clamp both ends; feed gently at the exit.' }));
+    const v2 = ok(await act.approve(approver, ok(await act.submit(author, saved))));
+    const changes = (who: Session) => who.agent.get(`${path(v2)}/changes-since-acknowledged`);
+
+    const res = await changes(colleague);
+    expect(res.status, JSON.stringify(res.body)).to.equal(200);
+    const dto = res.body as ChangesSinceAcknowledgedDto;
+    expect(dto.since!.version).to.equal(1);
+    expect(Date.parse(dto.since!.acknowledgedAt)).to.be.a('number').and.not.NaN;
+    expect(dto.comparison!.from).to.include({ version: 1 });
+    expect(dto.comparison!.to).to.include({ version: 2 });
+    expect(dto.comparison!.texts.map((t) => t.path)).to.include('instructionsMd');
+
+    // Never acknowledged a version of this recipe: nothing to compare with.
+    expect((await changes(operatorAuthor)).body).to.deep.equal({ since: null, comparison: null });
+    expect((await changes(author)).status).to.equal(403);
+    expect((await colleague.agent.get(`/api/recipes/${v2.recipeId}/versions/99/changes-since-acknowledged`)).status).to.equal(404);
   });
 });
