@@ -63,6 +63,17 @@ export interface MyAcknowledgementDto {
   acknowledgedAt: string | null;
 }
 
+/**
+ * GET /api/recipes/:id/versions/:n/changes-since-acknowledged — for the operator about to
+ * acknowledge: what changed since the version of the recipe they last acknowledged.
+ */
+export interface ChangesSinceAcknowledgedDto {
+  /** The latest earlier version of this recipe the operator acknowledged; null when they never acknowledged one. */
+  since: { version: number; acknowledgedAt: string } | null;
+  /** From `since` to the version asked about; null when `since` is. */
+  comparison: RecipeComparison | null;
+}
+
 /** GET /api/recipes/:id/versions/:n/acknowledgements — who has read and understood a version. */
 export interface AcknowledgementsDto {
   recipeId: number;

@@ -1,12 +1,8 @@
 import { inject } from '@angular/core';
 import type { Routes } from '@angular/router';
-import type { Role } from '@shared/roles';
 import { type AccessData, accessGuard } from './core/session/access-guard';
 import { Session } from './core/session/session';
-
-function isOnlyOperator(roles: readonly Role[]): boolean {
-  return roles.length > 0 && roles.every((r) => r === 'operator');
-}
+import { isOnlyOperator } from './core/session/home-page';
 
 /**
  * The one route table. Every route declares who may open it in `data.access` (public,

@@ -69,10 +69,11 @@ describe('foundation in chromium', () => {
     expect(unexpectedErrors(w.consoleErrors)).to.deep.equal([]);
   });
 
-  it('shows an operator no People entry and keeps them out of /people', async () => {
+  it('lands an operator on the Finder, shows them no People entry and keeps them out of /people', async () => {
     const { page } = w;
     await signIn(page, operator.username, operator.password);
-    await page.waitForURL(/\/today/);
+    // Operators start at the Finder, not at Today.
+    await page.waitForURL(/\/finder/);
     const entries = await navEntries(page);
     expect(entries).to.include('Today');
     expect(entries).to.not.include('People');

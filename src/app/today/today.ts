@@ -112,7 +112,8 @@ export class Today {
       });
     }
     const operator = has('operator');
-    if (t.flaggedCuts.length || operator) {
+    // For the authors who look at them (the server sends them no one else): an operator who is not an author never gets an always-empty panel.
+    if (t.flaggedCuts.length) {
       lists.push({
         id: 'flaggedCuts',
         title: 'Cuts flagged by operators',

@@ -32,6 +32,7 @@ import {
 } from '@shared/vocabulary';
 import { askToAcknowledge } from '../../ui/acknowledge-dialog';
 import { mustAcknowledge } from '../../ui/acknowledgement-state';
+import { NotForUseBanner } from './not-for-use-banner';
 import { AcknowledgementsPanel } from '../acknowledge/acknowledgements-panel';
 import { isApiError } from '../../core/http/api-error';
 import { callerHandles } from '../../core/http/caller-handles';
@@ -89,6 +90,7 @@ const ATTACHMENT_ROLE_LABELS = { setup: 'Setup', 'good-face': 'Good cut face', '
     MatProgressBarModule,
     MatSelectModule,
     MatTabsModule,
+    NotForUseBanner,
     QuantityPipe,
     RecipeCutPower,
     RecipeCuts,
@@ -370,7 +372,7 @@ export class RecipePage {
     const saved = await firstValueFrom(
       this.dialog
         .open<LogCutDialog, LogCutDialogData, CutRecordDto>(LogCutDialog, {
-          data: { recipeId: v.recipeId, number: v.number, title: v.title, version: v.version },
+          data: { recipeId: v.recipeId, number: v.number, title: v.title, version: v.version, mustAcknowledge: this.mustAcknowledge() },
           width: '600px',
           maxWidth: '95vw',
           autoFocus: 'first-tabbable',
