@@ -128,6 +128,7 @@ describe('RecipePage', () => {
     // 60 000·80/(π·250) = 6111.5 rpm, floored.
     expect(root().querySelector('[data-testid="marked-maximum"]')!.textContent!.trim()).toBe('80 m/s (marked) · 6111 rpm at 250 mm');
     expect(root().querySelector('[data-testid="restrictions"]')!.textContent!.trim()).toBe('Not for side grinding');
+    await (await TestbedHarnessEnvironment.loader(harness.fixture).getHarness(MatTabGroupHarness)).selectTab({ label: 'Instructions' });
     const cautions = root().querySelector('kb-standard-cautions')!;
     const fire = cautions.querySelector('[data-caution="combustible-fines"]')!.textContent!;
     expect(fire).toContain('Metal fines that can burn');
@@ -168,8 +169,26 @@ describe('RecipePage', () => {
     expect(parameters).toContain('0.50 mm/s');
     expect(parameters).toContain('Vise with backstop');
     expect(parameters).toContain('5 % v/v');
-    // The standard cautions sit under the tabs, with the line that local rules take precedence.
+    // The standard cautions sit once on the page, in the Instructions tab beside the recipe's own,
+    // with the line that local rules take precedence.
+    expect(root().querySelector('kb-standard-cautions')).toBeNull();
+    await tabs.selectTab({ label: 'Instructions' });
+    expect(root().querySelectorAll('kb-standard-cautions')).toHaveLength(1);
     expect(root().querySelector('kb-standard-cautions')!.textContent).toContain("the machine's manual and the lab's licensed safety practice take precedence");
+  });
+
+  it('shows the standard cautions once, in the Instructions tab only, not under every tab', async () => {
+    await open('/recipes/3');
+    await answerVersions([draft, approved]);
+    await answerStock();
+    const tabs = await TestbedHarnessEnvironment.loader(harness.fixture).getHarness(MatTabGroupHarness);
+    const found: string[] = [];
+    for (const label of ['Parameters', 'Computed', 'Checks', 'Instructions']) {
+      await tabs.selectTab({ label: new RegExp(`^${label}`) });
+      const count = root().querySelectorAll('kb-standard-cautions').length;
+      if (count) found.push(`${label}: ${count}`);
+    }
+    expect(found).toEqual(['Instructions: 1']);
   });
 
   it('lists the checks worst first, each with an icon and a word for its severity', async () => {
