@@ -1,3 +1,4 @@
+import { LowerCasePipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, computed, effect, inject, signal } from '@angular/core';
 import { takeUntilDestroyed, toSignal } from '@angular/core/rxjs-interop';
 import { NonNullableFormBuilder, ReactiveFormsModule, type ValidatorFn } from '@angular/forms';
@@ -57,6 +58,7 @@ function optionalNumber(schema: (typeof finderQuery.shape)['sizeMm' | 'hardnessV
 @Component({
   selector: 'kb-finder',
   imports: [
+    LowerCasePipe,
     MatAutocompleteModule,
     MatButtonModule,
     MatFormFieldModule,
