@@ -468,6 +468,33 @@ describe('RecipePage', () => {
       expect(items[1].querySelector('a[href="/recipes/3?v=1"]')).not.toBeNull();
       expect(items[1].querySelector('a[href*="compare"]')).toBeNull();
     });
+
+    it('shows in the History tab each time a version was returned: who, when and the comment', async () => {
+      const current = aRecipeVersion({
+        version: 1,
+        status: 'approved',
+        workflow: workflow({
+          signatures: [signature],
+          returns: [
+            { returnedAt: '2026-11-21T10:00:00.000Z', returnedBy: { id: 9, name: 'Tomas Berg' }, comment: 'Feed is too high for this hardness.' },
+            { returnedAt: '2026-11-24T15:45:00.000Z', returnedBy: { id: 11, name: 'Aino Virta' }, comment: 'Give the clamp positions in mm.' },
+          ],
+        }),
+      });
+      await open('/recipes/3', ['auditor']);
+      await answerVersions([current]);
+      await answerStock();
+      const tabs = await TestbedHarnessEnvironment.loader(harness.fixture).getHarness(MatTabGroupHarness);
+      await tabs.selectTab({ label: 'History' });
+      await harness.fixture.whenStable();
+
+      const rounds = Array.from(root().querySelectorAll<HTMLElement>('.kb-history-item [data-testid="returned-round"]'));
+      expect(rounds.map((r) => r.textContent!.replace(/\s+/g, ' ').trim())).toEqual([
+        'Returned 21 Nov 2026, 10:00 UTC by Tomas Berg: Feed is too high for this hardness.',
+        'Returned 24 Nov 2026, 15:45 UTC by Aino Virta: Give the clamp positions in mm.',
+      ]);
+      expect(root().querySelector('.kb-history-item')!.textContent).toContain('Returned to its author 2 times');
+    });
   });
 
   describe('operator station', () => {
