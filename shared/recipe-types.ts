@@ -144,6 +144,15 @@ export interface VersionWorkflowDto {
   withdrawnReason: string | null;
   /** Everyone who authored or edited this version: they may not approve it. */
   editorIds: number[];
+  /** Each time the version went back to its author, oldest first (from the trail's "version returned" events). */
+  returns?: ReturnRoundDto[];
+}
+
+/** One return of a version to its author: who, when (ISO, UTC) and their comment. */
+export interface ReturnRoundDto {
+  returnedAt: string;
+  returnedBy: { id: number | null; name: string };
+  comment: string;
 }
 
 /** One changed parameter between two versions. */

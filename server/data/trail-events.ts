@@ -138,3 +138,13 @@ export async function listTrailEventRows(db: Knex, filter: TrailFilter, limit: n
   if (filter.beforeId !== undefined) q.where('id', '<', filter.beforeId);
   return q;
 }
+
+/** The events of one type recorded against any of these versions, oldest first. */
+export async function listVersionEventRows(db: Knex, eventType: string, versionIds: readonly number[]): Promise<StoredTrailEventRow[]> {
+  if (versionIds.length === 0) return [];
+  return db('trail_events')
+    .where({ entity_type: 'recipe_version', event_type: eventType })
+    .whereIn('entity_id', versionIds.map(String))
+    .orderBy('id', 'asc')
+    .select(CHAIN_COLUMNS);
+}

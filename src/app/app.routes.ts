@@ -114,6 +114,16 @@ export const routes: Routes = [
         data: { access: 'signedIn' } satisfies AccessData,
         loadComponent: () => import('./not-allowed/not-allowed').then((m) => m.NotAllowed),
       },
+      // A signed-in person who follows a dead link stays in the app, with its navigation;
+      // anyone else falls through to the public page below.
+      {
+        path: '**',
+        title: 'Page not found · Kerfbook',
+        canMatch: [() => inject(Session).isSignedIn()],
+        canActivate: [accessGuard],
+        data: { access: 'signedIn' } satisfies AccessData,
+        loadComponent: () => import('./not-found/not-found').then((m) => m.NotFound),
+      },
     ],
   },
   {

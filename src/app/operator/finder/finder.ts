@@ -1,3 +1,4 @@
+import { LowerCasePipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, computed, effect, inject, signal } from '@angular/core';
 import { takeUntilDestroyed, toSignal } from '@angular/core/rxjs-interop';
 import { NonNullableFormBuilder, ReactiveFormsModule, type ValidatorFn } from '@angular/forms';
@@ -60,6 +61,7 @@ function optionalNumber(schema: (typeof finderQuery.shape)['sizeMm' | 'hardnessV
   selector: 'kb-finder',
   imports: [
     DecimalInput,
+    LowerCasePipe,
     MatAutocompleteModule,
     MatButtonModule,
     MatFormFieldModule,

@@ -151,6 +151,9 @@ function aDraft(overrides: Partial<RecipeVersionDto> = {}): RecipeVersionDto {
 }
 
 describe('RecipeEditor', () => {
+  /** More wheels and selection rows for one test (reset after each). */
+  let extraWheels: WheelRecord[] = [];
+  let extraRows: SelectionRow[] = [];
   let fixture: ComponentFixture<RecipeEditor>;
   let backend: HttpTestingController;
   let root: HTMLElement;
@@ -180,8 +183,8 @@ describe('RecipeEditor', () => {
     const page = (items: unknown[]) => ({ items, total: items.length, page: 0, pageSize: 200 });
     backend.expectOne((r) => r.url === '/api/materials').flush(page([MATERIAL, COATED]));
     backend.expectOne((r) => r.url === '/api/machines').flush(page([MACHINE]));
-    backend.expectOne((r) => r.url === '/api/wheels').flush(page([WHEEL]));
-    backend.expectOne('/api/selection-rows').flush(ROWS);
+    backend.expectOne((r) => r.url === '/api/wheels').flush(page([WHEEL, ...extraWheels]));
+    backend.expectOne('/api/selection-rows').flush([...ROWS, ...extraRows]);
     backend.expectOne('/api/settings/limits').flush(LIMITS);
     if (id) backend.expectOne(`/api/recipes/${id}/versions`).flush(versions);
     await afterLoad();
@@ -195,6 +198,8 @@ describe('RecipeEditor', () => {
   }
 
   afterEach(() => {
+    extraWheels = [];
+    extraRows = [];
     backend.verify();
     document.querySelectorAll('.cdk-overlay-container').forEach((el) => (el.innerHTML = ''));
   });
@@ -267,6 +272,19 @@ describe('RecipeEditor', () => {
     await until(() => expect(text('[data-testid="wheel-suggestion"]')).toContain('Suggested for this material: Alumina 250'));
     [...root.querySelectorAll<HTMLButtonElement>('[data-testid="wheel-suggestion"] button')].find((b) => b.textContent?.includes('Use Alumina 250'))!.click();
     await until(() => expect(text('[data-testid="wheel-suggestion"]')).toContain('In use'));
+  });
+
+  it('offers no "use" button for a suggested wheel the machine does not take, and says why', async () => {
+    // Ø400 mm on a saw that takes 200–300 mm wheels.
+    extraWheels = [{ ...WHEEL, id: 8, name: 'Alumina 400', diameterMm: 400, maxSpeedRpm: 3819.72 }];
+    extraRows = [{ id: 2, group: 'plain-low-alloy-steel', hardness: null, wheelId: 8, note: '' }];
+    await open('3', [aDraft()]);
+    await until(() => expect(text('[data-testid="wheel-suggestion"]')).toContain('Alumina 400'));
+    // Alumina 250 is in use; Alumina 400 does not fit: no button at all.
+    const buttons = [...root.querySelectorAll<HTMLButtonElement>('[data-testid="wheel-suggestion"] button')].map((b) => b.textContent?.trim());
+    expect(buttons).toEqual([]);
+    expect(text('[data-testid="wheel-suggestion"]')).toContain('In use');
+    expect(text('[data-testid="wheel-suggestion"]')).toContain('Ø400 mm is outside the wheel sizes Bench saw B2 takes.');
   });
 
   it('saves with the revision the edit was based on, then with the one the server returned', async () => {
