@@ -14,7 +14,7 @@ import type { Page as ListPage } from '../../shared/api-types';
 import { DEMO_ACCOUNTS } from '../../seeds/data/demo-accounts';
 import { type ApiSession, apiSignIn } from './support/api';
 import { BASE_URL, launch, screenshot } from './support/browser';
-import { choose, signIn } from './support/steps';
+import { choose, dialogSettled, signIn } from './support/steps';
 
 const author = DEMO_ACCOUNTS.find((a) => a.roles.includes('author'))!;
 
@@ -95,6 +95,7 @@ describe('decimal signs in number fields (chromium, German and English locales)'
           await page.goto(`${BASE_URL}/stock/machines`);
           await page.getByRole('button', { name: 'Actions for Bay 2 bench saw' }).click();
           await page.getByRole('menuitem', { name: 'Edit' }).click();
+          await dialogSettled(page);
           await type(page, 'Motor power', typed);
           await page.getByRole('button', { name: 'Save changes' }).click();
           await page.getByRole('dialog').waitFor({ state: 'detached' });

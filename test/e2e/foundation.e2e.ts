@@ -8,7 +8,7 @@ import { expect } from 'chai';
 import type { Browser } from 'playwright-core';
 import { DEMO_ACCOUNTS } from '../../seeds/data/demo-accounts';
 import { BASE_URL, type WatchedPage, launch, openPage, screenshot } from './support/browser';
-import { navEntries, signIn, signOut, unexpectedErrors } from './support/steps';
+import { dialogSettled, navEntries, signIn, signOut, unexpectedErrors } from './support/steps';
 
 const admin = DEMO_ACCOUNTS.find((a) => a.roles.includes('admin'))!;
 const operator = DEMO_ACCOUNTS.find((a) => a.roles.includes('operator'))!;
@@ -97,8 +97,7 @@ describe('foundation in chromium', () => {
 
     await page.getByRole('button', { name: 'Add person' }).click();
     const dialog = page.getByRole('dialog');
-    // The dialog moves focus to its first field once it has opened; typing before that races it.
-    await page.waitForFunction(() => document.activeElement?.closest('[role="dialog"]') != null);
+    await dialogSettled(page);
     await dialog.getByLabel('Username', { exact: true }).fill(newcomer.username);
     await dialog.getByLabel('Name', { exact: true }).fill(newcomer.name);
     await dialog.getByRole('checkbox', { name: /Operator/ }).check();
