@@ -10,13 +10,13 @@ import { DEMO_HISTORY, type DemoStep } from './data/demo-workflow';
 
 const DAY_MS = 24 * 60 * 60 * 1000;
 
-async function demoApprover(knex: Knex): Promise<{ actor: Actor; password: string }> {
+async function demoApprover(knex: Knex): Promise<{ actor: Actor; username: string; password: string }> {
   const account = DEMO_ACCOUNTS.find((a) => a.roles.includes('approver'));
   const row = account
     ? ((await knex('users').where({ username: account.username }).first('id', 'display_name')) as { id: number; display_name: string } | undefined)
     : undefined;
   if (!account || !row) throw new Error('The demo approver is missing: the people seed must run first.');
-  return { actor: { userId: row.id, name: row.display_name, clientAddress: '' }, password: account.password };
+  return { actor: { userId: row.id, name: row.display_name, clientAddress: '' }, username: account.username, password: account.password };
 }
 
 /**
@@ -55,7 +55,7 @@ async function play(
   v: RecipeVersionDto,
   at: Date,
   author: Actor,
-  approver: { actor: Actor; password: string },
+  approver: { actor: Actor; username: string; password: string },
 ): Promise<RecipeVersionDto> {
   const { recipeId, version, revision } = v;
   switch (step.kind) {
@@ -71,6 +71,7 @@ async function play(
         version,
         {
           revision,
+          username: approver.username,
           password: approver.password,
           meaning: 'approved',
           comment: step.comment ?? '',
@@ -81,7 +82,14 @@ async function play(
         at,
       );
     case 'withdraw':
-      return withdrawVersion(knex, approver.actor, recipeId, version, { revision, password: approver.password, meaning: 'withdrawn', reason: step.reason }, at);
+      return withdrawVersion(
+        knex,
+        approver.actor,
+        recipeId,
+        version,
+        { revision, username: approver.username, password: approver.password, meaning: 'withdrawn', reason: step.reason },
+        at,
+      );
     case 'new-version': {
       const draft = await createNextVersion(knex, author, recipeId, { fromVersion: version, changeReason: step.changeReason }, at);
       return saveDraft(knex, author, recipeId, draft.version, { revision: draft.revision, title: draft.title, content: step.change(draft.content) }, at);

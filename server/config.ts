@@ -109,3 +109,25 @@ export function readLinkAddress(env: NodeJS.ProcessEnv = process.env): Pick<Conf
   const e = parsed.success ? parsed.data : { HOST: '127.0.0.1', PORT: 4300, APP_BASE_URL: undefined };
   return { host: e.HOST, port: e.PORT, ...(e.APP_BASE_URL !== undefined ? { appBaseUrl: e.APP_BASE_URL } : {}) };
 }
+
+/** Addresses only this computer can reach: 127.0.0.0/8, ::1 and localhost. */
+function isLoopback(host: string): boolean {
+  const h = host.toLowerCase().replace(/^\[|\]$/g, '');
+  return h === 'localhost' || h === '::1' || /^(::ffff:)?127\.\d{1,3}\.\d{1,3}\.\d{1,3}$/.test(h);
+}
+
+/**
+ * The start-up warning when the app listens beyond this computer and APP_BASE_URL is unset:
+ * links in mails then carry the listen address (0.0.0.0 opens nowhere), and a sheet printed
+ * from a browser on the server itself carries a QR code of that browser's address. Null
+ * when there is nothing to warn about.
+ */
+export function publicAddressWarning(config: Pick<Config, 'host' | 'port' | 'appBaseUrl'>): string | null {
+  if (config.appBaseUrl || isLoopback(config.host)) return null;
+  const listen = `${config.host.includes(':') ? `[${config.host}]` : config.host}:${config.port}`;
+  return (
+    `APP_BASE_URL is not set, but Kerfbook listens on ${listen}, beyond this computer. ` +
+    'Links in mails and QR codes on printed bench sheets may point at an address nobody at the saw can open. ' +
+    'Set APP_BASE_URL to the address people use, e.g. https://kerfbook.lab.example, and restart.'
+  );
+}

@@ -2,7 +2,7 @@
  * `npm run serve`: reads the environment, connects to MariaDB, listens and runs the
  * background jobs. Runs no migrations.
  */
-import { readConfig } from './config';
+import { publicAddressWarning, readConfig } from './config';
 import { createDb } from './data/db';
 import { startJobs } from './jobs';
 import { serve } from './serve';
@@ -20,6 +20,8 @@ try {
   const server = await serve(config, db);
   const jobs = startJobs({ db, config });
   console.log(`Kerfbook is listening on ${server.url}`);
+  const warning = publicAddressWarning(config);
+  if (warning) console.warn(`Warning: ${warning}`);
   let stopping = false;
   const stop = async (signal: string) => {
     if (stopping) return;

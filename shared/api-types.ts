@@ -31,6 +31,11 @@ export interface SessionDto {
   csrfToken: string;
   /** True when this server keeps a development outbox (GET /api/dev/outbox); false in production. */
   devOutbox: boolean;
+  /**
+   * True until the person completes a signing with username and password in this session;
+   * until then a signature asks for both (21 CFR 11.200(a)(1)(i)).
+   */
+  signatureNeedsUsername: boolean;
 }
 
 /** GET /api/session/csrf — a token for the anonymous session (needed to sign in). */

@@ -32,6 +32,7 @@ import { spindleOverspeed } from './spindle-speed';
 import { wheelSafetyStandard, wheelStandards } from './wheel-standards';
 import { formatQuantity } from './units';
 import { motorShareText } from './cutting-power';
+import { MOTION_CHECK_IDS, motionSettingChecks } from './motion-checks';
 
 /** blocker: cannot be submitted; warning: the approver must acknowledge it; note: for information. */
 export type CheckSeverity = 'blocker' | 'warning' | 'note';
@@ -719,6 +720,9 @@ const RULES: readonly Rule[] = [
   },
 
   cuttingPowerCheck,
+
+  // The cut motion's own settings against the recipe's sizes (motion-checks.ts).
+  ({ content }) => motionSettingChecks(content),
 ];
 
 /** Every rule id runChecks can report. */
@@ -761,6 +765,7 @@ export const CHECK_IDS = [
   'stock-archived',
   'cutting-power-high',
   'motor-power-unknown',
+  ...MOTION_CHECK_IDS,
 ] as const;
 export type CheckId = (typeof CHECK_IDS)[number];
 

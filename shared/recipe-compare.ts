@@ -7,6 +7,7 @@ import { diffLines, diffWordsWithSpace } from 'diff';
 import type { UnitPreference } from './api-types';
 import type { ParameterChange, RecipeComparison, TextChange } from './recipe-types';
 import type { RecipeContent } from './schemas/recipe';
+import { formatMotionSetting, MOTION_SETTING_UNITS } from './motion-settings';
 import { formatQuantity, NO_VALUE, type QuantityKind } from './units';
 import {
   CLAMPING_METHOD_LABELS,
@@ -14,6 +15,8 @@ import {
   CUT_MOTION_LABELS,
   CUT_ORIENTATION_LABELS,
   MATERIAL_GROUP_LABELS,
+  MOTION_SETTING_LABELS,
+  MOTION_SETTINGS,
   SHAPE_LABELS,
   WHEEL_PATH_LABELS,
 } from './vocabulary';
@@ -110,6 +113,13 @@ export const PARAMETER_FIELDS: readonly ParameterField[] = [
   { path: 'cutting.entryLengthMm', label: 'Entry length', format: quantity('length'), unit: 'mm' },
   { path: 'cutting.cutMotion', label: 'Cut motion', format: label(CUT_MOTION_LABELS) },
   { path: 'cutting.passes', label: 'Passes', format: (v) => (typeof v === 'number' ? String(v) : 'Single cut') },
+  // The cut motion's settings; content stored before they existed has no keys: "not given".
+  ...MOTION_SETTINGS.map((key): ParameterField => ({
+    path: `cutting.${key}`,
+    label: MOTION_SETTING_LABELS[key],
+    format: (v, _names, pref) => (typeof v === 'number' ? formatMotionSetting(key, v, pref) : 'Not given'),
+    unit: MOTION_SETTING_UNITS[key],
+  })),
   { path: 'clamping.method', label: 'Clamping method', format: label(CLAMPING_METHOD_LABELS, 'None chosen') },
   { path: 'clamping.bothSides', label: 'Clamped on both sides of the cut', format: yesNo },
   { path: 'clamping.softInserts', label: 'Soft inserts', format: yesNo },

@@ -22,6 +22,10 @@ export interface RecipeSummary {
   /** Worst check severity of the latest version, for a badge. */
   worstCheck: 'blocker' | 'warning' | 'note' | null;
   updatedAt: string;
+  /** The current version's periodic review date (YYYY-MM-DD, UTC), where the list reads it; null otherwise. */
+  reviewDueOn: string | null;
+  /** That date has passed (server's UTC day). */
+  reviewOverdue: boolean;
 }
 
 export interface RecipeVersionDto {
@@ -57,6 +61,17 @@ export interface MyAcknowledgementDto {
   required: boolean;
   /** ISO 8601 UTC, when they acknowledged; null while still to do. */
   acknowledgedAt: string | null;
+}
+
+/**
+ * GET /api/recipes/:id/versions/:n/changes-since-acknowledged — for the operator about to
+ * acknowledge: what changed since the version of the recipe they last acknowledged.
+ */
+export interface ChangesSinceAcknowledgedDto {
+  /** The latest earlier version of this recipe the operator acknowledged; null when they never acknowledged one. */
+  since: { version: number; acknowledgedAt: string } | null;
+  /** From `since` to the version asked about; null when `since` is. */
+  comparison: RecipeComparison | null;
 }
 
 /** GET /api/recipes/:id/versions/:n/acknowledgements — who has read and understood a version. */
@@ -129,6 +144,15 @@ export interface VersionWorkflowDto {
   withdrawnReason: string | null;
   /** Everyone who authored or edited this version: they may not approve it. */
   editorIds: number[];
+  /** Each time the version went back to its author, oldest first (from the trail's "version returned" events). */
+  returns?: ReturnRoundDto[];
+}
+
+/** One return of a version to its author: who, when (ISO, UTC) and their comment. */
+export interface ReturnRoundDto {
+  returnedAt: string;
+  returnedBy: { id: number | null; name: string };
+  comment: string;
 }
 
 /** One changed parameter between two versions. */
@@ -170,9 +194,18 @@ export interface TrailEventDto {
   before: unknown;
   after: unknown;
   clientAddress: string | null;
+  /** The record as people know it ("KB-0017 v1", a person's or a material's name); read, never chained. */
+  what: string;
   /** SHA-256 of the previous row and of this row (hex). */
   prevHash: string;
   hash: string;
+}
+
+/** A person as the trail's person filter lists them. */
+export interface PersonNameDto {
+  id: number;
+  displayName: string;
+  active: boolean;
 }
 
 export interface TrailPage {
@@ -195,6 +228,8 @@ export interface TodayDto {
   reviewsDue: (RecipeSummary & { reviewDueOn: string })[];
   flaggedCuts: { recipeId: number; number: string; title: string; count: number }[];
   toAcknowledge: RecipeSummary[];
+  /** Start-up warnings for admins (e.g. APP_BASE_URL unset while listening beyond loopback); empty for everyone else. */
+  notices: string[];
 }
 
 /** One finder hit: the current approved version of a recipe and why it matches. */

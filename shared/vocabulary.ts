@@ -152,6 +152,9 @@ export const RECIPE_STATUS_PHRASES: Record<RecipeStatus, string> = {
   withdrawn: 'withdrawn',
 };
 
+/** A check finding's severity as a word (always beside its icon and colour). */
+export const CHECK_SEVERITY_LABELS = { blocker: 'Blocker', warning: 'Warning', note: 'Note' } as const;
+
 /** What an operator reports about a cut; anything but `good` flags the recipe for its author. */
 export const CUT_OUTCOMES = ['good', 'burnt', 'deformed', 'wheel-failure', 'other'] as const;
 export type CutOutcome = (typeof CUT_OUTCOMES)[number];
@@ -266,3 +269,175 @@ export const WHEEL_PATH_LABELS: Record<WheelPath, string> = {
   'enters-and-exits-coating': 'Enters and leaves through the coating (coated all round, cut straight through)',
   'not-applicable': 'Not applicable: the cut does not cross the coating',
 };
+
+/** How dates read on every screen, chosen by the lab; the stored value is the id. */
+export const DATE_FORMATS = ['iso', 'dmy-dot', 'dmy-slash', 'mdy-slash'] as const;
+export type DateFormat = (typeof DATE_FORMATS)[number];
+
+export const DATE_FORMAT_LABELS: Record<DateFormat, string> = {
+  iso: 'Year-month-day, 2026-12-05 (ISO 8601)',
+  'dmy-dot': 'Day.month.year, 05.12.2026',
+  'dmy-slash': 'Day/month/year, 05/12/2026',
+  'mdy-slash': 'Month/day/year, 12/05/2026',
+};
+
+/** Paper the bench sheet is laid out for. */
+export const SHEET_PAPERS = ['A4', 'Letter'] as const;
+export type SheetPaper = (typeof SHEET_PAPERS)[number];
+
+export const SHEET_PAPER_LABELS: Record<SheetPaper, string> = {
+  A4: 'A4 (210 × 297 mm, ISO 216)',
+  Letter: 'US Letter (8.5 × 11 in)',
+};
+
+/** The lab's default units for people who have not chosen their own. */
+export const UNIT_PREFERENCES = ['metric', 'metric+imperial'] as const;
+
+export const UNIT_PREFERENCE_LABELS: Record<(typeof UNIT_PREFERENCES)[number], string> = {
+  metric: 'Metric',
+  'metric+imperial': 'Metric, with imperial beside it',
+};
+
+/** The trail's word for a change of the lab's settings. */
+export const LAB_SETTINGS_EVENT_LABEL = 'Lab settings changed';
+
+/**
+ * Trail event types in words. The stored code (the key) stays in every row's hash and in the
+ * CSV; screens show these words and keep the code at hand in a tooltip.
+ */
+export const TRAIL_EVENT_LABELS: Record<string, string> = {
+  'user.created': 'Person added',
+  'user.roles_changed': 'Roles changed',
+  'user.details_changed': 'Person’s details changed',
+  'user.deactivated': 'Person deactivated',
+  'user.reactivated': 'Person reactivated',
+  'user.temporary_password_set': 'Temporary password set',
+  'user.password_changed': 'Own password changed',
+  'user.preferences_changed': 'Preferences changed',
+  'user.invited': 'Person invited',
+  'user.invitation_resent': 'Invitation sent again',
+  'user.machines_changed': 'Machines assigned changed',
+  'user.password_set_by_link': 'Password set through a link',
+  'user.password_reset_requested': 'Password reset asked for',
+  'user.notification_preferences_changed': 'Mail preferences changed',
+  'session.signed_in': 'Signed in',
+  'session.sign_in_failed': 'Sign-in refused',
+  'session.signed_out': 'Signed out',
+  'material.created': 'Material added',
+  'material.updated': 'Material changed',
+  'material.archived': 'Material archived',
+  'material.unarchived': 'Material back in use',
+  'material.deleted': 'Material deleted',
+  'wheel.created': 'Wheel added',
+  'wheel.updated': 'Wheel changed',
+  'wheel.archived': 'Wheel archived',
+  'wheel.unarchived': 'Wheel back in use',
+  'wheel.deleted': 'Wheel deleted',
+  'machine.created': 'Machine added',
+  'machine.updated': 'Machine changed',
+  'machine.archived': 'Machine archived',
+  'machine.unarchived': 'Machine back in use',
+  'machine.deleted': 'Machine deleted',
+  'selection_row.created': 'Selection row added',
+  'selection_row.updated': 'Selection row changed',
+  'selection_row.deleted': 'Selection row deleted',
+  'recipe.created': 'Recipe created',
+  'recipe.draft_saved': 'Draft saved',
+  'attachment.added': 'Photo added',
+  'attachment.deleted': 'Photo removed',
+  'recipe.version_submitted': 'Version sent for review',
+  'recipe.version_returned': 'Version returned to the author',
+  'recipe.version_approved': 'Version approved (signed)',
+  'recipe.version_effective': 'Version in use',
+  'recipe.version_superseded': 'Version superseded',
+  'recipe.version_withdrawn': 'Version withdrawn (signed)',
+  'recipe.version_created': 'New version started',
+  'recipe.review_comment_added': 'Review comment added',
+  'sheet.printed': 'Bench sheet printed',
+  'cut.recorded': 'Cut logged',
+  'cut.flag_cleared': 'Cut flag cleared',
+  'recipe.version_acknowledged': 'Version acknowledged',
+  'lab_settings.changed': LAB_SETTINGS_EVENT_LABEL,
+};
+
+/** An event type in words; a type without words yet (a newer server) shows its code. */
+export function trailEventLabel(type: string): string {
+  return TRAIL_EVENT_LABELS[type] ?? type;
+}
+
+/** Families an auditor filters the trail by; an event may belong to more than one (an approval is a recipe event and a signature). */
+export const TRAIL_FAMILIES = ['recipes', 'signatures', 'shop-floor', 'stock', 'people', 'sign-ins', 'settings'] as const;
+export type TrailFamily = (typeof TRAIL_FAMILIES)[number];
+
+export const TRAIL_FAMILY_LABELS: Record<TrailFamily, string> = {
+  recipes: 'Recipes and photos',
+  signatures: 'Signatures',
+  'shop-floor': 'Sheets, cuts and acknowledgements',
+  stock: 'Stock (materials, wheels, machines, selection table)',
+  people: 'People and accounts',
+  'sign-ins': 'Sign-ins and sign-outs',
+  settings: 'Lab settings',
+};
+
+/** The kinds of record a trail event is about, in words (a stand-in when a record has no name to show). */
+export const TRAIL_ENTITY_LABELS: Record<string, string> = {
+  recipe: 'Recipe',
+  recipe_version: 'Recipe version',
+  attachment: 'Photo',
+  material: 'Material',
+  wheel: 'Wheel',
+  machine: 'Machine',
+  selection_row: 'Selection row',
+  user: 'Person',
+  lab_settings: 'Lab settings',
+};
+
+/** The marker a recipe carries while its current version's periodic review date has passed. */
+export const REVIEW_OVERDUE_LABEL = 'Review overdue';
+
+/**
+ * The settings a cut motion carries, stored in the recipe's cutting section (each null when
+ * not given). A pulsed plunge is set by distance (advance and retract per pulse) or by time
+ * (feeding time and pause per pulse); rocking by its swing angle or its stroke. The number of
+ * passes of a traverse or stepped cut is the cutting section's `passes`.
+ */
+export const MOTION_SETTINGS = [
+  'pulseAdvanceMm',
+  'pulseRetractMm',
+  'pulseFeedS',
+  'pulsePauseS',
+  'rockingAngleDeg',
+  'rockingStrokeMm',
+  'specimenRpm',
+  'depthPerPassMm',
+  'stepDepthMm',
+] as const;
+export type MotionSetting = (typeof MOTION_SETTINGS)[number];
+
+export const MOTION_SETTING_LABELS: Record<MotionSetting, string> = {
+  pulseAdvanceMm: 'Advance per pulse',
+  pulseRetractMm: 'Retract per pulse',
+  pulseFeedS: 'Feeding time per pulse',
+  pulsePauseS: 'Pause between pulses',
+  rockingAngleDeg: 'Rocking angle (total swing)',
+  rockingStrokeMm: 'Rocking stroke',
+  specimenRpm: 'Specimen speed',
+  depthPerPassMm: 'Depth per pass',
+  stepDepthMm: 'Step depth',
+};
+
+/** Which settings belong to which motion (a straight plunge has none). */
+export const CUT_MOTION_SETTINGS: Record<CutMotion, readonly MotionSetting[]> = {
+  'straight-plunge': [],
+  'pulsed-plunge': ['pulseAdvanceMm', 'pulseRetractMm', 'pulseFeedS', 'pulsePauseS'],
+  rocking: ['rockingAngleDeg', 'rockingStrokeMm'],
+  'turning-specimen': ['specimenRpm'],
+  'traverse-pass': ['depthPerPassMm'],
+  'stepped-depth': ['stepDepthMm'],
+};
+
+/**
+ * Where the check code is printed on a bench sheet (the sheet's header and every page's
+ * foot): the check page's hints say it in these words.
+ */
+export const CHECK_CODE_PLACE = 'under the QR code at the top right of the bench sheet, and at the foot of every page';

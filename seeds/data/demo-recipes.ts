@@ -5,7 +5,7 @@
  * wheel's marked maximum, feed 0.05–1.0 mm/s; precision saw up to 5000 rpm and
  * 0.005–0.2 mm/s; coolant 2–5 % v/v) and every recipe passes the checks without a blocker.
  */
-import type { RecipeClamping, RecipeCoolant, RecipeCutting, RecipeScope } from '../../shared/schemas/recipe';
+import { NO_MOTION_SETTINGS, type RecipeClamping, type RecipeCoolant, type RecipeCutting, type RecipeScope } from '../../shared/schemas/recipe';
 
 export interface DemoRecipe {
   title: string;
@@ -50,6 +50,7 @@ const cut = (
   entryLengthMm: null,
   cutMotion,
   passes: null,
+  ...NO_MOTION_SETTINGS,
   ...extra,
 });
 
@@ -113,7 +114,8 @@ export const DEMO_RECIPES: DemoRecipe[] = [
     machine: FLOOR,
     wheel: 'Alumina 350 hard',
     scope: round('plain-low-alloy-steel', 40, 110, { min: 25, max: 35, scale: 'HRC' }),
-    cutting: cut(2800, 0.35, 'rocking', { entryFeedMmS: 0.15, entryLengthMm: 3 }),
+    // Invented demo settings: an 8 mm rocking stroke keeps the contact short on the big bars.
+    cutting: cut(2800, 0.35, 'rocking', { entryFeedMmS: 0.15, entryLengthMm: 3, rockingStrokeMm: 8 }),
     clamping: clamp('vise-backstop', 'Both vises, bar supported on V-shaped jaws; offcut side on the support block.', { supportBlocks: true }),
     coolant: wet(4, 12),
     instructionsMd: `${STEPS_ABRASIVE}\n\nRocking: let the machine rock the wheel; do not force the feed on the last 10 mm.`,
@@ -127,7 +129,8 @@ export const DEMO_RECIPES: DemoRecipe[] = [
     wheel: 'Alumina 250 soft',
     scope: block('hardened-tool-steel', 10, 50, 60, { min: 58, max: 62, scale: 'HRC' }),
     // 250 mm at 3000 rpm = 39.3 m/s (marked 63 m/s).
-    cutting: cut(3000, 0.12, 'pulsed-plunge'),
+    // Pulses of 0.5 mm forward, 0.2 mm back (invented demo settings).
+    cutting: cut(3000, 0.12, 'pulsed-plunge', { pulseAdvanceMm: 0.5, pulseRetractMm: 0.2 }),
     clamping: clamp('vise-backstop', 'Vise on the thicker side, top clamp on the offcut.'),
     coolant: wet(5, 8),
     instructionsMd: `${STEPS_ABRASIVE}\n\nKeep the feed low: the steel is at 60 HRC and tempers easily.`,
@@ -209,7 +212,8 @@ export const DEMO_RECIPES: DemoRecipe[] = [
     machine: BENCH,
     wheel: 'Silicon carbide 250 medium',
     scope: round('titanium', 10, 50),
-    cutting: cut(2800, 0.2, 'pulsed-plunge'),
+    // Pulsed by time: 3 s feeding, 1 s pause for the coolant (invented demo settings).
+    cutting: cut(2800, 0.2, 'pulsed-plunge', { pulseFeedS: 3, pulsePauseS: 1 }),
     clamping: clamp('vise-backstop', 'Vise jaws 10 mm from the cut.'),
     coolant: wet(5, 10),
     instructionsMd: `${STEPS_ABRASIVE}\n\nFull coolant flow: titanium conducts heat poorly.`,
@@ -222,7 +226,7 @@ export const DEMO_RECIPES: DemoRecipe[] = [
     machine: BENCH,
     wheel: 'Alumina 250 medium',
     scope: round('nickel-cobalt', 10, 40),
-    cutting: cut(2800, 0.15, 'pulsed-plunge'),
+    cutting: cut(2800, 0.15, 'pulsed-plunge', { pulseAdvanceMm: 0.4, pulseRetractMm: 0.1 }),
     clamping: clamp('vise-backstop', 'Vise jaws 10 mm from the cut.'),
     coolant: wet(5, 10),
     instructionsMd: STEPS_ABRASIVE,

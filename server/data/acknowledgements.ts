@@ -47,3 +47,19 @@ export async function activeOperatorsOfMachine(db: Knex, machineId: number): Pro
 export async function findMachineName(db: Knex, machineId: number): Promise<string | undefined> {
   return ((await db('machines').where({ id: machineId }).first('name')) as { name: string } | undefined)?.name;
 }
+
+/** The person's most recent acknowledgement of an earlier version of the recipe, with that version's number. */
+export async function lastAcknowledgementBefore(
+  db: Knex,
+  recipeId: number,
+  userId: number,
+  beforeVersion: number,
+): Promise<{ version: number; acknowledged_at: Date } | undefined> {
+  return db('acknowledgements as a')
+    .join('recipe_versions as v', 'v.id', 'a.version_id')
+    .where({ 'v.recipe_id': recipeId, 'a.user_id': userId })
+    .andWhere('v.version', '<', beforeVersion)
+    .orderBy('a.acknowledged_at', 'desc')
+    .orderBy('a.id', 'desc')
+    .first('v.version', 'a.acknowledged_at');
+}

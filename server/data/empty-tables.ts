@@ -66,6 +66,8 @@ export async function restoreLabSettings(db: Knex): Promise<void> {
       kerf_allowance_mm: DEFAULT_KERF_ALLOWANCE_MM,
       specific_energy_json: JSON.stringify(DEFAULT_SPECIFIC_ENERGY_J_MM3),
       power_warning_pct: DEFAULT_POWER_WARNING_PCT,
+      date_format: 'iso',
+      revision: 1,
       updated_at: new Date(),
     });
 }

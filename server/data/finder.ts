@@ -32,6 +32,7 @@ export async function listFinderCandidates(db: Knex, filter: { groups?: readonly
       'm.hardness_scale as material_hardness_scale',
       'v.machine_id',
       'v.content_json',
+      'v.review_due_on',
     )
     .orderBy('r.id');
   if (filter.groups) q.whereIn('v.material_group', [...filter.groups]);

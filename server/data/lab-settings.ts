@@ -15,11 +15,28 @@ export interface LabSettingsRow {
   kerf_allowance_mm: number | null;
   specific_energy_json: unknown;
   power_warning_pct: number | null;
+  date_format: string;
+  /** Raised by every save, for optimistic concurrency. */
+  revision: number;
   updated_at: Date;
 }
 
-export async function findLabSettings(db: Knex): Promise<LabSettingsRow | undefined> {
-  return db<LabSettingsRow>('lab_settings').where({ id: 1 }).first();
+export async function findLabSettings(db: Knex, forUpdate = false): Promise<LabSettingsRow | undefined> {
+  const query = db<LabSettingsRow>('lab_settings').where({ id: 1 });
+  return forUpdate ? query.forUpdate().first() : query.first();
+}
+
+export type LabSettingsValuesRow = Omit<LabSettingsRow, 'id' | 'revision' | 'updated_at'>;
+
+/**
+ * Writes every value when the row is still at `revision`, and raises it. False when another
+ * save came first (the row is at another revision).
+ */
+export async function updateLabSettingsRow(db: Knex, revision: number, values: LabSettingsValuesRow, now: Date): Promise<boolean> {
+  const changed = await db('lab_settings')
+    .where({ id: 1, revision })
+    .update({ ...values, revision: revision + 1, updated_at: now });
+  return changed === 1;
 }
 
 /** The stored feed limits as parsed JSON (not yet validated), or null when there are none. */

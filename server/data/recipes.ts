@@ -147,6 +147,8 @@ export interface RecipeListFilter {
   hardnessHv?: number | undefined;
   /** List each recipe by its current version (operators), leaving out recipes without one. */
   currentOnly?: boolean | undefined;
+  /** Only recipes whose current version's periodic review was due before this UTC day. */
+  reviewDueBefore?: string | undefined;
 }
 
 export interface RecipeSummaryRow {
@@ -164,6 +166,8 @@ export interface RecipeSummaryRow {
   wheel_name: string;
   worst_check: 'blocker' | 'warning' | 'note' | null;
   updated_at: Date;
+  /** The periodic review date of the current version, where the query reads it. */
+  review_due_on?: Date | string | null;
 }
 
 /** The library: each recipe with its latest version, filtered and sorted on indexed columns. */
@@ -225,6 +229,9 @@ export async function listRecipeSummaryRows(db: Knex, filter: RecipeListFilter):
     if (filter.size !== undefined) query.where(col('v.size_min_mm'), '<=', filter.size).andWhere(col('v.size_max_mm'), '>=', filter.size);
     if (filter.hardnessHv !== undefined)
       query.where(col('v.hardness_min_hv'), '<=', filter.hardnessHv).andWhere(col('v.hardness_max_hv'), '>=', filter.hardnessHv);
+    // Overdue: a range on the review-due index, then the versions that are their recipe's current one.
+    if (filter.reviewDueBefore !== undefined)
+      query.whereIn('r.current_version_id', db('recipe_versions').where('review_due_on', '<', filter.reviewDueBefore).select('id'));
     return query;
   };
   const joined = filter.currentOnly
@@ -234,6 +241,7 @@ export async function listRecipeSummaryRows(db: Knex, filter: RecipeListFilter):
         .join('machines as mc', 'mc.id', 'v.machine_id')
         .join('wheels as w', 'w.id', 'v.wheel_id')
         .where('v.status', 'approved')
+        .select('v.review_due_on')
     : // Left joins (machine and wheel are never null): MariaDB then reads recipes first, by the
       // filter's index, instead of starting from the three machines and scanning recipes.
       // No "has a latest version" condition: every recipe has one outside its creating
@@ -241,7 +249,10 @@ export async function listRecipeSummaryRows(db: Knex, filter: RecipeListFilter):
       db('recipes as r')
         .leftJoin('materials as m', 'm.id', 'r.lib_material_id')
         .leftJoin('machines as mc', 'mc.id', 'r.lib_machine_id')
-        .leftJoin('wheels as w', 'w.id', 'r.lib_wheel_id');
+        .leftJoin('wheels as w', 'w.id', 'r.lib_wheel_id')
+        // The current version's review date (its primary key), for the overdue marker.
+        .leftJoin('recipe_versions as cv', 'cv.id', 'r.current_version_id')
+        .select('cv.review_due_on');
   // The count reads only what the filters need, so it can be answered from an index.
   const counted = filter.currentOnly ? joined.clone() : db('recipes as r');
   const [{ total }] = (await filtered(counted).count<{ total: number }[]>({ total: '*' })) as [{ total: number }];

@@ -99,6 +99,10 @@ export interface TrailFilter {
   recipeId?: number;
   userId?: number;
   type?: string;
+  /** Event types of one family: any of these codes or code prefixes. */
+  family?: { prefixes: readonly string[]; types: readonly string[] };
+  /** Code prefixes left out (sign-ins hidden). */
+  hidePrefixes?: readonly string[];
   /** Inclusive lower bound (UTC). */
   from?: Date;
   /** Exclusive upper bound (UTC). */
@@ -106,6 +110,9 @@ export interface TrailFilter {
   /** Only ids below this one (keyset pagination). */
   beforeId?: number;
 }
+
+/** A LIKE pattern for codes starting with `prefix` ("selection_row." has a literal underscore). */
+const likePrefix = (prefix: string): string => `${prefix.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
 
 /**
  * Newest first. Each filter column has an index (InnoDB appends the primary key to every
@@ -117,8 +124,27 @@ export async function listTrailEventRows(db: Knex, filter: TrailFilter, limit: n
   if (filter.recipeId !== undefined) q.where('recipe_id', filter.recipeId);
   if (filter.userId !== undefined) q.where('actor_user_id', filter.userId);
   if (filter.type !== undefined) q.where('event_type', filter.type);
+  const family = filter.family;
+  if (family !== undefined) {
+    // Prefix matches are ranges on the event_type index.
+    q.where((w) => {
+      if (family.types.length > 0) w.orWhereIn('event_type', family.types);
+      for (const prefix of family.prefixes) w.orWhere('event_type', 'like', likePrefix(prefix));
+    });
+  }
+  for (const prefix of filter.hidePrefixes ?? []) q.whereNot('event_type', 'like', likePrefix(prefix));
   if (filter.from !== undefined) q.where('occurred_at', '>=', filter.from);
   if (filter.toBefore !== undefined) q.where('occurred_at', '<', filter.toBefore);
   if (filter.beforeId !== undefined) q.where('id', '<', filter.beforeId);
   return q;
+}
+
+/** The events of one type recorded against any of these versions, oldest first. */
+export async function listVersionEventRows(db: Knex, eventType: string, versionIds: readonly number[]): Promise<StoredTrailEventRow[]> {
+  if (versionIds.length === 0) return [];
+  return db('trail_events')
+    .where({ entity_type: 'recipe_version', event_type: eventType })
+    .whereIn('entity_id', versionIds.map(String))
+    .orderBy('id', 'asc')
+    .select(CHAIN_COLUMNS);
 }

@@ -6,4 +6,10 @@ export interface Actor {
   name: string;
   /** Client IP as Express sees it (honours `trust proxy`). */
   clientAddress: string;
+  /**
+   * True when this person already completed a signing with both signature components
+   * (username and password) in the current continuous session; then a signing needs the
+   * password only (21 CFR 11.200(a)(1)(ii)). Absent outside a web session.
+   */
+  signedFullyInSession?: boolean;
 }

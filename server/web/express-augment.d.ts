@@ -12,6 +12,8 @@ declare module 'express-session' {
   interface SessionData {
     /** Set when an anonymous client asks for a CSRF token, so the session gets stored. */
     csrfIssuedAt?: number;
+    /** The person who completed a signing with username and password in this session. */
+    fullSigningBy?: number;
   }
 }
 

@@ -13,6 +13,8 @@ export interface RouteContext {
   auth: Authenticator;
   /** Where links in mails point (APP_BASE_URL). */
   mail: MailSettings;
+  /** Warnings from start-up that the admins' Today shows (e.g. APP_BASE_URL unset). */
+  adminNotices: readonly string[];
   /** True outside production: the development outbox answers. */
   devOutbox: boolean;
   /** The route table this router serves (the API reference describes it). */

@@ -6,6 +6,7 @@
  * parameterised ones.
  */
 import { attachmentFields } from '../../shared/schemas/attachment';
+import { labSettingsBody } from '../../shared/schemas/lab-settings';
 import { forgotPasswordBody, linkTokenBody, notificationPreferencesBody, setPasswordBody } from '../../shared/schemas/mail';
 import { cutRecordBody, cutSearchQuery, finderQuery } from '../../shared/schemas/operator';
 import { checkCodeParams, cutParams, idParams, versionAttachmentParams, versionParams } from '../../shared/schemas/params';
@@ -105,6 +106,8 @@ const table = [
   { method: 'delete', path: '/api/selection-rows/:id', summary: 'Remove a row of the wheel-selection table.', access: STOCK_EDITORS, params: idParams, answers: '204', handler: selectionRows.remove },
 
   { method: 'get', path: '/api/settings/limits', summary: 'The lab\'s limits the checks use: plunge-feed ceilings by material group, hardness band and machine class; traverse removal ceilings per mm of wheel width; the long-contact length; the worn wheel\'s default share of the new diameter and the kerf allowance; specific cutting energy per material group and the motor power share that warns.', access: 'signedIn', answers: '200 json: LabLimits', handler: settings.limits },
+  { method: 'get', path: '/api/settings/lab', summary: 'The lab\'s settings: name, bench sheet paper, review interval, default units, date format and every limit the checks use, with the revision to send back when saving.', access: 'signedIn', answers: '200 json: LabSettingsDto', handler: settings.lab },
+  { method: 'put', path: '/api/settings/lab', summary: 'Change the lab\'s settings (all values at once); a save based on an older revision gets 409 with the current settings. Each change is written to the trail with its values before and after.', access: ['admin'], body: labSettingsBody, answers: '200 json: LabSettingsDto', handler: settings.updateLab },
 
   // Recipes and drafts. Only authors write; the server hands out numbers and runs the checks.
   { method: 'get', path: '/api/recipes', summary: 'The library: recipes a page at a time, sorted and filtered (operators see approved versions only).', access: 'signedIn', query: recipeListQuery, answers: '200 json: Page<RecipeSummary>', handler: recipes.list },
@@ -125,6 +128,7 @@ const table = [
   { method: 'delete', path: '/api/recipes/:id/versions/:n/attachments/:attachmentId', summary: 'Remove a photo from a draft.', access: ['author'], params: versionAttachmentParams, answers: '204', handler: attachments.remove },
   // "Read and understood": operators of the version's machine acknowledge; others see who has not.
   { method: 'post', path: '/api/recipes/:id/versions/:n/acknowledge', summary: 'Acknowledge a new current version of a recipe for one\'s machine ("read and understood"); send {}.', access: ['operator'], params: versionParams, answers: '200 json: MyAcknowledgementDto', handler: acknowledgements.acknowledge },
+  { method: 'get', path: '/api/recipes/:id/versions/:n/changes-since-acknowledged', summary: 'For the operator acknowledging a version: what changed since the version of the recipe they last acknowledged (null when none).', access: ['operator'], params: versionParams, answers: '200 json: ChangesSinceAcknowledgedDto', handler: acknowledgements.changesSince },
   { method: 'get', path: '/api/recipes/:id/versions/:n/acknowledgements', summary: 'Who has acknowledged a version and who has not yet.', access: ['author', 'approver', 'auditor', 'admin'], params: versionParams, answers: '200 json: AcknowledgementsDto', handler: acknowledgements.list },
   // The bench sheet of an approved version (current or approved for a later day); every print is recorded.
   { method: 'get', path: '/api/recipes/:id/versions/:n/sheet.pdf', summary: 'The bench sheet of an approved version, with its check code and QR code; every print is recorded.', access: 'signedIn', params: versionParams, answers: '200 pdf: the bench sheet', handler: benchSheet.sheet },
@@ -143,9 +147,10 @@ const table = [
   { method: 'get', path: '/api/attachments/:id/thumbnail', summary: 'The thumbnail of a stored photo (ETag; answers 304 to If-None-Match).', access: 'signedIn', params: idParams, answers: ['200 image: the thumbnail', '304'], handler: attachments.thumbnail },
 
   // The trail (auditors and admins read it; nobody writes it through the API).
-  { method: 'get', path: '/api/trail', summary: 'The trail, newest first, filtered by recipe, person, type and days; a page at a time by event id.', access: ['auditor', 'admin'], query: trailQuery, answers: '200 json: TrailPage', handler: trail.list },
+  { method: 'get', path: '/api/trail', summary: 'The trail, newest first, filtered by recipe, person, type, family of events and days (sign-ins can be left out), each event naming its record; a page at a time by event id.', access: ['auditor', 'admin'], query: trailQuery, answers: '200 json: TrailPage', handler: trail.list },
   { method: 'get', path: '/api/trail.csv', summary: 'The filtered trail as a CSV file.', access: ['auditor', 'admin'], query: trailQuery, answers: '200 csv: one line per event', handler: trail.csv },
   { method: 'get', path: '/api/trail/verify', summary: 'Recompute the trail\'s hash chain and name the first broken link, if any.', access: ['auditor', 'admin'], answers: '200 json: ChainVerification', handler: trail.verify },
+  { method: 'get', path: '/api/trail/people', summary: 'Everyone the trail can name (id, name, active), for filtering it by person.', access: ['auditor', 'admin'], answers: '200 json: { items: PersonNameDto[] }', handler: trail.people },
   { method: 'get', path: '/api/dev/outbox', summary: 'The mail outbox, newest first (development only: 404 in production).', access: ['admin'], answers: '200 json: { items: OutboxEntryDto[] }', handler: devOutbox.list },
 
   // What waits for people: periodic reviews coming due, and the signed-in person's Today lists.

@@ -4,7 +4,17 @@
  * Every length is mm, speed rpm, feed mm/s, concentration % v/v, flow L/min.
  */
 import { z } from 'zod';
-import { CLAMPING_METHODS, COOLANT_TYPES, CUT_MOTIONS, CUT_ORIENTATIONS, RECIPE_STATUSES, SHAPES, WHEEL_PATHS } from '../vocabulary';
+import {
+  CLAMPING_METHODS,
+  COOLANT_TYPES,
+  CUT_MOTIONS,
+  CUT_ORIENTATIONS,
+  MOTION_SETTING_LABELS as MS,
+  type MotionSetting,
+  RECIPE_STATUSES,
+  SHAPES,
+  WHEEL_PATHS,
+} from '../vocabulary';
 import { quantity, refId, requiredText, text } from './numbers';
 import { hardnessWindow, materialGroup } from './stock';
 
@@ -35,6 +45,41 @@ export const recipeScope = z
   });
 export type RecipeScope = z.infer<typeof recipeScope>;
 
+/**
+ * The settings of the cut motion (which motion uses which: CUT_MOTION_SETTINGS), each null
+ * when not given. Content stored before they existed has no such keys and reads as null,
+ * "not given": stored content is hashed and signed, so it is never rewritten to add them.
+ */
+function motionSettingsShape() {
+  const setting = (key: MotionSetting, unit: string, max: number, options?: { inclusiveMin?: boolean }) =>
+    quantity(MS[key], unit, 0, max, options).nullable().default(null);
+  return {
+    pulseAdvanceMm: setting('pulseAdvanceMm', 'mm', 50),
+    /** 0: the wheel pauses in the cut without backing off. */
+    pulseRetractMm: setting('pulseRetractMm', 'mm', 50, { inclusiveMin: true }),
+    pulseFeedS: setting('pulseFeedS', 's', 600),
+    pulsePauseS: setting('pulsePauseS', 's', 600),
+    rockingAngleDeg: setting('rockingAngleDeg', '°', 90),
+    rockingStrokeMm: setting('rockingStrokeMm', 'mm', 1000),
+    specimenRpm: setting('specimenRpm', 'rpm', 1000),
+    depthPerPassMm: setting('depthPerPassMm', 'mm', 500),
+    stepDepthMm: setting('stepDepthMm', 'mm', 2000),
+  } satisfies Record<MotionSetting, unknown>;
+}
+
+/** Every motion setting not given: for code that builds content (fixtures, seeds). */
+export const NO_MOTION_SETTINGS: Readonly<Record<MotionSetting, null>> = {
+  pulseAdvanceMm: null,
+  pulseRetractMm: null,
+  pulseFeedS: null,
+  pulsePauseS: null,
+  rockingAngleDeg: null,
+  rockingStrokeMm: null,
+  specimenRpm: null,
+  depthPerPassMm: null,
+  stepDepthMm: null,
+};
+
 export const recipeCutting = z.strictObject({
   machineId: refId('Machine'),
   wheelId: refId('Wheel'),
@@ -51,6 +96,7 @@ export const recipeCutting = z.strictObject({
     .min(1, 'At least one pass.')
     .max(500, 'At most 500 passes.')
     .nullable(),
+  ...motionSettingsShape(),
 });
 export type RecipeCutting = z.infer<typeof recipeCutting>;
 
@@ -133,5 +179,7 @@ export const recipeListQuery = z.strictObject({
   size: z.coerce.number().positive().max(2000).optional(),
   /** A hardness the recipe must cover, in HV (converted client-side from other scales). */
   hardnessHv: z.coerce.number().positive().max(3000).optional(),
+  /** "overdue": only recipes whose current version's periodic review date has passed. */
+  review: z.enum(['overdue'], { error: 'Use review=overdue, or leave it out.' }).optional(),
 });
 export type RecipeListQuery = z.infer<typeof recipeListQuery>;

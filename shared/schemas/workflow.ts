@@ -6,8 +6,16 @@
 import { z } from 'zod';
 import { enteredPassword } from './fields';
 import { requiredText, text } from './numbers';
+import { TRAIL_FAMILIES } from '../vocabulary';
 
 const revision = z.number({ error: 'Revision is required.' }).int().min(0);
+
+/**
+ * The signer's username, the first of the two signature components. The first signing in a
+ * continuous session needs it with the password; later ones in the same session may leave it
+ * out (21 CFR 11.200(a)(1)(i)–(ii)).
+ */
+const signerUsername = z.string({ error: 'Username must be text.' }).trim().max(40, 'Username must be at most 40 characters.').optional();
 
 /** YYYY-MM-DD (UTC calendar date). */
 const isoDate = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, 'Use a date like 2027-01-31.');
@@ -27,9 +35,10 @@ export type ReturnBody = z.infer<typeof returnBody>;
 export const SIGNATURE_MEANINGS = ['approved', 'withdrawn'] as const;
 export type SignatureMeaning = (typeof SIGNATURE_MEANINGS)[number];
 
-/** POST …/versions/:n/approve — electronic signature: password again, meaning, optional comment. */
+/** POST …/versions/:n/approve — electronic signature: (username and) password again, meaning, optional comment. */
 export const approveBody = z.strictObject({
   revision,
+  username: signerUsername,
   password: enteredPassword,
   meaning: z.literal('approved', { error: 'The meaning of this signature is "approved".' }),
   comment: text('Comment', 2000).default(''),
@@ -43,6 +52,7 @@ export type ApproveBody = z.infer<typeof approveBody>;
 /** POST …/versions/:n/withdraw — an approved version taken out of use, signed. */
 export const withdrawBody = z.strictObject({
   revision,
+  username: signerUsername,
   password: enteredPassword,
   meaning: z.literal('withdrawn', { error: 'The meaning of this signature is "withdrawn".' }),
   reason: requiredText('Reason', 2000),
@@ -76,6 +86,10 @@ export const trailQuery = z.strictObject({
   recipeId: z.coerce.number().int().positive().optional(),
   userId: z.coerce.number().int().positive().optional(),
   type: z.string().trim().max(60).optional(),
+  /** A family of event types (recipes, signatures, stock, people, sign-ins, …). */
+  family: z.enum(TRAIL_FAMILIES, { error: `Choose one of: ${TRAIL_FAMILIES.join(', ')}.` }).optional(),
+  /** "true" leaves sign-ins, sign-outs and refused sign-ins out. */
+  hideSignIns: z.enum(['true', 'false'], { error: 'Use true or false.' }).optional(),
   /** Inclusive UTC dates. */
   from: isoDate.optional(),
   to: isoDate.optional(),

@@ -7,6 +7,7 @@ import { routes } from './app.routes';
 import { csrfInterceptor } from './core/http/csrf-interceptor';
 import { errorInterceptor } from './core/http/error-interceptor';
 import { Session } from './core/session/session';
+import { provideStatusTones } from './ui/status-tones';
 
 export const appConfig: ApplicationConfig = {
   providers: [
@@ -18,6 +19,8 @@ export const appConfig: ApplicationConfig = {
     provideHttpClient(withInterceptors([csrfInterceptor, errorInterceptor])),
     // Guards need to know who is signed in before the first navigation.
     provideAppInitializer(() => inject(Session).load()),
+    // Status colours come from shared/status-colours.ts, the same values the bench sheet prints.
+    provideStatusTones(),
     // The icon font comes from the `material-icons` npm package (filled set), never a CDN.
     { provide: MAT_ICON_DEFAULT_OPTIONS, useValue: { fontSet: 'material-icons' } satisfies MatIconDefaultOptions },
     {

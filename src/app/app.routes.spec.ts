@@ -1,4 +1,10 @@
-import type { Route, Routes } from '@angular/router';
+import { computed, signal } from '@angular/core';
+import { TestBed } from '@angular/core/testing';
+import { type Route, type Routes, provideRouter } from '@angular/router';
+import { RouterTestingHarness } from '@angular/router/testing';
+import type { UserDto } from '@shared/api-types';
+import { aUser } from '../testing/user-fixture';
+import { Session } from './core/session/session';
 import { routes } from './app.routes';
 import type { AccessData } from './core/session/access-guard';
 import { accessGuard } from './core/session/access-guard';
@@ -71,5 +77,43 @@ describe('route table', () => {
         expect(route.canActivate, `route "${path}" is not guarded`).toContain(accessGuard);
       }
     }
+  });
+
+  describe('an address with no page', () => {
+    async function visit(user: UserDto | null): Promise<HTMLElement> {
+      const current = signal(user);
+      TestBed.configureTestingModule({
+        providers: [
+          provideRouter(routes),
+          {
+            provide: Session,
+            useValue: {
+              user: current,
+              isSignedIn: computed(() => current() !== null),
+              roles: computed(() => current()?.roles ?? []),
+              mustChangePassword: signal(false),
+              devOutbox: signal(false),
+              signOut: vi.fn(),
+            },
+          },
+        ],
+      });
+      const harness = await RouterTestingHarness.create();
+      await harness.navigateByUrl('/no-such-page');
+      harness.detectChanges();
+      return harness.fixture.nativeElement as HTMLElement;
+    }
+
+    it('is shown inside the signed-in shell, with the navigation, to someone signed in', async () => {
+      const page = await visit(aUser({ roles: ['author'] }));
+      expect(page.querySelector('kb-shell kb-not-found')).not.toBeNull();
+      expect(page.querySelector('kb-shell nav a[href="/today"]')).not.toBeNull();
+    });
+
+    it('is the public page for someone signed out', async () => {
+      const page = await visit(null);
+      expect(page.querySelector('kb-not-found')).not.toBeNull();
+      expect(page.querySelector('kb-shell')).toBeNull();
+    });
   });
 });

@@ -1,12 +1,8 @@
 import { inject } from '@angular/core';
 import type { Routes } from '@angular/router';
-import type { Role } from '@shared/roles';
 import { type AccessData, accessGuard } from './core/session/access-guard';
 import { Session } from './core/session/session';
-
-function isOnlyOperator(roles: readonly Role[]): boolean {
-  return roles.length > 0 && roles.every((r) => r === 'operator');
-}
+import { isOnlyOperator } from './core/session/home-page';
 
 /**
  * The one route table. Every route declares who may open it in `data.access` (public,
@@ -83,6 +79,13 @@ export const routes: Routes = [
         loadChildren: () => import('./people/people.routes').then((m) => m.peopleRoutes),
       },
       {
+        path: 'lab-settings',
+        title: 'Lab settings · Kerfbook',
+        canActivate: [accessGuard],
+        data: { access: ['admin'] } satisfies AccessData,
+        loadComponent: () => import('./lab-settings/lab-settings').then((m) => m.LabSettings),
+      },
+      {
         // Development only: the mails the local catcher received (the server answers 404 in production).
         path: 'outbox',
         title: 'Outbox · Kerfbook',
@@ -110,6 +113,16 @@ export const routes: Routes = [
         canActivate: [accessGuard],
         data: { access: 'signedIn' } satisfies AccessData,
         loadComponent: () => import('./not-allowed/not-allowed').then((m) => m.NotAllowed),
+      },
+      // A signed-in person who follows a dead link stays in the app, with its navigation;
+      // anyone else falls through to the public page below.
+      {
+        path: '**',
+        title: 'Page not found · Kerfbook',
+        canMatch: [() => inject(Session).isSignedIn()],
+        canActivate: [accessGuard],
+        data: { access: 'signedIn' } satisfies AccessData,
+        loadComponent: () => import('./not-found/not-found').then((m) => m.NotFound),
       },
     ],
   },

@@ -1,4 +1,5 @@
 import type { RecipeSummary, RecipeVersionDto } from '@shared/recipe-types';
+import { NO_MOTION_SETTINGS } from '@shared/schemas/recipe';
 import { type LabLimits, type MachineRecord, type MaterialRecord, NO_LAB_LIMITS, type WheelRecord } from '@shared/stock-types';
 
 /** Invented stock and recipes for the Stock, Library and Recipe specs; override what the test is about. */
@@ -95,6 +96,8 @@ export function aRecipeSummary(overrides: Partial<RecipeSummary> = {}): RecipeSu
     wheelName: 'Alumina 250 general steel',
     worstCheck: null,
     updatedAt: '2026-11-20T10:00:00.000Z',
+    reviewDueOn: null,
+    reviewOverdue: false,
     ...overrides,
   };
 }
@@ -129,6 +132,7 @@ export function aRecipeVersion(overrides: Partial<RecipeVersionDto> = {}): Recip
         entryLengthMm: null,
         cutMotion: 'straight-plunge',
         passes: null,
+        ...NO_MOTION_SETTINGS,
       },
       clamping: {
         method: 'vise-backstop',

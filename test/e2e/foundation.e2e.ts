@@ -8,7 +8,7 @@ import { expect } from 'chai';
 import type { Browser } from 'playwright-core';
 import { DEMO_ACCOUNTS } from '../../seeds/data/demo-accounts';
 import { BASE_URL, type WatchedPage, launch, openPage, screenshot } from './support/browser';
-import { navEntries, signIn, signOut, unexpectedErrors } from './support/steps';
+import { dialogSettled, navEntries, signIn, signOut, unexpectedErrors } from './support/steps';
 
 const admin = DEMO_ACCOUNTS.find((a) => a.roles.includes('admin'))!;
 const operator = DEMO_ACCOUNTS.find((a) => a.roles.includes('operator'))!;
@@ -69,10 +69,11 @@ describe('foundation in chromium', () => {
     expect(unexpectedErrors(w.consoleErrors)).to.deep.equal([]);
   });
 
-  it('shows an operator no People entry and keeps them out of /people', async () => {
+  it('lands an operator on the Finder, shows them no People entry and keeps them out of /people', async () => {
     const { page } = w;
     await signIn(page, operator.username, operator.password);
-    await page.waitForURL(/\/today/);
+    // Operators start at the Finder, not at Today.
+    await page.waitForURL(/\/finder/);
     const entries = await navEntries(page);
     expect(entries).to.include('Today');
     expect(entries).to.not.include('People');
@@ -96,8 +97,7 @@ describe('foundation in chromium', () => {
 
     await page.getByRole('button', { name: 'Add person' }).click();
     const dialog = page.getByRole('dialog');
-    // The dialog moves focus to its first field once it has opened; typing before that races it.
-    await page.waitForFunction(() => document.activeElement?.closest('[role="dialog"]') != null);
+    await dialogSettled(page);
     await dialog.getByLabel('Username', { exact: true }).fill(newcomer.username);
     await dialog.getByLabel('Name', { exact: true }).fill(newcomer.name);
     await dialog.getByRole('checkbox', { name: /Operator/ }).check();

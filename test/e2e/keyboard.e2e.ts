@@ -157,6 +157,8 @@ describe('keyboard only in chromium', () => {
       await page.keyboard.press('Tab');
       expect(await hasFocus(dialog), `Tab ${i + 1} left the dialog`).to.equal(true);
     }
+    // The first signing in this session takes both signature components.
+    await typeInto(page, dialog.getByLabel('Username', { exact: true }), approver.username);
     await typeInto(page, dialog.getByLabel('Password', { exact: true }), approver.password);
     await page.keyboard.press('Enter');
     await dialog.waitFor({ state: 'detached' });

@@ -61,6 +61,7 @@ describe('mail links in chromium', () => {
     const inReview = await asApprover.get<RecipeVersionDto>(`/api/recipes/${recipe.id}/versions/${draft.version}`);
     await asApprover.post(`/api/recipes/${recipe.id}/versions/${draft.version}/approve`, {
       revision: inReview.revision,
+      username: approver.username,
       password: approver.password,
       meaning: 'approved',
       acknowledgedWarnings: inReview.checks.filter((c) => c.severity === 'warning').map((c) => c.id),

@@ -107,6 +107,8 @@ describe('review workflow in chromium', () => {
     for (const box of await page.getByRole('checkbox', { name: 'I have considered this warning' }).all()) await box.check();
     await page.getByRole('button', { name: 'Approve…' }).click();
     const dialog = page.getByRole('dialog');
+    // The first signing in this session takes both signature components (21 CFR 11.200(a)(1)(i)).
+    await dialog.getByLabel('Username', { exact: true }).fill(approver.username);
     await dialog.getByLabel('Password', { exact: true }).fill('not-my-password');
     await dialog.getByRole('button', { name: 'Sign and approve' }).click();
     await dialog.getByText('The password is not correct.', { exact: false }).waitFor();

@@ -155,6 +155,7 @@ async function buildScene(): Promise<Scene> {
   const warnings = v.checks.filter((c) => c.severity === 'warning').map((c) => c.id);
   await asApprover.post(`${path}/approve`, {
     revision: v.revision,
+    username: approver.username,
     password: approver.password,
     meaning: 'approved',
     comment: LONG('approval').slice(0, 2000),

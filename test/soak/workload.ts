@@ -194,6 +194,7 @@ const ACTIONS: Record<SoakPerson['role'], Action> = {
       // The electronic signature: password again, its meaning, every warning acknowledged (as test/api/workflow/workflow-support.ts).
       const res = await send(client, track, 'approve', 'POST', `${versionPath(v)}/approve`, {
         revision: v.revision,
+        username: person.username,
         password: person.password,
         meaning: 'approved',
         acknowledgedWarnings: v.checks.filter((c) => c.severity === 'warning').map((c) => c.id),

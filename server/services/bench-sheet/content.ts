@@ -10,6 +10,7 @@ import type { RecipeContext } from '../../../shared/recipe-context';
 import type { RecipeVersionDto, SignatureDto } from '../../../shared/recipe-types';
 import type { HardnessWindow } from '../../../shared/schemas/stock';
 import { markedMaximumText } from '../../../shared/spindle-speed';
+import { motionSettingsText } from '../../../shared/motion-settings';
 import { formatQuantity } from '../../../shared/units';
 import {
   CLAMPING_METHOD_LABELS,
@@ -36,6 +37,17 @@ export interface SheetSignature {
   comment: string;
 }
 
+/** One cell of the key-settings strip: what the operator sets, in large type. */
+export interface KeySetting {
+  label: string;
+  /** Printed large, e.g. "2800 rpm". */
+  value: string;
+  /** A smaller line under it, e.g. the wheel's specification or the entry feed; '' for none. */
+  detail: string;
+  /** Boxed beside or under the value, as large as readable: the speed never to exceed. */
+  limit?: string;
+}
+
 export interface SheetModel {
   labName: string;
   number: string;
@@ -50,10 +62,15 @@ export interface SheetModel {
   /** XXXX-XXXX. */
   checkCode: string;
   checkUrl: string;
+  /** Who prepared the version (its author) and who approved it, printed side by side. */
+  preparedBy: string;
+  approvedBy: string;
+  /** Wheel, wheel speed with its limit, feed, cut motion, coolant: the top of page 1. */
+  keySettings: KeySetting[];
   scope: Row[];
+  /** Machine and wheel facts beyond the key settings: size, marking, speeds and margin. */
   parameters: Row[];
   clamping: Row[];
-  coolant: Row[];
   instructionsMd: string;
   acceptanceMd: string;
   cautionsMd: string;
@@ -83,6 +100,59 @@ function hardnessText(h: HardnessWindow | null, fallback: { value: number; scale
 }
 
 const yesNo = (b: boolean) => (b ? 'Yes' : 'No');
+
+/**
+ * The cut motion's own settings as printed beside its name (e.g. a pulse's advance and
+ * retract, a rocking angle, passes and depth per pass); '' for a motion without settings.
+ */
+export function cutMotionSettingsText(cutting: RecipeVersionDto['content']['cutting'], units: UnitPreference): string {
+  const text = motionSettingsText({ cutting }, units);
+  return text.charAt(0).toUpperCase() + text.slice(1);
+}
+
+/** The strip at the top of page 1, in the order the operator sets the machine. */
+function keySettingsOf(c: RecipeVersionDto['content'], wheel: RecipeContext['wheel'], neverAboveRpm: number | null, units: UnitPreference): KeySetting[] {
+  const len = (mm: number | null | undefined) => formatQuantity(mm, 'length', units);
+  const entry =
+    c.cutting.entryFeedMmS !== null
+      ? `entry ${formatQuantity(c.cutting.entryFeedMmS, 'feed', units)}${c.cutting.entryLengthMm !== null ? ` for the first ${len(c.cutting.entryLengthMm)}` : ''}`
+      : '';
+  const coolantDetail = [
+    c.coolant.concentrationPct !== null ? `${num(c.coolant.concentrationPct)} % v/v` : '',
+    c.coolant.flowLMin !== null ? `${num(c.coolant.flowLMin)} L/min` : '',
+  ]
+    .filter(Boolean)
+    .join(' · ');
+  return [
+    { label: 'Wheel', value: wheel ? wheel.name : '—', detail: wheel ? wheel.specification : '' },
+    {
+      label: 'Wheel speed',
+      value: formatQuantity(c.cutting.wheelRpm, 'rpm', units),
+      detail: '',
+      // The wheel's marked maximum in whole rpm, or the machine's spindle limit where lower.
+      ...(neverAboveRpm !== null ? { limit: `never above ${neverAboveRpm} rpm on this machine` } : {}),
+    },
+    // The metric feed large; where the lab wants imperial too, it goes first on the smaller line.
+    {
+      label: 'Feed',
+      value: formatQuantity(c.cutting.feedMmS, 'feed', 'metric'),
+      detail: [
+        formatQuantity(c.cutting.feedMmS, 'feed', units)
+          .slice(formatQuantity(c.cutting.feedMmS, 'feed', 'metric').length)
+          .trim(),
+        entry,
+      ]
+        .filter(Boolean)
+        .join(' · '),
+    },
+    {
+      label: 'Cut motion',
+      value: CUT_MOTION_LABELS[c.cutting.cutMotion],
+      detail: cutMotionSettingsText(c.cutting, units),
+    },
+    { label: 'Coolant', value: COOLANT_TYPE_LABELS[c.coolant.type], detail: coolantDetail },
+  ];
+}
 
 export interface SheetInput {
   version: RecipeVersionDto;
@@ -130,36 +200,28 @@ export function buildSheetModel(input: SheetInput): SheetModel {
       ? '—'
       : `${formatQuantity(computed.speedMarginMs, 'speed', units)} below the marked maximum${computed.speedMarginPct === null ? '' : ` (${computed.speedMarginPct.toFixed(0)} %)`}`;
   const overMax = computed.speedMarginMs !== null && computed.speedMarginMs < 0;
-  const entry =
-    c.cutting.entryFeedMmS !== null
-      ? `${formatQuantity(c.cutting.entryFeedMmS, 'feed', units)}${c.cutting.entryLengthMm !== null ? ` for the first ${len(c.cutting.entryLengthMm)}` : ''}`
-      : null;
-
+  // Wheel, wheel speed, feed, cut motion and coolant are in the key-settings strip; these are the facts behind them.
   const parameters: Row[] = [
     { label: 'Machine', value: machine ? `${machine.name} (${MACHINE_CLASS_LABELS[machine.machineClass]})` : '—' },
-    { label: 'Wheel', value: wheel ? wheel.name : '—', strong: true },
-    { label: 'Specification (ISO 525)', value: wheel ? wheel.specification : '—', strong: true },
     {
       label: 'Wheel size',
       value: wheel ? `Ø ${len(wheel.diameterMm)} × ${len(wheel.thicknessMm)}, bore ${len(wheel.boreMm)}` : '—',
     },
+    { label: 'Specification (ISO 525)', value: wheel ? wheel.specification : '—', strong: true },
     {
       label: 'Restrictions marked on the wheel',
       value: wheel ? (wheel.restrictions.length ? wheel.restrictions.map((r) => WHEEL_RESTRICTION_LABELS[r]).join('; ') : 'None marked') : '—',
       strong: !!wheel?.restrictions.length,
     },
+    // "Never exceed it" is said by the strip's limit and the standard cautions.
+    { label: 'Marked maximum speed', value: computed.markedMaximum ? markedMaximumText(computed.markedMaximum, units) : '—' },
+    { label: 'Peripheral speed (new wheel)', value: speed },
     {
-      label: 'Marked maximum speed',
-      value: computed.markedMaximum ? markedMaximumText(computed.markedMaximum, units) : '—',
-      note: 'As marked on the wheel — never exceed it.',
+      label: 'Margin to marked maximum',
+      value: overMax ? `${formatQuantity(-computed.speedMarginMs!, 'speed', units)} ABOVE the marked maximum — do not run` : margin,
+      strong: overMax,
     },
-    {
-      label: 'Wheel speed',
-      value: formatQuantity(c.cutting.wheelRpm, 'rpm', units),
-      strong: true,
-      // Beside the rpm in large type: the wheel's marked maximum in whole rpm, or the machine's spindle limit where lower.
-      ...(computed.neverAboveRpm !== null ? { callout: `never above ${computed.neverAboveRpm} rpm on this machine` } : {}),
-    },
+    { label: 'Passes', value: c.cutting.passes === null ? 'Single cut' : String(c.cutting.passes) },
     ...(computed.spindleOverspeed
       ? [
           {
@@ -169,16 +231,6 @@ export function buildSheetModel(input: SheetInput): SheetModel {
           } satisfies Row,
         ]
       : []),
-    { label: 'Peripheral speed', value: speed, note: 'Computed at the new wheel diameter.' },
-    {
-      label: 'Margin to marked maximum',
-      value: overMax ? `${formatQuantity(-computed.speedMarginMs!, 'speed', units)} ABOVE the marked maximum — do not run` : margin,
-      strong: overMax,
-    },
-    { label: 'Feed', value: formatQuantity(c.cutting.feedMmS, 'feed', units), strong: true },
-    ...(entry ? [{ label: 'Entry feed', value: entry, strong: true } satisfies Row] : []),
-    { label: 'Cut motion', value: CUT_MOTION_LABELS[c.cutting.cutMotion], strong: true },
-    { label: 'Passes', value: c.cutting.passes === null ? 'Single cut' : String(c.cutting.passes) },
   ];
 
   const clamping: Row[] = [
@@ -193,10 +245,6 @@ export function buildSheetModel(input: SheetInput): SheetModel {
       : []),
     ...(c.clamping.orientationRule ? [{ label: 'Orientation rule', value: c.clamping.orientationRule }] : []),
   ];
-
-  const coolant: Row[] = [{ label: 'Coolant', value: COOLANT_TYPE_LABELS[c.coolant.type], strong: true }];
-  if (c.coolant.concentrationPct !== null) coolant.push({ label: 'Concentration', value: `${num(c.coolant.concentrationPct)} % v/v` });
-  if (c.coolant.flowLMin !== null) coolant.push({ label: 'Flow', value: `${num(c.coolant.flowLMin)} L/min` });
 
   const signatures = (v.workflow?.signatures ?? []).map((s) => ({
     name: s.signerName,
@@ -217,10 +265,16 @@ export function buildSheetModel(input: SheetInput): SheetModel {
     reviewDueOn: v.workflow?.reviewDueOn ?? '—',
     checkCode: input.checkCode,
     checkUrl: input.checkUrl,
+    preparedBy: v.createdBy.name,
+    approvedBy:
+      signatures
+        .filter((sg) => sg.meaning === MEANING_LABELS.approved)
+        .map((sg) => sg.name)
+        .join(', ') || '—',
+    keySettings: keySettingsOf(c, wheel, computed.neverAboveRpm, units),
     scope,
     parameters,
     clamping,
-    coolant,
     instructionsMd: c.instructionsMd,
     acceptanceMd: c.acceptanceMd,
     cautionsMd: c.cautionsMd,

@@ -1,9 +1,11 @@
 /**
  * Drawing primitives of the bench sheet: a page writer that keeps the cursor, section
  * headings, ruled label/value tables, boxed blocks and the footer. Black on white with
- * grey hairlines only: nothing depends on colour, so a grey photocopy reads the same.
+ * grey hairlines, the status mark in its dark status ink: nothing depends on colour, so a
+ * grey photocopy reads the same.
  */
 import PDFDocument from 'pdfkit';
+import { SHEET_VERDICT_TONES, TONE_COLOURS } from '../../../shared/status-colours';
 import { registerSheetFonts, type SheetFont } from './fonts';
 
 export type PaperSize = 'A4' | 'Letter';
@@ -26,6 +28,15 @@ export const RULE = '#8a8a8a';
 export const MUTED = '#3c3c3c';
 /** The faint fill behind label columns and headings: decoration only, never meaning. */
 export const TINT = '#efefef';
+/**
+ * The status mark prints in the shared status language's ink (shared/status-colours.ts), as
+ * the check page shows the same version: green for current, amber for approved but not yet in
+ * force. Both are dark enough to copy as black; the words carry the meaning.
+ */
+export const STATUS_INK = {
+  current: TONE_COLOURS[SHEET_VERDICT_TONES.current].ink,
+  pending: TONE_COLOURS[SHEET_VERDICT_TONES.pending].ink,
+} as const;
 
 /** Cell padding of the ruled tables, points. */
 const CELL = { padX: 5, padY: 2.6 } as const;
@@ -63,12 +74,26 @@ export class SheetWriter {
     this.doc.lineGap(TYPE.lineGap);
   }
 
+  /** A column of the page the flow is narrowed to (side-by-side blocks); null for the full width. */
+  private column: { left: number; width: number } | null = null;
+
   get left(): number {
-    return MARGIN.left;
+    return this.column?.left ?? MARGIN.left;
   }
 
   get width(): number {
-    return this.doc.page.width - MARGIN.left - MARGIN.right;
+    return this.column?.width ?? this.doc.page.width - MARGIN.left - MARGIN.right;
+  }
+
+  /** Runs `draw` with the flow narrowed to a column; headings, paragraphs and lists keep to it. */
+  inColumn<T>(left: number, width: number, draw: () => T): T {
+    const outer = this.column;
+    this.column = { left, width };
+    try {
+      return draw();
+    } finally {
+      this.column = outer;
+    }
   }
 
   get right(): number {
@@ -139,13 +164,13 @@ export class SheetWriter {
    * `keepWith` is the height of what must follow on the same page.
    */
   section(number: number, title: string, keepWith = 40): void {
-    this.ensureSpace(22 + keepWith);
-    this.gap(7);
+    this.ensureSpace(17 + keepWith);
+    this.gap(4);
     const y = this.y;
     this.place(String(number), this.left, y, 'bold', TYPE.heading, { lineBreak: false });
     this.place(title.toUpperCase(), this.left + 16, y, 'bold', TYPE.heading, { characterSpacing: 0.6, lineBreak: false });
-    this.hrule(y + 13.5, 1, INK);
-    this.y = y + 18;
+    this.hrule(y + 11.5, 1, INK);
+    this.y = y + 13.5;
   }
 
   /**
@@ -198,11 +223,48 @@ export class SheetWriter {
         const x = this.left + j * half;
         this.fillRect(x, top + 0.25, labelWidth, height - 0.5);
         this.place(row.label, x + CELL.padX, top + CELL.padY + 0.6, 'regular', TYPE.label, { width: labelWidth - 2 * CELL.padX }, MUTED);
-        this.place(row.value, x + labelWidth + CELL.padX, top + CELL.padY, row.strong ? 'bold' : 'regular', TYPE.body, {
-          width: half - labelWidth - 2 * CELL.padX,
-        });
+        const valueWidth = half - labelWidth - 2 * CELL.padX;
+        const valueH = this.place(row.value, x + labelWidth + CELL.padX, top + CELL.padY, row.strong ? 'bold' : 'regular', TYPE.body, { width: valueWidth });
+        if (row.note) this.place(row.note, x + labelWidth + CELL.padX, top + CELL.padY + valueH, 'regular', TYPE.small, { width: valueWidth }, MUTED);
         this.vrule(x + labelWidth, top, top + height);
         if (j === 1) this.vrule(x, top, top + height);
+      });
+      this.hrule(top + height);
+      top += height;
+    }
+    this.y = top + 2;
+  }
+
+  /**
+   * Facts in a grid of `columns` cells a line, each a small label over its value (and note):
+   * about half the height of a label/value table for short values. Lines never split
+   * across pages. A row marked `strong` is printed bold.
+   */
+  grid(rows: readonly Row[], columns = 4): void {
+    const cellWidth = this.width / columns;
+    const inner = cellWidth - 2 * CELL.padX;
+    const labelH = 9.5;
+    const measure = (row: Row) => {
+      const valueH = this.heightOf(row.value, row.strong ? 'bold' : 'regular', TYPE.body, inner);
+      const noteH = row.note ? this.heightOf(row.note, 'regular', TYPE.small, inner) : 0;
+      return { valueH, height: labelH + valueH + noteH };
+    };
+    let top = this.y;
+    this.hrule(top);
+    for (let i = 0; i < rows.length; i += columns) {
+      const line = rows.slice(i, i + columns).map((row) => ({ row, ...measure(row) }));
+      const height = Math.max(...line.map((c) => c.height)) + 2 * CELL.padY - 1;
+      if (top + height > this.bottom) {
+        this.doc.addPage();
+        top = MARGIN.top;
+        this.hrule(top);
+      }
+      line.forEach(({ row, valueH }, j) => {
+        const x = this.left + j * cellWidth + CELL.padX;
+        this.place(row.label, x, top + CELL.padY, 'regular', TYPE.small - 0.5, { width: inner, lineBreak: false, ellipsis: true }, MUTED);
+        this.place(row.value, x, top + CELL.padY + labelH, row.strong ? 'bold' : 'regular', TYPE.body, { width: inner });
+        if (row.note) this.place(row.note, x, top + CELL.padY + labelH + valueH, 'regular', TYPE.small, { width: inner }, MUTED);
+        if (j > 0) this.vrule(this.left + j * cellWidth, top, top + height);
       });
       this.hrule(top + height);
       top += height;
@@ -252,21 +314,27 @@ export class SheetWriter {
     this.doc.text(text, this.left + indent, this.y, { width, lineGap: TYPE.lineGap });
   }
 
-  /** "Printed … — check the code before use · Page x of y" on every page, written last. */
-  footers(text: string): void {
+  /**
+   * The foot of every page, written last: which recipe, version and check code the page
+   * belongs to and "Page x of y" in bold, so a loose page can be matched to its sheet; under
+   * it who printed it and when.
+   */
+  footers(identity: string, printed: string): void {
     const range = this.doc.bufferedPageRange();
     for (let i = range.start; i < range.start + range.count; i += 1) {
       this.doc.switchToPage(i);
       // Writing below the bottom margin would make pdfkit start a new page: lift it first.
       const bottomMargin = this.doc.page.margins.bottom;
       this.doc.page.margins.bottom = 0;
-      const y = this.doc.page.height - MARGIN.bottom + FOOTER_GAP - 8;
+      const y = this.doc.page.height - MARGIN.bottom + FOOTER_GAP - 14;
       this.hrule(y - 5, 0.5, RULE);
       const pageText = `Page ${i - range.start + 1} of ${range.count}`;
-      this.use('regular', TYPE.small, MUTED);
+      this.use('bold', TYPE.label);
       const pageWidth = this.doc.widthOfString(pageText);
-      this.doc.text(text, this.left, y, { width: this.width - pageWidth - 12, lineBreak: false, ellipsis: true });
+      this.doc.text(identity, this.left, y, { width: this.width - pageWidth - 12, lineBreak: false, ellipsis: true });
       this.doc.text(pageText, this.right - pageWidth, y, { lineBreak: false });
+      this.use('regular', TYPE.small, MUTED);
+      this.doc.text(printed, this.left, y + 11, { width: this.width, lineBreak: false, ellipsis: true });
       this.doc.page.margins.bottom = bottomMargin;
     }
   }

@@ -6,7 +6,7 @@
  */
 import { NO_SAFETY_CLAIM, PRECEDENCE_LINE, type Caution } from '../../../shared/cautions';
 import type { SheetModel } from './content';
-import { INK, MUTED, RULE, SheetWriter, TINT, TYPE, type PaperSize } from './layout';
+import { INK, MUTED, RULE, SheetWriter, STATUS_INK, TINT, TYPE, type PaperSize } from './layout';
 import { markdownHeight, writeMarkdown } from './markdown';
 
 export interface SheetPhoto {
@@ -25,7 +25,7 @@ export interface SheetRenderInput {
   footer: string;
 }
 
-const QR_SIZE = 76;
+const QR_SIZE = 62;
 
 function header(w: SheetWriter, m: SheetModel, qr: Buffer): void {
   const top = w.y;
@@ -50,35 +50,45 @@ function header(w: SheetWriter, m: SheetModel, qr: Buffer): void {
 
   // Recipe number and version, then the title.
   let y = boxTop + pad - 1;
-  w.place(m.number, w.left + pad, y, 'bold', 22, { lineBreak: false });
-  w.use('bold', 22);
+  w.place(m.number, w.left + pad, y, 'bold', 20, { lineBreak: false });
+  w.use('bold', 20);
   const numberWidth = w.doc.widthOfString(m.number);
-  w.place(`Version ${m.version}`, w.left + pad + numberWidth + 12, y + 8, 'bold', 13, { lineBreak: false });
-  y += 30;
-  y += w.place(m.title, w.left + pad, y, 'bold', 12, { width: mainWidth - 2 * pad }) + 6;
+  w.place(`Version ${m.version}`, w.left + pad + numberWidth + 12, y + 6.5, 'bold', 13, { lineBreak: false });
+  y += 26;
+  y += w.place(m.title, w.left + pad, y, 'bold', 12, { width: mainWidth - 2 * pad }) + 3;
 
   // Status, effective date, review due: small labels over values.
-  const fields: [string, string][] = [
-    ['Status', m.statusLine],
-    ['Effective from', m.effectiveFrom],
-    ['Review due', m.reviewDueOn],
-  ];
   // The status gets the widest field: "Approved — not yet current" must fit on one line.
-  const shares = [0.44, 0.28, 0.28];
-  w.hrule(y, 0.5, RULE, w.left + pad, w.left + mainWidth - pad);
-  y += 5;
-  let fx = w.left + pad;
-  fields.forEach(([label, value], i) => {
-    const fieldWidth = shares[i]! * (mainWidth - 2 * pad);
-    w.place(label.toUpperCase(), fx, y, 'regular', 6.5, { characterSpacing: 0.6, lineBreak: false }, MUTED);
-    w.place(value, fx, y + 9, 'bold', 9.5, { width: fieldWidth - 6, lineBreak: false, ellipsis: true });
-    fx += fieldWidth;
-  });
-  y += 26;
+  // Who prepared the version sits beside who approved it.
+  const fieldRows: { label: string; value: string; share: number }[][] = [
+    [
+      { label: 'Status', value: m.statusLine, share: 0.44 },
+      { label: 'Effective from', value: m.effectiveFrom, share: 0.28 },
+      { label: 'Review due', value: m.reviewDueOn, share: 0.28 },
+    ],
+    [
+      { label: 'Prepared by', value: m.preparedBy, share: 0.44 },
+      { label: 'Approved by', value: m.approvedBy, share: 0.56 },
+    ],
+  ];
+  for (const fields of fieldRows) {
+    w.hrule(y, 0.5, RULE, w.left + pad, w.left + mainWidth - pad);
+    y += 4;
+    let fx = w.left + pad;
+    for (const field of fields) {
+      const fieldWidth = field.share * (mainWidth - 2 * pad);
+      w.place(field.label.toUpperCase(), fx, y, 'regular', 6.5, { characterSpacing: 0.6, lineBreak: false }, MUTED);
+      // The status in its status colour (dark enough to photocopy as black).
+      const ink = field.label === 'Status' ? (m.current ? STATUS_INK.current : STATUS_INK.pending) : INK;
+      w.place(field.value, fx, y + 8.5, 'bold', 9.5, { width: fieldWidth - 6, lineBreak: false, ellipsis: true }, ink);
+      fx += fieldWidth;
+    }
+    y += 22;
+  }
 
   // The check code column: QR code, then the code itself, large.
   const sideX = w.left + mainWidth;
-  const sideHeight = pad + QR_SIZE + 40;
+  const sideHeight = pad + QR_SIZE + 34;
   const boxHeight = Math.max(y - boxTop + pad - 4, sideHeight);
   w.doc.image(qr, sideX + (sideWidth - QR_SIZE) / 2, boxTop + 6, { width: QR_SIZE, height: QR_SIZE });
   w.place('CHECK CODE', sideX, boxTop + QR_SIZE + 8, 'regular', 6.5, { width: sideWidth, align: 'center', characterSpacing: 0.8, lineBreak: false }, MUTED);
@@ -104,51 +114,133 @@ function uncontrolledNotice(w: SheetWriter, m: SheetModel): void {
   const top = w.y;
   w.fillRect(w.left, top, 3, height + 4, INK);
   w.place(text, w.left + 10, top + 2, 'regular', TYPE.small + 0.5, { width: w.width - 14 }, INK);
-  w.y = top + height + 6;
+  w.y = top + height + 5;
 }
 
-function photoBlock(w: SheetWriter, photo: SheetPhoto, x: number, y: number, width: number): number {
-  const maxHeight = 150;
-  const scale = Math.min(width / photo.width, maxHeight / photo.height);
-  const pw = photo.width * scale;
-  const ph = photo.height * scale;
+/** Type of the key-settings strip: the values read at arm's length (about 5 mm capitals). */
+const KEY = { value: 14, detail: 8.5, limit: 9, label: 6.5, pad: 7 } as const;
+
+/**
+ * The key settings at the top of page 1, in large type: wheel, wheel speed with the speed
+ * never to exceed on this machine boxed under it, feed, cut motion and coolant — what the
+ * operator sets, in the order they set it. The limit is smaller than the setting, so the eye
+ * never takes the limit for the setting.
+ */
+function keySettingsStrip(w: SheetWriter, m: SheetModel): void {
+  const shares = [0.19, 0.27, 0.17, 0.15, 0.22];
+  // Each value on one line where it can be at 11 pt or more, else as large as lets its longest
+  // word fit: a setting is never broken inside a word or a unit ("mm/ s").
+  const cells = m.keySettings.map((k, i) => {
+    const width = shares[i]! * w.width;
+    const inner = 0.97 * (width - 2 * KEY.pad);
+    const widthAt = (text: string) => w.use('bold', KEY.value).doc.widthOfString(text);
+    const whole = (KEY.value * inner) / widthAt(k.value);
+    // pdfkit counts the space after a word when it fits a line.
+    const word = (KEY.value * inner) / Math.max(...k.value.split(/\s+/).map((part) => widthAt(`${part} `)));
+    const size = Math.min(KEY.value, whole >= 11 ? whole : Math.max(11, word));
+    return { ...k, width, size };
+  });
+  const top = w.y;
+  const labelH = 11;
+  const heightOf = (c: (typeof cells)[number]) => {
+    const inner = c.width - 2 * KEY.pad;
+    let h = labelH + w.heightOf(c.value, 'bold', c.size, inner);
+    if (c.detail) h += w.heightOf(c.detail, 'regular', KEY.detail, inner);
+    if (c.limit) h += 3 + w.heightOf(c.limit, 'bold', KEY.limit, inner - 8) + 5;
+    return h;
+  };
+  const height = Math.max(...cells.map(heightOf)) + 2 * KEY.pad - 2;
+  w.ensureSpace(height + 16);
+  w.place('KEY SETTINGS', w.left, top, 'bold', TYPE.label, { characterSpacing: 0.5, lineBreak: false });
+  w.place('set the machine to these', w.left + 80, top + 0.5, 'regular', TYPE.small, { lineBreak: false }, MUTED);
+  const boxTop = top + 12;
+  let x = w.left;
+  cells.forEach((c, i) => {
+    const inner = c.width - 2 * KEY.pad;
+    let y = boxTop + KEY.pad - 2;
+    w.place(c.label.toUpperCase(), x + KEY.pad, y, 'regular', KEY.label, { characterSpacing: 0.6, lineBreak: false }, MUTED);
+    y += labelH;
+    y += w.place(c.value, x + KEY.pad, y, 'bold', c.size, { width: inner });
+    if (c.detail) y += w.place(c.detail, x + KEY.pad, y, 'regular', KEY.detail, { width: inner });
+    if (c.limit) {
+      const limitH = w.heightOf(c.limit, 'bold', KEY.limit, inner - 8) + 5;
+      w.strokeRect(x + KEY.pad, y + 3, inner, limitH, 1.5, INK);
+      w.place(c.limit, x + KEY.pad + 4, y + 5.5, 'bold', KEY.limit, { width: inner - 8 });
+    }
+    if (i > 0) w.vrule(x, boxTop, boxTop + height, 0.75, INK);
+    x += c.width;
+  });
+  w.strokeRect(w.left, boxTop, w.width, height, 1.5, INK);
+  w.y = boxTop + height + 4;
+}
+
+const PHOTO_MAX_HEIGHT = 120;
+
+function photoSize(photo: SheetPhoto, width: number): { pw: number; ph: number } {
+  const scale = Math.min(width / photo.width, PHOTO_MAX_HEIGHT / photo.height);
+  return { pw: photo.width * scale, ph: photo.height * scale };
+}
+
+const photoCaption = (photo: SheetPhoto) => (photo.caption ? `Setup photo — ${photo.caption}` : 'Setup photo');
+
+/** The height `photoBlock` takes: the photo and its caption. */
+function photoBlockHeight(w: SheetWriter, photo: SheetPhoto, width: number): number {
+  return photoSize(photo, width).ph + 3 + w.heightOf(photoCaption(photo), 'regular', TYPE.small, width);
+}
+
+function photoBlock(w: SheetWriter, photo: SheetPhoto, x: number, y: number, width: number): void {
+  const { pw, ph } = photoSize(photo, width);
   w.doc.image(photo.jpeg, x + (width - pw) / 2, y, { width: pw, height: ph });
   w.strokeRect(x + (width - pw) / 2, y, pw, ph, 0.5, RULE);
-  const caption = photo.caption ? `Setup photo — ${photo.caption}` : 'Setup photo';
-  const ch = w.place(caption, x, y + ph + 3, 'regular', TYPE.small, { width, align: 'center' }, MUTED);
-  return ph + 3 + ch;
+  w.place(photoCaption(photo), x, y + ph + 3, 'regular', TYPE.small, { width, align: 'center' }, MUTED);
 }
 
 /** A caution the recipe calls for, full width: bold title, text, and its basis. */
 const recipeCautionText = (c: Caution) => `${c.text}${c.sources.length ? ` (Basis: ${c.sources.join('; ')}.)` : ''}`;
 
+/**
+ * Splits items, in order, into `columns` runs whose tallest is as short as it can be (every
+ * split tried: a handful of cautions), so a box of columns wastes no height.
+ */
+export function balancedColumns<T>(items: readonly T[], columns: number, height: (item: T) => number): T[][] {
+  const sum = (list: readonly T[]) => list.reduce((total, item) => total + height(item), 0);
+  if (columns <= 1 || items.length <= 1) return [items.slice()];
+  let best: T[][] = [items.slice()];
+  let bestTallest = sum(items);
+  for (let k = 1; k < items.length; k += 1) {
+    const rest = balancedColumns(items.slice(k), columns - 1, height);
+    const tallest = Math.max(sum(items.slice(0, k)), ...rest.map(sum));
+    if (tallest < bestTallest) [best, bestTallest] = [[items.slice(0, k), ...rest], tallest];
+  }
+  return best;
+}
+
 function cautionsBox(w: SheetWriter, m: SheetModel): void {
-  const pad = 9;
-  const gutter = 14;
-  const colWidth = (w.width - 2 * pad - gutter) / 2;
+  const pad = 8;
+  const gutter = 12;
+  // Four narrow columns in 7 pt: the box takes about half the height of two in 8 pt.
+  const columns = 4;
+  const standardSize = 7;
+  const colWidth = (w.width - 2 * pad - (columns - 1) * gutter) / columns;
   const fullWidth = w.width - 2 * pad;
-  // Measured all in bold: the bold title makes the real line a little wider than regular text.
-  const items = m.standardCautions.map((c) => ({ ...c, height: w.heightOf(`${c.title}. ${c.text}`, 'bold', TYPE.small + 0.5, colWidth) + 4 }));
+  // Measured in regular type, the column narrowed by what the bold title takes beyond regular type.
+  const boldExtra = (title: string) =>
+    w.use('bold', standardSize).doc.widthOfString(`${title}. `) - w.use('regular', standardSize).doc.widthOfString(`${title}. `);
+  const items = m.standardCautions.map((c) => ({
+    ...c,
+    height: w.heightOf(`${c.title}. ${c.text}`, 'regular', standardSize, colWidth - boldExtra(c.title)) + 3.5,
+  }));
   const forRecipe = m.recipeCautions.map((c) => ({ ...c, height: w.heightOf(`${c.title}. ${recipeCautionText(c)}`, 'bold', TYPE.small + 0.5, fullWidth) + 4 }));
   const forRecipeHeight = forRecipe.length ? 12 + forRecipe.reduce((sum, i) => sum + i.height, 0) + 17 : 0;
-  // Split in order where the taller column is the shortest, so the box wastes no height.
+  // Split in order where the tallest column is the shortest, so the box wastes no height.
   const heightOf = (list: typeof items) => list.reduce((sum, i) => sum + i.height, 0);
-  let split = 1;
-  for (let k = 1; k < items.length; k += 1) {
-    const taller = Math.max(heightOf(items.slice(0, k)), heightOf(items.slice(k)));
-    if (taller < Math.max(heightOf(items.slice(0, split)), heightOf(items.slice(split)))) split = k;
-  }
-  const left = items.slice(0, split);
-  const acc = heightOf(left);
-  const right = items.slice(split);
-  const colHeight = Math.max(
-    acc,
-    right.reduce((s, i) => s + i.height, 0),
-  );
-  const precedenceHeight = w.heightOf(PRECEDENCE_LINE, 'bold', TYPE.small + 0.5, w.width - 2 * pad);
+  const parts = balancedColumns(items, columns, (i) => i.height);
+  const colHeight = Math.max(...parts.map(heightOf));
+  const precedenceHeight = w.heightOf(PRECEDENCE_LINE, 'bold', TYPE.small, w.width - 2 * pad);
   const claimHeight = w.heightOf(NO_SAFETY_CLAIM, 'regular', TYPE.small, w.width - 2 * pad);
-  const boxHeight = pad + 16 + forRecipeHeight + colHeight + 4 + precedenceHeight + 2 + claimHeight + pad;
-  w.ensureSpace(boxHeight + 10);
+  // As drawn below: heading band, recipe cautions, columns, rule, precedence line, claim.
+  const boxHeight = 24 + forRecipeHeight + colHeight + 6 + precedenceHeight + 2 + claimHeight + pad - 2;
+  w.ensureSpace(boxHeight + 6);
   w.gap(6);
   const top = w.y;
 
@@ -171,7 +263,7 @@ function cautionsBox(w: SheetWriter, m: SheetModel): void {
   w.place('Read before every cut', w.right - pad - 110, top + 6.5, 'regular', TYPE.small, { width: 110, align: 'right', lineBreak: false }, MUTED);
 
   // What this recipe's material, coolant or flags call for, first and full width, with the basis of each.
-  let columnsTop = top + 20 + 6;
+  let columnsTop = top + 20 + 4;
   if (forRecipe.length) {
     let y = columnsTop;
     w.place('FOR THIS MATERIAL AND SETUP', w.left + pad, y, 'bold', TYPE.small, { characterSpacing: 0.6, lineBreak: false });
@@ -192,22 +284,23 @@ function cautionsBox(w: SheetWriter, m: SheetModel): void {
   const writeColumn = (list: typeof items, x: number): number => {
     let y = columnsTop;
     for (const c of list) {
-      w.use('bold', TYPE.small + 0.5);
+      w.use('bold', standardSize);
       w.doc.text(`${c.title}. `, x, y, { width: colWidth, lineGap: TYPE.lineGap, continued: true });
-      w.use('regular', TYPE.small + 0.5);
+      w.use('regular', standardSize);
       w.doc.text(c.text, { width: colWidth, lineGap: TYPE.lineGap });
-      y = w.doc.y + 4;
+      y = w.doc.y + 3.5;
     }
     return y;
   };
   // Written first; the box is drawn last to the height the columns really took.
-  const columnsEnd = Math.max(writeColumn(left, w.left + pad), writeColumn(right, w.left + pad + colWidth + gutter));
-  w.vrule(w.left + pad + colWidth + gutter / 2, columnsTop, columnsEnd - 4, 0.5, RULE);
+  const columnX = (i: number) => w.left + pad + i * (colWidth + gutter);
+  const columnsEnd = Math.max(...parts.map((list, i) => writeColumn(list, columnX(i))));
+  for (let i = 1; i < parts.length; i += 1) w.vrule(columnX(i) - gutter / 2, columnsTop, columnsEnd - 4, 0.5, RULE);
 
   let y = columnsEnd + 2;
   w.hrule(y, 0.5, RULE, w.left + pad, w.right - pad);
   y += 4;
-  y += w.place(PRECEDENCE_LINE, w.left + pad, y, 'bold', TYPE.small + 0.5, { width: w.width - 2 * pad });
+  y += w.place(PRECEDENCE_LINE, w.left + pad, y, 'bold', TYPE.small, { width: w.width - 2 * pad });
   y += 2;
   y += w.place(NO_SAFETY_CLAIM, w.left + pad, y, 'regular', TYPE.small, { width: w.width - 2 * pad }, MUTED);
 
@@ -266,6 +359,44 @@ function signatures(w: SheetWriter, m: SheetModel): void {
   );
 }
 
+/**
+ * Acceptance criteria and the recipe's own cautions: side by side when both fit on this page
+ * (they are usually a few lines each), else one after the other. Returns the last section number.
+ */
+function acceptanceAndCautions(w: SheetWriter, m: SheetModel, n: number): number {
+  const cautionsEmpty = m.recipeCautions.length ? 'None written beyond the cautions below.' : 'None beyond the standard cautions below.';
+  const blocks = [
+    { title: 'Acceptance criteria for the cut face', md: m.acceptanceMd, empty: 'None given.' },
+    { title: 'Cautions for this recipe', md: m.cautionsMd, empty: cautionsEmpty },
+  ];
+  const gutter = 16;
+  const half = (w.width - gutter) / 2;
+  const tallest = Math.max(
+    ...blocks.map((b) => w.inColumn(w.left, half, () => (b.md.trim() ? markdownHeight(w, b.md) : w.heightOf(b.empty, 'regular', TYPE.body, half)))),
+  );
+  // Short blocks go side by side, on the next page if not on this one; long ones one after the other.
+  if (tallest > 240) {
+    for (const b of blocks) {
+      w.section(++n, b.title, 24);
+      writeMarkdown(w, b.md, { emptyText: b.empty });
+    }
+    return n;
+  }
+  w.ensureSpace(20 + tallest);
+  const top = w.y;
+  const ends = blocks.map((b, i) => {
+    w.y = top;
+    const number = n + i + 1;
+    return w.inColumn(w.left + i * (half + gutter), half, () => {
+      w.section(number, b.title, 0);
+      writeMarkdown(w, b.md, { emptyText: b.empty });
+      return w.y;
+    });
+  });
+  w.y = Math.max(...ends);
+  return n + blocks.length;
+}
+
 export async function renderSheet(input: SheetRenderInput): Promise<Buffer> {
   const { model: m } = input;
   const w = new SheetWriter(input.paper, {
@@ -277,50 +408,47 @@ export async function renderSheet(input: SheetRenderInput): Promise<Buffer> {
   header(w, m, input.qrPng);
   uncontrolledNotice(w, m);
 
+  keySettingsStrip(w, m);
+
   let n = 0;
   w.section(++n, 'Scope');
-  w.pairTable(m.scope);
+  w.grid(m.scope, 5);
 
-  w.section(++n, 'Machine, wheel and speeds');
-  w.table(m.parameters);
+  w.section(++n, 'Machine and wheel');
+  w.grid(m.parameters);
 
-  // Clamping and coolant beside the setup photo, kept together on one page.
-  const photoWidth = 170;
+  // Clamping beside the setup photo, kept together on one page.
+  const photoWidth = 150;
   const gap = 12;
-  const rows = [...m.clamping, ...m.coolant];
-  const blockHeight = input.photo ? Math.max(w.tableHeight(rows, 130, w.width - photoWidth - gap), 170) : w.tableHeight(rows, 150);
-  w.section(++n, 'Clamping and coolant', blockHeight);
-  const top = w.y;
   if (input.photo) {
-    w.table(rows, 130, w.width - photoWidth - gap);
+    const photoHeight = photoBlockHeight(w, input.photo, photoWidth);
+    w.section(++n, 'Clamping', Math.max(w.tableHeight(m.clamping, 120, w.width - photoWidth - gap), photoHeight));
+    const top = w.y;
+    w.table(m.clamping, 120, w.width - photoWidth - gap);
     const tableEnd = w.y;
-    const photoHeight = photoBlock(w, input.photo, w.right - photoWidth, top, photoWidth);
-    w.y = Math.max(tableEnd, top + photoHeight + 4);
+    photoBlock(w, input.photo, w.right - photoWidth, top, photoWidth);
+    w.y = Math.max(tableEnd, top + photoHeight + 2);
   } else {
-    w.table(rows);
+    w.section(++n, 'Clamping', 40);
+    w.grid(m.clamping, 5);
   }
 
-  // Steps stay together on one page when they fit on one (up to about half a page).
-  w.section(++n, 'Instructions', Math.min(markdownHeight(w, m.instructionsMd), 360));
+  // The steps follow straight on; a long list goes on over the page, step by step.
+  w.section(++n, 'Instructions', Math.min(markdownHeight(w, m.instructionsMd), 40));
   writeMarkdown(w, m.instructionsMd, { emptyText: 'No instructions beyond the parameters above.' });
 
-  w.section(++n, 'Acceptance criteria for the cut face', 24);
-  writeMarkdown(w, m.acceptanceMd, { emptyText: 'None given.' });
-
-  w.section(++n, 'Cautions for this recipe', 24);
-  writeMarkdown(w, m.cautionsMd, {
-    emptyText: m.recipeCautions.length ? 'None written beyond the cautions below.' : 'None beyond the standard cautions below.',
-  });
+  acceptanceAndCautions(w, m, n);
 
   cautionsBox(w, m);
 
-  w.section(++n, 'Signatures', 60);
+  w.ensureSpace(60);
+  w.gap(6);
   signatures(w, m);
   if (m.version > 1 && m.changeReason.trim()) {
     w.gap(2);
     w.paragraph(`Why this version: ${m.changeReason.trim()}`, 'regular', TYPE.small, INK);
   }
 
-  w.footers(input.footer);
+  w.footers(`${m.number} · Version ${m.version} · Check code ${m.checkCode}`, input.footer);
   return w.toBuffer();
 }

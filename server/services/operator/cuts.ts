@@ -1,6 +1,7 @@
 /**
  * Cut records: an operator records each cut against the exact version used —
- * only ever the recipe's current approved version. Anything but a good cut flags the
+ * only ever the recipe's current approved version, and (for an operator of its machine)
+ * only once they have acknowledged it. Anything but a good cut flags the
  * recipe for its author until an author has looked at it. From a version the lab finds
  * every cut made with it; from a specimen id, the version and parameters used.
  */
@@ -21,6 +22,8 @@ import { DEFAULT_MAIL_SETTINGS, type MailSettings } from '../mail/settings';
 import { notifyCutFlagged } from '../mail/notifications';
 import { visibleVersion, type VersionScope } from './visibility';
 import { requireActor } from '../recipes/recipes';
+import { requireAcknowledgedForCut } from '../recipes/acknowledgements';
+import { rolesOf } from '../../data/users';
 import { toSignatureDto } from '../recipes/signatures';
 import { utcDay } from '../../../shared/calendar-dates';
 import { RECIPE_STATUS_PHRASES } from '../../../shared/vocabulary';
@@ -83,6 +86,8 @@ export async function recordCut(
         : `${recipe.number} has no version in force, so no cuts can be recorded on it.`;
       throw AppError.conflict(`Version ${version} of ${recipe.number} is ${state}: cuts are recorded only on the current version. ${where}`);
     }
+    // Like the bench sheet: an operator of the machine reads and acknowledges the version before cutting with it.
+    await requireAcknowledgedForCut(trx, { id: userId, roles: await rolesOf(trx, userId) }, { ...target, number: recipe.number });
     const cutId = await insertCut(trx, {
       version_id: target.id,
       recipe_id: recipeId,

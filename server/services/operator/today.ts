@@ -32,7 +32,7 @@ export async function listReviewsDue(db: Knex, now = new Date()): Promise<Review
   return rows.map(withDueDate);
 }
 
-export async function getToday(db: Knex, user: { id: number; roles: readonly Role[] }, now = new Date()): Promise<TodayDto> {
+export async function getToday(db: Knex, user: { id: number; roles: readonly Role[] }, now = new Date()): Promise<Omit<TodayDto, 'notices'>> {
   const is = (role: Role) => user.roles.includes(role);
   const [myDrafts, waiting, due, flagged, unacknowledged] = await Promise.all([
     is('author') ? myDraftRows(db, user.id, LIST_LIMIT) : Promise.resolve([]),

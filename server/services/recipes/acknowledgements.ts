@@ -1,12 +1,14 @@
 /**
  * "Read and understood": when a version comes into use, every operator assigned
- * to its machine acknowledges it before printing its bench sheet. Only an approved version
+ * to its machine acknowledges it before printing its bench sheet or logging a cut with it. Only an approved version
  * (current, or approved for a later day) of a machine the operator runs can be
  * acknowledged; a second acknowledgement answers the first one and records nothing.
  */
 import type { Knex } from 'knex';
 import type { Role } from '../../../shared/roles';
-import type { AcknowledgementsDto, MyAcknowledgementDto } from '../../../shared/recipe-types';
+import type { AcknowledgementsDto, ChangesSinceAcknowledgedDto, MyAcknowledgementDto } from '../../../shared/recipe-types';
+import type { UnitPreference } from '../../../shared/api-types';
+import { compareRecipeVersions } from './compare';
 import { AppError } from '../../app-error';
 import {
   activeOperatorsOfMachine,
@@ -14,6 +16,7 @@ import {
   findMachineName,
   insertAcknowledgement,
   isOperatorOfMachine,
+  lastAcknowledgementBefore,
   listAcknowledgementRows,
   type AcknowledgementRow,
 } from '../../data/acknowledgements';
@@ -59,6 +62,23 @@ export async function requireAcknowledgedForSheet(db: Knex, viewer: Viewer, v: P
   const mine = await myAcknowledgement(db, viewer, v);
   if (mine?.required) {
     throw new AppError(409, 'ACKNOWLEDGE_FIRST', [{ path: '', message: 'Acknowledge this version (read and understood) before printing its sheet.' }]);
+  }
+}
+
+/**
+ * The same gate for logging a cut: a cut made with a version the operator has not read and
+ * understood would be traced to instructions they never confirmed.
+ */
+export async function requireAcknowledgedForCut(
+  db: Knex,
+  viewer: Viewer,
+  v: Pick<VersionRow, 'id' | 'status' | 'machine_id' | 'version'> & { number: string },
+): Promise<void> {
+  const mine = await myAcknowledgement(db, viewer, v);
+  if (mine?.required) {
+    throw new AppError(409, 'ACKNOWLEDGE_FIRST', [
+      { path: '', message: `Acknowledge version ${v.version} of ${v.number} (read and understood) before you log a cut with it.` },
+    ]);
   }
 }
 
@@ -132,5 +152,27 @@ export async function listAcknowledgements(db: Knex, scope: VersionScope, recipe
     machine: { id: v.machine_id, name: machineName ?? `machine ${v.machine_id}` },
     acknowledged: rows.map((r) => ({ userId: r.user_id, displayName: r.user_name, acknowledgedAt: new Date(r.acknowledged_at).toISOString() })),
     pending: pending.map((o) => ({ userId: o.id, displayName: o.display_name })),
+  };
+}
+
+/**
+ * GET /api/recipes/:id/versions/:n/changes-since-acknowledged: the comparison from the
+ * version of this recipe the person last acknowledged to this one, so "read and understood"
+ * is about what changed. Null when they never acknowledged an earlier version.
+ */
+export async function changesSinceAcknowledged(
+  db: Knex,
+  viewer: Viewer,
+  scope: VersionScope,
+  recipeId: number,
+  version: number,
+  pref: UnitPreference,
+): Promise<ChangesSinceAcknowledgedDto> {
+  await visibleVersion(db, scope, recipeId, version);
+  const last = await lastAcknowledgementBefore(db, recipeId, viewer.id, version);
+  if (!last) return { since: null, comparison: null };
+  return {
+    since: { version: last.version, acknowledgedAt: new Date(last.acknowledged_at).toISOString() },
+    comparison: await compareRecipeVersions(db, recipeId, last.version, version, pref, scope),
   };
 }

@@ -1,21 +1,26 @@
 /** Version rows and attachment rows as the API returns them. */
 import type { CheckResult } from '../../../shared/recipe-checks';
-import type { AttachmentDto, RecipeSummary, RecipeVersionDto, VersionWorkflowDto } from '../../../shared/recipe-types';
+import type { AttachmentDto, RecipeSummary, RecipeVersionDto, ReturnRoundDto, VersionWorkflowDto } from '../../../shared/recipe-types';
 import type { RecipeContent } from '../../../shared/schemas/recipe';
 import type { MaterialGroup, Shape } from '../../../shared/vocabulary';
 import type { AttachmentMetaRow } from '../../data/attachments';
 import type { RecipeSummaryRow, VersionWithNames } from '../../data/recipes';
+import type { StoredTrailEventRow } from '../../data/trail-events';
+import { fromJsonColumn } from '../../data/json-column';
 import type { EditorRow, SignatureRow } from '../../data/workflow';
 import { dayOf } from '../../../shared/calendar-dates';
+import { reviewDue } from '../../../shared/review-due';
 import { toSignatureDto } from './signatures';
 
 /** The rows of other tables a version's workflow facts come from (for one or many versions). */
 export interface WorkflowRows {
   signatures: readonly SignatureRow[];
   editors: readonly EditorRow[];
+  /** The trail's "version returned" events of these versions, oldest first. */
+  returns: readonly StoredTrailEventRow[];
 }
 
-const NO_WORKFLOW_ROWS: WorkflowRows = { signatures: [], editors: [] };
+const NO_WORKFLOW_ROWS: WorkflowRows = { signatures: [], editors: [], returns: [] };
 
 const iso = (value: Date | null | undefined): string | null => (value ? new Date(value).toISOString() : null);
 
@@ -29,6 +34,17 @@ export function toVersionWorkflow(row: VersionWithNames, rows: WorkflowRows): Ve
     withdrawnAt: iso(row.withdrawn_at),
     withdrawnReason: row.withdrawn_reason ?? null,
     editorIds: rows.editors.filter((e) => e.version_id === row.id).map((e) => e.user_id),
+    returns: rows.returns.filter((e) => e.entity_id === String(row.id)).map(toReturnRound),
+  };
+}
+
+/** A return as the trail recorded it: the comment is in the event's "after" state. */
+function toReturnRound(event: StoredTrailEventRow): ReturnRoundDto {
+  const after = fromJsonColumn<{ comment?: unknown } | null>(event.after_json);
+  return {
+    returnedAt: new Date(event.occurred_at).toISOString(),
+    returnedBy: { id: event.actor_user_id, name: event.actor_name },
+    comment: typeof after?.comment === 'string' ? after.comment : '',
   };
 }
 
@@ -84,5 +100,6 @@ export function toRecipeSummary(row: RecipeSummaryRow): RecipeSummary {
     wheelName: row.wheel_name,
     worstCheck: row.worst_check,
     updatedAt: new Date(row.updated_at).toISOString(),
+    ...reviewDue(dayOf(row.review_due_on ?? null)),
   };
 }

@@ -25,6 +25,7 @@ import {
   type VersionContentValues,
 } from '../../data/recipes';
 import { listEditorRows, listSignatureRows, touchEditor } from '../../data/workflow';
+import { listVersionEventRows } from '../../data/trail-events';
 import { myAcknowledgement, type Viewer } from './acknowledgements';
 import type { Actor } from '../actor';
 import { TRAIL_EVENTS } from '../trail/event-types';
@@ -34,6 +35,7 @@ import { changedKeys } from '../trail/changes';
 import { canSeeStatus, recipeNotFound, visibleVersion, type VersionScope } from '../operator/visibility';
 import { loadRecipeContext } from './context-loader';
 import { toRecipeSummary, toVersionDto } from './recipe-dto';
+import { utcDay } from '../../../shared/calendar-dates';
 import { RECIPE_STATUS_PHRASES, type HardnessScale, type MaterialGroup } from '../../../shared/vocabulary';
 
 export function formatRecipeNumber(n: number): string {
@@ -92,12 +94,13 @@ export async function versionDto(db: Knex, recipeId: number, version: number): P
     const recipe = await findRecipeRow(db, recipeId);
     throw AppError.notFound(recipe ? `Recipe ${recipe.number} has no version ${version}.` : `There is no recipe with id ${recipeId}.`);
   }
-  const [attachments, signatures, editors] = await Promise.all([
+  const [attachments, signatures, editors, returns] = await Promise.all([
     listAttachmentMetaRows(db, [row.id]),
     listSignatureRows(db, [row.id]),
     listEditorRows(db, [row.id]),
+    listVersionEventRows(db, TRAIL_EVENTS.versionReturned, [row.id]),
   ]);
-  return toVersionDto(row, attachments, { signatures, editors });
+  return toVersionDto(row, attachments, { signatures, editors, returns });
 }
 
 export function requireActor(actor: Actor): number {
@@ -170,6 +173,7 @@ export async function listRecipes(db: Knex, query: RecipeListQuery, scope: Versi
     size: query.size,
     hardnessHv: query.hardnessHv,
     currentOnly: scope === 'released',
+    reviewDueBefore: query.review === 'overdue' ? utcDay(new Date()) : undefined,
   });
   return { items: rows.map(toRecipeSummary), total, page: query.page, pageSize: query.pageSize };
 }
@@ -178,8 +182,13 @@ export async function listVersions(db: Knex, recipeId: number, scope: VersionSco
   const rows = (await listVersionRows(db, recipeId)).filter((r) => canSeeStatus(scope, r.status));
   if (rows.length === 0) throw recipeNotFound(recipeId);
   const ids = rows.map((r) => r.id);
-  const [attachments, signatures, editors] = await Promise.all([listAttachmentMetaRows(db, ids), listSignatureRows(db, ids), listEditorRows(db, ids)]);
-  return rows.map((row) => toVersionDto(row, attachments, { signatures, editors }));
+  const [attachments, signatures, editors, returns] = await Promise.all([
+    listAttachmentMetaRows(db, ids),
+    listSignatureRows(db, ids),
+    listEditorRows(db, ids),
+    listVersionEventRows(db, TRAIL_EVENTS.versionReturned, ids),
+  ]);
+  return rows.map((row) => toVersionDto(row, attachments, { signatures, editors, returns }));
 }
 
 /**

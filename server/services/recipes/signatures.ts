@@ -1,6 +1,7 @@
 /**
- * Electronic signatures (21 CFR 11.50, 11.70, 11.200): the signer types their
- * password again for each signing; the signature keeps the printed name at that moment,
+ * Electronic signatures (21 CFR 11.50, 11.70, 11.200): the first signing in a continuous
+ * session takes both components (username and password), later ones the password again
+ * (11.200(a)(1)(i)–(ii)); the signature keeps the printed name at that moment,
  * the UTC time, its meaning, a comment and the hash of the content it signs.
  */
 import type { Knex } from 'knex';
@@ -8,9 +9,12 @@ import type { SignatureDto } from '../../../shared/recipe-types';
 import { AppError } from '../../app-error';
 import { findUserRowById } from '../../data/users';
 import type { SignatureRow } from '../../data/workflow';
+import type { Actor } from '../actor';
 import { verifyPassword } from '../auth/passwords';
 
 export const WRONG_SIGNATURE_PASSWORD = 'The password is not correct. Type your own password to sign.';
+export const USERNAME_NEEDED = 'Your first signature in this session takes both parts: type your username as well as your password.';
+export const WRONG_SIGNATURE_USERNAME = 'This is not the username you are signed in with. Only you can sign as yourself.';
 
 /**
  * Re-verifies the signer's password with the stored scrypt hash. A wrong password answers
@@ -23,6 +27,36 @@ export async function verifySignerPassword(db: Knex, userId: number, password: s
   if (!(await verifyPassword(password, user.password_hash))) {
     throw AppError.validation([{ path: 'password', message: WRONG_SIGNATURE_PASSWORD }]);
   }
+  return { displayName: user.display_name };
+}
+
+/**
+ * Checks both signature components as the session needs them: the username when the actor
+ * has not yet signed fully in this session (or whenever one is typed), then the password.
+ * Every wrong part answers 400 on its field, all at once, and nothing changes.
+ */
+export async function verifySigner(
+  db: Knex,
+  actor: Actor,
+  userId: number,
+  parts: { username?: string | undefined; password: string },
+): Promise<{ displayName: string }> {
+  const user = await findUserRowById(db, userId);
+  if (!user || !user.active) throw AppError.forbidden('Only an active person can sign.');
+  const errors: { path: string; message: string }[] = [];
+  // An empty username counts as none. Usernames compare as sign-in finds them: without regard to case.
+  if (!parts.username) {
+    if (!actor.signedFullyInSession) errors.push({ path: 'username', message: USERNAME_NEEDED });
+  } else if (parts.username.toLowerCase() !== user.username.toLowerCase()) {
+    errors.push({ path: 'username', message: WRONG_SIGNATURE_USERNAME });
+  }
+  try {
+    await verifySignerPassword(db, userId, parts.password);
+  } catch (err) {
+    if (!(err instanceof AppError && err.code === 'VALIDATION_FAILED')) throw err;
+    errors.push(...err.errors);
+  }
+  if (errors.length > 0) throw AppError.validation(errors);
   return { displayName: user.display_name };
 }
 

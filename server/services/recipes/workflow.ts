@@ -35,7 +35,7 @@ import { assignCheckCode } from './check-codes';
 import { addMonths, isCalendarDay, utcDay } from '../../../shared/calendar-dates';
 import { loadRecipeContext } from './context-loader';
 import { contentValues, requireActor, versionDto } from './recipes';
-import { verifySignerPassword } from './signatures';
+import { verifySigner } from './signatures';
 import { DEFAULT_MAIL_SETTINGS, type MailSettings } from '../mail/settings';
 import type { VersionRef } from '../mail/notification-mails';
 import { notifyApproved, notifyReturned, notifyReviewRequested, notifyVersionCurrent } from '../mail/notifications';
@@ -259,7 +259,7 @@ export async function approveVersion(
   else if (effectiveFrom < today) errors.push({ path: 'effectiveDate', message: `The effective date cannot be in the past (today is ${today}, UTC).` });
   let signerName = actor.name;
   try {
-    signerName = (await verifySignerPassword(db, userId, body.password)).displayName;
+    signerName = (await verifySigner(db, actor, userId, body)).displayName;
   } catch (err) {
     if (!(err instanceof AppError && err.code === 'VALIDATION_FAILED')) throw err;
     errors.push(...err.errors);
@@ -355,7 +355,7 @@ export async function withdrawVersion(
 ): Promise<RecipeVersionDto> {
   const userId = requireActor(actor);
   if (!(await findVersion(db, recipeId, version))) return versionDto(db, recipeId, version); // 404
-  const { displayName } = await verifySignerPassword(db, userId, body.password);
+  const { displayName } = await verifySigner(db, actor, userId, body);
 
   await withConflicts(db, recipeId, version, () =>
     db.transaction(async (trx) => {

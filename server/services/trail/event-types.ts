@@ -55,8 +55,9 @@ export const TRAIL_EVENTS = {
   cutRecorded: 'cut.recorded',
   cutFlagCleared: 'cut.flag_cleared',
   versionAcknowledged: 'recipe.version_acknowledged',
+  labSettingsChanged: 'lab_settings.changed',
 } as const;
 
 export type TrailEventType = (typeof TRAIL_EVENTS)[keyof typeof TRAIL_EVENTS];
 
-export type TrailEntityType = 'user' | 'material' | 'wheel' | 'machine' | 'selection_row' | 'recipe' | 'recipe_version' | 'attachment';
+export type TrailEntityType = 'user' | 'material' | 'wheel' | 'machine' | 'selection_row' | 'recipe' | 'recipe_version' | 'attachment' | 'lab_settings';

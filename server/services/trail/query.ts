@@ -6,6 +6,8 @@ import { addDays, isCalendarDay } from '../../../shared/calendar-dates';
 import { AppError } from '../../app-error';
 import { type TrailFilter, listTrailEventRows } from '../../data/trail-events';
 import { toTrailEventDto } from './stored-row';
+import { nameSubjects } from './subjects';
+import { TRAIL_FAMILY_RULES } from '../../../shared/trail-families';
 
 /** A calendar day written YYYY-MM-DD, refusing days that do not exist (2027-02-31). */
 function calendarDay(value: string, path: string): string {
@@ -25,6 +27,8 @@ export function filterOf(query: TrailQuery): TrailFilter {
   if (query.recipeId !== undefined) filter.recipeId = query.recipeId;
   if (query.userId !== undefined) filter.userId = query.userId;
   if (query.type) filter.type = query.type;
+  if (query.family) filter.family = TRAIL_FAMILY_RULES[query.family];
+  if (query.hideSignIns === 'true') filter.hidePrefixes = TRAIL_FAMILY_RULES['sign-ins'].prefixes;
   if (from) filter.from = startOf(from);
   if (to) filter.toBefore = startOf(addDays(to, 1));
   if (query.before !== undefined) filter.beforeId = query.before;
@@ -34,7 +38,9 @@ export function filterOf(query: TrailQuery): TrailFilter {
 /** A page, newest first; `nextBefore` is set only when an older row exists. */
 export async function listTrail(db: Knex, query: TrailQuery): Promise<TrailPage> {
   const rows = await listTrailEventRows(db, filterOf(query), query.limit + 1);
-  const items = rows.slice(0, query.limit).map(toTrailEventDto);
+  const events = rows.slice(0, query.limit).map(toTrailEventDto);
+  const names = await nameSubjects(db, events);
+  const items = events.map((e, i) => ({ ...e, what: names[i]! }));
   const more = rows.length > query.limit;
   return { items, nextBefore: more && items.length > 0 ? items[items.length - 1]!.id : null };
 }

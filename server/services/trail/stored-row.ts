@@ -2,6 +2,7 @@
 import type { TrailEventDto } from '../../../shared/recipe-types';
 import type { StoredTrailEventRow } from '../../data/trail-events';
 import type { ChainedFields } from './hash';
+import { fallbackWhat } from './subjects';
 
 const json = (value: unknown): unknown => (typeof value === 'string' ? JSON.parse(value) : (value ?? null));
 
@@ -35,6 +36,7 @@ export function toTrailEventDto(row: StoredTrailEventRow): TrailEventDto {
     before: json(row.before_json),
     after: json(row.after_json),
     clientAddress: row.client_address,
+    what: fallbackWhat({ entityType: row.entity_type, entityId: row.entity_id }),
     prevHash: row.prev_hash,
     hash: row.hash,
   };

@@ -14,3 +14,9 @@ export const acknowledge: RouteHandler<{ params: typeof versionParams }> = async
 export const list: RouteHandler<{ params: typeof versionParams }> = async (req, res, { db }, { params: { id, n } }) => {
   res.json(await acknowledgements.listAcknowledgements(db, versionScopeOf(req.user?.roles), id, n));
 };
+
+/** GET /api/recipes/:id/versions/:n/changes-since-acknowledged */
+export const changesSince: RouteHandler<{ params: typeof versionParams }> = async (req, res, { db }, { params: { id, n } }) => {
+  const viewer = { id: req.user!.id, roles: req.user!.roles };
+  res.json(await acknowledgements.changesSinceAcknowledged(db, viewer, versionScopeOf(req.user?.roles), id, n, req.user?.units ?? 'metric'));
+};

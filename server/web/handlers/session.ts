@@ -21,7 +21,7 @@ export const issueCsrfToken: RouteHandler = (req, res, { csrf }) => {
 };
 
 export const current: RouteHandler = (req, res, { csrf, devOutbox }) => {
-  const body: SessionDto = { user: toDto(req.user!), csrfToken: csrf.issue(req, res), devOutbox };
+  const body: SessionDto = { user: toDto(req.user!), csrfToken: csrf.issue(req, res), devOutbox, signatureNeedsUsername: !actorOf(req).signedFullyInSession };
   res.json(body);
 };
 
@@ -31,7 +31,7 @@ export const signIn: RouteHandler<{ body: typeof signInBody }> = async (req, res
   const user = await authenticateWithPassword(auth, req, res);
   await startSession(req, user);
   // New session id → the old token no longer matches: hand out a fresh one.
-  const answer: SessionDto = { user: toDto(user), csrfToken: csrf.issue(req, res, true), devOutbox };
+  const answer: SessionDto = { user: toDto(user), csrfToken: csrf.issue(req, res, true), devOutbox, signatureNeedsUsername: true };
   res.json(answer);
 };
 
@@ -47,12 +47,12 @@ export const changePassword: RouteHandler<{ body: typeof changePasswordBody }> =
   const user = await changeOwnPassword(db, actorOf(req), req.user!.id, body.currentPassword, body.newPassword);
   // Every other session just ended (epoch bump); this one carries on under a new id.
   await startSession(req, user);
-  const answer: SessionDto = { user: toDto(user), csrfToken: csrf.issue(req, res, true), devOutbox };
+  const answer: SessionDto = { user: toDto(user), csrfToken: csrf.issue(req, res, true), devOutbox, signatureNeedsUsername: true };
   res.json(answer);
 };
 
 export const updatePreferences: RouteHandler<{ body: typeof preferencesBody }> = async (req, res, { db, csrf, devOutbox }, { body }) => {
   const user = await saveUnits(db, actorOf(req), req.user!.id, body.units);
-  const answer: SessionDto = { user: toDto(user), csrfToken: csrf.issue(req, res), devOutbox };
+  const answer: SessionDto = { user: toDto(user), csrfToken: csrf.issue(req, res), devOutbox, signatureNeedsUsername: !actorOf(req).signedFullyInSession };
   res.json(answer);
 };

@@ -3,6 +3,7 @@ import { pipeline } from 'node:stream/promises';
 import type { trailQuery } from '../../../shared/schemas/workflow';
 import { csvFileName, openTrailCsv } from '../../services/trail/csv';
 import { listTrail } from '../../services/trail/query';
+import { listPeople } from '../../services/trail/people';
 import { verifyChain } from '../../services/trail/verify';
 import type { RouteHandler } from '../route-definition';
 
@@ -28,4 +29,8 @@ export const csv: RouteHandler<{ query: typeof trailQuery }> = async (req, res, 
 
 export const verify: RouteHandler = async (_req, res, { db }) => {
   res.json(await verifyChain(db));
+};
+
+export const people: RouteHandler = async (_req, res, { db }) => {
+  res.json({ items: await listPeople(db) });
 };

@@ -5,7 +5,7 @@ import * as comments from '../../services/recipes/review-comments';
 import { listReviewsDue } from '../../services/operator/today';
 import * as workflow from '../../services/recipes/workflow';
 import type { RouteHandler } from '../route-definition';
-import { actorOf } from './request-actor';
+import { actorOf, rememberFullSigning } from './request-actor';
 
 type OnVersion = { params: typeof versionParams };
 
@@ -18,11 +18,15 @@ export const returnToAuthor: RouteHandler<OnVersion & { body: typeof returnBody 
 };
 
 export const approve: RouteHandler<OnVersion & { body: typeof approveBody }> = async (req, res, { db, mail }, { params: { id, n }, body }) => {
-  res.json(await workflow.approveVersion(db, actorOf(req), id, n, body, new Date(), mail));
+  const signed = await workflow.approveVersion(db, actorOf(req), id, n, body, new Date(), mail);
+  rememberFullSigning(req);
+  res.json(signed);
 };
 
 export const withdraw: RouteHandler<OnVersion & { body: typeof withdrawBody }> = async (req, res, { db }, { params: { id, n }, body }) => {
-  res.json(await workflow.withdrawVersion(db, actorOf(req), id, n, body));
+  const signed = await workflow.withdrawVersion(db, actorOf(req), id, n, body);
+  rememberFullSigning(req);
+  res.json(signed);
 };
 
 export const newVersion: RouteHandler<{ params: typeof idParams; body: typeof newVersionBody }> = async (req, res, { db }, { params, body }) => {

@@ -32,9 +32,12 @@ describe('Outbox', () => {
     subject: 'Reset your Kerfbook password',
     kind: 'password-reset',
     sent: '2026-12-01T08:00:05.000Z',
-    attempts: 1,
+    // Sent at the first try: the outbox counts failed tries only.
+    attempts: 0,
     lastError: null,
   };
+  const sentAfterFailures: OutboxEntryDto = { ...reset, id: 9, subject: 'A version waits for your review', attempts: 2 };
+  const waiting: OutboxEntryDto = { ...invitation, id: 8, subject: 'Not tried yet', attempts: 0, lastError: null };
 
   beforeEach(async () => {
     TestBed.configureTestingModule({
@@ -50,10 +53,10 @@ describe('Outbox', () => {
     backend = TestBed.inject(HttpTestingController);
     fixture = TestBed.createComponent(Outbox);
     root = fixture.nativeElement;
-    (await vi.waitFor(() => backend.expectOne({ method: 'GET', url: '/api/dev/outbox' }))).flush({ items: [invitation, reset] });
+    (await vi.waitFor(() => backend.expectOne({ method: 'GET', url: '/api/dev/outbox' }))).flush({ items: [invitation, reset, sentAfterFailures, waiting] });
     await vi.waitFor(async () => {
       await fixture.whenStable();
-      expect(mainRows()).toHaveLength(2);
+      expect(mainRows()).toHaveLength(4);
     });
   });
 
@@ -73,6 +76,12 @@ describe('Outbox', () => {
     expect(second.textContent).toContain('Sent');
     expect(second.textContent).toContain('1 attempt');
     expect(root.querySelector('[data-testid="mail-text"]')).toBeNull();
+  });
+
+  it('counts the successful try of a sent mail: never "0 attempts"', () => {
+    const tries = mainRows().map((row) => row.querySelector('[data-testid="tries"]')?.textContent?.trim());
+    expect(tries).toEqual(['2 attempts', '1 attempt', '3 attempts', 'not tried yet']);
+    expect(root.textContent).not.toContain('0 attempts');
   });
 
   it("opens a mail's text with links to this site only", async () => {

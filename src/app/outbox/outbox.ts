@@ -46,4 +46,14 @@ export class Outbox {
   protected lines(entry: OutboxEntryDto): MailTextPart[][] {
     return mailTextLines(entry.text, this.origin);
   }
+
+  /**
+   * The delivery tries made. The outbox counts failed tries only, so a sent mail had one more:
+   * it never reads "0 attempts".
+   */
+  protected tries(entry: OutboxEntryDto): string {
+    const n = entry.attempts + (entry.sent ? 1 : 0);
+    if (n === 0) return 'not tried yet';
+    return `${n} ${n === 1 ? 'attempt' : 'attempts'}`;
+  }
 }

@@ -92,6 +92,14 @@ describe('SignIn', () => {
     await vi.waitFor(() => expect(navigate).toHaveBeenCalledWith('/today'));
   });
 
+  it('sends an operator to the Finder when no page was asked for', async () => {
+    const navigate = vi.spyOn(router, 'navigateByUrl').mockResolvedValue(true);
+    type('username', 'kmensah');
+    type('password', 'pw');
+    (await submitAndCatchPost()).flush({ user: aUser({ roles: ['operator'] }), csrfToken: 'fresh' });
+    await vi.waitFor(() => expect(navigate).toHaveBeenCalledWith('/finder'));
+  });
+
   it('sends a user with a temporary password to the account page', async () => {
     const navigate = vi.spyOn(router, 'navigate').mockResolvedValue(true);
     type('username', 'rlindqvist');

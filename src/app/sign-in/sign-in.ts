@@ -11,6 +11,7 @@ import { controlMessage } from '../core/forms/control-message';
 import { applyServerErrors } from '../core/forms/server-errors';
 import { zodValidator } from '../core/forms/zod-validator';
 import { isApiError } from '../core/http/api-error';
+import { homePage } from '../core/session/home-page';
 import { safeReturnUrl } from '../core/session/return-url';
 import { Session } from '../core/session/session';
 
@@ -50,7 +51,7 @@ export class SignIn implements OnInit {
   ngOnInit(): void {
     // Someone already signed in has nothing to do here (inputs are bound by now).
     if (this.session.isSignedIn()) {
-      void this.router.navigateByUrl(safeReturnUrl(this.returnUrl()));
+      void this.router.navigateByUrl(safeReturnUrl(this.returnUrl(), homePage(this.session.roles())));
       return;
     }
     const username = this.username()?.trim();
@@ -71,10 +72,12 @@ export class SignIn implements OnInit {
     try {
       const { username, password } = this.form.getRawValue();
       const user = await this.session.signIn(username, password);
+      // Operators start at the Finder, everyone else at Today, unless a page was asked for.
+      const home = homePage(user.roles);
       if (user.mustChangePassword) {
-        await this.router.navigate(['/account'], { queryParams: { returnUrl: safeReturnUrl(this.returnUrl()) } });
+        await this.router.navigate(['/account'], { queryParams: { returnUrl: safeReturnUrl(this.returnUrl(), home) } });
       } else {
-        await this.router.navigateByUrl(safeReturnUrl(this.returnUrl()));
+        await this.router.navigateByUrl(safeReturnUrl(this.returnUrl(), home));
       }
     } catch (e) {
       this.showFailure(e);

@@ -24,6 +24,7 @@ import {
 import { zodValidator } from '../core/forms/zod-validator';
 import { StockFormDialog } from './stock-form-dialog';
 import { StockFormFrame } from './stock-form-frame';
+import { DecimalInput } from '../ui/decimal-input';
 
 export interface MachineFormDialogData {
   /** The machine to edit; absent to add one. */
@@ -35,7 +36,7 @@ const fields = machineBody.shape;
 /** Add or edit a cut-off machine. Closes with the saved MachineRecord. */
 @Component({
   selector: 'kb-machine-form-dialog',
-  imports: [MatFormFieldModule, MatInputModule, MatRadioModule, MatSelectModule, ReactiveFormsModule, StockFormFrame],
+  imports: [DecimalInput, MatFormFieldModule, MatInputModule, MatRadioModule, MatSelectModule, ReactiveFormsModule, StockFormFrame],
   templateUrl: './machine-form-dialog.html',
   styleUrl: './stock-form.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,

@@ -12,6 +12,7 @@ import { HARDNESS_SCALES, type HardnessScale, MATERIAL_GROUPS, MATERIAL_GROUP_LA
 import { zodValidator } from '../core/forms/zod-validator';
 import { StockFormDialog } from './stock-form-dialog';
 import { StockFormFrame } from './stock-form-frame';
+import { DecimalInput } from '../ui/decimal-input';
 
 export interface MaterialFormDialogData {
   /** The material to edit; absent to add one. */
@@ -23,7 +24,7 @@ const fields = materialBody.shape;
 /** Add or edit a material. Closes with the saved MaterialRecord. */
 @Component({
   selector: 'kb-material-form-dialog',
-  imports: [MatCheckboxModule, MatFormFieldModule, MatInputModule, MatSelectModule, ReactiveFormsModule, StockFormFrame],
+  imports: [DecimalInput, MatCheckboxModule, MatFormFieldModule, MatInputModule, MatSelectModule, ReactiveFormsModule, StockFormFrame],
   templateUrl: './material-form-dialog.html',
   styleUrl: './stock-form.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,

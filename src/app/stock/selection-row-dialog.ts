@@ -18,6 +18,7 @@ import { isApiError } from '../core/http/api-error';
 import { callerHandles } from '../core/http/caller-handles';
 import { StockApi } from '../core/api/stock-api';
 import { checkWholeBody } from '../core/forms/whole-body-check';
+import { DecimalInput } from '../ui/decimal-input';
 
 export interface SelectionRowDialogData {
   /** The row to edit; absent to add one. */
@@ -29,7 +30,7 @@ export interface SelectionRowDialogData {
 /** Add or edit one row of the wheel-selection table. Closes with the saved row. */
 @Component({
   selector: 'kb-selection-row-dialog',
-  imports: [MatButtonModule, MatCheckboxModule, MatDialogModule, MatFormFieldModule, MatInputModule, MatSelectModule, ReactiveFormsModule],
+  imports: [DecimalInput, MatButtonModule, MatCheckboxModule, MatDialogModule, MatFormFieldModule, MatInputModule, MatSelectModule, ReactiveFormsModule],
   templateUrl: './selection-row-dialog.html',
   styleUrl: './stock-form.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,

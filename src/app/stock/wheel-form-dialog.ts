@@ -22,6 +22,7 @@ import {
 import { zodValidator } from '../core/forms/zod-validator';
 import { StockFormDialog } from './stock-form-dialog';
 import { StockFormFrame } from './stock-form-frame';
+import { DecimalInput } from '../ui/decimal-input';
 
 export interface WheelFormDialogData {
   /** The wheel to edit; absent to add one. */
@@ -33,7 +34,7 @@ const fields = wheelBody.shape;
 /** Add or edit a wheel of the lab's stock. Closes with the saved WheelRecord. */
 @Component({
   selector: 'kb-wheel-form-dialog',
-  imports: [MatCheckboxModule, MatFormFieldModule, MatInputModule, MatSelectModule, ReactiveFormsModule, StockFormFrame],
+  imports: [DecimalInput, MatCheckboxModule, MatFormFieldModule, MatInputModule, MatSelectModule, ReactiveFormsModule, StockFormFrame],
   templateUrl: './wheel-form-dialog.html',
   styleUrl: './stock-form.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,

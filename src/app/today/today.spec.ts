@@ -20,9 +20,13 @@ describe('Today', () => {
   const lists: TodayDto = {
     myDrafts: [aRecipeSummary({ id: 4, number: 'KB-0004', title: 'Brass fittings, longitudinal', version: 1, status: 'draft' })],
     waitingForMyReview: [aRecipeSummary({ id: 5, number: 'KB-0005', title: 'Cast iron brake discs', version: 3, status: 'in-review' })],
-    reviewsDue: [{ ...aRecipeSummary({ id: 3, version: 2, status: 'approved' }), reviewDueOn: '2027-01-20' }],
+    reviewsDue: [
+      { ...aRecipeSummary({ id: 3, version: 2, status: 'approved' }), reviewDueOn: '2027-01-20' },
+      { ...aRecipeSummary({ id: 5, number: 'KB-0005', version: 1, status: 'approved' }), reviewDueOn: '2026-10-01', reviewOverdue: true },
+    ],
     flaggedCuts: [],
     toAcknowledge: [],
+    notices: [],
   };
 
   async function open(roles: Role[], answer: TodayDto = lists): Promise<void> {
@@ -53,6 +57,19 @@ describe('Today', () => {
     return root.querySelector<HTMLElement>(`[data-list="${id}"]`)!;
   }
 
+  it('shows an admin the start-up warnings, as an alert above the lists', async () => {
+    const warning = 'APP_BASE_URL is not set, but Kerfbook listens on 0.0.0.0:4300, beyond this computer.';
+    await open(['admin'], { ...lists, notices: [warning] });
+    const notice = root.querySelector<HTMLElement>('[data-testid="admin-notice"]')!;
+    expect(notice.getAttribute('role')).toBe('alert');
+    expect(notice.textContent).toContain(warning);
+  });
+
+  it('shows no notice block when there is nothing to warn about', async () => {
+    await open(['admin']);
+    expect(root.querySelector('[data-testid="admin-notice"]')).toBeNull();
+  });
+
   it('keeps the greeting and the roles', async () => {
     await open(['author']);
     expect(root.querySelector('h1')!.textContent).toBe('Hello, Ragna Lindqvist');
@@ -67,6 +84,10 @@ describe('Today', () => {
     expect(draft.textContent).toContain('Brass fittings, longitudinal');
     expect(draft.getAttribute('href')).toBe('/recipes/4?v=1');
     expect(list('reviewsDue').textContent).toContain('review due 2027-01-20');
+    // Past its date: marked, once, on that recipe only.
+    const [due, overdue] = Array.from(list('reviewsDue').querySelectorAll('li'));
+    expect(due!.querySelector('kb-review-overdue-chip')).toBeNull();
+    expect(overdue!.querySelector('kb-review-overdue-chip')?.textContent).toContain('Review overdue');
   });
 
   it('shows an approver what waits for their review, linking to the review screen', async () => {
@@ -83,7 +104,7 @@ describe('Today', () => {
     expect(list('waitingForMyReview').textContent).toContain('Nothing is waiting for your review.');
   });
 
-  it('gives an operator the flagged cuts and the versions to acknowledge, each linking to the acknowledge page', async () => {
+  it('gives an operator the versions to acknowledge, each linking to the acknowledge page, and not the authors’ flagged cuts', async () => {
     await open(['operator'], {
       ...lists,
       toAcknowledge: [
@@ -91,8 +112,8 @@ describe('Today', () => {
         aRecipeSummary({ id: 9, number: 'KB-0009', version: 2, machineName: 'Floor saw F1' }),
       ],
     });
-    expect(shownLists()).toEqual(['flaggedCuts', 'toAcknowledge']);
-    expect(list('flaggedCuts').textContent).toContain('No cut has been flagged.');
+    // Flagged cuts are for the recipe's authors to look at; the server sends an operator none.
+    expect(shownLists()).toEqual(['toAcknowledge']);
     const links = Array.from(list('toAcknowledge').querySelectorAll('a'));
     expect(links.map((a) => a.getAttribute('href'))).toEqual(['/recipes/6/acknowledge?v=4', '/recipes/9/acknowledge?v=2']);
     expect(links[0].textContent).toContain('KB-0006');

@@ -8,6 +8,7 @@ import type { RecipeSummary, TodayDto } from '@shared/recipe-types';
 import { ROLE_INFO, type Role, hasAccess } from '@shared/roles';
 import { shortDate } from '../core/dates/calendar';
 import { Session } from '../core/session/session';
+import { ReviewOverdueChip } from '../ui/review-overdue-chip';
 import { RecipeStatusChip } from '../ui/recipe-status-chip';
 import { WorkflowApi } from '../core/api/workflow-api';
 
@@ -22,6 +23,8 @@ interface TodayItem {
   status: RecipeSummary['status'] | null;
   /** A short fact beside the title (due date, count of flagged cuts, machine). */
   detail: string;
+  /** The periodic review date has passed: marked "Review overdue". */
+  overdue?: boolean;
 }
 
 interface TodayList {
@@ -48,7 +51,7 @@ const recipeItem = (r: RecipeSummary, detail: string): TodayItem => ({
 /** Home page: who you are here, and the work waiting for each of your roles. */
 @Component({
   selector: 'kb-today',
-  imports: [MatButtonModule, MatIconModule, MatProgressBarModule, RecipeStatusChip, RouterLink],
+  imports: [MatButtonModule, MatIconModule, MatProgressBarModule, RecipeStatusChip, ReviewOverdueChip, RouterLink],
   templateUrl: './today.html',
   styleUrl: './today.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -67,6 +70,12 @@ export class Today {
     // The error interceptor has said why; the page keeps the greeting and roles.
     if (this.today.error()) return { state: 'failed' };
     return this.today.hasValue() ? { state: 'ready', today: this.today.value() } : { state: 'loading' };
+  });
+
+  /** Start-up warnings the server has for admins (e.g. APP_BASE_URL unset). */
+  protected readonly notices = computed(() => {
+    const load = this.load();
+    return load.state === 'ready' ? (load.today.notices ?? []) : [];
   });
 
   protected readonly lists = computed<TodayList[]>(() => {
@@ -99,11 +108,12 @@ export class Today {
         title: 'Reviews due',
         icon: 'event_repeat',
         empty: 'No periodic review falls due in the next 60 days.',
-        items: t.reviewsDue.map((r) => recipeItem(r, `review due ${r.reviewDueOn}`)),
+        items: t.reviewsDue.map((r) => ({ ...recipeItem(r, `review due ${r.reviewDueOn}`), overdue: r.reviewOverdue })),
       });
     }
     const operator = has('operator');
-    if (t.flaggedCuts.length || operator) {
+    // For the authors who look at them (the server sends them no one else): an operator who is not an author never gets an always-empty panel.
+    if (t.flaggedCuts.length) {
       lists.push({
         id: 'flaggedCuts',
         title: 'Cuts flagged by operators',

@@ -1,7 +1,7 @@
 import { HttpClient, HttpParams } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
-import type { Observable } from 'rxjs';
-import type { TrailPage, ChainVerification } from '@shared/recipe-types';
+import { type Observable, map } from 'rxjs';
+import type { PersonNameDto, TrailPage, ChainVerification } from '@shared/recipe-types';
 import type { TrailQuery } from '@shared/schemas/workflow';
 
 function toParams(query: Partial<TrailQuery>): HttpParams {
@@ -20,6 +20,11 @@ export class TrailApi {
   /** One page, newest first; empty filters are left out of the query string. */
   list(query: Partial<TrailQuery>): Observable<TrailPage> {
     return this.http.get<TrailPage>('/api/trail', { params: toParams(query) });
+  }
+
+  /** Everyone the trail can name, for the person filter. */
+  people(): Observable<PersonNameDto[]> {
+    return this.http.get<{ items: PersonNameDto[] }>('/api/trail/people').pipe(map((answer) => answer.items));
   }
 
   /** Recomputes the whole hash chain on the server. */

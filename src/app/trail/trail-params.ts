@@ -1,5 +1,6 @@
 import type { ParamMap, Params } from '@angular/router';
 import type { TrailQuery } from '@shared/schemas/workflow';
+import { TRAIL_FAMILIES, type TrailFamily } from '@shared/vocabulary';
 
 /** Events per page; the server's default, sent explicitly so a page is the same size everywhere. */
 export const TRAIL_PAGE_SIZE = 50;
@@ -13,6 +14,10 @@ export interface TrailParams {
   recipe: string;
   userId: number | null;
   type: string;
+  /** A family of events ("signatures"), or '' for every family. */
+  family: TrailFamily | '';
+  /** Sign-ins, sign-outs and refused sign-ins left out. */
+  hideSignIns: boolean;
   /** Inclusive UTC dates, YYYY-MM-DD. */
   from: string;
   to: string;
@@ -20,13 +25,17 @@ export interface TrailParams {
   before: number | null;
 }
 
-export const TRAIL_DEFAULTS: TrailParams = { recipe: '', userId: null, type: '', from: '', to: '', before: null };
+export const TRAIL_DEFAULTS: TrailParams = { recipe: '', userId: null, type: '', family: '', hideSignIns: false, from: '', to: '', before: null };
 
 const ISO_DATE = /^\d{4}-\d{2}-\d{2}$/;
 
 function positiveInteger(value: string | null): number | null {
   if (value === null || !/^[1-9]\d*$/.test(value.trim())) return null;
   return Number(value);
+}
+
+function familyOf(value: string | null): TrailFamily | '' {
+  return (TRAIL_FAMILIES as readonly string[]).includes(value ?? '') ? (value as TrailFamily) : '';
 }
 
 /** Reads the URL's query parameters; anything malformed is dropped rather than sent to the server. */
@@ -39,6 +48,8 @@ export function readTrailParams(map: ParamMap): TrailParams {
     recipe: (map.get('recipe') ?? '').trim().slice(0, 100),
     userId: positiveInteger(map.get('user')),
     type: (map.get('type') ?? '').trim().slice(0, 60),
+    family: familyOf(map.get('family')),
+    hideSignIns: map.get('signIns') === 'hidden',
     from: date('from'),
     to: date('to'),
     before: positiveInteger(map.get('before')),
@@ -51,6 +62,8 @@ export function toTrailQueryParams(p: TrailParams): Params {
     recipe: p.recipe || null,
     user: p.userId ?? null,
     type: p.type || null,
+    family: p.family || null,
+    signIns: p.hideSignIns ? 'hidden' : null,
     from: p.from || null,
     to: p.to || null,
     before: p.before ?? null,
@@ -68,6 +81,8 @@ export function toTrailFilters(p: TrailParams, recipeId: number | null): Partial
     recipeId: recipeId ?? undefined,
     userId: p.userId ?? undefined,
     type: p.type || undefined,
+    family: p.family || undefined,
+    hideSignIns: p.hideSignIns ? 'true' : undefined,
     from: p.from || undefined,
     to: p.to || undefined,
   };

@@ -4,10 +4,12 @@ import { HttpTestingController, type TestRequest, provideHttpClientTesting } fro
 import { signal } from '@angular/core';
 import { TestBed } from '@angular/core/testing';
 import { MatSelectHarness } from '@angular/material/select/testing';
+import { MatSlideToggleHarness } from '@angular/material/slide-toggle/testing';
+import { MatTooltipHarness } from '@angular/material/tooltip/testing';
 import { Router, provideRouter } from '@angular/router';
 import { RouterTestingHarness } from '@angular/router/testing';
 import type { Page } from '@shared/api-types';
-import type { TrailEventDto, TrailPage, RecipeSummary } from '@shared/recipe-types';
+import type { PersonNameDto, TrailEventDto, TrailPage, RecipeSummary } from '@shared/recipe-types';
 import type { Role } from '@shared/roles';
 import { aRecipeSummary } from '../../testing/stock-and-recipe-fixtures';
 import { aUser } from '../../testing/user-fixture';
@@ -33,6 +35,7 @@ describe('Trail', () => {
       before: { revision: 3, status: 'returned' },
       after: { revision: 4, status: 'draft', changed: ['cutting'] },
       clientAddress: '10.0.0.8',
+      what: 'KB-0017 v2',
       prevHash: 'a'.repeat(64),
       hash: 'b'.repeat(64),
       ...overrides,
@@ -48,6 +51,7 @@ describe('Trail', () => {
       entityId: '12',
       before: null,
       after: { number: 'KB-0012', title: 'Thin-wall tube', version: 1, status: 'draft' },
+      what: 'KB-0012 · Thin-wall tube',
     }),
   ];
 
@@ -69,7 +73,14 @@ describe('Trail', () => {
     router = TestBed.inject(Router);
     harness = await RouterTestingHarness.create();
     await harness.navigateByUrl(url, Trail);
+    // Auditors and admins alike pick a person by name from the trail's own list.
+    (await vi.waitFor(() => backend.expectOne('/api/trail/people'))).flush({ items: PEOPLE });
   }
+
+  const PEOPLE: PersonNameDto[] = [
+    { id: 4, displayName: 'Ines Author', active: true },
+    { id: 9, displayName: 'Ruth Auditor', active: false },
+  ];
 
   function paramsOf(req: TestRequest): Record<string, string> {
     const params: Record<string, string> = {};
@@ -112,12 +123,17 @@ describe('Trail', () => {
     const rows = Array.from(root().querySelectorAll('tr.kb-event-row'));
     expect(rows).toHaveLength(2);
     const cells = Array.from(rows[0].querySelectorAll('td'));
-    expect(cells[0].querySelector('time')?.textContent).toBe('2026-11-30 07:15:04');
+    expect(cells[0].querySelector('time')?.textContent).toBe('2026-11-30 07:15 UTC');
     expect(cells[0].querySelector('time')?.getAttribute('datetime')).toBe('2026-11-30T07:15:04.000Z');
     expect(cells[0].querySelector('.kb-sub')?.textContent).toBe('#900');
     expect(cells[1].textContent?.trim()).toMatch(/^Ines Author\s+user 4$/);
-    expect(cells[2].textContent?.trim()).toBe('recipe.draft_saved');
-    expect(cells[3].textContent?.trim()).toBe('Recipe version · id 17');
+    // The event in words, its stored code at hand in a tooltip; the record by the name people know.
+    expect(cells[2].textContent?.trim()).toBe('Draft saved');
+    const tooltip = await TestbedHarnessEnvironment.loader(harness.fixture).getHarness(MatTooltipHarness.with({ selector: '.kb-event-900' }));
+    await tooltip.show();
+    expect(await tooltip.getTooltipText()).toBe('recipe.draft_saved');
+    await tooltip.hide();
+    expect(cells[3].textContent?.trim()).toBe('KB-0017 v2');
     expect(Array.from(cells[4].querySelectorAll('.kb-change-line')).map((line) => line.textContent)).toEqual([
       'revision: 3 → 4',
       'status: returned → draft',
@@ -127,8 +143,8 @@ describe('Trail', () => {
     expect(rows[1].textContent).toContain('number: KB-0012');
     expect(rows[1].textContent).toContain('and 1 more');
 
-    // An auditor may not list people: a plain id field instead, and no request for users.
-    expect(root().textContent).toContain('User id');
+    // An auditor picks a person by name too, without the admin's list of accounts.
+    expect(root().textContent).not.toContain('User id');
     backend.expectNone('/api/users');
 
     const toggle = root().querySelector<HTMLButtonElement>('button[aria-label="Details of event 900"]')!;
@@ -219,26 +235,61 @@ describe('Trail', () => {
     expect(root().textContent).toContain('No events match these filters.');
   });
 
-  it('lets an admin pick the user from the list of people', async () => {
-    await open('/trail', ['admin']);
-    const users = await vi.waitFor(() => backend.expectOne((r) => r.url === '/api/users'));
-    expect(paramsOf(users)).toMatchObject({ pageSize: '100', status: 'all' });
-    users.flush({
-      items: [aUser({ id: 4, displayName: 'Ines Author', username: 'ines.author' }), aUser({ id: 9, displayName: 'Ruth Auditor', username: 'ruth.auditor' })],
-      total: 2,
-      page: 0,
-      pageSize: 100,
-    });
-    (await nextEvents()).req.flush(aPage(events, null));
+  for (const role of ['auditor', 'admin'] as const) {
+    it(`lets an ${role} pick the person by name from the list of people`, async () => {
+      await open('/trail', [role]);
+      (await nextEvents()).req.flush(aPage(events, null));
 
-    const select = await TestbedHarnessEnvironment.loader(harness.fixture).getHarness(MatSelectHarness);
-    // The harness waits for the page to settle, which it does once the new page of events is answered.
-    const choosing = select.clickOptions({ text: 'Ruth Auditor (ruth.auditor)' });
-    const { req, params } = await nextEvents();
-    expect(params).toEqual({ userId: '9', limit: '50' });
-    expect(queryParams()).toEqual({ user: '9' });
-    req.flush(aPage([], null));
+      const select = await TestbedHarnessEnvironment.loader(harness.fixture).getHarness(MatSelectHarness.with({ selector: '.kb-person' }));
+      await select.open();
+      expect((await select.getOptions()).length).toBe(3);
+      // The harness waits for the page to settle, which it does once the new page of events is answered.
+      const choosing = select.clickOptions({ text: 'Ruth Auditor · inactive' });
+      const { req, params } = await nextEvents();
+      expect(params).toEqual({ userId: '9', limit: '50' });
+      expect(queryParams()).toEqual({ user: '9' });
+      req.flush(aPage([], null));
+      await choosing;
+    });
+  }
+
+  it('filters by family of events and can hide sign-ins, in the URL, the list and the CSV link', async () => {
+    await open('/trail');
+    (await nextEvents()).req.flush(aPage(events, null));
+    const loader = TestbedHarnessEnvironment.loader(harness.fixture);
+
+    const family = await loader.getHarness(MatSelectHarness.with({ selector: '.kb-family' }));
+    const choosing = family.clickOptions({ text: 'Signatures' });
+    const picked = await nextEvents();
+    expect(picked.params).toEqual({ family: 'signatures', limit: '50' });
+    expect(queryParams()).toEqual({ family: 'signatures' });
+    picked.req.flush(aPage([], null));
     await choosing;
+
+    const hide = await loader.getHarness(MatSlideToggleHarness.with({ label: 'Hide sign-ins' }));
+    const toggling = hide.toggle();
+    const hidden = await nextEvents();
+    expect(hidden.params).toEqual({ family: 'signatures', hideSignIns: 'true', limit: '50' });
+    expect(queryParams()).toEqual({ family: 'signatures', signIns: 'hidden' });
+    hidden.req.flush(aPage([], null));
+    await toggling;
+    await settle();
+    const csv = Array.from(root().querySelectorAll('a')).find((a) => a.textContent?.includes('Export CSV'))!;
+    expect(csv.getAttribute('href')).toBe('/api/trail.csv?family=signatures&hideSignIns=true');
+  });
+
+  it('opens a link with a family and hidden sign-ins as it was sent', async () => {
+    await open('/trail?family=stock&signIns=hidden');
+    const { req, params } = await nextEvents();
+    expect(params).toEqual({ family: 'stock', hideSignIns: 'true', limit: '50' });
+    req.flush(aPage([], null));
+  });
+
+  it('ignores an unknown family in the URL rather than sending it', async () => {
+    await open('/trail?family=everything');
+    const { req, params } = await nextEvents();
+    expect(params).toEqual({ limit: '50' });
+    req.flush(aPage([], null));
   });
 
   it('reports an intact chain with the number of events checked', async () => {

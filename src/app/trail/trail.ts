@@ -1,4 +1,3 @@
-import { DatePipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, type ElementRef, computed, effect, inject, linkedSignal, signal, untracked, viewChild } from '@angular/core';
 import { rxResource, takeUntilDestroyed, toSignal } from '@angular/core/rxjs-interop';
 import { NonNullableFormBuilder, ReactiveFormsModule } from '@angular/forms';
@@ -9,71 +8,32 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSelectModule } from '@angular/material/select';
+import { MatSlideToggleModule } from '@angular/material/slide-toggle';
 import { MatTableModule } from '@angular/material/table';
+import { MatTooltipModule } from '@angular/material/tooltip';
 import { ActivatedRoute, Router } from '@angular/router';
 import { type Observable, catchError, debounceTime, map, merge, of, switchMap } from 'rxjs';
-import type { UserDto } from '@shared/api-types';
-import type { TrailEventDto, TrailPage, ChainVerification } from '@shared/recipe-types';
-import { hasAccess } from '@shared/roles';
-import { Session } from '../core/session/session';
+import type { PersonNameDto, TrailPage, ChainVerification } from '@shared/recipe-types';
+import { TRAIL_EVENT_LABELS, TRAIL_FAMILIES, TRAIL_FAMILY_LABELS, type TrailFamily, trailEventLabel } from '@shared/vocabulary';
 import { latestValue } from '../core/api/latest-value';
-import { PeopleApi } from '../core/api/people-api';
 import { RecipeApi } from '../core/api/recipe-api';
 import { type ChangeSummary, fullJson, summariseChange } from './event-change';
 import { TrailApi } from './trail-api';
-import { TRAIL_PAGE_SIZE, type TrailParams, readTrailParams, recipeIdOf, toTrailFilters, toTrailQueryParams } from './trail-params';
+import { TRAIL_DEFAULTS, TRAIL_PAGE_SIZE, type TrailParams, readTrailParams, recipeIdOf, toTrailFilters, toTrailQueryParams } from './trail-params';
+import { trailTime } from './trail-time';
 
 /** How long the typed filters wait for a pause before the list changes. */
 export const TRAIL_TYPING_DEBOUNCE_MS = 400;
 
-/** Event types offered while typing; any other type can still be typed in full. */
-const SUGGESTED_TYPES = [
-  'recipe.created',
-  'recipe.draft_saved',
-  'recipe.version_submitted',
-  'recipe.version_returned',
-  'recipe.version_approved',
-  'recipe.version_effective',
-  'recipe.version_superseded',
-  'recipe.version_withdrawn',
-  'recipe.version_created',
-  'recipe.review_comment_added',
-  'recipe.version_acknowledged',
-  'attachment.added',
-  'attachment.deleted',
-  'material.created',
-  'material.updated',
-  'wheel.created',
-  'wheel.updated',
-  'machine.created',
-  'machine.updated',
-  'selection_row.updated',
-  'user.created',
-  'user.roles_changed',
-  'user.deactivated',
-  'user.invited',
-  'user.machines_changed',
-  'user.password_set_by_link',
-  'user.password_reset_requested',
-  'session.signed_in',
-  'session.sign_in_failed',
-];
-
-const ENTITY_LABELS: Record<string, string> = {
-  recipe: 'Recipe',
-  recipe_version: 'Recipe version',
-  attachment: 'Photo',
-  material: 'Material',
-  wheel: 'Wheel',
-  machine: 'Machine',
-  selection_row: 'Selection row',
-  user: 'User',
-};
+/** Event types offered while typing (by code or by words); any other type can still be typed in full. */
+const SUGGESTED_TYPES = Object.keys(TRAIL_EVENT_LABELS);
 
 /** A trail row with what the table shows already worked out. */
 interface EventRow {
-  event: TrailEventDto;
-  what: string;
+  event: TrailPage['items'][number];
+  /** The event type in words; the stored code goes in a tooltip. */
+  label: string;
+  time: string;
   change: ChangeSummary;
 }
 
@@ -96,7 +56,6 @@ interface TrailLoad {
 @Component({
   selector: 'kb-trail',
   imports: [
-    DatePipe,
     MatAutocompleteModule,
     MatButtonModule,
     MatFormFieldModule,
@@ -104,7 +63,9 @@ interface TrailLoad {
     MatInputModule,
     MatProgressBarModule,
     MatSelectModule,
+    MatSlideToggleModule,
     MatTableModule,
+    MatTooltipModule,
     ReactiveFormsModule,
   ],
   templateUrl: './trail.html',
@@ -114,8 +75,6 @@ interface TrailLoad {
 export class Trail {
   private readonly api = inject(TrailApi);
   private readonly recipes = inject(RecipeApi);
-  private readonly people = inject(PeopleApi);
-  private readonly session = inject(Session);
   private readonly route = inject(ActivatedRoute);
   private readonly router = inject(Router);
   private readonly fb = inject(NonNullableFormBuilder);
@@ -128,23 +87,22 @@ export class Trail {
   private readonly tableTop = viewChild<ElementRef<HTMLElement>>('tableTop');
 
   protected readonly columns = ['occurredAt', 'actor', 'type', 'what', 'change', 'detail'];
-  /** Admins may list people; an auditor types a user id instead. */
-  protected readonly canListUsers = computed(() => hasAccess(this.session.roles(), ['admin']));
+  protected readonly families = TRAIL_FAMILIES.map((id) => ({ id, label: TRAIL_FAMILY_LABELS[id] }));
+  protected readonly eventLabel = trailEventLabel;
 
   protected readonly filters = this.fb.group({
     recipe: [this.params().recipe],
     userId: this.fb.control<number | null>(this.params().userId),
     type: [this.params().type],
+    family: this.fb.control<TrailFamily | ''>(this.params().family),
+    hideSignIns: [this.params().hideSignIns],
     from: [this.params().from],
     to: [this.params().to],
   });
 
-  /** Admins may pick a person from the list; fetched only for them. */
-  private readonly userList = rxResource({
-    params: () => this.canListUsers() || undefined,
-    stream: () => this.people.list({ pageSize: 100, status: 'all', sort: 'displayName', dir: 'asc' }).pipe(catchError(() => of(null))),
-  });
-  protected readonly users = computed<UserDto[]>(() => (this.userList.hasValue() ? (this.userList.value()?.items ?? []) : []));
+  /** Everyone the trail can name, by name (auditors and admins alike). */
+  private readonly peopleList = rxResource({ stream: () => this.api.people().pipe(catchError(() => of<PersonNameDto[]>([]))) });
+  protected readonly people = computed<PersonNameDto[]>(() => (this.peopleList.hasValue() ? this.peopleList.value() : []));
 
   /** The page the URL asks for, with the recipe filter it was read with. */
   private readonly events = rxResource({ params: () => this.params(), stream: ({ params }) => this.loadEvents(params) });
@@ -160,11 +118,16 @@ export class Trail {
   protected readonly verifyFailed = signal(false);
 
   protected readonly rows = computed<EventRow[]>(() =>
-    this.page().items.map((event) => ({ event, what: this.describeEntity(event), change: summariseChange(event.before, event.after) })),
+    this.page().items.map((event) => ({
+      event,
+      label: trailEventLabel(event.type),
+      time: trailTime(event.occurredAt),
+      change: summariseChange(event.before, event.after),
+    })),
   );
   protected readonly hasFilters = computed(() => {
     const p = this.params();
-    return !!(p.recipe || p.userId || p.type || p.from || p.to);
+    return !!(p.recipe || p.userId || p.type || p.family || p.hideSignIns || p.from || p.to);
   });
   /** The same filters as a CSV download (every matching row, so no keyset position). */
   protected readonly csvUrl = computed(() => {
@@ -179,7 +142,7 @@ export class Trail {
   private readonly typedType = toSignal(this.filters.controls.type.valueChanges, { initialValue: this.filters.controls.type.value });
   protected readonly typeOptions = computed(() => {
     const typed = this.typedType().trim().toLowerCase();
-    return [...this.seenTypes()].filter((type) => type.includes(typed)).sort();
+    return [...this.seenTypes()].filter((type) => type.includes(typed) || trailEventLabel(type).toLowerCase().includes(typed)).sort();
   });
 
   protected readonly json = fullJson;
@@ -189,7 +152,7 @@ export class Trail {
     const c = this.filters.controls;
     merge(
       merge(c.recipe.valueChanges, c.type.valueChanges, c.userId.valueChanges).pipe(debounceTime(TRAIL_TYPING_DEBOUNCE_MS)),
-      merge(c.from.valueChanges, c.to.valueChanges),
+      merge(c.from.valueChanges, c.to.valueChanges, c.family.valueChanges, c.hideSignIns.valueChanges),
     )
       .pipe(takeUntilDestroyed())
       .subscribe(() => this.applyFilters());
@@ -201,7 +164,7 @@ export class Trail {
     });
   }
 
-  /** The user select applies at once; the typed id waits for a pause like the other text fields. */
+  /** The person select applies at once. */
   protected pickUser(): void {
     this.applyFilters();
   }
@@ -227,12 +190,12 @@ export class Trail {
   }
 
   protected clearFilters(): void {
-    this.navigate({ recipe: '', userId: null, type: '', from: '', to: '', before: null });
+    this.navigate(TRAIL_DEFAULTS);
   }
 
   /** Opens the trail at one event, without filters, so its neighbours show around it. */
   protected showEvent(id: number): void {
-    this.navigate({ recipe: '', userId: null, type: '', from: '', to: '', before: id + 1 });
+    this.navigate({ ...TRAIL_DEFAULTS, before: id + 1 });
   }
 
   protected toggle(id: number): void {
@@ -260,8 +223,8 @@ export class Trail {
     });
   }
 
-  protected userLabel(user: UserDto): string {
-    return `${user.displayName} (${user.username})${user.active ? '' : ' · inactive'}`;
+  protected personLabel(person: PersonNameDto): string {
+    return `${person.displayName}${person.active ? '' : ' · inactive'}`;
   }
 
   /** One page of events for the URL's filters; a recipe number is looked up first. Never fails: a failure is part of the answer. */
@@ -292,17 +255,21 @@ export class Trail {
     );
   }
 
-  private describeEntity(event: TrailEventDto): string {
-    const label = ENTITY_LABELS[event.entityType] ?? event.entityType;
-    return event.entityId ? `${label} · id ${event.entityId}` : label;
-  }
-
   private applyFilters(): void {
     const f = this.filters.getRawValue();
     const userId = f.userId !== null && Number.isInteger(Number(f.userId)) && Number(f.userId) > 0 ? Number(f.userId) : null;
-    const next: TrailParams = { recipe: f.recipe.trim(), userId, type: f.type.trim(), from: f.from, to: f.to, before: null };
+    const next: TrailParams = {
+      recipe: f.recipe.trim(),
+      userId,
+      type: f.type.trim(),
+      family: f.family,
+      hideSignIns: f.hideSignIns,
+      from: f.from,
+      to: f.to,
+      before: null,
+    };
     const p = this.params();
-    const same = next.recipe === p.recipe && next.userId === p.userId && next.type === p.type && next.from === p.from && next.to === p.to;
+    const same = (Object.keys(next) as (keyof TrailParams)[]).every((key) => key === 'before' || next[key] === p[key]);
     if (!same) this.navigate(next, true);
   }
 
@@ -316,6 +283,8 @@ export class Trail {
     if (c.recipe.value.trim() !== p.recipe) c.recipe.setValue(p.recipe, quiet);
     if ((c.userId.value || null) !== p.userId) c.userId.setValue(p.userId, quiet);
     if (c.type.value.trim() !== p.type) c.type.setValue(p.type, quiet);
+    if (c.family.value !== p.family) c.family.setValue(p.family, quiet);
+    if (c.hideSignIns.value !== p.hideSignIns) c.hideSignIns.setValue(p.hideSignIns, quiet);
     if (c.from.value !== p.from) c.from.setValue(p.from, quiet);
     if (c.to.value !== p.to) c.to.setValue(p.to, quiet);
   }

@@ -1,16 +1,12 @@
 import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
 import { MatIconModule } from '@angular/material/icon';
 import type { CheckSeverity } from '@shared/recipe-checks';
+import { CHECK_SEVERITY_MARKS, NO_FINDINGS_MARK, type StatusMark } from '@shared/status-colours';
 
-/** Icon and word for each check severity (blocker, warning, note), so the severity never depends on colour alone. */
-export const SEVERITY_INFO: Record<CheckSeverity | 'none', { label: string; icon: string }> = {
-  blocker: { label: 'Blocker', icon: 'block' },
-  warning: { label: 'Warning', icon: 'warning' },
-  note: { label: 'Note', icon: 'info' },
-  none: { label: 'No findings', icon: 'check_circle' },
-};
+/** Icon, word and colours for each check severity (blocker, warning, note) from the shared status language. */
+export const SEVERITY_INFO: Record<CheckSeverity | 'none', StatusMark> = { ...CHECK_SEVERITY_MARKS, none: NO_FINDINGS_MARK };
 
-/** A check severity as icon + word; `null` means no check found anything. */
+/** A check severity as a small chip, icon + word + colour; `null` means no check found anything. */
 @Component({
   selector: 'kb-check-severity',
   imports: [MatIconModule],
@@ -21,26 +17,29 @@ export const SEVERITY_INFO: Record<CheckSeverity | 'none', { label: string; icon
       display: inline-flex;
       align-items: center;
       gap: 4px;
+      padding: 0 8px 0 6px;
+      border-radius: 12px;
+      border: 1px solid;
       font: var(--mat-sys-label-medium);
+      font-weight: 500;
+      line-height: 22px;
       white-space: nowrap;
+      // In a results grid the chip keeps its own size, at the top of its row.
+      justify-self: start;
+      align-self: start;
     }
     mat-icon {
-      font-size: 18px;
-      width: 18px;
-      height: 18px;
-    }
-    :host(.kb-sev-blocker) {
-      color: var(--mat-sys-error);
-    }
-    :host(.kb-sev-warning) {
-      color: var(--mat-sys-tertiary);
-    }
-    :host(.kb-sev-note),
-    :host(.kb-sev-none) {
-      color: var(--mat-sys-on-surface-variant);
+      font-size: 16px;
+      width: 16px;
+      height: 16px;
     }
   `,
-  host: { '[class]': "'kb-sev-' + (severity() ?? 'none')" },
+  host: {
+    '[class]': "'kb-sev-' + (severity() ?? 'none') + ' kb-tone-' + info().tone",
+    '[style.color]': 'info().ink',
+    '[style.background-color]': 'info().fill',
+    '[style.border-color]': 'info().edge',
+  },
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class CheckSeverityLabel {

@@ -54,6 +54,7 @@ describe('Comparing versions', function () {
       .set(CSRF_HEADER, approver.csrf)
       .send({
         revision: v1.revision,
+        username: approverPerson.username,
         password: approverPerson.password,
         meaning: 'approved',
         acknowledgedWarnings: v1.checks.filter((c) => c.severity === 'warning').map((c) => c.id),

@@ -123,6 +123,8 @@ describe('Notification mails: version in use and flagged cuts', () => {
     const current = ok(await act.approve(approver, ok(await act.submit(author, draft))));
     const cut = (v: RecipeVersionDto, outcome: string) =>
       post(operator, `/api/recipes/${v.recipeId}/versions/${v.version}/cuts`, { specimenId: 'S-77', outcome, notes: 'Blue at the exit side.' });
+    // Cuts are logged only against a version the operator has acknowledged.
+    expect((await post(operator, `/api/recipes/${current.recipeId}/versions/${current.version}/acknowledge`)).status).to.equal(200);
     await ctx.db('mail_outbox').delete();
 
     expect((await cut(current, 'good')).status).to.equal(201);

@@ -5,7 +5,7 @@
  * yet; Today lists the versions in use an operator still has to acknowledge.
  */
 import { expect } from 'chai';
-import type { AcknowledgementsDto, RecipeVersionDto, TodayDto } from '../../../shared/recipe-types';
+import type { AcknowledgementsDto, ChangesSinceAcknowledgedDto, RecipeVersionDto, TodayDto } from '../../../shared/recipe-types';
 import { apiTestContext } from '../support/hooks';
 import { createPerson } from '../support/people';
 import { createStockSet, type StockSet } from '../support/stock';
@@ -33,6 +33,7 @@ describe('Acknowledgements', () => {
   const mine = async (who: Session, v: RecipeVersionDto) => ((await who.agent.get(path(v)).expect(200)).body as RecipeVersionDto).myAcknowledgement;
   const today = async (who: Session) => (await who.agent.get('/api/today').expect(200)).body as TodayDto;
   const written = async () => ({ acks: await countRows(ctx.db, 'acknowledgements'), trail: await countRows(ctx.db, 'trail_events') });
+  const aCut = (specimenId: string) => ({ specimenId, partRef: '', quantity: 1, outcome: 'good', notes: '' });
   const assign = (userId: number, machineId: number) => ctx.db('user_machines').insert({ user_id: userId, machine_id: machineId, assigned_at: new Date() });
 
   before(async () => {
@@ -80,6 +81,21 @@ describe('Acknowledgements', () => {
     }
   });
 
+  it('refuses a cut from an operator of the machine until they acknowledge (409 ACKNOWLEDGE_FIRST), writing nothing; others log as before', async () => {
+    const before = await written();
+    const cuts = await countRows(ctx.db, 'cut_records');
+    const res = await post(operator, `${path(current)}/cuts`, aCut('S-ACK-1'));
+    expect(res.status).to.equal(409);
+    expect(res.body).to.deep.equal({
+      code: 'ACKNOWLEDGE_FIRST',
+      errors: [{ path: '', message: `Acknowledge version 1 of ${current.number} (read and understood) before you log a cut with it.` }],
+    });
+    expect(await written()).to.deep.equal(before);
+    expect(await countRows(ctx.db, 'cut_records')).to.equal(cuts);
+    // An operator of another machine is not asked to acknowledge it, so the cut is taken.
+    expect((await post(elsewhere, `${path(current)}/cuts`, aCut('S-ACK-2'))).status).to.equal(201);
+  });
+
   it('refuses an operator of another machine with 409, writing nothing', async () => {
     const before = await written();
     const res = await acknowledge(elsewhere, current);
@@ -118,6 +134,12 @@ describe('Acknowledgements', () => {
     expect((await today(operator)).toAcknowledge).to.deep.equal([]);
     const sheet = await getSheet(operator.agent, current.recipeId, 1);
     expect(sheet.status).to.equal(200);
+  });
+
+  it('takes the operator’s cut once they have acknowledged the version', async () => {
+    const res = await post(operator, `${path(current)}/cuts`, aCut('S-ACK-3'));
+    expect(res.status, JSON.stringify(res.body)).to.equal(201);
+    expect(res.body).to.include({ specimenId: 'S-ACK-3', operatorId: operator.person.id, version: 1 });
   });
 
   it('answers a second acknowledgement with the first, recording nothing more (also when sent twice at once)', async () => {
@@ -184,5 +206,28 @@ describe('Acknowledgements', () => {
     expect((await operator.agent.get(`${path(coming)}/sheet.pdf`)).status).to.equal(409);
     expect((await acknowledge(colleague, coming)).status).to.equal(200);
     expect((await getSheet(colleague.agent, coming.recipeId, 2)).status).to.equal(200);
+  });
+
+  it('shows an operator what changed since the version of the recipe they last acknowledged, or says they never acknowledged one', async () => {
+    const v1 = await approved(author, approver, stock, { title: 'Changes since acknowledged' });
+    expect((await acknowledge(colleague, v1)).status).to.equal(200);
+    const draft = ok(await act.newVersion(author, v1.recipeId, 1, 'Feed lowered after burn marks.'), 201);
+    const saved = ok(await act.save(author, draft, { instructionsMd: 'Clamp both ends; feed gently at the exit.' }));
+    const v2 = ok(await act.approve(approver, ok(await act.submit(author, saved))));
+    const changes = (who: Session) => who.agent.get(`${path(v2)}/changes-since-acknowledged`);
+
+    const res = await changes(colleague);
+    expect(res.status, JSON.stringify(res.body)).to.equal(200);
+    const dto = res.body as ChangesSinceAcknowledgedDto;
+    expect(dto.since!.version).to.equal(1);
+    expect(Date.parse(dto.since!.acknowledgedAt)).to.be.a('number').and.not.NaN;
+    expect(dto.comparison!.from).to.include({ version: 1 });
+    expect(dto.comparison!.to).to.include({ version: 2 });
+    expect(dto.comparison!.texts.map((t) => t.path)).to.include('instructionsMd');
+
+    // Never acknowledged a version of this recipe: nothing to compare with.
+    expect((await changes(operatorAuthor)).body).to.deep.equal({ since: null, comparison: null });
+    expect((await changes(author)).status).to.equal(403);
+    expect((await colleague.agent.get(`/api/recipes/${v2.recipeId}/versions/99/changes-since-acknowledged`)).status).to.equal(404);
   });
 });

@@ -1,4 +1,4 @@
-/** The demo cut records (seeds/06_demo_cuts.ts): a few cuts by the demo operator, one burnt and flagged for the author. */
+/** The demo cut records (seeds/07_demo_cuts.ts): a few cuts by the demo operator, one burnt and flagged for the author. */
 import { expect } from 'chai';
 import { seedDemoIfEmpty } from '../../../server/tools/db-setup';
 import { DEMO_ACCOUNTS } from '../../../seeds/data/demo-accounts';
@@ -41,7 +41,7 @@ describe('Demo cut records', () => {
   it('changes nothing when the seeds run again', async () => {
     const before = await ctx.db('cut_records').count({ n: '*' }).first();
     expect(await seedDemoIfEmpty(ctx.db)).to.equal(false);
-    const { seed } = await import('../../../seeds/06_demo_cuts');
+    const { seed } = await import('../../../seeds/07_demo_cuts');
     await seed(ctx.db);
     expect(await ctx.db('cut_records').count({ n: '*' }).first()).to.deep.equal(before);
   });

@@ -5,6 +5,8 @@
  */
 import { expect } from 'chai';
 import { peripheralSpeedMs } from '../../../shared/peripheral-speed';
+import { motionSettingChecks } from '../../../shared/motion-checks';
+import { motionSettingsMissing, motionSettingsText } from '../../../shared/motion-settings';
 import { runChecks } from '../../../shared/recipe-checks';
 import { computeRecipe } from '../../../shared/recipe-computations';
 import type { RecipeContent } from '../../../shared/schemas/recipe';
@@ -94,6 +96,24 @@ describe('Demo seeds', () => {
       const ids = runChecks(content, context).map((c) => c.id);
       expect(ids, title).to.not.include.members(['cutting-power-high', 'motor-power-unknown']);
     }
+  });
+
+  it('gives every demo recipe whose cut motion takes settings its settings, with none of the motion checks raised', async () => {
+    const versions = await ctx.db('recipe_versions').select('content_json', 'title');
+    const motions = new Set<string>();
+    for (const { content_json, title } of versions) {
+      const content = JSON.parse(content_json) as RecipeContent;
+      expect(motionSettingsMissing(content), `${title}: ${content.cutting.cutMotion}`).to.equal(false);
+      if (content.cutting.cutMotion !== 'straight-plunge') motions.add(motionSettingsText(content));
+      expect(motionSettingChecks(content), title).to.deep.equal([]);
+    }
+    // Pulses by distance and by time, and a rocking stroke (invented demo values).
+    expect([...motions].sort()).to.deep.equal([
+      'advance per pulse 0.40 mm, retract per pulse 0.10 mm',
+      'advance per pulse 0.50 mm, retract per pulse 0.20 mm',
+      'feeding time per pulse 3.0 s, pause between pulses 1.0 s',
+      'rocking stroke 8.00 mm',
+    ]);
   });
 
   it('changes nothing on a second run', async () => {

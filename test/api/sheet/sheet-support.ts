@@ -18,6 +18,8 @@ export function getSheet(agent: Agent, recipeId: number, version: number) {
 
 export interface ReadSheet {
   text: string;
+  /** The text of each page, in order. */
+  pageTexts: string[];
   pages: number;
   /** Page size in points of each page. */
   sizes: { width: number; height: number }[];
@@ -59,6 +61,7 @@ export async function readSheet(pdf: Buffer): Promise<ReadSheet> {
     }
     return {
       text: text.text,
+      pageTexts: text.pages.map((p) => p.text),
       pages: info.total,
       sizes: info.pages.map((p) => ({ width: Math.round(p.width), height: Math.round(p.height) })),
       qrTexts,

@@ -1,7 +1,7 @@
 /** Stock and recipe fixtures for API tests: valid bodies, and records made through the services. */
 import type { Knex } from 'knex';
 import type { MachineBody, MaterialBody, WheelBody } from '../../../shared/schemas/stock';
-import type { CreateRecipeBody } from '../../../shared/schemas/recipe';
+import { NO_MOTION_SETTINGS, type CreateRecipeBody } from '../../../shared/schemas/recipe';
 import type { MachineRecord, MaterialRecord, WheelRecord } from '../../../shared/stock-types';
 import type { Actor } from '../../../server/services/actor';
 import { createStock } from '../../../server/services/stock/stock';
@@ -117,6 +117,7 @@ export function recipeInput(
         entryLengthMm: null,
         cutMotion: 'straight-plunge',
         passes: null,
+        ...NO_MOTION_SETTINGS,
         ...over.cutting,
       },
       clamping: {

@@ -31,6 +31,8 @@ export const act = {
   approve: (who: Session, v: RecipeVersionDto, over: object = {}) =>
     post(who, `${versionPath(v)}/approve`, {
       revision: v.revision,
+      // Both signature components, as a first signing in a session needs them.
+      username: who.person.username,
       password: who.person.password,
       meaning: 'approved',
       acknowledgedWarnings: v.checks.filter((c) => c.severity === 'warning').map((c) => c.id),
@@ -39,6 +41,7 @@ export const act = {
   withdraw: (who: Session, v: RecipeVersionDto, over: object = {}) =>
     post(who, `${versionPath(v)}/withdraw`, {
       revision: v.revision,
+      username: who.person.username,
       password: who.person.password,
       meaning: 'withdrawn',
       reason: 'Wheel no longer stocked.',

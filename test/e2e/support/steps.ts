@@ -32,3 +32,8 @@ export async function choose(page: Page, label: string, option: RegExp): Promise
   await page.getByRole('combobox', { name: label, exact: true }).click();
   await page.getByRole('option', { name: option }).click();
 }
+
+/** A dialog moves focus to its first field once it has opened; typing before that races it. */
+export async function dialogSettled(page: Page): Promise<void> {
+  await page.waitForFunction(() => document.activeElement?.closest('[role="dialog"]') != null);
+}

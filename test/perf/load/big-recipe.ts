@@ -80,6 +80,7 @@ export async function ensureBigRecipe(db: Knex, users: Record<BenchRole, BenchUs
       const submitted = await submitVersion(db, actor(users.author), created.recipeId, 1, { revision: created.revision });
       await approveVersion(db, actor(users.approver), created.recipeId, 1, {
         revision: submitted.revision,
+        username: users.approver.username,
         password: users.approver.password,
         meaning: 'approved',
         comment: '',

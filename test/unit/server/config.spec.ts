@@ -1,5 +1,5 @@
 import { expect } from 'chai';
-import { readConfig } from '../../../server/config';
+import { publicAddressWarning, readConfig } from '../../../server/config';
 
 const base = { DATABASE_URL: 'mysql://u:p@127.0.0.1:3306/db', SESSION_SECRET: 'x'.repeat(32) };
 
@@ -51,5 +51,23 @@ describe('readConfig (environment variables)', () => {
         'PORT must be a whole number from 0 to 65535.',
       ].join('\n'),
     );
+  });
+});
+
+describe('publicAddressWarning (listening beyond this computer without APP_BASE_URL)', () => {
+  it('warns when the app listens on every address or a network address and APP_BASE_URL is unset', () => {
+    for (const host of ['0.0.0.0', '::', '192.168.10.5', 'kerfbook-host']) {
+      const warning = publicAddressWarning({ host, port: 4300 });
+      expect(warning, host).to.be.a('string');
+      expect(warning).to.include('APP_BASE_URL is not set');
+      expect(warning).to.include(`listens on ${host.includes(':') ? `[${host}]` : host}:4300`);
+      expect(warning).to.include('QR codes');
+    }
+  });
+
+  it('stays quiet on loopback, or when APP_BASE_URL says where people reach the app', () => {
+    for (const host of ['127.0.0.1', '127.0.1.1', '::1', 'localhost', '::ffff:127.0.0.1'])
+      expect(publicAddressWarning({ host, port: 4300 }), host).to.equal(null);
+    expect(publicAddressWarning({ host: '0.0.0.0', port: 4300, appBaseUrl: 'https://kerfbook.lab.example' })).to.equal(null);
   });
 });

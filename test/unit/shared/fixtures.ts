@@ -1,7 +1,7 @@
 /** Small, invented stock and recipe fixtures for the shared computation and check specs. */
 import { markedSpeedPair } from '../../../shared/peripheral-speed';
 import type { RecipeContext } from '../../../shared/recipe-context';
-import type { RecipeContent } from '../../../shared/schemas/recipe';
+import { NO_MOTION_SETTINGS, type RecipeContent } from '../../../shared/schemas/recipe';
 import { NO_LAB_LIMITS, type LabLimits, type MachineRecord, type MaterialRecord, type WheelRecord } from '../../../shared/stock-types';
 
 const stored = { archived: false, updatedAt: '2025-01-01T00:00:00Z', notes: '' };
@@ -135,6 +135,7 @@ export function content(
       entryLengthMm: null,
       cutMotion: 'straight-plunge',
       passes: null,
+      ...NO_MOTION_SETTINGS,
       ...over.cutting,
     },
     clamping: {

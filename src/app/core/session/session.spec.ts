@@ -39,7 +39,7 @@ describe('Session', () => {
 
   it('load() takes the user and token from GET /api/session', async () => {
     const loading = session.load();
-    const body: SessionDto = { user: aUser({ roles: ['admin', 'auditor'] }), csrfToken: 'tok-1', devOutbox: true };
+    const body: SessionDto = { user: aUser({ roles: ['admin', 'auditor'] }), csrfToken: 'tok-1', devOutbox: true, signatureNeedsUsername: false };
     http.expectOne({ method: 'GET', url: '/api/session' }).flush(body);
     await loading;
 
@@ -48,6 +48,8 @@ describe('Session', () => {
     expect(session.roles()).toEqual(['admin', 'auditor']);
     expect(session.csrfToken()).toBe('tok-1');
     expect(session.mustChangePassword()).toBe(false);
+    // This server session already has a signing with username and password.
+    expect(session.signatureNeedsUsername()).toBe(false);
     expect(session.devOutbox()).toBe(true);
   });
 

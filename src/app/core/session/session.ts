@@ -18,6 +18,7 @@ export class Session {
   private readonly currentUser = signal<UserDto | null>(null);
   private readonly token = signal<string | null>(null);
   private readonly outboxKept = signal(false);
+  private readonly usernameForSignature = signal(true);
 
   readonly user = this.currentUser.asReadonly();
   readonly csrfToken = this.token.asReadonly();
@@ -26,6 +27,11 @@ export class Session {
   readonly mustChangePassword = computed(() => this.currentUser()?.mustChangePassword ?? false);
   /** True when the server keeps a development outbox (never in production). */
   readonly devOutbox = this.outboxKept.asReadonly();
+  /**
+   * True until a signing with username and password is completed in this server session:
+   * the signature dialog then asks for the username too (21 CFR 11.200(a)(1)).
+   */
+  readonly signatureNeedsUsername = this.usernameForSignature.asReadonly();
 
   /**
    * Finds out who is signed in. A 401 means nobody: then fetch the anonymous session's
@@ -98,11 +104,22 @@ export class Session {
     }
   }
 
+  /** A signing was accepted: later ones in this session take the password only. */
+  noteFullSigning(): void {
+    this.usernameForSignature.set(false);
+  }
+
+  /** The server asked for the username with a signature (e.g. its session began anew). */
+  noteUsernameNeeded(): void {
+    this.usernameForSignature.set(true);
+  }
+
   /** Forget the user locally (the server said the session is gone, or we signed out). */
   clear(): void {
     this.currentUser.set(null);
     this.token.set(null);
     this.outboxKept.set(false);
+    this.usernameForSignature.set(true);
   }
 
   private async refreshAnonymousToken(): Promise<void> {
@@ -114,5 +131,6 @@ export class Session {
     this.currentUser.set(session.user);
     this.token.set(session.csrfToken);
     this.outboxKept.set(session.devOutbox === true);
+    this.usernameForSignature.set(session.signatureNeedsUsername !== false);
   }
 }

@@ -23,6 +23,7 @@ export const NAV_ITEMS: readonly NavItem[] = [
   { label: 'Specimen trace', icon: 'biotech', path: '/cuts', access: 'signedIn' },
   { label: 'Trail', icon: 'policy', path: '/trail', access: ['auditor', 'admin'] },
   { label: 'People', icon: 'group', path: '/people', access: ['admin'] },
+  { label: 'Lab settings', icon: 'tune', path: '/lab-settings', access: ['admin'] },
   { label: 'Outbox', icon: 'outgoing_mail', path: '/outbox', access: ['admin'], devOnly: true },
   { label: 'API reference', icon: 'api', path: '/api-reference', access: ['admin'] },
   { label: 'My account', icon: 'manage_accounts', path: '/account', access: 'signedIn' },

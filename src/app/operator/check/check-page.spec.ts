@@ -120,6 +120,14 @@ describe('CheckPage', () => {
     expect(verdict().dataset['state']).toBe('current');
   });
 
+  it('says where the code really is on the sheet: under the QR code at the top right, and at the foot of every page', async () => {
+    await open('/check/HELLO');
+    for (const where of [words(root().querySelector('[data-testid="check-malformed"]')), words(root().querySelector('mat-hint'))]) {
+      expect(where).toContain('under the QR code at the top right of the bench sheet');
+      expect(where).toContain('at the foot of every page');
+    }
+  });
+
   it('says when no sheet has the code, without a snack bar', async () => {
     await open('/check/7KQ2-M9XE');
     await answer('7KQ2M9XE', { code: 'NOT_FOUND', errors: [{ path: '', message: 'No version has this check code.' }] }, 404);

@@ -9,6 +9,8 @@ import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { Router, RouterLink } from '@angular/router';
 import type { CheckCodeResult } from '@shared/recipe-types';
 import { checkCodeParam } from '@shared/schemas/operator';
+import { RECIPE_STATUS_MARKS, SHEET_VERDICT_TONES } from '@shared/status-colours';
+import { CHECK_CODE_PLACE } from '@shared/vocabulary';
 import { controlMessage } from '../../core/forms/control-message';
 import { zodValidator } from '../../core/forms/zod-validator';
 import { isApiError } from '../../core/http/api-error';
@@ -25,10 +27,10 @@ type Verdict =
 
 /** How each state of a printed version reads at the saw: icon and words, never colour alone. */
 export const CHECK_STATE_INFO: Record<CheckCodeResult['state'], { icon: string; headline: string; usable: boolean }> = {
-  current: { icon: 'verified', headline: 'Current — this sheet may be used', usable: true },
+  current: { icon: RECIPE_STATUS_MARKS.approved.icon, headline: 'Current — this sheet may be used', usable: true },
   pending: { icon: 'schedule', headline: 'Approved, not yet in force — do not use it yet', usable: false },
-  superseded: { icon: 'history', headline: 'Superseded — do not use this sheet', usable: false },
-  withdrawn: { icon: 'block', headline: 'Withdrawn — do not use this sheet', usable: false },
+  superseded: { icon: RECIPE_STATUS_MARKS.superseded.icon, headline: 'Superseded — do not use this sheet', usable: false },
+  withdrawn: { icon: RECIPE_STATUS_MARKS.withdrawn.icon, headline: 'Withdrawn — do not use this sheet', usable: false },
 };
 
 /** "7KQ2M9XD" → "7KQ2-M9XD", as printed. */
@@ -50,6 +52,7 @@ export function printedCode(code: string): string {
 export class CheckPage {
   private readonly api = inject(CheckApi);
   private readonly router = inject(Router);
+  protected readonly verdictTones = SHEET_VERDICT_TONES;
 
   /** Route parameter `:code`; absent on /check. */
   readonly code = input<string>();
@@ -83,6 +86,9 @@ export class CheckPage {
     const v = this.verdict();
     return v.state === 'ready' ? CHECK_STATE_INFO[v.result.state] : null;
   });
+  /** Where the code is printed on the sheet, for the hints. */
+  protected readonly codePlace = CHECK_CODE_PLACE;
+
   protected readonly form = inject(NonNullableFormBuilder).group({ code: ['', [zodValidator(checkCodeParam)]] });
   protected readonly codeField = this.form.controls.code;
   protected readonly controlMessage = controlMessage;

@@ -1,3 +1,4 @@
+import { MATERIAL_GROUP_LABELS } from '@shared/vocabulary';
 import { provideHttpClient, withInterceptors } from '@angular/common/http';
 import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
 import { Component, signal } from '@angular/core';
@@ -109,6 +110,17 @@ describe('Finder', () => {
     // The form shows what was asked.
     expect(root().querySelector<HTMLInputElement>('[formcontrolname="material"]')!.value).toBe('Tempered chromium-molybdenum steel');
     expect(root().querySelector<HTMLInputElement>('[formcontrolname="sizeMm"]')!.value).toBe('30');
+  });
+
+  it('says what the disabled group field is set to when a material is picked', async () => {
+    await open('/finder?materialId=5&sizeMm=30');
+    await answerFinder(hits);
+    const group = root().querySelector('.kb-f-group')!;
+    expect(group.querySelector('mat-select')!.getAttribute('aria-disabled')).toBe('true');
+    expect(words(group.querySelector('.mat-mdc-select-value'))).toBe(MATERIAL_GROUP_LABELS[aMaterial({ id: 5 }).group]);
+    expect(words(group.querySelector('[data-testid="group-set-by"]'))).toBe(
+      `Set to ${MATERIAL_GROUP_LABELS[aMaterial({ id: 5 }).group].toLowerCase()} by the material Tempered chromium-molybdenum steel; clear the material to choose another group.`,
+    );
   });
 
   it('puts the typed query in the URL and searches with it', async () => {

@@ -1,3 +1,4 @@
+import { LowerCasePipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, computed, effect, inject, signal } from '@angular/core';
 import { takeUntilDestroyed, toSignal } from '@angular/core/rxjs-interop';
 import { NonNullableFormBuilder, ReactiveFormsModule, type ValidatorFn } from '@angular/forms';
@@ -40,6 +41,8 @@ import { RecipeApi } from '../../core/api/recipe-api';
 import { StockApi } from '../../core/api/stock-api';
 import { FinderApi } from './finder-api';
 import { finderParams, isEmptyQuery, readFinderParams } from './finder-params';
+import { DecimalInput } from '../../ui/decimal-input';
+import { ReviewOverdueChip } from '../../ui/review-overdue-chip';
 
 type Results = { state: 'idle' } | { state: 'loading' } | { state: 'failed'; message: string } | { state: 'ready'; hits: FinderHit[] };
 
@@ -57,6 +60,8 @@ function optionalNumber(schema: (typeof finderQuery.shape)['sizeMm' | 'hardnessV
 @Component({
   selector: 'kb-finder',
   imports: [
+    DecimalInput,
+    LowerCasePipe,
     MatAutocompleteModule,
     MatButtonModule,
     MatFormFieldModule,
@@ -65,6 +70,7 @@ function optionalNumber(schema: (typeof finderQuery.shape)['sizeMm' | 'hardnessV
     MatProgressBarModule,
     MatSelectModule,
     ReactiveFormsModule,
+    ReviewOverdueChip,
     RouterLink,
   ],
   templateUrl: './finder.html',

@@ -4,7 +4,7 @@ import { Component, signal } from '@angular/core';
 import { TestBed } from '@angular/core/testing';
 import { provideRouter, withComponentInputBinding } from '@angular/router';
 import { RouterTestingHarness } from '@angular/router/testing';
-import type { RecipeVersionDto } from '@shared/recipe-types';
+import type { ChangesSinceAcknowledgedDto, RecipeComparison, RecipeVersionDto } from '@shared/recipe-types';
 import { aVersionToAcknowledge, anOperator, myAcknowledgement } from '../../../testing/acknowledgement-fixtures';
 import { aMachine, aWheel } from '../../../testing/stock-and-recipe-fixtures';
 import { errorInterceptor } from '../../core/http/error-interceptor';
@@ -19,7 +19,15 @@ describe('AcknowledgePage', () => {
   let backend: HttpTestingController;
   let harness: RouterTestingHarness;
 
-  async function open(url: string, version: RecipeVersionDto, machineName = 'Bench saw B2', list?: RecipeVersionDto[]): Promise<void> {
+  const neverAcknowledged: ChangesSinceAcknowledgedDto = { since: null, comparison: null };
+
+  async function open(
+    url: string,
+    version: RecipeVersionDto,
+    machineName = 'Bench saw B2',
+    list?: RecipeVersionDto[],
+    changes: ChangesSinceAcknowledgedDto = neverAcknowledged,
+  ): Promise<void> {
     TestBed.configureTestingModule({
       providers: [
         provideRouter(
@@ -42,6 +50,10 @@ describe('AcknowledgePage', () => {
     (await vi.waitFor(() => backend.expectOne({ method: 'GET', url: `/api/recipes/3/versions/${version.version}` }))).flush(version);
     (await vi.waitFor(() => backend.expectOne('/api/wheels/2'))).flush(aWheel());
     backend.expectOne('/api/machines/1').flush(aMachine({ name: machineName }));
+    // The operator's own comparison, asked for a later version they are to read.
+    if (version.version > 1 && version.myAcknowledgement) {
+      (await vi.waitFor(() => backend.expectOne(`/api/recipes/3/versions/${version.version}/changes-since-acknowledged`))).flush(changes);
+    }
     await harness.fixture.whenStable();
   }
 
@@ -161,5 +173,33 @@ describe('AcknowledgePage', () => {
     expect(words(root().querySelector('[data-testid="not-required"]'))).toContain(
       'Version 2 of KB-0003 is superseded: only approved versions are acknowledged.',
     );
+  });
+
+  it('shows what changed since the version of the recipe the operator last acknowledged', async () => {
+    const comparison: RecipeComparison = {
+      recipeId: 3,
+      number: 'KB-0003',
+      from: { version: 1, status: 'superseded', title: 'Tempered bar, transverse' },
+      to: { version: 2, status: 'approved', title: 'Tempered bar, transverse' },
+      parameters: [{ path: 'cutting.feedMmS', label: 'Feed', before: '0.60 mm/s', after: '0.50 mm/s' }],
+      texts: [],
+    };
+    await open('/recipes/3/acknowledge?v=2', aVersionToAcknowledge(), 'Bench saw B2', undefined, {
+      since: { version: 1, acknowledgedAt: '2026-10-02T08:00:00.000Z' },
+      comparison,
+    });
+    expect(words(root().querySelector('[data-testid="since"]'))).toBe('Since version 1, which you acknowledged on 2 Oct 2026:');
+    const shown = words(root().querySelector('kb-comparison-view'));
+    expect(shown).toContain('Feed');
+    expect(shown).toContain('0.60 mm/s');
+    expect(shown).toContain('0.50 mm/s');
+    expect(root().querySelector('[data-testid="never-acknowledged"]')).toBeNull();
+  });
+
+  it('says so when the operator never acknowledged a version of the recipe, and shows the version as it is', async () => {
+    await open('/recipes/3/acknowledge?v=2', aVersionToAcknowledge());
+    expect(words(root().querySelector('[data-testid="never-acknowledged"]'))).toContain('You have not acknowledged a version of this recipe before');
+    expect(root().querySelector('kb-comparison-view')).toBeNull();
+    expect(words(root().querySelector('kb-key-parameters'))).toContain('Bench saw B2');
   });
 });

@@ -25,6 +25,7 @@ import { callerHandles } from '../../core/http/caller-handles';
 import { Session } from '../../core/session/session';
 import { benchSheetUrl } from '../../core/api/bench-sheet';
 import { KeyParameters } from './key-parameters';
+import { ChangesSinceAcknowledged } from './changes-since-acknowledged';
 import { RecipeApi } from '../../core/api/recipe-api';
 import { RecipeStatusChip } from '../../ui/recipe-status-chip';
 import { utcToday } from '../../core/dates/calendar';
@@ -42,7 +43,17 @@ type Load = { state: 'loading' } | { state: 'missing' } | { state: 'failed' } | 
  */
 @Component({
   selector: 'kb-acknowledge-page',
-  imports: [DatePipe, KeyParameters, MarkdownView, MatButtonModule, MatIconModule, MatProgressBarModule, RecipeStatusChip, RouterLink],
+  imports: [
+    ChangesSinceAcknowledged,
+    DatePipe,
+    KeyParameters,
+    MarkdownView,
+    MatButtonModule,
+    MatIconModule,
+    MatProgressBarModule,
+    RecipeStatusChip,
+    RouterLink,
+  ],
   templateUrl: './acknowledge-page.html',
   styleUrl: './acknowledge-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,

@@ -1,9 +1,10 @@
-import { ChangeDetectionStrategy, Component, input } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
 import type { UnitPreference } from '@shared/api-types';
 import type { RecipeContent } from '@shared/schemas/recipe';
 import type { MachineRecord, WheelRecord } from '@shared/stock-types';
 import { CLAMPING_METHOD_LABELS, COOLANT_TYPE_LABELS, CUT_MOTION_LABELS } from '@shared/vocabulary';
 import { QuantityPipe } from '../../ui/quantity';
+import { motionSettingsText } from '@shared/motion-settings';
 
 /**
  * The settings an operator dials in at the saw, in one compact list: machine, wheel, speeds,
@@ -43,6 +44,9 @@ import { QuantityPipe } from '../../ui/quantity';
         {{ motionLabel[c.cutting.cutMotion] }}
         @if (c.cutting.passes !== null) {
           , {{ c.cutting.passes }} passes
+        }
+        @if (motionSettings(); as settings) {
+          <span class="kb-sub" data-testid="key-motion-settings">{{ settings }}</span>
         }
       </dd>
       <dt>Clamping</dt>
@@ -100,6 +104,11 @@ export class KeyParameters {
   readonly label = input('Key parameters');
 
   protected readonly motionLabel = CUT_MOTION_LABELS;
+  /** The motion's settings in one line (the passes are shown beside the motion already). */
+  protected readonly motionSettings = computed(() => {
+    const c = this.content();
+    return motionSettingsText({ cutting: { ...c.cutting, passes: null } }, this.units());
+  });
   protected readonly clampingLabel = CLAMPING_METHOD_LABELS;
   protected readonly coolantLabel = COOLANT_TYPE_LABELS;
 }

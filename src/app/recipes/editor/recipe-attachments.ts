@@ -14,6 +14,7 @@ import type { AttachmentDto } from '@shared/recipe-types';
 import { isApiError } from '../../core/http/api-error';
 import { callerHandles } from '../../core/http/caller-handles';
 import { ConfirmDialog, type ConfirmDialogData } from '../../ui/confirm-dialog';
+import { PhotoUploads } from './photo-uploads';
 import { type AttachmentRole, RecipeEditorApi } from './recipe-editor-api';
 
 /** What the server accepts; it sniffs the bytes and decides, this only saves a pointless upload. */
@@ -38,7 +39,11 @@ function megabytes(bytes: number): string {
   return bytes >= 1024 * 1024 ? `${(bytes / 1024 / 1024).toFixed(1)} MB` : `${Math.max(1, Math.round(bytes / 1024))} kB`;
 }
 
-/** Photos of a draft version: upload with progress, thumbnails, delete. */
+/**
+ * Photos of a draft version: a chosen photo uploads at once (with progress), with the role
+ * and caption set above it; thumbnails, delete. A photo that failed stays chosen with its
+ * reason and a "Try again" until it is sent or discarded, and PhotoUploads tells the editor.
+ */
 @Component({
   selector: 'kb-recipe-attachments',
   imports: [MatButtonModule, MatFormFieldModule, MatIconModule, MatInputModule, MatProgressBarModule, MatSelectModule, ReactiveFormsModule],
@@ -52,6 +57,8 @@ export class RecipeAttachments {
   private readonly destroyRef = inject(DestroyRef);
   private readonly fb = inject(NonNullableFormBuilder);
   private readonly fileInput = viewChild<ElementRef<HTMLInputElement>>('fileInput');
+  /** The editor's record of a photo not uploaded yet; absent where no editor provides it. */
+  private readonly uploads = inject(PhotoUploads, { optional: true });
 
   readonly recipeId = input.required<number>();
   readonly version = input.required<number>();
@@ -78,16 +85,25 @@ export class RecipeAttachments {
 
   protected pickFile(event: Event): void {
     const file = (event.target as HTMLInputElement).files?.[0] ?? null;
-    this.error.set(file ? precheckImage(file) : '');
-    this.file.set(file && !this.error() ? file : null);
+    if (!file) return;
+    const refused = precheckImage(file);
+    if (refused) {
+      this.error.set(refused);
+      this.clearInput();
+      return;
+    }
+    this.file.set(file);
+    this.upload();
   }
 
+  /** Sends the chosen photo (again, after a failure). */
   protected upload(): void {
     const file = this.file();
-    if (!file) return;
+    if (!file || this.uploading()) return;
     const { role, caption } = this.details.getRawValue();
     this.error.set('');
     this.progress.set(0);
+    this.uploads?.pending.set(`${file.name} is still uploading.`);
     this.api
       .uploadAttachment(this.recipeId(), this.version(), file, role, caption, callerHandles(400, 409, 413, 415))
       .pipe(takeUntilDestroyed(this.destroyRef))
@@ -98,17 +114,34 @@ export class RecipeAttachments {
           } else if (event.type === HttpEventType.Response && event.body) {
             this.list.update((list) => [...list, event.body!]);
             this.progress.set(null);
-            this.file.set(null);
             this.details.controls.caption.setValue('');
-            const input = this.fileInput()?.nativeElement;
-            if (input) input.value = '';
+            this.forget();
           }
         },
         error: (e: unknown) => {
           this.progress.set(null);
-          this.error.set(isApiError(e) ? e.generalMessage : 'The photo could not be uploaded.');
+          const reason = isApiError(e) ? e.generalMessage : 'The connection failed.';
+          this.error.set(`${file.name} is not uploaded: ${reason}`);
+          this.uploads?.pending.set(`${file.name} is not uploaded (${reason}). Try again or discard it.`);
         },
       });
+  }
+
+  /** Drops a chosen photo that could not be uploaded. */
+  protected discard(): void {
+    this.error.set('');
+    this.forget();
+  }
+
+  private forget(): void {
+    this.file.set(null);
+    this.uploads?.pending.set('');
+    this.clearInput();
+  }
+
+  private clearInput(): void {
+    const input = this.fileInput()?.nativeElement;
+    if (input) input.value = '';
   }
 
   protected async remove(attachment: AttachmentDto): Promise<void> {

@@ -7,7 +7,7 @@ import { TestbedHarnessEnvironment } from '@angular/cdk/testing/testbed';
 import { MatSelectHarness } from '@angular/material/select/testing';
 import type { UserDto } from '@shared/api-types';
 import type { RecipeVersionDto } from '@shared/recipe-types';
-import type { SaveDraftBody } from '@shared/schemas/recipe';
+import { NO_MOTION_SETTINGS, type SaveDraftBody } from '@shared/schemas/recipe';
 import { type LabLimits, type MachineRecord, type MaterialRecord, NO_LAB_LIMITS, type SelectionRow, type WheelRecord } from '@shared/stock-types';
 import { aUser } from '../../../testing/user-fixture';
 import { errorInterceptor } from '../../core/http/error-interceptor';
@@ -122,6 +122,7 @@ function aDraft(overrides: Partial<RecipeVersionDto> = {}): RecipeVersionDto {
         entryLengthMm: null,
         cutMotion: 'straight-plunge',
         passes: null,
+        ...NO_MOTION_SETTINGS,
       },
       clamping: {
         method: 'vise-backstop',
@@ -150,6 +151,9 @@ function aDraft(overrides: Partial<RecipeVersionDto> = {}): RecipeVersionDto {
 }
 
 describe('RecipeEditor', () => {
+  /** More wheels and selection rows for one test (reset after each). */
+  let extraWheels: WheelRecord[] = [];
+  let extraRows: SelectionRow[] = [];
   let fixture: ComponentFixture<RecipeEditor>;
   let backend: HttpTestingController;
   let root: HTMLElement;
@@ -179,8 +183,8 @@ describe('RecipeEditor', () => {
     const page = (items: unknown[]) => ({ items, total: items.length, page: 0, pageSize: 200 });
     backend.expectOne((r) => r.url === '/api/materials').flush(page([MATERIAL, COATED]));
     backend.expectOne((r) => r.url === '/api/machines').flush(page([MACHINE]));
-    backend.expectOne((r) => r.url === '/api/wheels').flush(page([WHEEL]));
-    backend.expectOne('/api/selection-rows').flush(ROWS);
+    backend.expectOne((r) => r.url === '/api/wheels').flush(page([WHEEL, ...extraWheels]));
+    backend.expectOne('/api/selection-rows').flush([...ROWS, ...extraRows]);
     backend.expectOne('/api/settings/limits').flush(LIMITS);
     if (id) backend.expectOne(`/api/recipes/${id}/versions`).flush(versions);
     await afterLoad();
@@ -194,6 +198,8 @@ describe('RecipeEditor', () => {
   }
 
   afterEach(() => {
+    extraWheels = [];
+    extraRows = [];
     backend.verify();
     document.querySelectorAll('.cdk-overlay-container').forEach((el) => (el.innerHTML = ''));
   });
@@ -266,6 +272,19 @@ describe('RecipeEditor', () => {
     await until(() => expect(text('[data-testid="wheel-suggestion"]')).toContain('Suggested for this material: Alumina 250'));
     [...root.querySelectorAll<HTMLButtonElement>('[data-testid="wheel-suggestion"] button')].find((b) => b.textContent?.includes('Use Alumina 250'))!.click();
     await until(() => expect(text('[data-testid="wheel-suggestion"]')).toContain('In use'));
+  });
+
+  it('offers no "use" button for a suggested wheel the machine does not take, and says why', async () => {
+    // Ø400 mm on a saw that takes 200–300 mm wheels.
+    extraWheels = [{ ...WHEEL, id: 8, name: 'Alumina 400', diameterMm: 400, maxSpeedRpm: 3819.72 }];
+    extraRows = [{ id: 2, group: 'plain-low-alloy-steel', hardness: null, wheelId: 8, note: '' }];
+    await open('3', [aDraft()]);
+    await until(() => expect(text('[data-testid="wheel-suggestion"]')).toContain('Alumina 400'));
+    // Alumina 250 is in use; Alumina 400 does not fit: no button at all.
+    const buttons = [...root.querySelectorAll<HTMLButtonElement>('[data-testid="wheel-suggestion"] button')].map((b) => b.textContent?.trim());
+    expect(buttons).toEqual([]);
+    expect(text('[data-testid="wheel-suggestion"]')).toContain('In use');
+    expect(text('[data-testid="wheel-suggestion"]')).toContain('Ø400 mm is outside the wheel sizes Bench saw B2 takes.');
   });
 
   it('saves with the revision the edit was based on, then with the one the server returned', async () => {
@@ -375,10 +394,125 @@ describe('RecipeEditor', () => {
     expect(await answer).toBe(false);
   });
 
+  it('uploads a chosen photo at once; while it is not on the server the version cannot be submitted and leaving asks', async () => {
+    await open('3', [aDraft()]);
+    const submit = () => [...root.querySelectorAll<HTMLButtonElement>('button')].find((b) => b.textContent?.includes('Submit for review'))!;
+    await until(() => expect(submit().disabled).toBe(false));
+    const input = root.querySelector<HTMLInputElement>('#kb-photo-file')!;
+    Object.defineProperty(input, 'files', { value: [new File([new Uint8Array(512)], 'setup.png', { type: 'image/png' })], configurable: true });
+    input.dispatchEvent(new Event('change'));
+    // On its way without a second click; meanwhile the editor says so and holds the submit.
+    const upload = await vi.waitFor(() => backend.expectOne({ method: 'POST', url: '/api/recipes/3/versions/1/attachments' }));
+    await until(() => expect(text('[data-testid="photo-pending"]')).toMatch(/setup\.png is still uploading/));
+    expect(submit().disabled).toBe(true);
+    const answer = fixture.componentInstance.canLeave();
+    const dialog = await vi.waitFor(() => {
+      const el = document.querySelector<HTMLElement>('kb-confirm-dialog');
+      expect(el?.textContent).toContain('Leave without the photo?');
+      return el!;
+    });
+    [...dialog.querySelectorAll('button')].find((b) => b.textContent?.includes('Cancel'))!.click();
+    expect(await answer).toBe(false);
+
+    upload.flush({
+      id: 9,
+      role: 'setup',
+      caption: '',
+      fileName: 'setup.png',
+      mimeType: 'image/png',
+      sizeBytes: 512,
+      sha256: 'b'.repeat(64),
+      width: 64,
+      height: 48,
+      url: '/a/9',
+      thumbnailUrl: '/a/9/t',
+    });
+    await until(() => expect(root.querySelector('[data-testid="photo-pending"]')).toBeNull());
+    expect(submit().disabled).toBe(false);
+    expect(await fixture.componentInstance.canLeave()).toBe(true);
+  });
+
   it('shows imperial beside metric for people who asked for both', async () => {
     await open('3', [aDraft()], aUser({ units: 'metric+imperial' }));
     expect(text('mat-hint', field('f-scope-sizeMaxMm').closest('mat-form-field')!)).toBe('= 40.0 mm (1.575 in)');
     expect(text('mat-hint', field('f-cutting-feedMmS').closest('mat-form-field')!)).toBe('= 0.50 mm/s (1.18 in/min)');
+  });
+
+  describe('cut motion settings', () => {
+    const cutting = () => fixture.componentInstance['form'].controls.content.controls.cutting.controls;
+    /** The label and unit of each motion-setting field shown, in order. */
+    const shownSettings = () =>
+      [...root.querySelectorAll('[data-testid="motion-settings"] mat-form-field')].map(
+        (f) => `${text('mat-label', f)} [${text('.mat-mdc-form-field-text-suffix', f)}]`,
+      );
+
+    it('shows the settings of the chosen motion only, each with its unit', async () => {
+      await open('3', [aDraft()]);
+      expect(root.querySelector('[data-testid="motion-settings"]')).toBeNull();
+
+      const loader = TestbedHarnessEnvironment.loader(fixture);
+      const motion = await loader.getHarness(MatSelectHarness.with({ selector: '#f-cutting-cutMotion' }));
+      await motion.clickOptions({ text: 'Pulsed plunge' });
+      await until(() =>
+        expect(shownSettings()).toEqual(['Advance per pulse [mm]', 'Retract per pulse [mm]', 'Feeding time per pulse [s]', 'Pause between pulses [s]']),
+      );
+      expect(text('[data-testid="motion-settings-hint"]')).toContain('or the pulse times');
+
+      cutting().cutMotion.setValue('rocking');
+      await until(() => expect(shownSettings()).toEqual(['Rocking angle (total swing) [°]', 'Rocking stroke [mm]']));
+      expect(root.querySelector('#f-cutting-pulseAdvanceMm')).toBeNull();
+      cutting().cutMotion.setValue('turning-specimen');
+      await until(() => expect(shownSettings()).toEqual(['Specimen speed [rpm]']));
+      cutting().cutMotion.setValue('traverse-pass');
+      await until(() => expect(shownSettings()).toEqual(['Depth per pass [mm]']));
+      expect(root.querySelector('#f-cutting-passes')).not.toBeNull();
+      cutting().cutMotion.setValue('stepped-depth');
+      await until(() => expect(shownSettings()).toEqual(['Step depth [mm]']));
+      cutting().cutMotion.setValue('straight-plunge');
+      await until(() => expect(root.querySelector('[data-testid="motion-settings"]')).toBeNull());
+    });
+
+    it('loads content stored without settings as "not given", flags a pulse that gains nothing, and saves the chosen motion’s settings only', async () => {
+      const draft = aDraft();
+      draft.content.cutting.cutMotion = 'pulsed-plunge';
+      // As an older Kerfbook stored it: no motion-setting keys at all.
+      for (const key of Object.keys(NO_MOTION_SETTINGS)) delete (draft.content.cutting as Record<string, unknown>)[key];
+      await open('3', [draft]);
+      await until(() => expect(root.querySelector('#f-cutting-pulseAdvanceMm')).not.toBeNull());
+      expect(field('f-cutting-pulseAdvanceMm').value).toBe('');
+      expect(cutting().pulseAdvanceMm.value).toBeNull();
+      expect(text('[data-testid="save-status"]')).not.toContain('Unsaved');
+
+      // A value left from another motion stays in the form but is not saved.
+      cutting().rockingStrokeMm.setValue(8);
+      type('f-cutting-pulseAdvanceMm', '0.3');
+      type('f-cutting-pulseRetractMm', '0.3');
+      await until(() => expect(root.querySelector('[data-check="pulse-retract-not-below-advance"]')).not.toBeNull());
+      expect(text('.kb-check-message', root.querySelector('[data-check="pulse-retract-not-below-advance"]')!)).toContain('gains 0 mm per pulse');
+      type('f-cutting-pulseRetractMm', '0.1');
+      await until(() => expect(root.querySelector('[data-check="pulse-retract-not-below-advance"]')).toBeNull());
+
+      // Out of range: the schema's message on the field.
+      type('f-cutting-pulsePauseS', '0');
+      field('f-cutting-pulsePauseS').dispatchEvent(new Event('blur'));
+      await until(() =>
+        expect(text('mat-error', field('f-cutting-pulsePauseS').closest('mat-form-field')!)).toBe('Pause between pulses must be more than 0 s.'),
+      );
+      type('f-cutting-pulsePauseS', '1');
+
+      clickSave();
+      const req = await vi.waitFor(() => backend.expectOne({ method: 'PUT', url: '/api/recipes/3/versions/1' }));
+      const sent = (req.request.body as SaveDraftBody).content.cutting;
+      expect(sent).toMatchObject({
+        cutMotion: 'pulsed-plunge',
+        pulseAdvanceMm: 0.3,
+        pulseRetractMm: 0.1,
+        pulseFeedS: null,
+        pulsePauseS: 1,
+        rockingStrokeMm: null,
+      });
+      req.flush(aDraft({ revision: 5 }));
+    });
   });
 
   describe('wheel path through a coating', () => {

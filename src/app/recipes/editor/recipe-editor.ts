@@ -6,6 +6,7 @@ import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
+import { MatDialog } from '@angular/material/dialog';
 import { Router, RouterLink } from '@angular/router';
 import { firstValueFrom, merge } from 'rxjs';
 import { RECIPE_STATUS_LABELS } from '@shared/vocabulary';
@@ -15,12 +16,14 @@ import { isApiError } from '../../core/http/api-error';
 import { callerHandles } from '../../core/http/caller-handles';
 import { Notifier } from '../../core/notifier/notifier';
 import { Session } from '../../core/session/session';
+import { ConfirmDialog, type ConfirmDialogData } from '../../ui/confirm-dialog';
 import { CommentsPanel } from '../review/comments-panel';
 import { describeValue } from './describe-value';
 import { DraftAutosave } from './draft-autosave';
 import { EMPTY_STOCK, type EditorStock, loadEditorStart } from './editor-stock';
 import { RecipeEditorApi } from './recipe-editor-api';
 import { checksBySection, liveResults } from './live-results';
+import { PhotoUploads } from './photo-uploads';
 import { fieldId } from './recipe-form';
 import { RecipeLivePanel } from './recipe-live-panel';
 import { CautionsSection } from './sections/cautions-section';
@@ -75,7 +78,7 @@ const SECTIONS = [
     ScopeSection,
     SpeedsSection,
   ],
-  providers: [DraftAutosave],
+  providers: [DraftAutosave, PhotoUploads],
   templateUrl: './recipe-editor.html',
   styleUrls: ['./sections/editor-section.scss', './recipe-editor.scss'],
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -89,6 +92,9 @@ export class RecipeEditor implements OnInit, LeavesSafely {
   private readonly notifier = inject(Notifier);
   private readonly host = inject<ElementRef<HTMLElement>>(ElementRef);
   protected readonly draft = inject(DraftAutosave);
+  private readonly dialog = inject(MatDialog);
+  /** A chosen photo not on the server yet: submitting waits for it, leaving asks. */
+  protected readonly photos = inject(PhotoUploads);
 
   /** Route parameter: the recipe to edit; absent on /recipes/new. */
   readonly id = input<string>();
@@ -130,6 +136,7 @@ export class RecipeEditor implements OnInit, LeavesSafely {
       !this.draft.dirty() &&
       this.draft.saveState() === 'idle' &&
       !this.livePending() &&
+      !this.photos.pending() &&
       this.blockers().length === 0,
   );
 
@@ -149,13 +156,28 @@ export class RecipeEditor implements OnInit, LeavesSafely {
     void this.load();
   }
 
-  /** CanDeactivate: ask before unsaved input is thrown away. */
-  canLeave(): Promise<boolean> {
+  /** CanDeactivate: ask before unsaved input or a chosen photo is thrown away. */
+  async canLeave(): Promise<boolean> {
+    const photo = this.photos.pending();
+    if (photo) {
+      const leave = await firstValueFrom(
+        this.dialog
+          .open<ConfirmDialog, ConfirmDialogData, boolean>(ConfirmDialog, {
+            data: {
+              title: 'Leave without the photo?',
+              message: [photo, 'If you leave now, the photo is not added to the recipe.'],
+              confirmLabel: 'Leave without the photo',
+            },
+          })
+          .afterClosed(),
+      );
+      if (leave !== true) return false;
+    }
     return this.draft.canLeave();
   }
 
   protected warnBeforeUnload(event: BeforeUnloadEvent): void {
-    if (this.draft.unsaved()) event.preventDefault();
+    if (this.draft.unsaved() || this.photos.pending()) event.preventDefault();
   }
 
   protected goToSection(id: string): void {

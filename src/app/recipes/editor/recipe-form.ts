@@ -1,7 +1,20 @@
 import { type AbstractControl, FormGroup, type NonNullableFormBuilder, type ValidationErrors, type ValidatorFn, Validators } from '@angular/forms';
 import type { QuantityKind } from '@shared/units';
 import { type RecipeContent, recipeContent } from '@shared/schemas/recipe';
-import type { ClampingMethod, CoolantType, CutMotion, CutOrientation, HardnessScale, MaterialGroup, Shape, WheelPath } from '@shared/vocabulary';
+import {
+  type ClampingMethod,
+  type CoolantType,
+  type CutMotion,
+  type CutOrientation,
+  type HardnessScale,
+  MOTION_SETTING_LABELS,
+  MOTION_SETTINGS,
+  type MaterialGroup,
+  type MotionSetting,
+  type Shape,
+  type WheelPath,
+} from '@shared/vocabulary';
+import { MOTION_SETTING_UNITS, settingsOfMotion } from '@shared/motion-settings';
 import { requiredText } from '@shared/schemas/numbers';
 import { toFieldErrors } from '@shared/validation';
 import { zodValidator } from '../../core/forms/zod-validator';
@@ -44,6 +57,16 @@ export function buildRecipeForm(fb: NonNullableFormBuilder) {
         entryLengthMm: num(),
         cutMotion: fb.control<CutMotion | null>('straight-plunge'),
         passes: num(),
+        // The cut motion's settings (the section shows the chosen motion's only).
+        pulseAdvanceMm: num(),
+        pulseRetractMm: num(),
+        pulseFeedS: num(),
+        pulsePauseS: num(),
+        rockingAngleDeg: num(),
+        rockingStrokeMm: num(),
+        specimenRpm: num(),
+        depthPerPassMm: num(),
+        stepDepthMm: num(),
       }),
       clamping: fb.group({
         method: fb.control<ClampingMethod | null>(null),
@@ -101,6 +124,7 @@ export function toContent(value: FormContent): RecipeContent {
     cutting: {
       ...cutting,
       passes: cutting.cutMotion && MOTIONS_WITH_PASSES.includes(cutting.cutMotion) ? cutting.passes : null,
+      ...chosenMotionSettings(cutting),
     },
     clamping: { ...value.clamping },
     coolant: {
@@ -113,6 +137,12 @@ export function toContent(value: FormContent): RecipeContent {
     cautionsMd: value.cautionsMd,
     changeReason: value.changeReason,
   } as RecipeContent;
+}
+
+/** Every motion setting, the chosen motion's as typed and the others null. */
+function chosenMotionSettings(cutting: FormContent['cutting']): Record<MotionSetting, number | null> {
+  const used = settingsOfMotion(cutting.cutMotion);
+  return Object.fromEntries(MOTION_SETTINGS.map((key) => [key, used.includes(key) ? cutting[key] : null])) as Record<MotionSetting, number | null>;
 }
 
 /** The form value for stored content (the inverse of toContent). */
@@ -133,7 +163,8 @@ export function fromContent(content: RecipeContent): FormContent {
       orientation: scope.orientation,
       orientationNote: scope.orientationNote,
     },
-    cutting: { ...content.cutting },
+    // Content stored before the motion settings existed has none of their keys: "not given".
+    cutting: { ...content.cutting, ...Object.fromEntries(MOTION_SETTINGS.map((key) => [key, content.cutting[key] ?? null])) },
     // Content stored before the wheel path existed has no key: "not given".
     clamping: { ...content.clamping, wheelPath: content.clamping.wheelPath ?? null },
     coolant: { ...content.coolant },
@@ -249,6 +280,12 @@ export const FIELD_INFO: Record<string, FieldInfo> = {
   'cutting.entryLengthMm': { label: 'Entry length', unit: 'mm', kind: 'length' },
   'cutting.cutMotion': { label: 'Cut motion' },
   'cutting.passes': { label: 'Passes' },
+  ...Object.fromEntries(
+    MOTION_SETTINGS.map((key): [string, FieldInfo] => [
+      `cutting.${key}`,
+      { label: MOTION_SETTING_LABELS[key], unit: MOTION_SETTING_UNITS[key], ...(MOTION_SETTING_UNITS[key] === 'mm' ? { kind: 'length' as const } : {}) },
+    ]),
+  ),
   'clamping.method': { label: 'Clamping method' },
   'clamping.placement': { label: 'Clamp placement' },
   'clamping.bothSides': { label: 'Clamps on both sides of the cut' },

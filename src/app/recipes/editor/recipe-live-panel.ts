@@ -7,6 +7,7 @@ import { formatHardness } from '@shared/hardness';
 import type { CheckResult, CheckSeverity } from '@shared/recipe-checks';
 import type { MarkedMaximum, RecipeComputed } from '@shared/recipe-computations';
 import { markedMaximumText } from '@shared/spindle-speed';
+import { CHECK_SEVERITY_MARKS } from '@shared/status-colours';
 import { NO_VALUE, type QuantityKind, formatQuantity } from '@shared/units';
 import { CUT_POWER_LABELS } from '@shared/vocabulary';
 import { FIELD_INFO } from './recipe-form';
@@ -16,10 +17,11 @@ import { WornWheelValues } from '../../ui/cutting-geometry/worn-wheel-values';
 import { CutPowerPlot } from '../../ui/cut-profile-plot/cut-power-plot';
 import { CutPowerFigures } from '../../ui/cut-power-figures/cut-power-figures';
 
+/** Icon and word from the shared status language (shared/status-colours.ts). */
 const SEVERITY: Record<CheckSeverity, { icon: string; label: string; plural: string }> = {
-  blocker: { icon: 'block', label: 'Blocker', plural: 'blockers' },
-  warning: { icon: 'warning', label: 'Warning', plural: 'warnings' },
-  note: { icon: 'info', label: 'Note', plural: 'notes' },
+  blocker: { ...CHECK_SEVERITY_MARKS.blocker, plural: 'blockers' },
+  warning: { ...CHECK_SEVERITY_MARKS.warning, plural: 'warnings' },
+  note: { ...CHECK_SEVERITY_MARKS.note, plural: 'notes' },
 };
 
 /**

@@ -1,7 +1,7 @@
 import { type ComponentFixture, TestBed } from '@angular/core/testing';
 import { MAT_DIALOG_DATA, MatDialogRef } from '@angular/material/dialog';
 import type { RecipeVersionDto } from '@shared/recipe-types';
-import type { RecipeContent } from '@shared/schemas/recipe';
+import { NO_MOTION_SETTINGS, type RecipeContent } from '@shared/schemas/recipe';
 import { type DraftBody, SaveConflictDialog, differences, merge } from './save-conflict-dialog';
 
 const content = (over: { rpm?: number; hardness?: RecipeContent['scope']['hardness']; instructions?: string } = {}) =>
@@ -27,6 +27,7 @@ const content = (over: { rpm?: number; hardness?: RecipeContent['scope']['hardne
       entryLengthMm: null,
       cutMotion: 'straight-plunge',
       passes: null,
+      ...NO_MOTION_SETTINGS,
     },
     clamping: { method: 'v-block', placement: '', bothSides: true, softInserts: false, supportBlocks: false, orientationRule: '', wheelPath: null },
     coolant: { type: 'water-soluble', concentrationPct: 4, flowLMin: null },

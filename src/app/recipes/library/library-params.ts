@@ -24,6 +24,8 @@ export interface LibraryParams {
   shape: Shape | '';
   machineId: number | null;
   status: RecipeStatus | '';
+  /** 'overdue': only recipes whose periodic review date has passed. */
+  review: 'overdue' | '';
   /** A size the recipe must cover, mm. */
   size: number | null;
   /** A hardness the recipe must cover, on `scale`. */
@@ -41,6 +43,7 @@ export const LIBRARY_DEFAULTS: LibraryParams = {
   shape: '',
   machineId: null,
   status: '',
+  review: '',
   size: null,
   hardness: null,
   scale: 'HV',
@@ -73,6 +76,7 @@ export function readLibraryParams(map: ParamMap): LibraryParams {
     shape: oneOf(map.get('shape'), SHAPES),
     machineId: id !== null && Number.isInteger(id) ? id : null,
     status: oneOf(map.get('status'), RECIPE_STATUSES),
+    review: oneOf(map.get('review'), ['overdue'] as const),
     size: positiveNumber(map.get('size')),
     hardness: positiveNumber(map.get('hardness')),
     scale: oneOf(map.get('scale'), HARDNESS_SCALES) || 'HV',
@@ -92,6 +96,7 @@ export function toLibraryQueryParams(p: LibraryParams): Params {
     shape: p.shape || null,
     machine: p.machineId ?? null,
     status: p.status || null,
+    review: p.review || null,
     size: p.size ?? null,
     hardness: p.hardness ?? null,
     scale: p.hardness !== null && p.scale !== 'HV' ? p.scale : null,
@@ -125,6 +130,7 @@ export function toRecipeListQuery(p: LibraryParams): Partial<RecipeListQuery> {
     shape: p.shape || undefined,
     machineId: p.machineId ?? undefined,
     status: p.status || undefined,
+    review: p.review || undefined,
     size: p.size ?? undefined,
     hardnessHv: hardnessInHv(p),
   };

@@ -112,7 +112,9 @@ describe('Library', () => {
   });
 
   it('takes filters, order and page from the URL, converting the hardness to HV', async () => {
-    await open('/library?group=stainless-steel&shape=tube&machine=4&status=approved&size=30&hardness=38&scale=HRC&sort=updatedAt&dir=desc&page=2&q=flange');
+    await open(
+      '/library?group=stainless-steel&shape=tube&machine=4&status=approved&review=overdue&size=30&hardness=38&scale=HRC&sort=updatedAt&dir=desc&page=2&q=flange',
+    );
     const { req, params } = await nextListRequest();
     // ASTM E140 Table 1: 38 HRC ≈ 372 HV.
     expect(params).toEqual({
@@ -125,6 +127,7 @@ describe('Library', () => {
       shape: 'tube',
       machineId: '4',
       status: 'approved',
+      review: 'overdue',
       size: '30',
       hardnessHv: '372',
     });
@@ -132,7 +135,35 @@ describe('Library', () => {
     await harness.fixture.whenStable();
     expect(root().querySelector('[data-testid="hardness-note"]')?.textContent).toContain('372 HV');
     const filters = await TestbedHarnessEnvironment.loader(harness.fixture).getAllHarnesses(MatSelectHarness.with({ ancestor: '.kb-filters' }));
-    expect(await Promise.all(filters.map((s) => s.getValueText()))).toEqual(['Stainless steels', 'HRC', 'Tube', 'Precision saw P1', 'Approved']);
+    expect(await Promise.all(filters.map((s) => s.getValueText()))).toEqual([
+      'Stainless steels',
+      'HRC',
+      'Tube',
+      'Precision saw P1',
+      'Approved',
+      'Review overdue',
+    ]);
+  });
+
+  it('marks a recipe whose periodic review has passed, and filters to those', async () => {
+    await open('/library');
+    (await nextListRequest()).req.flush(
+      page(2, 0, [aRecipeSummary({ reviewDueOn: '2026-01-10', reviewOverdue: true }), aRecipeSummary({ id: 9, number: 'KB-0009', reviewDueOn: '2027-06-01' })]),
+    );
+    await harness.fixture.whenStable();
+    const cells = Array.from(root().querySelectorAll('td.kb-review-due'));
+    expect(cells[0].querySelector('kb-review-overdue-chip')?.textContent).toContain('Review overdue');
+    expect(cells[0].querySelector('kb-review-overdue-chip')?.getAttribute('title')).toBe('The periodic review was due on 2026-01-10');
+    expect(cells[1].querySelector('kb-review-overdue-chip')).toBeNull();
+    expect(cells[1].textContent?.trim()).toBe('2027-06-01');
+
+    const review = await TestbedHarnessEnvironment.loader(harness.fixture).getHarness(MatSelectHarness.with({ selector: '.kb-review-filter' }));
+    const choosing = review.clickOptions({ text: 'Review overdue' });
+    const { req, params } = await nextListRequest();
+    expect(params).toMatchObject({ review: 'overdue', page: '0' });
+    expect(queryParams()).toEqual({ review: 'overdue' });
+    req.flush(page(0, 0, []));
+    await choosing;
   });
 
   it('puts a chosen filter in the URL and asks again from the first page', async () => {

@@ -25,6 +25,7 @@ import {
   type MaterialGroup,
   RECIPE_STATUSES,
   RECIPE_STATUS_LABELS,
+  REVIEW_OVERDUE_LABEL,
   type RecipeStatus,
   SHAPES,
   SHAPE_LABELS,
@@ -35,6 +36,7 @@ import { Session } from '../../core/session/session';
 import { CheckSeverityLabel } from '../../ui/check-severity-label';
 import { RecipeApi } from '../../core/api/recipe-api';
 import { RecipeStatusChip } from '../../ui/recipe-status-chip';
+import { ReviewOverdueChip } from '../../ui/review-overdue-chip';
 import { PagedTable } from '../../ui/paged-table';
 import { QuantityPipe } from '../../ui/quantity';
 import { StockApi } from '../../core/api/stock-api';
@@ -47,6 +49,8 @@ import {
   toLibraryQueryParams,
   toRecipeListQuery,
 } from './library-params';
+import { controlMessage } from '../../core/forms/control-message';
+import { DecimalInput } from '../../ui/decimal-input';
 
 /** How long the text filters wait for typing to pause before the view changes. */
 export const LIBRARY_TYPING_DEBOUNCE_MS = 300;
@@ -55,6 +59,7 @@ export const LIBRARY_TYPING_DEBOUNCE_MS = 300;
 @Component({
   selector: 'kb-library',
   imports: [
+    DecimalInput,
     CheckSeverityLabel,
     DatePipe,
     MatButtonModule,
@@ -68,6 +73,7 @@ export const LIBRARY_TYPING_DEBOUNCE_MS = 300;
     QuantityPipe,
     ReactiveFormsModule,
     RecipeStatusChip,
+    ReviewOverdueChip,
     RouterLink,
   ],
   templateUrl: './library.html',
@@ -87,7 +93,8 @@ export class Library {
     initialValue: readLibraryParams(this.route.snapshot.queryParamMap),
   });
 
-  protected readonly columns = ['number', 'title', 'size', 'machine', 'wheel', 'version', 'status', 'worstCheck', 'updatedAt'];
+  protected readonly columns = ['number', 'title', 'size', 'machine', 'wheel', 'version', 'status', 'reviewDue', 'worstCheck', 'updatedAt'];
+  protected readonly overdueLabel = REVIEW_OVERDUE_LABEL;
   protected readonly pageSizeOptions = LIBRARY_PAGE_SIZES;
   protected readonly groups = MATERIAL_GROUPS.map((id) => ({ id, label: MATERIAL_GROUP_LABELS[id] }));
   protected readonly shapes = SHAPES.map((id) => ({ id, label: SHAPE_LABELS[id] }));
@@ -98,12 +105,14 @@ export class Library {
   protected readonly canCreate = computed(() => hasAccess(this.session.roles(), ['author']));
   protected readonly units = computed(() => this.session.user()?.units ?? 'metric');
 
+  protected readonly controlMessage = controlMessage;
   protected readonly filters = this.fb.group({
     q: [this.params().q],
     group: this.fb.control<MaterialGroup | ''>(this.params().group),
     shape: this.fb.control<Shape | ''>(this.params().shape),
     machineId: this.fb.control<number | null>(this.params().machineId),
     status: this.fb.control<RecipeStatus | ''>(this.params().status),
+    review: this.fb.control<'overdue' | ''>(this.params().review),
     size: this.fb.control<number | null>(this.params().size),
     hardness: this.fb.control<number | null>(this.params().hardness),
     scale: this.fb.control<HardnessScale>(this.params().scale),
@@ -129,7 +138,7 @@ export class Library {
   });
   protected readonly hasFilters = computed(() => {
     const p = this.params();
-    return !!(p.q || p.group || p.shape || p.machineId || p.status || p.size || p.hardness);
+    return !!(p.q || p.group || p.shape || p.machineId || p.status || p.review || p.size || p.hardness);
   });
 
   private readonly list = rxResource({ params: () => toRecipeListQuery(this.params()), stream: ({ params }) => this.api.list(params) });
@@ -143,7 +152,7 @@ export class Library {
     const c = this.filters.controls;
     merge(
       merge(c.q.valueChanges, c.size.valueChanges, c.hardness.valueChanges).pipe(debounceTime(LIBRARY_TYPING_DEBOUNCE_MS)),
-      merge(c.group.valueChanges, c.shape.valueChanges, c.machineId.valueChanges, c.status.valueChanges, c.scale.valueChanges),
+      merge(c.group.valueChanges, c.shape.valueChanges, c.machineId.valueChanges, c.status.valueChanges, c.scale.valueChanges, c.review.valueChanges),
     )
       .pipe(takeUntilDestroyed())
       .subscribe(() => this.applyFilters());
@@ -172,7 +181,7 @@ export class Library {
   }
 
   protected clearFilters(): void {
-    this.navigate({ ...this.params(), q: '', group: '', shape: '', machineId: null, status: '', size: null, hardness: null, page: 0 }, false);
+    this.navigate({ ...this.params(), q: '', group: '', shape: '', machineId: null, status: '', review: '', size: null, hardness: null, page: 0 }, false);
   }
 
   protected openRecipe(recipe: RecipeSummary): void {
@@ -189,6 +198,7 @@ export class Library {
       shape: f.shape,
       machineId: f.machineId,
       status: f.status,
+      review: f.review,
       size: f.size !== null && f.size > 0 ? f.size : null,
       hardness: f.hardness !== null && f.hardness > 0 ? f.hardness : null,
       scale: f.scale,
@@ -210,6 +220,7 @@ export class Library {
     if (c.shape.value !== p.shape) c.shape.setValue(p.shape, quiet);
     if (c.machineId.value !== p.machineId) c.machineId.setValue(p.machineId, quiet);
     if (c.status.value !== p.status) c.status.setValue(p.status, quiet);
+    if (c.review.value !== p.review) c.review.setValue(p.review, quiet);
     if ((c.size.value || null) !== p.size) c.size.setValue(p.size, quiet);
     if ((c.hardness.value || null) !== p.hardness) c.hardness.setValue(p.hardness, quiet);
     if (c.scale.value !== p.scale) c.scale.setValue(p.scale, quiet);

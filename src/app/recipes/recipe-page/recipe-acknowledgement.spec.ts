@@ -231,4 +231,9 @@ describe('RecipePage acknowledgements', () => {
       expect(labels).not.toContain('Acknowledgements');
     });
   });
+
+  it('puts the "not for use" banner above a withdrawn version an operator opens', async () => {
+    await open([aRecipeVersion({ version: 1, status: 'withdrawn' })]);
+    expect(words(root().querySelector('[data-testid="not-for-use"]'))).toContain('Not for use — KB-0003 has no version in use.');
+  });
 });

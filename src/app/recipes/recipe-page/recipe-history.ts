@@ -5,7 +5,7 @@ import type { RecipeVersionDto } from '@shared/recipe-types';
 import { SignatureList } from '../../ui/signature-list';
 import { RecipeStatusChip } from '../../ui/recipe-status-chip';
 
-/** Every version of a recipe, newest first: status, dates, author, change reason, signatures and links. */
+/** Every version of a recipe, newest first: status, dates, author, change reason, returned rounds, signatures and links. */
 @Component({
   selector: 'kb-recipe-history',
   imports: [DatePipe, RecipeStatusChip, RouterLink, SignatureList],
@@ -62,6 +62,19 @@ import { RecipeStatusChip } from '../../ui/recipe-status-chip';
             <dt>Change reason</dt>
             <dd>{{ item.content.changeReason || (item.version === 1 ? 'First version' : '—') }}</dd>
           </dl>
+          @if (wf?.returns?.length) {
+            <section class="kb-returns" [attr.aria-label]="'Returned rounds of version ' + item.version">
+              <p class="kb-returns-title">Returned to its author {{ wf!.returns!.length === 1 ? 'once' : wf!.returns!.length + ' times' }}</p>
+              <ol class="kb-returns-list">
+                @for (round of wf!.returns!; track $index) {
+                  <li data-testid="returned-round">
+                    Returned <time [attr.datetime]="round.returnedAt">{{ round.returnedAt | date: 'd MMM y, HH:mm' : 'UTC' }} UTC</time> by
+                    {{ round.returnedBy.name }}: <span class="kb-returns-comment">{{ round.comment }}</span>
+                  </li>
+                }
+              </ol>
+            </section>
+          }
           @if (wf?.signatures?.length) {
             <kb-signature-list [signatures]="wf!.signatures" />
           }
@@ -118,6 +131,25 @@ import { RecipeStatusChip } from '../../ui/recipe-status-chip';
     }
     dd {
       margin: 0;
+    }
+    .kb-returns {
+      display: grid;
+      gap: 4px;
+      font: var(--mat-sys-body-medium);
+    }
+    .kb-returns-title {
+      margin: 0;
+      color: var(--mat-sys-on-surface-variant);
+    }
+    .kb-returns-list {
+      margin: 0;
+      padding-left: 20px;
+      display: grid;
+      gap: 2px;
+    }
+    /* A comment written on several lines keeps its lines. */
+    .kb-returns-comment {
+      white-space: pre-line;
     }
   `,
   changeDetection: ChangeDetectionStrategy.OnPush,

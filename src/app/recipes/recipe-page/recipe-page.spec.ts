@@ -128,6 +128,7 @@ describe('RecipePage', () => {
     // 60 000·80/(π·250) = 6111.5 rpm, floored.
     expect(root().querySelector('[data-testid="marked-maximum"]')!.textContent!.trim()).toBe('80 m/s (marked) · 6111 rpm at 250 mm');
     expect(root().querySelector('[data-testid="restrictions"]')!.textContent!.trim()).toBe('Not for side grinding');
+    await (await TestbedHarnessEnvironment.loader(harness.fixture).getHarness(MatTabGroupHarness)).selectTab({ label: 'Instructions' });
     const cautions = root().querySelector('kb-standard-cautions')!;
     const fire = cautions.querySelector('[data-caution="combustible-fines"]')!.textContent!;
     expect(fire).toContain('Metal fines that can burn');
@@ -168,8 +169,47 @@ describe('RecipePage', () => {
     expect(parameters).toContain('0.50 mm/s');
     expect(parameters).toContain('Vise with backstop');
     expect(parameters).toContain('5 % v/v');
-    // The standard cautions sit under the tabs, with the line that local rules take precedence.
+    // The standard cautions sit once on the page, in the Instructions tab beside the recipe's own,
+    // with the line that local rules take precedence.
+    expect(root().querySelector('kb-standard-cautions')).toBeNull();
+    await tabs.selectTab({ label: 'Instructions' });
+    expect(root().querySelectorAll('kb-standard-cautions')).toHaveLength(1);
     expect(root().querySelector('kb-standard-cautions')!.textContent).toContain("the machine's manual and the lab's licensed safety practice take precedence");
+  });
+
+  it('shows the cut motion’s settings under Speeds and motion, and "not given" for content stored without them', async () => {
+    await open('/recipes/3');
+    const pulsed = aRecipeVersion({ version: 2, status: 'draft' });
+    pulsed.content = { ...pulsed.content, cutting: { ...pulsed.content.cutting, cutMotion: 'pulsed-plunge', pulseAdvanceMm: 0.5, pulseRetractMm: 0.2 } };
+    // Version 1 as an older Kerfbook stored it: a rocking cut, no setting keys at all.
+    const older = aRecipeVersion({ version: 1, status: 'approved' });
+    const { rockingAngleDeg: _a, rockingStrokeMm: _s, ...cuttingWithout } = { ...older.content.cutting, cutMotion: 'rocking' as const };
+    older.content = { ...older.content, cutting: cuttingWithout as typeof older.content.cutting };
+    await answerVersions([pulsed, older]);
+    await answerStock();
+    const speeds = root().querySelector('[aria-labelledby="kb-speeds"]')!;
+    const rows = Array.from(speeds.querySelectorAll('dt')).map((dt) => `${dt.textContent!.trim()}: ${dt.nextElementSibling!.textContent!.trim()}`);
+    expect(rows.slice(-3)).toEqual(['Cut motion: Pulsed plunge', 'Advance per pulse: 0.50 mm', 'Retract per pulse: 0.20 mm']);
+    expect(speeds.querySelector('[data-testid="motion-settings-missing"]')).toBeNull();
+
+    await harness.navigateByUrl('/recipes/3?v=1');
+    await harness.fixture.whenStable();
+    await vi.waitFor(() => expect(root().querySelector('[data-testid="motion-settings-missing"]')?.textContent).toBe('Not given'));
+    expect(root().querySelector('[data-testid="motion-pulseAdvanceMm"]')).toBeNull();
+  });
+
+  it('shows the standard cautions once, in the Instructions tab only, not under every tab', async () => {
+    await open('/recipes/3');
+    await answerVersions([draft, approved]);
+    await answerStock();
+    const tabs = await TestbedHarnessEnvironment.loader(harness.fixture).getHarness(MatTabGroupHarness);
+    const found: string[] = [];
+    for (const label of ['Parameters', 'Computed', 'Checks', 'Instructions']) {
+      await tabs.selectTab({ label: new RegExp(`^${label}`) });
+      const count = root().querySelectorAll('kb-standard-cautions').length;
+      if (count) found.push(`${label}: ${count}`);
+    }
+    expect(found).toEqual(['Instructions: 1']);
   });
 
   it('lists the checks worst first, each with an icon and a word for its severity', async () => {
@@ -448,6 +488,33 @@ describe('RecipePage', () => {
       expect(items[1].textContent).toContain('Superseded');
       expect(items[1].querySelector('a[href="/recipes/3?v=1"]')).not.toBeNull();
       expect(items[1].querySelector('a[href*="compare"]')).toBeNull();
+    });
+
+    it('shows in the History tab each time a version was returned: who, when and the comment', async () => {
+      const current = aRecipeVersion({
+        version: 1,
+        status: 'approved',
+        workflow: workflow({
+          signatures: [signature],
+          returns: [
+            { returnedAt: '2026-11-21T10:00:00.000Z', returnedBy: { id: 9, name: 'Tomas Berg' }, comment: 'Feed is too high for this hardness.' },
+            { returnedAt: '2026-11-24T15:45:00.000Z', returnedBy: { id: 11, name: 'Aino Virta' }, comment: 'Give the clamp positions in mm.' },
+          ],
+        }),
+      });
+      await open('/recipes/3', ['auditor']);
+      await answerVersions([current]);
+      await answerStock();
+      const tabs = await TestbedHarnessEnvironment.loader(harness.fixture).getHarness(MatTabGroupHarness);
+      await tabs.selectTab({ label: 'History' });
+      await harness.fixture.whenStable();
+
+      const rounds = Array.from(root().querySelectorAll<HTMLElement>('.kb-history-item [data-testid="returned-round"]'));
+      expect(rounds.map((r) => r.textContent!.replace(/\s+/g, ' ').trim())).toEqual([
+        'Returned 21 Nov 2026, 10:00 UTC by Tomas Berg: Feed is too high for this hardness.',
+        'Returned 24 Nov 2026, 15:45 UTC by Aino Virta: Give the clamp positions in mm.',
+      ]);
+      expect(root().querySelector('.kb-history-item')!.textContent).toContain('Returned to its author 2 times');
     });
   });
 

@@ -10,6 +10,7 @@ import { MatSelectModule } from '@angular/material/select';
 import { MatTabsModule } from '@angular/material/tabs';
 import { Router, RouterLink } from '@angular/router';
 import { EMPTY, catchError, distinctUntilChanged, firstValueFrom, switchMap } from 'rxjs';
+import { motionSettingRows, motionSettingsMissing } from '@shared/motion-settings';
 import { NO_SAFETY_CLAIM, recipeCautions } from '@shared/cautions';
 import type { CheckResult, CheckSeverity } from '@shared/recipe-checks';
 import { computeRecipe } from '@shared/recipe-computations';
@@ -31,6 +32,7 @@ import {
 } from '@shared/vocabulary';
 import { askToAcknowledge } from '../../ui/acknowledge-dialog';
 import { mustAcknowledge } from '../../ui/acknowledgement-state';
+import { NotForUseBanner } from './not-for-use-banner';
 import { AcknowledgementsPanel } from '../acknowledge/acknowledgements-panel';
 import { isApiError } from '../../core/http/api-error';
 import { callerHandles } from '../../core/http/caller-handles';
@@ -50,6 +52,8 @@ import { ReviewComments } from '../review/review-comments';
 import { SignatureDialog, type SignatureDialogData, type SignatureDialogResult } from '../review/signature-dialog';
 import { SignatureList } from '../../ui/signature-list';
 import { utcToday } from '../../core/dates/calendar';
+import { isReviewOverdue } from '@shared/review-due';
+import { ReviewOverdueChip } from '../../ui/review-overdue-chip';
 import { WorkflowApi } from '../../core/api/workflow-api';
 import { MarkdownView } from '../../ui/markdown-view';
 import { LogCutDialog, type LogCutDialogData } from '../../ui/log-cut-dialog/log-cut-dialog';
@@ -71,6 +75,7 @@ const ATTACHMENT_ROLE_LABELS = { setup: 'Setup', 'good-face': 'Good cut face', '
 @Component({
   selector: 'kb-recipe-page',
   imports: [
+    ReviewOverdueChip,
     AcknowledgementsPanel,
     CheckSeverityLabel,
     CommentsPanel,
@@ -85,6 +90,7 @@ const ATTACHMENT_ROLE_LABELS = { setup: 'Setup', 'good-face': 'Good cut face', '
     MatProgressBarModule,
     MatSelectModule,
     MatTabsModule,
+    NotForUseBanner,
     QuantityPipe,
     RecipeCutPower,
     RecipeCuts,
@@ -184,6 +190,8 @@ export class RecipePage {
     const from = v.workflow?.effectiveFrom;
     return !from || from <= this.today;
   });
+  /** The version in force is past its periodic review date: marked, never blocked. */
+  protected readonly reviewOverdue = computed(() => this.isCurrent() && isReviewOverdue(this.version()?.workflow?.reviewDueOn, this.today));
   protected readonly canLogCut = computed(() => this.isCurrent() && hasAccess(this.session.roles(), ['operator']));
   /** A new version of the operator's machine's recipe: read and understood before its sheet opens. */
   protected readonly mustAcknowledge = computed(() => hasAccess(this.session.roles(), ['operator']) && mustAcknowledge(this.version()));
@@ -212,6 +220,15 @@ export class RecipePage {
   });
   /** The capacity in words, with the geometric limit that applies. */
   protected readonly capacity = computed(() => capacityWords(this.computed(), this.units()));
+  /** The cut motion's settings, one row each; older content has none. */
+  protected readonly motionRows = computed(() => {
+    const c = this.version()?.content;
+    return c ? motionSettingRows(c, this.units()) : [];
+  });
+  protected readonly motionNotGiven = computed(() => {
+    const c = this.version()?.content;
+    return c ? motionSettingsMissing(c) : false;
+  });
 
   /** The cautions this version's material, coolant or flags call for, beside the standard ones. */
   protected readonly recipeCautions = computed(() => {
@@ -355,7 +372,7 @@ export class RecipePage {
     const saved = await firstValueFrom(
       this.dialog
         .open<LogCutDialog, LogCutDialogData, CutRecordDto>(LogCutDialog, {
-          data: { recipeId: v.recipeId, number: v.number, title: v.title, version: v.version },
+          data: { recipeId: v.recipeId, number: v.number, title: v.title, version: v.version, mustAcknowledge: this.mustAcknowledge() },
           width: '600px',
           maxWidth: '95vw',
           autoFocus: 'first-tabbable',

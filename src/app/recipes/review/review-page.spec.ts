@@ -7,7 +7,7 @@ import { MatCheckboxHarness } from '@angular/material/checkbox/testing';
 import { Router, provideRouter, withComponentInputBinding } from '@angular/router';
 import { RouterTestingHarness } from '@angular/router/testing';
 import type { RecipeComparison, RecipeVersionDto } from '@shared/recipe-types';
-import { aMachine, aMaterial, aRecipeVersion, aWheel } from '../../../testing/stock-and-recipe-fixtures';
+import { aLabLimits, aMachine, aMaterial, aRecipeVersion, aWheel } from '../../../testing/stock-and-recipe-fixtures';
 import { aUser } from '../../../testing/user-fixture';
 import { errorInterceptor } from '../../core/http/error-interceptor';
 import { Notifier } from '../../core/notifier/notifier';
@@ -83,7 +83,14 @@ describe('ReviewPage', () => {
         provideHttpClientTesting(),
         {
           provide: Session,
-          useValue: { user: signal(aUser({ id: userId, displayName: 'Tomas Berg', roles: ['approver'] })), roles: signal(['approver']), clear: vi.fn() },
+          useValue: {
+            user: signal(aUser({ id: userId, displayName: 'Tomas Berg', roles: ['approver'] })),
+            roles: signal(['approver']),
+            signatureNeedsUsername: signal(false),
+            noteFullSigning: vi.fn(),
+            noteUsernameNeeded: vi.fn(),
+            clear: vi.fn(),
+          },
         },
         { provide: Notifier, useValue: { show: vi.fn() } },
       ],
@@ -100,6 +107,8 @@ describe('ReviewPage', () => {
     (await vi.waitFor(() => backend.expectOne('/api/materials/5'))).flush(aMaterial());
     backend.expectOne('/api/wheels/2').flush(aWheel());
     backend.expectOne('/api/machines/1').flush(aMachine());
+    // The computed figures use the lab's limits, as the recipe page's do.
+    (await vi.waitFor(() => backend.expectOne('/api/settings/limits'))).flush(aLabLimits());
     if (from !== null) {
       (await vi.waitFor(() => backend.expectOne((r) => r.url === '/api/recipes/3/compare'))).flush(comparison);
     }
@@ -145,6 +154,53 @@ describe('ReviewPage', () => {
     expect(Array.from(root().querySelectorAll<HTMLElement>('.kb-check')).map((c) => c.dataset['severity'])).toEqual(['warning', 'warning', 'note']);
     expect(root().querySelector('kb-comparison-view')!.textContent).toContain('0.50 mm/s');
     expect(root().querySelector('kb-comparison-view ins, kb-comparison-view .kb-added, kb-comparison-view [class*="added"]')).not.toBeNull();
+  });
+
+  it('names the cut motion with its settings in the summary', async () => {
+    await open('/recipes/3/review?v=2');
+    const traverse = {
+      ...inReview,
+      content: { ...inReview.content, cutting: { ...inReview.content.cutting, cutMotion: 'traverse-pass' as const, depthPerPassMm: 0.5, passes: 40 } },
+    };
+    await answer([traverse, approvedV1]);
+    const rows = Array.from(root().querySelectorAll('.kb-summary dt')).map((dt) => `${dt.textContent!.trim()}: ${dt.nextElementSibling!.textContent!.trim()}`);
+    expect(rows).toContain('Cut motion: Traverse pass: depth per pass 0.50 mm, 40 passes');
+  });
+
+  /** The summary's value for a label, whitespace collapsed. */
+  function summaryValue(label: string): string | undefined {
+    const terms = Array.from(root().querySelectorAll<HTMLElement>('.kb-summary dt'));
+    const term = terms.find((dt) => dt.textContent?.trim() === label);
+    return term?.nextElementSibling?.textContent?.replace(/\s+/g, ' ').trim();
+  }
+
+  it('summarises the peripheral speed with its margin, the clamp placement and the entry, computed as the recipe page does', async () => {
+    const withEntry: RecipeVersionDto = {
+      ...inReview,
+      content: {
+        ...inReview.content,
+        cutting: { ...inReview.content.cutting, entryFeedMmS: 0.2, entryLengthMm: 5 },
+        clamping: { ...inReview.content.clamping, placement: 'Both sides, 10 mm from the cut' },
+      },
+    };
+    await open('/recipes/3/review?v=2');
+    await answer([withEntry, approvedV1]);
+    // 250 mm wheel at 3000 rpm: v = π · 0.250 m · 3000 / 60 s = 39.27 m/s (v = π·D·n, any
+    // machining textbook); marked maximum 80 m/s, so 80 − 39.27 = 40.73 m/s, 51 % of it. Hand-computed.
+    expect(summaryValue('Peripheral speed')).toBe('39.3 m/s');
+    expect(summaryValue('Margin to the marked maximum')).toBe('40.7 m/s (51 %) below 80.0 m/s');
+    expect(summaryValue('Clamp placement')).toBe('Both sides, 10 mm from the cut');
+    expect(summaryValue('Entry')).toBe('0.20 mm/s for the first 5.00 mm');
+  });
+
+  it('says when the wheel would run over its marked maximum', async () => {
+    const tooFast: RecipeVersionDto = { ...inReview, content: { ...inReview.content, cutting: { ...inReview.content.cutting, wheelRpm: 7000 } } };
+    await open('/recipes/3/review?v=2');
+    await answer([tooFast, approvedV1]);
+    // π · 0.250 · 7000 / 60 = 91.63 m/s, 11.63 m/s (15 %) over the marked 80 m/s. Hand-computed.
+    expect(summaryValue('Peripheral speed')).toBe('91.6 m/s');
+    expect(summaryValue('Margin to the marked maximum')).toBe('over 80.0 m/s by 11.6 m/s (15 %)');
+    expect(summaryValue('Entry')).toBe('none: the whole cut at the feed');
   });
 
   it('keeps "Approve…" disabled until every warning is acknowledged, then signs with their ids', async () => {

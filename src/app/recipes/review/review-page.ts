@@ -8,18 +8,23 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { Router, RouterLink } from '@angular/router';
 import { firstValueFrom } from 'rxjs';
+import { cutMotionText } from '@shared/motion-settings';
 import { NO_SAFETY_CLAIM } from '@shared/cautions';
 import type { CheckResult, CheckSeverity } from '@shared/recipe-checks';
+import { computeRecipe, type RecipeComputed } from '@shared/recipe-computations';
 import type { RecipeComparison, RecipeVersionDto } from '@shared/recipe-types';
-import { CLAMPING_METHOD_LABELS, COOLANT_TYPE_LABELS, CUT_MOTION_LABELS, MACHINE_CLASS_LABELS, MATERIAL_GROUP_LABELS, SHAPE_LABELS } from '@shared/vocabulary';
+import { CLAMPING_METHOD_LABELS, COOLANT_TYPE_LABELS, MACHINE_CLASS_LABELS, MATERIAL_GROUP_LABELS, SHAPE_LABELS } from '@shared/vocabulary';
 import { callerHandles } from '../../core/http/caller-handles';
 import { Notifier } from '../../core/notifier/notifier';
 import { Session } from '../../core/session/session';
 import { CheckSeverityLabel } from '../../ui/check-severity-label';
 import { recipeVersions } from '../../core/api/recipe-versions';
 import { type StockNames, stockNamesOf } from '../../core/api/stock-names';
+import { labLimitsWhen } from '../../core/api/lab-limits';
 import { RecipeStatusChip } from '../../ui/recipe-status-chip';
 import { formatMetric } from '../../ui/quantity';
+import type { UnitPreference } from '@shared/api-types';
+import { NO_VALUE } from '@shared/units';
 import { MarkdownView } from '../../ui/markdown-view';
 import { ComparisonView } from '../compare/comparison-view';
 import { ReasonDialog, type ReasonDialogData } from './reason-dialog';
@@ -129,9 +134,20 @@ export class ReviewPage {
     return (v.workflow?.editorIds ?? [v.createdBy.id, v.updatedBy.id]).includes(me);
   });
   protected readonly stockNames = stockNamesOf(() => this.version()?.content);
+  /** The worn wheel's default share and the kerf allowance come from the lab's limits, as on the recipe page. */
+  private readonly labLimits = labLimitsWhen(() => this.version() !== null);
+  /** The same computed figures the recipe page shows; null until the stock and the limits are in. */
+  private readonly computedFigures = computed<RecipeComputed | null>(() => {
+    const v = this.version();
+    const limits = this.labLimits();
+    if (!v || !limits) return null;
+    const { material, wheel, machine } = this.stockNames();
+    // The selection table only matters to the checks, which the server has already run on this content.
+    return computeRecipe(v.content, { material, wheel, machine, limits, selectionRows: [] });
+  });
   protected readonly summary = computed(() => {
     const v = this.version();
-    return v ? this.summarise(v, this.stockNames()) : [];
+    return v ? this.summarise(v, this.stockNames(), this.computedFigures()) : [];
   });
   protected readonly noSafetyClaim = NO_SAFETY_CLAIM;
 
@@ -186,7 +202,7 @@ export class ReviewPage {
     }
   }
 
-  private summarise(v: RecipeVersionDto, stock: StockNames): { label: string; value: string }[] {
+  private summarise(v: RecipeVersionDto, stock: StockNames, figures: RecipeComputed | null): { label: string; value: string }[] {
     const c = v.content;
     const units = this.session.user()?.units ?? 'metric';
     const rows = [
@@ -215,16 +231,37 @@ export class ReviewPage {
           (stock.wheel ? ` · ${stock.wheel.specification} · max ${formatMetric(stock.wheel.maxSpeedMs, 'm/s', units)}` : ''),
       },
       { label: 'Wheel speed', value: formatMetric(c.cutting.wheelRpm, 'rpm', units) },
+      { label: 'Peripheral speed', value: formatMetric(figures?.peripheralSpeedMs, 'm/s', units) },
+      { label: 'Margin to the marked maximum', value: speedMarginWords(figures, units) },
       { label: 'Feed', value: formatMetric(c.cutting.feedMmS, 'mm/s', units) },
-      { label: 'Cut motion', value: CUT_MOTION_LABELS[c.cutting.cutMotion] },
+      { label: 'Entry', value: entryWords(c.cutting, units) },
+      // With its settings, e.g. "Pulsed plunge: advance per pulse 0.50 mm, retract per pulse 0.20 mm".
+      { label: 'Cut motion', value: cutMotionText(c, units) },
       { label: 'Clamping', value: c.clamping.method ? CLAMPING_METHOD_LABELS[c.clamping.method] : 'none chosen' },
+      { label: 'Clamp placement', value: c.clamping.placement.trim() || 'not given' },
       {
         label: 'Coolant',
         value:
           COOLANT_TYPE_LABELS[c.coolant.type] + (c.coolant.concentrationPct !== null ? `, ${formatMetric(c.coolant.concentrationPct, '% v/v', units)}` : ''),
       },
     ];
-    if (c.cutting.entryFeedMmS !== null) rows.splice(8, 0, { label: 'Entry feed', value: formatMetric(c.cutting.entryFeedMmS, 'mm/s', units) });
     return rows;
   }
+}
+
+/** "40.7 m/s (51 %) below 80.0 m/s", or how far over the wheel's marked maximum it runs. */
+function speedMarginWords(figures: RecipeComputed | null, units: UnitPreference): string {
+  if (!figures || figures.speedMarginMs === null || figures.speedMarginPct === null || figures.markedMaxSpeedMs === null) return NO_VALUE;
+  const max = formatMetric(figures.markedMaxSpeedMs, 'm/s', units);
+  const pct = Math.round(Math.abs(figures.speedMarginPct));
+  return figures.speedMarginMs < 0
+    ? `over ${max} by ${formatMetric(-figures.speedMarginMs, 'm/s', units)} (${pct} %)`
+    : `${formatMetric(figures.speedMarginMs, 'm/s', units)} (${pct} %) below ${max}`;
+}
+
+/** The slower entry: its feed and for how far, or that there is none. */
+function entryWords(cutting: RecipeVersionDto['content']['cutting'], units: UnitPreference): string {
+  if (cutting.entryFeedMmS === null) return 'none: the whole cut at the feed';
+  const feed = formatMetric(cutting.entryFeedMmS, 'mm/s', units);
+  return cutting.entryLengthMm !== null ? `${feed} for the first ${formatMetric(cutting.entryLengthMm, 'mm', units)}` : `${feed}, length not given`;
 }

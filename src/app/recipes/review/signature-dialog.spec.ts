@@ -18,12 +18,15 @@ describe('SignatureDialog', () => {
   let root: HTMLElement;
   let dialogRef: { close: ReturnType<typeof vi.fn> };
   let notifier: { show: ReturnType<typeof vi.fn> };
+  let session: { noteFullSigning: ReturnType<typeof vi.fn>; noteUsernameNeeded: ReturnType<typeof vi.fn> };
 
   const version = aRecipeVersion({ version: 2, status: 'in-review', revision: 9, contentHash: 'e3b0c442'.repeat(8) });
 
-  async function open(data: SignatureDialogData): Promise<void> {
+  /** `firstInSession`: no signing with username and password yet in this session. */
+  async function open(data: SignatureDialogData, firstInSession = false): Promise<void> {
     dialogRef = { close: vi.fn() };
     notifier = { show: vi.fn() };
+    session = { noteFullSigning: vi.fn(), noteUsernameNeeded: vi.fn() };
     TestBed.configureTestingModule({
       imports: [SignatureDialog],
       providers: [
@@ -33,7 +36,15 @@ describe('SignatureDialog', () => {
         { provide: MatDialogRef, useValue: dialogRef },
         { provide: MAT_DIALOG_DATA, useValue: data },
         { provide: Notifier, useValue: notifier },
-        { provide: Session, useValue: { user: signal(aUser({ id: 9, displayName: 'Tomas Berg', roles: ['approver'] })), clear: vi.fn() } },
+        {
+          provide: Session,
+          useValue: {
+            user: signal(aUser({ id: 9, displayName: 'Tomas Berg', roles: ['approver'] })),
+            signatureNeedsUsername: signal(firstInSession),
+            clear: vi.fn(),
+            ...session,
+          },
+        },
       ],
     });
     backend = TestBed.inject(HttpTestingController);
@@ -199,5 +210,64 @@ describe('SignatureDialog', () => {
     req.flush({ ...current, status: 'withdrawn' });
     await fixture.whenStable();
     expect(dialogRef.close).toHaveBeenCalled();
+  });
+
+  describe('signature components in a session (21 CFR 11.200(a)(1))', () => {
+    it('asks for the username and the password at the first signing in a session, and sends both', async () => {
+      await open({ meaning: 'approved', version, acknowledgedWarnings: [] }, true);
+      expect(field('username')).not.toBeNull();
+      expect(await text('sign-statement')).toContain('with your username and password is your electronic signature');
+      type('password', 'demo-approver-2026');
+      await sign();
+      backend.expectNone({ method: 'POST', url: '/api/recipes/3/versions/2/approve' });
+      expect(await text('username-error')).toBe('This field is required.');
+
+      type('username', 'tberg');
+      await sign();
+      const req = backend.expectOne({ method: 'POST', url: '/api/recipes/3/versions/2/approve' });
+      expect(req.request.body).toMatchObject({ username: 'tberg', password: 'demo-approver-2026', meaning: 'approved' });
+      const approved = { ...version, status: 'approved' as const, revision: 10 };
+      req.flush(approved);
+      await fixture.whenStable();
+      expect(session.noteFullSigning).toHaveBeenCalled();
+      expect(dialogRef.close).toHaveBeenCalledWith(approved);
+    });
+
+    it('asks for the password only at a later signing in the same session', async () => {
+      await open({ meaning: 'withdrawn', version: aRecipeVersion({ version: 1, status: 'approved', revision: 12 }) }, false);
+      expect(field('username')).toBeNull();
+      expect(await text('sign-statement')).toContain('with your password is your electronic signature');
+    });
+
+    it('shows a wrong username on the username field and keeps the dialog open', async () => {
+      await open({ meaning: 'approved', version, acknowledgedWarnings: [] }, true);
+      type('username', 'someone');
+      type('password', 'demo-approver-2026');
+      await sign();
+      backend
+        .expectOne({ method: 'POST', url: '/api/recipes/3/versions/2/approve' })
+        .flush(
+          { code: 'VALIDATION_FAILED', errors: [{ path: 'username', message: 'This is not the username you are signed in with.' }] },
+          { status: 400, statusText: 'Bad Request' },
+        );
+      expect(await text('username-error')).toBe('This is not the username you are signed in with.');
+      expect(dialogRef.close).not.toHaveBeenCalled();
+      expect(session.noteFullSigning).not.toHaveBeenCalled();
+    });
+
+    it('shows the username field when the server says this session still needs it', async () => {
+      await open({ meaning: 'approved', version, acknowledgedWarnings: [] }, false);
+      type('password', 'demo-approver-2026');
+      await sign();
+      backend
+        .expectOne({ method: 'POST', url: '/api/recipes/3/versions/2/approve' })
+        .flush(
+          { code: 'VALIDATION_FAILED', errors: [{ path: 'username', message: 'Type your username as well as your password.' }] },
+          { status: 400, statusText: 'Bad Request' },
+        );
+      await text('form-error');
+      expect(field('username')).not.toBeNull();
+      expect(session.noteUsernameNeeded).toHaveBeenCalled();
+    });
   });
 });

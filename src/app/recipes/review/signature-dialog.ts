@@ -44,7 +44,8 @@ function notInThePast(control: AbstractControl<string>): ValidationErrors | null
 
 /**
  * Electronic signature for approving or withdrawing a version: shows what is signed and what the
- * signature means, asks for the password again, and sends the signature itself so a wrong
+ * signature means, asks for the username and password at the first signing in a session and
+ * the password alone after that (21 CFR 11.200(a)(1)), and sends the signature itself so a wrong
  * password is answered in place.
  */
 @Component({
@@ -72,7 +73,11 @@ export class SignatureDialog {
   /** The version changed on the server: signing it is no longer possible from here. */
   protected readonly stale = signal(false);
 
+  /** The first signing in a session takes both components; later ones the password only. */
+  protected readonly askUsername = signal(this.session.signatureNeedsUsername());
+
   protected readonly form = this.fb.group({
+    username: ['', this.askUsername() ? [Validators.required, Validators.maxLength(40)] : []],
     password: ['', [Validators.required, zodValidator(enteredPassword)]],
     comment: ['', this.isApproval ? [zodValidator(text('Comment', 2000))] : [Validators.required, zodValidator(requiredText('Reason', 2000))]],
     effectiveDate: [this.today, this.isApproval ? [Validators.required, notInThePast] : []],
@@ -84,7 +89,8 @@ export class SignatureDialog {
       this.form.markAllAsTouched();
       return;
     }
-    const { password, comment, effectiveDate } = this.form.getRawValue();
+    const { username, password, comment, effectiveDate } = this.form.getRawValue();
+    const signer = this.askUsername() ? { username, password } : { password };
     const { recipeId, version, revision } = this.data.version;
     // Field errors, a refused signer and a changed version are all shown here, not as a snack bar.
     const context = callerHandles(400, 403, 409, 429);
@@ -95,11 +101,12 @@ export class SignatureDialog {
             this.api.approve(
               recipeId,
               version,
-              { revision, password, meaning: 'approved', comment, acknowledgedWarnings: [...(this.data.acknowledgedWarnings ?? [])], effectiveDate },
+              { revision, ...signer, meaning: 'approved', comment, acknowledgedWarnings: [...(this.data.acknowledgedWarnings ?? [])], effectiveDate },
               context,
             ),
           )
-        : await firstValueFrom(this.api.withdraw(recipeId, version, { revision, password, meaning: 'withdrawn', reason: comment }, context));
+        : await firstValueFrom(this.api.withdraw(recipeId, version, { revision, ...signer, meaning: 'withdrawn', reason: comment }, context));
+      this.session.noteFullSigning();
       this.dialogRef.close(signed);
     } catch (e) {
       if (!isApiError(e)) throw e;
@@ -109,6 +116,8 @@ export class SignatureDialog {
         this.stale.set(true);
         this.formError.set(STALE_MESSAGE);
       } else if (e.status === 400) {
+        // The server's session needs the username after all (it began anew): ask for it.
+        if (!this.askUsername() && e.errors.some((err) => err.path === 'username')) this.showUsername();
         // The field names of the body match the form's, except the withdrawal reason.
         // A password retyped while the answer was on its way is not the one the server judged.
         const retyped = this.form.controls.password.value !== password;
@@ -123,6 +132,12 @@ export class SignatureDialog {
     } finally {
       this.busy.set(false);
     }
+  }
+
+  private showUsername(): void {
+    this.askUsername.set(true);
+    this.session.noteUsernameNeeded();
+    this.form.controls.username.setValidators([Validators.required, Validators.maxLength(40)]);
   }
 
   protected reload(): void {

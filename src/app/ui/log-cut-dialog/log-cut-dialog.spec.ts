@@ -148,4 +148,49 @@ describe('LogCutDialog', () => {
     expect(text('form-error')).toBe('Only the current version takes cuts. Open the recipe again to see which version is current now.');
     expect(dialogRef.close).not.toHaveBeenCalled();
   });
+
+  it('says why an unacknowledged version takes no cut and links to acknowledging it', async () => {
+    type('specimenId', 'SP-1');
+    await choose('good');
+    await save();
+    backend.expectOne('/api/recipes/3/versions/2/cuts').flush(
+      {
+        code: 'ACKNOWLEDGE_FIRST',
+        errors: [{ path: '', message: 'Acknowledge version 2 of KB-0003 (read and understood) before you log a cut with it.' }],
+      },
+      { status: 409, statusText: 'Conflict' },
+    );
+    await settled();
+    expect(text('acknowledge-first')).toContain('Acknowledge version 2 of KB-0003 (read and understood) before you log a cut with it.');
+    const link = root.querySelector<HTMLAnchorElement>('[data-testid="acknowledge-first"] a')!;
+    expect(link.getAttribute('href')).toBe('/recipes/3/acknowledge?v=2');
+    expect(link.textContent).toContain('Read and acknowledge version 2');
+    expect(root.querySelector<HTMLButtonElement>('button[type="submit"]')!.disabled).toBe(true);
+    expect(text('form-error')).toBe('');
+    expect(dialogRef.close).not.toHaveBeenCalled();
+  });
+});
+
+describe('LogCutDialog for a version still to acknowledge', () => {
+  it('says so before anything is typed and offers no save', async () => {
+    TestBed.configureTestingModule({
+      imports: [LogCutDialog],
+      providers: [
+        provideRouter([]),
+        provideHttpClient(withInterceptors([errorInterceptor])),
+        provideHttpClientTesting(),
+        { provide: MatDialogRef, useValue: { close: vi.fn() } },
+        { provide: MAT_DIALOG_DATA, useValue: { recipeId: 3, number: 'KB-0003', title: 'Tempered bar', version: 2, mustAcknowledge: true } },
+        { provide: Notifier, useValue: { show: vi.fn() } },
+      ],
+    });
+    const fixture = TestBed.createComponent(LogCutDialog);
+    await fixture.whenStable();
+    const root: HTMLElement = fixture.nativeElement;
+    const notice = root.querySelector('[data-testid="acknowledge-first"]')!;
+    expect(notice.textContent).toContain('You have not acknowledged version 2 of KB-0003 yet');
+    expect(notice.querySelector('a')!.getAttribute('href')).toBe('/recipes/3/acknowledge?v=2');
+    expect(root.querySelector<HTMLButtonElement>('button[type="submit"]')!.disabled).toBe(true);
+    TestBed.inject(HttpTestingController).verify();
+  });
 });

@@ -7,6 +7,7 @@ import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { MatRadioModule } from '@angular/material/radio';
+import { RouterLink } from '@angular/router';
 import { firstValueFrom } from 'rxjs';
 import type { CutRecordDto } from '@shared/recipe-types';
 import { cutRecordBody } from '@shared/schemas/operator';
@@ -18,6 +19,7 @@ import { isApiError } from '../../core/http/api-error';
 import { callerHandles } from '../../core/http/caller-handles';
 import { CUT_OUTCOME_ICONS } from '../cut-outcome-label';
 import { CutsApi } from '../../core/api/cuts-api';
+import { DecimalInput } from '../decimal-input';
 
 /** The version the cut was made with. */
 export interface LogCutDialogData {
@@ -25,6 +27,8 @@ export interface LogCutDialogData {
   number: string;
   title: string;
   version: number;
+  /** The operator has not acknowledged this version yet: the server takes no cut until they have. */
+  mustAcknowledge?: boolean;
 }
 
 /** Notes become required once the outcome is anything but good: the author needs to know what was seen. */
@@ -46,7 +50,7 @@ function notesWhenNotGood(group: AbstractControl): ValidationErrors | null {
  */
 @Component({
   selector: 'kb-log-cut-dialog',
-  imports: [MatButtonModule, MatDialogModule, MatFormFieldModule, MatIconModule, MatInputModule, MatRadioModule, ReactiveFormsModule],
+  imports: [DecimalInput, MatButtonModule, MatDialogModule, MatFormFieldModule, MatIconModule, MatInputModule, MatRadioModule, ReactiveFormsModule, RouterLink],
   templateUrl: './log-cut-dialog.html',
   styleUrl: './log-cut-dialog.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -78,6 +82,15 @@ export class LogCutDialog {
   protected readonly formError = signal('');
   protected readonly outcomeError = signal('');
   protected readonly controlMessage = controlMessage;
+  /**
+   * Why no cut can be logged yet: the version waits for this operator's acknowledgement
+   * (known when the dialog opens, or from the server's ACKNOWLEDGE_FIRST answer).
+   */
+  protected readonly acknowledgeFirst = signal(
+    this.data.mustAcknowledge
+      ? `You have not acknowledged version ${this.data.version} of ${this.data.number} yet: read and acknowledge it before you log a cut with it.`
+      : '',
+  );
 
   protected notesMessage(): string {
     const errors = this.form.controls.notes.errors;
@@ -107,6 +120,10 @@ export class LogCutDialog {
       this.ref.close(saved);
     } catch (e) {
       if (!isApiError(e)) throw e;
+      if (e.code === 'ACKNOWLEDGE_FIRST') {
+        this.acknowledgeFirst.set(e.generalMessage);
+        return;
+      }
       if (e.status === 409) {
         this.formError.set(`${e.generalMessage} Open the recipe again to see which version is current now.`);
         return;

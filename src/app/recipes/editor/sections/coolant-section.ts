@@ -8,11 +8,12 @@ import { COOLANT_TYPES, COOLANT_TYPE_LABELS } from '@shared/vocabulary';
 import { controlMessage } from '../../../core/forms/control-message';
 import type { CoolantGroup, FormContent } from '../recipe-form';
 import { InlineChecks } from './inline-checks';
+import { DecimalInput } from '../../../ui/decimal-input';
 
 /** Coolant: its type, and the concentration and flow where they apply. */
 @Component({
   selector: 'kb-coolant-section',
-  imports: [InlineChecks, MatFormFieldModule, MatInputModule, MatSelectModule, ReactiveFormsModule],
+  imports: [DecimalInput, InlineChecks, MatFormFieldModule, MatInputModule, MatSelectModule, ReactiveFormsModule],
   template: `
     @let c = group().controls;
     @let v = value();
@@ -34,7 +35,7 @@ import { InlineChecks } from './inline-checks';
         @if (v.type === 'water-soluble') {
           <mat-form-field>
             <mat-label>Concentration</mat-label>
-            <input matInput id="f-coolant-concentrationPct" type="number" [formControl]="c.concentrationPct" min="0" max="100" step="0.5" />
+            <input matInput id="f-coolant-concentrationPct" kbDecimal [formControl]="c.concentrationPct" />
             <span matTextSuffix>% v/v</span>
             <mat-error>{{ controlMessage(c.concentrationPct.errors) }}</mat-error>
           </mat-form-field>
@@ -42,7 +43,7 @@ import { InlineChecks } from './inline-checks';
         @if (v.type !== 'dry') {
           <mat-form-field>
             <mat-label>Flow (optional)</mat-label>
-            <input matInput id="f-coolant-flowLMin" type="number" [formControl]="c.flowLMin" min="0" />
+            <input matInput id="f-coolant-flowLMin" kbDecimal [formControl]="c.flowLMin" />
             <span matTextSuffix>L/min</span>
             <mat-error>{{ controlMessage(c.flowLMin.errors) }}</mat-error>
           </mat-form-field>

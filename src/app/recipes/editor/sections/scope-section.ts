@@ -12,11 +12,12 @@ import { controlMessage } from '../../../core/forms/control-message';
 import type { FormContent, ScopeGroup } from '../recipe-form';
 import { imperialHint } from './imperial-hint';
 import { InlineChecks } from './inline-checks';
+import { DecimalInput } from '../../../ui/decimal-input';
 
 /** Scope: one material or a group with a hardness window, shape, size window and cut orientation. */
 @Component({
   selector: 'kb-scope-section',
-  imports: [InlineChecks, MatCheckboxModule, MatFormFieldModule, MatInputModule, MatRadioModule, MatSelectModule, ReactiveFormsModule],
+  imports: [DecimalInput, InlineChecks, MatCheckboxModule, MatFormFieldModule, MatInputModule, MatRadioModule, MatSelectModule, ReactiveFormsModule],
   templateUrl: './scope-section.html',
   styleUrl: './editor-section.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,

@@ -10,12 +10,14 @@ import { controlMessage } from '../../../core/forms/control-message';
 import { type CuttingGroup, type FormContent, MOTIONS_WITH_PASSES } from '../recipe-form';
 import { imperialHint } from './imperial-hint';
 import { InlineChecks } from './inline-checks';
+import { MotionSettingsFields } from './motion-settings-fields';
 import { offeredOptions } from './offered-options';
+import { DecimalInput } from '../../../ui/decimal-input';
 
-/** Speeds and motion: wheel speed, feed, entry feed and the cut motion the machine offers. */
+/** Speeds and motion: wheel speed, feed, entry feed, the cut motion the machine offers and its settings. */
 @Component({
   selector: 'kb-speeds-section',
-  imports: [InlineChecks, MatFormFieldModule, MatInputModule, MatSelectModule, ReactiveFormsModule],
+  imports: [DecimalInput, InlineChecks, MatFormFieldModule, MotionSettingsFields, MatInputModule, MatSelectModule, ReactiveFormsModule],
   templateUrl: './speeds-section.html',
   styleUrl: './editor-section.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,

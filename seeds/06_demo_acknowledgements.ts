@@ -6,8 +6,11 @@ import { DEMO_ACCOUNTS } from './data/demo-accounts';
 /**
  * The demo operator has read and understood the versions in use on his saws — all but the
  * newest one (the 42CrMo4 bar's version 2), which waits on his Today list. Through the same
- * service as the API, so the trail has each acknowledgement. Skipped when any exists.
+ * service as the API, so the trail has each acknowledgement. Each is dated an hour after the
+ * version's approval, before the demo cuts (07_demo_cuts.ts), which the server takes only on
+ * acknowledged versions. Skipped when any exists.
  */
+const HOUR_MS = 60 * 60 * 1000;
 const LEFT_TO_ACKNOWLEDGE = '42CrMo4 quenched and tempered bar, large diameters';
 
 export async function seed(knex: Knex): Promise<void> {
@@ -23,6 +26,13 @@ export async function seed(knex: Knex): Promise<void> {
     .where('um.user_id', user.id)
     .whereNot('r.title', LEFT_TO_ACKNOWLEDGE)
     .orderBy('r.id')
-    .select('r.id', 'v.version')) as { id: number; version: number }[];
-  for (const v of current) await acknowledgeVersion(knex, actor, { id: user.id, roles: account.roles }, 'released', v.id, v.version);
+    .select('r.id', 'v.version', 'v.id as versionId')) as { id: number; version: number; versionId: number }[];
+  const now = Date.now();
+  for (const v of current) {
+    const approvedAt = (await knex('signatures').where({ version_id: v.versionId, meaning: 'approved' }).max({ at: 'signed_at' }).first()) as {
+      at: Date | null;
+    };
+    const at = approvedAt.at ? Math.min(now, new Date(approvedAt.at).getTime() + HOUR_MS) : now;
+    await acknowledgeVersion(knex, actor, { id: user.id, roles: account.roles }, 'released', v.id, v.version, new Date(at));
+  }
 }
