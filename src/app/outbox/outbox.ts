@@ -1,4 +1,4 @@
-import { DatePipe, DOCUMENT } from '@angular/common';
+import { DOCUMENT } from '@angular/common';
 import { ChangeDetectionStrategy, Component, computed, inject, signal } from '@angular/core';
 import { rxResource } from '@angular/core/rxjs-interop';
 import { HttpClient } from '@angular/common/http';
@@ -10,6 +10,7 @@ import { map } from 'rxjs';
 import { latestValue } from '../core/api/latest-value';
 import type { OutboxEntryDto } from '@shared/api-types';
 import { type MailTextPart, mailTextLines } from './mail-text';
+import { LabDatePipe } from '../core/dates/lab-date-pipe';
 
 /**
  * Development only: the mails the server queued, newest first, to check that a mail went
@@ -17,7 +18,7 @@ import { type MailTextPart, mailTextLines } from './mail-text';
  */
 @Component({
   selector: 'kb-outbox',
-  imports: [DatePipe, MatButtonModule, MatIconModule, MatProgressBarModule, MatTableModule],
+  imports: [LabDatePipe, MatButtonModule, MatIconModule, MatProgressBarModule, MatTableModule],
   templateUrl: './outbox.html',
   styleUrl: './outbox.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,

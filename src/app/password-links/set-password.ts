@@ -1,4 +1,3 @@
-import { DatePipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, type OnInit, inject, input, signal } from '@angular/core';
 import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
 import { NonNullableFormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
@@ -18,6 +17,7 @@ import { zodValidator } from '../core/forms/zod-validator';
 import { type ApiError, isApiError } from '../core/http/api-error';
 import { Session } from '../core/session/session';
 import { type LinkProblem, linkProblem } from './link-problem';
+import { LabDatePipe } from '../core/dates/lab-date-pipe';
 
 /**
  * Public: the page an invitation or password-reset mail links to (/set-password?token=…).
@@ -25,7 +25,7 @@ import { type LinkProblem, linkProblem } from './link-problem';
  */
 @Component({
   selector: 'kb-set-password',
-  imports: [DatePipe, MatButtonModule, MatFormFieldModule, MatIconModule, MatInputModule, MatProgressSpinnerModule, ReactiveFormsModule, RouterLink],
+  imports: [LabDatePipe, MatButtonModule, MatFormFieldModule, MatIconModule, MatInputModule, MatProgressSpinnerModule, ReactiveFormsModule, RouterLink],
   templateUrl: './set-password.html',
   styleUrls: ['../ui/public-card.scss', './link-pages.scss'],
   changeDetection: ChangeDetectionStrategy.OnPush,

@@ -1,4 +1,3 @@
-import { DatePipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, computed, inject } from '@angular/core';
 import { toSignal } from '@angular/core/rxjs-interop';
 import { NonNullableFormBuilder, ReactiveFormsModule } from '@angular/forms';
@@ -26,6 +25,7 @@ import { PagedTable } from '../ui/paged-table';
 import { PeopleApi } from '../core/api/people-api';
 import { PersonFormDialog, type PersonFormDialogData } from './person-form-dialog';
 import { TemporaryPasswordDialog, type TemporaryPasswordDialogData } from './temporary-password-dialog';
+import { LabDatePipe } from '../core/dates/lab-date-pipe';
 
 type StatusFilter = UserListQuery['status'];
 
@@ -33,7 +33,7 @@ type StatusFilter = UserListQuery['status'];
 @Component({
   selector: 'kb-people-list',
   imports: [
-    DatePipe,
+    LabDatePipe,
     MatButtonModule,
     MatChipsModule,
     MatFormFieldModule,

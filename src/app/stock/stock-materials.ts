@@ -1,5 +1,4 @@
 import { ChangeDetectionStrategy, Component, computed, inject } from '@angular/core';
-import { DatePipe } from '@angular/common';
 import { ReactiveFormsModule } from '@angular/forms';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
@@ -16,12 +15,13 @@ import { StockApi } from '../core/api/stock-api';
 import { StockListState } from './stock-list-state';
 import { StockRecordActions } from './stock-record-actions';
 import { StockTable } from './stock-table';
+import { LabDatePipe } from '../core/dates/lab-date-pipe';
 
 /** Stock › Materials: the lab's materials with hardness and handling flags. */
 @Component({
   selector: 'kb-stock-materials',
   imports: [
-    DatePipe,
+    LabDatePipe,
     MatFormFieldModule,
     MatIconModule,
     MatSelectModule,

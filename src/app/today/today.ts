@@ -6,7 +6,8 @@ import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { RouterLink } from '@angular/router';
 import type { RecipeSummary, TodayDto } from '@shared/recipe-types';
 import { ROLE_INFO, type Role, hasAccess } from '@shared/roles';
-import { shortDate } from '../core/dates/calendar';
+import { formatDate } from '@shared/date-format';
+import { LabDateFormat } from '../core/dates/lab-date-format';
 import { Session } from '../core/session/session';
 import { ReviewOverdueChip } from '../ui/review-overdue-chip';
 import { RecipeStatusChip } from '../ui/recipe-status-chip';
@@ -58,6 +59,7 @@ const recipeItem = (r: RecipeSummary, detail: string): TodayItem => ({
 })
 export class Today {
   private readonly session = inject(Session);
+  private readonly dates = inject(LabDateFormat);
   private readonly api = inject(WorkflowApi);
 
   protected readonly displayName = computed(() => this.session.user()?.displayName ?? '');
@@ -82,6 +84,7 @@ export class Today {
     const load = this.load();
     if (load.state !== 'ready') return [];
     const t = load.today;
+    const format = this.dates.format();
     const has = (...roles: Role[]) => hasAccess(this.session.roles(), roles);
     const lists: TodayList[] = [];
     if (has('author')) {
@@ -90,7 +93,7 @@ export class Today {
         title: 'My drafts',
         icon: 'edit_note',
         empty: 'You have no open drafts.',
-        items: t.myDrafts.map((r) => recipeItem(r, `changed ${shortDate(r.updatedAt)}`)),
+        items: t.myDrafts.map((r) => recipeItem(r, `changed ${formatDate(r.updatedAt, format)}`)),
       });
     }
     if (has('approver')) {
@@ -108,7 +111,7 @@ export class Today {
         title: 'Reviews due',
         icon: 'event_repeat',
         empty: 'No periodic review falls due in the next 60 days.',
-        items: t.reviewsDue.map((r) => ({ ...recipeItem(r, `review due ${r.reviewDueOn}`), overdue: r.reviewOverdue })),
+        items: t.reviewsDue.map((r) => ({ ...recipeItem(r, `review due ${formatDate(r.reviewDueOn, format)}`), overdue: r.reviewOverdue })),
       });
     }
     const operator = has('operator');

@@ -1,10 +1,11 @@
+import { formatDateTime } from '@shared/date-format';
+import type { DateFormat } from '@shared/vocabulary';
+
 /**
- * How the trail writes a moment: "2026-12-05 14:03 UTC", to the minute, in UTC like every
- * time Kerfbook stores. One function, so the trail can follow a lab-wide date format later;
- * the exact instant stays in the row's `datetime` and its detail.
+ * How the trail writes a moment: "05.12.2026 14:03 UTC" in the lab's date format, to the
+ * minute, in UTC like every time Kerfbook stores; the exact instant stays in the row's
+ * `datetime` and its detail. An unreadable value is shown as it came.
  */
-export function trailTime(iso: string): string {
-  const at = new Date(iso);
-  if (Number.isNaN(at.getTime())) return iso;
-  return `${at.toISOString().slice(0, 16).replace('T', ' ')} UTC`;
+export function trailTime(iso: string, format: DateFormat): string {
+  return formatDateTime(iso, format) || iso;
 }

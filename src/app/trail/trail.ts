@@ -16,6 +16,7 @@ import { type Observable, catchError, debounceTime, map, merge, of, switchMap } 
 import type { PersonNameDto, TrailPage, ChainVerification } from '@shared/recipe-types';
 import { TRAIL_EVENT_LABELS, TRAIL_FAMILIES, TRAIL_FAMILY_LABELS, type TrailFamily, trailEventLabel } from '@shared/vocabulary';
 import { latestValue } from '../core/api/latest-value';
+import { LabDateFormat } from '../core/dates/lab-date-format';
 import { RecipeApi } from '../core/api/recipe-api';
 import { type ChangeSummary, fullJson, summariseChange } from './event-change';
 import { TrailApi } from './trail-api';
@@ -74,6 +75,7 @@ interface TrailLoad {
 })
 export class Trail {
   private readonly api = inject(TrailApi);
+  private readonly dates = inject(LabDateFormat);
   private readonly recipes = inject(RecipeApi);
   private readonly route = inject(ActivatedRoute);
   private readonly router = inject(Router);
@@ -117,14 +119,15 @@ export class Trail {
   protected readonly verification = signal<ChainVerification | null>(null);
   protected readonly verifyFailed = signal(false);
 
-  protected readonly rows = computed<EventRow[]>(() =>
-    this.page().items.map((event) => ({
+  protected readonly rows = computed<EventRow[]>(() => {
+    const format = this.dates.format();
+    return this.page().items.map((event) => ({
       event,
       label: trailEventLabel(event.type),
-      time: trailTime(event.occurredAt),
+      time: trailTime(event.occurredAt, format),
       change: summariseChange(event.before, event.after),
-    })),
-  );
+    }));
+  });
   protected readonly hasFilters = computed(() => {
     const p = this.params();
     return !!(p.recipe || p.userId || p.type || p.family || p.hideSignIns || p.from || p.to);

@@ -1,6 +1,8 @@
-import { ChangeDetectionStrategy, Component, input } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, inject, input } from '@angular/core';
 import { MatIconModule } from '@angular/material/icon';
+import { formatDate } from '@shared/date-format';
 import { REVIEW_OVERDUE_LABEL } from '@shared/vocabulary';
+import { LabDateFormat } from '../core/dates/lab-date-format';
 
 /** "Review overdue" beside a recipe whose current version's periodic review date has passed (a note, never a block). */
 @Component({
@@ -26,11 +28,16 @@ import { REVIEW_OVERDUE_LABEL } from '@shared/vocabulary';
       height: 16px;
     }
   `,
-  host: { class: 'kb-review-overdue', '[attr.title]': "dueOn() ? 'The periodic review was due on ' + dueOn() : null" },
+  host: { class: 'kb-review-overdue', '[attr.title]': 'title()' },
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class ReviewOverdueChip {
   /** The date the review was due (YYYY-MM-DD), shown as a tooltip. */
   readonly dueOn = input<string | null>(null);
   protected readonly label = REVIEW_OVERDUE_LABEL;
+  private readonly dates = inject(LabDateFormat);
+  protected readonly title = computed(() => {
+    const due = this.dueOn();
+    return due ? `The periodic review was due on ${formatDate(due, this.dates.format())}` : null;
+  });
 }

@@ -1,8 +1,8 @@
-import { DatePipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, input } from '@angular/core';
 import { MatIconModule } from '@angular/material/icon';
 import type { SignatureDto } from '@shared/recipe-types';
 import { SIGNATURE_MEANING_INFO } from './signature-meaning';
+import { LabDatePipe } from '../core/dates/lab-date-pipe';
 
 /**
  * The electronic signatures of one version, each with printed name, UTC date and time, meaning,
@@ -10,7 +10,7 @@ import { SIGNATURE_MEANING_INFO } from './signature-meaning';
  */
 @Component({
   selector: 'kb-signature-list',
-  imports: [DatePipe, MatIconModule],
+  imports: [LabDatePipe, MatIconModule],
   template: `
     @if (signatures().length) {
       <ul class="kb-signatures" aria-label="Electronic signatures">
@@ -21,7 +21,7 @@ import { SIGNATURE_MEANING_INFO } from './signature-meaning';
               <p class="kb-sig-line">
                 <strong class="kb-sig-meaning">{{ meaning[s.meaning].label }}</strong>
                 by <span class="kb-sig-name">{{ s.signerName }}</span> on
-                <time class="kb-sig-time" [attr.datetime]="s.signedAt">{{ s.signedAt | date: 'd MMM y, HH:mm' : 'UTC' }} UTC</time>
+                <time class="kb-sig-time" [attr.datetime]="s.signedAt">{{ s.signedAt | labDate: 'time' }}</time>
               </p>
               <p class="kb-sig-detail">
                 Meaning: {{ meaning[s.meaning].label }} — {{ meaning[s.meaning].statement }}. Signed content

@@ -1,4 +1,4 @@
-import { HttpClient } from '@angular/common/http';
+import { HttpClient, type HttpContext } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import type { Observable } from 'rxjs';
 import type { LabSettingsBody, LabSettingsDto } from '@shared/schemas/lab-settings';
@@ -9,8 +9,9 @@ import { callerHandles } from '../http/caller-handles';
 export class LabSettingsApi {
   private readonly http = inject(HttpClient);
 
-  get(): Observable<LabSettingsDto> {
-    return this.http.get<LabSettingsDto>('/api/settings/lab');
+  /** `context`: e.g. statuses a background caller handles itself. */
+  get(context?: HttpContext): Observable<LabSettingsDto> {
+    return this.http.get<LabSettingsDto>('/api/settings/lab', context ? { context } : {});
   }
 
   /** The screen shows 400 field errors and the 409 of a stale save itself. */

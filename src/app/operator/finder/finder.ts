@@ -43,6 +43,7 @@ import { FinderApi } from './finder-api';
 import { finderParams, isEmptyQuery, readFinderParams } from './finder-params';
 import { DecimalInput } from '../../ui/decimal-input';
 import { ReviewOverdueChip } from '../../ui/review-overdue-chip';
+import { LabDatePipe } from '../../core/dates/lab-date-pipe';
 
 type Results = { state: 'idle' } | { state: 'loading' } | { state: 'failed'; message: string } | { state: 'ready'; hits: FinderHit[] };
 
@@ -60,6 +61,7 @@ function optionalNumber(schema: (typeof finderQuery.shape)['sizeMm' | 'hardnessV
 @Component({
   selector: 'kb-finder',
   imports: [
+    LabDatePipe,
     DecimalInput,
     LowerCasePipe,
     MatAutocompleteModule,

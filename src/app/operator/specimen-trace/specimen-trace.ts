@@ -1,4 +1,3 @@
-import { DatePipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, computed, inject, input } from '@angular/core';
 import { rxResource, takeUntilDestroyed, toObservable } from '@angular/core/rxjs-interop';
 import { NonNullableFormBuilder, ReactiveFormsModule } from '@angular/forms';
@@ -18,6 +17,7 @@ import { SignatureList } from '../../ui/signature-list';
 import { QuantityPipe } from '../../ui/quantity';
 import { CutOutcomeLabel } from '../../ui/cut-outcome-label';
 import { CutsApi } from '../../core/api/cuts-api';
+import { LabDatePipe } from '../../core/dates/lab-date-pipe';
 
 type Load = { state: 'idle' } | { state: 'loading' } | { state: 'failed' } | { state: 'ready'; traces: CutTrace[] };
 
@@ -26,7 +26,7 @@ type Load = { state: 'idle' } | { state: 'loading' } | { state: 'failed' } | { s
   selector: 'kb-specimen-trace',
   imports: [
     CutOutcomeLabel,
-    DatePipe,
+    LabDatePipe,
     MatButtonModule,
     MatFormFieldModule,
     MatIconModule,

@@ -1,4 +1,3 @@
-import { DatePipe } from '@angular/common';
 import {
   ChangeDetectionStrategy,
   Component,
@@ -33,6 +32,7 @@ import { stockNamesOf } from '../../core/api/stock-names';
 import { MarkdownView } from '../../ui/markdown-view';
 import { AcknowledgeApi } from '../../core/api/acknowledge-api';
 import { acknowledgeStatement } from '../../ui/acknowledgement-state';
+import { LabDatePipe } from '../../core/dates/lab-date-pipe';
 
 type Load = { state: 'loading' } | { state: 'missing' } | { state: 'failed' } | { state: 'ready'; version: RecipeVersionDto };
 
@@ -45,7 +45,7 @@ type Load = { state: 'loading' } | { state: 'missing' } | { state: 'failed' } | 
   selector: 'kb-acknowledge-page',
   imports: [
     ChangesSinceAcknowledged,
-    DatePipe,
+    LabDatePipe,
     KeyParameters,
     MarkdownView,
     MatButtonModule,

@@ -1,4 +1,3 @@
-import { DatePipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, computed, inject, input } from '@angular/core';
 import { toObservable, toSignal } from '@angular/core/rxjs-interop';
 import { MatIconModule } from '@angular/material/icon';
@@ -6,6 +5,7 @@ import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { catchError, map, of, startWith, switchMap } from 'rxjs';
 import type { AcknowledgementsDto } from '@shared/recipe-types';
 import { AcknowledgeApi } from '../../core/api/acknowledge-api';
+import { LabDatePipe } from '../../core/dates/lab-date-pipe';
 
 type Load = { state: 'loading' } | { state: 'failed' } | { state: 'ready'; list: AcknowledgementsDto };
 
@@ -15,7 +15,7 @@ type Load = { state: 'loading' } | { state: 'failed' } | { state: 'ready'; list:
  */
 @Component({
   selector: 'kb-acknowledgements-panel',
-  imports: [DatePipe, MatIconModule, MatProgressBarModule],
+  imports: [LabDatePipe, MatIconModule, MatProgressBarModule],
   template: `
     @switch (load().state) {
       @case ('loading') {
@@ -54,7 +54,7 @@ type Load = { state: 'loading' } | { state: 'failed' } | { state: 'ready'; list:
                 @for (x of a.acknowledged; track x.userId) {
                   <li>
                     {{ x.displayName }}
-                    <time class="kb-when" [attr.datetime]="x.acknowledgedAt">{{ x.acknowledgedAt | date: 'd MMM y, HH:mm' : 'UTC' }} UTC</time>
+                    <time class="kb-when" [attr.datetime]="x.acknowledgedAt">{{ x.acknowledgedAt | labDate: 'time' }}</time>
                   </li>
                 }
               </ul>

@@ -1,9 +1,9 @@
-import { DatePipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, computed, inject, input } from '@angular/core';
 import { rxResource } from '@angular/core/rxjs-interop';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { AcknowledgeApi } from '../../core/api/acknowledge-api';
 import { ComparisonView } from '../compare/comparison-view';
+import { LabDatePipe } from '../../core/dates/lab-date-pipe';
 
 /**
  * What changed since the version of this recipe the operator last acknowledged: the
@@ -12,7 +12,7 @@ import { ComparisonView } from '../compare/comparison-view';
  */
 @Component({
   selector: 'kb-changes-since-acknowledged',
-  imports: [ComparisonView, DatePipe, MatProgressBarModule],
+  imports: [ComparisonView, LabDatePipe, MatProgressBarModule],
   template: `
     @if (changes.isLoading()) {
       <mat-progress-bar mode="indeterminate" aria-label="Loading what changed" />
@@ -23,7 +23,7 @@ import { ComparisonView } from '../compare/comparison-view';
       @if (c.since && c.comparison) {
         <p class="kb-since" data-testid="since">
           Since version {{ c.since.version }}, which you acknowledged on
-          <time [attr.datetime]="c.since.acknowledgedAt">{{ c.since.acknowledgedAt | date: 'd MMM y' : 'UTC' }}</time>:
+          <time [attr.datetime]="c.since.acknowledgedAt">{{ c.since.acknowledgedAt | labDate }}</time>:
         </p>
         <kb-comparison-view [comparison]="c.comparison" layout="inline" [headingLevel]="3" />
       } @else {

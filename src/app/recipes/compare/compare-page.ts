@@ -1,5 +1,5 @@
 import { Clipboard } from '@angular/cdk/clipboard';
-import { DatePipe, DOCUMENT } from '@angular/common';
+import { DOCUMENT } from '@angular/common';
 import { ChangeDetectionStrategy, Component, computed, inject, input } from '@angular/core';
 import { rxResource } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
@@ -15,6 +15,7 @@ import { Notifier } from '../../core/notifier/notifier';
 import { recipeVersions } from '../../core/api/recipe-versions';
 import { WorkflowApi } from '../../core/api/workflow-api';
 import { type ComparisonLayout, ComparisonView } from './comparison-view';
+import { LabDatePipe } from '../../core/dates/lab-date-pipe';
 
 /** The comparison as the URL names it; `null` until both versions are known. */
 interface Pair {
@@ -31,7 +32,7 @@ interface Pair {
   selector: 'kb-compare-page',
   imports: [
     ComparisonView,
-    DatePipe,
+    LabDatePipe,
     MatButtonModule,
     MatButtonToggleModule,
     MatFormFieldModule,

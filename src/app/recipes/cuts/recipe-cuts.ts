@@ -1,4 +1,3 @@
-import { DatePipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, computed, inject, input, signal } from '@angular/core';
 import { takeUntilDestroyed, toObservable } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
@@ -9,13 +8,14 @@ import type { CutRecordDto } from '@shared/recipe-types';
 import { Notifier } from '../../core/notifier/notifier';
 import { CutOutcomeLabel } from '../../ui/cut-outcome-label';
 import { CutsApi, cutsCsvUrl } from '../../core/api/cuts-api';
+import { LabDatePipe } from '../../core/dates/lab-date-pipe';
 
 type Load = { state: 'loading' } | { state: 'failed' } | { state: 'ready'; cuts: CutRecordDto[] };
 
 /** The Cuts tab of a recipe version: every cut made with it, newest first, with a CSV export. */
 @Component({
   selector: 'kb-recipe-cuts',
-  imports: [CutOutcomeLabel, DatePipe, MatButtonModule, MatIconModule, MatProgressBarModule],
+  imports: [CutOutcomeLabel, LabDatePipe, MatButtonModule, MatIconModule, MatProgressBarModule],
   templateUrl: './recipe-cuts.html',
   styleUrl: './recipe-cuts.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,

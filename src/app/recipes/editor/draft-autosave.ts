@@ -8,7 +8,7 @@ import { canonicalJson } from '@shared/canonical-json';
 import { changeReasonMissing } from '@shared/recipe-checks';
 import type { RecipeVersionDto, StaleSaveBody } from '@shared/recipe-types';
 import { RECIPE_STATUS_LABELS, type RecipeStatus } from '@shared/vocabulary';
-import { shortTime } from '../../core/dates/calendar';
+import { utcTimeOfDay } from '../../core/dates/calendar';
 import { applyServerErrors } from '../../core/forms/server-errors';
 import { isApiError } from '../../core/http/api-error';
 import { callerHandles } from '../../core/http/caller-handles';
@@ -96,7 +96,7 @@ export class DraftAutosave {
     }
     if (this.dirty()) return this.valid() || this.isNew() ? 'Unsaved changes' : 'Unsaved changes: complete the marked fields to save';
     const at = this.savedAt();
-    return at ? `Saved ${shortTime(at)}` : this.isNew() ? 'Not saved yet' : 'No changes';
+    return at ? `Saved ${utcTimeOfDay(at)}` : this.isNew() ? 'Not saved yet' : 'No changes';
   });
 
   /** How the conflict dialog shows a value (names for ids, labels for choices); the editor knows its stock and units. */

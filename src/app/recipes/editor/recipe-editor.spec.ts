@@ -299,7 +299,7 @@ describe('RecipeEditor', () => {
     expect(body.content.cutting.wheelRpm).toBe(3000);
     expect(body.content.scope.widthMm).toBeNull();
     first.flush(aDraft({ revision: 5, title: body.title }));
-    await until(() => expect(text('[data-testid="save-status"]')).toMatch(/^Saved \d\d:\d\d$/));
+    await until(() => expect(text('[data-testid="save-status"]')).toMatch(/^Saved \d\d:\d\d UTC$/));
 
     type('f-cutting-feedMmS', '0.3');
     clickSave();

@@ -1,4 +1,3 @@
-import { DatePipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, computed, inject, signal } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
 import { MAT_DIALOG_DATA, MatDialogModule, MatDialogRef } from '@angular/material/dialog';
@@ -6,6 +5,7 @@ import { MatRadioModule } from '@angular/material/radio';
 import type { RecipeVersionDto } from '@shared/recipe-types';
 import type { RecipeContent } from '@shared/schemas/recipe';
 import { FIELD_INFO } from './recipe-form';
+import { LabDatePipe } from '../../core/dates/lab-date-pipe';
 
 /** What the author tried to save: title and content. */
 export interface DraftBody {
@@ -79,7 +79,7 @@ export function merge(mine: DraftBody, theirs: DraftBody, keepMine: readonly Dif
  */
 @Component({
   selector: 'kb-save-conflict-dialog',
-  imports: [DatePipe, MatButtonModule, MatDialogModule, MatRadioModule],
+  imports: [LabDatePipe, MatButtonModule, MatDialogModule, MatRadioModule],
   templateUrl: './save-conflict-dialog.html',
   styleUrl: './save-conflict-dialog.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,

@@ -1,4 +1,3 @@
-import { DatePipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, computed, effect, inject, untracked } from '@angular/core';
 import { rxResource, takeUntilDestroyed, toSignal } from '@angular/core/rxjs-interop';
 import { NonNullableFormBuilder, ReactiveFormsModule } from '@angular/forms';
@@ -51,6 +50,7 @@ import {
 } from './library-params';
 import { controlMessage } from '../../core/forms/control-message';
 import { DecimalInput } from '../../ui/decimal-input';
+import { LabDatePipe } from '../../core/dates/lab-date-pipe';
 
 /** How long the text filters wait for typing to pause before the view changes. */
 export const LIBRARY_TYPING_DEBOUNCE_MS = 300;
@@ -61,7 +61,7 @@ export const LIBRARY_TYPING_DEBOUNCE_MS = 300;
   imports: [
     DecimalInput,
     CheckSeverityLabel,
-    DatePipe,
+    LabDatePipe,
     MatButtonModule,
     MatFormFieldModule,
     MatIconModule,

@@ -1,14 +1,14 @@
-import { DatePipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, input } from '@angular/core';
 import { RouterLink } from '@angular/router';
 import type { RecipeVersionDto } from '@shared/recipe-types';
 import { SignatureList } from '../../ui/signature-list';
 import { RecipeStatusChip } from '../../ui/recipe-status-chip';
+import { LabDatePipe } from '../../core/dates/lab-date-pipe';
 
 /** Every version of a recipe, newest first: status, dates, author, change reason, returned rounds, signatures and links. */
 @Component({
   selector: 'kb-recipe-history',
-  imports: [DatePipe, RecipeStatusChip, RouterLink, SignatureList],
+  imports: [LabDatePipe, RecipeStatusChip, RouterLink, SignatureList],
   template: `
     <ol class="kb-history" aria-label="Version history">
       @for (item of versions(); track item.version) {
@@ -32,28 +32,28 @@ import { RecipeStatusChip } from '../../ui/recipe-status-chip';
             <dd>{{ item.createdBy.name }}</dd>
             <dt>Created</dt>
             <dd>
-              <time [attr.datetime]="item.createdAt">{{ item.createdAt | date: 'd MMM y' : 'UTC' }}</time>
+              <time [attr.datetime]="item.createdAt">{{ item.createdAt | labDate }}</time>
             </dd>
             @if (wf?.submittedAt; as at) {
               <dt>Submitted</dt>
               <dd>
-                <time [attr.datetime]="at">{{ at | date: 'd MMM y' : 'UTC' }}</time>
+                <time [attr.datetime]="at">{{ at | labDate }}</time>
               </dd>
             }
             @if (wf?.effectiveFrom; as on) {
               <dt>Effective from</dt>
-              <dd>{{ on }}</dd>
+              <dd>{{ on | labDate }}</dd>
             }
             @if (wf?.supersededAt; as at) {
               <dt>Superseded</dt>
               <dd>
-                <time [attr.datetime]="at">{{ at | date: 'd MMM y' : 'UTC' }}</time>
+                <time [attr.datetime]="at">{{ at | labDate }}</time>
               </dd>
             }
             @if (wf?.withdrawnAt; as at) {
               <dt>Withdrawn</dt>
               <dd>
-                <time [attr.datetime]="at">{{ at | date: 'd MMM y' : 'UTC' }}</time>
+                <time [attr.datetime]="at">{{ at | labDate }}</time>
                 @if (wf?.withdrawnReason) {
                   — {{ wf?.withdrawnReason }}
                 }
@@ -68,8 +68,8 @@ import { RecipeStatusChip } from '../../ui/recipe-status-chip';
               <ol class="kb-returns-list">
                 @for (round of wf!.returns!; track $index) {
                   <li data-testid="returned-round">
-                    Returned <time [attr.datetime]="round.returnedAt">{{ round.returnedAt | date: 'd MMM y, HH:mm' : 'UTC' }} UTC</time> by
-                    {{ round.returnedBy.name }}: <span class="kb-returns-comment">{{ round.comment }}</span>
+                    Returned <time [attr.datetime]="round.returnedAt">{{ round.returnedAt | labDate: 'time' }}</time> by {{ round.returnedBy.name }}:
+                    <span class="kb-returns-comment">{{ round.comment }}</span>
                   </li>
                 }
               </ol>

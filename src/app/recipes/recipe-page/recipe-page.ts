@@ -1,4 +1,4 @@
-import { DatePipe, DecimalPipe } from '@angular/common';
+import { DecimalPipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, computed, inject, input, signal } from '@angular/core';
 import { takeUntilDestroyed, toObservable } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
@@ -65,6 +65,7 @@ import { RecipeCutPower } from './recipe-cut-power';
 import { RecipeHistory } from './recipe-history';
 import { RecipeStatusChip } from '../../ui/recipe-status-chip';
 import { StandardCautions } from './standard-cautions';
+import { LabDatePipe } from '../../core/dates/lab-date-pipe';
 
 const SEVERITY_ORDER: Record<CheckSeverity, number> = { blocker: 0, warning: 1, note: 2 };
 const OPEN_STATUSES: readonly RecipeVersionDto['status'][] = ['draft', 'in-review', 'returned'];
@@ -80,7 +81,7 @@ const ATTACHMENT_ROLE_LABELS = { setup: 'Setup', 'good-face': 'Good cut face', '
     CheckSeverityLabel,
     CommentsPanel,
     CutProfilePlot,
-    DatePipe,
+    LabDatePipe,
     DecimalPipe,
     MarkdownView,
     MarkedMaximumPipe,

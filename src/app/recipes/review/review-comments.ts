@@ -1,4 +1,3 @@
-import { DatePipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, computed, inject, input, output, signal } from '@angular/core';
 import { takeUntilDestroyed, toObservable } from '@angular/core/rxjs-interop';
 import { NonNullableFormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
@@ -15,11 +14,12 @@ import { zodValidator } from '../../core/forms/zod-validator';
 import { isApiError } from '../../core/http/api-error';
 import { callerHandles } from '../../core/http/caller-handles';
 import { WorkflowApi } from '../../core/api/workflow-api';
+import { LabDatePipe } from '../../core/dates/lab-date-pipe';
 
 /** The review comments of one version, oldest first, with a box to add one when `canAdd`. */
 @Component({
   selector: 'kb-review-comments',
-  imports: [DatePipe, MatButtonModule, MatFormFieldModule, MatIconModule, MatInputModule, ReactiveFormsModule],
+  imports: [LabDatePipe, MatButtonModule, MatFormFieldModule, MatIconModule, MatInputModule, ReactiveFormsModule],
   templateUrl: './review-comments.html',
   styleUrl: './review-comments.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,

@@ -1,4 +1,3 @@
-import { DatePipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, computed, inject, input, linkedSignal } from '@angular/core';
 import { rxResource } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
@@ -32,6 +31,7 @@ import { ReviewComments } from './review-comments';
 import { SignatureDialog, type SignatureDialogData, type SignatureDialogResult } from './signature-dialog';
 import { SignatureList } from '../../ui/signature-list';
 import { WorkflowApi } from '../../core/api/workflow-api';
+import { LabDatePipe } from '../../core/dates/lab-date-pipe';
 
 const SEVERITY_ORDER: Record<CheckSeverity, number> = { blocker: 0, warning: 1, note: 2 };
 
@@ -54,7 +54,7 @@ export function comparisonBase(versions: readonly RecipeVersionDto[], shown: Rec
   imports: [
     CheckSeverityLabel,
     ComparisonView,
-    DatePipe,
+    LabDatePipe,
     MarkdownView,
     MatButtonModule,
     MatCheckboxModule,
