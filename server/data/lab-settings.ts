@@ -1,5 +1,6 @@
 /** The lab's single settings row (id 1). */
 import type { Knex } from 'knex';
+import { DATE_FORMATS, type DateFormat } from '../../shared/vocabulary';
 import { fromJsonColumn } from './json-column';
 
 export interface LabSettingsRow {
@@ -46,4 +47,10 @@ export function feedLimitsOf(row: LabSettingsRow | undefined): unknown {
 
 export function specificEnergiesOf(row: LabSettingsRow | undefined): Record<string, number> {
   return row?.specific_energy_json == null ? {} : fromJsonColumn<Record<string, number>>(row.specific_energy_json);
+}
+
+/** The lab's date format for everything Kerfbook writes for people (screens, sheets, mails); ISO 8601 when unset or unknown. */
+export function dateFormatOf(row: LabSettingsRow | undefined): DateFormat {
+  const value = row?.date_format ?? '';
+  return (DATE_FORMATS as readonly string[]).includes(value) ? (value as DateFormat) : 'iso';
 }

@@ -4,6 +4,7 @@
  * wording can be read and tested on its own.
  */
 import type { UnitPreference } from '../../../shared/api-types';
+import { formatDate, formatDateTime } from '../../../shared/date-format';
 import { recipeCautions, standardCautionsFor, type Caution } from '../../../shared/cautions';
 import { computeRecipe } from '../../../shared/recipe-computations';
 import type { RecipeContext } from '../../../shared/recipe-context';
@@ -22,6 +23,7 @@ import {
   SHAPE_LABELS,
   WHEEL_RESTRICTION_LABELS,
   WHEEL_PATH_LABELS,
+  type DateFormat,
 } from '../../../shared/vocabulary';
 import type { Row } from './layout';
 
@@ -30,7 +32,7 @@ const MEANING_LABELS: Record<SignatureDto['meaning'], string> = { approved: 'App
 export interface SheetSignature {
   name: string;
   meaning: string;
-  /** "2026-12-01 14:03 UTC". */
+  /** "2026-12-01 14:03 UTC" in the lab's date format. */
   signedAt: string;
   /** First 16 hex characters of the signed content's SHA-256. */
   hash: string;
@@ -81,12 +83,6 @@ export interface SheetModel {
   changeReason: string;
   signatures: SheetSignature[];
   contentHash: string;
-}
-
-/** "2026-12-01 14:03 UTC" from an ISO instant. */
-export function utcMinute(iso: string | Date): string {
-  const s = (typeof iso === 'string' ? new Date(iso) : iso).toISOString();
-  return `${s.slice(0, 10)} ${s.slice(11, 16)} UTC`;
 }
 
 function num(value: number): string {
@@ -159,6 +155,8 @@ export interface SheetInput {
   context: RecipeContext;
   labName: string;
   units: UnitPreference;
+  /** The lab's date format: every date the sheet prints follows it. */
+  dateFormat: DateFormat;
   checkCode: string;
   checkUrl: string;
   /** Whether this version is the one in force today (else approved for a later day). */
@@ -171,7 +169,7 @@ export function buildSheetModel(input: SheetInput): SheetModel {
   const computed = computeRecipe(c, ctx);
   const len = (mm: number | null | undefined) => formatQuantity(mm, 'length', units);
   const { material, machine, wheel } = ctx;
-  const effective = v.workflow?.effectiveFrom ?? '—';
+  const effective = formatDate(v.workflow?.effectiveFrom, input.dateFormat) || '—';
 
   const size = c.scope.sizeMinMm === c.scope.sizeMaxMm ? `Ø ${len(c.scope.sizeMaxMm)}` : `Ø ${len(c.scope.sizeMinMm)} to ${len(c.scope.sizeMaxMm)}`;
   const sizeLine =
@@ -249,7 +247,7 @@ export function buildSheetModel(input: SheetInput): SheetModel {
   const signatures = (v.workflow?.signatures ?? []).map((s) => ({
     name: s.signerName,
     meaning: MEANING_LABELS[s.meaning],
-    signedAt: utcMinute(s.signedAt),
+    signedAt: formatDateTime(s.signedAt, input.dateFormat),
     hash: s.contentHash.slice(0, 16),
     comment: s.comment,
   }));
@@ -262,7 +260,7 @@ export function buildSheetModel(input: SheetInput): SheetModel {
     statusLine: input.current ? 'Approved — current' : 'Approved — not yet current',
     current: input.current,
     effectiveFrom: effective,
-    reviewDueOn: v.workflow?.reviewDueOn ?? '—',
+    reviewDueOn: formatDate(v.workflow?.reviewDueOn, input.dateFormat) || '—',
     checkCode: input.checkCode,
     checkUrl: input.checkUrl,
     preparedBy: v.createdBy.name,

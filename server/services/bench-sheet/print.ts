@@ -10,7 +10,7 @@ import sharp from 'sharp';
 import type { UnitPreference } from '../../../shared/api-types';
 import { AppError } from '../../app-error';
 import { listAttachmentMetaRows, readAttachmentBytes } from '../../data/attachments';
-import { findLabSettings } from '../../data/lab-settings';
+import { dateFormatOf, findLabSettings } from '../../data/lab-settings';
 import { findRecipeRow } from '../../data/recipes';
 import { findCheckCodeOfVersion, insertSheetPrint } from '../../data/sheet-prints';
 import { rolesOf } from '../../data/users';
@@ -22,7 +22,8 @@ import { assignCheckCode, formatCheckCode } from '../recipes/check-codes';
 import { visibleVersion, type VersionScope } from '../operator/visibility';
 import { loadRecipeContext } from '../recipes/context-loader';
 import { requireActor, versionDto } from '../recipes/recipes';
-import { buildSheetModel, utcMinute } from './content';
+import { formatDateTime } from '../../../shared/date-format';
+import { buildSheetModel } from './content';
 import { qrPng } from './qr';
 import { renderSheet, type SheetPhoto } from './render';
 import { RECIPE_STATUS_PHRASES } from '../../../shared/vocabulary';
@@ -92,6 +93,7 @@ export async function printBenchSheet(
   }
   const units: UnitPreference = settings?.default_units === 'metric+imperial' ? 'metric+imperial' : 'metric';
   const paper = settings?.sheet_paper === 'Letter' ? 'Letter' : 'A4';
+  const dateFormat = dateFormatOf(settings);
   const checkUrl = `${origin}/check/${code}`;
 
   const [context, photo, qr] = await Promise.all([loadRecipeContext(db, dto.content), setupPhoto(db, row.id), qrPng(checkUrl)]);
@@ -100,6 +102,7 @@ export async function printBenchSheet(
     context,
     labName: settings?.lab_name || 'Kerfbook',
     units,
+    dateFormat,
     checkCode: formatCheckCode(code),
     checkUrl,
     current: recipe.current_version_id === row.id,
@@ -109,7 +112,7 @@ export async function printBenchSheet(
     paper,
     qrPng: qr,
     photo,
-    footer: `Printed ${utcMinute(now)} by ${actor.name} — check the code before use`,
+    footer: `Printed ${formatDateTime(now, dateFormat)} by ${actor.name} — check the code before use`,
   });
 
   await db.transaction(async (trx) => {

@@ -6,9 +6,8 @@
  */
 import type { Knex } from 'knex';
 import { AppError } from '../../app-error';
-import { findLabSettings, updateLabSettingsRow, type LabSettingsRow } from '../../data/lab-settings';
+import { dateFormatOf, findLabSettings, updateLabSettingsRow, type LabSettingsRow } from '../../data/lab-settings';
 import type { LabSettingsBody, LabSettingsDto, LabSettingsValues } from '../../../shared/schemas/lab-settings';
-import { DATE_FORMATS, type DateFormat } from '../../../shared/vocabulary';
 import type { Actor } from '../actor';
 import { getLabLimits } from '../stock/lab-limits';
 import { appendTrailEvent } from '../trail/append';
@@ -29,7 +28,7 @@ async function toDto(db: Knex, row: LabSettingsRow): Promise<LabSettingsDto> {
     sheetPaper: row.sheet_paper === 'Letter' ? 'Letter' : 'A4',
     reviewIntervalMonths: row.review_interval_months,
     defaultUnits: row.default_units === 'metric+imperial' ? 'metric+imperial' : 'metric',
-    dateFormat: (DATE_FORMATS as readonly string[]).includes(row.date_format) ? (row.date_format as DateFormat) : 'iso',
+    dateFormat: dateFormatOf(row),
     ...limits,
     revision: row.revision,
     updatedAt: new Date(row.updated_at).toISOString(),

@@ -207,7 +207,32 @@ describe('Bench sheet', () => {
 
   describe('lab settings', () => {
     afterEach(async () => {
-      await ctx.db('lab_settings').where({ id: 1 }).update({ sheet_paper: 'A4', default_units: 'metric' });
+      await ctx.db('lab_settings').where({ id: 1 }).update({ sheet_paper: 'A4', default_units: 'metric', date_format: 'iso' });
+    });
+
+    it("writes every date in the lab's date format once the lab changes it", async function () {
+      this.timeout(60000);
+      const dmyDot = (iso: string) => `${iso.slice(8, 10)}.${iso.slice(5, 7)}.${iso.slice(0, 4)}`;
+      const wf = v1.workflow!;
+      const signedAt = wf.signatures[0]!.signedAt;
+      const before = flat((await readSheet((await getSheet(operator.agent, v1.recipeId, 1).expect(200)).body as Buffer)).text);
+      expect(before).to.include(`${signedAt.slice(0, 10)} ${signedAt.slice(11, 16)} UTC`);
+
+      await ctx.db('lab_settings').where({ id: 1 }).update({ date_format: 'dmy-dot' });
+      const text = flat((await readSheet((await getSheet(operator.agent, v1.recipeId, 1).expect(200)).body as Buffer)).text);
+      // The approval signature, the effective and review dates, the print time.
+      expect(text).to.include(`${dmyDot(signedAt)} ${signedAt.slice(11, 16)} UTC`);
+      expect(text).to.include(dmyDot(wf.effectiveFrom!));
+      expect(text).to.include(dmyDot(wf.reviewDueOn!));
+      expect(text).to.match(/Printed \d{2}\.\d{2}\.\d{4} \d{2}:\d{2} UTC by Ana Operator/);
+      expect(text, 'no ISO date left on the sheet').not.to.match(/\d{4}-\d{2}-\d{2}/);
+
+      // A version approved for a later day: the warning names the day in the lab's format too.
+      const later = new Date(Date.now() + 10 * 86400000).toISOString().slice(0, 10);
+      const pending = ok(await act.approve(approver, await inReview(author, stock, { title: 'Effective later, lab dates' }), { effectiveDate: later }));
+      const pendingText = flat((await readSheet((await getSheet(operator.agent, pending.recipeId, 1).expect(200)).body as Buffer)).text);
+      expect(pendingText).to.include(`do not use it before ${dmyDot(later)}`);
+      expect(pendingText).not.to.include(later);
     });
 
     it('prints on A4 by default and on Letter when the lab says so', async function () {
