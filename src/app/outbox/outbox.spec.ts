@@ -7,6 +7,7 @@ import { errorInterceptor } from '../core/http/error-interceptor';
 import { Notifier } from '../core/notifier/notifier';
 import { Session } from '../core/session/session';
 import { Outbox } from './outbox';
+import { provideLabDateFormat } from '../../testing/lab-date-format';
 
 describe('Outbox', () => {
   let fixture: ComponentFixture<Outbox>;
@@ -46,6 +47,7 @@ describe('Outbox', () => {
         provideRouter([]),
         provideHttpClient(withInterceptors([errorInterceptor])),
         provideHttpClientTesting(),
+        provideLabDateFormat(),
         { provide: Notifier, useValue: { show: vi.fn() } },
         { provide: Session, useValue: { clear: vi.fn() } },
       ],

@@ -7,6 +7,7 @@ import { csrfInterceptor } from '../core/http/csrf-interceptor';
 import { errorInterceptor } from '../core/http/error-interceptor';
 import { Notifier } from '../core/notifier/notifier';
 import { SetPassword } from './set-password';
+import { provideLabDateFormat } from '../../testing/lab-date-format';
 
 /** 43 base64url characters, the shape of a real link token. */
 const TOKEN = 'abcdefghijklmnopqrstuvwxyzABCDEFGHIJ0123456';
@@ -33,6 +34,7 @@ describe('SetPassword', () => {
         provideRouter([]),
         provideHttpClient(withInterceptors([csrfInterceptor, errorInterceptor])),
         provideHttpClientTesting(),
+        provideLabDateFormat(),
         { provide: Notifier, useValue: notifier },
       ],
     });

@@ -15,6 +15,7 @@ import { errorInterceptor } from '../core/http/error-interceptor';
 import { Session } from '../core/session/session';
 import { LIST_SEARCH_DEBOUNCE_MS } from '../ui/paged-list';
 import { PeopleList } from './people-list';
+import { provideLabDateFormat } from '../../testing/lab-date-format';
 
 describe('PeopleList', () => {
   let fixture: ComponentFixture<PeopleList>;
@@ -47,6 +48,7 @@ describe('PeopleList', () => {
         provideRouter([]),
         provideHttpClient(withInterceptors([errorInterceptor])),
         provideHttpClientTesting(),
+        provideLabDateFormat(),
         { provide: Session, useValue: { user: signal(people[0]), roles: signal(['admin']), clear: vi.fn() } },
         { provide: Notifier, useValue: notifier },
       ],

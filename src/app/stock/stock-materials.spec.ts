@@ -18,6 +18,7 @@ import { errorInterceptor } from '../core/http/error-interceptor';
 import { Notifier } from '../core/notifier/notifier';
 import { Session } from '../core/session/session';
 import { StockMaterials } from './stock-materials';
+import { provideLabDateFormat } from '../../testing/lab-date-format';
 
 describe('StockMaterials', () => {
   let fixture: ComponentFixture<StockMaterials>;
@@ -53,6 +54,7 @@ describe('StockMaterials', () => {
         provideRouter([]),
         provideHttpClient(withInterceptors([errorInterceptor])),
         provideHttpClientTesting(),
+        provideLabDateFormat(),
         { provide: Session, useValue: { user: signal(aUser({ roles, units })), roles: signal(roles), clear: vi.fn() } },
         { provide: Notifier, useValue: notifier },
       ],

@@ -5,12 +5,14 @@ import { type ComponentFixture, TestBed } from '@angular/core/testing';
 import { provideRouter } from '@angular/router';
 import type { TodayDto } from '@shared/recipe-types';
 import type { Role } from '@shared/roles';
+import type { DateFormat } from '@shared/vocabulary';
 import { aRecipeSummary } from '../../testing/stock-and-recipe-fixtures';
 import { aUser } from '../../testing/user-fixture';
 import { errorInterceptor } from '../core/http/error-interceptor';
 import { Notifier } from '../core/notifier/notifier';
 import { Session } from '../core/session/session';
 import { Today } from './today';
+import { provideLabDateFormat } from '../../testing/lab-date-format';
 
 describe('Today', () => {
   let fixture: ComponentFixture<Today>;
@@ -29,13 +31,15 @@ describe('Today', () => {
     notices: [],
   };
 
-  async function open(roles: Role[], answer: TodayDto = lists): Promise<void> {
+  /** `dateFormat`: the lab's date format, as the settings request would answer it. */
+  async function open(roles: Role[], answer: TodayDto = lists, dateFormat: DateFormat = 'iso'): Promise<void> {
     TestBed.configureTestingModule({
       imports: [Today],
       providers: [
         provideRouter([]),
         provideHttpClient(withInterceptors([errorInterceptor])),
         provideHttpClientTesting(),
+        provideLabDateFormat(dateFormat),
         { provide: Session, useValue: { user: signal(aUser({ roles })), roles: signal(roles), clear: vi.fn() } },
         { provide: Notifier, useValue: { show: vi.fn() } },
       ],
@@ -88,6 +92,17 @@ describe('Today', () => {
     const [due, overdue] = Array.from(list('reviewsDue').querySelectorAll('li'));
     expect(due!.querySelector('kb-review-overdue-chip')).toBeNull();
     expect(overdue!.querySelector('kb-review-overdue-chip')?.textContent).toContain('Review overdue');
+  });
+
+  it("writes the dates in the lab's format: 05.12.2026, no month names", async () => {
+    const drafts = [aRecipeSummary({ id: 4, number: 'KB-0004', version: 1, status: 'draft', updatedAt: '2026-12-05T14:05:00.000Z' })];
+    await open(['author'], { ...lists, myDrafts: drafts, reviewsDue: [{ ...lists.reviewsDue[0]!, reviewDueOn: '2027-01-20' }] }, 'dmy-dot');
+    expect(list('myDrafts').textContent).toContain('changed 05.12.2026');
+    expect(list('reviewsDue').textContent).toContain('review due 20.01.2027');
+    expect(root.textContent).not.toMatch(
+      /\b(Jan|Feb|Mar|Apr|May|Jun|Jul|Aug|Sep|Oct|Nov|Dec)[a-z]* 20\d\d\b|\b\d{1,2} (Jan|Feb|Mar|Apr|May|Jun|Jul|Aug|Sep|Oct|Nov|Dec)\b/,
+    );
+    expect(root.textContent).not.toMatch(/\b20\d\d-\d\d-\d\d\b/);
   });
 
   it('shows an approver what waits for their review, linking to the review screen', async () => {

@@ -17,6 +17,7 @@ import { errorInterceptor } from '../core/http/error-interceptor';
 import { Notifier } from '../core/notifier/notifier';
 import { Session } from '../core/session/session';
 import { Trail } from './trail';
+import { provideLabDateFormat } from '../../testing/lab-date-format';
 
 describe('Trail', () => {
   let backend: HttpTestingController;
@@ -65,6 +66,7 @@ describe('Trail', () => {
         provideRouter([{ path: 'trail', component: Trail }]),
         provideHttpClient(withInterceptors([errorInterceptor])),
         provideHttpClientTesting(),
+        provideLabDateFormat(),
         { provide: Session, useValue: { user: signal(aUser({ roles })), roles: signal(roles), clear: vi.fn() } },
         { provide: Notifier, useValue: { show: vi.fn() } },
       ],

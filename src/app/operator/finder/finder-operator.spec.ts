@@ -12,6 +12,7 @@ import { errorInterceptor } from '../../core/http/error-interceptor';
 import { Notifier } from '../../core/notifier/notifier';
 import { Session } from '../../core/session/session';
 import { Finder } from './finder';
+import { provideLabDateFormat } from '../../../testing/lab-date-format';
 
 @Component({ template: 'elsewhere' })
 class Elsewhere {}
@@ -40,6 +41,7 @@ describe('Finder for operators', () => {
         ),
         provideHttpClient(withInterceptors([errorInterceptor])),
         provideHttpClientTesting(),
+        provideLabDateFormat(),
         { provide: Session, useValue: { user: signal(user), roles: signal(user.roles), clear: vi.fn() } },
         { provide: Notifier, useValue: { show: vi.fn() } },
       ],

@@ -13,6 +13,7 @@ import { errorInterceptor } from '../../core/http/error-interceptor';
 import { Notifier } from '../../core/notifier/notifier';
 import { Session } from '../../core/session/session';
 import { Finder } from './finder';
+import { provideLabDateFormat } from '../../../testing/lab-date-format';
 
 @Component({ template: 'elsewhere' })
 class Elsewhere {}
@@ -46,6 +47,7 @@ describe('Finder', () => {
         ),
         provideHttpClient(withInterceptors([errorInterceptor])),
         provideHttpClientTesting(),
+        provideLabDateFormat(),
         { provide: Session, useValue: { user: signal(aUser({ roles, units })), roles: signal(roles), clear: vi.fn() } },
         { provide: Notifier, useValue: { show: vi.fn() } },
       ],

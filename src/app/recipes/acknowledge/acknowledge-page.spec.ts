@@ -11,6 +11,7 @@ import { errorInterceptor } from '../../core/http/error-interceptor';
 import { Notifier } from '../../core/notifier/notifier';
 import { Session } from '../../core/session/session';
 import { AcknowledgePage } from './acknowledge-page';
+import { provideLabDateFormat } from '../../../testing/lab-date-format';
 
 @Component({ template: 'elsewhere' })
 class Elsewhere {}
@@ -39,6 +40,7 @@ describe('AcknowledgePage', () => {
         ),
         provideHttpClient(withInterceptors([errorInterceptor])),
         provideHttpClientTesting(),
+        provideLabDateFormat(),
         { provide: Session, useValue: { user: signal(anOperator()), roles: signal(['operator']), clear: vi.fn() } },
         { provide: Notifier, useValue: { show: vi.fn() } },
       ],
@@ -113,7 +115,7 @@ describe('AcknowledgePage', () => {
 
     const done = root().querySelector('[data-testid="acknowledged"]')!;
     expect(words(done.querySelector('h2'))).toBe('Acknowledged');
-    expect(words(done)).toContain('You acknowledged version 2 of KB-0003 on 1 Dec 2026, 09:15 UTC.');
+    expect(words(done)).toContain('You acknowledged version 2 of KB-0003 on 2026-12-01 09:15 UTC.');
     const sheet = done.querySelector<HTMLAnchorElement>('[data-testid="print-sheet"]')!;
     expect(sheet.getAttribute('href')).toBe('/api/recipes/3/versions/2/sheet.pdf');
     expect(sheet.getAttribute('target')).toBe('_blank');
@@ -145,7 +147,7 @@ describe('AcknowledgePage', () => {
 
     const done = root().querySelector('[data-testid="acknowledged"]')!;
     expect(words(done.querySelector('h2'))).toBe('Already acknowledged');
-    expect(words(done)).toContain('You already acknowledged version 2 of KB-0003 on 30 Nov 2026, 07:02 UTC.');
+    expect(words(done)).toContain('You already acknowledged version 2 of KB-0003 on 2026-11-30 07:02 UTC.');
     expect(done.querySelector('[data-testid="print-sheet"]')).not.toBeNull();
     expect(acknowledgeButton()).toBeNull();
     backend.expectNone({ method: 'POST' });
@@ -188,7 +190,7 @@ describe('AcknowledgePage', () => {
       since: { version: 1, acknowledgedAt: '2026-10-02T08:00:00.000Z' },
       comparison,
     });
-    expect(words(root().querySelector('[data-testid="since"]'))).toBe('Since version 1, which you acknowledged on 2 Oct 2026:');
+    expect(words(root().querySelector('[data-testid="since"]'))).toBe('Since version 1, which you acknowledged on 2026-10-02:');
     const shown = words(root().querySelector('kb-comparison-view'));
     expect(shown).toContain('Feed');
     expect(shown).toContain('0.60 mm/s');

@@ -15,6 +15,7 @@ import { errorInterceptor } from '../../core/http/error-interceptor';
 import { Notifier } from '../../core/notifier/notifier';
 import { Session } from '../../core/session/session';
 import { ComparePage } from './compare-page';
+import { provideLabDateFormat } from '../../../testing/lab-date-format';
 
 @Component({ template: 'recipe page' })
 class RecipeStub {}
@@ -57,6 +58,7 @@ describe('ComparePage', () => {
         ),
         provideHttpClient(withInterceptors([errorInterceptor])),
         provideHttpClientTesting(),
+        provideLabDateFormat(),
         { provide: Session, useValue: { user: signal(aUser({ roles: ['auditor'] })), roles: signal(['auditor']), clear: vi.fn() } },
         { provide: Notifier, useValue: notifier },
         { provide: Clipboard, useValue: { copy: (text: string) => copied.push(text) > 0 } },

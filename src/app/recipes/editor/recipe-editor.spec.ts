@@ -14,6 +14,7 @@ import { errorInterceptor } from '../../core/http/error-interceptor';
 import { Notifier } from '../../core/notifier/notifier';
 import { Session } from '../../core/session/session';
 import { RecipeEditor } from './recipe-editor';
+import { provideLabDateFormat } from '../../../testing/lab-date-format';
 
 // Invented stock: a bench saw that could spin well past the wheel's marked speed, so only the
 // wheel's own limit is at stake in the over-speed test. Its spindle is limited to 6000 rpm, within
@@ -170,6 +171,7 @@ describe('RecipeEditor', () => {
         provideRouter([]),
         provideHttpClient(withInterceptors([errorInterceptor])),
         provideHttpClientTesting(),
+        provideLabDateFormat(),
         { provide: Notifier, useValue: { show: vi.fn() } },
         { provide: Session, useValue: { user: signal(user), clear: vi.fn() } },
       ],

@@ -3,6 +3,9 @@ import { MAT_DIALOG_DATA, MatDialogRef } from '@angular/material/dialog';
 import type { RecipeVersionDto } from '@shared/recipe-types';
 import { NO_MOTION_SETTINGS, type RecipeContent } from '@shared/schemas/recipe';
 import { type DraftBody, SaveConflictDialog, differences, merge } from './save-conflict-dialog';
+import { provideHttpClient } from '@angular/common/http';
+import { provideHttpClientTesting } from '@angular/common/http/testing';
+import { provideLabDateFormat } from '../../../testing/lab-date-format';
 
 const content = (over: { rpm?: number; hardness?: RecipeContent['scope']['hardness']; instructions?: string } = {}) =>
   ({
@@ -72,6 +75,9 @@ describe('save conflict', () => {
       TestBed.configureTestingModule({
         imports: [SaveConflictDialog],
         providers: [
+          provideHttpClient(),
+          provideHttpClientTesting(),
+          provideLabDateFormat(),
           { provide: MatDialogRef, useValue: { close } },
           {
             provide: MAT_DIALOG_DATA,

@@ -11,11 +11,13 @@ import { RouterTestingHarness } from '@angular/router/testing';
 import type { Page } from '@shared/api-types';
 import type { RecipeSummary } from '@shared/recipe-types';
 import type { Role } from '@shared/roles';
+import type { DateFormat } from '@shared/vocabulary';
 import { aMachine, aRecipeSummary } from '../../../testing/stock-and-recipe-fixtures';
 import { aUser } from '../../../testing/user-fixture';
 import { errorInterceptor } from '../../core/http/error-interceptor';
 import { Session } from '../../core/session/session';
 import { Library } from './library';
+import { provideLabDateFormat } from '../../../testing/lab-date-format';
 
 @Component({ template: 'recipe page' })
 class RecipeStub {}
@@ -46,7 +48,8 @@ describe('Library', () => {
     return { items, total, page: index, pageSize: 25 };
   }
 
-  async function open(url: string, roles: Role[] = ['author']): Promise<void> {
+  /** `dateFormat`: the lab's date format, as the settings request would answer it. */
+  async function open(url: string, roles: Role[] = ['author'], dateFormat: DateFormat = 'iso'): Promise<void> {
     TestBed.configureTestingModule({
       providers: [
         provideRouter([
@@ -55,6 +58,7 @@ describe('Library', () => {
         ]),
         provideHttpClient(withInterceptors([errorInterceptor])),
         provideHttpClientTesting(),
+        provideLabDateFormat(dateFormat),
         { provide: Session, useValue: { user: signal(aUser({ roles })), roles: signal(roles), clear: vi.fn() } },
       ],
     });
@@ -143,6 +147,28 @@ describe('Library', () => {
       'Approved',
       'Review overdue',
     ]);
+  });
+
+  it("writes the dates in the lab's format: 05.12.2026, no month names", async () => {
+    await open('/library', ['author'], 'dmy-dot');
+    (await nextListRequest()).req.flush(
+      page(2, 0, [
+        aRecipeSummary({ updatedAt: '2026-12-05T10:00:00.000Z', reviewDueOn: '2026-01-10', reviewOverdue: true }),
+        aRecipeSummary({ id: 9, number: 'KB-0009', updatedAt: '2026-11-20T10:00:00.000Z', reviewDueOn: '2028-12-05' }),
+      ]),
+    );
+    await harness.fixture.whenStable();
+    const rows = Array.from(root().querySelectorAll<HTMLElement>('tr.mat-mdc-row'));
+    expect(rows[0].querySelector('time')!.textContent!.trim()).toBe('05.12.2026');
+    expect(rows[1].querySelector('time')!.textContent!.trim()).toBe('20.11.2026');
+    const cells = Array.from(root().querySelectorAll('td.kb-review-due'));
+    expect(cells[0].querySelector('kb-review-overdue-chip')?.getAttribute('title')).toBe('The periodic review was due on 10.01.2026');
+    expect(cells[1].textContent?.trim()).toBe('05.12.2028');
+    const table = root().querySelector('table')!.textContent!;
+    expect(table).not.toMatch(
+      /\b(Jan|Feb|Mar|Apr|May|Jun|Jul|Aug|Sep|Oct|Nov|Dec)[a-z]* 20\d\d\b|\b\d{1,2} (Jan|Feb|Mar|Apr|May|Jun|Jul|Aug|Sep|Oct|Nov|Dec)\b/,
+    );
+    expect(table).not.toMatch(/\b20\d\d-\d\d-\d\d\b/);
   });
 
   it('marks a recipe whose periodic review has passed, and filters to those', async () => {

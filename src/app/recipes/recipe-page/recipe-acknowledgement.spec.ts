@@ -14,6 +14,7 @@ import { errorInterceptor } from '../../core/http/error-interceptor';
 import { Notifier } from '../../core/notifier/notifier';
 import { Session } from '../../core/session/session';
 import { RecipePage } from './recipe-page';
+import { provideLabDateFormat } from '../../../testing/lab-date-format';
 
 @Component({ template: 'elsewhere' })
 class Elsewhere {}
@@ -38,6 +39,7 @@ describe('RecipePage acknowledgements', () => {
         ),
         provideHttpClient(withInterceptors([errorInterceptor])),
         provideHttpClientTesting(),
+        provideLabDateFormat(),
         { provide: Session, useValue: { user: signal(anOperator({ roles })), roles: signal(roles), clear: vi.fn() } },
         { provide: Notifier, useValue: { show: vi.fn() } },
       ],
@@ -209,7 +211,7 @@ describe('RecipePage acknowledgements', () => {
       expect(words(pending.querySelector('h2'))).toContain('Not yet (2)');
       expect(Array.from(pending.querySelectorAll('li')).map(words)).toEqual(['Ines Duarte', 'Piet de Vries']);
       const done = root().querySelector('[data-testid="acknowledged"]')!;
-      expect(Array.from(done.querySelectorAll('li')).map(words)).toEqual(['Kofi Mensah 1 Dec 2026, 09:15 UTC']);
+      expect(Array.from(done.querySelectorAll('li')).map(words)).toEqual(['Kofi Mensah 2026-12-01 09:15 UTC']);
       expect(words(root().querySelector('kb-acknowledgements-panel'))).toContain('1 of 3 operators of Bench saw B2 have acknowledged version 2.');
     });
 

@@ -8,12 +8,14 @@ import { Router, provideRouter, withComponentInputBinding } from '@angular/route
 import { RouterTestingHarness } from '@angular/router/testing';
 import type { CutRecordDto, RecipeVersionDto, SignatureDto, VersionWorkflowDto } from '@shared/recipe-types';
 import type { Role } from '@shared/roles';
+import type { DateFormat } from '@shared/vocabulary';
 import { aLabLimits, aMachine, aMaterial, aRecipeVersion, aWheel } from '../../../testing/stock-and-recipe-fixtures';
 import { aUser } from '../../../testing/user-fixture';
 import { errorInterceptor } from '../../core/http/error-interceptor';
 import { Notifier } from '../../core/notifier/notifier';
 import { Session } from '../../core/session/session';
 import { RecipePage } from './recipe-page';
+import { provideLabDateFormat } from '../../../testing/lab-date-format';
 
 @Component({ template: 'elsewhere' })
 class Elsewhere {}
@@ -62,7 +64,8 @@ describe('RecipePage', () => {
   });
   const approved: RecipeVersionDto = aRecipeVersion({ version: 1, status: 'approved' });
 
-  async function open(url: string, roles: Role[] = ['author']): Promise<void> {
+  /** `dateFormat`: the lab's date format, as the settings request would answer it. */
+  async function open(url: string, roles: Role[] = ['author'], dateFormat: DateFormat = 'iso'): Promise<void> {
     TestBed.configureTestingModule({
       providers: [
         provideRouter(
@@ -74,6 +77,7 @@ describe('RecipePage', () => {
         ),
         provideHttpClient(withInterceptors([errorInterceptor])),
         provideHttpClientTesting(),
+        provideLabDateFormat(dateFormat),
         { provide: Session, useValue: { user: signal(aUser({ roles })), roles: signal(roles), clear: vi.fn() } },
         { provide: Notifier, useValue: { show: vi.fn() } },
       ],
@@ -348,7 +352,7 @@ describe('RecipePage', () => {
 
       const item = root().querySelector('header .kb-signature')!;
       const text = item.textContent!.replace(/\s+/g, ' ');
-      expect(text).toContain('Approved by Tomas Berg on 3 Nov 2026, 14:05 UTC');
+      expect(text).toContain('Approved by Tomas Berg on 2026-11-03 14:05 UTC');
       expect(text).toContain('I have reviewed this version and approve it for use');
       expect(text).toContain('“Fine for the bench saws.”');
       expect(item.querySelector('code')!.textContent).toBe('c0ffeec0ffee…');
@@ -483,11 +487,63 @@ describe('RecipePage', () => {
       const items = Array.from(root().querySelectorAll<HTMLElement>('.kb-history-item'));
       expect(items.map((i) => i.dataset['version'])).toEqual(['2', '1']);
       expect(items[0].textContent).toContain('Slower feed for the harder batch.');
-      expect(items[0].textContent).toContain('1 Dec 2026, 09:30 UTC');
+      expect(items[0].textContent).toContain('2026-12-01 09:30 UTC');
       expect(Array.from(items[0].querySelectorAll('a')).map((a) => a.getAttribute('href'))).toContain('/recipes/3/compare?from=1&to=2');
       expect(items[1].textContent).toContain('Superseded');
       expect(items[1].querySelector('a[href="/recipes/3?v=1"]')).not.toBeNull();
       expect(items[1].querySelector('a[href*="compare"]')).toBeNull();
+    });
+
+    it("writes every date on the page and in History in the lab's format: 05.12.2026, no month names, no other order", async () => {
+      const superseded = aRecipeVersion({
+        version: 1,
+        status: 'superseded',
+        createdAt: '2026-10-02T08:00:00.000Z',
+        workflow: workflow({
+          signatures: [signature],
+          submittedAt: '2026-11-01T09:00:00.000Z',
+          effectiveFrom: '2026-11-04',
+          supersededAt: '2026-12-05T00:00:00.000Z',
+        }),
+      });
+      const current = aRecipeVersion({
+        version: 2,
+        status: 'approved',
+        createdAt: '2026-11-20T08:00:00.000Z',
+        workflow: workflow({
+          signatures: [{ ...signature, id: 41, signedAt: '2026-12-05T14:05:00.000Z' }],
+          submittedAt: '2026-12-04T16:30:00.000Z',
+          effectiveFrom: '2026-12-05',
+          reviewDueOn: '2028-12-05',
+        }),
+      });
+      await open('/recipes/3', ['auditor'], 'dmy-dot');
+      await answerVersions([current, superseded]);
+      await answerStock();
+
+      const header = root().querySelector('header')!.textContent!.replace(/\s+/g, ' ');
+      expect(header).toContain('Approved by Tomas Berg on 05.12.2026 14:05 UTC');
+      const facts = root().querySelector('[data-testid="workflow-facts"]')!.textContent!.replace(/\s+/g, ' ');
+      expect(facts).toContain('Submitted 04.12.2026 16:30 UTC');
+      expect(facts).toContain('Effective from 05.12.2026');
+      expect(facts).toContain('Periodic review due 05.12.2028');
+
+      const tabs = await TestbedHarnessEnvironment.loader(harness.fixture).getHarness(MatTabGroupHarness);
+      await tabs.selectTab({ label: 'History' });
+      await harness.fixture.whenStable();
+      const items = Array.from(root().querySelectorAll<HTMLElement>('.kb-history-item')).map((i) => i.textContent!.replace(/\s+/g, ' '));
+      // The facts are a <dl>: term and value touch in textContent.
+      expect(items[0]).toContain('Created20.11.2026');
+      expect(items[0]).toContain('Submitted04.12.2026');
+      expect(items[0]).toContain('05.12.2026 14:05 UTC');
+      expect(items[1]).toContain('Effective from04.11.2026');
+      expect(items[1]).toContain('Superseded05.12.2026');
+
+      const text = root().textContent!;
+      expect(text).not.toMatch(
+        /\b(Jan|Feb|Mar|Apr|May|Jun|Jul|Aug|Sep|Oct|Nov|Dec)[a-z]* 20\d\d\b|\b\d{1,2} (Jan|Feb|Mar|Apr|May|Jun|Jul|Aug|Sep|Oct|Nov|Dec)\b/,
+      );
+      expect(text).not.toMatch(/\b20\d\d-\d\d-\d\d\b/);
     });
 
     it('shows in the History tab each time a version was returned: who, when and the comment', async () => {
@@ -511,8 +567,8 @@ describe('RecipePage', () => {
 
       const rounds = Array.from(root().querySelectorAll<HTMLElement>('.kb-history-item [data-testid="returned-round"]'));
       expect(rounds.map((r) => r.textContent!.replace(/\s+/g, ' ').trim())).toEqual([
-        'Returned 21 Nov 2026, 10:00 UTC by Tomas Berg: Feed is too high for this hardness.',
-        'Returned 24 Nov 2026, 15:45 UTC by Aino Virta: Give the clamp positions in mm.',
+        'Returned 2026-11-21 10:00 UTC by Tomas Berg: Feed is too high for this hardness.',
+        'Returned 2026-11-24 15:45 UTC by Aino Virta: Give the clamp positions in mm.',
       ]);
       expect(root().querySelector('.kb-history-item')!.textContent).toContain('Returned to its author 2 times');
     });
@@ -569,7 +625,7 @@ describe('RecipePage', () => {
       const rows = Array.from(root().querySelectorAll<HTMLElement>('tr[data-cut]'));
       expect(rows.map((r) => r.dataset['cut'])).toEqual(['71', '70']);
       const first = rows[0].textContent!;
-      expect(first).toContain('30 Nov 2026, 14:05');
+      expect(first).toContain('2026-11-30 14:05 UTC');
       expect(first).toContain('SP-2026-118');
       expect(first).toContain('Heat 44817');
       expect(first).toContain('Discoloured or burnt');
@@ -585,7 +641,7 @@ describe('RecipePage', () => {
       backend.expectOne({ method: 'POST', url: '/api/cuts/71/clear-flag' }).flush({ ...cut, flagClearedAt: '2026-12-01T08:00:00.000Z' });
       await harness.fixture.whenStable();
       expect(root().querySelector('tr[data-cut="71"] button')).toBeNull();
-      expect(root().querySelector('tr[data-cut="71"]')!.textContent).toContain('Seen 1 Dec 2026');
+      expect(root().querySelector('tr[data-cut="71"]')!.textContent).toContain('Seen 2026-12-01');
     });
   });
 });
