@@ -4,7 +4,8 @@
  * into the app, and — for the kinds a person may turn off — how to turn them off.
  */
 import { isOptional, type NotificationKind } from '../../../shared/notification-kinds';
-import { CUT_OUTCOME_LABELS, type CutOutcome } from '../../../shared/vocabulary';
+import { formatDate } from '../../../shared/date-format';
+import { CUT_OUTCOME_LABELS, type CutOutcome, type DateFormat } from '../../../shared/vocabulary';
 import type { OutgoingMail } from './outbox';
 import { absoluteLink, composeMail, type MailLink } from './layout';
 import type { MailSettings } from './settings';
@@ -76,8 +77,9 @@ export function versionApprovedMail(
   approvedBy: string,
   effectiveFrom: string,
   current: boolean,
+  dateFormat: DateFormat = 'iso',
 ): OutgoingMail {
-  const when = current ? 'It is in use from today.' : `It comes into use on ${effectiveFrom}.`;
+  const when = current ? 'It is in use from today.' : `It comes into use on ${formatDate(effectiveFrom, dateFormat)}.`;
   return mail(settings, 'review-outcome', to, `Approved: ${versionName(v)}`, [`${approvedBy} approved ${versionName(v)}.`, when], {
     label: 'Open the recipe',
     path: recipePath(v),
@@ -129,17 +131,26 @@ export function cutFlaggedMail(settings: MailSettings, to: Recipient, v: Version
   return mail(settings, 'cut-flagged', to, `Cut flagged: ${versionName(v)}`, paragraphs, { label: 'See the cuts', path: `${recipePath(v)}&tab=cuts` });
 }
 
-export function reviewDueMail(settings: MailSettings, to: Recipient, v: VersionRef, dueOn: string, today: string): OutgoingMail {
+/** `dueOn` and `today` are UTC days (YYYY-MM-DD); the mail writes the day in the lab's `dateFormat`. */
+export function reviewDueMail(
+  settings: MailSettings,
+  to: Recipient,
+  v: VersionRef,
+  dueOn: string,
+  today: string,
+  dateFormat: DateFormat = 'iso',
+): OutgoingMail {
   const overdue = dueOn < today;
+  const due = formatDate(dueOn, dateFormat);
   return mail(
     settings,
     'review-due',
     to,
-    `${overdue ? 'Review overdue' : 'Review due'} ${dueOn}: ${versionName(v)}`,
+    `${overdue ? 'Review overdue' : 'Review due'} ${due}: ${versionName(v)}`,
     [
       overdue
-        ? `The periodic review of ${versionName(v)} was due on ${dueOn} and has not been done.`
-        : `The periodic review of ${versionName(v)} is due on ${dueOn}.`,
+        ? `The periodic review of ${versionName(v)} was due on ${due} and has not been done.`
+        : `The periodic review of ${versionName(v)} is due on ${due}.`,
       'Check that the recipe still fits the lab, then start a new version or have it approved again.',
     ],
     { label: 'Open the recipe', path: recipePath(v) },

@@ -5,6 +5,7 @@
  */
 import type { Knex } from 'knex';
 import { findMachineName } from '../../data/acknowledgements';
+import { dateFormatOf, findLabSettings } from '../../data/lab-settings';
 import { enqueueMail, type OutgoingMail } from './outbox';
 import {
   cutFlaggedMail,
@@ -60,7 +61,8 @@ export async function notifyApproved(
   now: Date,
 ): Promise<number> {
   const to = await authorsOf(trx, versionId, 'review-outcome');
-  return enqueueAll(trx, to, (r) => versionApprovedMail(settings, r, v, approvedBy, effectiveFrom, current), now);
+  const dateFormat = dateFormatOf(await findLabSettings(trx));
+  return enqueueAll(trx, to, (r) => versionApprovedMail(settings, r, v, approvedBy, effectiveFrom, current, dateFormat), now);
 }
 
 /** The version just became current: its machine's operators must acknowledge it. */
@@ -99,5 +101,6 @@ export async function notifyReviewDue(
   now: Date,
 ): Promise<number> {
   const to = await authorsOf(trx, versionId, 'review-due');
-  return enqueueAll(trx, to, (r) => reviewDueMail(settings, r, v, dueOn, today), now);
+  const dateFormat = dateFormatOf(await findLabSettings(trx));
+  return enqueueAll(trx, to, (r) => reviewDueMail(settings, r, v, dueOn, today, dateFormat), now);
 }

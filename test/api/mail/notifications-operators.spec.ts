@@ -180,4 +180,20 @@ describe('Notification mails: version in use and flagged cuts', () => {
       expect(res.body.required).to.equal(false);
     });
   });
+
+  it("tells the authors the effective date in the lab's date format", async () => {
+    const v1 = await approved(author, approver, stock, { title: 'C45 bar, lab dates' });
+    const submitted = await secondVersion(v1, 'New wheel.');
+    await ctx.db('mail_outbox').delete();
+    await ctx.db('lab_settings').where({ id: 1 }).update({ date_format: 'mdy-slash' });
+    try {
+      const effectiveDate = day(10);
+      ok(await act.approve(approver, submitted, { effectiveDate }));
+      const text = (await mailsOf(ctx.db, 'review-outcome'))[0]!.text_body;
+      expect(text).to.contain(`It comes into use on ${effectiveDate.slice(5, 7)}/${effectiveDate.slice(8, 10)}/${effectiveDate.slice(0, 4)}.`);
+      expect(text).not.to.contain(effectiveDate);
+    } finally {
+      await ctx.db('lab_settings').where({ id: 1 }).update({ date_format: 'iso' });
+    }
+  });
 });

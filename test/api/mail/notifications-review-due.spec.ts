@@ -56,6 +56,23 @@ describe('Notification mails: review due', () => {
     expect(reminderPeriodStart(new Date('2026-12-07T00:00:00Z'))).to.equal('2026-12-07');
   });
 
+  it("writes the due date in the lab's date format", async () => {
+    await ctx.db('lab_settings').where({ id: 1 }).update({ date_format: 'dmy-dot' });
+    try {
+      await sendReviewReminders(ctx.db, noon(wednesday), settings);
+      const shown = `${dueOn.slice(8, 10)}.${dueOn.slice(5, 7)}.${dueOn.slice(0, 4)}`;
+      const mails = await mailsOf(ctx.db, 'review-due');
+      expect(mails).to.have.length(2);
+      for (const mail of mails) {
+        expect(mail.subject).to.equal(`Review due ${shown}: ${current.number} v1 "Due for review"`);
+        expect(mail.text_body).to.contain(`is due on ${shown}.`);
+        expect(mail.text_body).not.to.contain(dueOn);
+      }
+    } finally {
+      await ctx.db('lab_settings').where({ id: 1 }).update({ date_format: 'iso' });
+    }
+  });
+
   it('stays quiet while the review is more than 30 days away', async () => {
     expect(await sendReviewReminders(ctx.db, noon(addDays(dueOn, -31)), settings)).to.deep.equal({ reminded: 0, mails: 0 });
     expect(await countRows(ctx.db, 'mail_outbox')).to.equal(0);
