@@ -3,6 +3,7 @@
  * comes out on the chosen paper, bad input is refused with its message and saves nothing,
  * and only admins find the screen. Puts the settings back at the end, so it runs again.
  */
+/// <reference lib="dom" />
 import { expect } from 'chai';
 import type { Browser, Page } from 'playwright-core';
 import { DEMO_ACCOUNTS } from '../../seeds/data/demo-accounts';
@@ -97,6 +98,30 @@ describe('lab settings in chromium', () => {
     await page.getByText(/last changed \d{4}-\d{2}-\d{2} \d{2}:\d{2} UTC/).waitFor();
     expect(unexpectedErrors(consoleErrors)).to.deep.equal([]);
   });
+
+  for (const viewport of [
+    { width: 1280, height: 800 },
+    { width: 800, height: 1100 },
+  ]) {
+    it(`shows every field label whole at ${viewport.width} px wide (none cut short with an ellipsis)`, async () => {
+      const { page } = await openPage(browser, viewport);
+      try {
+        await signIn(page, admin.username, admin.password);
+        await page.waitForURL(/\/today/);
+        await page.goto(`${BASE_URL}/lab-settings`);
+        await page.getByLabel('Lab name').waitFor();
+        const labels = await page
+          .locator('mat-form-field .mdc-floating-label')
+          .evaluateAll((els) => els.map((el) => ({ text: el.textContent?.trim() ?? '', clipped: el.scrollWidth > el.clientWidth })));
+        expect(labels.map((l) => l.text)).to.include.members(['Hardness from', 'Highest feed (mm/s)', 'Worn wheel: share of the new diameter']);
+        expect(labels.filter((l) => l.clipped).map((l) => l.text)).to.deep.equal([]);
+        await page.getByRole('group', { name: 'Add a ceiling' }).scrollIntoViewIfNeeded();
+        await screenshot(page, `lab-settings-labels-${viewport.width}`);
+      } finally {
+        await page.context().close();
+      }
+    });
+  }
 
   it('is not offered to an author, and its address answers "not allowed"', async () => {
     const { page } = w;
