@@ -15,10 +15,9 @@ import type { LabSettingsDto } from '../../shared/schemas/lab-settings';
 import { DEMO_ACCOUNTS } from '../../seeds/data/demo-accounts';
 import { type ApiSession, apiSignIn } from './support/api';
 import { BASE_URL, launch, screenshot } from './support/browser';
-import { choose, dialogSettled, signIn } from './support/steps';
+import { choose, demoAdmin, dialogSettled, signIn, signInAsAdmin } from './support/steps';
 
 const author = DEMO_ACCOUNTS.find((a) => a.roles.includes('author'))!;
-const admin = DEMO_ACCOUNTS.find((a) => a.roles.includes('admin'))!;
 
 /** Types as a person does, key by key (a fill would bypass the browser's number parsing). */
 async function type(page: Page, label: string, text: string): Promise<void> {
@@ -110,13 +109,12 @@ describe('decimal signs in number fields (chromium, German and English locales)'
       });
 
       it(`the lab settings save kerf allowance 0${foreign}35 mm, worn share 0${own}65, an energy of 7${foreign}5 J/mm³ and a feed ceiling of 0${foreign}45 mm/s`, async () => {
-        const asAdmin = await apiSignIn(admin.username, admin.password);
+        const asAdmin = await apiSignIn(demoAdmin.username, demoAdmin.password);
         const before = await asAdmin.get<LabSettingsDto>('/api/settings/lab');
         const context = await browser.newContext({ locale, viewport: { width: 1440, height: 1000 } });
         const adminPage = await context.newPage();
         try {
-          await signIn(adminPage, admin.username, admin.password);
-          await adminPage.waitForURL(/\/today/);
+          await signInAsAdmin(adminPage);
           await adminPage.goto(`${BASE_URL}/lab-settings`);
           await adminPage.getByLabel('Lab name').waitFor();
           await type(adminPage, 'Kerf allowance (mm)', `0${foreign}35`);

@@ -8,9 +8,8 @@ import { expect } from 'chai';
 import type { Browser, Page } from 'playwright-core';
 import { DEMO_ACCOUNTS } from '../../seeds/data/demo-accounts';
 import { BASE_URL, type WatchedPage, launch, openPage, screenshot } from './support/browser';
-import { choose, navEntries, signIn, unexpectedErrors } from './support/steps';
+import { choose, navEntries, signIn, signInAsAdmin, unexpectedErrors } from './support/steps';
 
-const admin = DEMO_ACCOUNTS.find((a) => a.roles.includes('admin'))!;
 const author = DEMO_ACCOUNTS.find((a) => a.roles.includes('author'))!;
 
 /** The page size of a PDF's first page, points (pdfkit writes it uncompressed). */
@@ -66,8 +65,7 @@ describe('lab settings in chromium', () => {
     // Two sheets, three saves: more than one step's time on a loaded machine.
     this.timeout(180_000);
     const { page, consoleErrors } = w;
-    await signIn(page, admin.username, admin.password);
-    await page.waitForURL(/\/today/);
+    await signInAsAdmin(page);
     expect(mediaBox(await sheetOfKb0001(page))).to.equal('0 0 595.28 841.89');
 
     await openSettings(page);
@@ -106,8 +104,7 @@ describe('lab settings in chromium', () => {
     it(`shows every field label whole at ${viewport.width} px wide (none cut short with an ellipsis)`, async () => {
       const { page } = await openPage(browser, viewport);
       try {
-        await signIn(page, admin.username, admin.password);
-        await page.waitForURL(/\/today/);
+        await signInAsAdmin(page);
         await page.goto(`${BASE_URL}/lab-settings`);
         await page.getByLabel('Lab name').waitFor();
         const labels = await page
