@@ -145,6 +145,10 @@ export interface StarterSelectionRow {
 const bonded = (abrasive: AbrasiveFamily, grade: GradeBand): StarterWheel => ({ kind: 'bonded', abrasives: [abrasive], grade });
 const rim = (...abrasives: AbrasiveFamily[]): StarterWheel => ({ kind: 'rim', abrasives, grade: null });
 
+/** A steel group's hardness bands, each on an aluminium oxide wheel of its own grade band (harder band, softer bond). */
+const aluminiumOxideBands = (group: MaterialGroup, bands: readonly [HardnessWindow, GradeBand, string][]): StarterSelectionRow[] =>
+  bands.map(([hardness, grade, note]) => ({ group, hardness, wheel: bonded('aluminium-oxide', grade), note }));
+
 /**
  * Kerfbook's starting table (common practice): aluminium oxide for ferrous metals, silicon
  * carbide for non-ferrous metals, diamond (or CBN) rim wheels for ceramics, cemented
@@ -159,36 +163,15 @@ const rim = (...abrasives: AbrasiveFamily[]): StarterWheel => ({ kind: 'rim', ab
  * age-hardened alloys want a medium bond; confirm by trial cuts.
  */
 export const STARTER_SELECTION: readonly StarterSelectionRow[] = [
-  {
-    group: 'plain-low-alloy-steel',
-    hardness: { min: 80, max: 345, scale: 'HV' },
-    wheel: bonded('aluminium-oxide', 'hard'),
-    note: 'Soft ferrous metal (up to about 35 HRC): aluminium oxide, harder bond.',
-  },
-  {
-    group: 'plain-low-alloy-steel',
-    hardness: { min: 35, max: 50, scale: 'HRC' },
-    wheel: bonded('aluminium-oxide', 'medium'),
-    note: 'Hardened low-alloy steel: aluminium oxide, medium bond.',
-  },
-  {
-    group: 'plain-low-alloy-steel',
-    hardness: { min: 50, max: 68, scale: 'HRC' },
-    wheel: bonded('aluminium-oxide', 'soft'),
-    note: 'Fully hardened low-alloy steel: aluminium oxide, softer bond so worn grains are released.',
-  },
-  {
-    group: 'hardened-tool-steel',
-    hardness: { min: 20, max: 45, scale: 'HRC' },
-    wheel: bonded('aluminium-oxide', 'medium'),
-    note: 'Medium-hard steel: aluminium oxide, medium bond.',
-  },
-  {
-    group: 'hardened-tool-steel',
-    hardness: { min: 45, max: 68, scale: 'HRC' },
-    wheel: bonded('aluminium-oxide', 'soft'),
-    note: 'Hard steel: aluminium oxide, softer bond so worn grains are released.',
-  },
+  ...aluminiumOxideBands('plain-low-alloy-steel', [
+    [{ min: 80, max: 345, scale: 'HV' }, 'hard', 'Soft ferrous metal (up to about 35 HRC): aluminium oxide, harder bond.'],
+    [{ min: 35, max: 50, scale: 'HRC' }, 'medium', 'Hardened low-alloy steel: aluminium oxide, medium bond.'],
+    [{ min: 50, max: 68, scale: 'HRC' }, 'soft', 'Fully hardened low-alloy steel: aluminium oxide, softer bond so worn grains are released.'],
+  ]),
+  ...aluminiumOxideBands('hardened-tool-steel', [
+    [{ min: 20, max: 45, scale: 'HRC' }, 'medium', 'Medium-hard steel: aluminium oxide, medium bond.'],
+    [{ min: 45, max: 68, scale: 'HRC' }, 'soft', 'Hard steel: aluminium oxide, softer bond so worn grains are released.'],
+  ]),
   {
     group: 'hardened-tool-steel',
     hardness: { min: 58, max: 68, scale: 'HRC' },

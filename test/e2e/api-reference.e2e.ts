@@ -10,9 +10,8 @@ import { DEMO_ACCOUNTS } from '../../seeds/data/demo-accounts';
 import * as trail from '../../server/web/handlers/trail';
 import { routes } from '../../server/web/routes';
 import { BASE_URL, type WatchedPage, launch, openPage, screenshot } from './support/browser';
-import { navEntries, signIn, unexpectedErrors } from './support/steps';
+import { navEntries, signIn, signInAsAdmin, unexpectedErrors } from './support/steps';
 
-const admin = DEMO_ACCOUNTS.find((a) => a.roles.includes('admin'))!;
 const operator = DEMO_ACCOUNTS.find((a) => a.roles.length === 1 && a.roles[0] === 'operator')!;
 /** The trail's routes, found by their handlers so the test follows the table's paths. */
 const trailPaths = routes.filter((r) => (Object.values(trail) as unknown[]).includes(r.handler)).map((r) => r.path);
@@ -47,8 +46,7 @@ describe('API reference in chromium', () => {
 
   it('shows the admin every route of the API, the trail among them, with no CSP violation and nothing from another host', async () => {
     const { page } = w;
-    await signIn(page, admin.username, admin.password);
-    await page.waitForURL(/\/today/);
+    await signInAsAdmin(page);
     expect(await navEntries(page)).to.include('API reference');
     // Only this page's violations count (zod's probe for eval support is refused on other pages).
     await page.evaluate(() => (window.cspViolations = []));

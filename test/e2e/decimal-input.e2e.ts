@@ -11,10 +11,11 @@ import type { Browser, Page } from 'playwright-core';
 import type { MachineRecord } from '../../shared/stock-types';
 import type { RecipeVersionDto } from '../../shared/recipe-types';
 import type { Page as ListPage } from '../../shared/api-types';
+import type { LabSettingsDto } from '../../shared/schemas/lab-settings';
 import { DEMO_ACCOUNTS } from '../../seeds/data/demo-accounts';
 import { type ApiSession, apiSignIn } from './support/api';
 import { BASE_URL, launch, screenshot } from './support/browser';
-import { choose, dialogSettled, signIn } from './support/steps';
+import { choose, demoAdmin, dialogSettled, signIn, signInAsAdmin } from './support/steps';
 
 const author = DEMO_ACCOUNTS.find((a) => a.roles.includes('author'))!;
 
@@ -105,6 +106,50 @@ describe('decimal signs in number fields (chromium, German and English locales)'
         expect(await motorPower(`2${foreign}25`)).to.equal(2.25);
         // Back to the demo's 2.2 kW, with the browser's own sign.
         expect(await motorPower(`2${own}2`)).to.equal(2.2);
+      });
+
+      it(`the lab settings save kerf allowance 0${foreign}35 mm, worn share 0${own}65, an energy of 7${foreign}5 J/mm³ and a feed ceiling of 0${foreign}45 mm/s`, async () => {
+        const asAdmin = await apiSignIn(demoAdmin.username, demoAdmin.password);
+        const before = await asAdmin.get<LabSettingsDto>('/api/settings/lab');
+        const context = await browser.newContext({ locale, viewport: { width: 1440, height: 1000 } });
+        const adminPage = await context.newPage();
+        try {
+          await signInAsAdmin(adminPage);
+          await adminPage.goto(`${BASE_URL}/lab-settings`);
+          await adminPage.getByLabel('Lab name').waitFor();
+          await type(adminPage, 'Kerf allowance (mm)', `0${foreign}35`);
+          await type(adminPage, 'Worn wheel: share of the new diameter', `0${own}65`);
+          await type(adminPage, 'Specific cutting energy, Copper alloys', `7${foreign}5`);
+          await choose(adminPage, 'Material group', /^Copper alloys/);
+          await choose(adminPage, 'Machine class', /precision/i);
+          await type(adminPage, 'Highest feed (mm/s)', `0${foreign}45`);
+          await adminPage.getByRole('button', { name: 'Add', exact: true }).click();
+          await adminPage.getByRole('button', { name: 'Save settings' }).click();
+          // Either outcome ends the wait; the values read back below say which it was.
+          await adminPage
+            .getByText('The lab settings have been saved.')
+            .or(adminPage.getByText(/Nothing was saved/))
+            .first()
+            .waitFor();
+          await screenshot(adminPage, `decimal-lab-settings-${locale}`);
+
+          const saved = await asAdmin.get<LabSettingsDto>('/api/settings/lab');
+          expect(saved.revision, 'a save went through').to.equal(before.revision + 1);
+          expect(saved.kerfAllowanceMm).to.equal(0.35);
+          expect(saved.wornDiameterShare).to.equal(0.65);
+          expect(saved.specificEnergyJMm3.copper).to.equal(7.5);
+          const added = saved.feedCeilings.filter((c) => !before.feedCeilings.some((b) => JSON.stringify(b) === JSON.stringify(c)));
+          expect(added.map((c) => [c.group, c.maxFeedMmS])).to.deep.equal([['copper', 0.45]]);
+          // Shown back with the browser's own decimal sign.
+          expect(await adminPage.getByLabel('Kerf allowance (mm)', { exact: true }).inputValue()).to.equal(`0${own}35`);
+        } finally {
+          // Back as they were, so the file runs again.
+          const now = await asAdmin.get<LabSettingsDto>('/api/settings/lab');
+          const { updatedAt: _at, ...values } = before;
+          await asAdmin.put('/api/settings/lab', { ...values, revision: now.revision });
+          await context.close();
+          await asAdmin.close();
+        }
       });
     });
   }

@@ -8,9 +8,8 @@ import { expect } from 'chai';
 import type { Browser } from 'playwright-core';
 import { DEMO_ACCOUNTS } from '../../seeds/data/demo-accounts';
 import { BASE_URL, type WatchedPage, launch, openPage, screenshot } from './support/browser';
-import { dialogSettled, navEntries, signIn, signOut, unexpectedErrors } from './support/steps';
+import { demoAdmin, dialogSettled, navEntries, signIn, signInAsAdmin, signOut, unexpectedErrors } from './support/steps';
 
-const admin = DEMO_ACCOUNTS.find((a) => a.roles.includes('admin'))!;
 const operator = DEMO_ACCOUNTS.find((a) => a.roles.includes('operator'))!;
 // Unique per run so the journey can run again on the same database.
 const stamp = Date.now().toString(36);
@@ -52,7 +51,7 @@ describe('foundation in chromium', () => {
 
   it('refuses a wrong password with a clear message and stays on sign-in', async () => {
     const { page } = w;
-    await signIn(page, admin.username, 'not-the-password');
+    await signIn(page, demoAdmin.username, 'not-the-password');
     const alert = page.getByRole('alert');
     await alert.waitFor();
     expect(await alert.innerText()).to.match(/username or password/i);
@@ -61,9 +60,8 @@ describe('foundation in chromium', () => {
 
   it('lets the admin in: Today greets them, the navigation offers People', async () => {
     const { page } = w;
-    await signIn(page, admin.username, admin.password);
-    await page.waitForURL(/\/today/);
-    await page.getByRole('heading', { name: new RegExp(admin.displayName) }).waitFor();
+    await signInAsAdmin(page);
+    await page.getByRole('heading', { name: new RegExp(demoAdmin.displayName) }).waitFor();
     expect(await navEntries(page)).to.include.members(['Today', 'People', 'My account']);
     await screenshot(page, '02-today-admin');
     expect(unexpectedErrors(w.consoleErrors)).to.deep.equal([]);
@@ -84,8 +82,7 @@ describe('foundation in chromium', () => {
 
   it('admin adds a person; the person must replace the temporary password, then sees their roles', async () => {
     const { page } = w;
-    await signIn(page, admin.username, admin.password);
-    await page.waitForURL(/\/today/);
+    await signInAsAdmin(page);
     await page
       .getByRole('navigation', { name: 'Sections' })
       .getByRole('link', { name: /People/ })
@@ -107,7 +104,7 @@ describe('foundation in chromium', () => {
     await dialog.getByRole('button', { name: 'Add person' }).click();
     await dialog.waitFor({ state: 'detached' });
     await page.getByRole('cell', { name: newcomer.username }).waitFor();
-    await signOut(page, admin.displayName);
+    await signOut(page, demoAdmin.displayName);
 
     await signIn(page, newcomer.username, newcomer.temporary);
     await page.waitForURL(/\/account/);
@@ -132,8 +129,7 @@ describe('foundation in chromium', () => {
 
   it('admin deactivates the person; they can no longer sign in and stay in the list as inactive', async () => {
     const { page } = w;
-    await signIn(page, admin.username, admin.password);
-    await page.waitForURL(/\/today/);
+    await signInAsAdmin(page);
     await page.goto(`${BASE_URL}/people`);
     await page.getByRole('cell', { name: newcomer.username }).waitFor();
     await page.getByRole('button', { name: `Actions for ${newcomer.name}` }).click();
@@ -141,7 +137,7 @@ describe('foundation in chromium', () => {
     const confirm = page.getByRole('dialog');
     await confirm.getByRole('button', { name: /Deactivate/ }).click();
     await confirm.waitFor({ state: 'detached' });
-    await signOut(page, admin.displayName);
+    await signOut(page, demoAdmin.displayName);
 
     await signIn(page, newcomer.username, newcomer.own);
     const alert = page.getByRole('alert');

@@ -3,13 +3,13 @@
  * comes out on the chosen paper, bad input is refused with its message and saves nothing,
  * and only admins find the screen. Puts the settings back at the end, so it runs again.
  */
+/// <reference lib="dom" />
 import { expect } from 'chai';
 import type { Browser, Page } from 'playwright-core';
 import { DEMO_ACCOUNTS } from '../../seeds/data/demo-accounts';
 import { BASE_URL, type WatchedPage, launch, openPage, screenshot } from './support/browser';
-import { choose, navEntries, signIn, unexpectedErrors } from './support/steps';
+import { choose, navEntries, signIn, signInAsAdmin, unexpectedErrors } from './support/steps';
 
-const admin = DEMO_ACCOUNTS.find((a) => a.roles.includes('admin'))!;
 const author = DEMO_ACCOUNTS.find((a) => a.roles.includes('author'))!;
 
 /** The page size of a PDF's first page, points (pdfkit writes it uncompressed). */
@@ -65,8 +65,7 @@ describe('lab settings in chromium', () => {
     // Two sheets, three saves: more than one step's time on a loaded machine.
     this.timeout(180_000);
     const { page, consoleErrors } = w;
-    await signIn(page, admin.username, admin.password);
-    await page.waitForURL(/\/today/);
+    await signInAsAdmin(page);
     expect(mediaBox(await sheetOfKb0001(page))).to.equal('0 0 595.28 841.89');
 
     await openSettings(page);
@@ -97,6 +96,29 @@ describe('lab settings in chromium', () => {
     await page.getByText(/last changed \d{4}-\d{2}-\d{2} \d{2}:\d{2} UTC/).waitFor();
     expect(unexpectedErrors(consoleErrors)).to.deep.equal([]);
   });
+
+  for (const viewport of [
+    { width: 1280, height: 800 },
+    { width: 800, height: 1100 },
+  ]) {
+    it(`shows every field label whole at ${viewport.width} px wide (none cut short with an ellipsis)`, async () => {
+      const { page } = await openPage(browser, viewport);
+      try {
+        await signInAsAdmin(page);
+        await page.goto(`${BASE_URL}/lab-settings`);
+        await page.getByLabel('Lab name').waitFor();
+        const labels = await page
+          .locator('mat-form-field .mdc-floating-label')
+          .evaluateAll((els) => els.map((el) => ({ text: el.textContent?.trim() ?? '', clipped: el.scrollWidth > el.clientWidth })));
+        expect(labels.map((l) => l.text)).to.include.members(['Hardness from', 'Highest feed (mm/s)', 'Worn wheel: share of the new diameter']);
+        expect(labels.filter((l) => l.clipped).map((l) => l.text)).to.deep.equal([]);
+        await page.getByRole('group', { name: 'Add a ceiling' }).scrollIntoViewIfNeeded();
+        await screenshot(page, `lab-settings-labels-${viewport.width}`);
+      } finally {
+        await page.context().close();
+      }
+    });
+  }
 
   it('is not offered to an author, and its address answers "not allowed"', async () => {
     const { page } = w;

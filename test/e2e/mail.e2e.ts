@@ -15,12 +15,11 @@ import { DEMO_ACCOUNTS } from '../../seeds/data/demo-accounts';
 import { apiSignIn } from './support/api';
 import { BASE_URL, type WatchedPage, launch, openPage, screenshot } from './support/browser';
 import { linkIn, waitForMail } from './support/mailbox';
-import { signIn, unexpectedErrors } from './support/steps';
+import { demoAdmin, signIn, unexpectedErrors } from './support/steps';
 
 const author = DEMO_ACCOUNTS.find((a) => a.roles.includes('author'))!;
 const approver = DEMO_ACCOUNTS.find((a) => a.roles.includes('approver'))!;
 const operator = DEMO_ACCOUNTS.find((a) => a.roles.includes('operator'))!;
-const admin = DEMO_ACCOUNTS.find((a) => a.roles.includes('admin'))!;
 // KB-0003 (X153CrMoV12 block, bench saw) is current in the demo data; the demo operator runs
 // the bench saw. No other journey touches it.
 const NUMBER = 'KB-0003';
@@ -104,7 +103,7 @@ describe('mail links in chromium', () => {
   it('an invited newcomer follows the mail link, sets a password and signs in; the link then fails', async () => {
     const username = `e2e.newcomer.${Date.now().toString(36)}`;
     const email = `${username}@harrowgate.example`;
-    const asAdmin = await apiSignIn(admin.username, admin.password);
+    const asAdmin = await apiSignIn(demoAdmin.username, demoAdmin.password);
     const invited = await asAdmin.post<UserDto>('/api/users/invitations', { username, displayName: 'Mira Solberg', email, roles: ['auditor'], machineIds: [] });
     expect(invited.invitationPending).to.equal(true);
 

@@ -119,6 +119,16 @@ describe('LabSettings', () => {
     expect(root.textContent).toContain('Revision 4, last changed 05.12.2026 14:05 UTC');
   });
 
+  it('adds no feed ceiling while a number in the new row cannot be read, and says why under the field', async () => {
+    type('Hardness from', '1.000,5');
+    type('Highest feed (mm/s)', '0,4');
+    [...root.querySelectorAll('button')].find((b) => b.textContent?.trim().endsWith('Add'))!.click();
+    await settle();
+    expect(root.querySelectorAll('table')[1]!.querySelectorAll('tbody tr')).toHaveLength(2);
+    expect(root.textContent).toContain('Nothing was added: correct the values marked in red.');
+    expect(root.textContent).toContain('"1.000,5" has more than one point or comma');
+  });
+
   it('after a save that came too late, says so and offers the current settings', async () => {
     type('Lab name', 'Late lab');
     await save();

@@ -47,6 +47,7 @@ import { applyServerErrors } from '../core/forms/server-errors';
 import { zodValidator } from '../core/forms/zod-validator';
 import { isApiError } from '../core/http/api-error';
 import { Notifier } from '../core/notifier/notifier';
+import { DecimalInput } from '../ui/decimal-input';
 import { toFieldErrors } from '@shared/validation';
 
 /** A field that may be left empty (no value for that group); when filled, the schema decides. */
@@ -71,7 +72,17 @@ interface CeilingForm {
  */
 @Component({
   selector: 'kb-lab-settings',
-  imports: [LabDatePipe, MatButtonModule, MatFormFieldModule, MatIconModule, MatInputModule, MatProgressBarModule, MatSelectModule, ReactiveFormsModule],
+  imports: [
+    DecimalInput,
+    LabDatePipe,
+    MatButtonModule,
+    MatFormFieldModule,
+    MatIconModule,
+    MatInputModule,
+    MatProgressBarModule,
+    MatSelectModule,
+    ReactiveFormsModule,
+  ],
   templateUrl: './lab-settings.html',
   styleUrl: './lab-settings.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -194,6 +205,12 @@ export class LabSettings {
 
   protected addCeiling(): void {
     this.newCeilingError.set('');
+    // A number the field could not read is null behind it: an unreadable hardness would add a row for any hardness.
+    if (this.newCeiling.invalid) {
+      this.newCeiling.markAllAsTouched();
+      this.newCeilingError.set('Nothing was added: correct the values marked in red.');
+      return;
+    }
     const v = this.newCeiling.getRawValue();
     const banded = v.hardnessMin !== null || v.hardnessMax !== null;
     const hardness = banded

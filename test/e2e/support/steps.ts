@@ -1,6 +1,10 @@
 /** Steps several journeys share, written the way a person uses the app. */
 import type { Page } from 'playwright-core';
+import { DEMO_ACCOUNTS } from '../../../seeds/data/demo-accounts';
 import { BASE_URL } from './browser';
+
+/** The demo data's admin. */
+export const demoAdmin = DEMO_ACCOUNTS.find((a) => a.roles.includes('admin'))!;
 
 export async function signIn(page: Page, username: string, password: string): Promise<void> {
   await page.goto(`${BASE_URL}/sign-in`);
@@ -36,4 +40,10 @@ export async function choose(page: Page, label: string, option: RegExp): Promise
 /** A dialog moves focus to its first field once it has opened; typing before that races it. */
 export async function dialogSettled(page: Page): Promise<void> {
   await page.waitForFunction(() => document.activeElement?.closest('[role="dialog"]') != null);
+}
+
+/** Signs in as the demo admin and waits for Today, where a sign-in lands. */
+export async function signInAsAdmin(page: Page): Promise<void> {
+  await signIn(page, demoAdmin.username, demoAdmin.password);
+  await page.waitForURL(/\/today/);
 }

@@ -33,7 +33,7 @@ const SEVERITY: Record<CheckSeverity, { icon: string; label: string; plural: str
   selector: 'kb-recipe-live-panel',
   imports: [CutPowerFigures, CutPowerPlot, CutProfilePlot, MatButtonModule, MatIconModule, WornWheelValues],
   templateUrl: './recipe-live-panel.html',
-  styleUrl: './recipe-live-panel.scss',
+  styleUrls: ['../../ui/value-list.scss', './recipe-live-panel.scss'],
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class RecipeLivePanel {

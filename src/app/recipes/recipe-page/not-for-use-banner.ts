@@ -40,32 +40,7 @@ import { Session } from '../../core/session/session';
       </div>
     }
   `,
-  styles: `
-    .kb-not-for-use {
-      display: flex;
-      align-items: center;
-      flex-wrap: wrap;
-      gap: 12px 16px;
-      margin: 0 0 16px;
-      padding: 12px 16px;
-      border-radius: var(--mat-sys-corner-medium);
-      background: var(--mat-sys-error-container);
-      color: var(--mat-sys-on-error-container);
-
-      > mat-icon {
-        flex: none;
-      }
-
-      p {
-        flex: 1 1 280px;
-        margin: 0;
-      }
-
-      .kb-sub {
-        display: block;
-      }
-    }
-  `,
+  styleUrl: './not-for-use-banner.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class NotForUseBanner {

@@ -18,7 +18,7 @@ type MotorState = 'no-energy' | 'motor-unknown' | 'within' | 'above';
   selector: 'kb-cut-power-figures',
   imports: [MatIconModule],
   templateUrl: './cut-power-figures.html',
-  styleUrl: './cut-power-figures.scss',
+  styleUrls: ['../value-list.scss', './cut-power-figures.scss'],
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class CutPowerFigures {

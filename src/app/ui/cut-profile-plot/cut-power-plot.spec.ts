@@ -54,6 +54,16 @@ describe('CutPowerPlot', () => {
     expect(text).toContain('Motor 5.50 kW');
   });
 
+  it('draws the shared axes as SVG: a grid line and a label per value tick (0–6 kW: 5.5 kW motor × 1.08 headroom, steps of 2), and depth ticks 0–60 mm', async () => {
+    await plot(bar(), 5500);
+    const svgNs = 'http://www.w3.org/2000/svg';
+    const grid = [...root.querySelectorAll('.kb-grid line')];
+    expect(grid).toHaveLength(4);
+    expect(grid.every((l) => l.namespaceURI === svgNs)).toBe(true);
+    const texts = [...root.querySelectorAll('.kb-axis text')].map((t) => t.textContent?.trim());
+    expect(texts).toEqual(expect.arrayContaining(['0', '20', '40', '60', '2', '4', '6', 'Depth into the cut (mm)']));
+  });
+
   it('gives the peak and the share of the motor in words (3000 W of 5500 W = 55 %)', async () => {
     await plot(bar(), 5500);
     expect(label()).toBe('Cutting power over 60 mm of depth: peaks at 3.00 kW at 30 mm deep, 55 % of the 5.50 kW motor; the lab warns above 80 %.');

@@ -2,6 +2,7 @@ import { ChangeDetectionStrategy, Component, computed, input } from '@angular/co
 import type { PowerPoint } from '@shared/cutting-power';
 import { formatQuantity } from '@shared/units';
 import { axis, label } from './cut-profile-plot';
+import { PlotAxes } from './plot-axes';
 
 /** Plot area inside the SVG's viewBox (user units): a smaller companion of the cut profile plot. */
 const VIEW = { width: 420, height: 190 };
@@ -23,7 +24,8 @@ const power = (w: number) => formatQuantity(w, 'power', 'metric');
 @Component({
   selector: 'kb-cut-power-plot',
   templateUrl: './cut-power-plot.html',
-  styleUrl: './cut-power-plot.scss',
+  styleUrls: ['./plot-frame.scss', './plot-axes.scss', './cut-power-plot.scss'],
+  imports: [PlotAxes],
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class CutPowerPlot {

@@ -1,6 +1,7 @@
 import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
 import { REMOVAL_LENGTH_PER_TURN_NOTE, type ContactPoint } from '@shared/contact-length';
 import { CONTACT_MEASURE_LABELS, type ContactMeasure } from '@shared/vocabulary';
+import { PlotAxes } from './plot-axes';
 
 /** Plot area inside the SVG's viewBox (user units). */
 const VIEW = { width: 420, height: 230 };
@@ -51,7 +52,8 @@ function path(points: readonly ContactPoint[], x: Axis, y: Axis, pick: (p: Conta
 @Component({
   selector: 'kb-cut-profile-plot',
   templateUrl: './cut-profile-plot.html',
-  styleUrl: './cut-profile-plot.scss',
+  styleUrls: ['./plot-frame.scss', './plot-axes.scss', './cut-profile-plot.scss'],
+  imports: [PlotAxes],
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class CutProfilePlot {

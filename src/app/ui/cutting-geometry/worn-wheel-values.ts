@@ -15,7 +15,7 @@ import { KERFBOOK_KERF_ALLOWANCE_MM, KERFBOOK_WORN_DIAMETER_SHARE, WORN_RPM_CAUT
   selector: 'kb-worn-wheel-values',
   imports: [MatIconModule],
   templateUrl: './worn-wheel-values.html',
-  styleUrl: './worn-wheel-values.scss',
+  styleUrls: ['../value-list.scss', './worn-wheel-values.scss'],
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class WornWheelValues {
