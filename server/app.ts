@@ -47,6 +47,11 @@ export function trustProxyValue(setting: string | false): boolean | number | str
   return setting;
 }
 
+const noStore: express.RequestHandler = (_req, res, next) => {
+  res.setHeader('Cache-Control', 'no-store');
+  next();
+};
+
 export function createApp(deps: AppDeps): KerfbookApp {
   const { config, db } = deps;
   const app = express();
@@ -66,6 +71,9 @@ export function createApp(deps: AppDeps): KerfbookApp {
   // CSRF before access, so a forged request never learns more than 403; access then
   // answers 401/403 for requests that carry a valid token.
   const multipartPaths = routes.filter((r) => r.multipart).map((r) => pathMatcher(r.path));
+  // API answers name people and hold unreleased recipes: no cache keeps them (a route that
+  // serves unchanging bytes, such as a photo, sets its own caching).
+  app.use('/api', noStore);
   app.use('/api', jsonContentTypeOnly(multipartPaths), jsonBody, cookieParser(), sessionMiddleware(store, config.sessionSecret));
   app.use('/api', auth.initialize(), auth.session());
   app.use('/api', csrf.protect);

@@ -1,5 +1,6 @@
 /** Queries on attachments. Listing never reads the bytes; serving reads one blob column. */
 import type { Knex } from 'knex';
+import type { RecipeStatus } from '../../shared/vocabulary';
 
 export interface AttachmentMetaRow {
   id: number;
@@ -63,6 +64,14 @@ export async function findAttachmentMeta(db: Knex, id: number): Promise<Attachme
   return db('attachments')
     .where({ id })
     .first(...META_COLUMNS);
+}
+
+/** The attachment's metadata with the status of the version it belongs to (who may see it follows from that). */
+export async function findAttachmentWithStatus(db: Knex, id: number): Promise<(AttachmentMetaRow & { version_status: RecipeStatus }) | undefined> {
+  return db('attachments')
+    .join('recipe_versions', 'recipe_versions.id', 'attachments.version_id')
+    .where('attachments.id', id)
+    .first(...META_COLUMNS.map((c) => `attachments.${c}`), 'recipe_versions.status as version_status');
 }
 
 /** The stored bytes of the image or of its thumbnail. */

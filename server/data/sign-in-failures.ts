@@ -15,6 +15,14 @@ export async function failuresSince(db: Knex, username: string, clientAddress: s
   return { count: Number(row.count), oldest: row.oldest ? new Date(row.oldest) : null };
 }
 
+/** Rows of the window from one address, whatever username they tried; with `upToId`, only up to that row. */
+export async function addressFailuresSince(db: Knex, clientAddress: string, since: Date, upToId?: number): Promise<FailureWindow> {
+  const query = db('sign_in_failures').where({ client_address: clientAddress }).andWhere('failed_at', '>', since);
+  if (upToId !== undefined) query.andWhere('id', '<=', upToId);
+  const row = (await query.first(db.raw('count(*) as count'), db.raw('min(failed_at) as oldest'))) as { count: number; oldest: Date | null };
+  return { count: Number(row.count), oldest: row.oldest ? new Date(row.oldest) : null };
+}
+
 /** Returns the new row's id. */
 export async function insertFailure(db: Knex, username: string, clientAddress: string, at: Date): Promise<number> {
   const [id] = await db('sign_in_failures').insert({ username, client_address: clientAddress, failed_at: at });

@@ -1,15 +1,18 @@
 /**
  * At most MAX_FAILURES failed sign-ins per (username, client address) in a sliding
- * window. The counter lives in MariaDB so that every app process shares it (several
- * processes may serve one lab).
- * Keyed by both so that someone guessing from one address cannot lock a person out
- * everywhere.
+ * window, and MAX_ADDRESS_FAILURES per client address over all usernames (one password
+ * sprayed over many accounts stays under every per-name limit). The counter lives in
+ * MariaDB so that every app process shares it (several processes may serve one lab).
+ * Keyed by address so that someone guessing from one address cannot lock a person out
+ * everywhere; the address limit is three times the per-name one, so a lab's shared
+ * tablets behind one address still sign in after a few typos each.
  */
 import type { Knex } from 'knex';
 import { AppError } from '../../app-error';
-import { clearFailures, deleteFailure, deleteFailuresBefore, failuresSince, insertFailure } from '../../data/sign-in-failures';
+import { addressFailuresSince, clearFailures, deleteFailure, deleteFailuresBefore, failuresSince, insertFailure } from '../../data/sign-in-failures';
 
 export const MAX_FAILURES = 10;
+export const MAX_ADDRESS_FAILURES = 30;
 export const WINDOW_MS = 15 * 60 * 1000;
 
 /**
@@ -21,10 +24,15 @@ export const WINDOW_MS = 15 * 60 * 1000;
  */
 export async function reserveSignInAttempt(db: Knex, username: string, clientAddress: string, now = new Date()): Promise<number> {
   const id = await insertFailure(db, username, clientAddress, now);
-  const window = await failuresSince(db, username, clientAddress, new Date(now.getTime() - WINDOW_MS), id);
-  if (window.count <= MAX_FAILURES) return id;
+  const since = new Date(now.getTime() - WINDOW_MS);
+  const [named, address] = await Promise.all([failuresSince(db, username, clientAddress, since, id), addressFailuresSince(db, clientAddress, since, id)]);
+  const overNamed = named.count > MAX_FAILURES;
+  const overAddress = address.count > MAX_ADDRESS_FAILURES;
+  if (!overNamed && !overAddress) return id;
   // The refusal itself is not counted as another failure.
   await deleteFailure(db, id);
+  // The limit lifts when the oldest failure of the count that was exceeded leaves the window.
+  const window = overNamed ? named : address;
   const retryAt = new Date((window.oldest ?? now).getTime() + WINDOW_MS);
   const seconds = Math.max(1, Math.ceil((retryAt.getTime() - now.getTime()) / 1000));
   const minutes = Math.ceil(seconds / 60);
@@ -35,7 +43,7 @@ export async function reserveSignInAttempt(db: Knex, username: string, clientAdd
       {
         path: '',
         message:
-          `Too many failed sign-ins for this username from your address. ` +
+          (overNamed ? `Too many failed sign-ins for this username from your address. ` : `Too many failed sign-ins from your address. `) +
           `Try again in ${minutes} minute${minutes === 1 ? '' : 's'} (after ${retryAt.toISOString().slice(11, 16)} UTC).`,
       },
     ],

@@ -19,7 +19,7 @@ export const TYPE = {
   small: 7.5,
   label: 8,
   heading: 9.5,
-  lineGap: 1.8,
+  lineGap: 1.2,
 } as const;
 
 export const INK = '#000000';
@@ -118,9 +118,9 @@ export class SheetWriter {
     return this;
   }
 
-  heightOf(text: string, font: SheetFont, size: number, width: number): number {
+  heightOf(text: string, font: SheetFont, size: number, width: number, lineGap: number = TYPE.lineGap): number {
     this.use(font, size);
-    return this.doc.heightOfString(text, { width, lineGap: TYPE.lineGap });
+    return this.doc.heightOfString(text, { width, lineGap });
   }
 
   /** Starts a new page unless `height` points still fit. */
@@ -164,13 +164,13 @@ export class SheetWriter {
    * `keepWith` is the height of what must follow on the same page.
    */
   section(number: number, title: string, keepWith = 40): void {
-    this.ensureSpace(17 + keepWith);
-    this.gap(4);
+    this.ensureSpace(16 + keepWith);
+    this.gap(3);
     const y = this.y;
     this.place(String(number), this.left, y, 'bold', TYPE.heading, { lineBreak: false });
     this.place(title.toUpperCase(), this.left + 16, y, 'bold', TYPE.heading, { characterSpacing: 0.6, lineBreak: false });
     this.hrule(y + 11.5, 1, INK);
-    this.y = y + 13.5;
+    this.y = y + 13;
   }
 
   /**

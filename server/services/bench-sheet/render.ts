@@ -2,7 +2,8 @@
  * Lays out the bench sheet from its model: header with the check code and QR,
  * the uncontrolled-copy notice, scope, parameters, clamping (with the setup photo), coolant,
  * numbered instructions, acceptance criteria, cautions, the standard cautions box,
- * signatures, and a footer on every page. One or two pages.
+ * signatures, and a footer on every page. One page where the end of the sheet set tighter
+ * fits, else two or more.
  */
 import { NO_SAFETY_CLAIM, PRECEDENCE_LINE, type Caution } from '../../../shared/cautions';
 import type { SheetModel } from './content';
@@ -215,39 +216,62 @@ export function balancedColumns<T>(items: readonly T[], columns: number, height:
   return best;
 }
 
-function cautionsBox(w: SheetWriter, m: SheetModel): void {
-  const pad = 8;
-  const gutter = 12;
-  // Four narrow columns in 7 pt: the box takes about half the height of two in 8 pt.
-  const columns = 4;
-  const standardSize = 7;
-  const colWidth = (w.width - 2 * pad - (columns - 1) * gutter) / columns;
-  const fullWidth = w.width - 2 * pad;
+/**
+ * How the standard cautions are set: two columns in 7 pt, a paragraph per caution; or, where
+ * only that keeps a sheet on one page, each column as one run-on paragraph in 6.5 pt (the size
+ * of the sheet's smallest labels) with tighter lines. Nothing is left out either way.
+ */
+interface CautionsStyle {
+  columns: number;
+  size: number;
+  lineGap: number;
+  band: number;
+  /** Each column as one run-on paragraph (titles in bold) rather than a paragraph per caution. */
+  runOn: boolean;
+}
+const CAUTIONS_STYLE: CautionsStyle = { columns: 2, size: 7, lineGap: 1.2, band: 18, runOn: false };
+const CAUTIONS_COMPACT: CautionsStyle = { columns: 2, size: 6.5, lineGap: 0.8, band: 15, runOn: true };
+const runOnText = (list: readonly Caution[]) => list.map((c) => `${c.title}. ${c.text}`).join('  ');
+const CAUTIONS_PAD = 8;
+const CAUTIONS_GUTTER = 12;
+
+/** The standard cautions split into balanced columns, and the recipe's own cautions, measured for `style`. */
+function cautionsLayout(w: SheetWriter, m: SheetModel, style: CautionsStyle) {
+  const { columns, size, lineGap } = style;
+  const colWidth = (w.width - 2 * CAUTIONS_PAD - (columns - 1) * CAUTIONS_GUTTER) / columns;
+  const fullWidth = w.width - 2 * CAUTIONS_PAD;
   // Measured in regular type, the column narrowed by what the bold title takes beyond regular type.
-  const boldExtra = (title: string) =>
-    w.use('bold', standardSize).doc.widthOfString(`${title}. `) - w.use('regular', standardSize).doc.widthOfString(`${title}. `);
+  const boldExtra = (title: string) => w.use('bold', size).doc.widthOfString(`${title}. `) - w.use('regular', size).doc.widthOfString(`${title}. `);
   const items = m.standardCautions.map((c) => ({
     ...c,
-    height: w.heightOf(`${c.title}. ${c.text}`, 'regular', standardSize, colWidth - boldExtra(c.title)) + 3.5,
+    height: w.heightOf(`${c.title}. ${c.text}`, 'regular', size, colWidth - boldExtra(c.title), lineGap) + 3.5,
   }));
   const forRecipe = m.recipeCautions.map((c) => ({ ...c, height: w.heightOf(`${c.title}. ${recipeCautionText(c)}`, 'bold', TYPE.small + 0.5, fullWidth) + 4 }));
   const forRecipeHeight = forRecipe.length ? 12 + forRecipe.reduce((sum, i) => sum + i.height, 0) + 17 : 0;
   // Split in order where the tallest column is the shortest, so the box wastes no height.
-  const heightOf = (list: typeof items) => list.reduce((sum, i) => sum + i.height, 0);
-  const parts = balancedColumns(items, columns, (i) => i.height);
+  const heightOf = (list: typeof items) =>
+    style.runOn ? w.heightOf(runOnText(list), 'bold', size, colWidth, lineGap) + 3.5 : list.reduce((sum, i) => sum + i.height, 0);
+  const parts = balancedColumns(items, columns, (i) => (style.runOn ? i.text.length + i.title.length : i.height));
   const colHeight = Math.max(...parts.map(heightOf));
-  const precedenceHeight = w.heightOf(PRECEDENCE_LINE, 'bold', TYPE.small, w.width - 2 * pad);
-  const claimHeight = w.heightOf(NO_SAFETY_CLAIM, 'regular', TYPE.small, w.width - 2 * pad);
+  const precedenceHeight = w.heightOf(PRECEDENCE_LINE, 'bold', TYPE.small, fullWidth);
+  const claimHeight = w.heightOf(NO_SAFETY_CLAIM, 'regular', TYPE.small, fullWidth);
   // As drawn below: heading band, recipe cautions, columns, rule, precedence line, claim.
-  const boxHeight = 24 + forRecipeHeight + colHeight + 6 + precedenceHeight + 2 + claimHeight + pad - 2;
-  w.ensureSpace(boxHeight + 6);
+  const height = style.band + 4 + forRecipeHeight + colHeight + 6 + precedenceHeight + 2 + claimHeight + CAUTIONS_PAD - 2;
+  return { colWidth, fullWidth, forRecipe, parts, height };
+}
+
+function cautionsBox(w: SheetWriter, m: SheetModel, style: CautionsStyle): void {
+  const pad = CAUTIONS_PAD;
+  const { columns, size, lineGap, band } = style;
+  const { colWidth, fullWidth, forRecipe, parts, height } = cautionsLayout(w, m, style);
+  w.ensureSpace(height + 6);
   w.gap(6);
   const top = w.y;
 
   // Heading bar: a drawn warning sign and the heading, on a faint band.
-  w.fillRect(w.left, top, w.width, 20, TINT);
+  w.fillRect(w.left, top, w.width, band, TINT);
   const tx = w.left + pad;
-  const ty = top + 4;
+  const ty = top + (band - 11) / 2 - 0.5;
   w.doc
     .save()
     .moveTo(tx + 6, ty)
@@ -259,11 +283,11 @@ function cautionsBox(w: SheetWriter, m: SheetModel): void {
     .stroke()
     .restore();
   w.place('!', tx + 4.4, ty + 2.2, 'bold', 7, { lineBreak: false });
-  w.place(forRecipe.length ? 'CAUTIONS' : 'STANDARD CAUTIONS', tx + 18, top + 5, 'bold', TYPE.heading, { characterSpacing: 0.6, lineBreak: false });
-  w.place('Read before every cut', w.right - pad - 110, top + 6.5, 'regular', TYPE.small, { width: 110, align: 'right', lineBreak: false }, MUTED);
+  w.place(forRecipe.length ? 'CAUTIONS' : 'STANDARD CAUTIONS', tx + 18, ty + 1, 'bold', TYPE.heading, { characterSpacing: 0.6, lineBreak: false });
+  w.place('Read before every cut', w.right - pad - 110, ty + 2.5, 'regular', TYPE.small, { width: 110, align: 'right', lineBreak: false }, MUTED);
 
   // What this recipe's material, coolant or flags call for, first and full width, with the basis of each.
-  let columnsTop = top + 20 + 4;
+  let columnsTop = top + band + 4;
   if (forRecipe.length) {
     let y = columnsTop;
     w.place('FOR THIS MATERIAL AND SETUP', w.left + pad, y, 'bold', TYPE.small, { characterSpacing: 0.6, lineBreak: false });
@@ -281,41 +305,107 @@ function cautionsBox(w: SheetWriter, m: SheetModel): void {
     columnsTop = y + 16;
   }
 
-  const writeColumn = (list: typeof items, x: number): number => {
+  const writeColumn = (list: (typeof parts)[number], x: number): number => {
     let y = columnsTop;
+    if (style.runOn) {
+      list.forEach((c, i) => {
+        const last = i === list.length - 1;
+        w.use('bold', size);
+        if (i === 0) w.doc.text(`${c.title}. `, x, y, { width: colWidth, lineGap, continued: true });
+        else w.doc.text(`${c.title}. `, { width: colWidth, lineGap, continued: true });
+        w.use('regular', size);
+        w.doc.text(last ? c.text : `${c.text}  `, { width: colWidth, lineGap, continued: !last });
+      });
+      return w.doc.y + 3.5;
+    }
     for (const c of list) {
-      w.use('bold', standardSize);
-      w.doc.text(`${c.title}. `, x, y, { width: colWidth, lineGap: TYPE.lineGap, continued: true });
-      w.use('regular', standardSize);
-      w.doc.text(c.text, { width: colWidth, lineGap: TYPE.lineGap });
+      w.use('bold', size);
+      w.doc.text(`${c.title}. `, x, y, { width: colWidth, lineGap, continued: true });
+      w.use('regular', size);
+      w.doc.text(c.text, { width: colWidth, lineGap });
       y = w.doc.y + 3.5;
     }
     return y;
   };
   // Written first; the box is drawn last to the height the columns really took.
-  const columnX = (i: number) => w.left + pad + i * (colWidth + gutter);
+  const columnX = (i: number) => w.left + pad + i * (colWidth + CAUTIONS_GUTTER);
   const columnsEnd = Math.max(...parts.map((list, i) => writeColumn(list, columnX(i))));
-  for (let i = 1; i < parts.length; i += 1) w.vrule(columnX(i) - gutter / 2, columnsTop, columnsEnd - 4, 0.5, RULE);
+  for (let i = 1; i < Math.min(parts.length, columns); i += 1) w.vrule(columnX(i) - CAUTIONS_GUTTER / 2, columnsTop, columnsEnd - 4, 0.5, RULE);
 
   let y = columnsEnd + 2;
   w.hrule(y, 0.5, RULE, w.left + pad, w.right - pad);
   y += 4;
-  y += w.place(PRECEDENCE_LINE, w.left + pad, y, 'bold', TYPE.small, { width: w.width - 2 * pad });
+  y += w.place(PRECEDENCE_LINE, w.left + pad, y, 'bold', TYPE.small, { width: fullWidth });
   y += 2;
-  y += w.place(NO_SAFETY_CLAIM, w.left + pad, y, 'regular', TYPE.small, { width: w.width - 2 * pad }, MUTED);
+  y += w.place(NO_SAFETY_CLAIM, w.left + pad, y, 'regular', TYPE.small, { width: fullWidth }, MUTED);
 
   const drawnHeight = y + pad - 2 - top;
   w.strokeRect(w.left, top, w.width, drawnHeight, 1.5, INK);
   w.y = top + drawnHeight + 4;
 }
 
+const SIGNATURE_COLUMNS = [
+  { title: 'Signed by', width: 0.3 },
+  { title: 'Meaning', width: 0.14 },
+  { title: 'Date and time (UTC)', width: 0.24 },
+  { title: 'Content SHA-256 (first 16)', width: 0.32 },
+];
+const bindingLine = (m: SheetModel) => `Signatures bind the content with SHA-256 ${m.contentHash.slice(0, 16)}…; the full hash and the trail are in Kerfbook.`;
+const changeReasonLine = (m: SheetModel) => (m.version > 1 && m.changeReason.trim() ? `Why this version: ${m.changeReason.trim()}` : '');
+
+/** One signature on one line: who, meaning, when (UTC) and the content hash they signed, then any comment. */
+const signatureLine = (s: SheetModel['signatures'][number]) => `${s.name} · ${s.meaning} · ${s.signedAt} · content SHA-256 ${s.hash}`;
+const signatureComment = (s: SheetModel['signatures'][number]) => (s.comment ? `“${s.comment}”` : '');
+
+/** The signatures as lines under a small heading: the same facts as the table in about half its height. */
+function compactSignaturesHeight(w: SheetWriter, m: SheetModel): number {
+  const lines = m.signatures.length
+    ? m.signatures.reduce(
+        (sum, s) =>
+          sum +
+          w.heightOf(signatureLine(s), 'bold', TYPE.body, w.width) +
+          (s.comment ? w.heightOf(signatureComment(s), 'regular', TYPE.small, w.width) : 0) +
+          1,
+        0,
+      )
+    : w.heightOf('No signature recorded.', 'regular', TYPE.body, w.width);
+  const reason = changeReasonLine(m);
+  return (
+    6 + 10 + lines + 1 + w.heightOf(bindingLine(m), 'regular', TYPE.small, w.width) + (reason ? 2 + w.heightOf(reason, 'regular', TYPE.small, w.width) : 0)
+  );
+}
+
+function compactSignatures(w: SheetWriter, m: SheetModel): void {
+  w.place('SIGNATURES', w.left, w.y, 'regular', 6.5, { characterSpacing: 0.5, lineBreak: false }, MUTED);
+  w.hrule(w.y + 8.5);
+  w.y += 10;
+  if (m.signatures.length === 0) w.paragraph('No signature recorded.', 'regular', TYPE.body);
+  for (const s of m.signatures) {
+    w.paragraph(signatureLine(s), 'bold', TYPE.body);
+    if (s.comment) w.paragraph(signatureComment(s), 'regular', TYPE.small, MUTED);
+    w.gap(1);
+  }
+  w.gap(1);
+  w.paragraph(bindingLine(m), 'regular', TYPE.small, MUTED);
+  const reason = changeReasonLine(m);
+  if (reason) {
+    w.gap(2);
+    w.paragraph(reason, 'regular', TYPE.small, INK);
+  }
+}
+
+/** The height the signature table, the binding line and the reason for the version take, as drawn below. */
+function signaturesHeight(w: SheetWriter, m: SheetModel): number {
+  const commentWidth = (SIGNATURE_COLUMNS[0]!.width + SIGNATURE_COLUMNS[1]!.width) * w.width - 10;
+  const rows = m.signatures.length
+    ? m.signatures.reduce((sum, s) => sum + 20 + (s.comment ? w.heightOf(`“${s.comment}”`, 'regular', TYPE.small, commentWidth) : 0), 0)
+    : 18;
+  const reason = changeReasonLine(m);
+  return 6 + 15 + rows + 3 + w.heightOf(bindingLine(m), 'regular', TYPE.small, w.width) + (reason ? 2 + w.heightOf(reason, 'regular', TYPE.small, w.width) : 0);
+}
+
 function signatures(w: SheetWriter, m: SheetModel): void {
-  const cols = [
-    { title: 'Signed by', width: 0.3 },
-    { title: 'Meaning', width: 0.14 },
-    { title: 'Date and time (UTC)', width: 0.24 },
-    { title: 'Content SHA-256 (first 16)', width: 0.32 },
-  ].map((c) => ({ ...c, width: c.width * w.width }));
+  const cols = SIGNATURE_COLUMNS.map((c) => ({ ...c, width: c.width * w.width }));
   const pad = 5;
   let top = w.y;
   w.fillRect(w.left, top, w.width, 15, TINT);
@@ -351,12 +441,12 @@ function signatures(w: SheetWriter, m: SheetModel): void {
     w.hrule(top);
   }
   w.y = top + 3;
-  w.paragraph(
-    `Signatures bind the content with SHA-256 ${m.contentHash.slice(0, 16)}…; the full hash and the trail are in Kerfbook.`,
-    'regular',
-    TYPE.small,
-    MUTED,
-  );
+  w.paragraph(bindingLine(m), 'regular', TYPE.small, MUTED);
+  const reason = changeReasonLine(m);
+  if (reason) {
+    w.gap(2);
+    w.paragraph(reason, 'regular', TYPE.small, INK);
+  }
 }
 
 /**
@@ -429,8 +519,9 @@ export async function renderSheet(input: SheetRenderInput): Promise<Buffer> {
     photoBlock(w, input.photo, w.right - photoWidth, top, photoWidth);
     w.y = Math.max(tableEnd, top + photoHeight + 2);
   } else {
+    // Up to six facts on one line: a second line of one fact wastes a row.
     w.section(++n, 'Clamping', 40);
-    w.grid(m.clamping, 5);
+    w.grid(m.clamping, m.clamping.length <= 6 ? Math.max(4, m.clamping.length) : 5);
   }
 
   // The steps follow straight on; a long list goes on over the page, step by step.
@@ -439,15 +530,15 @@ export async function renderSheet(input: SheetRenderInput): Promise<Buffer> {
 
   acceptanceAndCautions(w, m, n);
 
-  cautionsBox(w, m);
-
-  w.ensureSpace(60);
+  // The end of the sheet set tighter where only that keeps it off a page of its own.
+  const normalEnd = 6 + cautionsLayout(w, m, CAUTIONS_STYLE).height + 4 + signaturesHeight(w, m);
+  const compactEnd = 6 + cautionsLayout(w, m, CAUTIONS_COMPACT).height + 4 + compactSignaturesHeight(w, m);
+  const compact = w.y + normalEnd > w.bottom && w.y + compactEnd <= w.bottom;
+  cautionsBox(w, m, compact ? CAUTIONS_COMPACT : CAUTIONS_STYLE);
+  w.ensureSpace(compact ? 30 : 60);
   w.gap(6);
-  signatures(w, m);
-  if (m.version > 1 && m.changeReason.trim()) {
-    w.gap(2);
-    w.paragraph(`Why this version: ${m.changeReason.trim()}`, 'regular', TYPE.small, INK);
-  }
+  if (compact) compactSignatures(w, m);
+  else signatures(w, m);
 
   w.footers(`${m.number} · Version ${m.version} · Check code ${m.checkCode}`, input.footer);
   return w.toBuffer();

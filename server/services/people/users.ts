@@ -199,6 +199,18 @@ export async function updateUser(db: Knex, actor: Actor, id: number, input: Upda
       ]);
     }
 
+    // Separation of duties: a role comes from someone else. An admin who could make themselves
+    // approver could write, sign and release a recipe alone (21 CFR 11.10(g), authority checks).
+    const gained = rolesChange && actor.userId === id ? newRoles.filter((r) => !before.roles.includes(r)) : [];
+    if (gained.length > 0) {
+      throw new AppError(409, 'CONFLICT', [
+        {
+          path: 'roles',
+          message: `You cannot give yourself a role (${gained.join(', ')}); another admin must grant it, so nobody signs with a right they gave themselves.`,
+        },
+      ]);
+    }
+
     const newMachines = input.machineIds ? ascending(input.machineIds) : undefined;
     const machinesChange = newMachines && newMachines.join(',') !== before.machine_ids.join(',');
     if (machinesChange) await assertUsableMachines(trx, newMachines);

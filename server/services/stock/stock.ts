@@ -12,6 +12,7 @@ import type { Actor } from '../actor';
 import { appendTrailEvent } from '../trail/append';
 import { diff } from '../trail/changes';
 import type { StockKind } from './records';
+import { ownValue } from '../../../shared/own-key';
 
 type AnyRecord = { id: number; archived: boolean; updatedAt: string };
 
@@ -22,7 +23,7 @@ function snapshot(record: AnyRecord): Record<string, unknown> {
 }
 
 export async function listStock<B, R extends AnyRecord>(db: Knex, kind: StockKind<B, R>, query: StockListQuery): Promise<Page<R>> {
-  const sortColumn = kind.sortColumns[query.sort];
+  const sortColumn = ownValue(kind.sortColumns, query.sort);
   if (!sortColumn) {
     throw AppError.validation([{ path: 'sort', message: `Sort by one of: ${Object.keys(kind.sortColumns).join(', ')}.` }]);
   }

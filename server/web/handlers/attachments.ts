@@ -3,6 +3,7 @@ import type { Response } from 'express';
 import type { attachmentFields } from '../../../shared/schemas/attachment';
 import type { idParams, versionAttachmentParams, versionParams } from '../../../shared/schemas/params';
 import { AppError } from '../../app-error';
+import { versionScopeOf } from '../../services/operator/visibility';
 import * as attachments from '../../services/recipes/attachments';
 import type { RouteHandler } from '../route-definition';
 import { actorOf } from './request-actor';
@@ -38,9 +39,9 @@ function send(res: Response, image: attachments.ServedImage, ifNoneMatch: string
 }
 
 export const image: RouteHandler<{ params: typeof idParams }> = async (req, res, { db }, { params }) => {
-  send(res, await attachments.readAttachment(db, params.id, 'image'), req.headers['if-none-match']);
+  send(res, await attachments.readAttachment(db, params.id, 'image', versionScopeOf(req.user?.roles)), req.headers['if-none-match']);
 };
 
 export const thumbnail: RouteHandler<{ params: typeof idParams }> = async (req, res, { db }, { params }) => {
-  send(res, await attachments.readAttachment(db, params.id, 'thumbnail'), req.headers['if-none-match']);
+  send(res, await attachments.readAttachment(db, params.id, 'thumbnail', versionScopeOf(req.user?.roles)), req.headers['if-none-match']);
 };

@@ -1,5 +1,6 @@
 import { provideHttpClient, withInterceptors } from '@angular/common/http';
 import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
+import { signal } from '@angular/core';
 import { type ComponentFixture, TestBed } from '@angular/core/testing';
 import { TestbedHarnessEnvironment } from '@angular/cdk/testing/testbed';
 import { MatCheckboxHarness } from '@angular/material/checkbox/testing';
@@ -21,7 +22,7 @@ describe('PersonFormDialog', () => {
   let dialogRef: { close: ReturnType<typeof vi.fn> };
   let notifier: { show: ReturnType<typeof vi.fn> };
 
-  async function open(data: PersonFormDialogData): Promise<void> {
+  async function open(data: PersonFormDialogData, signedIn: UserDto | null = null): Promise<void> {
     dialogRef = { close: vi.fn() };
     notifier = { show: vi.fn() };
     TestBed.configureTestingModule({
@@ -33,7 +34,7 @@ describe('PersonFormDialog', () => {
         { provide: MatDialogRef, useValue: dialogRef },
         { provide: MAT_DIALOG_DATA, useValue: data },
         { provide: Notifier, useValue: notifier },
-        { provide: Session, useValue: { clear: vi.fn() } },
+        { provide: Session, useValue: { clear: vi.fn(), user: signal(signedIn) } },
       ],
     });
     backend = TestBed.inject(HttpTestingController);
@@ -154,6 +155,31 @@ describe('PersonFormDialog', () => {
     expect(req.request.body).toEqual({ displayName: 'Paul A. Meier', email: '', roles: ['operator', 'auditor'], machineIds: [] });
     req.flush({ ...person, displayName: 'Paul A. Meier', roles: ['operator', 'auditor'] });
     await vi.waitFor(() => expect(dialogRef.close).toHaveBeenCalled());
+  });
+
+  it('lets an admin editing themselves drop roles but not give themselves new ones, and says why', async () => {
+    const me = aUser({ id: 9, username: 'aadmin', displayName: 'Ada Admin', email: '', roles: ['admin', 'auditor'] });
+    await open({ person: me }, me);
+    const loader = TestbedHarnessEnvironment.loader(fixture);
+    const box = async (label: string) => loader.getHarness(MatCheckboxHarness.with({ label: new RegExp(`^${label}`) }));
+    expect(await (await box('Approver')).isDisabled()).toBe(true);
+    expect(await (await box('Author')).isDisabled()).toBe(true);
+    expect(await (await box('Auditor')).isDisabled()).toBe(false);
+    expect(await text('self-roles-hint')).toMatch(/another admin/i);
+    await (await box('Auditor')).uncheck();
+    submit();
+    const req = await vi.waitFor(() => backend.expectOne({ method: 'PATCH', url: '/api/users/9' }));
+    expect(req.request.body.roles).toEqual(['admin']);
+    req.flush({ ...me, roles: ['admin'] });
+    await vi.waitFor(() => expect(dialogRef.close).toHaveBeenCalled());
+  });
+
+  it('leaves every role open when an admin edits someone else', async () => {
+    const me = aUser({ id: 9, roles: ['admin'] });
+    await open({ person: aUser({ id: 5, roles: ['operator'] }) }, me);
+    const loader = TestbedHarnessEnvironment.loader(fixture);
+    expect(await (await loader.getHarness(MatCheckboxHarness.with({ label: /^Approver/ }))).isDisabled()).toBe(false);
+    expect(root.querySelector('[data-testid="self-roles-hint"]')).toBeNull();
   });
 
   const machines = [aMachine({ id: 1, name: 'Bench saw B2' }), aMachine({ id: 3, name: 'Floor saw F1' }), aMachine({ id: 4, name: 'Old saw', archived: true })];

@@ -21,6 +21,7 @@ import { isApiError } from '../core/http/api-error';
 import { callerHandles } from '../core/http/caller-handles';
 import { PeopleApi } from '../core/api/people-api';
 import { suggestTemporaryPassword } from './temporary-password';
+import { Session } from '../core/session/session';
 
 export interface PersonFormDialogData {
   /** The person to edit; absent to add a new one. */
@@ -54,6 +55,8 @@ export class PersonFormDialog {
   private readonly data = inject<PersonFormDialogData>(MAT_DIALOG_DATA);
   private readonly person = this.data.person;
   private readonly fb = inject(NonNullableFormBuilder);
+  /** Editing one's own record: roles one does not hold stay closed (another admin grants them; the server refuses too). */
+  protected readonly isSelf = this.person !== undefined && this.person.id === inject(Session).user()?.id;
   private readonly usernameInput = viewChild<ElementRef<HTMLInputElement>>('usernameInput');
 
   protected readonly isNew = !this.person;
@@ -85,6 +88,7 @@ export class PersonFormDialog {
     }
     // An invited person chooses their own password from the mail link.
     if (this.isInvite) this.form.controls.temporaryPassword.disable();
+    if (this.isSelf) for (const role of ROLES) if (!this.person?.roles.includes(role)) this.form.controls.roles.controls[role].disable();
   }
 
   protected suggestPassword(): void {

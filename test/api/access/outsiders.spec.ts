@@ -59,7 +59,7 @@ describe('Operators, auditors and anonymous callers: no drafts, no people, no wr
     targets = await createTargets(ctx.db);
   });
 
-  /** Every read of a recipe's versions, pointed at the draft. */
+  /** Every read of a recipe's versions, pointed at the draft, and the photo of a draft. */
   const draftPaths = () => {
     const base = `/api/recipes/${draft.recipeId}/versions/1`;
     return [
@@ -70,6 +70,9 @@ describe('Operators, auditors and anonymous callers: no drafts, no people, no wr
       `${base}/cuts.csv`,
       `${base}/sheet.pdf`,
       `/api/recipes/${draft.recipeId}/compare?from=1&to=1`,
+      // The walk's draft carries a photo: its bytes are as unreachable as the draft.
+      `/api/attachments/${targets.attachment}`,
+      `/api/attachments/${targets.attachment}/thumbnail`,
     ];
   };
 

@@ -1,6 +1,7 @@
 import { createHash } from 'node:crypto';
 import { expect } from 'chai';
 import sharp from 'sharp';
+import request from 'supertest';
 import { CSRF_HEADER } from '../../../shared/api-types';
 import type { AttachmentDto, RecipeVersionDto } from '../../../shared/recipe-types';
 import { apiTestContext } from '../support/hooks';
@@ -94,7 +95,7 @@ describe('Attachments (photos of a version)', () => {
     });
 
     it('serves the bytes unchanged with the sniffed type, nosniff, a strong ETag and cache headers; 304 on a match', async () => {
-      const res = await operator.agent.get(stored.url).buffer(true).parse(binary).expect(200);
+      const res = await author.agent.get(stored.url).buffer(true).parse(binary).expect(200);
       expect(Buffer.compare(res.body as Buffer, png)).to.equal(0);
       expect(res.headers['content-type']).to.equal('image/png');
       expect(res.headers['x-content-type-options']).to.equal('nosniff');
@@ -102,12 +103,12 @@ describe('Attachments (photos of a version)', () => {
       expect(res.headers['cache-control'])
         .to.match(/private/)
         .and.match(/max-age=\d+/);
-      const again = await operator.agent.get(stored.url).set('If-None-Match', `"${sha256(png)}"`);
+      const again = await author.agent.get(stored.url).set('If-None-Match', `"${sha256(png)}"`);
       expect(again.status).to.equal(304);
     });
 
     it('serves a 320 px wide thumbnail', async () => {
-      const res = await operator.agent.get(stored.thumbnailUrl).buffer(true).parse(binary).expect(200);
+      const res = await author.agent.get(stored.thumbnailUrl).buffer(true).parse(binary).expect(200);
       expect(res.headers['content-type']).to.equal('image/webp');
       expect(res.headers['x-content-type-options']).to.equal('nosniff');
       expect(res.headers['etag']).to.match(/^"[0-9a-f]{64}"$/);
@@ -135,7 +136,7 @@ describe('Attachments (photos of a version)', () => {
       expect(w.status, JSON.stringify(w.body)).to.equal(201);
       expect(w.body).to.include({ mimeType: 'image/webp', width: 300, height: 200 });
       // Smaller than the thumbnail width: not enlarged.
-      const thumb = await operator.agent.get(w.body.thumbnailUrl).buffer(true).parse(binary).expect(200);
+      const thumb = await author.agent.get(w.body.thumbnailUrl).buffer(true).parse(binary).expect(200);
       expect((await sharp(thumb.body as Buffer).metadata()).width).to.equal(300);
     });
 
@@ -154,7 +155,7 @@ describe('Attachments (photos of a version)', () => {
       const res = await upload(big, 'big.png', 'image/png');
       expect(res.status, JSON.stringify(res.body)).to.equal(201);
       expect(res.body.sha256).to.equal(sha256(big));
-      const got = await operator.agent.get(res.body.url).buffer(true).parse(binary).expect(200);
+      const got = await author.agent.get(res.body.url).buffer(true).parse(binary).expect(200);
       expect(sha256(got.body as Buffer)).to.equal(sha256(big));
     });
   });
@@ -263,7 +264,7 @@ describe('Attachments (photos of a version)', () => {
     it('deletes an attachment of a draft with a trail row; 404 afterwards', async () => {
       const added = (await upload(png, 'gone.png', 'image/png').expect(201)).body as AttachmentDto;
       await author.agent.delete(`${uploadUrl()}/${added.id}`).set(CSRF_HEADER, author.csrf).expect(204);
-      expect((await operator.agent.get(added.url)).status).to.equal(404);
+      expect((await author.agent.get(added.url)).status).to.equal(404);
       const event = await ctx
         .db('trail_events')
         .where({ event_type: 'attachment.deleted', entity_id: String(added.id) })
@@ -282,10 +283,59 @@ describe('Attachments (photos of a version)', () => {
         const add = await upload(png, 'late.png', 'image/png');
         expect(add.status).to.equal(409);
         await expectNothingStored(before);
-        expect((await operator.agent.get(added.url)).status).to.equal(200);
+        expect((await author.agent.get(added.url)).status).to.equal(200);
       } finally {
         await ctx.db('recipe_versions').where({ recipe_id: draft.recipeId, version: 1 }).update({ status: 'draft' });
       }
+    });
+  });
+
+  describe("follow their version's visibility", () => {
+    // Attachment ids are sequential: an operator could read every draft's photos by counting.
+    let photo: AttachmentDto;
+    let recipeId: number;
+    let readers: { role: string; who: { agent: Agent; csrf: string } }[];
+
+    before(async () => {
+      const stock = await createStockSet(ctx.db);
+      const made = (await author.agent.post('/api/recipes').set(CSRF_HEADER, author.csrf).send(recipeInput(stock)).expect(201)).body as RecipeVersionDto;
+      recipeId = made.recipeId;
+      let req = author.agent.post(`/api/recipes/${recipeId}/versions/1/attachments`).set(CSRF_HEADER, author.csrf).field('role', 'setup');
+      req = req.field('caption', 'Not released yet');
+      photo = (await req.attach('file', png, { filename: 'draft.png', contentType: 'image/png' }).expect(201)).body;
+      readers = [];
+      for (const role of ['author', 'approver', 'auditor', 'admin'] as const)
+        readers.push({ role, who: await signedInAgent(ctx.app, await createPerson(ctx.db, { roles: [role] })) });
+    });
+
+    const setStatus = (status: string) => ctx.db('recipe_versions').where({ recipe_id: recipeId, version: 1 }).update({ status });
+
+    for (const status of ['draft', 'in-review', 'returned']) {
+      it(`answers an operator 404 for the photo and thumbnail of a version that is ${status}, worded as for an unknown id`, async () => {
+        await setStatus(status);
+        for (const url of [photo.url, photo.thumbnailUrl]) {
+          const res = await operator.agent.get(url);
+          expect(res.status, url).to.equal(404);
+          expect(res.body, url).to.deep.equal({ code: 'NOT_FOUND', errors: [{ path: '', message: `There is no attachment with id ${photo.id}.` }] });
+          expect(res.headers['etag'], url).not.to.equal(`"${photo.sha256}"`);
+          // Not even a 304 tells the operator that the guessed id exists.
+          expect((await operator.agent.get(url).set('If-None-Match', `"${photo.sha256}"`)).status, url).to.equal(404);
+        }
+        for (const { role, who } of readers) expect((await who.agent.get(photo.url)).status, role).to.equal(200);
+      });
+    }
+
+    for (const status of ['approved', 'superseded', 'withdrawn']) {
+      it(`serves an operator the photo of a version that is ${status}`, async () => {
+        await setStatus(status);
+        expect((await operator.agent.get(photo.url)).status).to.equal(200);
+        expect((await operator.agent.get(photo.thumbnailUrl)).status).to.equal(200);
+      });
+    }
+
+    it('answers anonymous callers 401', async () => {
+      const res = await request(ctx.app).get(photo.url);
+      expect(res.status).to.equal(401);
     });
   });
 });

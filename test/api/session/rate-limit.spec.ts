@@ -1,6 +1,6 @@
 import { expect } from 'chai';
 import { CSRF_HEADER } from '../../../shared/api-types';
-import { MAX_FAILURES } from '../../../server/services/auth/sign-in-limiter';
+import { MAX_ADDRESS_FAILURES, MAX_FAILURES } from '../../../server/services/auth/sign-in-limiter';
 import { apiTestContext } from '../support/hooks';
 import { createPerson, type TestPerson } from '../support/people';
 import { anonymousAgent } from '../support/test-app';
@@ -65,5 +65,35 @@ describe('Sign-in limit per (username, client address)', () => {
   it('counts unknown usernames too, so guessing names is limited as well', async () => {
     for (let i = 0; i < MAX_FAILURES; i++) expect((await attempt('192.0.2.1', 'x', 'ghost.user')).status).to.equal(401);
     expect((await attempt('192.0.2.1', 'x', 'ghost.user')).status).to.equal(429);
+  });
+
+  describe('per address, across usernames', () => {
+    // Spraying: one common password tried once on many accounts stays under every per-name
+    // limit; the address's own count stops it.
+    const SPRAYER = '203.0.113.99';
+
+    it(`refuses an address after ${MAX_ADDRESS_FAILURES} failures over any usernames, the right password of another person included`, async () => {
+      expect(MAX_ADDRESS_FAILURES).to.equal(30);
+      for (let i = 0; i < MAX_ADDRESS_FAILURES; i++) {
+        const res = await attempt(SPRAYER, 'Summer2026!', `sprayed.user${i}`);
+        expect(res.status, `attempt ${i + 1}`).to.equal(401);
+      }
+      const blocked = await attempt(SPRAYER, person.password);
+      expect(blocked.status).to.equal(429);
+      expect(blocked.body.code).to.equal('TOO_MANY_ATTEMPTS');
+      expect(blocked.body.errors[0].message).to.match(/Too many failed sign-ins from your address/);
+      expect(Number(blocked.headers['retry-after'])).to.be.within(1, 15 * 60);
+      // Other addresses are not affected.
+      expect((await attempt(OFFICE, person.password)).status).to.equal(200);
+    });
+
+    it("a good sign-in from the address does not wipe the address's count of other names", async () => {
+      const address = '203.0.113.100';
+      const other = await createPerson(ctx.db, { username: 'spray.target', roles: ['operator'] });
+      for (let i = 0; i < MAX_ADDRESS_FAILURES - 1; i++) expect((await attempt(address, 'Winter2026!', `tried.user${i}`)).status).to.equal(401);
+      expect((await attempt(address, other.password, other.username)).status).to.equal(200);
+      expect((await attempt(address, 'Winter2026!', 'tried.last')).status).to.equal(401);
+      expect((await attempt(address, 'Winter2026!', 'tried.after')).status).to.equal(429);
+    });
   });
 });

@@ -81,32 +81,61 @@ describe('Bench sheet at the saw', () => {
     }
   });
 
-  it('moves the instructions up: page 1 holds everything but the standard cautions and signatures, with who prepared it beside who approved it', async function () {
-    this.timeout(30000);
-    const steps = [
-      '1. Inspect the wheel for chips and cracks; check its marked speed against the recipe.',
-      '2. Clamp the part on both sides of the cut; the offcut must not drop or pinch the wheel.',
-      '3. Check the coolant concentration with the refractometer.',
-      '4. Close the hood, start the coolant, then the wheel; start the automatic feed.',
-      '5. After the cut, let the wheel stop before opening the hood. Deburr the specimen.',
-    ];
-    const v = await approved(
+  const steps = [
+    '1. Inspect the wheel for chips and cracks; check its marked speed against the recipe.',
+    '2. Clamp the part on both sides of the cut; the offcut must not drop or pinch the wheel.',
+    '3. Check the coolant concentration with the refractometer.',
+    '4. Close the hood, start the coolant, then the wheel; start the automatic feed.',
+    '5. After the cut, let the wheel stop before opening the hood. Deburr the specimen.',
+  ];
+  async function usualRecipe(title: string, stepCount: number) {
+    return approved(
       author,
       approver,
-      await createStockSet(ctx.db, { machine: { name: 'Usual saw' }, wheel: { name: 'Usual wheel' }, material: { name: 'Usual C45' } }),
+      await createStockSet(ctx.db, { machine: { name: `${title} saw` }, wheel: { name: 'Usual wheel' }, material: { name: `${title} C45` } }),
       {
-        title: 'Usual length',
+        title,
         clamping: { placement: 'Jaws 10 mm either side of the cut line.', orientationRule: 'Mark faces the operator.' },
-        instructionsMd: steps.join('\n'),
+        instructionsMd: steps.slice(0, stepCount).join('\n'),
       },
     );
+  }
+
+  it('fits a short sheet on one A4 page, standard cautions and signatures included, with who prepared it beside who approved it', async function () {
+    this.timeout(30000);
+    const v = await usualRecipe('Short', 3);
+    const sheet = await sheetOf(v.recipeId);
+    // Three steps, the usual scope and clamping, one signature: the end of the sheet is set
+    // tighter rather than sent to a page of its own.
+    expect(sheet.pages, 'pages').to.equal(1);
+    const page1 = flat(sheet.pageTexts[0]!);
+    for (const step of steps.slice(0, 3)) expect(page1, step).to.include(step);
+    expect(page1).to.include('No burn marks.');
+    expect(page1).to.match(/Prepared by Ines Author/i);
+    expect(page1).to.match(/Approved by Petra Approver/i);
+    // Every standard caution, the precedence line and the signature are still printed.
+    for (const title of [
+      'Wheel speed and guards',
+      'Inspect the wheel before mounting',
+      'Clamp the part',
+      'Coolant',
+      'Hazardous dusts',
+      'Lock out before maintenance',
+    ])
+      expect(page1, title).to.include(`${title}.`);
+    expect(page1).to.include('take precedence over this sheet');
+    expect(page1).to.match(/Petra Approver · Approved · \d{4}-\d{2}-\d{2} \d{2}:\d{2} UTC · content SHA-256 [0-9a-f]{16}/);
+    expect(page1).to.include('Page 1 of 1');
+  });
+
+  it('moves the instructions up: a longer sheet keeps every step on page 1 and goes on to a second page only for the cautions and signatures', async function () {
+    this.timeout(30000);
+    const v = await usualRecipe('Longer', 5);
     const sheet = await sheetOf(v.recipeId);
     expect(sheet.pages, 'pages').to.be.within(1, 2);
     const page1 = flat(sheet.pageTexts[0]!);
     for (const step of steps) expect(page1, step).to.include(step);
     expect(page1).to.include('No burn marks.');
-    expect(page1).to.match(/Prepared by Ines Author/i);
-    expect(page1).to.match(/Approved by Petra Approver/i);
     const text = flat(sheet.text);
     expect(text).to.include('STANDARD CAUTIONS');
     expect(text).to.include(`Page ${sheet.pages} of ${sheet.pages}`);

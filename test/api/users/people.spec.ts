@@ -237,12 +237,41 @@ describe('People (admin)', () => {
       expect(await eventsSince(mark)).to.have.length(0);
       const roles = await ctx.db('user_roles').where({ user_id: admin.id }).pluck('role');
       expect(roles).to.deep.equal(['admin']);
-      // Adding a role to oneself is fine.
-      const more = await agent
+    });
+
+    it('refuses to let anyone give themselves a role: an admin who made themselves approver could approve alone', async () => {
+      for (const extra of ['approver', 'author', 'auditor'] as const) {
+        const mark = await lastEventId();
+        const res = await agent
+          .patch(`/api/users/${admin.id}`)
+          .set(CSRF_HEADER, csrf)
+          .send({ roles: ['admin', extra] });
+        expect(res.status, extra).to.equal(409);
+        expect(res.body.errors[0], extra).to.include({ path: 'roles' });
+        expect(res.body.errors[0].message, extra).to.match(/cannot give yourself .*another admin/i);
+        expect(await eventsSince(mark), extra).to.have.length(0);
+      }
+      expect(await ctx.db('user_roles').where({ user_id: admin.id }).pluck('role')).to.deep.equal(['admin']);
+      // Another admin grants it, with the trail naming who did.
+      const second = await createPerson(ctx.db, { username: 'bo.admin', displayName: 'Bo Admin', roles: ['admin'] });
+      const other = await signedInAgent(ctx.app, second);
+      const mark = await lastEventId();
+      const granted = await other.agent
         .patch(`/api/users/${admin.id}`)
-        .set(CSRF_HEADER, csrf)
-        .send({ roles: ['admin', 'auditor'] });
-      expect(more.status).to.equal(200);
+        .set(CSRF_HEADER, other.csrf)
+        .send({ roles: ['admin', 'approver'] });
+      expect(granted.status).to.equal(200);
+      const [event] = await eventsSince(mark);
+      expect(event).to.include({ event_type: 'user.roles_changed', actor_user_id: second.id, entity_id: String(admin.id) });
+      // Giving up a role of one's own (not the last admin's) stays possible.
+      expect(
+        (
+          await agent
+            .patch(`/api/users/${admin.id}`)
+            .set(CSRF_HEADER, csrf)
+            .send({ roles: ['admin'] })
+        ).status,
+      ).to.equal(200);
     });
   });
 
