@@ -89,10 +89,8 @@ describe('mail links in chromium', () => {
       .waitFor();
     await screenshot(page, '60-acknowledge');
     await page.getByRole('button', { name: /^Acknowledge/ }).click();
-    await page
-      .getByText(/You acknowledged/i)
-      .first()
-      .waitFor();
+    // The confirmation names this version ("Since version 1, which you acknowledged …" is on the page before).
+    await page.getByText(new RegExp(`You acknowledged version ${draft.version} of ${NUMBER}`)).waitFor();
 
     const acks = await asApprover.get<AcknowledgementsDto>(`/api/recipes/${recipe.id}/versions/${draft.version}/acknowledgements`);
     expect(acks.acknowledged.map((a) => a.displayName)).to.include(operator.displayName);
