@@ -54,6 +54,18 @@ export interface RecipeVersionDto {
    * sheet opens. Null for everyone else.
    */
   myAcknowledgement?: MyAcknowledgementDto | null;
+  /**
+   * Whether the stored content still is what was submitted and signed: its SHA-256
+   * recomputed on every read against the stored hash and every signature's. Present on
+   * every version the server sends.
+   */
+  integrity?: VersionIntegrityDto;
+}
+
+/** A failed integrity check says what does not match, in words an auditor can act on. */
+export interface VersionIntegrityDto {
+  ok: boolean;
+  problems: string[];
 }
 
 /** The signed-in operator's acknowledgement of one version. */
@@ -176,8 +188,8 @@ export interface TextChange {
 export interface RecipeComparison {
   recipeId: number;
   number: string;
-  from: { version: number; status: string; title: string };
-  to: { version: number; status: string; title: string };
+  from: { version: number; status: string; title: string; integrity?: VersionIntegrityDto };
+  to: { version: number; status: string; title: string; integrity?: VersionIntegrityDto };
   parameters: ParameterChange[];
   texts: TextChange[];
 }

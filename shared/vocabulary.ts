@@ -357,6 +357,7 @@ export const TRAIL_EVENT_LABELS: Record<string, string> = {
   'cut.recorded': 'Cut logged',
   'cut.flag_cleared': 'Cut flag cleared',
   'recipe.version_acknowledged': 'Version acknowledged',
+  'recipe.version_integrity_failed': 'Version failed its integrity check',
   'lab_settings.changed': LAB_SETTINGS_EVENT_LABEL,
 };
 

@@ -23,6 +23,8 @@ import { visibleVersion, type VersionScope } from '../operator/visibility';
 import { loadRecipeContext } from '../recipes/context-loader';
 import { requireActor, versionDto } from '../recipes/recipes';
 import { formatDateTime } from '../../../shared/date-format';
+import { DEFAULT_MAIL_SETTINGS, type MailSettings } from '../mail/settings';
+import { reportIntegrityFailure } from '../recipes/integrity-alert';
 import { buildSheetModel } from './content';
 import { qrPng } from './qr';
 import { renderSheet, type SheetPhoto } from './render';
@@ -61,6 +63,7 @@ export async function printBenchSheet(
   origin: string,
   scope: VersionScope = 'all',
   now = new Date(),
+  mail: MailSettings = DEFAULT_MAIL_SETTINGS,
 ): Promise<BenchSheet> {
   const userId = requireActor(actor);
   // 404 for an unknown recipe or version, and for one the person may not see (an operator and a draft).
@@ -80,6 +83,17 @@ export async function printBenchSheet(
       `Version ${version} of ${dto.number} is ${RECIPE_STATUS_PHRASES[dto.status]}: only approved versions (current or approved for a later day) print as bench sheets.${instead}`,
       'status',
     );
+  }
+
+  // Content that no longer matches its signatures never reaches the bench.
+  if (dto.integrity && !dto.integrity.ok) {
+    await reportIntegrityFailure(db, mail, dto, dto.integrity);
+    throw new AppError(409, 'INTEGRITY_FAILED', [
+      {
+        path: '',
+        message: `Version ${version} of ${dto.number} fails its integrity check: its content no longer matches its signatures, so its bench sheet does not print. Admins and auditors have been told.`,
+      },
+    ]);
   }
 
   // An operator of the machine reads and acknowledges a version before its sheet reaches the bench.

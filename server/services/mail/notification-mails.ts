@@ -30,11 +30,18 @@ const WHY: Record<NotificationKind, string> = {
   'review-due': 'you wrote this recipe',
   'cut-flagged': 'you wrote this recipe',
   'version-current': 'you are assigned to the machine this recipe is for',
+  'integrity-failed': 'you are an admin or an auditor',
+};
+
+/** Why a mail that cannot be turned off must reach its reader. */
+const MUST_KNOW: Partial<Record<NotificationKind, string>> = {
+  'version-current': 'everyone at the machine must know which version is in use',
+  'integrity-failed': 'a change to signed records behind the application must be looked into',
 };
 
 function footer(settings: MailSettings, kind: NotificationKind): string[] {
   if (!isOptional(kind)) {
-    return [`You get this mail because ${WHY[kind]}. It cannot be turned off: everyone at the machine must know which version is in use.`];
+    return [`You get this mail because ${WHY[kind]}. It cannot be turned off: ${MUST_KNOW[kind] ?? 'it concerns the records everyone relies on'}.`];
   }
   return [`You get this mail because ${WHY[kind]}. You can turn these mails off under My account: ${absoluteLink(settings.baseUrl, '/account')}`];
 }
@@ -154,5 +161,21 @@ export function reviewDueMail(
       'Check that the recipe still fits the lab, then start a new version or have it approved again.',
     ],
     { label: 'Open the recipe', path: recipePath(v) },
+  );
+}
+
+/** The stored content of a signed version no longer matches its hash or its signatures. */
+export function integrityFailedMail(settings: MailSettings, to: Recipient, v: VersionRef, problems: readonly string[]): OutgoingMail {
+  return mail(
+    settings,
+    'integrity-failed',
+    to,
+    `Integrity check failed: ${versionName(v)}`,
+    [
+      `Kerfbook recomputed the content hash of ${versionName(v)} and it does not match what was signed:`,
+      ...problems.map((p) => `- ${p}`),
+      'Someone changed the database outside the application, or restored a damaged backup. Its bench sheet no longer prints. Compare the version with the trail, and restore from a backup you trust.',
+    ],
+    { label: 'Open the version', path: recipePath(v) },
   );
 }

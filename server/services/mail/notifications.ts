@@ -9,6 +9,7 @@ import { dateFormatOf, findLabSettings } from '../../data/lab-settings';
 import { enqueueMail, type OutgoingMail } from './outbox';
 import {
   cutFlaggedMail,
+  integrityFailedMail,
   reviewDueMail,
   reviewRequestedMail,
   versionApprovedMail,
@@ -18,7 +19,7 @@ import {
   type VersionRef,
 } from './notification-mails';
 import type { MailSettings } from './settings';
-import { authorsOf, operatorsOf, reviewersOf, type Recipient } from './recipients';
+import { authorsOf, guardiansOf, operatorsOf, reviewersOf, type Recipient } from './recipients';
 
 async function enqueueAll(trx: Knex.Transaction, recipients: readonly Recipient[], build: (to: Recipient) => OutgoingMail, now: Date): Promise<number> {
   for (const to of recipients) await enqueueMail(trx, build(to), now);
@@ -103,4 +104,15 @@ export async function notifyReviewDue(
   const to = await authorsOf(trx, versionId, 'review-due');
   const dateFormat = dateFormatOf(await findLabSettings(trx));
   return enqueueAll(trx, to, (r) => reviewDueMail(settings, r, v, dueOn, today, dateFormat), now);
+}
+
+export async function notifyIntegrityFailed(
+  trx: Knex.Transaction,
+  settings: MailSettings,
+  v: VersionRef,
+  problems: readonly string[],
+  now: Date,
+): Promise<number> {
+  const to = await guardiansOf(trx);
+  return enqueueAll(trx, to, (r) => integrityFailedMail(settings, r, v, problems), now);
 }

@@ -32,3 +32,13 @@ export function authorsOf(db: Knex, versionId: number, kind: NotificationKind): 
 export function operatorsOf(db: Knex, machineId: number): Promise<Recipient[]> {
   return recipients(db, 'version-current', { role: 'operator', machineId });
 }
+
+/** Admins and auditors, each once: the people who look into records changed behind the application. */
+export async function guardiansOf(db: Knex): Promise<Recipient[]> {
+  const [admins, auditors] = await Promise.all([
+    recipients(db, 'integrity-failed', { role: 'admin' }),
+    recipients(db, 'integrity-failed', { role: 'auditor' }),
+  ]);
+  const byId = new Map([...admins, ...auditors].map((r) => [r.id, r]));
+  return [...byId.values()].sort((a, b) => a.id - b.id);
+}

@@ -13,6 +13,8 @@ import { findStockRows, type StockRowBase, type StockTable } from '../../data/st
 import { fromJsonColumn } from '../../data/json-column';
 import { visibleVersion, type VersionScope } from '../operator/visibility';
 import { keptWordDiff } from './text-diff-memo';
+import { listSignatureRows } from '../../data/workflow';
+import { versionIntegrity } from './version-integrity';
 
 async function versionOrNotFound(db: Knex, recipeId: number, version: number): Promise<VersionWithNames> {
   const row = await findVersion(db, recipeId, version);
@@ -57,5 +59,18 @@ export async function compareRecipeVersions(
     pref,
     keptWordDiff,
   );
-  return { recipeId, number: a.number, ...comparison };
+  // Each side's content held against its signatures, as a read of the version does.
+  const signatures = await listSignatureRows(db, [a.id, b.id]);
+  const integrityOf = (row: typeof a) =>
+    versionIntegrity(
+      row,
+      signatures.filter((s) => s.version_id === row.id),
+    );
+  return {
+    recipeId,
+    number: a.number,
+    ...comparison,
+    from: { ...comparison.from, integrity: integrityOf(a) },
+    to: { ...comparison.to, integrity: integrityOf(b) },
+  };
 }

@@ -11,6 +11,7 @@ import type { EditorRow, SignatureRow } from '../../data/workflow';
 import { dayOf } from '../../../shared/calendar-dates';
 import { reviewDue } from '../../../shared/review-due';
 import { toSignatureDto } from './signatures';
+import { versionIntegrity } from './version-integrity';
 
 /** The rows of other tables a version's workflow facts come from (for one or many versions). */
 export interface WorkflowRows {
@@ -81,6 +82,10 @@ export function toVersionDto(row: VersionWithNames, attachments: readonly Attach
     updatedAt: new Date(row.updated_at).toISOString(),
     attachments: attachments.filter((a) => a.version_id === row.id).map(toAttachmentDto),
     workflow: toVersionWorkflow(row, workflow),
+    integrity: versionIntegrity(
+      row,
+      workflow.signatures.filter((s) => s.version_id === row.id),
+    ),
   };
 }
 

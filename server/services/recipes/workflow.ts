@@ -5,7 +5,7 @@
  * revision and writes its trail event (before and after status) — so of two people acting
  * on the same version at the same moment exactly one succeeds and the other gets 409.
  */
-import { createHash } from 'node:crypto';
+import { contentSha256 } from './version-integrity';
 import type { Knex } from 'knex';
 import type { FieldError } from '../../../shared/api-error';
 import { changeReasonMissing, runChecks, worstSeverity, type CheckResult } from '../../../shared/recipe-checks';
@@ -41,6 +41,7 @@ import type { VersionRef } from '../mail/notification-mails';
 import { notifyApproved, notifyReturned, notifyReviewRequested, notifyVersionCurrent } from '../mail/notifications';
 import { makeCurrent, recordSuperseded, replacedVersion } from './supersession';
 import { RECIPE_STATUS_PHRASES, type RecipeStatus } from '../../../shared/vocabulary';
+import { reportIntegrityFailure } from './integrity-alert';
 
 /** The review interval when the lab has not set one: two years, a common periodic-review cycle. */
 export const DEFAULT_REVIEW_INTERVAL_MONTHS = 24;
@@ -97,9 +98,18 @@ function expectState(number: string, v: VersionRow, allowed: readonly RecipeStat
   }
 }
 
-/** SHA-256 (hex) of the stored canonical content text: exactly the bytes a signature binds. */
-export function contentSha256(contentJson: string): string {
-  return createHash('sha256').update(contentJson, 'utf8').digest('hex');
+/**
+ * A signature binds the content as it was submitted: content changed since then (by
+ * someone writing to the database) is not signed, whatever its stored hash says.
+ */
+function requireIntact(number: string, v: { version: number; content_json: string; content_hash: string | null }): void {
+  if (v.content_hash !== null && contentSha256(v.content_json) === v.content_hash) return;
+  throw new AppError(409, 'INTEGRITY_FAILED', [
+    {
+      path: '',
+      message: `Version ${v.version} of ${number} fails its integrity check: its content no longer matches what was submitted, so it cannot be signed. Admins and auditors have been told.`,
+    },
+  ]);
 }
 
 /** The checks of frozen content against the stock as it is now. */
@@ -250,6 +260,12 @@ export async function approveVersion(
   const seen = await findVersion(db, recipeId, version);
   if (!seen) return versionDto(db, recipeId, version); // throws the right 404
   if (await isEditorOf(db, seen.id, userId)) throw ownVersion();
+  if (seen.content_hash !== null && contentSha256(seen.content_json) !== seen.content_hash) {
+    // Reported before refusing: the approver's answer says admins and auditors were told.
+    const dto = await versionDto(db, recipeId, version);
+    await reportIntegrityFailure(db, mail, { recipeId, number: dto.number, version, title: dto.title }, dto.integrity!);
+    requireIntact(dto.number, seen);
+  }
 
   // Field errors first, all at once; the password is checked before anything is locked.
   const today = utcDay(now);
@@ -286,6 +302,7 @@ export async function approveVersion(
       }
       const acknowledged = [...new Set(warnings.map((c) => c.id))].sort();
 
+      requireIntact(recipe.number, v);
       const signatureId = await insertSignature(trx, {
         version_id: v.id,
         signer_id: userId,

@@ -55,6 +55,7 @@ export const TRAIL_EVENTS = {
   cutRecorded: 'cut.recorded',
   cutFlagCleared: 'cut.flag_cleared',
   versionAcknowledged: 'recipe.version_acknowledged',
+  versionIntegrityFailed: 'recipe.version_integrity_failed',
   labSettingsChanged: 'lab_settings.changed',
 } as const;
 

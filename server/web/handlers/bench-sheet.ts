@@ -21,8 +21,8 @@ function originOf(req: Request): string {
 }
 
 /** GET /api/recipes/:id/versions/:n/sheet.pdf */
-export const sheet: RouteHandler<{ params: typeof versionParams }> = async (req, res, { db }, { params: { id, n } }) => {
-  const { pdf, fileName } = await printBenchSheet(db, actorOf(req), id, n, originOf(req), versionScopeOf(req.user?.roles));
+export const sheet: RouteHandler<{ params: typeof versionParams }> = async (req, res, { db, mail }, { params: { id, n } }) => {
+  const { pdf, fileName } = await printBenchSheet(db, actorOf(req), id, n, originOf(req), versionScopeOf(req.user?.roles), new Date(), mail);
   res
     .status(200)
     .set({

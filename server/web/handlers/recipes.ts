@@ -1,6 +1,7 @@
 import type { idParams, versionParams } from '../../../shared/schemas/params';
 import type { createRecipeBody, recipeListQuery, saveDraftBody } from '../../../shared/schemas/recipe';
 import { versionScopeOf } from '../../services/operator/visibility';
+import { reportIntegrityFailure } from '../../services/recipes/integrity-alert';
 import * as recipes from '../../services/recipes/recipes';
 import type { RouteHandler } from '../route-definition';
 import { actorOf } from './request-actor';
@@ -17,9 +18,11 @@ export const versions: RouteHandler<{ params: typeof idParams }> = async (req, r
   res.json(await recipes.listVersions(db, params.id, versionScopeOf(req.user?.roles)));
 };
 
-export const getVersion: RouteHandler<{ params: typeof versionParams }> = async (req, res, { db }, { params: { id, n } }) => {
+export const getVersion: RouteHandler<{ params: typeof versionParams }> = async (req, res, { db, mail }, { params: { id, n } }) => {
   const viewer = req.user ? { id: req.user.id, roles: req.user.roles } : undefined;
-  res.json(await recipes.getVersion(db, id, n, versionScopeOf(req.user?.roles), viewer));
+  const dto = await recipes.getVersion(db, id, n, versionScopeOf(req.user?.roles), viewer);
+  if (dto.integrity && !dto.integrity.ok) await reportIntegrityFailure(db, mail, dto, dto.integrity);
+  res.json(dto);
 };
 
 export const saveDraft: RouteHandler<{ params: typeof versionParams; body: typeof saveDraftBody }> = async (req, res, { db }, { params: { id, n }, body }) => {

@@ -88,8 +88,8 @@ describe('Comparing versions', function () {
     expect(res.status, JSON.stringify(res.body)).to.equal(200);
     const body = res.body as RecipeComparison;
     expect(body).to.include({ recipeId: recipe.recipeId, number: recipe.number });
-    expect(body.from).to.deep.equal({ version: 1, status: 'approved', title: recipe.title });
-    expect(body.to).to.deep.equal({ version: 2, status: 'draft', title: recipe.title });
+    expect(body.from).to.deep.equal({ version: 1, status: 'approved', title: recipe.title, integrity: { ok: true, problems: [] } });
+    expect(body.to).to.deep.equal({ version: 2, status: 'draft', title: recipe.title, integrity: { ok: true, problems: [] } });
     expect(body.parameters).to.deep.equal([
       { path: 'cutting.wheelId', label: 'Wheel', before: 'Alumina 250 hard', after: 'Alumina 250 soft' },
       { path: 'cutting.feedMmS', label: 'Feed', before: '0.40 mm/s', after: '0.30 mm/s' },

@@ -42,6 +42,7 @@ describe('Account mails: notification preferences', () => {
       'review-due': false,
       'cut-flagged': false,
       'version-current': true,
+      'integrity-failed': true,
     });
     expect(await ctx.db('notification_opt_outs').where({ user_id: personId }).orderBy('kind').pluck('kind')).to.deep.equal(['cut-flagged', 'review-due']);
 

@@ -15,6 +15,7 @@ import { seedDemoIfEmpty } from '../../../server/tools/db-setup';
 import { startMailCatcher } from '../../../server/tools/mail-catcher';
 import { DEMO_ACCOUNTS } from '../../../seeds/data/demo-accounts';
 import { apiTestContext } from '../support/hooks';
+import { reportIntegrityFailure } from '../../../server/services/recipes/integrity-alert';
 
 const BASE = 'https://kerfbook.harrowgate.example';
 const MAIL = { baseUrl: BASE };
@@ -69,6 +70,23 @@ describe('Demo seeds: machines, acknowledgements and the mail they caused', () =
       machineIds: [],
     });
     await requestPasswordReset(ctx.db, actor, MAIL, operator.email);
+    // An integrity finding, reported as a read that saw one would (the demo's content is intact).
+    const demo = (await ctx
+      .db('recipe_versions as v')
+      .join('recipes as r', 'r.id', 'v.recipe_id')
+      .where('v.status', 'approved')
+      .first('r.id', 'r.number', 'v.version', 'v.title')) as {
+      id: number;
+      number: string;
+      version: number;
+      title: string;
+    };
+    await reportIntegrityFailure(
+      ctx.db,
+      MAIL,
+      { recipeId: demo.id, number: demo.number, version: demo.version, title: demo.title },
+      { ok: false, problems: ['A finding made up for this delivery test.'] },
+    );
 
     const queued = (await ctx.db<MailRow>('mail_outbox').whereNull('sent_at').orderBy('id')) as MailRow[];
     const kinds = new Set(queued.map((m) => m.kind));

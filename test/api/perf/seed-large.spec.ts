@@ -9,7 +9,7 @@ import { recipeContent } from '../../../shared/schemas/recipe';
 import type { ChainVerification } from '../../../shared/recipe-types';
 import { canonicalJson } from '../../../shared/canonical-json';
 import { verifyChain } from '../../../server/services/trail/verify';
-import { contentSha256 } from '../../../server/services/recipes/workflow';
+import { contentSha256 } from '../../../server/services/recipes/version-integrity';
 import { DatabaseNotEmptyError, seedLarge, type LargeDataSummary } from '../../perf/large-data/seed-large';
 import { apiTestContext } from '../support/hooks';
 import { signedInAgent } from '../support/test-app';

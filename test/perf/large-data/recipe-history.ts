@@ -16,7 +16,7 @@ import { TRAIL_EVENTS } from '../../../server/services/trail/event-types';
 import { addMonths, utcDay } from '../../../shared/calendar-dates';
 import { newCheckCode } from '../../../server/services/recipes/check-codes';
 import { formatRecipeNumber } from '../../../server/services/recipes/recipes';
-import { contentSha256 } from '../../../server/services/recipes/workflow';
+import { contentSha256 } from '../../../server/services/recipes/version-integrity';
 import { firstContent, nextContent, withReviewFix, type PlannedContent } from './content';
 import type { Person } from './people';
 import { DAY_MS, HOUR_MS, MINUTE_MS, type Random } from './random';

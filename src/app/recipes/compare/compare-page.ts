@@ -16,6 +16,7 @@ import { recipeVersions } from '../../core/api/recipe-versions';
 import { WorkflowApi } from '../../core/api/workflow-api';
 import { type ComparisonLayout, ComparisonView } from './comparison-view';
 import { LabDatePipe } from '../../core/dates/lab-date-pipe';
+import { IntegrityBanner } from '../../ui/integrity-banner/integrity-banner';
 
 /** The comparison as the URL names it; `null` until both versions are known. */
 interface Pair {
@@ -31,6 +32,7 @@ interface Pair {
 @Component({
   selector: 'kb-compare-page',
   imports: [
+    IntegrityBanner,
     ComparisonView,
     LabDatePipe,
     MatButtonModule,

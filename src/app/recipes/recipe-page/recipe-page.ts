@@ -33,6 +33,7 @@ import {
 import { askToAcknowledge } from '../../ui/acknowledge-dialog';
 import { mustAcknowledge } from '../../ui/acknowledgement-state';
 import { NotForUseBanner } from './not-for-use-banner';
+import { IntegrityBanner } from '../../ui/integrity-banner/integrity-banner';
 import { AcknowledgementsPanel } from '../acknowledge/acknowledgements-panel';
 import { isApiError } from '../../core/http/api-error';
 import { callerHandles } from '../../core/http/caller-handles';
@@ -92,6 +93,7 @@ const ATTACHMENT_ROLE_LABELS = { setup: 'Setup', 'good-face': 'Good cut face', '
     MatSelectModule,
     MatTabsModule,
     NotForUseBanner,
+    IntegrityBanner,
     QuantityPipe,
     RecipeCutPower,
     RecipeCuts,
