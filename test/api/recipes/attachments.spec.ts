@@ -9,6 +9,8 @@ import { createPerson } from '../support/people';
 import { createStockSet, recipeInput } from '../support/stock';
 import { signedInAgent, type Agent } from '../support/test-app';
 import { asJson, countRows } from '../support/test-database';
+import type { RecipeStatus } from '../../../shared/vocabulary';
+import { act, createDraft, ok, sessionFor } from '../workflow/workflow-support';
 
 const sha256 = (b: Buffer) => createHash('sha256').update(b).digest('hex');
 
@@ -274,9 +276,22 @@ describe('Attachments (photos of a version)', () => {
     });
 
     it('refuses to add or delete once the version is no longer a draft (409)', async () => {
-      const added = (await upload(png, 'kept.png', 'image/png').expect(201)).body as AttachmentDto;
-      await ctx.db('recipe_versions').where({ recipe_id: draft.recipeId, version: 1 }).update({ status: 'in-review' });
+      // A version of its own, submitted through the API: the database allows no way back to draft.
+      const shared = draft;
+      const stock = await createStockSet(ctx.db, {
+        material: { name: 'Submitted steel' },
+        wheel: { name: 'Submitted wheel' },
+        machine: { name: 'Submitted saw' },
+      });
+      draft = (await author.agent.post('/api/recipes').set(CSRF_HEADER, author.csrf).send(recipeInput(stock)).expect(201)).body;
       try {
+        const added = (await upload(png, 'kept.png', 'image/png').expect(201)).body as AttachmentDto;
+        const current = (await author.agent.get(`/api/recipes/${draft.recipeId}/versions/1`).expect(200)).body as RecipeVersionDto;
+        await author.agent
+          .post(`/api/recipes/${draft.recipeId}/versions/1/submit`)
+          .set(CSRF_HEADER, author.csrf)
+          .send({ revision: current.revision })
+          .expect(200);
         const before = await counts();
         const del = await author.agent.delete(`${uploadUrl()}/${added.id}`).set(CSRF_HEADER, author.csrf);
         expect(del.status).to.equal(409);
@@ -285,34 +300,55 @@ describe('Attachments (photos of a version)', () => {
         await expectNothingStored(before);
         expect((await author.agent.get(added.url)).status).to.equal(200);
       } finally {
-        await ctx.db('recipe_versions').where({ recipe_id: draft.recipeId, version: 1 }).update({ status: 'draft' });
+        draft = shared;
       }
     });
   });
 
   describe("follow their version's visibility", () => {
     // Attachment ids are sequential: an operator could read every draft's photos by counting.
-    let photo: AttachmentDto;
-    let recipeId: number;
+    // One version in each state, reached through the API, each with a photo added while a draft.
+    const photos = new Map<RecipeStatus, AttachmentDto>();
     let readers: { role: string; who: { agent: Agent; csrf: string } }[];
 
     before(async () => {
-      const stock = await createStockSet(ctx.db);
-      const made = (await author.agent.post('/api/recipes').set(CSRF_HEADER, author.csrf).send(recipeInput(stock)).expect(201)).body as RecipeVersionDto;
-      recipeId = made.recipeId;
-      let req = author.agent.post(`/api/recipes/${recipeId}/versions/1/attachments`).set(CSRF_HEADER, author.csrf).field('role', 'setup');
-      req = req.field('caption', 'Not released yet');
-      photo = (await req.attach('file', png, { filename: 'draft.png', contentType: 'image/png' }).expect(201)).body;
+      const stock = await createStockSet(ctx.db, { material: { name: 'Visible steel' }, wheel: { name: 'Visible wheel' }, machine: { name: 'Visible saw' } });
+      const writer = await sessionFor(ctx.app, ctx.db, ['author']);
+      const approver = await sessionFor(ctx.app, ctx.db, ['approver']);
+      const withPhoto = async (title: string) => {
+        const made = await createDraft(writer, stock, { title });
+        let req = writer.agent.post(`/api/recipes/${made.recipeId}/versions/1/attachments`).set(CSRF_HEADER, writer.csrf).field('role', 'setup');
+        req = req.field('caption', 'Not released yet');
+        const photo = (await req.attach('file', png, { filename: 'draft.png', contentType: 'image/png' }).expect(201)).body as AttachmentDto;
+        return { photo, version: ok(await act.get(writer, made)) };
+      };
+      const approvedOne = async (title: string) => {
+        const made = await withPhoto(title);
+        return { ...made, version: ok(await act.approve(approver, ok(await act.submit(writer, made.version)))) };
+      };
+      photos.set('draft', (await withPhoto('Photo of a draft')).photo);
+      const review = await withPhoto('Photo in review');
+      ok(await act.submit(writer, review.version));
+      photos.set('in-review', review.photo);
+      const returned = await withPhoto('Photo returned');
+      ok(await act.return(approver, ok(await act.submit(writer, returned.version))));
+      photos.set('returned', returned.photo);
+      photos.set('approved', (await approvedOne('Photo approved')).photo);
+      const old = await approvedOne('Photo superseded');
+      const next = ok(await act.newVersion(writer, old.version.recipeId, 1), 201);
+      ok(await act.approve(approver, ok(await act.submit(writer, next))));
+      photos.set('superseded', old.photo);
+      const gone = await approvedOne('Photo withdrawn');
+      ok(await act.withdraw(approver, gone.version));
+      photos.set('withdrawn', gone.photo);
       readers = [];
       for (const role of ['author', 'approver', 'auditor', 'admin'] as const)
         readers.push({ role, who: await signedInAgent(ctx.app, await createPerson(ctx.db, { roles: [role] })) });
     });
 
-    const setStatus = (status: string) => ctx.db('recipe_versions').where({ recipe_id: recipeId, version: 1 }).update({ status });
-
-    for (const status of ['draft', 'in-review', 'returned']) {
+    for (const status of ['draft', 'in-review', 'returned'] as const) {
       it(`answers an operator 404 for the photo and thumbnail of a version that is ${status}, worded as for an unknown id`, async () => {
-        await setStatus(status);
+        const photo = photos.get(status)!;
         for (const url of [photo.url, photo.thumbnailUrl]) {
           const res = await operator.agent.get(url);
           expect(res.status, url).to.equal(404);
@@ -325,16 +361,16 @@ describe('Attachments (photos of a version)', () => {
       });
     }
 
-    for (const status of ['approved', 'superseded', 'withdrawn']) {
+    for (const status of ['approved', 'superseded', 'withdrawn'] as const) {
       it(`serves an operator the photo of a version that is ${status}`, async () => {
-        await setStatus(status);
+        const photo = photos.get(status)!;
         expect((await operator.agent.get(photo.url)).status).to.equal(200);
         expect((await operator.agent.get(photo.thumbnailUrl)).status).to.equal(200);
       });
     }
 
     it('answers anonymous callers 401', async () => {
-      const res = await request(ctx.app).get(photo.url);
+      const res = await request(ctx.app).get(photos.get('draft')!.url);
       expect(res.status).to.equal(401);
     });
   });

@@ -6,6 +6,7 @@ import { createPerson } from '../support/people';
 import { createStockSet, recipeInput, type StockSet } from '../support/stock';
 import { signedInAgent, type Agent } from '../support/test-app';
 import { asJson, countRows } from '../support/test-database';
+import { act, ok, sessionFor, type Session } from '../workflow/workflow-support';
 
 describe('Recipes and drafts', () => {
   const ctx = apiTestContext();
@@ -31,6 +32,8 @@ describe('Recipes and drafts', () => {
       .put(`/api/recipes/${id}/versions/${n}`)
       .set(CSRF_HEADER, who.csrf)
       .send(body as object);
+  let approverSession: Session | undefined;
+  const approver = async () => (approverSession ??= await sessionFor(ctx.app, ctx.db, ['approver']));
   const draftOf = (v: RecipeVersionDto, change: Partial<RecipeVersionDto['content']> = {}, title = v.title) => ({
     revision: v.revision,
     title,
@@ -214,8 +217,18 @@ describe('Recipes and drafts', () => {
       expect(await countRows(ctx.db, 'trail_events')).to.equal(events);
     });
 
+    /** Submitted by its author through the API (the database allows no shortcut). */
+    async function submitted(v: RecipeVersionDto): Promise<RecipeVersionDto> {
+      const res = await author.agent
+        .post(`/api/recipes/${v.recipeId}/versions/${v.version}/submit`)
+        .set(CSRF_HEADER, author.csrf)
+        .send({ revision: v.revision });
+      expect(res.status, JSON.stringify(res.body)).to.equal(200);
+      return res.body as RecipeVersionDto;
+    }
+
     it('refuses to save a version that is not a draft with 409 and a clear message', async () => {
-      await ctx.db('recipe_versions').where({ recipe_id: base.recipeId, version: 1 }).update({ status: 'approved' });
+      ok(await act.approve(await approver(), await submitted(base)));
       const res = await save(base.recipeId, 1, draftOf(base, { cautionsMd: 'too late' }));
       expect(res.status).to.equal(409);
       expect(res.body.code).to.equal('CONFLICT');
@@ -225,8 +238,8 @@ describe('Recipes and drafts', () => {
     });
 
     it('turns a returned version back into a draft when it is edited', async () => {
-      await ctx.db('recipe_versions').where({ recipe_id: base.recipeId, version: 1 }).update({ status: 'returned' });
-      const res = await save(base.recipeId, 1, draftOf(base, { cautionsMd: 'fixed as asked' }));
+      const returned = ok(await act.return(await approver(), await submitted(base)));
+      const res = await save(base.recipeId, 1, draftOf(returned, { cautionsMd: 'fixed as asked' }));
       expect(res.status, JSON.stringify(res.body)).to.equal(200);
       expect(res.body.status).to.equal('draft');
       const event = await ctx.db('trail_events').where({ event_type: 'recipe.draft_saved' }).orderBy('id', 'desc').first();

@@ -2,7 +2,7 @@
  * Submitted content is frozen by MariaDB itself (ISO/IEC 17025:2017 §7.11): direct
  * SQL, bypassing the API, cannot change or delete a submitted version, a signature, a
  * review comment or the photos of a frozen version — while the workflow's own columns
- * (status, revision, dates) stay writable.
+ * (revision, dates, and the status along the workflow's steps) stay writable.
  */
 import { expect } from 'chai';
 import sharp from 'sharp';

@@ -6,11 +6,14 @@
  * The whole history is planned in memory first (people, stock, each recipe's workflow,
  * cuts, prints, sign-ins), then written with multi-row INSERTs: people, the trail in time
  * order (which hands out the ids, growing with time as in the app), then the rows the
- * trail's events refer to. Only inserts: the freeze and append-only triggers stay on.
+ * trail's events refer to. The freeze, workflow and append-only triggers stay on: signed
+ * versions are inserted in review, and reach their state the way the database allows —
+ * approval signatures, then approved; withdrawal signatures, then superseded or withdrawn.
  */
 import type { Knex } from 'knex';
 import type { Role } from '../../../shared/roles';
 import { ROLES } from '../../../shared/roles';
+import type { RecipeStatus } from '../../../shared/vocabulary';
 import { findLabSettings } from '../../../server/data/lab-settings';
 import { hashPassword } from '../../../server/services/auth/passwords';
 import { DEFAULT_REVIEW_INTERVAL_MONTHS } from '../../../server/services/recipes/workflow';
@@ -187,21 +190,23 @@ export async function seedLarge(db: Knex, options: SeedLargeOptions): Promise<La
     ),
   );
   const signatures = history.signatures.sort((a, b) => a.id - b.id);
-  await insertBatches(
-    db,
-    'signatures',
-    signatures.map((s) => ({
-      id: s.id,
-      version_id: s.version.id,
-      signer_id: s.signer.id,
-      signer_name: s.signer.displayName.slice(0, 100),
-      meaning: s.meaning,
-      comment: s.comment,
-      signed_at: new Date(s.signedAt),
-      content_hash: s.contentHash,
-      acknowledged_warnings_json: JSON.stringify(s.acknowledgedWarnings),
-    })),
-  );
+  const signatureRow = (s: (typeof signatures)[number]): Row => ({
+    id: s.id,
+    version_id: s.version.id,
+    signer_id: s.signer.id,
+    signer_name: s.signer.displayName.slice(0, 100),
+    meaning: s.meaning,
+    comment: s.comment,
+    signed_at: new Date(s.signedAt),
+    content_hash: s.contentHash,
+    acknowledged_warnings_json: JSON.stringify(s.acknowledgedWarnings),
+  });
+  const signedIds = (status: RecipeStatus) => versions.filter((v) => v.status === status).map((v) => v.id);
+  await insertBatches(db, 'signatures', signatures.filter((s) => s.meaning === 'approved').map(signatureRow));
+  await setStatus(db, SIGNED.flatMap(signedIds), 'approved');
+  await insertBatches(db, 'signatures', signatures.filter((s) => s.meaning === 'withdrawn').map(signatureRow));
+  await setStatus(db, signedIds('superseded'), 'superseded');
+  await setStatus(db, signedIds('withdrawn'), 'withdrawn');
   await insertBatches(
     db,
     'review_comments',
@@ -290,13 +295,24 @@ function userRow(p: Person, passwordHash: string): Row {
   };
 }
 
+/** Versions that carry signatures; inserted in review, they are signed and moved on afterwards. */
+const SIGNED: readonly RecipeStatus[] = ['approved', 'superseded', 'withdrawn'];
+
+async function setStatus(db: Knex, ids: readonly number[], status: RecipeStatus): Promise<void> {
+  for (let i = 0; i < ids.length; i += 1000) {
+    await db('recipe_versions')
+      .whereIn('id', ids.slice(i, i + 1000))
+      .update({ status });
+  }
+}
+
 function versionRow(v: PlannedVersion): Row {
   const date = (t: number | null) => (t === null ? null : new Date(t));
   return {
     id: v.id,
     recipe_id: v.recipe.id,
     version: v.version,
-    status: v.status,
+    status: SIGNED.includes(v.status) ? 'in-review' : v.status,
     revision: v.revision,
     ...v.planned.values,
     content_hash: v.contentHash,
