@@ -1,0 +1,2 @@
+export const MAX_PASSWORD_CHECK_FAILURES = 5;
+export const PASSWORD_CHECK_WINDOW_MS = 15 * 60 * 1000;
