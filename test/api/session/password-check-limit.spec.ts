@@ -80,7 +80,9 @@ describe('Wrong-password limit on signatures and password changes (per person)',
     const right = await act.approve(approver, v);
     expect(right.status).to.equal(429);
     expect(right.body.code).to.equal('TOO_MANY_ATTEMPTS');
-    expect(right.body.errors[0].message).to.match(/Too many wrong passwords\. Signing and changing your password are blocked; try again in \d+ minutes? \(after \d\d:\d\d UTC\)/);
+    expect(right.body.errors[0].message).to.match(
+      /Too many wrong passwords\. Signing and changing your password are blocked; try again in \d+ minutes? \(after \d\d:\d\d UTC\)/,
+    );
     expect(Number(right.headers['retry-after'])).to.be.within(1, 15 * 60);
     expect((await act.get(approver, v)).body.status).to.equal('in-review');
     expect(await ctx.db('signatures').where({ signer_id: approver.person.id }).count({ n: '*' }).first()).to.deep.equal({ n: 0 });
@@ -110,7 +112,7 @@ describe('Wrong-password limit on signatures and password changes (per person)',
     const mails = (await limitMails()).slice(mailsBefore);
     expect(mails.map((m) => m.to_address).sort()).to.deep.equal([...adminAddresses].sort());
     expect(mails[0].subject).to.equal(`Wrong passwords: Greta Approver (${approver.person.username}) is blocked from signing`);
-    expect(mails[0].text_body).to.match(/5 wrong passwords in 15 minutes while signing/);
+    expect(mails[0].text_body).to.match(/5 wrong passwords in 15 minutes were typed while signing/);
     expect(mails[0].text_body).to.match(/signed out everywhere/);
   });
 
@@ -177,7 +179,7 @@ describe('Wrong-password limit on signatures and password changes (per person)',
     expect(await trailOf(person.person.id, TRAIL_EVENTS.wrongPasswordLimitReached)).to.have.length(1);
     const mails = (await limitMails()).slice(mailsBefore);
     expect(mails.map((m) => m.to_address).sort()).to.deep.equal([...adminAddresses].sort());
-    expect(mails[0].text_body).to.match(/5 wrong passwords in 15 minutes while changing their password/);
+    expect(mails[0].text_body).to.match(/5 wrong passwords in 15 minutes were typed while changing their password/);
   });
 
   it('lifts the limit once the failures are older than 15 minutes: the signature and the password change pass', async () => {
