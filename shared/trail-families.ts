@@ -12,9 +12,12 @@ export interface TrailFamilyRule {
 /** The types an electronic signature (name and password) stands behind. */
 const SIGNED_TYPES = ['recipe.version_approved', 'recipe.version_withdrawn'];
 
+/** Signatures refused for a wrong password, and the limit those refusals reach. */
+const REFUSED_SIGNING_TYPES = ['user.signature_password_wrong', 'user.wrong_password_limit_reached'];
+
 export const TRAIL_FAMILY_RULES: Record<TrailFamily, TrailFamilyRule> = {
   recipes: { prefixes: ['recipe.', 'attachment.'], types: [] },
-  signatures: { prefixes: [], types: SIGNED_TYPES },
+  signatures: { prefixes: [], types: [...SIGNED_TYPES, ...REFUSED_SIGNING_TYPES] },
   'shop-floor': { prefixes: ['sheet.', 'cut.'], types: ['recipe.version_acknowledged'] },
   stock: { prefixes: ['material.', 'wheel.', 'machine.', 'selection_row.'], types: [] },
   people: { prefixes: ['user.'], types: [] },

@@ -31,6 +31,7 @@ const TABLES = [
   'machines',
   'trail_events',
   'sign_in_failures',
+  'password_check_failures',
   'sessions',
   'user_roles',
   'users',

@@ -7,7 +7,9 @@ import type { Actor } from '../actor';
 import { TRAIL_EVENTS } from '../trail/event-types';
 import { appendTrailEvent } from '../trail/append';
 import { replacePassword } from './password-replacement';
-import { hashPassword, verifyPassword } from './passwords';
+import { DEFAULT_MAIL_SETTINGS, type MailSettings } from '../mail/settings';
+import { checkPasswordWithLimit } from './password-check-limiter';
+import { hashPassword } from './passwords';
 import type { SessionUser } from './session-user';
 import { toUserDto } from '../people/user-dto';
 
@@ -19,12 +21,25 @@ async function reload(db: Knex, userId: number): Promise<SessionUser> {
 
 /**
  * Replaces one's own password after checking the current one. Ends every other session
- * (epoch bump); the caller starts a fresh session with the returned epoch.
+ * (epoch bump); the caller starts a fresh session with the returned epoch. A wrong current
+ * password counts toward the person's wrong-password limit (password-check-limiter.ts).
  */
-export async function changeOwnPassword(db: Knex, actor: Actor, userId: number, currentPassword: string, newPassword: string): Promise<SessionUser> {
+export async function changeOwnPassword(
+  db: Knex,
+  actor: Actor,
+  userId: number,
+  currentPassword: string,
+  newPassword: string,
+  mail: MailSettings = DEFAULT_MAIL_SETTINGS,
+): Promise<SessionUser> {
   const user = await findUserById(db, userId);
   if (!user) throw AppError.notFound('Your account no longer exists.');
-  if (!(await verifyPassword(currentPassword, user.password_hash))) {
+  const check = {
+    user: { id: user.id, username: user.username, displayName: user.display_name, passwordHash: user.password_hash },
+    password: currentPassword,
+    purpose: 'password-change' as const,
+  };
+  if (!(await checkPasswordWithLimit(db, actor, check, mail))) {
     throw AppError.validation([{ path: 'currentPassword', message: 'The current password is not correct.' }]);
   }
   const newHash = await hashPassword(newPassword);

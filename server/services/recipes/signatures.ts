@@ -10,36 +10,33 @@ import { AppError } from '../../app-error';
 import { findUserRowById } from '../../data/users';
 import type { SignatureRow } from '../../data/workflow';
 import type { Actor } from '../actor';
-import { verifyPassword } from '../auth/passwords';
+import { checkPasswordWithLimit } from '../auth/password-check-limiter';
+import { DEFAULT_MAIL_SETTINGS, type MailSettings } from '../mail/settings';
 
 export const WRONG_SIGNATURE_PASSWORD = 'The password is not correct. Type your own password to sign.';
 export const USERNAME_NEEDED = 'Your first signature in this session takes both parts: type your username as well as your password.';
 export const WRONG_SIGNATURE_USERNAME = 'This is not the username you are signed in with. Only you can sign as yourself.';
 
-/**
- * Re-verifies the signer's password with the stored scrypt hash. A wrong password answers
- * 400 on `password` and changes nothing — it is not a sign-in, so it counts toward no
- * sign-in limit and ends no session.
- */
-export async function verifySignerPassword(db: Knex, userId: number, password: string): Promise<{ displayName: string }> {
-  const user = await findUserRowById(db, userId);
-  if (!user || !user.active) throw AppError.forbidden('Only an active person can sign.');
-  if (!(await verifyPassword(password, user.password_hash))) {
-    throw AppError.validation([{ path: 'password', message: WRONG_SIGNATURE_PASSWORD }]);
-  }
-  return { displayName: user.display_name };
+/** What is being signed, for the trail of a wrong password. */
+export interface Signing {
+  versionId: number;
+  meaning: 'approved' | 'withdrawn';
 }
 
 /**
  * Checks both signature components as the session needs them: the username when the actor
  * has not yet signed fully in this session (or whenever one is typed), then the password.
- * Every wrong part answers 400 on its field, all at once, and nothing changes.
+ * Every wrong part answers 400 on its field, all at once, and nothing changes but the count
+ * of wrong passwords: it is not a sign-in, so it counts toward the person's wrong-password
+ * limit (../auth/password-check-limiter.ts), which answers 429 once reached.
  */
 export async function verifySigner(
   db: Knex,
   actor: Actor,
   userId: number,
   parts: { username?: string | undefined; password: string },
+  signing: Signing,
+  mail: MailSettings = DEFAULT_MAIL_SETTINGS,
 ): Promise<{ displayName: string }> {
   const user = await findUserRowById(db, userId);
   if (!user || !user.active) throw AppError.forbidden('Only an active person can sign.');
@@ -50,12 +47,13 @@ export async function verifySigner(
   } else if (parts.username.toLowerCase() !== user.username.toLowerCase()) {
     errors.push({ path: 'username', message: WRONG_SIGNATURE_USERNAME });
   }
-  try {
-    await verifySignerPassword(db, userId, parts.password);
-  } catch (err) {
-    if (!(err instanceof AppError && err.code === 'VALIDATION_FAILED')) throw err;
-    errors.push(...err.errors);
-  }
+  const check = {
+    user: { id: user.id, username: user.username, displayName: user.display_name, passwordHash: user.password_hash },
+    password: parts.password,
+    purpose: 'signature' as const,
+    signing,
+  };
+  if (!(await checkPasswordWithLimit(db, actor, check, mail))) errors.push({ path: 'password', message: WRONG_SIGNATURE_PASSWORD });
   if (errors.length > 0) throw AppError.validation(errors);
   return { displayName: user.display_name };
 }

@@ -275,7 +275,7 @@ export async function approveVersion(
   else if (effectiveFrom < today) errors.push({ path: 'effectiveDate', message: `The effective date cannot be in the past (today is ${today}, UTC).` });
   let signerName = actor.name;
   try {
-    signerName = (await verifySigner(db, actor, userId, body)).displayName;
+    signerName = (await verifySigner(db, actor, userId, body, { versionId: seen.id, meaning: 'approved' }, mail)).displayName;
   } catch (err) {
     if (!(err instanceof AppError && err.code === 'VALIDATION_FAILED')) throw err;
     errors.push(...err.errors);
@@ -369,10 +369,12 @@ export async function withdrawVersion(
   version: number,
   body: WithdrawBody,
   now = new Date(),
+  mail: MailSettings = DEFAULT_MAIL_SETTINGS,
 ): Promise<RecipeVersionDto> {
   const userId = requireActor(actor);
-  if (!(await findVersion(db, recipeId, version))) return versionDto(db, recipeId, version); // 404
-  const { displayName } = await verifySigner(db, actor, userId, body);
+  const seen = await findVersion(db, recipeId, version);
+  if (!seen) return versionDto(db, recipeId, version); // 404
+  const { displayName } = await verifySigner(db, actor, userId, body, { versionId: seen.id, meaning: 'withdrawn' }, mail);
 
   await withConflicts(db, recipeId, version, () =>
     db.transaction(async (trx) => {

@@ -43,8 +43,8 @@ export const signOut: RouteHandler = async (req, res, { db }) => {
   res.status(204).end();
 };
 
-export const changePassword: RouteHandler<{ body: typeof changePasswordBody }> = async (req, res, { db, csrf, devOutbox }, { body }) => {
-  const user = await changeOwnPassword(db, actorOf(req), req.user!.id, body.currentPassword, body.newPassword);
+export const changePassword: RouteHandler<{ body: typeof changePasswordBody }> = async (req, res, { db, csrf, devOutbox, mail }, { body }) => {
+  const user = await changeOwnPassword(db, actorOf(req), req.user!.id, body.currentPassword, body.newPassword, mail);
   // Every other session just ended (epoch bump); this one carries on under a new id.
   await startSession(req, user);
   const answer: SessionDto = { user: toDto(user), csrfToken: csrf.issue(req, res, true), devOutbox, signatureNeedsUsername: true };

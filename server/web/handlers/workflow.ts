@@ -23,8 +23,8 @@ export const approve: RouteHandler<OnVersion & { body: typeof approveBody }> = a
   res.json(signed);
 };
 
-export const withdraw: RouteHandler<OnVersion & { body: typeof withdrawBody }> = async (req, res, { db }, { params: { id, n }, body }) => {
-  const signed = await workflow.withdrawVersion(db, actorOf(req), id, n, body);
+export const withdraw: RouteHandler<OnVersion & { body: typeof withdrawBody }> = async (req, res, { db, mail }, { params: { id, n }, body }) => {
+  const signed = await workflow.withdrawVersion(db, actorOf(req), id, n, body, new Date(), mail);
   rememberFullSigning(req);
   res.json(signed);
 };

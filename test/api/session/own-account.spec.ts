@@ -25,7 +25,11 @@ describe('Own account (any signed-in person)', () => {
       expect(res.body.errors).to.deep.equal([{ path: 'currentPassword', message: 'The current password is not correct.' }]);
       const row = await ctx.db('users').where({ id: person.id }).first();
       expect(row.password_hash).to.equal(hashBefore);
-      expect(await countRows(ctx.db, 'trail_events')).to.equal(events);
+      // The wrong password is recorded in the trail (it counts toward the person's limit), and that is all.
+      expect(await countRows(ctx.db, 'trail_events')).to.equal(events + 1);
+      const [last] = await ctx.db('trail_events').orderBy('id', 'desc').limit(1);
+      expect(last.event_type).to.equal('user.current_password_wrong');
+      expect(JSON.stringify(last)).not.to.match(/not-it-at-all/);
       await agent.get('/api/session').expect(200);
     });
 

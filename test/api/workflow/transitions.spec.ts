@@ -260,7 +260,9 @@ describe('Review workflow', () => {
       expect(res.body.code).to.equal('VALIDATION_FAILED');
       expect(res.body.errors).to.have.length(1);
       expect(res.body.errors[0].path).to.equal('password');
-      expect(await snapshot(v)).to.deep.equal(snap);
+      // Nothing changes but the trail, which records the wrong password (and counts toward the person's limit).
+      expect(await snapshot(v)).to.deep.equal({ ...snap, trail: snap.trail + 1 });
+      expect((await lastEvent()).event_type).to.equal('user.signature_password_wrong');
       expect(await countRows(ctx.db, 'sign_in_failures')).to.equal(failures);
       // Still signed in, and the right password works with the same revision.
       expect(ok(await act.approve(approver, v)).status).to.equal('approved');
@@ -348,7 +350,9 @@ describe('Review workflow', () => {
       const wrong = await act.withdraw(approver2, v, { password: 'wrong password!' });
       expect(wrong.status).to.equal(400);
       expect(wrong.body.errors[0].path).to.equal('password');
-      expect(await snapshot(v)).to.deep.equal(snap);
+      // Only the trail grows: the wrong password is recorded.
+      expect(await snapshot(v)).to.deep.equal({ ...snap, trail: snap.trail + 1 });
+      expect((await lastEvent()).event_type).to.equal('user.signature_password_wrong');
 
       const withdrawn = ok(await act.withdraw(approver2, v, { reason: 'The wheel is no longer made.' }));
       expect(withdrawn.status).to.equal('withdrawn');

@@ -74,9 +74,9 @@ export class Session {
     }
   }
 
-  /** Changes the signed-in user's password; the caller shows 400/401/403 answers in its form. */
+  /** Changes the signed-in user's password; the caller shows 400/401/403/429 (too many wrong passwords) answers in its form. */
   async changePassword(body: ChangePasswordBody): Promise<UserDto> {
-    const session = await firstValueFrom(this.http.post<SessionDto>('/api/session/password', body, { context: callerHandles(400, 401, 403) }));
+    const session = await firstValueFrom(this.http.post<SessionDto>('/api/session/password', body, { context: callerHandles(400, 401, 403, 429) }));
     this.apply(session);
     return session.user;
   }
