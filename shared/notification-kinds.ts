@@ -3,7 +3,15 @@
  * account. `optional: false` — the request to acknowledge a new current version — cannot be
  * turned off: an operator must hear of a change to a recipe for their machine.
  */
-export const NOTIFICATION_KINDS = ['review-requested', 'review-outcome', 'review-due', 'cut-flagged', 'version-current', 'integrity-failed', 'trail-sealed'] as const;
+export const NOTIFICATION_KINDS = [
+  'review-requested',
+  'review-outcome',
+  'review-due',
+  'cut-flagged',
+  'version-current',
+  'integrity-failed',
+  'trail-sealed',
+] as const;
 export type NotificationKind = (typeof NOTIFICATION_KINDS)[number];
 
 export interface NotificationKindInfo {

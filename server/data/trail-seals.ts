@@ -29,10 +29,13 @@ export async function releaseSealLock(trx: Knex.Transaction): Promise<void> {
 
 /** Claims the head: true when this call inserted it, false when it was sealed before. */
 export async function claimSeal(trx: Knex.Transaction, row: Omit<TrailSealRow, 'id'>): Promise<boolean> {
-  const [result] = (await trx.raw(
-    'INSERT IGNORE INTO trail_seals (head_event_id, head_hash, event_count, reason, sealed_at) VALUES (?, ?, ?, ?, ?)',
-    [row.head_event_id, row.head_hash, row.event_count, row.reason, row.sealed_at],
-  )) as [{ affectedRows: number }];
+  const [result] = (await trx.raw('INSERT IGNORE INTO trail_seals (head_event_id, head_hash, event_count, reason, sealed_at) VALUES (?, ?, ?, ?, ?)', [
+    row.head_event_id,
+    row.head_hash,
+    row.event_count,
+    row.reason,
+    row.sealed_at,
+  ])) as [{ affectedRows: number }];
   return result.affectedRows === 1;
 }
 
@@ -49,7 +52,9 @@ export async function countTrailEvents(db: Knex): Promise<number> {
 export async function trailEventHashes(db: Knex, ids: readonly number[]): Promise<Map<number, string>> {
   const found = new Map<number, string>();
   for (let i = 0; i < ids.length; i += 1000) {
-    const rows = (await db('trail_events').whereIn('id', ids.slice(i, i + 1000)).select('id', 'hash')) as { id: number; hash: string }[];
+    const rows = (await db('trail_events')
+      .whereIn('id', ids.slice(i, i + 1000))
+      .select('id', 'hash')) as { id: number; hash: string }[];
     for (const r of rows) found.set(Number(r.id), r.hash);
   }
   return found;

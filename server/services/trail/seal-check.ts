@@ -36,7 +36,11 @@ export async function checkAgainstSeals(db: Knex, file: SealFile): Promise<SealC
         const at = `sealed ${seal.sealedAt} (seal ${seal.seq})`;
         const hash = hashes.get(seal.headEventId);
         if (hash === undefined) {
-          findings.push({ kind: 'truncated', seq: seal.seq, message: `event #${seal.headEventId}, ${at}, is no longer in the database (its chain now ends at #${head.lastEventId})` });
+          findings.push({
+            kind: 'truncated',
+            seq: seal.seq,
+            message: `event #${seal.headEventId}, ${at}, is no longer in the database (its chain now ends at #${head.lastEventId})`,
+          });
         } else if (hash !== seal.headHash) {
           findings.push({ kind: 'rewritten', seq: seal.seq, message: `event #${seal.headEventId} no longer has the hash ${at}` });
         }

@@ -68,7 +68,8 @@ export function parseSealFile(text: string): SealFile {
     const seal = sealLine.safeParse(parsed);
     if (!seal.success) return { seals, problem: `line ${n} is not a ${SEAL_FORMAT} seal (${seal.error.issues[0]?.path.join('.') || 'shape'})` };
     if (seal.data.seq !== n) return { seals, problem: `line ${n} says it is seal ${seal.data.seq}: a line was removed or inserted` };
-    if (seal.data.prevLineSha256 !== prev) return { seals, problem: `line ${n} does not link to line ${n - 1}: ${n === 1 ? 'lines were removed from the start' : `line ${n - 1} was changed`}` };
+    if (seal.data.prevLineSha256 !== prev)
+      return { seals, problem: `line ${n} does not link to line ${n - 1}: ${n === 1 ? 'lines were removed from the start' : `line ${n - 1} was changed`}` };
     if (JSON.stringify(seal.data) !== line) return { seals, problem: `line ${n} is not written the way seals are written` };
     seals.push(seal.data);
     prev = sha256(line);
