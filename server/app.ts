@@ -79,7 +79,17 @@ export function createApp(deps: AppDeps): KerfbookApp {
   app.use('/api', csrf.protect);
   const mail = mailSettingsOf(config);
   const warning = publicAddressWarning(config);
-  app.use(buildRouter(routes, { db, csrf, auth, mail, seals: { dir: sealDirOf(config), mail }, adminNotices: warning ? [warning] : [], devOutbox: !config.production }));
+  app.use(
+    buildRouter(routes, {
+      db,
+      csrf,
+      auth,
+      mail,
+      seals: { dir: sealDirOf(config), mail },
+      adminNotices: warning ? [warning] : [],
+      devOutbox: !config.production,
+    }),
+  );
   if (deps.extraApiRouter) app.use('/api', deps.extraApiRouter);
   app.use('/api', apiNotFound);
 
