@@ -6,7 +6,7 @@ import express, { type Express, type Router } from 'express';
 import compression from 'compression';
 import cookieParser from 'cookie-parser';
 import type { Knex } from 'knex';
-import { publicAddressWarning, type Config } from './config';
+import { publicAddressWarning, sealDirOf, type Config } from './config';
 import { createAuthenticator } from './web/authentication';
 import { jsonBody, jsonContentTypeOnly } from './web/body-parsing';
 import { createCsrf } from './web/csrf';
@@ -79,7 +79,17 @@ export function createApp(deps: AppDeps): KerfbookApp {
   app.use('/api', csrf.protect);
   const mail = mailSettingsOf(config);
   const warning = publicAddressWarning(config);
-  app.use(buildRouter(routes, { db, csrf, auth, mail, adminNotices: warning ? [warning] : [], devOutbox: !config.production }));
+  app.use(
+    buildRouter(routes, {
+      db,
+      csrf,
+      auth,
+      mail,
+      seals: { dir: sealDirOf(config), mail },
+      adminNotices: warning ? [warning] : [],
+      devOutbox: !config.production,
+    }),
+  );
   if (deps.extraApiRouter) app.use('/api', deps.extraApiRouter);
   app.use('/api', apiNotFound);
 

@@ -3,6 +3,7 @@
  * is listed in README.md ("Settings (environment variables)"). An empty variable counts as
  * unset.
  */
+import path from 'node:path';
 import { z } from 'zod';
 
 export interface Config {
@@ -34,6 +35,13 @@ export interface Config {
   supersessionIntervalMs?: number;
   /** How often review-due reminders are looked for, ms (REVIEW_REMINDER_INTERVAL_MS); unset = the job's default. */
   reviewReminderIntervalMs?: number;
+  /**
+   * Folder of the seal file (SEAL_DIR), outside the database's reach; unset = `.data/seals`
+   * under the working directory.
+   */
+  sealDir?: string;
+  /** How often the seal job looks whether the lab's seal interval has passed, ms (SEAL_CHECK_INTERVAL_MS). */
+  sealCheckIntervalMs?: number;
 }
 
 /** An unset or empty variable is undefined to the schema. */
@@ -73,6 +81,8 @@ const environment = z.object({
   MAIL_INTERVAL_MS: intervalMs('MAIL_INTERVAL_MS'),
   SUPERSESSION_INTERVAL_MS: intervalMs('SUPERSESSION_INTERVAL_MS'),
   REVIEW_REMINDER_INTERVAL_MS: intervalMs('REVIEW_REMINDER_INTERVAL_MS'),
+  SEAL_DIR: optionalText,
+  SEAL_CHECK_INTERVAL_MS: intervalMs('SEAL_CHECK_INTERVAL_MS'),
 });
 
 /** Reads the settings; throws one Error naming every variable that is wrong, one per line. */
@@ -96,6 +106,8 @@ export function readConfig(env: NodeJS.ProcessEnv = process.env): Config {
     ...(e.MAIL_INTERVAL_MS !== undefined ? { mailIntervalMs: e.MAIL_INTERVAL_MS } : {}),
     ...(e.SUPERSESSION_INTERVAL_MS !== undefined ? { supersessionIntervalMs: e.SUPERSESSION_INTERVAL_MS } : {}),
     ...(e.REVIEW_REMINDER_INTERVAL_MS !== undefined ? { reviewReminderIntervalMs: e.REVIEW_REMINDER_INTERVAL_MS } : {}),
+    ...(e.SEAL_DIR ? { sealDir: e.SEAL_DIR } : {}),
+    ...(e.SEAL_CHECK_INTERVAL_MS !== undefined ? { sealCheckIntervalMs: e.SEAL_CHECK_INTERVAL_MS } : {}),
   };
 }
 
@@ -130,4 +142,9 @@ export function publicAddressWarning(config: Pick<Config, 'host' | 'port' | 'app
     'Links in mails and QR codes on printed bench sheets may point at an address nobody at the saw can open. ' +
     'Set APP_BASE_URL to the address people use, e.g. https://kerfbook.lab.example, and restart.'
   );
+}
+
+/** The seal directory: SEAL_DIR, or `.data/seals` under the working directory. */
+export function sealDirOf(config: Pick<Config, 'sealDir'>, cwd: string = process.cwd()): string {
+  return path.resolve(cwd, config.sealDir ?? path.join('.data', 'seals'));
 }

@@ -1,6 +1,6 @@
 /**
  * The background jobs of an app process: expired sessions, supersession, review-due
- * reminders and the mail worker. The entry point starts them once (main.ts, and the
+ * reminders, trail seals and the mail worker. The entry point starts them once (main.ts, and the
  * bootstrap behind `npm start`); createApp never does, so tests and the load harness
  * build an app without timers. Every job is safe in every process: supersession locks
  * each recipe with SKIP LOCKED and checks again under the lock, a reminder is one row per
@@ -8,19 +8,21 @@
  * claim end, and deleting expired sessions twice deletes nothing more.
  */
 import type { Knex } from 'knex';
-import type { Config } from './config';
+import { sealDirOf, type Config } from './config';
 import { deleteExpiredSessions } from './data/sessions';
 import { startReviewReminderTimer } from './services/mail/review-reminders';
 import { mailSettingsOf } from './services/mail/settings';
 import { createMailTransport, startMailWorker } from './services/mail/worker';
 import { startSupersessionTimer } from './services/recipes/supersession';
 import { startRepeatingJob } from './services/repeating-job';
+import { startSealTimer } from './services/trail/seals';
 
 /** Defaults of the intervals README.md lists (MAIL_, SUPERSESSION_, REVIEW_REMINDER_INTERVAL_MS). */
 export const SESSION_CLEANUP_INTERVAL_MS = 60 * 60 * 1000;
 export const DEFAULT_SUPERSESSION_INTERVAL_MS = 60 * 1000;
 export const DEFAULT_REVIEW_REMINDER_INTERVAL_MS = 60 * 60 * 1000;
 export const DEFAULT_MAIL_INTERVAL_MS = 15 * 1000;
+export const DEFAULT_SEAL_CHECK_INTERVAL_MS = 5 * 60 * 1000;
 
 export interface JobsDeps {
   db: Knex;
@@ -44,6 +46,7 @@ export function startJobs({ db, config, log = console.error }: JobsDeps): Jobs {
     startRepeatingJob('sessions', () => deleteExpiredSessions(db), SESSION_CLEANUP_INTERVAL_MS, log),
     startSupersessionTimer(db, config.supersessionIntervalMs ?? DEFAULT_SUPERSESSION_INTERVAL_MS, log, mail),
     startReviewReminderTimer(db, config.reviewReminderIntervalMs ?? DEFAULT_REVIEW_REMINDER_INTERVAL_MS, log, mail),
+    startSealTimer(db, { dir: sealDirOf(config), mail }, config.sealCheckIntervalMs ?? DEFAULT_SEAL_CHECK_INTERVAL_MS, log),
   ];
   if (config.smtpUrl) {
     const transport = createMailTransport(config.smtpUrl, { ignoreTls: !config.production });

@@ -3,7 +3,15 @@
  * account. `optional: false` — the request to acknowledge a new current version — cannot be
  * turned off: an operator must hear of a change to a recipe for their machine.
  */
-export const NOTIFICATION_KINDS = ['review-requested', 'review-outcome', 'review-due', 'cut-flagged', 'version-current', 'integrity-failed'] as const;
+export const NOTIFICATION_KINDS = [
+  'review-requested',
+  'review-outcome',
+  'review-due',
+  'cut-flagged',
+  'version-current',
+  'integrity-failed',
+  'trail-sealed',
+] as const;
 export type NotificationKind = (typeof NOTIFICATION_KINDS)[number];
 
 export interface NotificationKindInfo {
@@ -21,6 +29,7 @@ export const NOTIFICATION_INFO: readonly NotificationKindInfo[] = [
   { kind: 'cut-flagged', label: 'An operator flagged a cut on my recipe', audience: 'authors', optional: true },
   { kind: 'version-current', label: 'A new version is in use on my machine (acknowledge it)', audience: 'operators', optional: false },
   { kind: 'integrity-failed', label: 'A signed version no longer matches its signatures', audience: 'admins and auditors', optional: false },
+  { kind: 'trail-sealed', label: 'The trail was sealed (keep these mails: they let you check the trail later)', audience: 'auditors', optional: false },
 ];
 
 /** Whether a person may turn this kind of mail off. */

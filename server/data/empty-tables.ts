@@ -30,6 +30,7 @@ const TABLES = [
   'wheels',
   'machines',
   'trail_events',
+  'trail_seals',
   'sign_in_failures',
   'password_check_failures',
   'sessions',
@@ -68,6 +69,7 @@ export async function restoreLabSettings(db: Knex): Promise<void> {
       specific_energy_json: JSON.stringify(DEFAULT_SPECIFIC_ENERGY_J_MM3),
       power_warning_pct: DEFAULT_POWER_WARNING_PCT,
       date_format: 'iso',
+      seal_interval_hours: 24,
       revision: 1,
       updated_at: new Date(),
     });

@@ -17,6 +17,8 @@ export interface LabSettingsRow {
   specific_energy_json: unknown;
   power_warning_pct: number | null;
   date_format: string;
+  /** Hours between two regular seals of the trail's chain head. */
+  seal_interval_hours: number;
   /** Raised by every save, for optimistic concurrency. */
   revision: number;
   updated_at: Date;

@@ -3,6 +3,7 @@ import type { Knex } from 'knex';
 import type { z } from 'zod';
 import type { Access } from '../../shared/roles';
 import type { MailSettings } from '../services/mail/settings';
+import type { SealSettings } from '../services/trail/seals';
 import type { Authenticator } from './authentication';
 import type { Csrf } from './csrf';
 
@@ -13,6 +14,8 @@ export interface RouteContext {
   auth: Authenticator;
   /** Where links in mails point (APP_BASE_URL). */
   mail: MailSettings;
+  /** Where seals of the trail go (SEAL_DIR) and how their mails link. */
+  seals: SealSettings;
   /** Warnings from start-up that the admins' Today shows (e.g. APP_BASE_URL unset). */
   adminNotices: readonly string[];
   /** True outside production: the development outbox answers. */

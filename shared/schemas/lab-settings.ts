@@ -46,6 +46,16 @@ export const reviewInterval = z
   .min(1, 'Review interval must be at least 1 month.')
   .max(120, 'Review interval must be at most 120 months.');
 
+/**
+ * Hours between two regular seals of the trail's chain head (a seal also follows every
+ * approval). Daily by default; at most 30 days, so a truncation is never long unnoticed.
+ */
+export const sealInterval = z
+  .number({ error: 'Seal interval must be a number of hours.' })
+  .int('Seal interval must be a whole number of hours.')
+  .min(1, 'Seal interval must be at least 1 hour.')
+  .max(720, 'Seal interval must be at most 720 hours (30 days).');
+
 /** A value per material group; groups left out have none. */
 const perGroup = <T extends z.ZodType>(value: T) => z.partialRecord(materialGroup, value, { error: 'Choose a material group.' });
 
@@ -56,6 +66,7 @@ export const labSettingsValues = z.strictObject({
   reviewIntervalMonths: reviewInterval,
   defaultUnits: z.enum(UNIT_PREFERENCES, { error: 'Units must be "metric" or "metric+imperial".' }),
   dateFormat: z.enum(DATE_FORMATS, { error: 'Choose a date format.' }),
+  sealIntervalHours: sealInterval,
   feedCeilings: z.array(feedCeiling, { error: 'Feed ceilings must be a list.' }).max(500, 'At most 500 feed ceilings.'),
   traverseRemovalCeilings: perGroup(traverseRemovalCeiling),
   longContactMm: longContactLength.nullable(),

@@ -31,12 +31,14 @@ const WHY: Record<NotificationKind, string> = {
   'cut-flagged': 'you wrote this recipe',
   'version-current': 'you are assigned to the machine this recipe is for',
   'integrity-failed': 'you are an admin or an auditor',
+  'trail-sealed': 'you are an auditor',
 };
 
 /** Why a mail that cannot be turned off must reach its reader. */
 const MUST_KNOW: Partial<Record<NotificationKind, string>> = {
   'version-current': 'everyone at the machine must know which version is in use',
   'integrity-failed': 'a change to signed records behind the application must be looked into',
+  'trail-sealed': 'a copy of each seal outside the database is what shows later whether the trail was cut short or rewritten',
 };
 
 function footer(settings: MailSettings, kind: NotificationKind): string[] {
@@ -177,5 +179,34 @@ export function integrityFailedMail(settings: MailSettings, to: Recipient, v: Ve
       'Someone changed the database outside the application, or restored a damaged backup. Its bench sheet no longer prints. Compare the version with the trail, and restore from a backup you trust.',
     ],
     { label: 'Open the version', path: recipePath(v) },
+  );
+}
+
+/** What a seal mail records: the chain head at the moment of the seal. */
+export interface SealedHead {
+  headEventId: number;
+  headHash: string;
+  eventCount: number;
+  /** ISO 8601 UTC. */
+  sealedAt: string;
+  reason: 'interval' | 'approval';
+}
+
+/** A copy of one seal in the auditor's mailbox, out of reach of whoever can change the database. */
+export function trailSealedMail(settings: MailSettings, to: Recipient, seal: SealedHead): OutgoingMail {
+  const why = seal.reason === 'approval' ? 'after an approval' : "at the lab's seal interval";
+  return mail(
+    settings,
+    'trail-sealed',
+    to,
+    `Trail sealed at event #${seal.headEventId} (${seal.eventCount} events)`,
+    [
+      `Kerfbook sealed the trail ${why}, at ${seal.sealedAt} UTC. At that moment:`,
+      `- last event: #${seal.headEventId}`,
+      `- its hash: ${seal.headHash}`,
+      `- events in the trail: ${seal.eventCount}`,
+      'Keep this mail. If the trail later holds fewer events, no event with this number, or this event with another hash, it was cut short or rewritten after this seal; npm run trail:verify checks the trail against the seal file the same way.',
+    ],
+    { label: 'Open the trail', path: '/trail' },
   );
 }

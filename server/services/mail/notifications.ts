@@ -10,6 +10,8 @@ import { enqueueMail, type OutgoingMail } from './outbox';
 import {
   cutFlaggedMail,
   integrityFailedMail,
+  trailSealedMail,
+  type SealedHead,
   reviewDueMail,
   reviewRequestedMail,
   versionApprovedMail,
@@ -19,7 +21,7 @@ import {
   type VersionRef,
 } from './notification-mails';
 import type { MailSettings } from './settings';
-import { authorsOf, guardiansOf, operatorsOf, reviewersOf, type Recipient } from './recipients';
+import { auditorsOf, authorsOf, guardiansOf, operatorsOf, reviewersOf, type Recipient } from './recipients';
 
 async function enqueueAll(trx: Knex.Transaction, recipients: readonly Recipient[], build: (to: Recipient) => OutgoingMail, now: Date): Promise<number> {
   for (const to of recipients) await enqueueMail(trx, build(to), now);
@@ -115,4 +117,10 @@ export async function notifyIntegrityFailed(
 ): Promise<number> {
   const to = await guardiansOf(trx);
   return enqueueAll(trx, to, (r) => integrityFailedMail(settings, r, v, problems), now);
+}
+
+/** The trail's chain head was sealed: every auditor gets a copy of the seal. */
+export async function notifyTrailSealed(trx: Knex.Transaction, settings: MailSettings, seal: SealedHead, now: Date): Promise<number> {
+  const to = await auditorsOf(trx);
+  return enqueueAll(trx, to, (r) => trailSealedMail(settings, r, seal), now);
 }

@@ -42,3 +42,8 @@ export async function guardiansOf(db: Knex): Promise<Recipient[]> {
   const byId = new Map([...admins, ...auditors].map((r) => [r.id, r]));
   return [...byId.values()].sort((a, b) => a.id - b.id);
 }
+
+/** Auditors: each keeps a copy of every seal of the trail. */
+export function auditorsOf(db: Knex): Promise<Recipient[]> {
+  return recipients(db, 'trail-sealed', { role: 'auditor' });
+}

@@ -4,6 +4,7 @@ import { versionScopeOf } from '../../services/operator/visibility';
 import * as comments from '../../services/recipes/review-comments';
 import { listReviewsDue } from '../../services/operator/today';
 import * as workflow from '../../services/recipes/workflow';
+import { sealAfterApproval } from '../../services/trail/seals';
 import type { RouteHandler } from '../route-definition';
 import { actorOf, rememberFullSigning } from './request-actor';
 
@@ -17,9 +18,11 @@ export const returnToAuthor: RouteHandler<OnVersion & { body: typeof returnBody 
   res.json(await workflow.returnVersion(db, actorOf(req), id, n, body, new Date(), mail));
 };
 
-export const approve: RouteHandler<OnVersion & { body: typeof approveBody }> = async (req, res, { db, mail }, { params: { id, n }, body }) => {
+export const approve: RouteHandler<OnVersion & { body: typeof approveBody }> = async (req, res, { db, mail, seals }, { params: { id, n }, body }) => {
   const signed = await workflow.approveVersion(db, actorOf(req), id, n, body, new Date(), mail);
   rememberFullSigning(req);
+  // After the approval's transaction has committed: the seal covers the approval's event.
+  await sealAfterApproval(db, seals);
   res.json(signed);
 };
 

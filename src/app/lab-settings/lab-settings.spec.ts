@@ -13,6 +13,7 @@ const settings: LabSettingsDto = {
   reviewIntervalMonths: 24,
   defaultUnits: 'metric',
   dateFormat: 'iso',
+  sealIntervalHours: 24,
   feedCeilings: [
     { group: 'copper', hardness: null, machineClass: 'precision', maxFeedMmS: 0.5 },
     { group: 'titanium', hardness: { min: 300, max: 400, scale: 'HV' }, machineClass: 'bench-abrasive', maxFeedMmS: 1.2 },
@@ -98,20 +99,29 @@ describe('LabSettings', () => {
 
   it('refuses a bad value with the schema message and sends nothing', async () => {
     type('Periodic review interval (months)', '0');
+    type('Trail seal interval (hours)', '721');
     type('Highest feed, Copper alloys, any hardness, Precision', '-1');
     await save();
     backend.expectNone({ method: 'PUT' });
     expect(root.textContent).toContain('Review interval must be at least 1 month.');
+    expect(root.textContent).toContain('Seal interval must be at most 720 hours (30 days).');
     expect(root.textContent).toContain('Feed ceiling must be more than 0 mm/s.');
     expect(root.textContent).toContain('Nothing was saved');
   });
 
   it('saves every value with the revision it opened, leaves out empty groups, and shows dates in the saved format', async () => {
     type('Worn wheel: share of the new diameter', '0.75');
+    type('Trail seal interval (hours)', '6');
     type('Specific cutting energy, Copper alloys', '');
     await save();
     const req = backend.expectOne({ method: 'PUT', url: '/api/settings/lab' });
-    expect(req.request.body).toMatchObject({ wornDiameterShare: 0.75, revision: 3, specificEnergyJMm3: {}, traverseRemovalCeilings: { copper: 40 } });
+    expect(req.request.body).toMatchObject({
+      wornDiameterShare: 0.75,
+      sealIntervalHours: 6,
+      revision: 3,
+      specificEnergyJMm3: {},
+      traverseRemovalCeilings: { copper: 40 },
+    });
     expect(req.request.body.feedCeilings).toHaveLength(2);
     req.flush({ ...settings, wornDiameterShare: 0.75, specificEnergyJMm3: {}, dateFormat: 'dmy-dot', revision: 4 });
     await settle();

@@ -43,6 +43,7 @@ describe('Account mails: notification preferences', () => {
       'cut-flagged': false,
       'version-current': true,
       'integrity-failed': true,
+      'trail-sealed': true,
     });
     expect(await ctx.db('notification_opt_outs').where({ user_id: personId }).orderBy('kind').pluck('kind')).to.deep.equal(['cut-flagged', 'review-due']);
 

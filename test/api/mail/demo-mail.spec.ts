@@ -4,6 +4,9 @@
  * acknowledged all but the newest, and his Today shows that one.
  */
 import { expect } from 'chai';
+import { mkdtempSync } from 'node:fs';
+import os from 'node:os';
+import { join } from 'node:path';
 import { NOTIFICATION_KINDS } from '../../../shared/notification-kinds';
 import type { MailRow } from '../../../server/data/mail-outbox';
 import { createMailTransport, deliverDueMails } from '../../../server/services/mail/worker';
@@ -16,6 +19,7 @@ import { startMailCatcher } from '../../../server/tools/mail-catcher';
 import { DEMO_ACCOUNTS } from '../../../seeds/data/demo-accounts';
 import { apiTestContext } from '../support/hooks';
 import { reportIntegrityFailure } from '../../../server/services/recipes/integrity-alert';
+import { sealTrail } from '../../../server/services/trail/seals';
 
 const BASE = 'https://kerfbook.harrowgate.example';
 const MAIL = { baseUrl: BASE };
@@ -88,6 +92,10 @@ describe('Demo seeds: machines, acknowledgements and the mail they caused', () =
       { ok: false, problems: ['A finding made up for this delivery test.'] },
     );
 
+    // A seal of the trail's chain head, mailed to the demo auditor.
+    const sealDir = mkdtempSync(join(os.tmpdir(), 'kerfbook-demo-seals-'));
+    expect(await sealTrail(ctx.db, { dir: sealDir, mail: MAIL }, 'interval')).to.not.equal(null);
+
     const queued = (await ctx.db<MailRow>('mail_outbox').whereNull('sent_at').orderBy('id')) as MailRow[];
     const kinds = new Set(queued.map((m) => m.kind));
     for (const kind of [...NOTIFICATION_KINDS, 'invitation', 'password-reset']) expect(kinds, kind).to.include(kind);
@@ -120,6 +128,10 @@ describe('Demo seeds: machines, acknowledgements and the mail they caused', () =
     if (token) {
       expect(['invitation', 'password-reset']).to.include(kind);
       expect((await inspectLink(ctx.db, token[1]!)).purpose).to.equal(kind);
+      return;
+    }
+    if (kind === 'trail-sealed') {
+      expect(path).to.equal('/trail');
       return;
     }
     const recipe = /^\/recipes\/(\d+)(?:\/(review|edit)|\/acknowledge\?v=(\d+)|\?v=(\d+)(?:&tab=cuts)?)$/.exec(path);

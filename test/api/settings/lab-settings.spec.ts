@@ -35,6 +35,7 @@ describe('Lab settings', () => {
       reviewIntervalMonths: _r,
       defaultUnits: _d,
       dateFormat: _f,
+      sealIntervalHours: _h,
       revision: _v,
       updatedAt: _u,
       ...settingsLimits

@@ -1,6 +1,8 @@
 /** The app under test, built with createApp (no port), and agents that talk to it. */
 import type { Express, Router } from 'express';
 import type { Knex } from 'knex';
+import os from 'node:os';
+import path from 'node:path';
 import request from 'supertest';
 import { expect } from 'chai';
 import { createApp } from '../../../server/app';
@@ -19,6 +21,8 @@ export function testConfig(overrides: Partial<Config> = {}): Config {
     trustProxy: false,
     distDir: '/nonexistent/kerfbook-dist',
     production: false,
+    // Never the working copy's .data/seals: approvals in any test seal the trail.
+    sealDir: path.join(os.tmpdir(), `kerfbook-test-seals-${process.pid}`),
     ...overrides,
   };
 }
