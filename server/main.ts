@@ -4,6 +4,7 @@
  */
 import { publicAddressWarning, readConfig } from './config';
 import { createDb } from './data/db';
+import { schemaChangeWarning } from './data/database-accounts';
 import { startJobs } from './jobs';
 import { serve } from './serve';
 
@@ -22,6 +23,8 @@ try {
   console.log(`Kerfbook is listening on ${server.url}`);
   const warning = publicAddressWarning(config);
   if (warning) console.warn(`Warning: ${warning}`);
+  const accountWarning = await schemaChangeWarning(db).catch(() => null);
+  if (accountWarning) console.warn(`Warning: ${accountWarning}`);
   let stopping = false;
   const stop = async (signal: string) => {
     if (stopping) return;

@@ -16,7 +16,8 @@ const USAGE = 'Usage: KERFBOOK_ADMIN_PASSWORD=… DATABASE_URL=mysql://… npm r
 
 async function main(): Promise<number> {
   const [username, displayName, email] = process.argv.slice(2);
-  const databaseUrl = process.env['DATABASE_URL'];
+  // Migrating needs the owner account when the app has its own (README.md, "Database accounts").
+  const databaseUrl = process.env['MIGRATION_DATABASE_URL'] || process.env['DATABASE_URL'];
   if (!username || !displayName || !databaseUrl) {
     console.error(USAGE);
     return 2;

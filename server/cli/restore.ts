@@ -28,6 +28,8 @@ async function main(): Promise<number> {
     const started = Date.now();
     const result = await restoreBackup(target.databaseUrl, file, {
       ...(target.prepareScratch ? { prepareScratch: target.prepareScratch } : {}),
+      ...(target.appDatabaseUrl ? { appDatabaseUrl: target.appDatabaseUrl } : {}),
+      ...(target.regrant ? { regrant: target.regrant } : {}),
       log: (line) => console.log(`[restore] ${line}`),
     });
     if (result.migrationsRun.length) console.log(`[restore] the backup had an older schema; migrated it: ${result.migrationsRun.join(', ')}`);

@@ -1,18 +1,19 @@
 /**
- * `npm start`: local MariaDB (unless DATABASE_URL is given), migrations, demo data on an
- * empty database, Angular build, a local mail catcher (unless SMTP_URL is given), then the
- * server. Ctrl-C stops the server, the catcher and the MariaDB this script started.
+ * `npm start`: local MariaDB (unless DATABASE_URL is given) with its two accounts,
+ * migrations as the owner account, demo data on an empty database, Angular build, a local mail catcher (unless SMTP_URL is given), then the
+ * server on the app's account. Ctrl-C stops the server, the catcher and the MariaDB this script started.
  */
 import { spawnSync } from 'node:child_process';
 import path from 'node:path';
 import { readConfig } from '../config';
 import { createDb } from '../data/db';
+import { schemaChangeWarning } from '../data/database-accounts';
 import { startJobs } from '../jobs';
 import { serve } from '../serve';
 import { DEMO_ACCOUNTS } from '../../seeds/data/demo-accounts';
 import { migrate } from '../data/migrate';
 import { seedDemoIfEmpty } from './db-setup';
-import { ensureDebianPackage, ensureDatabase, initDataDir, isRunning, localMariadb, start, stop } from './local-mariadb';
+import { ensureAccounts, ensureDebianPackage, initDataDir, isRunning, localMariadb, start, stop } from './local-mariadb';
 import { MAIL_DIR, startMailCatcher, type MailCatcher } from './mail-catcher';
 import { BIN, DATA_DIR, ROOT, persistentSecret } from './project-files';
 
@@ -20,17 +21,21 @@ const env = process.env;
 let stopDatabase: (() => Promise<void>) | null = null;
 
 async function main(): Promise<void> {
+  // The app's account (rows only) and the owner account that runs the migrations.
   let databaseUrl = env['DATABASE_URL'];
+  let migrationUrl = env['MIGRATION_DATABASE_URL'];
   if (databaseUrl) {
-    console.log('[db] using DATABASE_URL; nothing is installed or started.');
+    console.log(`[db] using DATABASE_URL${migrationUrl ? ' (migrations: MIGRATION_DATABASE_URL)' : ''}; nothing is installed or started.`);
+    migrationUrl ||= databaseUrl;
   } else {
+    if (migrationUrl) console.warn('[db] MIGRATION_DATABASE_URL is ignored without DATABASE_URL: the local MariaDB has its own two accounts.');
     ensureDebianPackage('mariadbd', 'mariadb-server');
     const local = localMariadb(path.join(DATA_DIR, 'mariadb'), Number(env['KERFBOOK_DB_PORT'] ?? 33306));
     const created = initDataDir(local);
     const wasRunning = isRunning(local);
     await start(local);
     if (!wasRunning) stopDatabase = () => stop(local);
-    databaseUrl = ensureDatabase(local, 'kerfbook');
+    ({ appUrl: databaseUrl, ownerUrl: migrationUrl } = ensureAccounts(local, 'kerfbook'));
     console.log(`[db] MariaDB on 127.0.0.1:${local.port}, data in ${path.relative(ROOT, local.dir)}/${created ? ' (new)' : ''}`);
   }
 
@@ -47,14 +52,22 @@ async function main(): Promise<void> {
   const config = readConfig({
     ...env,
     DATABASE_URL: databaseUrl,
+    MIGRATION_DATABASE_URL: migrationUrl,
     SMTP_URL: smtpUrl,
     SESSION_SECRET: env['SESSION_SECRET'] ?? persistentSecret('session-secret'),
   });
+  const owner = createDb(config.migrationDatabaseUrl ?? config.databaseUrl);
+  try {
+    const ran = await migrate(owner);
+    console.log(`[db] migrations: ${ran.length ? ran.join(', ') : 'up to date'}`);
+    const seeded = env['KERFBOOK_DEMO'] === '0' ? false : await seedDemoIfEmpty(owner);
+    if (seeded) console.log('[db] demo data loaded');
+  } finally {
+    await owner.destroy();
+  }
   const db = createDb(config.databaseUrl);
-  const ran = await migrate(db);
-  console.log(`[db] migrations: ${ran.length ? ran.join(', ') : 'up to date'}`);
-  const seeded = env['KERFBOOK_DEMO'] === '0' ? false : await seedDemoIfEmpty(db);
-  if (seeded) console.log('[db] demo data loaded');
+  const accountWarning = await schemaChangeWarning(db);
+  if (accountWarning) console.warn(`[db] Warning: ${accountWarning}`);
 
   if (env['KERFBOOK_SKIP_BUILD'] !== '1') {
     console.log('[build] building the app (ng build)…');

@@ -10,7 +10,7 @@ import path from 'node:path';
 import { createDb } from '../data/db';
 import { migrate } from '../data/migrate';
 import { seedDemoIfEmpty } from './db-setup';
-import { ensureDebianPackage, ensureDatabase, initDataDir, localMariadb, start, stop } from './local-mariadb';
+import { ensureAccounts, ensureDebianPackage, initDataDir, localMariadb, start, stop } from './local-mariadb';
 import { startMailCatcher } from './mail-catcher';
 import { BIN, DATA_DIR, ROOT } from './project-files';
 import { type Counts, mochaCounts, vitestCounts } from './suite-counts';
@@ -58,8 +58,12 @@ async function main(): Promise<number> {
   ensureDebianPackage('chromium', 'chromium');
 
   // Databases: one for the server tests (tables reset per file), one for e2e (demo data).
+  // Each has two accounts as on a real install: the owner (migrations; the tests' resets
+  // need it, TRUNCATE being a DROP privilege) and the app's, which may only read and write rows.
   let testUrl = env['TEST_DATABASE_URL'];
   let e2eUrl = env['TEST_E2E_DATABASE_URL'];
+  let testAppUrl = env['TEST_APP_DATABASE_URL'];
+  let e2eAppUrl = env['TEST_E2E_APP_DATABASE_URL'];
   let local: ReturnType<typeof localMariadb> | null = null;
   if (!testUrl || !e2eUrl) {
     ensureDebianPackage('mariadbd', 'mariadb-server');
@@ -67,8 +71,8 @@ async function main(): Promise<number> {
     fs.rmSync(local.dir, { recursive: true, force: true });
     initDataDir(local);
     await start(local);
-    testUrl = ensureDatabase(local, 'kerfbook_test');
-    e2eUrl = ensureDatabase(local, 'kerfbook_e2e');
+    ({ ownerUrl: testUrl, appUrl: testAppUrl } = ensureAccounts(local, 'kerfbook_test'));
+    ({ ownerUrl: e2eUrl, appUrl: e2eAppUrl } = ensureAccounts(local, 'kerfbook_e2e'));
     console.log(`[test] throw-away MariaDB on 127.0.0.1:${local.port}`);
   }
 
@@ -82,7 +86,7 @@ async function main(): Promise<number> {
     const prettier = await run(path.join(BIN, 'prettier'), ['--check', '.']);
     record('format (prettier --check)', { passed: prettier.code === 0 ? 1 : 0, failed: 0, skipped: 0 }, prettier.code);
 
-    const serverEnv: NodeJS.ProcessEnv = { DATABASE_URL: testUrl, NODE_ENV: 'test' };
+    const serverEnv: NodeJS.ProcessEnv = { DATABASE_URL: testUrl, NODE_ENV: 'test', ...(testAppUrl ? { TEST_APP_DATABASE_URL: testAppUrl } : {}) };
     if (local) {
       // Lets the outage test stop and restart this throw-away MariaDB.
       serverEnv['KERFBOOK_TEST_MARIADB_DIR'] = local.dir;
@@ -99,7 +103,7 @@ async function main(): Promise<number> {
       record('app build (ng build)', null, build.code);
     } else {
       try {
-        record('e2e (chromium)', await runE2e(e2eUrl!), 0);
+        record('e2e (chromium)', await runE2e(e2eUrl!, e2eAppUrl ?? e2eUrl!), 0);
       } catch (err) {
         console.error(`[test] e2e could not run: ${err instanceof Error ? err.message : String(err)}`);
         record('e2e (chromium)', null, 1);
@@ -126,8 +130,11 @@ async function main(): Promise<number> {
   return failed === 0 && passed > 0 ? 0 : 1;
 }
 
-/** Serves the built app from a real server process on the e2e database and runs the browser tests. */
-async function runE2e(databaseUrl: string): Promise<Counts | null> {
+/**
+ * Serves the built app from a real server process on the e2e database, on the app's account
+ * (`appUrl`), and runs the browser tests; they get the owner's URL to set up their data.
+ */
+async function runE2e(databaseUrl: string, appUrl: string): Promise<Counts | null> {
   const db = createDb(databaseUrl);
   await migrate(db);
   await seedDemoIfEmpty(db);
@@ -145,7 +152,7 @@ async function runE2e(databaseUrl: string): Promise<Counts | null> {
     cwd: ROOT,
     env: {
       ...env,
-      DATABASE_URL: databaseUrl,
+      DATABASE_URL: appUrl,
       PORT: String(port),
       HOST: '127.0.0.1',
       SESSION_SECRET: 'e2e-'.padEnd(48, 'x'),
@@ -160,6 +167,7 @@ async function runE2e(databaseUrl: string): Promise<Counts | null> {
     const e2e = await run(path.join(BIN, 'mocha'), ['--config', 'test/e2e/.mocharc.json'], {
       BASE_URL: baseUrl,
       E2E_DATABASE_URL: databaseUrl,
+      E2E_APP_DATABASE_URL: appUrl,
       E2E_MAIL_DIR: mailDir,
     });
     const counts = mochaCounts(e2e.output);

@@ -16,7 +16,7 @@ import type { Knex } from 'knex';
 import { createDb } from '../../server/data/db';
 import { migrate } from '../../server/data/migrate';
 import { seedDemoIfEmpty } from '../../server/tools/db-setup';
-import { ensureDebianPackage, ensureDatabase, initDataDir, isRunning, localMariadb, start, stop, type LocalMariadb } from '../../server/tools/local-mariadb';
+import { ensureAccounts, ensureDebianPackage, initDataDir, isRunning, localMariadb, start, stop, type LocalMariadb } from '../../server/tools/local-mariadb';
 import { DATA_DIR } from '../../server/tools/project-files';
 import { CheckList, checkAnswers, checkConsistency, checkFaults, checkLedger, checkMail, waitForOutbox } from './checks';
 import { appCrash, databaseOutage, mailOutage, MailService, type FaultLog } from './faults';
@@ -91,7 +91,8 @@ async function main(): Promise<number> {
   fs.rmSync(mariadb.dir, { recursive: true, force: true });
   initDataDir(mariadb);
   await start(mariadb);
-  const databaseUrl = ensureDatabase(mariadb, 'kerfbook_soak');
+  // As `npm start` does: the owner account migrates and seeds (and checks afterwards), the app runs on its rows-only account.
+  const { ownerUrl: databaseUrl, appUrl } = ensureAccounts(mariadb, 'kerfbook_soak');
   console.log(`[soak] throw-away MariaDB on 127.0.0.1:${mariadb.port}`);
 
   db = createDb(databaseUrl);
@@ -111,7 +112,7 @@ async function main(): Promise<number> {
     await freePort(),
     {
       NODE_ENV: 'test',
-      DATABASE_URL: databaseUrl,
+      DATABASE_URL: appUrl,
       SESSION_SECRET: randomBytes(32).toString('base64url'),
       SMTP_URL: `smtp://127.0.0.1:${mail.port}`,
       APP_BASE_URL: 'http://127.0.0.1',

@@ -10,7 +10,13 @@
  *     manifest's; an older schema is migrated; the trail chain verifies (verifyChain);
  *  4. the current contents are saved as a backup (`…-before-restore.tar.gz`);
  *  5. the scratch tables are swapped in (swap-tables.ts) through `<db>_previous`, and the
- *     two scratch databases are dropped.
+ *     two scratch databases are dropped;
+ *  6. the accounts' grants are made again (on the local MariaDB) and the app's account is
+ *     checked to read every restored table.
+ *
+ * It runs as the owner account (the migrations' one: it drops and makes triggers). When the
+ * app has an account of its own, that one is asked too whether it is connected: an account
+ * without the PROCESS privilege sees only its own connections.
  */
 import fs from 'node:fs';
 import { Transform } from 'node:stream';
@@ -36,6 +42,10 @@ export interface RestoreOptions {
    * with ensureDatabase). Without it the account must be allowed to create it itself.
    */
   prepareScratch?: (name: string) => void | Promise<void>;
+  /** The app's own account (rows only), when it is not the one of `databaseUrl`. */
+  appDatabaseUrl?: string;
+  /** Makes both accounts' grants again after the swap (on the local MariaDB: as root). */
+  regrant?: () => void | Promise<void>;
   /** Where the backup of the replaced contents goes; default `backups/`. */
   backupDir?: string;
   log?: (line: string) => void;
@@ -86,6 +96,37 @@ async function refuseIfInUse(c: mysql.Connection, database: string): Promise<voi
     `${rows.length} other connection(s) use ${database} (${who}). Stop the Kerfbook server (npm start, or the service) ` +
       `and anything else connected to it, then restore again.`,
   );
+}
+
+/** The same question asked as the app's account too, which sees its own connections (the server's). */
+async function refuseIfAppConnected(appDatabaseUrl: string | undefined, database: string): Promise<void> {
+  if (!appDatabaseUrl) return;
+  const app = await connect(parseDatabaseUrl(appDatabaseUrl)).catch((err: unknown) => {
+    throw new RestoreRefusedError(`The app's account (DATABASE_URL) could not connect: ${err instanceof Error ? err.message : String(err)}`);
+  });
+  try {
+    await refuseIfInUse(app, database);
+  } finally {
+    await app.end().catch(() => undefined);
+  }
+}
+
+/** After the swap: the app's account reads every table, or the restore says which grant to give. */
+async function checkAppAccount(appDatabaseUrl: string, tables: string[]): Promise<void> {
+  const address = parseDatabaseUrl(appDatabaseUrl);
+  const app = await connect(address);
+  try {
+    for (const t of tables) {
+      await app.query(`SELECT 1 FROM ${q(t)} LIMIT 0`).catch((err: unknown) => {
+        throw new Error(
+          `The backup is restored, but the app's account ${address.user} cannot read ${t} (${err instanceof Error ? err.message : String(err)}). ` +
+            `Give it its grant again: GRANT SELECT, INSERT, UPDATE, DELETE ON ${q(address.database)}.* TO '${address.user}'@'<host>' (README.md, "Database accounts").`,
+        );
+      });
+    }
+  } finally {
+    await app.end().catch(() => undefined);
+  }
 }
 
 const DEFINER_COMMENT = /\/\*!50017 DEFINER=(?:`(?:[^`]|``)*`|\S+?)@(?:`(?:[^`]|``)*`|\S+?)\s*\*\/ ?/g;
@@ -192,6 +233,7 @@ export async function restoreBackup(databaseUrl: string, file: string, options: 
     if (previous.length > 64) throw new RestoreRefusedError(`The database name ${target} is too long for the scratch names (${previous}).`);
     c = await connect(address);
     await refuseIfInUse(c, target);
+    await refuseIfAppConnected(options.appDatabaseUrl, target);
 
     const [[left]] = await c.query<Rows>('SELECT COUNT(*) AS n FROM information_schema.TABLES WHERE TABLE_SCHEMA = ?', [previous]);
     if (Number(left!['n']) > 0) {
@@ -219,6 +261,7 @@ export async function restoreBackup(databaseUrl: string, file: string, options: 
 
     // Checked again: the app may have been started while the backup loaded.
     await refuseIfInUse(c, target);
+    await refuseIfAppConnected(options.appDatabaseUrl, target);
     await swapIn(c, target, scratch, previous).catch((err: unknown) => {
       if (err instanceof SwapUndoFailedError) {
         keepPrevious = true;
@@ -226,6 +269,8 @@ export async function restoreBackup(databaseUrl: string, file: string, options: 
       }
       throw new RestoreRefusedError(`Swapping the restored tables in failed and was undone: ${err instanceof Error ? err.message : String(err)}`);
     });
+    await options.regrant?.();
+    if (options.appDatabaseUrl) await checkAppAccount(options.appDatabaseUrl, await baseTables(c, target));
     return { manifest, previousContents, ...checked };
   } finally {
     if (c && scratchMade) {

@@ -1,15 +1,22 @@
 /**
- * Which database `npm run backup` and `npm run restore` work on: DATABASE_URL when given,
+ * Which database `npm run backup` and `npm run restore` work on, as the owner account
+ * (the dump reads the triggers, the restore makes them): MIGRATION_DATABASE_URL (or
+ * DATABASE_URL alone, when one account does everything) when given,
  * otherwise the one `npm start` uses (its own MariaDB in .data/mariadb, port 33306 or
  * KERFBOOK_DB_PORT), started the same way when it is not running and stopped afterwards.
  */
 import fs from 'node:fs';
 import path from 'node:path';
-import { ensureDatabase, ensureDebianPackage, initDataDir, isRunning, localMariadb, start, stop } from '../../tools/local-mariadb';
+import { ensureAccounts, ensureDatabase, ensureDebianPackage, initDataDir, isRunning, localMariadb, start, stop } from '../../tools/local-mariadb';
 import { DATA_DIR } from '../../tools/project-files';
 
 export interface Target {
+  /** The owner account's. */
   databaseUrl: string;
+  /** The app's own account, when it has one: a restore checks it is not connected, and that it reads the restored tables. */
+  appDatabaseUrl?: string;
+  /** On the local MariaDB: makes both accounts' grants again after a restore (as root). */
+  regrant?: () => void;
   /** Shown to the user: which database this is. */
   description: string;
   /** On the local MariaDB: makes a scratch database for the app's account (as root). */
@@ -22,6 +29,15 @@ export interface Target {
 export async function openTarget(create: boolean): Promise<Target> {
   const env = process.env;
   const url = env['DATABASE_URL'];
+  const owner = env['MIGRATION_DATABASE_URL'];
+  if (url && owner) {
+    return {
+      databaseUrl: owner,
+      appDatabaseUrl: url,
+      description: `MIGRATION_DATABASE_URL (${new URL(owner).pathname.slice(1)})`,
+      close: async () => undefined,
+    };
+  }
   if (url) return { databaseUrl: url, description: `DATABASE_URL (${new URL(url).pathname.slice(1)})`, close: async () => undefined };
 
   const local = localMariadb(path.join(DATA_DIR, 'mariadb'), Number(env['KERFBOOK_DB_PORT'] ?? 33306));
@@ -34,8 +50,11 @@ export async function openTarget(create: boolean): Promise<Target> {
   await start(local);
   const close = wasRunning ? async () => undefined : () => stop(local);
   try {
+    const accounts = ensureAccounts(local, 'kerfbook');
     return {
-      databaseUrl: ensureDatabase(local, 'kerfbook'),
+      databaseUrl: accounts.ownerUrl,
+      appDatabaseUrl: accounts.appUrl,
+      regrant: () => void ensureAccounts(local, 'kerfbook'),
       description: `the local database of npm start (MariaDB on 127.0.0.1:${local.port}${wasRunning ? '' : ', started for this and stopped after'})`,
       prepareScratch: (name) => void ensureDatabase(local, name),
       close,

@@ -4,6 +4,8 @@
  * make (a new recipe, trail events, a renamed person, cut records and signatures emptied
  * behind the triggers' back), then the restore: every table exactly as it was, the chain
  * verifying, the triggers back and still refusing. And the refusals, each changing nothing.
+ * The restore runs as the owner account (DATABASE_URL here); the app's own account
+ * (TEST_APP_DATABASE_URL, from `npm test`) must keep working after it.
  */
 import { expect } from 'chai';
 import { execFileSync } from 'node:child_process';
@@ -24,7 +26,7 @@ import { parseDatabaseUrl } from '../../../server/cli/backup/mariadb-clients';
 import { RestoreRefusedError, restoreBackup, type RestoreOptions } from '../../../server/cli/backup/restore-backup';
 import { createStockSet } from '../support/stock';
 import { buildTestApp } from '../support/test-app';
-import { closeTestDb, resetTables, testDatabaseUrl, testDb } from '../support/test-database';
+import { closeTestDb, resetTables, testAppDatabaseUrl, testDatabaseUrl, testDb } from '../support/test-database';
 import { act, approved, createDraft, ok, sessionFor } from '../workflow/workflow-support';
 
 /**
@@ -114,7 +116,8 @@ describe('Backup and restore (npm run backup / restore)', function () {
   before(async function () {
     work = fs.mkdtempSync(path.join(os.tmpdir(), 'kerfbook-backup-test-'));
     const prepareScratch = scratchMaker();
-    options = { backupDir: work, ...(prepareScratch ? { prepareScratch } : {}) };
+    const appDatabaseUrl = process.env['TEST_APP_DATABASE_URL'];
+    options = { backupDir: work, ...(prepareScratch ? { prepareScratch } : {}), ...(appDatabaseUrl ? { appDatabaseUrl } : {}) };
     db = await testDb();
     await resetTables(db);
     await seedDemoIfEmpty(db);
@@ -213,11 +216,12 @@ describe('Backup and restore (npm run backup / restore)', function () {
     expect((left as [unknown[]])[0]).to.deep.equal([]);
   });
 
-  it('refuses while another connection uses the database (a running app), changing nothing', async () => {
-    const other = (await import('../../../server/data/db')).createDb(testDatabaseUrl());
+  it('refuses while another connection uses the database (a running app, on its own account), changing nothing', async () => {
+    const other = (await import('../../../server/data/db')).createDb(testAppDatabaseUrl());
     try {
       await other.raw('SELECT 1');
-      const err = await restoreBackup(testDatabaseUrl(), backup.file, options).then(
+      // Only the app's connection is left: the test's own pool lets go first.
+      const err = await restoreAlone(backup.file).then(
         () => null,
         (e: unknown) => e,
       );
@@ -268,6 +272,33 @@ describe('Backup and restore (npm run backup / restore)', function () {
         (e: Error) => e,
       );
     expect(refused?.message).to.match(/signatures are permanent/);
+  });
+
+  it("leaves the app's own account working on the restored tables: rows yes, triggers still refusing, schema no", async function () {
+    if (!options.appDatabaseUrl) {
+      console.warn('    TEST_APP_DATABASE_URL is not set (npm test sets it): skipped.');
+      this.skip();
+    }
+    const appDb = (await import('../../../server/data/db')).createDb(options.appDatabaseUrl!);
+    try {
+      expect(await appDb('recipes').count({ n: '*' }).first()).to.deep.equal({ n: original['recipes']!.length });
+      const [id] = await appDb('sign_in_failures').insert({ username: 'after-restore', client_address: '192.0.2.16', failed_at: new Date() });
+      expect(await appDb('sign_in_failures').where({ id }).del()).to.equal(1);
+      const kept = await appDb('signatures')
+        .del()
+        .then(
+          () => null,
+          (e: Error) => e,
+        );
+      expect(kept?.message).to.match(/signatures are permanent/);
+      const dropped = await appDb.raw('DROP TRIGGER signatures_no_delete').then(
+        () => null,
+        (e: { code?: string }) => e,
+      );
+      expect(dropped?.code).to.be.oneOf(['ER_TABLEACCESS_DENIED_ERROR', 'ER_SPECIFIC_ACCESS_DENIED_ERROR', 'ER_DBACCESS_DENIED_ERROR']);
+    } finally {
+      await appDb.destroy();
+    }
   });
 
   it('keeps the replaced contents as a backup that restores in turn', async () => {

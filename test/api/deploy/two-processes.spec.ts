@@ -19,7 +19,7 @@ import { assignMachine } from '../mail/notifications-support';
 import { createPerson, type TestPerson } from '../support/people';
 import { createStockSet } from '../support/stock';
 import { buildTestApp, setCookie, signedInAgent, type Agent } from '../support/test-app';
-import { resetTables, testDatabaseUrl, testDb } from '../support/test-database';
+import { resetTables, testAppDatabaseUrl, testDb } from '../support/test-database';
 import { act, approved, createDraft, ok, sessionFor } from '../workflow/workflow-support';
 import { freePort, startAppProcess, type AppProcess } from './app-processes';
 import { BACKEND_HEADER, startRoundRobinProxy, type RoundRobinProxy } from './round-robin-proxy';
@@ -105,7 +105,7 @@ describe('Several app processes behind a reverse proxy on one MariaDB', () => {
     const env = (port: number): NodeJS.ProcessEnv => ({
       ...process.env,
       NODE_ENV: 'test',
-      DATABASE_URL: testDatabaseUrl(),
+      DATABASE_URL: testAppDatabaseUrl(),
       HOST: '127.0.0.1',
       PORT: String(port),
       SESSION_SECRET,

@@ -16,6 +16,15 @@ export function testDatabaseUrl(): string {
   return url;
 }
 
+/**
+ * The app's own account on the same database (rows only), which `npm test` makes beside the
+ * owner account in DATABASE_URL; the owner's when it is not given. App processes the tests
+ * start run on it, as a real server does.
+ */
+export function testAppDatabaseUrl(): string {
+  return process.env['TEST_APP_DATABASE_URL'] || testDatabaseUrl();
+}
+
 /** One Knex pool for the whole mocha run (mocha exits when the run ends). */
 export async function testDb(): Promise<Knex> {
   shared ??= createDb(testDatabaseUrl());

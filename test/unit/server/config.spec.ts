@@ -19,6 +19,7 @@ describe('readConfig (environment variables)', () => {
   it('reads every variable it knows, an empty one counting as unset', () => {
     const config = readConfig({
       ...base,
+      MIGRATION_DATABASE_URL: 'mysql://owner:p@127.0.0.1:3306/db',
       PORT: '0',
       HOST: '0.0.0.0',
       TRUST_PROXY: '1',
@@ -31,6 +32,7 @@ describe('readConfig (environment variables)', () => {
     });
     expect(config).to.deep.equal({
       databaseUrl: base.DATABASE_URL,
+      migrationDatabaseUrl: 'mysql://owner:p@127.0.0.1:3306/db',
       port: 0,
       host: '0.0.0.0',
       sessionSecret: base.SESSION_SECRET,
