@@ -146,6 +146,9 @@ async function runE2e(databaseUrl: string, appUrl: string): Promise<Counts | nul
   // caught from its folder (they run in another process) and follow the links.
   const mailDir = path.join(DATA_DIR, `test-mail-${process.pid}`);
   fs.rmSync(mailDir, { recursive: true, force: true });
+  // The e2e approvals seal the trail: into a folder of this run, not the checkout's own seals.
+  const sealDir = path.join(DATA_DIR, `test-seals-${process.pid}`);
+  fs.rmSync(sealDir, { recursive: true, force: true });
   const catcher = await startMailCatcher(0, { dir: mailDir });
   console.log(`[test] mail catcher on smtp://127.0.0.1:${catcher.port}`);
   const server = spawn(path.join(BIN, 'tsx'), ['server/main.ts'], {
@@ -159,6 +162,7 @@ async function runE2e(databaseUrl: string, appUrl: string): Promise<Counts | nul
       SMTP_URL: `smtp://127.0.0.1:${catcher.port}`,
       APP_BASE_URL: baseUrl,
       MAIL_INTERVAL_MS: '500',
+      SEAL_DIR: sealDir,
     },
     stdio: ['ignore', 'inherit', 'inherit'],
   });
@@ -180,6 +184,7 @@ async function runE2e(databaseUrl: string, appUrl: string): Promise<Counts | nul
     }
     await catcher.stop();
     fs.rmSync(mailDir, { recursive: true, force: true });
+    fs.rmSync(sealDir, { recursive: true, force: true });
   }
 }
 
