@@ -2,8 +2,16 @@ import { ChangeDetectionStrategy, Component, computed, input } from '@angular/co
 import DOMPurify, { type Config } from 'dompurify';
 import { Marked } from 'marked';
 
-/** Our own marked instance, so no other code can change how recipes render. GitHub-flavoured, synchronous. */
-const markdownParser = new Marked({ gfm: true, breaks: false, async: false });
+const HTML_ESCAPES: Record<string, string> = { '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' };
+const escapeHtml = (text: string) => text.replace(/[&<>"']/g, (c) => HTML_ESCAPES[c]!);
+
+/**
+ * Our own marked instance, so no other code can change how recipes render. GitHub-flavoured,
+ * synchronous. HTML typed into the Markdown is shown as the text it is, as the bench sheet
+ * prints it: recipes need none, and an element with an event handler would make the browser
+ * report a CSP violation even while being sanitized in an inert document.
+ */
+const markdownParser = new Marked({ gfm: true, breaks: false, async: false, renderer: { html: ({ text }) => escapeHtml(text) } });
 
 /**
  * Only web, mail and relative links (and image sources). Anything else — javascript:, data:,
@@ -50,8 +58,8 @@ purifier?.addHook('afterSanitizeAttributes', (node) => {
 
 /**
  * Markdown → sanitized HTML. Every piece of Markdown the app shows (instructions, acceptance
- * criteria, cautions) goes through here: marked turns it into HTML, DOMPurify strips scripts,
- * event handlers and unsafe links. Angular's own sanitizer then sees it again in [innerHTML].
+ * criteria, cautions) goes through here: marked turns it into HTML (typed HTML stays text),
+ * DOMPurify strips scripts, event handlers and unsafe links. Angular's own sanitizer then sees it again in [innerHTML].
  */
 export function renderMarkdown(markdown: string): string {
   if (!purifier) return '';
