@@ -96,3 +96,9 @@ export async function listMails(db: Knex, limit: number): Promise<MailRow[]> {
     ])
     .limit(limit);
 }
+
+/** When the newest mail of a kind was written to the outbox, or null when none was. */
+export async function newestMailOfKind(db: Knex, kind: string): Promise<Date | null> {
+  const row = (await db('mail_outbox').where({ kind }).max({ at: 'created_at' }).first()) as { at: Date | string | null } | undefined;
+  return row?.at ? new Date(row.at) : null;
+}

@@ -1,7 +1,8 @@
 /**
  * Sealing the trail: the chain head (last event, its hash, the event count, the time) is
  * written where the app's database account cannot reach — a line in the seal file and a
- * mail to every auditor — at the lab's seal interval and after every approval. A seal lets
+ * mail to every auditor — at the lab's seal interval and after every approval (an
+ * approval's seal is mailed at most once an hour). A seal lets
  * `npm run trail:verify` find rows cut from the end of the trail, or rewritten, before it.
  *
  * Any number of app processes may seal: a named database lock lets one writer at a time
@@ -12,12 +13,19 @@ import type { Knex } from 'knex';
 import { countTrailEvents, claimSeal, newestSeal, releaseSealLock, takeSealLock } from '../../data/trail-seals';
 import { findLabSettings } from '../../data/lab-settings';
 import { readChainHead } from '../../data/trail-events';
+import { newestMailOfKind } from '../../data/mail-outbox';
 import { notifyTrailSealed } from '../mail/notifications';
 import type { MailSettings } from '../mail/settings';
 import { startRepeatingJob } from '../repeating-job';
 import { appendSeal, type SealLine, type SealReason } from './seal-file';
 
 export const DEFAULT_SEAL_INTERVAL_HOURS = 24;
+/**
+ * An approval's seal is mailed only when no seal mail went out within this time: each seal
+ * is in the file, and the newest mailed seal anchors everything before it, so a busy day
+ * of approvals does not bury the auditors in mail. The regular seal is always mailed.
+ */
+export const SEAL_MAIL_GAP_MS = 3600_000;
 /** How long a seal run waits for another process's seal to be written. */
 const LOCK_WAIT_SECONDS = 30;
 
@@ -54,7 +62,8 @@ export async function sealTrail(db: Knex, settings: SealSettings, reason: SealRe
         sealed_at: now,
       });
       if (!claimed) return null;
-      await notifyTrailSealed(trx, settings.mail, seal, now);
+      const lastMailed = reason === 'interval' ? null : await newestMailOfKind(trx, 'trail-sealed');
+      if (!lastMailed || now.getTime() - lastMailed.getTime() >= SEAL_MAIL_GAP_MS) await notifyTrailSealed(trx, settings.mail, seal, now);
       // Last: a failed write rolls the claim and the mails back, and the next run tries again.
       return await appendSeal(settings.dir, seal);
     } finally {

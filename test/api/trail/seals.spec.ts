@@ -105,6 +105,29 @@ describe('Trail seals', function () {
     }
   });
 
+  it('a busy hour of approvals seals each one in the file but mails the auditors at most once an hour; the regular seal always mails', async () => {
+    // Without this the soak's 86 approvals in two minutes queued 957 seal mails.
+    const stock = await createStockSet(ctx.db);
+    const mailed = async () => Number((await ctx.db('mail_outbox').where({ kind: 'trail-sealed' }).count({ n: '*' }).first())!.n);
+    const linesBefore = (await fileSeals()).length;
+    const mailsBefore = await mailed();
+    ok(await act.approve(approver, await inReview(author, stock)));
+    ok(await act.approve(approver, await inReview(author, stock)));
+    expect((await fileSeals()).length - linesBefore, 'a seal line per approval').to.equal(2);
+    expect(await mailed(), 'no seal mail again within the hour').to.equal(mailsBefore);
+    // The regular seal mails whatever the hour.
+    await someEvents(ctx.db, 1);
+    expect(await sealTrail(ctx.db, seals, 'interval')).to.not.equal(null);
+    expect(await mailed()).to.equal(mailsBefore + auditors.length);
+    // An hour after the last seal mail, an approval's seal mails again.
+    await ctx
+      .db('mail_outbox')
+      .where({ kind: 'trail-sealed' })
+      .update({ created_at: new Date(Date.now() - 3600_000 - 1000) });
+    ok(await act.approve(approver, await inReview(author, stock)));
+    expect(await mailed()).to.equal(mailsBefore + 2 * auditors.length);
+  });
+
   it('writes one seal for one head when two processes seal at the same moment, whatever their seal directories', async () => {
     await someEvents(ctx.db, 3);
     const head = await lastEventId(ctx.db);
