@@ -7,17 +7,13 @@ export interface FailureWindow {
   oldest: Date | null;
 }
 
-/** Rows of the window; with `upToId`, only that row and the ones written before it. */
-export async function failuresSince(db: Knex, username: string, clientAddress: string, since: Date, upToId?: number): Promise<FailureWindow> {
-  const query = db('sign_in_failures').where({ username, client_address: clientAddress }).andWhere('failed_at', '>', since);
-  if (upToId !== undefined) query.andWhere('id', '<=', upToId);
-  const row = (await query.first(db.raw('count(*) as count'), db.raw('min(failed_at) as oldest'))) as { count: number; oldest: Date | null };
-  return { count: Number(row.count), oldest: row.oldest ? new Date(row.oldest) : null };
-}
-
-/** Rows of the window from one address, whatever username they tried; with `upToId`, only up to that row. */
-export async function addressFailuresSince(db: Knex, clientAddress: string, since: Date, upToId?: number): Promise<FailureWindow> {
+/**
+ * Rows of the window from one address: for one username, or with `username` null whatever
+ * name they tried (password spraying). With `upToId`, only that row and the ones written before it.
+ */
+export async function failuresSince(db: Knex, username: string | null, clientAddress: string, since: Date, upToId?: number): Promise<FailureWindow> {
   const query = db('sign_in_failures').where({ client_address: clientAddress }).andWhere('failed_at', '>', since);
+  if (username !== null) query.andWhere({ username });
   if (upToId !== undefined) query.andWhere('id', '<=', upToId);
   const row = (await query.first(db.raw('count(*) as count'), db.raw('min(failed_at) as oldest'))) as { count: number; oldest: Date | null };
   return { count: Number(row.count), oldest: row.oldest ? new Date(row.oldest) : null };

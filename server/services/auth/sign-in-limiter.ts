@@ -9,7 +9,7 @@
  */
 import type { Knex } from 'knex';
 import { AppError } from '../../app-error';
-import { addressFailuresSince, clearFailures, deleteFailure, deleteFailuresBefore, failuresSince, insertFailure } from '../../data/sign-in-failures';
+import { clearFailures, deleteFailure, deleteFailuresBefore, failuresSince, insertFailure } from '../../data/sign-in-failures';
 
 export const MAX_FAILURES = 10;
 export const MAX_ADDRESS_FAILURES = 30;
@@ -25,7 +25,7 @@ export const WINDOW_MS = 15 * 60 * 1000;
 export async function reserveSignInAttempt(db: Knex, username: string, clientAddress: string, now = new Date()): Promise<number> {
   const id = await insertFailure(db, username, clientAddress, now);
   const since = new Date(now.getTime() - WINDOW_MS);
-  const [named, address] = await Promise.all([failuresSince(db, username, clientAddress, since, id), addressFailuresSince(db, clientAddress, since, id)]);
+  const [named, address] = await Promise.all([failuresSince(db, username, clientAddress, since, id), failuresSince(db, null, clientAddress, since, id)]);
   const overNamed = named.count > MAX_FAILURES;
   const overAddress = address.count > MAX_ADDRESS_FAILURES;
   if (!overNamed && !overAddress) return id;
