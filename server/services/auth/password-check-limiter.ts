@@ -9,7 +9,7 @@
  * are detected and reported at once; README "What it does", review and approval).
  */
 import type { Knex } from 'knex';
-import { AppError } from '../../app-error';
+import type { AppError } from '../../app-error';
 import {
   clearPasswordCheckFailures,
   deletePasswordCheckFailure,
@@ -26,6 +26,7 @@ import { DEFAULT_MAIL_SETTINGS, type MailSettings } from '../mail/settings';
 import { appendTrailEvent } from '../trail/append';
 import { TRAIL_EVENTS } from '../trail/event-types';
 import { verifyPassword } from './passwords';
+import { minutesText, tooManyAttempts } from './too-many-attempts';
 
 /** Half the sign-in limit: a signed-in person has already proven who they are once. */
 export const MAX_PASSWORD_CHECK_FAILURES = 5;
@@ -40,41 +41,21 @@ export interface LimitedPasswordCheck {
   signing?: { versionId: number; meaning: string };
 }
 
-const hhmm = (d: Date) => d.toISOString().slice(11, 16);
-
-function retrySeconds(until: Date, now: Date): number {
-  return Math.max(1, Math.ceil((until.getTime() - now.getTime()) / 1000));
-}
-
 function blocked(until: Date, now: Date): AppError {
-  const seconds = retrySeconds(until, now);
-  const minutes = Math.ceil(seconds / 60);
-  return new AppError(
-    429,
-    'TOO_MANY_ATTEMPTS',
-    [
-      {
-        path: '',
-        message: `Too many wrong passwords. Signing and changing your password are blocked; try again in ${minutes} minute${minutes === 1 ? '' : 's'} (after ${hhmm(until)} UTC).`,
-      },
-    ],
-    { headers: { 'Retry-After': String(seconds) } },
+  return tooManyAttempts(
+    until,
+    now,
+    ({ minutes, at }) => `Too many wrong passwords. Signing and changing your password are blocked; try again in ${minutesText(minutes)} (after ${at} UTC).`,
   );
 }
 
 function limitReached(until: Date, now: Date): AppError {
-  return new AppError(
-    429,
-    'TOO_MANY_ATTEMPTS',
-    [
-      {
-        path: '',
-        message:
-          `${MAX_PASSWORD_CHECK_FAILURES} wrong passwords in ${WINDOW_MINUTES} minutes: signing and changing your password are blocked until ${hhmm(until)} UTC. ` +
-          `You have been signed out everywhere and your lab's admins have been told. Sign in again to carry on with other work.`,
-      },
-    ],
-    { headers: { 'Retry-After': String(retrySeconds(until, now)) } },
+  return tooManyAttempts(
+    until,
+    now,
+    ({ at }) =>
+      `${MAX_PASSWORD_CHECK_FAILURES} wrong passwords in ${WINDOW_MINUTES} minutes: signing and changing your password are blocked until ${at} UTC. ` +
+      `You have been signed out everywhere and your lab's admins have been told. Sign in again to carry on with other work.`,
   );
 }
 

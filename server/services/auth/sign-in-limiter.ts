@@ -8,7 +8,7 @@
  * tablets behind one address still sign in after a few typos each.
  */
 import type { Knex } from 'knex';
-import { AppError } from '../../app-error';
+import { minutesText, tooManyAttempts } from './too-many-attempts';
 import { clearFailures, deleteFailure, deleteFailuresBefore, failuresSince, insertFailure } from '../../data/sign-in-failures';
 
 export const MAX_FAILURES = 10;
@@ -34,20 +34,12 @@ export async function reserveSignInAttempt(db: Knex, username: string, clientAdd
   // The limit lifts when the oldest failure of the count that was exceeded leaves the window.
   const window = overNamed ? named : address;
   const retryAt = new Date((window.oldest ?? now).getTime() + WINDOW_MS);
-  const seconds = Math.max(1, Math.ceil((retryAt.getTime() - now.getTime()) / 1000));
-  const minutes = Math.ceil(seconds / 60);
-  throw new AppError(
-    429,
-    'TOO_MANY_ATTEMPTS',
-    [
-      {
-        path: '',
-        message:
-          (overNamed ? `Too many failed sign-ins for this username from your address. ` : `Too many failed sign-ins from your address. `) +
-          `Try again in ${minutes} minute${minutes === 1 ? '' : 's'} (after ${retryAt.toISOString().slice(11, 16)} UTC).`,
-      },
-    ],
-    { headers: { 'Retry-After': String(seconds) } },
+  throw tooManyAttempts(
+    retryAt,
+    now,
+    ({ minutes, at }) =>
+      (overNamed ? `Too many failed sign-ins for this username from your address. ` : `Too many failed sign-ins from your address. `) +
+      `Try again in ${minutesText(minutes)} (after ${at} UTC).`,
   );
 }
 
